@@ -1,0 +1,28 @@
+import { HydrationBoundary, dehydrate } from "@tanstack/react-query";
+import type { Metadata } from "next";
+import { PropertyList } from "@/components/properties/property-list";
+import { requireActor } from "@/lib/auth/require";
+import { listProperties } from "@/lib/properties/queries";
+import { propertyKeys } from "@/lib/properties/query-keys";
+import { makeQueryClient } from "@/lib/query-client";
+
+export const metadata: Metadata = { title: "Properties" };
+
+export default async function PropertiesPage() {
+  const actor = await requireActor(["manager", "technician"]);
+  const queryClient = makeQueryClient();
+  await queryClient.prefetchQuery({ queryKey: propertyKeys.list(), queryFn: () => listProperties(actor) });
+  const isManager = actor.role === "manager";
+
+  return (
+    <>
+      <h1 className="text-3xl font-bold">{isManager ? "Properties" : "My properties"}</h1>
+      <p className="mb-6 mt-1 text-muted">
+        {isManager ? `Every property ${actor.companyName} serves.` : "The properties assigned to you."}
+      </p>
+      <HydrationBoundary state={dehydrate(queryClient)}>
+        <PropertyList showTechnician={isManager} />
+      </HydrationBoundary>
+    </>
+  );
+}

@@ -1,0 +1,24 @@
+"use client";
+// A navigation link that marks the current page for sighted and screen-reader users.
+import clsx from "clsx";
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+import type { ReactNode } from "react";
+
+export function NavLink({ href, children, variant }: { href: string; children: ReactNode; variant: "side" | "bar" }) {
+  const pathname = usePathname();
+  const isCurrent = pathname === href || pathname.startsWith(`${href}/`);
+  return (
+    <Link
+      href={href}
+      aria-current={isCurrent ? "page" : undefined}
+      className={clsx(
+        "flex min-h-tap items-center gap-2 rounded-lg font-semibold no-underline",
+        variant === "side" ? "px-3 py-2" : "flex-1 flex-col justify-center gap-0.5 px-2 py-1 text-sm",
+        isCurrent ? "bg-sward-tint text-sward-deep" : "text-ink hover:bg-sward-tint",
+      )}
+    >
+      {children}
+    </Link>
+  );
+}

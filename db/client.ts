@@ -1,0 +1,20 @@
+// Builds a Kysely instance over a pg pool. Used by db/index.ts (the app's singleton) and by
+// scripts and tests that choose their own database.
+import { Kysely, PostgresDialect } from "kysely";
+import pg from "pg";
+import type { Database } from "./schema";
+
+// numeric and bigint arrive as strings by default; Sward's values fit in a double.
+pg.types.setTypeParser(1700, (v) => Number.parseFloat(v));
+pg.types.setTypeParser(20, (v) => Number.parseInt(v, 10));
+
+export function createDb(connectionString: string, options: { max?: number } = {}): Kysely<Database> {
+  const pool = new pg.Pool({ connectionString, max: options.max ?? 10, idleTimeoutMillis: 30_000 });
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+}
+
+/** The local cluster started by db/cluster.sh (loopback, trust auth). */
+export function localDatabaseUrl(database: string): string {
+  const port = process.env.SWARD_PG_PORT ?? "54329";
+  return `postgres://postgres@127.0.0.1:${port}/${database}`;
+}

@@ -1,0 +1,149 @@
+// The one typed view of Sward's database. Table interfaces describe columns; query results use
+// the Selectable/Insertable/Updateable aliases below. Nullable columns are `T | null`, never optional.
+import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
+
+type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
+type NullableTimestamp = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+
+export type Role = "manager" | "technician" | "homeowner";
+export type UnitSystem = "imperial" | "metric";
+export type SunExposure = "full_sun" | "part_shade" | "shade";
+export type Slope = "flat" | "moderate" | "steep";
+
+export interface CompaniesTable {
+  id: Generated<string>;
+  name: string;
+  slug: string;
+  unit_system: ColumnType<UnitSystem, UnitSystem | undefined, UnitSystem>;
+  created_at: Generated<Date>;
+}
+
+export interface UsersTable {
+  id: Generated<string>;
+  email: string;
+  name: string;
+  password_hash: string | null;
+  email_verified: NullableTimestamp;
+  image: string | null;
+  disabled_at: NullableTimestamp;
+  created_at: Generated<Date>;
+}
+
+export interface MembershipsTable {
+  id: Generated<string>;
+  company_id: string;
+  user_id: string;
+  role: Role;
+  created_at: Generated<Date>;
+}
+
+/** OAuth/e-mail provider accounts, as Auth.js models them. */
+export interface AuthAccountsTable {
+  id: Generated<string>;
+  user_id: string;
+  type: string;
+  provider: string;
+  provider_account_id: string;
+  refresh_token: string | null;
+  access_token: string | null;
+  expires_at: number | null;
+  token_type: string | null;
+  scope: string | null;
+  id_token: string | null;
+  session_state: string | null;
+}
+
+/** One row per signed-in browser; the JWT carries its id, sign-out deletes it. */
+export interface AuthSessionsTable {
+  id: string;
+  user_id: string;
+  expires_at: Timestamp;
+  created_at: Generated<Date>;
+  last_seen_at: Generated<Date>;
+}
+
+/** E-mail sign-in tokens (stored hashed), single use. */
+export interface VerificationTokensTable {
+  identifier: string;
+  token: string;
+  expires: Timestamp;
+}
+
+export interface SignInAttemptsTable {
+  id: Generated<string>;
+  email_key: string;
+  address: string;
+  succeeded: boolean;
+  attempted_at: Generated<Date>;
+}
+
+export interface PropertiesTable {
+  id: Generated<string>;
+  company_id: string;
+  name: string;
+  street: string;
+  city: string;
+  region: string;
+  postal_code: string;
+  latitude: number;
+  longitude: number;
+  time_zone: string;
+  technician_id: string | null;
+  archived_at: NullableTimestamp;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export interface PropertyHomeownersTable {
+  property_id: string;
+  user_id: string;
+  company_id: string;
+}
+
+export interface ZonesTable {
+  id: Generated<string>;
+  company_id: string;
+  property_id: string;
+  name: string;
+  area_ft2: number;
+  grass_species: string;
+  sun_exposure: SunExposure;
+  is_irrigated: boolean;
+  slope: Slope;
+  sort_order: Generated<number>;
+  archived_at: NullableTimestamp;
+  created_at: Generated<Date>;
+}
+
+export interface Database {
+  companies: CompaniesTable;
+  users: UsersTable;
+  memberships: MembershipsTable;
+  auth_accounts: AuthAccountsTable;
+  auth_sessions: AuthSessionsTable;
+  verification_tokens: VerificationTokensTable;
+  sign_in_attempts: SignInAttemptsTable;
+  properties: PropertiesTable;
+  property_homeowners: PropertyHomeownersTable;
+  zones: ZonesTable;
+}
+
+export type Company = Selectable<CompaniesTable>;
+export type NewCompany = Insertable<CompaniesTable>;
+export type CompanyUpdate = Updateable<CompaniesTable>;
+export type User = Selectable<UsersTable>;
+export type NewUser = Insertable<UsersTable>;
+export type UserUpdate = Updateable<UsersTable>;
+export type Membership = Selectable<MembershipsTable>;
+export type NewMembership = Insertable<MembershipsTable>;
+export type AuthSession = Selectable<AuthSessionsTable>;
+export type NewAuthSession = Insertable<AuthSessionsTable>;
+export type VerificationToken = Selectable<VerificationTokensTable>;
+export type SignInAttempt = Selectable<SignInAttemptsTable>;
+export type Property = Selectable<PropertiesTable>;
+export type NewProperty = Insertable<PropertiesTable>;
+export type PropertyUpdate = Updateable<PropertiesTable>;
+export type NewPropertyHomeowner = Insertable<PropertyHomeownersTable>;
+export type Zone = Selectable<ZonesTable>;
+export type NewZone = Insertable<ZonesTable>;
+export type ZoneUpdate = Updateable<ZonesTable>;

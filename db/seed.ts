@@ -1,0 +1,25 @@
+// Seeds the demo scenario: `tsx db/seed.ts [--reset]`. Without --reset a company that already
+// exists is left as it is, so running the demo again keeps what you entered.
+import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo-scenario";
+import { createDb, localDatabaseUrl } from "./client";
+import { removeCompany, seedCompany } from "./seed-scenario";
+
+const isReset = process.argv.includes("--reset");
+const db = createDb(process.env.DATABASE_URL ?? localDatabaseUrl("sward"), { max: 2 });
+try {
+  for (const company of demoScenario) {
+    const existing = await db.selectFrom("companies").select("id").where("slug", "=", company.slug).executeTakeFirst();
+    if (existing && !isReset) {
+      console.log(`seed: ${company.name} already present (use --reset to recreate it)`);
+      continue;
+    }
+    if (existing) await removeCompany(db, company.slug);
+    const seeded = await seedCompany(db, company, DEMO_PASSWORD);
+    console.log(`seed: ${company.name}: ${company.people.length} sign-ins, ${Object.keys(seeded.propertyIds).length} properties`);
+  }
+} catch (err) {
+  console.error("seed: failed:", err instanceof Error ? err.message : err);
+  process.exitCode = 1;
+} finally {
+  await db.destroy();
+}

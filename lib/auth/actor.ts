@@ -1,0 +1,22 @@
+// The acting user of a request, as the data-access layer sees it. Always loaded from the
+// database (lib/auth/queries.ts), so a disabled account or a changed role applies at once.
+import type { Role } from "@/db/schema";
+
+export interface Actor {
+  userId: string;
+  companyId: string;
+  companyName: string;
+  role: Role;
+  email: string;
+  name: string;
+  sessionId: string;
+}
+
+export const ROLES = ["manager", "technician", "homeowner"] as const satisfies readonly Role[];
+
+export const isStaff = (actor: Actor) => actor.role === "manager" || actor.role === "technician";
+
+/** Where each role lands after signing in. */
+export function landingPath(role: Role): string {
+  return role === "homeowner" ? "/my-lawn" : "/properties";
+}

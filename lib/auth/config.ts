@@ -1,0 +1,62 @@
+// next-auth (Auth.js v5): e-mail + password with the JWT session strategy. Each JWT carries the
+// id of a row in auth_sessions; sign-out deletes that row, so an old token can do nothing.
+import "server-only";
+import NextAuth, { CredentialsSignin } from "next-auth";
+import Credentials from "next-auth/providers/credentials";
+import { checkCredentials } from "./credentials";
+import { createAuthSession, deleteAuthSession } from "./queries";
+import { signInSchema } from "./schemas";
+
+export const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
+
+class InvalidCredentials extends CredentialsSignin {
+  code = "invalid";
+}
+class ThrottledSignIn extends CredentialsSignin {
+  code = "throttled";
+}
+
+// The right-most x-forwarded-for entry is the one added by the nearest proxy (or by Next from the
+// socket when no proxy is in front), so a client cannot choose it behind a load balancer.
+function clientAddress(request: Request): string {
+  const hops = request.headers.get("x-forwarded-for")?.split(",") ?? [];
+  return hops.at(-1)?.trim() || "unknown";
+}
+
+export const { handlers, auth, signIn, signOut } = NextAuth({
+  trustHost: true,
+  session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
+  pages: { signIn: "/sign-in", error: "/sign-in" },
+  providers: [
+    Credentials({
+      credentials: { email: { type: "email" }, password: { type: "password" } },
+      async authorize(raw, request) {
+        const parsed = signInSchema.safeParse(raw);
+        if (!parsed.success) throw new InvalidCredentials();
+        const result = await checkCredentials({ ...parsed.data, address: clientAddress(request) });
+        if (!result.ok) throw result.reason === "throttled" ? new ThrottledSignIn() : new InvalidCredentials();
+        return { id: result.userId };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user?.id) {
+        token.sub = user.id;
+        token.sid = await createAuthSession(user.id, SESSION_MAX_AGE_SECONDS);
+      }
+      return token;
+    },
+    async session({ session, token }) {
+      // Only the opaque session id travels; who the user is and what they may do is read
+      // from the database on every request (lib/auth/session.ts).
+      return { expires: session.expires, sessionId: typeof token.sid === "string" ? token.sid : undefined } as unknown as typeof session;
+    },
+  },
+  events: {
+    async signOut(message) {
+      const sid = "token" in message ? message.token?.sid : undefined;
+      if (typeof sid === "string") await deleteAuthSession(sid);
+    },
+  },
+});

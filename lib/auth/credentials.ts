@@ -1,0 +1,29 @@
+// Checks an e-mail + password sign-in: throttling first, then Argon2id verification. Unknown
+// e-mails cost the same work as known ones and get the same answer.
+import "server-only";
+import { serverEnv } from "@/lib/env";
+import { decoyPasswordHash, verifyPassword } from "./password";
+import { countRecentFailures, findSignInCandidate, recordSignInAttempt } from "./queries";
+import { isThrottled, normaliseEmail } from "./throttle";
+
+export type CredentialCheck = { ok: true; userId: string } | { ok: false; reason: "invalid" | "throttled" };
+
+export async function checkCredentials(input: { email: string; password: string; address: string }): Promise<CredentialCheck> {
+  const env = serverEnv();
+  const emailKey = normaliseEmail(input.email);
+  const limits = {
+    maxPerAccount: env.SIGN_IN_MAX_PER_ACCOUNT,
+    maxPerAddress: env.SIGN_IN_MAX_PER_ADDRESS,
+    windowMinutes: env.SIGN_IN_WINDOW_MINUTES,
+  };
+  const failures = await countRecentFailures(emailKey, input.address, limits.windowMinutes);
+  if (isThrottled(failures, limits)) return { ok: false, reason: "throttled" };
+
+  const candidate = await findSignInCandidate(emailKey);
+  const hashToCheck = candidate?.passwordHash ?? (await decoyPasswordHash());
+  const isMatch = await verifyPassword(hashToCheck, input.password);
+  const isAllowed = isMatch && candidate !== undefined && !candidate.isDisabled && candidate.role !== null;
+
+  await recordSignInAttempt(emailKey, input.address, isAllowed);
+  return isAllowed ? { ok: true, userId: candidate.userId } : { ok: false, reason: "invalid" };
+}

@@ -1,0 +1,98 @@
+// The one guard that builds every route handler and server action:
+//   session → actor from the database → role → zod parse → call → typed errors.
+// Security decisions live here and in the data-access layer, never only in a layout or proxy.
+import { unstable_rethrow } from "next/navigation";
+import { z } from "zod";
+import type { Role } from "@/db/schema";
+import { AppError, notFound, toErrorBody } from "@/lib/http/app-error";
+import { log } from "@/lib/log";
+import type { Actor } from "./actor";
+
+type Access = readonly Role[] | "public";
+type ActorFor<A extends Access> = A extends "public" ? Actor | null : Actor;
+type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
+
+export type ActionResult<T> =
+  | { ok: true; data: T }
+  | { ok: false; error: { code: string; message: string; fieldErrors?: Record<string, string[]> } };
+
+const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+function invalid(error: z.ZodError, message = "Some values need attention."): AppError {
+  return new AppError("invalid_input", message, z.flattenError(error).fieldErrors as Record<string, string[]>);
+}
+
+function authorise<A extends Access>(actor: Actor | null, access: A): ActorFor<A> {
+  if (access === "public") return actor as ActorFor<A>;
+  if (!actor) throw new AppError("unauthenticated", "Sign in to continue.");
+  if (!access.includes(actor.role)) throw new AppError("forbidden", "Your role cannot do this.");
+  return actor as ActorFor<A>;
+}
+
+/** Refuses cross-site mutations: the Origin (or Fetch Metadata) must name this site. */
+export function assertSameOrigin(request: Request): void {
+  if (!MUTATING.has(request.method)) return;
+  const site = request.headers.get("sec-fetch-site");
+  if (site && site !== "same-origin" && site !== "none") throw new AppError("forbidden", "Cross-site requests are refused.");
+  const origin = request.headers.get("origin");
+  const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
+  if (!origin || !host || new URL(origin).host !== host) throw new AppError("forbidden", "Cross-site requests are refused.");
+}
+
+export function createGuards(resolveActor: () => Promise<Actor | null>) {
+  function route<A extends Access, P extends z.ZodType = z.ZodType<Record<string, never>>, Q extends z.ZodType = z.ZodType<Record<string, never>>, B extends z.ZodType = z.ZodType<undefined>>(
+    spec: { access: A; params?: P; query?: Q; body?: B; /** e.g. "That property": names what a bad id fails to find */ resource?: string },
+    handler: (ctx: { actor: ActorFor<A>; params: z.infer<P>; query: z.infer<Q>; body: z.infer<B>; request: Request }) => Promise<unknown>,
+  ) {
+    return async (request: Request, context?: RouteContext): Promise<Response> => {
+      try {
+        assertSameOrigin(request);
+        const actor = authorise(await resolveActor(), spec.access);
+        const rawParams = (await context?.params) ?? {};
+        const params = spec.params ? spec.params.safeParse(rawParams) : { success: true as const, data: {} };
+        // A malformed id cannot name a record in scope: answer as for any unknown record.
+        if (!params.success) throw notFound(spec.resource);
+        const url = new URL(request.url);
+        const query = spec.query ? spec.query.safeParse(Object.fromEntries(url.searchParams)) : { success: true as const, data: {} };
+        if (!query.success) throw invalid(query.error, "The query string has values that are not allowed.");
+        let body: unknown = undefined;
+        if (spec.body) {
+          const json = await request.json().catch(() => {
+            throw new AppError("invalid_input", "The request body must be JSON.");
+          });
+          const parsed = spec.body.safeParse(json);
+          if (!parsed.success) throw invalid(parsed.error);
+          body = parsed.data;
+        }
+        const result = await handler({ actor, params: params.data as z.infer<P>, query: query.data as z.infer<Q>, body: body as z.infer<B>, request });
+        if (result instanceof Response) return result;
+        return Response.json(result, { headers: { "Cache-Control": "private, no-store" } });
+      } catch (err) {
+        if (!(err instanceof AppError)) log.error({ err, path: new URL(request.url).pathname }, "route failed");
+        const { status, body } = toErrorBody(err);
+        return Response.json(body, { status, headers: { "Cache-Control": "no-store" } });
+      }
+    };
+  }
+
+  function action<A extends Access, I extends z.ZodType, T>(
+    spec: { access: A; input: I },
+    handler: (ctx: { actor: ActorFor<A>; input: z.infer<I> }) => Promise<T>,
+  ) {
+    return async (raw: unknown): Promise<ActionResult<T>> => {
+      try {
+        const actor = authorise(await resolveActor(), spec.access);
+        const source = raw instanceof FormData ? Object.fromEntries(raw) : raw;
+        const parsed = spec.input.safeParse(source);
+        if (!parsed.success) throw invalid(parsed.error);
+        return { ok: true, data: await handler({ actor, input: parsed.data }) };
+      } catch (err) {
+        unstable_rethrow(err); // let Next's redirect() and notFound() through
+        if (!(err instanceof AppError)) log.error({ err }, "action failed");
+        return { ok: false, error: toErrorBody(err).body.error };
+      }
+    };
+  }
+
+  return { route, action };
+}

@@ -1,0 +1,102 @@
+// Data access for sign-in and sessions: the only auth code that touches the database.
+import "server-only";
+import { randomBytes } from "node:crypto";
+import { sql } from "kysely";
+import { db } from "@/db";
+import type { Role } from "@/db/schema";
+import type { Actor } from "./actor";
+import type { RecentFailures } from "./throttle";
+
+export interface SignInCandidate {
+  userId: string;
+  passwordHash: string | null;
+  isDisabled: boolean;
+  role: Role | null;
+}
+
+export async function findSignInCandidate(email: string): Promise<SignInCandidate | undefined> {
+  const row = await db()
+    .selectFrom("users")
+    .leftJoin("memberships", "memberships.user_id", "users.id")
+    .select(["users.id", "users.password_hash", "users.disabled_at", "memberships.role"])
+    .where("users.email", "=", email)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  return { userId: row.id, passwordHash: row.password_hash, isDisabled: row.disabled_at !== null, role: row.role };
+}
+
+export async function countRecentFailures(emailKey: string, address: string, windowMinutes: number): Promise<RecentFailures> {
+  const since = sql<Date>`now() - make_interval(mins => ${windowMinutes})`;
+  const row = await db()
+    .selectNoFrom((eb) => [
+      eb
+        .selectFrom("sign_in_attempts")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .where("email_key", "=", emailKey)
+        .where("succeeded", "=", false)
+        .where("attempted_at", ">", since)
+        .as("for_account"),
+      eb
+        .selectFrom("sign_in_attempts")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .where("address", "=", address)
+        .where("succeeded", "=", false)
+        .where("attempted_at", ">", since)
+        .as("from_address"),
+    ])
+    .executeTakeFirstOrThrow();
+  return { forAccount: Number(row.for_account ?? 0), fromAddress: Number(row.from_address ?? 0) };
+}
+
+export async function recordSignInAttempt(emailKey: string, address: string, succeeded: boolean): Promise<void> {
+  await db().insertInto("sign_in_attempts").values({ email_key: emailKey, address, succeeded }).execute();
+  if (succeeded) {
+    // A successful sign-in clears that account's failure count.
+    await db().deleteFrom("sign_in_attempts").where("email_key", "=", emailKey).where("succeeded", "=", false).execute();
+  }
+}
+
+export async function createAuthSession(userId: string, maxAgeSeconds: number): Promise<string> {
+  const id = randomBytes(32).toString("base64url");
+  await db()
+    .insertInto("auth_sessions")
+    .values({ id, user_id: userId, expires_at: new Date(Date.now() + maxAgeSeconds * 1000) })
+    .execute();
+  return id;
+}
+
+export async function deleteAuthSession(sessionId: string): Promise<void> {
+  await db().deleteFrom("auth_sessions").where("id", "=", sessionId).execute();
+}
+
+/** The actor behind a session id, or undefined when the session, user or membership is gone or disabled. */
+export async function findActorBySession(sessionId: string): Promise<Actor | undefined> {
+  const row = await db()
+    .selectFrom("auth_sessions")
+    .innerJoin("users", "users.id", "auth_sessions.user_id")
+    .innerJoin("memberships", "memberships.user_id", "users.id")
+    .innerJoin("companies", "companies.id", "memberships.company_id")
+    .select([
+      "users.id as user_id",
+      "users.email",
+      "users.name",
+      "memberships.company_id",
+      "companies.name as company_name",
+      "memberships.role",
+      "auth_sessions.id as session_id",
+    ])
+    .where("auth_sessions.id", "=", sessionId)
+    .where("auth_sessions.expires_at", ">", sql<Date>`now()`)
+    .where("users.disabled_at", "is", null)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  return {
+    userId: row.user_id,
+    email: row.email,
+    name: row.name,
+    companyId: row.company_id,
+    companyName: row.company_name,
+    role: row.role,
+    sessionId: row.session_id,
+  };
+}

@@ -1,0 +1,38 @@
+// Server configuration, validated once. A missing or malformed value stops the server with a
+// message naming it (fail fast), instead of surfacing later as an obscure error.
+import { z } from "zod";
+
+const serverSchema = z.object({
+  NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+  DATABASE_URL: z
+    .string({ error: "DATABASE_URL is required (e.g. postgres://postgres@127.0.0.1:54329/sward)" })
+    .regex(/^postgres(ql)?:\/\//, "DATABASE_URL must be a postgres:// URL"),
+  AUTH_SECRET: z
+    .string({ error: "AUTH_SECRET is required (32+ random characters; npm run demo writes one to .env.local)" })
+    .min(32, "AUTH_SECRET must be at least 32 characters"),
+  AUTH_URL: z.url().optional(),
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+  /** Failed sign-ins allowed per e-mail address within the window before it is throttled. */
+  SIGN_IN_MAX_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+  /** Failed sign-ins allowed per client address within the window. */
+  SIGN_IN_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(20),
+  SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
+});
+
+export type ServerEnv = z.infer<typeof serverSchema>;
+
+export function parseServerEnv(source: Record<string, string | undefined>): ServerEnv {
+  const result = serverSchema.safeParse(source);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid server configuration:\n${lines.join("\n")}`);
+  }
+  return result.data;
+}
+
+let cached: ServerEnv | undefined;
+
+export function serverEnv(): ServerEnv {
+  cached ??= parseServerEnv(process.env);
+  return cached;
+}

@@ -1,0 +1,38 @@
+// What property data leaves the server: camelCase, no internal columns.
+import type { GrassSeason } from "@/fixtures/grass-species";
+import type { Slope, SunExposure } from "@/db/schema";
+
+export interface PropertySummaryDto {
+  id: string;
+  name: string;
+  address: { street: string; city: string; region: string; postalCode: string };
+  location: { latitude: number; longitude: number };
+  timeZone: string;
+  technician: { id: string; name: string } | null;
+  zoneCount: number;
+  lawnAreaFt2: number;
+}
+
+export interface ZoneDto {
+  id: string;
+  name: string;
+  areaFt2: number;
+  grassSpecies: { key: string; name: string; season: GrassSeason | null };
+  sunExposure: SunExposure;
+  isIrrigated: boolean;
+  slope: Slope;
+}
+
+export interface PropertyDetailDto extends PropertySummaryDto {
+  zones: ZoneDto[];
+  /** Staff only; empty for a homeowner. */
+  homeowners: { id: string; name: string; email: string }[];
+}
+
+export const SUN_EXPOSURE_LABEL: Record<SunExposure, string> = {
+  full_sun: "Full sun",
+  part_shade: "Part shade",
+  shade: "Shade",
+};
+
+export const SLOPE_LABEL: Record<Slope, string> = { flat: "Flat", moderate: "Moderate slope", steep: "Steep slope" };

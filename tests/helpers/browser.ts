@@ -1,0 +1,31 @@
+// Chromium for e2e tests: Debian's /usr/bin/chromium driven by playwright-core.
+import { type Browser, type Page, chromium } from "playwright-core";
+import { DEMO_PASSWORD } from "@/fixtures/demo-scenario";
+
+export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: CHROMIUM_PATH,
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
+  });
+}
+
+export const PHONE = { width: 390, height: 844 };
+export const DESKTOP = { width: 1280, height: 900 };
+
+export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+}

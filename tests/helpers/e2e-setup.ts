@@ -1,0 +1,47 @@
+// E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
+// on 127.0.0.1. Builds first when no build exists. Stops the server by its PID afterwards.
+import { type ChildProcess, spawn } from "node:child_process";
+import { existsSync } from "node:fs";
+import type { TestProject } from "vitest/node";
+import { TSX, run, waitForUrl } from "./processes";
+
+const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
+let server: ChildProcess | undefined;
+
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  const databaseUrl = `postgres://postgres@127.0.0.1:${process.env.SWARD_PG_PORT ?? "54329"}/sward_e2e`;
+  await run("sh", ["db/cluster.sh", "start"]);
+  await run(TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
+  await run(TSX, ["db/migrate.ts"], { DATABASE_URL: databaseUrl });
+  await run(TSX, ["db/seed.ts"], { DATABASE_URL: databaseUrl });
+  if (!existsSync(".next/BUILD_ID")) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
+
+  const baseUrl = `http://localhost:${PORT}`;
+  server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
+    stdio: ["ignore", "ignore", "inherit"],
+    env: {
+      ...process.env,
+      NODE_ENV: "production",
+      NEXT_TELEMETRY_DISABLED: "1",
+      DATABASE_URL: databaseUrl,
+      AUTH_SECRET: "e2e-tests-only-secret-0123456789abcdefghijkl",
+      AUTH_URL: baseUrl,
+      LOG_LEVEL: "warn",
+    },
+  });
+  await waitForUrl(`${baseUrl}/sign-in`, 30_000);
+  project.provide("baseUrl", baseUrl);
+
+  return async () => {
+    if (server?.pid && server.exitCode === null) {
+      server.kill("SIGTERM");
+      await new Promise((r) => server?.once("exit", r));
+    }
+  };
+}
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}

@@ -1,0 +1,59 @@
+// Three test projects: unit (pure code), integration (real PostgreSQL, freshly migrated), and
+// e2e (Chromium against a production build). `npm test` runs them all through tests/harness/run-all.mjs.
+import path from "node:path";
+import { defineConfig } from "vitest/config";
+
+const root = path.dirname(new URL(import.meta.url).pathname);
+const pgPort = process.env.SWARD_PG_PORT ?? "54329";
+
+const shared = {
+  resolve: {
+    alias: {
+      "@": root,
+      "server-only": path.join(root, "tests/helpers/empty-module.ts"),
+    },
+  },
+};
+
+export default defineConfig({
+  ...shared,
+  test: {
+    reporters: ["default"],
+    projects: [
+      {
+        ...shared,
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+      },
+      {
+        ...shared,
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/helpers/integration-setup.ts"],
+          env: {
+            NODE_ENV: "test",
+            DATABASE_URL: `postgres://postgres@127.0.0.1:${pgPort}/sward_test`,
+            AUTH_SECRET: "integration-tests-only-secret-0123456789abcdef",
+            SIGN_IN_MAX_PER_ACCOUNT: "5",
+            SIGN_IN_MAX_PER_ADDRESS: "20",
+          },
+          testTimeout: 20_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        ...shared,
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/helpers/e2e-setup.ts"],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+});
