@@ -3,6 +3,7 @@
 import "server-only";
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
+import { log } from "@/lib/log";
 import { checkCredentials } from "./credentials";
 import { createAuthSession, deleteAuthSession } from "./queries";
 import { signInSchema } from "./schemas";
@@ -25,6 +26,17 @@ function clientAddress(request: Request): string {
 
 export const { handlers, auth, signIn, signOut } = NextAuth({
   trustHost: true,
+  // A refused sign-in is routine: one line at info level, no stack. Real failures go to error.
+  logger: {
+    error(error) {
+      if (error instanceof CredentialsSignin) log.info({ code: error.code }, "sign-in refused");
+      else log.error({ err: error }, "auth error");
+    },
+    warn(code) {
+      log.warn({ code }, "auth warning");
+    },
+    debug() {},
+  },
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
   pages: { signIn: "/sign-in", error: "/sign-in" },
   providers: [
