@@ -7,6 +7,8 @@ import type { Database } from "./schema";
 // numeric and bigint arrive as strings by default; Sward's values fit in a double.
 pg.types.setTypeParser(1700, (v) => Number.parseFloat(v));
 pg.types.setTypeParser(20, (v) => Number.parseInt(v, 10));
+// A calendar date stays a YYYY-MM-DD string: no time zone, no midnight shift.
+pg.types.setTypeParser(1082, (v) => v);
 
 export function createDb(connectionString: string, options: { max?: number } = {}): Kysely<Database> {
   const pool = new pg.Pool({ connectionString, max: options.max ?? 10, idleTimeoutMillis: 30_000 });

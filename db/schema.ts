@@ -9,12 +9,41 @@ export type Role = "manager" | "technician" | "homeowner";
 export type UnitSystem = "imperial" | "metric";
 export type SunExposure = "full_sun" | "part_shade" | "shade";
 export type Slope = "flat" | "moderate" | "steep";
+export type PlannedService =
+  | "feeding_round"
+  | "weed_control"
+  | "insect_control"
+  | "aeration_overseeding"
+  | "fall_feeding"
+  | "inspection"
+  | "callback";
+export type VisitStatus = "scheduled" | "in_progress" | "completed" | "cancelled";
+export type ZoneCheckStatus = "draft" | "done" | "skipped";
+export type SoilMoisture = "dry" | "moist" | "wet";
+export type MowingDirection = "same" | "changed" | "unknown";
+export type SkipReason = "no_access" | "construction" | "dog_in_yard" | "other";
+
+/** One observed symptom in a zone check (stored as jsonb; validated by lib/visits/schemas.ts). */
+export interface ObservedSymptom {
+  key: string;
+  severity: 1 | 2 | 3;
+  extentPct: number;
+}
 
 export interface CompaniesTable {
   id: Generated<string>;
   name: string;
   slug: string;
   unit_system: ColumnType<UnitSystem, UnitSystem | undefined, UnitSystem>;
+  time_zone: Generated<string>;
+  created_at: Generated<Date>;
+}
+
+export interface RuleSetsTable {
+  id: Generated<string>;
+  company_id: string;
+  name: string;
+  citation: Generated<string>;
   created_at: Generated<Date>;
 }
 
@@ -89,6 +118,8 @@ export interface PropertiesTable {
   longitude: number;
   time_zone: string;
   technician_id: string | null;
+  rule_set_id: string | null;
+  notes: Generated<string>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
@@ -113,6 +144,72 @@ export interface ZonesTable {
   sort_order: Generated<number>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export interface VisitsTable {
+  id: string;
+  company_id: string;
+  property_id: string;
+  technician_id: string | null;
+  /** Calendar date (YYYY-MM-DD) in the property's time zone. */
+  scheduled_for: ColumnType<string, string, string>;
+  stop_order: Generated<number>;
+  planned_service: PlannedService;
+  status: Generated<VisitStatus>;
+  notes: Generated<string>;
+  started_at: NullableTimestamp;
+  started_by: string | null;
+  start_latitude: number | null;
+  start_longitude: number | null;
+  completed_at: NullableTimestamp;
+  completed_by: string | null;
+  version: Generated<number>;
+  created_by: string | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export interface ZoneChecksTable {
+  id: string;
+  company_id: string;
+  visit_id: string;
+  zone_id: string;
+  status: Generated<ZoneCheckStatus>;
+  quality: number | null;
+  color: number | null;
+  density: number | null;
+  uniformity: number | null;
+  bare_pct: number | null;
+  weeds_pct: number | null;
+  thatch_in: number | null;
+  soil_moisture: SoilMoisture | null;
+  soil_moisture_pct: number | null;
+  height_of_cut_in: number | null;
+  mowing_direction: MowingDirection | null;
+  is_matted: Generated<boolean>;
+  is_scalped: Generated<boolean>;
+  has_torn_tips: Generated<boolean>;
+  has_clumped_clippings: Generated<boolean>;
+  symptoms: ColumnType<ObservedSymptom[], string, string>;
+  notes: Generated<string>;
+  skip_reason: SkipReason | null;
+  skip_note: Generated<string>;
+  version: Generated<number>;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+  updated_by: string | null;
+}
+
+export interface AuditEventsTable {
+  id: Generated<string>;
+  company_id: string;
+  actor_id: string | null;
+  entity: "visit" | "zone_check" | "property" | "zone";
+  entity_id: string;
+  action: string;
+  changes: ColumnType<Record<string, { from: unknown; to: unknown }>, string, string>;
+  created_at: Generated<Date>;
 }
 
 export interface Database {
@@ -126,6 +223,10 @@ export interface Database {
   properties: PropertiesTable;
   property_homeowners: PropertyHomeownersTable;
   zones: ZonesTable;
+  rule_sets: RuleSetsTable;
+  visits: VisitsTable;
+  zone_checks: ZoneChecksTable;
+  audit_events: AuditEventsTable;
 }
 
 export type Company = Selectable<CompaniesTable>;
@@ -147,3 +248,11 @@ export type NewPropertyHomeowner = Insertable<PropertyHomeownersTable>;
 export type Zone = Selectable<ZonesTable>;
 export type NewZone = Insertable<ZonesTable>;
 export type ZoneUpdate = Updateable<ZonesTable>;
+export type RuleSet = Selectable<RuleSetsTable>;
+export type Visit = Selectable<VisitsTable>;
+export type NewVisit = Insertable<VisitsTable>;
+export type VisitUpdate = Updateable<VisitsTable>;
+export type ZoneCheck = Selectable<ZoneChecksTable>;
+export type NewZoneCheck = Insertable<ZoneChecksTable>;
+export type ZoneCheckUpdate = Updateable<ZoneChecksTable>;
+export type AuditEvent = Selectable<AuditEventsTable>;

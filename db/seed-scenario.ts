@@ -1,9 +1,12 @@
 // Loads a scenario (fixtures/demo-scenario.ts) into a database. Shared by the demo seed and the
 // tests, which call it with their own scenario or the demo one.
-import type { Kysely } from "kysely";
-import type { ScenarioCompany } from "@/fixtures/demo-scenario";
+import { randomUUID } from "node:crypto";
+import type { Kysely, Transaction } from "kysely";
+import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo-scenario";
+import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
 import { hashPassword } from "@/lib/auth/password";
-import type { Database } from "./schema";
+import { addDays, todayIn } from "@/lib/dates";
+import type { Database, NewZoneCheck } from "./schema";
 
 export interface SeededCompany {
   companyId: string;
@@ -16,9 +19,15 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
   return db.transaction().execute(async (trx) => {
     const { id: companyId } = await trx
       .insertInto("companies")
-      .values({ name: company.name, slug: company.slug, unit_system: company.unitSystem })
+      .values({ name: company.name, slug: company.slug, unit_system: company.unitSystem, time_zone: companyTimeZone(company) })
       .returning("id")
       .executeTakeFirstOrThrow();
+
+    const ruleSets = await trx
+      .insertInto("rule_sets")
+      .values(SHIPPED_RULE_SETS.map((r) => ({ company_id: companyId, name: r.name, citation: r.citation })))
+      .returning(["id", "name"])
+      .execute();
 
     const userIds: Record<string, string> = {};
     for (const person of company.people) {
@@ -48,6 +57,7 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
           longitude: p.longitude,
           time_zone: p.timeZone,
           technician_id: technicianId,
+          rule_set_id: ruleSets.find((r) => r.name === p.ruleSet)?.id ?? null,
         })
         .returning("id")
         .executeTakeFirstOrThrow();
@@ -76,8 +86,138 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
           .execute();
       }
     }
-    return { companyId, userIds, propertyIds };
+    const seeded = { companyId, userIds, propertyIds };
+    await seedSchedule(trx, seeded, company, todayIn(companyTimeZone(company)));
+    return seeded;
   });
+}
+
+function companyTimeZone(company: ScenarioCompany): string {
+  return company.properties[0]?.timeZone ?? "America/New_York";
+}
+
+/** A small deterministic number from a text (stable demo values without a random generator). */
+function pick(text: string, choices: readonly number[]): number {
+  let h = 0;
+  for (const ch of text) h = (h * 31 + ch.charCodeAt(0)) >>> 0;
+  return choices[h % choices.length]!;
+}
+
+function pastCheck(seed: string, finding: ScenarioFinding | undefined): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
+  return {
+    status: "done",
+    quality: finding?.quality ?? pick(`${seed}q`, [6, 7, 7, 8]),
+    color: finding?.color ?? pick(`${seed}c`, [6, 7, 8, 8]),
+    density: finding?.density ?? pick(`${seed}d`, [6, 7, 7, 8]),
+    uniformity: pick(`${seed}u`, [6, 7, 8]),
+    bare_pct: finding?.barePct ?? pick(`${seed}b`, [0, 0, 5]),
+    weeds_pct: finding?.weedsPct ?? pick(`${seed}w`, [0, 5, 5, 10]),
+    thatch_in: pick(`${seed}t`, [0.25, 0.5, 0.5]),
+    soil_moisture: "moist",
+    height_of_cut_in: finding?.heightOfCutIn ?? pick(`${seed}h`, [3, 3.25, 3.5]),
+    mowing_direction: finding?.mowingDirection ?? "changed",
+    is_matted: finding?.isMatted ?? false,
+    has_torn_tips: finding?.hasTornTips ?? false,
+    symptoms: JSON.stringify(finding?.symptoms ?? []),
+    notes: finding?.notes ?? "",
+  };
+}
+
+/** Past completed visits with their zone checks, and today's stops (dates relative to today). */
+async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, company: ScenarioCompany, today: string): Promise<void> {
+  const schedule = company.schedule;
+  if (!schedule) return;
+  const zones = await trx.selectFrom("zones").select(["id", "name", "property_id"]).where("company_id", "=", seeded.companyId).execute();
+  const latest = Math.min(...schedule.pastVisitsDaysAgo.map((v) => v.daysAgo));
+  for (const p of company.properties) {
+    const technicianId = p.technician ? seeded.userIds[p.technician] : undefined;
+    const propertyId = seeded.propertyIds[p.key];
+    if (!technicianId || !propertyId) continue;
+    for (const past of schedule.pastVisitsDaysAgo) {
+      const date = addDays(today, -past.daysAgo);
+      const at = new Date(`${date}T15:00:00Z`);
+      const visitId = randomUUID();
+      await trx
+        .insertInto("visits")
+        .values({
+          id: visitId,
+          company_id: seeded.companyId,
+          property_id: propertyId,
+          technician_id: technicianId,
+          scheduled_for: date,
+          planned_service: past.service,
+          status: "completed",
+          started_at: at,
+          started_by: technicianId,
+          completed_at: new Date(at.getTime() + 40 * 60_000),
+          completed_by: technicianId,
+        })
+        .execute();
+      const checks = zones
+        .filter((z) => z.property_id === propertyId)
+        .map((z) => ({
+          id: randomUUID(),
+          company_id: seeded.companyId,
+          visit_id: visitId,
+          zone_id: z.id,
+          updated_by: technicianId,
+          ...pastCheck(`${p.key}/${z.name}/${past.daysAgo}`, past.daysAgo === latest ? schedule.findings[`${p.key}/${z.name}`] : undefined),
+        }));
+      if (checks.length) await trx.insertInto("zone_checks").values(checks).execute();
+    }
+  }
+  await seedDay(trx, seeded, company, today);
+}
+
+/** Today's stops, as scheduled visits in order. */
+async function seedDay(trx: Transaction<Database> | Kysely<Database>, seeded: SeededCompany, company: ScenarioCompany, today: string): Promise<number> {
+  const schedule = company.schedule;
+  if (!schedule) return 0;
+  let count = 0;
+  for (const [techKey, stops] of Object.entries(schedule.today)) {
+    const technicianId = seeded.userIds[techKey];
+    if (!technicianId) throw new Error(`Scenario ${company.slug}: unknown technician ${techKey}`);
+    for (const [index, key] of stops.entries()) {
+      const propertyId = seeded.propertyIds[key];
+      if (!propertyId) throw new Error(`Scenario ${company.slug}: unknown property ${key}`);
+      await trx
+        .insertInto("visits")
+        .values({
+          id: randomUUID(),
+          company_id: seeded.companyId,
+          property_id: propertyId,
+          technician_id: technicianId,
+          scheduled_for: today,
+          stop_order: index + 1,
+          planned_service: index === 0 ? "inspection" : "feeding_round",
+        })
+        .execute();
+      count++;
+    }
+  }
+  return count;
+}
+
+/**
+ * Keeps the demo usable on later days: when the company has no visits today, today's stops are
+ * scheduled again (the people and properties are looked up by their scenario e-mails and names).
+ */
+export async function ensureDemoDay(db: Kysely<Database>, company: ScenarioCompany): Promise<number> {
+  const row = await db.selectFrom("companies").select(["id", "time_zone"]).where("slug", "=", company.slug).executeTakeFirst();
+  if (!row || !company.schedule) return 0;
+  const today = todayIn(row.time_zone);
+  const existing = await db.selectFrom("visits").select("id").where("company_id", "=", row.id).where("scheduled_for", "=", today).executeTakeFirst();
+  if (existing) return 0;
+  const users = await db
+    .selectFrom("users")
+    .innerJoin("memberships", "memberships.user_id", "users.id")
+    .select(["users.id", "users.email"])
+    .where("memberships.company_id", "=", row.id)
+    .execute();
+  const properties = await db.selectFrom("properties").select(["id", "name"]).where("company_id", "=", row.id).execute();
+  const userIds = Object.fromEntries(company.people.map((p) => [p.key, users.find((u) => u.email === p.email)?.id ?? ""]));
+  const propertyIds = Object.fromEntries(company.properties.map((p) => [p.key, properties.find((x) => x.name === p.name)?.id ?? ""]));
+  return seedDay(db, { companyId: row.id, userIds, propertyIds }, company, today);
 }
 
 /** Removes a company and everything it owns (cascades), then the users who belonged to it. */

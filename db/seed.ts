@@ -2,7 +2,7 @@
 // exists is left as it is, so running the demo again keeps what you entered.
 import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo-scenario";
 import { createDb, localDatabaseUrl } from "./client";
-import { removeCompany, seedCompany } from "./seed-scenario";
+import { ensureDemoDay, removeCompany, seedCompany } from "./seed-scenario";
 
 const isReset = process.argv.includes("--reset");
 const db = createDb(process.env.DATABASE_URL ?? localDatabaseUrl("sward"), { max: 2 });
@@ -10,7 +10,8 @@ try {
   for (const company of demoScenario) {
     const existing = await db.selectFrom("companies").select("id").where("slug", "=", company.slug).executeTakeFirst();
     if (existing && !isReset) {
-      console.log(`seed: ${company.name} already present (use --reset to recreate it)`);
+      const stops = await ensureDemoDay(db, company);
+      console.log(`seed: ${company.name} already present (use --reset to recreate it)${stops ? `; scheduled ${stops} stops for today` : ""}`);
       continue;
     }
     if (existing) await removeCompany(db, company.slug);

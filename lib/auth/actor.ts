@@ -6,6 +6,7 @@ export interface Actor {
   userId: string;
   companyId: string;
   companyName: string;
+  companyTimeZone: string;
   role: Role;
   email: string;
   name: string;

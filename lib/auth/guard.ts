@@ -14,7 +14,7 @@ type RouteContext = { params: Promise<Record<string, string | string[] | undefin
 
 export type ActionResult<T> =
   | { ok: true; data: T }
-  | { ok: false; error: { code: string; message: string; fieldErrors?: Record<string, string[]> } };
+  | { ok: false; error: { code: string; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> } };
 
 const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
 

@@ -82,6 +82,7 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
       "users.name",
       "memberships.company_id",
       "companies.name as company_name",
+      "companies.time_zone as company_time_zone",
       "memberships.role",
       "auth_sessions.id as session_id",
     ])
@@ -96,6 +97,7 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
     name: row.name,
     companyId: row.company_id,
     companyName: row.company_name,
+    companyTimeZone: row.company_time_zone,
     role: row.role,
     sessionId: row.session_id,
   };

@@ -13,12 +13,15 @@ const STATUS: Record<AppErrorCode, number> = {
 export class AppError extends Error {
   readonly code: AppErrorCode;
   readonly fieldErrors?: Record<string, string[]>;
+  /** Extra data for the client, e.g. the server's copy of a record on a version conflict. */
+  readonly details?: Record<string, unknown>;
 
-  constructor(code: AppErrorCode, message: string, fieldErrors?: Record<string, string[]>) {
+  constructor(code: AppErrorCode, message: string, fieldErrors?: Record<string, string[]>, details?: Record<string, unknown>) {
     super(message);
     this.name = "AppError";
     this.code = code;
     this.fieldErrors = fieldErrors;
+    this.details = details;
   }
 
   get status(): number {
@@ -29,7 +32,7 @@ export class AppError extends Error {
 export const notFound = (what = "That record") => new AppError("not_found", `${what} was not found.`);
 
 export interface ErrorBody {
-  error: { code: AppErrorCode | "internal"; message: string; fieldErrors?: Record<string, string[]> };
+  error: { code: AppErrorCode | "internal"; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> };
 }
 
 /** Turns anything thrown into a status and a body safe to show: no stack, no SQL. */
@@ -37,6 +40,7 @@ export function toErrorBody(err: unknown): { status: number; body: ErrorBody } {
   if (err instanceof AppError) {
     const error: ErrorBody["error"] = { code: err.code, message: err.message };
     if (err.fieldErrors) error.fieldErrors = err.fieldErrors;
+    if (err.details) error.details = err.details;
     return { status: err.status, body: { error } };
   }
   return {

@@ -9,8 +9,10 @@ export interface PropertySummaryDto {
   location: { latitude: number; longitude: number };
   timeZone: string;
   technician: { id: string; name: string } | null;
+  ruleSet: { id: string; name: string } | null;
   zoneCount: number;
   lawnAreaFt2: number;
+  isArchived: boolean;
 }
 
 export interface ZoneDto {
@@ -27,6 +29,8 @@ export interface PropertyDetailDto extends PropertySummaryDto {
   zones: ZoneDto[];
   /** Staff only; empty for a homeowner. */
   homeowners: { id: string; name: string; email: string }[];
+  /** Office notes; staff only, empty for a homeowner. */
+  notes: string;
 }
 
 export const SUN_EXPOSURE_LABEL: Record<SunExposure, string> = {

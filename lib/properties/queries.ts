@@ -1,43 +1,21 @@
 // Property reads, scoped to the actor in every WHERE: managers see their company's book,
 // technicians the properties assigned to them, homeowners their own. Out of scope = not found.
 import "server-only";
-import type { ExpressionBuilder, SelectQueryBuilder } from "kysely";
+import type { SelectQueryBuilder } from "kysely";
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
-import { findGrassSpecies } from "@/fixtures/grass-species";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
-import type { PropertyDetailDto, PropertySummaryDto, ZoneDto } from "./dto";
+import type { PropertyDetailDto, PropertySummaryDto } from "./dto";
+import { toZoneDto } from "./map";
+import { propertyInScope } from "./scope";
 
 type PropertyQuery<O> = SelectQueryBuilder<Database, "properties", O>;
-
-function inScope(actor: Actor) {
-  return (eb: ExpressionBuilder<Database, "properties">) => {
-    const company = eb("properties.company_id", "=", actor.companyId);
-    switch (actor.role) {
-      case "manager":
-        return company;
-      case "technician":
-        return eb.and([company, eb("properties.technician_id", "=", actor.userId)]);
-      case "homeowner":
-        return eb.and([
-          company,
-          eb.exists(
-            eb
-              .selectFrom("property_homeowners as ph")
-              .select("ph.property_id")
-              .whereRef("ph.property_id", "=", "properties.id")
-              .where("ph.user_id", "=", actor.userId)
-              .where("ph.company_id", "=", actor.companyId),
-          ),
-        ]);
-    }
-  };
-}
 
 function selectSummary<O>(query: PropertyQuery<O>) {
   return query
     .leftJoin("users as tech", "tech.id", "properties.technician_id")
+    .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
     .select((eb) => [
       "properties.id",
       "properties.name",
@@ -50,6 +28,10 @@ function selectSummary<O>(query: PropertyQuery<O>) {
       "properties.time_zone",
       "properties.technician_id",
       "tech.name as technician_name",
+      "properties.rule_set_id",
+      "rule_sets.name as rule_set_name",
+      "properties.archived_at",
+      "properties.notes",
       eb
         .selectFrom("zones")
         .select((z) => z.fn.countAll<number>().as("n"))
@@ -75,15 +57,18 @@ function toSummary(row: SummaryRow): PropertySummaryDto {
     location: { latitude: row.latitude, longitude: row.longitude },
     timeZone: row.time_zone,
     technician: row.technician_id ? { id: row.technician_id, name: row.technician_name ?? "" } : null,
+    ruleSet: row.rule_set_id ? { id: row.rule_set_id, name: row.rule_set_name ?? "" } : null,
     zoneCount: Number(row.zone_count ?? 0),
     lawnAreaFt2: Number(row.lawn_area_ft2 ?? 0),
+    isArchived: row.archived_at !== null,
   };
 }
 
-export async function listProperties(actor: Actor): Promise<PropertySummaryDto[]> {
+export async function listProperties(actor: Actor, options: { includeArchived?: boolean } = {}): Promise<PropertySummaryDto[]> {
+  const withArchived = options.includeArchived === true && actor.role === "manager";
   const rows = await selectSummary(db().selectFrom("properties"))
-    .where(inScope(actor))
-    .where("properties.archived_at", "is", null)
+    .where(propertyInScope(actor))
+    .$if(!withArchived, (q) => q.where("properties.archived_at", "is", null))
     .orderBy("properties.name")
     .orderBy("properties.id")
     .execute();
@@ -92,10 +77,11 @@ export async function listProperties(actor: Actor): Promise<PropertySummaryDto[]
 
 export async function getProperty(actor: Actor, propertyId: string): Promise<PropertyDetailDto> {
   const row = await selectSummary(db().selectFrom("properties"))
-    .where(inScope(actor))
+    .where(propertyInScope(actor))
     .where("properties.id", "=", propertyId)
     .executeTakeFirst();
   if (!row) throw notFound("That property");
+  if (row.archived_at && actor.role !== "manager") throw notFound("That property");
 
   const zones = await db()
     .selectFrom("zones")
@@ -119,18 +105,5 @@ export async function getProperty(actor: Actor, propertyId: string): Promise<Pro
           .orderBy("users.name")
           .execute();
 
-  return { ...toSummary(row), zones: zones.map(toZoneDto), homeowners };
-}
-
-function toZoneDto(z: { id: string; name: string; area_ft2: number; grass_species: string; sun_exposure: ZoneDto["sunExposure"]; is_irrigated: boolean; slope: ZoneDto["slope"] }): ZoneDto {
-  const species = findGrassSpecies(z.grass_species);
-  return {
-    id: z.id,
-    name: z.name,
-    areaFt2: Number(z.area_ft2),
-    grassSpecies: { key: z.grass_species, name: species?.name ?? z.grass_species, season: species?.season ?? null },
-    sunExposure: z.sun_exposure,
-    isIrrigated: z.is_irrigated,
-    slope: z.slope,
-  };
+  return { ...toSummary(row), zones: zones.map(toZoneDto), homeowners, notes: actor.role === "homeowner" ? "" : row.notes };
 }

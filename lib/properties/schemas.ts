@@ -1,4 +1,58 @@
-// Input schemas for property endpoints.
+// Input schemas for properties and zones, shared by the route handlers and the manager's forms.
 import { z } from "zod";
+import { grassSpeciesKeys } from "@/fixtures/grass-species";
+import { isValidTimeZone } from "@/lib/dates";
 
 export const propertyIdParams = z.object({ propertyId: z.uuid() });
+export const zoneIdParams = z.object({ zoneId: z.uuid() });
+
+const text = (label: string, max: number) =>
+  z.string(`${label} is required.`).trim().min(1, `${label} is required.`).max(max, `${label}: at most ${max} characters.`);
+
+export const propertySchema = z
+  .object({
+    name: text("Name", 200),
+    street: text("Street address", 200),
+    city: text("Town or city", 100),
+    region: text("State", 100),
+    postalCode: text("ZIP code", 20),
+    latitude: z.number("Latitude is a number.").min(-90, "Latitude is between -90 and 90.").max(90, "Latitude is between -90 and 90."),
+    longitude: z.number("Longitude is a number.").min(-180, "Longitude is between -180 and 180.").max(180, "Longitude is between -180 and 180."),
+    timeZone: z.string().refine(isValidTimeZone, "Choose a time zone from the list."),
+    ruleSetId: z.uuid("Choose a rule set.").nullable(),
+    technicianId: z.uuid("Choose a technician.").nullable(),
+    notes: z.string().trim().max(4000, "Keep notes under 4,000 characters.").default(""),
+  })
+  .strict();
+export type PropertyInput = z.infer<typeof propertySchema>;
+
+export const M2_PER_FT2 = 0.09290304; // exact: 1 ft = 0.3048 m
+
+export const zoneSchema = z
+  .object({
+    name: text("Zone name", 120),
+    area: z.number("Area is a number.").positive("Area must be above 0.").max(10_000_000, "That area is too large for one zone."),
+    areaUnit: z.enum(["ft2", "m2"]).default("ft2"),
+    grassSpecies: z.enum(grassSpeciesKeys, "Choose a grass species."),
+    sunExposure: z.enum(["full_sun", "part_shade", "shade"], "Choose the sun exposure."),
+    isIrrigated: z.boolean(),
+    slope: z.enum(["flat", "moderate", "steep"], "Choose the slope."),
+    sortOrder: z.number().int().min(0).max(1000).optional(),
+  })
+  .strict();
+export type ZoneInput = z.infer<typeof zoneSchema>;
+
+/** Areas are stored in ft²; m² are converted on the way in (to 0.1 ft²). */
+export function areaInFt2(area: number, unit: "ft2" | "m2"): number {
+  const ft2 = unit === "m2" ? area / M2_PER_FT2 : area;
+  return Math.round(ft2 * 10) / 10;
+}
+
+export const homeownerLinkSchema = z
+  .object({
+    email: z.string().trim().toLowerCase().max(320).pipe(z.email("Enter a valid e-mail address.")),
+    name: z.string().trim().min(1, "Name is required.").max(200),
+  })
+  .strict();
+
+export const homeownerParams = z.object({ propertyId: z.uuid(), userId: z.uuid() });

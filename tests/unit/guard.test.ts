@@ -7,7 +7,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { createGuards } from "@/lib/auth/guard";
 import { AppError } from "@/lib/http/app-error";
 
-const manager: Actor = { userId: "u1", companyId: "c1", companyName: "Co", role: "manager", email: "m@x.test", name: "M", sessionId: "s" };
+const manager: Actor = { userId: "u1", companyId: "c1", companyName: "Co", companyTimeZone: "America/New_York", role: "manager", email: "m@x.test", name: "M", sessionId: "s" };
 const homeowner: Actor = { ...manager, userId: "u2", role: "homeowner" };
 
 function guardsFor(actor: Actor | null) {

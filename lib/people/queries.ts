@@ -1,0 +1,25 @@
+// People of the actor's company (for choosing a technician or linking a homeowner). Staff only.
+import "server-only";
+import { db } from "@/db";
+import type { Role } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+
+export interface PersonDto {
+  id: string;
+  name: string;
+  email: string;
+  role: Role;
+  isDisabled: boolean;
+}
+
+export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]> {
+  if (actor.role === "homeowner") return [];
+  let q = db()
+    .selectFrom("memberships")
+    .innerJoin("users", "users.id", "memberships.user_id")
+    .select(["users.id", "users.name", "users.email", "memberships.role", "users.disabled_at"])
+    .where("memberships.company_id", "=", actor.companyId);
+  if (role) q = q.where("memberships.role", "=", role);
+  const rows = await q.orderBy("users.name").execute();
+  return rows.map((r) => ({ id: r.id, name: r.name, email: r.email, role: r.role, isDisabled: r.disabled_at !== null }));
+}

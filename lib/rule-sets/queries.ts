@@ -1,0 +1,19 @@
+// The company's fertiliser rule sets (names and citations; their limits arrive with the agronomy engine).
+import "server-only";
+import { db } from "@/db";
+import type { Actor } from "@/lib/auth/actor";
+
+export interface RuleSetDto {
+  id: string;
+  name: string;
+  citation: string;
+}
+
+export async function listRuleSets(actor: Actor): Promise<RuleSetDto[]> {
+  return db()
+    .selectFrom("rule_sets")
+    .select(["id", "name", "citation"])
+    .where("company_id", "=", actor.companyId)
+    .orderBy("name")
+    .execute();
+}

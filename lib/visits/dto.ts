@@ -1,0 +1,73 @@
+// Visit and zone-check data as it leaves the server.
+import type { PlannedService, VisitStatus } from "@/db/schema";
+import type { ZoneDto } from "@/lib/properties/dto";
+import type { ZoneCheckInput } from "./schemas";
+
+export type ZoneCheckValues = Omit<ZoneCheckInput, "baseVersion">;
+
+export interface ZoneCheckDto extends ZoneCheckValues {
+  id: string;
+  visitId: string;
+  version: number;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+export interface VisitSummaryDto {
+  id: string;
+  propertyId: string;
+  propertyName: string;
+  address: string;
+  scheduledFor: string;
+  stopOrder: number;
+  plannedService: PlannedService;
+  status: VisitStatus;
+  technician: { id: string; name: string } | null;
+  startedAt: string | null;
+  completedAt: string | null;
+  checkedZones: number;
+  zoneCount: number;
+}
+
+export interface VisitDetailDto extends VisitSummaryDto {
+  notes: string;
+  timeZone: string;
+  version: number;
+  completedBy: string | null;
+  zones: ZoneDto[];
+  checks: ZoneCheckDto[];
+  /** Staff may edit: technicians until the visit is finished, managers always (audited). */
+  canEdit: boolean;
+}
+
+export interface TodayStopDto extends VisitSummaryDto {
+  lastVisitOn: string | null;
+  concerns: string[];
+}
+
+export interface ZoneHistoryEntryDto {
+  zoneCheckId: string;
+  visitId: string;
+  visitedOn: string;
+  status: ZoneCheckDto["status"];
+  quality: number | null;
+  color: number | null;
+  density: number | null;
+  uniformity: number | null;
+  barePct: number | null;
+  weedsPct: number | null;
+  heightOfCutIn: number | null;
+  symptoms: ZoneCheckDto["symptoms"];
+  skipReason: ZoneCheckDto["skipReason"];
+  technician: string | null;
+}
+
+export interface AuditEventDto {
+  id: string;
+  at: string;
+  actor: string | null;
+  entity: string;
+  entityId: string;
+  action: string;
+  changes: Record<string, { from: unknown; to: unknown }>;
+}

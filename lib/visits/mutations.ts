@@ -1,0 +1,241 @@
+// Visit writes: schedule, start, save a zone check (idempotent, versioned), finish, cancel.
+// Every write re-checks scope inside its transaction; out of scope = not found.
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { type Transaction, sql } from "kysely";
+import { db } from "@/db";
+import type { Database, ZoneCheck } from "@/db/schema";
+import { recordAudit } from "@/lib/audit/record";
+import type { Actor } from "@/lib/auth/actor";
+import { AppError, notFound } from "@/lib/http/app-error";
+import { propertyInScope } from "@/lib/properties/scope";
+import type { VisitDetailDto, ZoneCheckDto } from "./dto";
+import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
+import { getVisit } from "./queries";
+import type { ScheduleVisitInput, ZoneCheckInput } from "./schemas";
+import { visitInScope } from "./scope";
+
+async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: string) {
+  const visit = await trx
+    .selectFrom("visits")
+    .selectAll()
+    .where(visitInScope(actor))
+    .where("visits.id", "=", visitId)
+    .forUpdate()
+    .executeTakeFirst();
+  if (!visit) throw notFound("That visit");
+  return visit;
+}
+
+function assertEditable(actor: Actor, visit: { status: string }) {
+  if (visit.status === "cancelled") throw new AppError("conflict", "This visit was cancelled; it can no longer be changed.");
+  if (visit.status === "completed" && actor.role !== "manager")
+    throw new AppError("forbidden", "This visit is finished and locked. Ask your manager to correct it.");
+}
+
+export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Promise<VisitDetailDto> {
+  const id = input.id ?? randomUUID();
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const property = await trx
+        .selectFrom("properties")
+        .select(["id", "archived_at"])
+        .where(propertyInScope(actor))
+        .where("properties.id", "=", input.propertyId)
+        .executeTakeFirst();
+      if (!property) throw new AppError("invalid_input", "Some values need attention.", { propertyId: ["Choose a property of your book."] });
+      if (property.archived_at) throw new AppError("invalid_input", "Some values need attention.", { propertyId: ["That property is archived."] });
+      if (input.technicianId) {
+        const tech = await trx
+          .selectFrom("memberships")
+          .innerJoin("users", "users.id", "memberships.user_id")
+          .select("users.id")
+          .where("memberships.company_id", "=", actor.companyId)
+          .where("memberships.role", "=", "technician")
+          .where("users.disabled_at", "is", null)
+          .where("users.id", "=", input.technicianId)
+          .executeTakeFirst();
+        if (!tech) throw new AppError("invalid_input", "Some values need attention.", { technicianId: ["Choose one of your technicians."] });
+      }
+      const inserted = await trx
+        .insertInto("visits")
+        .values({
+          id,
+          company_id: actor.companyId,
+          property_id: input.propertyId,
+          technician_id: input.technicianId,
+          scheduled_for: input.scheduledFor,
+          stop_order: input.stopOrder,
+          planned_service: input.plannedService,
+          notes: input.notes,
+          created_by: actor.userId,
+        })
+        .onConflict((oc) => oc.column("id").doNothing())
+        .returning("id")
+        .executeTakeFirst();
+      if (!inserted) {
+        // A retry of the same request: fine if it is the same visit, a conflict otherwise.
+        const existing = await trx.selectFrom("visits").select(["company_id", "property_id", "scheduled_for"]).where("id", "=", id).executeTakeFirst();
+        if (!existing || existing.company_id !== actor.companyId || existing.property_id !== input.propertyId || existing.scheduled_for !== input.scheduledFor)
+          throw new AppError("conflict", "A different visit already uses that id.");
+      }
+    });
+  return getVisit(actor, id);
+}
+
+export async function startVisit(actor: Actor, visitId: string, location: { latitude: number | null; longitude: number | null }): Promise<VisitDetailDto> {
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      assertEditable(actor, visit);
+      if (visit.status !== "scheduled") return; // already started: starting again changes nothing
+      await trx
+        .updateTable("visits")
+        .set({
+          status: "in_progress",
+          started_at: sql<Date>`now()`,
+          started_by: actor.userId,
+          start_latitude: location.latitude,
+          start_longitude: location.longitude,
+          version: sql<number>`version + 1`,
+          updated_at: sql<Date>`now()`,
+        })
+        .where("id", "=", visitId)
+        .execute();
+    });
+  return getVisit(actor, visitId);
+}
+
+function sameValues(row: ZoneCheck, input: ZoneCheckInput): boolean {
+  const { baseVersion: _ignored, ...submitted } = input;
+  const normalised = { ...submitted, skipReason: submitted.status === "skipped" ? submitted.skipReason : null, skipNote: submitted.status === "skipped" ? submitted.skipNote : "" };
+  return Object.keys(diffValues(valuesOf(row), normalised)).length === 0;
+}
+
+function conflict(current: ZoneCheck, who: string | null): AppError {
+  return new AppError(
+    "conflict",
+    `This zone check was changed on another device${who ? ` by ${who}` : ""}. Choose which version to keep.`,
+    undefined,
+    { current: toZoneCheckDto(current, who) },
+  );
+}
+
+/**
+ * Creates or updates one zone check. The client names the check (its own UUID) and the version
+ * its edit is based on, so a double tap or a retry leaves one row, and an edit based on an old
+ * version is refused with the server's copy instead of overwriting it.
+ */
+export async function saveZoneCheck(actor: Actor, visitId: string, zoneCheckId: string, input: ZoneCheckInput): Promise<ZoneCheckDto> {
+  return db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      assertEditable(actor, visit);
+      const zone = await trx
+        .selectFrom("zones")
+        .select(["id", "archived_at"])
+        .where("company_id", "=", actor.companyId)
+        .where("property_id", "=", visit.property_id)
+        .where("id", "=", input.zoneId)
+        .executeTakeFirst();
+      if (!zone) throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["That zone is not part of this property."] });
+
+      const nameOf = async (userId: string | null) =>
+        userId ? ((await trx.selectFrom("users").select("name").where("id", "=", userId).executeTakeFirst())?.name ?? null) : null;
+
+      const existing = await trx.selectFrom("zone_checks").selectAll().where("id", "=", zoneCheckId).forUpdate().executeTakeFirst();
+      if (existing && (existing.company_id !== actor.companyId || existing.visit_id !== visitId)) throw notFound("That zone check");
+      if (existing && existing.zone_id !== input.zoneId)
+        throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["A zone check cannot move to another zone."] });
+
+      let saved: ZoneCheck;
+      if (!existing) {
+        if (zone.archived_at) throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["That zone is archived."] });
+        const inserted = await trx
+          .insertInto("zone_checks")
+          .values({ id: zoneCheckId, company_id: actor.companyId, visit_id: visitId, updated_by: actor.userId, ...toColumns(input) })
+          .onConflict((oc) => oc.doNothing())
+          .returningAll()
+          .executeTakeFirst();
+        if (inserted) saved = inserted;
+        else {
+          // Either the same check arrived twice at once, or another device checked this zone.
+          const other = await trx
+            .selectFrom("zone_checks")
+            .selectAll()
+            .where((eb) => eb.or([eb("id", "=", zoneCheckId), eb.and([eb("visit_id", "=", visitId), eb("zone_id", "=", input.zoneId)])]))
+            .executeTakeFirstOrThrow();
+          if (other.id === zoneCheckId && sameValues(other, input)) return toZoneCheckDto(other, await nameOf(other.updated_by));
+          throw conflict(other, await nameOf(other.updated_by));
+        }
+      } else if (existing.version !== input.baseVersion) {
+        if (sameValues(existing, input)) return toZoneCheckDto(existing, await nameOf(existing.updated_by));
+        throw conflict(existing, await nameOf(existing.updated_by));
+      } else {
+        if (sameValues(existing, input)) return toZoneCheckDto(existing, await nameOf(existing.updated_by));
+        saved = await trx
+          .updateTable("zone_checks")
+          .set({ ...toColumns(input), version: sql<number>`version + 1`, updated_at: sql<Date>`now()`, updated_by: actor.userId })
+          .where("id", "=", zoneCheckId)
+          .returningAll()
+          .executeTakeFirstOrThrow();
+        if (visit.status === "completed") {
+          await recordAudit(trx, actor, { entity: "zone_check", entityId: zoneCheckId, action: "edit_after_finish", changes: diffValues(valuesOf(existing), valuesOf(saved)) });
+        }
+      }
+      if (visit.status === "scheduled") {
+        // Saving a check starts the visit if the technician did not tap "Start".
+        await trx.updateTable("visits").set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId }).where("id", "=", visitId).execute();
+      }
+      return toZoneCheckDto(saved, actor.name);
+    });
+}
+
+/** Locks the visit. Every active zone must be checked (done) or skipped with a reason. */
+export async function finishVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      if (visit.status === "completed") return; // finishing twice is harmless
+      assertEditable(actor, visit);
+      const open = await trx
+        .selectFrom("zones")
+        .leftJoin("zone_checks", (j) => j.onRef("zone_checks.zone_id", "=", "zones.id").on("zone_checks.visit_id", "=", visitId))
+        .select(["zones.name", "zone_checks.status"])
+        .where("zones.company_id", "=", actor.companyId)
+        .where("zones.property_id", "=", visit.property_id)
+        .where("zones.archived_at", "is", null)
+        .where((eb) => eb.or([eb("zone_checks.status", "is", null), eb("zone_checks.status", "=", "draft")]))
+        .orderBy("zones.sort_order")
+        .execute();
+      if (open.length) {
+        throw new AppError("invalid_input", `Finish or skip every zone first: ${open.map((z) => z.name).join(", ")}.`, {
+          zones: open.map((z) => `${z.name} is ${z.status === "draft" ? "not marked done" : "not checked"}.`),
+        });
+      }
+      await trx
+        .updateTable("visits")
+        .set({ status: "completed", completed_at: sql<Date>`now()`, completed_by: actor.userId, version: sql<number>`version + 1`, updated_at: sql<Date>`now()` })
+        .where("id", "=", visitId)
+        .execute();
+      await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "finish", changes: { status: { from: visit.status, to: "completed" } } });
+    });
+  return getVisit(actor, visitId);
+}
+
+export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      if (visit.status === "cancelled") return;
+      if (visit.status === "completed") throw new AppError("conflict", "A finished visit cannot be cancelled.");
+      await trx.updateTable("visits").set({ status: "cancelled", version: sql<number>`version + 1`, updated_at: sql<Date>`now()` }).where("id", "=", visitId).execute();
+      await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "cancel", changes: { status: { from: visit.status, to: "cancelled" } } });
+    });
+  return getVisit(actor, visitId);
+}

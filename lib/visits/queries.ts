@@ -1,0 +1,241 @@
+// Visit reads, scoped to the actor (lib/visits/scope.ts). Out of scope = not found.
+import "server-only";
+import { db } from "@/db";
+import type { Actor } from "@/lib/auth/actor";
+import { notFound } from "@/lib/http/app-error";
+import { ZONE_COLUMNS, toZoneDto } from "@/lib/properties/map";
+import { propertyInScope } from "@/lib/properties/scope";
+import type { AuditEventDto, TodayStopDto, VisitDetailDto, VisitSummaryDto, ZoneHistoryEntryDto } from "./dto";
+import type { z } from "zod";
+import { concernsOf, toZoneCheckDto, valuesOf } from "./map";
+import type { listVisitsQuery } from "./schemas";
+import { visitInScope } from "./scope";
+
+function visitSummaries() {
+  return db()
+    .selectFrom("visits")
+    .innerJoin("properties", (j) => j.onRef("properties.id", "=", "visits.property_id").onRef("properties.company_id", "=", "visits.company_id"))
+    .leftJoin("users as tech", "tech.id", "visits.technician_id")
+    .select((eb) => [
+      "visits.id",
+      "visits.property_id",
+      "properties.name as property_name",
+      "properties.street",
+      "properties.city",
+      "properties.time_zone",
+      "visits.scheduled_for",
+      "visits.stop_order",
+      "visits.planned_service",
+      "visits.status",
+      "visits.technician_id",
+      "tech.name as technician_name",
+      "visits.started_at",
+      "visits.completed_at",
+      "visits.notes",
+      "visits.version",
+      "visits.company_id",
+      eb
+        .selectFrom("zone_checks")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .whereRef("zone_checks.visit_id", "=", "visits.id")
+        .where("zone_checks.status", "in", ["done", "skipped"])
+        .as("checked_zones"),
+      eb
+        .selectFrom("zones")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .whereRef("zones.property_id", "=", "visits.property_id")
+        .where("zones.archived_at", "is", null)
+        .as("zone_count"),
+    ]);
+}
+
+type SummaryRow = Awaited<ReturnType<ReturnType<typeof visitSummaries>["execute"]>>[number];
+
+function toSummary(r: SummaryRow): VisitSummaryDto {
+  return {
+    id: r.id,
+    propertyId: r.property_id,
+    propertyName: r.property_name,
+    address: `${r.street}, ${r.city}`,
+    scheduledFor: r.scheduled_for,
+    stopOrder: r.stop_order,
+    plannedService: r.planned_service,
+    status: r.status,
+    technician: r.technician_id ? { id: r.technician_id, name: r.technician_name ?? "" } : null,
+    startedAt: r.started_at ? new Date(r.started_at).toISOString() : null,
+    completedAt: r.completed_at ? new Date(r.completed_at).toISOString() : null,
+    checkedZones: Number(r.checked_zones ?? 0),
+    zoneCount: Number(r.zone_count ?? 0),
+  };
+}
+
+export async function listVisits(actor: Actor, query: z.infer<typeof listVisitsQuery>): Promise<VisitSummaryDto[]> {
+  let q = visitSummaries().where(visitInScope(actor));
+  if (query.date) q = q.where("visits.scheduled_for", "=", query.date);
+  if (query.from) q = q.where("visits.scheduled_for", ">=", query.from);
+  if (query.to) q = q.where("visits.scheduled_for", "<=", query.to);
+  if (query.technicianId) q = q.where("visits.technician_id", "=", query.technicianId);
+  if (query.propertyId) q = q.where("visits.property_id", "=", query.propertyId);
+  if (query.status) q = q.where("visits.status", "=", query.status);
+  const rows = await q.orderBy("visits.scheduled_for", "desc").orderBy("visits.stop_order").orderBy("visits.id").limit(500).execute();
+  return rows.map(toSummary);
+}
+
+export async function getVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
+  const row = await visitSummaries()
+    .leftJoin("users as closer", "closer.id", "visits.completed_by")
+    .select("closer.name as completed_by_name")
+    .where(visitInScope(actor))
+    .where("visits.id", "=", visitId)
+    .executeTakeFirst();
+  if (!row) throw notFound("That visit");
+
+  const checks = await db()
+    .selectFrom("zone_checks")
+    .leftJoin("users", "users.id", "zone_checks.updated_by")
+    .selectAll("zone_checks")
+    .select("users.name as updated_by_name")
+    .where("zone_checks.company_id", "=", actor.companyId)
+    .where("zone_checks.visit_id", "=", visitId)
+    .execute();
+  const checkedZoneIds = checks.map((c) => c.zone_id);
+
+  // Active zones, plus archived ones that this visit already checked (history stays whole).
+  const zones = await db()
+    .selectFrom("zones")
+    .select([...ZONE_COLUMNS])
+    .where("company_id", "=", actor.companyId)
+    .where("property_id", "=", row.property_id)
+    .where((eb) => (checkedZoneIds.length ? eb.or([eb("archived_at", "is", null), eb("id", "in", checkedZoneIds)]) : eb("archived_at", "is", null)))
+    .orderBy("sort_order")
+    .orderBy("name")
+    .execute();
+
+  return {
+    ...toSummary(row),
+    notes: row.notes,
+    timeZone: row.time_zone,
+    version: row.version,
+    completedBy: row.completed_by_name ?? null,
+    zones: zones.map(toZoneDto),
+    checks: checks.map((c) => toZoneCheckDto(c, c.updated_by_name)),
+    canEdit: actor.role === "manager" || (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
+  };
+}
+
+/** A technician's stops on a date, in order, with the last visit and what it found. */
+export async function listTodayStops(actor: Actor, date: string, technicianId?: string): Promise<TodayStopDto[]> {
+  const techId = actor.role === "technician" ? actor.userId : technicianId;
+  let q = visitSummaries().where(visitInScope(actor)).where("visits.scheduled_for", "=", date).where("visits.status", "!=", "cancelled");
+  if (techId) q = q.where("visits.technician_id", "=", techId);
+  const rows = await q.orderBy("visits.stop_order").orderBy("properties.name").execute();
+  if (rows.length === 0) return [];
+
+  // The latest completed visit before this date at each property, with its checks.
+  const previous = await db()
+    .selectFrom("visits")
+    .select(["visits.id", "visits.property_id", "visits.scheduled_for"])
+    .distinctOn("visits.property_id")
+    .where("visits.company_id", "=", actor.companyId)
+    .where("visits.property_id", "in", rows.map((r) => r.property_id))
+    .where("visits.status", "=", "completed")
+    .where("visits.scheduled_for", "<", date)
+    .orderBy("visits.property_id")
+    .orderBy("visits.scheduled_for", "desc")
+    .execute();
+  const checks = previous.length
+    ? await db()
+        .selectFrom("zone_checks")
+        .innerJoin("zones", "zones.id", "zone_checks.zone_id")
+        .selectAll("zone_checks")
+        .select(["zones.name as zone_name", "zones.sort_order"])
+        .where("zone_checks.company_id", "=", actor.companyId)
+        .where("zone_checks.visit_id", "in", previous.map((p) => p.id))
+        .orderBy("zones.sort_order")
+        .execute()
+    : [];
+
+  return rows.map((r) => {
+    const last = previous.find((p) => p.property_id === r.property_id);
+    const concerns = last ? checks.filter((c) => c.visit_id === last.id).flatMap((c) => concernsOf(c.zone_name, valuesOf(c))) : [];
+    return { ...toSummary(r), lastVisitOn: last?.scheduled_for ?? null, concerns };
+  });
+}
+
+/** Every check of a zone, newest first. The zone must be within the actor's property scope. */
+export async function getZoneHistory(actor: Actor, zoneId: string): Promise<{ zoneName: string; propertyId: string; entries: ZoneHistoryEntryDto[] }> {
+  const zone = await db()
+    .selectFrom("zones")
+    .innerJoin("properties", "properties.id", "zones.property_id")
+    .select(["zones.id", "zones.name", "zones.property_id"])
+    .where("zones.id", "=", zoneId)
+    .where("zones.company_id", "=", actor.companyId)
+    .where(propertyInScope(actor))
+    .executeTakeFirst();
+  if (!zone) throw notFound("That zone");
+
+  const rows = await db()
+    .selectFrom("zone_checks")
+    .innerJoin("visits", "visits.id", "zone_checks.visit_id")
+    .leftJoin("users", "users.id", "visits.technician_id")
+    .selectAll("zone_checks")
+    .select(["visits.scheduled_for", "users.name as technician_name"])
+    .where("zone_checks.company_id", "=", actor.companyId)
+    .where("zone_checks.zone_id", "=", zoneId)
+    .where("visits.status", "!=", "cancelled")
+    .orderBy("visits.scheduled_for", "desc")
+    .orderBy("zone_checks.created_at", "desc")
+    .limit(200)
+    .execute();
+
+  return {
+    zoneName: zone.name,
+    propertyId: zone.property_id,
+    entries: rows.map((r) => ({
+      zoneCheckId: r.id,
+      visitId: r.visit_id,
+      visitedOn: r.scheduled_for,
+      status: r.status,
+      quality: r.quality,
+      color: r.color,
+      density: r.density,
+      uniformity: r.uniformity,
+      barePct: r.bare_pct,
+      weedsPct: r.weeds_pct,
+      heightOfCutIn: r.height_of_cut_in === null ? null : Number(r.height_of_cut_in),
+      symptoms: r.symptoms,
+      skipReason: r.skip_reason,
+      technician: r.technician_name,
+    })),
+  };
+}
+
+export async function listVisitAudit(actor: Actor, visitId: string): Promise<AuditEventDto[]> {
+  if (actor.role !== "manager") return [];
+  const rows = await db()
+    .selectFrom("audit_events")
+    .leftJoin("users", "users.id", "audit_events.actor_id")
+    .select(["audit_events.id", "audit_events.created_at", "users.name", "audit_events.entity", "audit_events.entity_id", "audit_events.action", "audit_events.changes"])
+    .where("audit_events.company_id", "=", actor.companyId)
+    .where((eb) =>
+      eb.or([
+        eb.and([eb("audit_events.entity", "=", "visit"), eb("audit_events.entity_id", "=", visitId)]),
+        eb.and([
+          eb("audit_events.entity", "=", "zone_check"),
+          eb("audit_events.entity_id", "in", eb.selectFrom("zone_checks").select("id").where("visit_id", "=", visitId)),
+        ]),
+      ]),
+    )
+    .orderBy("audit_events.created_at", "desc")
+    .orderBy("audit_events.id", "desc")
+    .execute();
+  return rows.map((r) => ({
+    id: String(r.id),
+    at: new Date(r.created_at).toISOString(),
+    actor: r.name,
+    entity: r.entity,
+    entityId: r.entity_id,
+    action: r.action,
+    changes: r.changes,
+  }));
+}
