@@ -1,0 +1,134 @@
+// fast-check: for every mutating endpoint, malformed payloads (wrong types, out-of-range values,
+// huge strings, unknown fields, missing fields, prototype-pollution keys, non-objects) get 422
+// with field errors — never a 5xx — and change no rows.
+import fc from "fast-check";
+import { sql } from "kysely";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+import { z } from "zod";
+import type { Actor } from "@/lib/auth/actor";
+import { propertySchema, zoneSchema, homeownerLinkSchema } from "@/lib/properties/schemas";
+import { finishVisitSchema, scheduleVisitSchema, startVisitSchema, zoneCheckFields } from "@/lib/visits/schemas";
+import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+import { doneCheck, newId } from "../helpers/zone-checks";
+
+let current: Actor | null = null;
+vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
+
+const RUNS = Number(process.env.HOSTILE_RUNS ?? 1000);
+let c: TestCompany;
+let ids: { propertyId: string; zoneId: string; visitId: string; techId: string };
+
+beforeAll(async () => {
+  c = await createTestCompany();
+  const zone = await testDb().selectFrom("zones").select("id").where("property_id", "=", c.propertyIds["haddad"]!).executeTakeFirstOrThrow();
+  const visit = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
+  ids = { propertyId: c.propertyIds["haddad"]!, zoneId: zone.id, visitId: visit.id, techId: c.userIds["tech1"]! };
+});
+
+type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+interface Endpoint {
+  name: string;
+  load: () => Promise<Record<string, Handler>>;
+  method: "POST" | "PUT";
+  params: () => Record<string, string>;
+  schema: z.ZodObject;
+  valid: () => Record<string, unknown>;
+}
+
+const endpoints: Endpoint[] = [
+  { name: "POST /properties", load: () => import("@/app/api/v1/properties/route"), method: "POST", params: () => ({}), schema: propertySchema, valid: () => ({ name: "A", street: "1 Elm", city: "X", region: "NJ", postalCode: "08500", latitude: 40, longitude: -74, timeZone: "America/New_York", ruleSetId: null, technicianId: null, notes: "" }) },
+  { name: "PUT /properties/:id", load: () => import("@/app/api/v1/properties/[propertyId]/route"), method: "PUT", params: () => ({ propertyId: ids.propertyId }), schema: propertySchema, valid: () => ({ name: "A", street: "1 Elm", city: "X", region: "NJ", postalCode: "08500", latitude: 40, longitude: -74, timeZone: "America/New_York", ruleSetId: null, technicianId: null, notes: "" }) },
+  { name: "POST /properties/:id/archive", load: () => import("@/app/api/v1/properties/[propertyId]/archive/route"), method: "POST", params: () => ({ propertyId: ids.propertyId }), schema: z.object({ archived: z.boolean() }).strict(), valid: () => ({ archived: true }) },
+  { name: "POST /properties/:id/zones", load: () => import("@/app/api/v1/properties/[propertyId]/zones/route"), method: "POST", params: () => ({ propertyId: ids.propertyId }), schema: zoneSchema, valid: () => ({ name: "Z", area: 100, areaUnit: "ft2", grassSpecies: "tall_fescue", sunExposure: "shade", isIrrigated: false, slope: "flat" }) },
+  { name: "PUT /zones/:id", load: () => import("@/app/api/v1/zones/[zoneId]/route"), method: "PUT", params: () => ({ zoneId: ids.zoneId }), schema: zoneSchema, valid: () => ({ name: "Z", area: 100, areaUnit: "m2", grassSpecies: "tall_fescue", sunExposure: "shade", isIrrigated: false, slope: "flat" }) },
+  { name: "POST /zones/:id/archive", load: () => import("@/app/api/v1/zones/[zoneId]/archive/route"), method: "POST", params: () => ({ zoneId: ids.zoneId }), schema: z.object({ archived: z.boolean() }).strict(), valid: () => ({ archived: false }) },
+  { name: "POST /properties/:id/homeowners", load: () => import("@/app/api/v1/properties/[propertyId]/homeowners/route"), method: "POST", params: () => ({ propertyId: ids.propertyId }), schema: homeownerLinkSchema, valid: () => ({ email: "new@test.sward.test", name: "N" }) },
+  { name: "POST /visits", load: () => import("@/app/api/v1/visits/route"), method: "POST", params: () => ({}), schema: scheduleVisitSchema, valid: () => ({ propertyId: ids.propertyId, scheduledFor: "2026-06-01", technicianId: ids.techId, plannedService: "inspection" }) },
+  { name: "POST /visits/:id/start", load: () => import("@/app/api/v1/visits/[visitId]/start/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: startVisitSchema as unknown as z.ZodObject, valid: () => ({ latitude: 40, longitude: -74 }) },
+  { name: "POST /visits/:id/finish", load: () => import("@/app/api/v1/visits/[visitId]/finish/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: finishVisitSchema, valid: () => ({}) },
+  { name: "POST /visits/:id/cancel", load: () => import("@/app/api/v1/visits/[visitId]/cancel/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: z.object({}).strict(), valid: () => ({}) },
+  { name: "PUT /visits/:id/zone-checks/:id", load: () => import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/route"), method: "PUT", params: () => ({ visitId: ids.visitId, zoneCheckId: newId() }), schema: zoneCheckFields, valid: () => ({ ...doneCheck(ids.zoneId) }) },
+];
+
+const junk = fc.oneof(
+  fc.anything({ maxDepth: 3 }),
+  fc.string({ minLength: 5000, maxLength: 20000 }),
+  fc.constantFrom("' OR 1=1 --", "<script>alert(1)</script>", "\u0000", "😀".repeat(500), "NaN", "1e309", "__proto__"),
+  fc.double(),
+  fc.integer({ min: -1e9, max: 1e9 }),
+  fc.constantFrom(null, true, [], {}, -1, 10, 101, 1.5),
+);
+
+/** A payload that is certainly invalid for the schema, built by corrupting a valid one. */
+function malformed(endpoint: Endpoint) {
+  const shape = endpoint.schema.shape as Record<string, z.ZodType>;
+  const keys = Object.keys(shape);
+  const required = keys.filter((k) => !shape[k]!.safeParse(undefined).success);
+  return fc.oneof(
+    // an unknown or prototype-polluting field (schemas are strict)
+    fc.tuple(fc.constantFrom("__proto__", "constructor", "prototype", "isAdmin", "company_id", "role"), junk).map(([k, v]) => {
+      const body = endpoint.valid();
+      Object.defineProperty(body, k, { value: v, enumerable: true, configurable: true, writable: true });
+      return body;
+    }),
+    // a field with a value its own schema refuses
+    ...(keys.length
+      ? [
+          fc
+            .tuple(fc.constantFrom(...keys), junk)
+            .filter(([k, v]) => !shape[k]!.safeParse(v).success)
+            .map(([k, v]) => ({ ...endpoint.valid(), [k]: v })),
+        ]
+      : []),
+    // a required field missing
+    ...(required.length ? [fc.constantFrom(...required).map((k) => Object.fromEntries(Object.entries(endpoint.valid()).filter(([key]) => key !== k)))] : []),
+    // not an object at all
+    fc.constantFrom(null, 42, "text", [], [1, 2], true),
+  ).filter((payload) => {
+    // What the server receives is the JSON text: undefined values vanish on the way, so keep only
+    // payloads that are still invalid once they have been through JSON.
+    const sent: unknown = JSON.parse(JSON.stringify(payload) ?? "null");
+    return !endpoint.schema.safeParse(sent).success;
+  });
+}
+
+async function tableCounts(): Promise<string> {
+  const { rows } = await sql<{ t: string; n: number }>`
+    select 'properties' t, count(*)::int n from properties union all select 'zones', count(*)::int from zones
+    union all select 'visits', count(*)::int from visits union all select 'zone_checks', count(*)::int from zone_checks
+    union all select 'users', count(*)::int from users union all select 'audit', count(*)::int from audit_events`.execute(testDb());
+  return JSON.stringify(rows);
+}
+
+describe("malformed payloads", () => {
+  let total = 0;
+  for (const endpoint of endpoints) {
+    it(`${endpoint.name}: ${RUNS} payloads → 422, never 5xx, nothing changed`, async () => {
+      current = await c.actor("manager");
+      const handler = (await endpoint.load())[endpoint.method]!;
+      const before = await tableCounts();
+      await fc.assert(
+        fc.asyncProperty(malformed(endpoint), async (payload) => {
+          const res = await handler(
+            new Request("http://localhost/api", { method: endpoint.method, body: JSON.stringify(payload), headers: { origin: "http://localhost", host: "localhost", "content-type": "application/json" } }),
+            { params: Promise.resolve(endpoint.params()) },
+          );
+          const text = await res.text();
+          expect(res.status).toBe(422);
+          const body = JSON.parse(text) as { error: { code: string; fieldErrors?: Record<string, string[]> } };
+          expect(body.error.code).toBe("invalid_input");
+          if (payload !== null && typeof payload === "object" && !Array.isArray(payload)) expect(body.error.fieldErrors).toBeDefined();
+          expect(text).not.toMatch(/\n\s+at |node_modules|syntax error|relation "/);
+          total++;
+        }),
+        { numRuns: RUNS },
+      );
+      expect(await tableCounts()).toBe(before);
+    }, 120_000);
+  }
+
+  it("the valid payloads themselves are accepted by their schemas (the generator corrupts something real)", () => {
+    for (const e of endpoints) expect(e.schema.safeParse(e.valid()).success, e.name).toBe(true);
+    console.log(`hostile input: ${total} malformed payloads across ${endpoints.length} endpoints, 0 responses 5xx`);
+  });
+});
