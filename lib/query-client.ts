@@ -41,3 +41,26 @@ export async function fetchJson<T>(url: string): Promise<T> {
   }
   return body as T;
 }
+
+export type SendResult<T> =
+  | { ok: true; status: number; data: T }
+  | { ok: false; status: number; error: { code: string; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> } };
+
+/** POST/PUT/DELETE JSON to a route of ours. Network failures come back as status 0, never thrown. */
+export async function sendJson<T>(method: "POST" | "PUT" | "DELETE", url: string, body?: unknown, init: { keepalive?: boolean } = {}): Promise<SendResult<T>> {
+  try {
+    const response = await fetch(url, {
+      method,
+      headers: { "Content-Type": "application/json", Accept: "application/json" },
+      credentials: "same-origin",
+      body: body === undefined ? undefined : JSON.stringify(body),
+      keepalive: init.keepalive,
+    });
+    const parsed: unknown = await response.json().catch(() => null);
+    if (response.ok) return { ok: true, status: response.status, data: parsed as T };
+    const error = (parsed as { error?: SendResult<T> extends { ok: false; error: infer E } ? E : never } | null)?.error;
+    return { ok: false, status: response.status, error: error ?? { code: "http_error", message: `The server answered ${response.status}.` } };
+  } catch {
+    return { ok: false, status: 0, error: { code: "offline", message: "No connection to Sward right now." } };
+  }
+}

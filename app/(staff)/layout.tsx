@@ -1,13 +1,20 @@
-import { Trees } from "lucide-react";
+import { CalendarDays, ClipboardList, Trees } from "lucide-react";
 import type { ReactNode } from "react";
 import { AppShell, type NavItem } from "@/components/shell/app-shell";
 import { requireActor } from "@/lib/auth/require";
 
 export default async function StaffLayout({ children }: { children: ReactNode }) {
   const actor = await requireActor(["manager", "technician"]);
-  const nav: NavItem[] = [
-    { href: "/properties", label: actor.role === "manager" ? "Properties" : "My properties", icon: Trees },
-  ];
+  const nav: NavItem[] =
+    actor.role === "manager"
+      ? [
+          { href: "/properties", label: "Properties", icon: Trees },
+          { href: "/visits", label: "Visits", icon: ClipboardList },
+        ]
+      : [
+          { href: "/today", label: "Today", icon: CalendarDays },
+          { href: "/properties", label: "My properties", icon: Trees },
+        ];
   return (
     <AppShell actor={actor} nav={nav}>
       {children}

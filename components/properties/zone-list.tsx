@@ -1,11 +1,12 @@
 // The zones of a property as cards (readable on a phone), with their facts in words.
 import { Droplets, Mountain, Sun } from "lucide-react";
+import type { ReactNode } from "react";
 import { formatAreaFt2 } from "@/components/ui/format";
 import { SLOPE_LABEL, SUN_EXPOSURE_LABEL, type ZoneDto } from "@/lib/properties/dto";
 
 const SEASON_LABEL = { cool: "cool-season", warm: "warm-season" } as const;
 
-export function ZoneList({ zones }: { zones: ZoneDto[] }) {
+export function ZoneList({ zones, actions }: { zones: ZoneDto[]; actions?: (zone: ZoneDto) => ReactNode }) {
   if (zones.length === 0) return <p className="rounded-lg border border-line bg-card p-4">No zones are set up for this lawn yet.</p>;
   return (
     <ul className="grid gap-3 sm:grid-cols-2" aria-label="Zones">
@@ -33,6 +34,7 @@ export function ZoneList({ zones }: { zones: ZoneDto[] }) {
               {SLOPE_LABEL[z.slope]}
             </li>
           </ul>
+          {actions?.(z)}
         </li>
       ))}
     </ul>

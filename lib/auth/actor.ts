@@ -19,5 +19,5 @@ export const isStaff = (actor: Actor) => actor.role === "manager" || actor.role 
 
 /** Where each role lands after signing in. */
 export function landingPath(role: Role): string {
-  return role === "homeowner" ? "/my-lawn" : "/properties";
+  return { manager: "/properties", technician: "/today", homeowner: "/my-lawn" }[role];
 }

@@ -3,14 +3,8 @@ import "server-only";
 import { db } from "@/db";
 import type { Role } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import type { PersonDto } from "./dto";
 
-export interface PersonDto {
-  id: string;
-  name: string;
-  email: string;
-  role: Role;
-  isDisabled: boolean;
-}
 
 export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]> {
   if (actor.role === "homeowner") return [];

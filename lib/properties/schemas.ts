@@ -16,8 +16,8 @@ export const propertySchema = z
     city: text("Town or city", 100),
     region: text("State", 100),
     postalCode: text("ZIP code", 20),
-    latitude: z.number("Latitude is a number.").min(-90, "Latitude is between -90 and 90.").max(90, "Latitude is between -90 and 90."),
-    longitude: z.number("Longitude is a number.").min(-180, "Longitude is between -180 and 180.").max(180, "Longitude is between -180 and 180."),
+    latitude: z.number("Enter the latitude as a number, e.g. 40.3342.").min(-90, "Latitude is between -90 and 90.").max(90, "Latitude is between -90 and 90."),
+    longitude: z.number("Enter the longitude as a number, e.g. -74.7391.").min(-180, "Longitude is between -180 and 180.").max(180, "Longitude is between -180 and 180."),
     timeZone: z.string().refine(isValidTimeZone, "Choose a time zone from the list."),
     ruleSetId: z.uuid("Choose a rule set.").nullable(),
     technicianId: z.uuid("Choose a technician.").nullable(),
@@ -31,7 +31,7 @@ export const M2_PER_FT2 = 0.09290304; // exact: 1 ft = 0.3048 m
 export const zoneSchema = z
   .object({
     name: text("Zone name", 120),
-    area: z.number("Area is a number.").positive("Area must be above 0.").max(10_000_000, "That area is too large for one zone."),
+    area: z.number("Enter the area as a number.").positive("Area must be above 0.").max(10_000_000, "That area is too large for one zone."),
     areaUnit: z.enum(["ft2", "m2"]).default("ft2"),
     grassSpecies: z.enum(grassSpeciesKeys, "Choose a grass species."),
     sunExposure: z.enum(["full_sun", "part_shade", "shade"], "Choose the sun exposure."),

@@ -2,12 +2,8 @@
 import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
+import type { RuleSetDto } from "./dto";
 
-export interface RuleSetDto {
-  id: string;
-  name: string;
-  citation: string;
-}
 
 export async function listRuleSets(actor: Actor): Promise<RuleSetDto[]> {
   return db()

@@ -1,13 +1,19 @@
-import { ArrowLeft } from "lucide-react";
+import { ArrowLeft, PencilLine } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { AddZone, ArchiveProperty, HomeownerAdmin, ZoneActions } from "@/components/properties/property-admin";
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
+import { buttonClass } from "@/components/ui/button";
+import { VisitStatusBadge } from "@/components/visits/status-badge";
+import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
+import { formatDate } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
+import { listVisits } from "@/lib/visits/queries";
 
 export const metadata: Metadata = { title: "Property" };
 
@@ -19,6 +25,8 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
+  const visits = await listVisits(actor, { propertyId: property.id });
+  const isManager = actor.role === "manager";
 
   return (
     <>
@@ -26,22 +34,73 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
         <ArrowLeft className="size-5" aria-hidden="true" />
         All properties
       </Link>
+      {property.isArchived ? <p className="mb-4 rounded-lg bg-sun-tint p-3 font-semibold">Archived: this property is out of the book. Its history is kept.</p> : null}
       <PropertyHeader property={property} />
-      <section aria-labelledby="people-title" className="mb-8 grid gap-3 sm:grid-cols-2">
+      {isManager ? (
+        <div className="mb-6 flex flex-wrap gap-2">
+          <Link href={`/properties/${property.id}/edit`} className={buttonClass("secondary", "no-underline")}>
+            <PencilLine className="size-5" aria-hidden="true" />
+            Edit property
+          </Link>
+          <ArchiveProperty property={property} />
+        </div>
+      ) : null}
+      <section aria-labelledby="people-title" className="mb-8 grid gap-3 sm:grid-cols-3">
         <h2 id="people-title" className="sr-only">
-          People
+          People and rules
         </h2>
         <div className="rounded-xl border border-line bg-card p-4">
           <p className="text-sm font-semibold text-muted">Technician</p>
           <p className="text-lg">{property.technician?.name ?? "Not assigned"}</p>
         </div>
         <div className="rounded-xl border border-line bg-card p-4">
-          <p className="text-sm font-semibold text-muted">Homeowner sign-ins</p>
-          <p className="text-lg">{property.homeowners.length ? property.homeowners.map((h) => h.name).join(", ") : "None yet"}</p>
+          <p className="text-sm font-semibold text-muted">Fertiliser rule set</p>
+          <p className="text-lg">{property.ruleSet?.name ?? "None chosen"}</p>
+        </div>
+        <div className="rounded-xl border border-line bg-card p-4">
+          <p className="text-sm font-semibold text-muted">Time zone</p>
+          <p className="text-lg">{property.timeZone.replaceAll("_", " ")}</p>
         </div>
       </section>
+
       <h2 className="mb-3 text-2xl font-bold">Zones</h2>
-      <ZoneList zones={property.zones} />
+      <ZoneList zones={property.zones} actions={(zone) => <ZoneActions propertyId={property.id} zone={zone} canManage={isManager && !property.isArchived} />} />
+      {isManager && !property.isArchived ? (
+        <div className="mt-3">
+          <AddZone propertyId={property.id} />
+        </div>
+      ) : null}
+
+      <h2 className="mb-3 mt-10 text-2xl font-bold">Visits</h2>
+      {visits.length === 0 ? (
+        <p className="rounded-lg border border-line bg-card p-4">No visits yet.</p>
+      ) : (
+        <ul className="space-y-2" aria-label="Visits">
+          {visits.map((v) => (
+            <li key={v.id}>
+              <Link href={`/visits/${v.id}`} className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-card p-3 no-underline hover:border-sward">
+                <span className="text-ink">
+                  <span className="font-bold">{formatDate(v.scheduledFor)}</span> · {PLANNED_SERVICES[v.plannedService]} · {v.technician?.name ?? "no technician"}
+                </span>
+                <VisitStatusBadge status={v.status} />
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+
+      {isManager ? (
+        <>
+          <h2 className="mb-3 mt-10 text-2xl font-bold">Homeowner sign-ins</h2>
+          <HomeownerAdmin property={property} />
+          {property.notes ? (
+            <>
+              <h2 className="mb-2 mt-10 text-xl font-bold">Office notes</h2>
+              <p className="whitespace-pre-wrap rounded-lg border border-line bg-card p-4">{property.notes}</p>
+            </>
+          ) : null}
+        </>
+      ) : null}
     </>
   );
 }

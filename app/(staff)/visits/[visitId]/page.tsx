@@ -1,0 +1,33 @@
+import { HydrationBoundary, dehydrate } from "@tanstack/react-query";
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { Suspense } from "react";
+import { VisitRunner } from "@/components/visits/visit-runner";
+import { requireActor } from "@/lib/auth/require";
+import { AppError } from "@/lib/http/app-error";
+import { makeQueryClient } from "@/lib/query-client";
+import { getVisit } from "@/lib/visits/queries";
+import { visitKeys } from "@/lib/visits/query-keys";
+import { visitIdParams } from "@/lib/visits/schemas";
+
+export const metadata: Metadata = { title: "Visit" };
+
+export default async function VisitPage({ params }: { params: Promise<{ visitId: string }> }) {
+  const actor = await requireActor(["manager", "technician"]);
+  const parsed = visitIdParams.safeParse(await params);
+  if (!parsed.success) notFound();
+  const visit = await getVisit(actor, parsed.data.visitId).catch((err: unknown) => {
+    if (err instanceof AppError && err.code === "not_found") notFound();
+    throw err;
+  });
+  const queryClient = makeQueryClient();
+  queryClient.setQueryData(visitKeys.detail(visit.id), visit);
+
+  return (
+    <HydrationBoundary state={dehydrate(queryClient)}>
+      <Suspense>
+        <VisitRunner visitId={visit.id} isManager={actor.role === "manager"} />
+      </Suspense>
+    </HydrationBoundary>
+  );
+}

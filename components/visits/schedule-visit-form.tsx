@@ -1,0 +1,123 @@
+"use client";
+// The manager schedules a visit: property, date, technician, planned service. The visit id is
+// chosen here, so a double click or a retry after a timeout creates one visit, never two.
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { PLANNED_SERVICES } from "@/fixtures/visit-options";
+import { Button } from "@/components/ui/button";
+import { Field, applyFieldErrors, inputClass } from "@/components/ui/field";
+import type { PersonDto } from "@/lib/people/dto";
+import type { PropertySummaryDto } from "@/lib/properties/dto";
+import type { VisitDetailDto } from "@/lib/visits/dto";
+import { visitKeys } from "@/lib/visits/query-keys";
+import { scheduleVisitSchema } from "@/lib/visits/schemas";
+import { sendJson } from "@/lib/query-client";
+
+type FormIn = z.input<typeof scheduleVisitSchema>;
+type FormOut = z.output<typeof scheduleVisitSchema>;
+const nullIfEmpty = (v: unknown) => (v === "" ? null : v);
+
+export function ScheduleVisitForm({ properties, technicians, defaultDate }: { properties: PropertySummaryDto[]; technicians: PersonDto[]; defaultDate: string }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [visitId, setVisitId] = useState(() => crypto.randomUUID());
+  const {
+    register,
+    handleSubmit,
+    setValue,
+    setError,
+    reset,
+    formState: { errors, isSubmitting },
+  } = useForm<FormIn, unknown, FormOut>({
+    resolver: zodResolver(scheduleVisitSchema),
+    defaultValues: { scheduledFor: defaultDate, plannedService: "feeding_round", technicianId: null, stopOrder: 0, notes: "" },
+  });
+
+  async function onSubmit(values: FormOut) {
+    setMessage(null);
+    const result = await sendJson<VisitDetailDto>("POST", "/api/v1/visits", { ...values, id: visitId });
+    if (!result.ok) {
+      applyFieldErrors(result.error.fieldErrors, setError as never);
+      return setMessage({ tone: "error", text: result.error.message });
+    }
+    setMessage({ tone: "ok", text: `Scheduled: ${result.data.propertyName} on ${result.data.scheduledFor}.` });
+    setVisitId(crypto.randomUUID());
+    reset({ scheduledFor: values.scheduledFor, plannedService: values.plannedService, technicianId: null, stopOrder: 0, notes: "" });
+    void queryClient.invalidateQueries({ queryKey: visitKeys.all });
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4 rounded-xl border border-line bg-card p-4" noValidate aria-label="Schedule a visit">
+      <h2 className="text-xl font-bold">Schedule a visit</h2>
+      {message ? (
+        <p role={message.tone === "error" ? "alert" : "status"} className={message.tone === "error" ? "rounded-lg bg-clay-tint p-3 text-clay" : "rounded-lg bg-sward-tint p-3 text-sward-deep"}>
+          {message.text}
+        </p>
+      ) : null}
+      <Field id="sv-property" label="Property" error={errors.propertyId?.message}>
+        <select
+          id="sv-property"
+          {...register("propertyId", {
+            onChange: (e: React.ChangeEvent<HTMLSelectElement>) => {
+              const tech = properties.find((p) => p.id === e.target.value)?.technician?.id;
+              if (tech) setValue("technicianId", tech);
+            },
+          })}
+          aria-invalid={errors.propertyId ? true : undefined}
+          className={inputClass}
+          defaultValue=""
+        >
+          <option value="" disabled>
+            Choose a property
+          </option>
+          {properties.map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.name} — {p.address.street}
+            </option>
+          ))}
+        </select>
+      </Field>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field id="sv-date" label="Date" error={errors.scheduledFor?.message}>
+          <input id="sv-date" type="date" {...register("scheduledFor")} className={inputClass} />
+        </Field>
+        <Field id="sv-order" label="Stop number in the day" error={errors.stopOrder?.message}>
+          <input id="sv-order" type="number" min={0} max={1000} inputMode="numeric" {...register("stopOrder", { valueAsNumber: true })} className={inputClass} />
+        </Field>
+      </div>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field id="sv-tech" label="Technician" error={errors.technicianId?.message}>
+          <select id="sv-tech" {...register("technicianId", { setValueAs: nullIfEmpty })} className={inputClass}>
+            <option value="">Not assigned yet</option>
+            {technicians.map((t) => (
+              <option key={t.id} value={t.id}>
+                {t.name}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field id="sv-service" label="Planned service" error={errors.plannedService?.message}>
+          <select id="sv-service" {...register("plannedService")} className={inputClass}>
+            {Object.entries(PLANNED_SERVICES).map(([value, label]) => (
+              <option key={value} value={value}>
+                {label}
+              </option>
+            ))}
+          </select>
+        </Field>
+      </div>
+      <Field id="sv-notes" label="Note for the technician (optional)" error={errors.notes?.message}>
+        <textarea id="sv-notes" rows={2} {...register("notes")} className={inputClass} />
+      </Field>
+      <Button type="submit" disabled={isSubmitting}>
+        {isSubmitting ? "Scheduling…" : "Schedule visit"}
+      </Button>
+    </form>
+  );
+}

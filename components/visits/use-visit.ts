@@ -1,0 +1,29 @@
+"use client";
+// Client reads and cache updates of one visit.
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useCallback } from "react";
+import type { VisitDetailDto, ZoneCheckDto } from "@/lib/visits/dto";
+import { visitKeys } from "@/lib/visits/query-keys";
+import { fetchJson } from "@/lib/query-client";
+
+export function useVisit(visitId: string) {
+  return useQuery({ queryKey: visitKeys.detail(visitId), queryFn: () => fetchJson<VisitDetailDto>(`/api/v1/visits/${visitId}`) });
+}
+
+/** Merges a saved zone check into the cached visit (no refetch needed). */
+export function useMergeZoneCheck(visitId: string) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    (check: ZoneCheckDto) => {
+      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) => {
+        if (!visit) return visit;
+        const checks = visit.checks.some((c) => c.id === check.id || c.zoneId === check.zoneId)
+          ? visit.checks.map((c) => (c.id === check.id || c.zoneId === check.zoneId ? check : c))
+          : [...visit.checks, check];
+        const checkedZones = checks.filter((c) => c.status !== "draft").length;
+        return { ...visit, checks, checkedZones, status: visit.status === "scheduled" ? "in_progress" : visit.status };
+      });
+    },
+    [queryClient, visitId],
+  );
+}

@@ -1,0 +1,42 @@
+"use client";
+// React binding of ZoneCheckAutosave: one store per zone check, browser storage and fetch.
+import { useEffect, useRef, useState, useSyncExternalStore } from "react";
+import type { ZoneCheckDto } from "@/lib/visits/dto";
+import { sendJson } from "@/lib/query-client";
+import { clearDraft, readDraft, writeDraft } from "./draft-store";
+import { ZoneCheckAutosave } from "./zone-check-autosave";
+
+export function useZoneCheckAutosave(visitId: string, zoneId: string, serverCheck: ZoneCheckDto | undefined, canEdit: boolean, onSaved: (check: ZoneCheckDto) => void) {
+  const onSavedRef = useRef(onSaved);
+  useEffect(() => {
+    onSavedRef.current = onSaved;
+  }, [onSaved]);
+  const [store] = useState(
+    () =>
+      new ZoneCheckAutosave(visitId, zoneId, serverCheck, canEdit, {
+        send: (url, body, keepalive) => sendJson<ZoneCheckDto>("PUT", url, body, { keepalive }),
+        storage: { read: () => readDraft(visitId, zoneId), write: (d) => writeDraft(visitId, zoneId, d), clear: () => clearDraft(visitId, zoneId) },
+        newId: () => crypto.randomUUID(),
+        setTimer: (fn, ms) => setTimeout(fn, ms),
+        clearTimer: (handle) => clearTimeout(handle as ReturnType<typeof setTimeout>),
+        onSaved: (check) => onSavedRef.current(check),
+      }),
+  );
+
+  useEffect(() => {
+    store.start();
+    const flushIfHidden = () => document.visibilityState === "hidden" && store.flush();
+    const flush = () => store.flush();
+    document.addEventListener("visibilitychange", flushIfHidden);
+    window.addEventListener("pagehide", flush);
+    return () => {
+      document.removeEventListener("visibilitychange", flushIfHidden);
+      window.removeEventListener("pagehide", flush);
+      store.flush();
+      store.dispose();
+    };
+  }, [store]);
+
+  const snapshot = useSyncExternalStore(store.subscribe, store.getSnapshot, store.getSnapshot);
+  return { ...snapshot, store };
+}

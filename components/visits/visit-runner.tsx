@@ -1,0 +1,194 @@
+"use client";
+// Running a visit on a phone: start it, go zone by zone, finish. The zone in progress is kept in
+// the URL (?zone=…) so a reload lands on the same zone with its draft.
+import { useQueryClient } from "@tanstack/react-query";
+import { ArrowLeft, ArrowRight, CheckCheck, MapPin, Play } from "lucide-react";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useState } from "react";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+import { PLANNED_SERVICES } from "@/fixtures/visit-options";
+import { Button } from "@/components/ui/button";
+import { formatAreaFt2 } from "@/components/ui/format";
+import { formatDate } from "@/lib/dates";
+import type { VisitDetailDto } from "@/lib/visits/dto";
+import { visitKeys } from "@/lib/visits/query-keys";
+import { sendJson } from "@/lib/query-client";
+import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
+import { useMergeZoneCheck, useVisit } from "./use-visit";
+import { VisitSummary } from "./visit-summary";
+import { ZoneCheckForm } from "./zone-check-form";
+
+function currentPosition(): Promise<{ latitude: number | null; longitude: number | null }> {
+  return new Promise((resolve) => {
+    if (!("geolocation" in navigator)) return resolve({ latitude: null, longitude: null });
+    navigator.geolocation.getCurrentPosition(
+      (p) => resolve({ latitude: Number(p.coords.latitude.toFixed(5)), longitude: Number(p.coords.longitude.toFixed(5)) }),
+      () => resolve({ latitude: null, longitude: null }),
+      { timeout: 8000, maximumAge: 60_000 },
+    );
+  });
+}
+
+export function VisitRunner({ visitId, isManager }: { visitId: string; isManager: boolean }) {
+  const { data: visit } = useVisit(visitId);
+  const mergeCheck = useMergeZoneCheck(visitId);
+  const queryClient = useQueryClient();
+  const router = useRouter();
+  const pathname = usePathname();
+  const searchParams = useSearchParams();
+  const [message, setMessage] = useState<string | null>(null);
+  const [isBusy, setIsBusy] = useState(false);
+  if (!visit) return null;
+
+  const zoneId = searchParams.get("zone");
+  const zone = visit.zones.find((z) => z.id === zoneId);
+  const checkOf = (id: string) => visit.checks.find((c) => c.zoneId === id);
+  const openZone = (id: string | null) => router.replace(id ? `${pathname}?zone=${id}` : pathname, { scroll: true });
+  const remaining = visit.zones.filter((z) => !checkOf(z.id) || checkOf(z.id)?.status === "draft");
+  const setVisit = (next: VisitDetailDto) => queryClient.setQueryData(visitKeys.detail(visitId), next);
+
+  async function start() {
+    setIsBusy(true);
+    setMessage(null);
+    const result = await sendJson<VisitDetailDto>("POST", `/api/v1/visits/${visitId}/start`, await currentPosition());
+    setIsBusy(false);
+    if (result.ok) {
+      setVisit(result.data);
+      if (result.data.zones[0]) openZone(result.data.zones[0].id);
+    } else setMessage(result.error.message);
+  }
+
+  async function finish() {
+    setIsBusy(true);
+    setMessage(null);
+    const result = await sendJson<VisitDetailDto>("POST", `/api/v1/visits/${visitId}/finish`, {});
+    setIsBusy(false);
+    if (result.ok) {
+      setVisit(result.data);
+      void queryClient.invalidateQueries({ queryKey: visitKeys.all });
+      openZone(null);
+    } else setMessage(result.error.message);
+  }
+
+  const header = (
+    <header className="mb-4 space-y-1">
+      <div className="flex flex-wrap items-center gap-2">
+        <h1 className="text-2xl font-bold sm:text-3xl">{visit.propertyName}</h1>
+        <VisitStatusBadge status={visit.status} />
+      </div>
+      <p className="flex items-center gap-1.5 text-muted">
+        <MapPin className="size-4 shrink-0" aria-hidden="true" />
+        {visit.address}
+      </p>
+      <p>
+        {PLANNED_SERVICES[visit.plannedService]} · {formatDate(visit.scheduledFor)} · {visit.technician?.name ?? "no technician"}
+      </p>
+    </header>
+  );
+
+  if (visit.status === "completed" && !zone) {
+    return (
+      <>
+        {header}
+        <VisitSummary visit={visit} isManager={isManager} onEditZone={isManager ? openZone : undefined} />
+      </>
+    );
+  }
+
+  if (zone) {
+    const index = visit.zones.indexOf(zone);
+    const next = visit.zones[index + 1];
+    const species = findGrassSpecies(zone.grassSpecies.key);
+    return (
+      <>
+        <button type="button" onClick={() => openZone(null)} className="mb-3 inline-flex min-h-tap items-center gap-1 font-semibold text-sward">
+          <ArrowLeft className="size-5" aria-hidden="true" />
+          {visit.propertyName}: all zones
+        </button>
+        <header className="mb-4">
+          <p className="text-sm font-semibold text-muted">
+            Zone {index + 1} of {visit.zones.length}
+          </p>
+          <div className="flex flex-wrap items-center gap-2">
+            <h1 className="text-2xl font-bold">{zone.name}</h1>
+            <ZoneStatusBadge status={checkOf(zone.id)?.status ?? null} />
+          </div>
+          <p className="text-muted">
+            {formatAreaFt2(zone.areaFt2)} · {species?.name ?? zone.grassSpecies.name}
+          </p>
+        </header>
+        {visit.status === "completed" ? (
+          <p className="mb-4 rounded-lg bg-sun-tint p-3">This visit is finished. Your changes are recorded in its audit trail.</p>
+        ) : null}
+        <ZoneCheckForm
+          key={zone.id}
+          visitId={visit.id}
+          zone={zone}
+          serverCheck={checkOf(zone.id)}
+          canEdit={visit.canEdit}
+          timeZone={visit.timeZone}
+          onSaved={mergeCheck}
+          footer={
+            <div className="flex gap-2">
+              <Button type="button" variant="secondary" className="flex-1" onClick={() => openZone(null)}>
+                All zones
+              </Button>
+              <Button type="button" className="flex-1" onClick={() => openZone(next ? next.id : null)}>
+                {next ? `Next: ${next.name}` : "Review and finish"}
+                <ArrowRight className="size-5" aria-hidden="true" />
+              </Button>
+            </div>
+          }
+        />
+      </>
+    );
+  }
+
+  return (
+    <>
+      {header}
+      {visit.notes ? <p className="mb-4 rounded-lg border border-line bg-card p-3">Office note: {visit.notes}</p> : null}
+      <h2 className="mb-2 text-xl font-bold">Zones</h2>
+      <ul className="space-y-2" aria-label="Zones of this visit">
+        {visit.zones.map((z) => (
+          <li key={z.id}>
+            <button
+              type="button"
+              disabled={visit.status === "scheduled" || !visit.canEdit}
+              onClick={() => openZone(z.id)}
+              className="flex min-h-tap w-full items-center justify-between gap-3 rounded-xl border border-line bg-card p-4 text-left shadow-sm hover:border-sward disabled:opacity-60"
+            >
+              <span>
+                <span className="block text-lg font-bold">{z.name}</span>
+                <span className="block text-sm text-muted">
+                  {formatAreaFt2(z.areaFt2)} · {z.grassSpecies.name}
+                </span>
+              </span>
+              <ZoneStatusBadge status={checkOf(z.id)?.status ?? null} />
+            </button>
+          </li>
+        ))}
+      </ul>
+      {message ? (
+        <p role="alert" className="mt-4 rounded-lg border border-clay bg-clay-tint p-3 text-clay">
+          {message}
+        </p>
+      ) : null}
+      {visit.canEdit ? (
+        <div className="sticky bottom-[5.25rem] z-10 mt-6 rounded-xl border border-line bg-card p-2 shadow-lg md:bottom-2">
+          {visit.status === "scheduled" ? (
+            <Button type="button" className="w-full text-lg" onClick={start} disabled={isBusy}>
+              <Play className="size-5" aria-hidden="true" />
+              {isBusy ? "Starting…" : "Start visit"}
+            </Button>
+          ) : (
+            <Button type="button" className="w-full text-lg" onClick={finish} disabled={isBusy || remaining.length > 0}>
+              <CheckCheck className="size-5" aria-hidden="true" />
+              {remaining.length > 0 ? `Finish visit (${visit.zones.length - remaining.length} of ${visit.zones.length} zones done)` : isBusy ? "Finishing…" : "Finish visit"}
+            </Button>
+          )}
+        </div>
+      ) : null}
+    </>
+  );
+}

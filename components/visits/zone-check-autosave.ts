@@ -1,0 +1,193 @@
+// Autosave for one zone check, as a small store outside React (unit-tested on its own):
+// every change is kept on the device at once and sent to the server after a short pause;
+// failed saves are retried with back-off; a stale version becomes a visible conflict; an
+// acknowledged save never drops what was typed while it was in flight.
+import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
+import { emptyZoneCheck } from "@/lib/visits/schemas";
+import type { SendResult } from "@/lib/query-client";
+import type { DeviceDraft } from "./draft-store";
+
+export type SaveState =
+  | { kind: "idle" }
+  | { kind: "pending" }
+  | { kind: "saving" }
+  | { kind: "saved"; at: string }
+  | { kind: "retrying"; message: string; inSeconds: number }
+  | { kind: "invalid"; message: string; fieldErrors: Record<string, string[]> }
+  | { kind: "conflict"; message: string; current: ZoneCheckDto }
+  | { kind: "locked"; message: string };
+
+export interface AutosaveSnapshot {
+  values: ZoneCheckValues;
+  saveState: SaveState;
+  isRestored: boolean;
+}
+
+export interface AutosaveDeps {
+  send: (url: string, body: unknown, keepalive: boolean) => Promise<SendResult<ZoneCheckDto>>;
+  storage: { read(): DeviceDraft | null; write(draft: DeviceDraft): void; clear(): void };
+  newId: () => string;
+  setTimer: (fn: () => void, ms: number) => unknown;
+  clearTimer: (handle: unknown) => void;
+  onSaved: (check: ZoneCheckDto) => void;
+}
+
+export const DEBOUNCE_MS = 700;
+export const RETRY_SECONDS = [2, 5, 10, 30, 60] as const;
+
+export function valuesFrom(check: ZoneCheckDto): ZoneCheckValues {
+  const { id: _id, visitId: _v, version: _ver, updatedAt: _u, updatedBy: _b, ...values } = check;
+  return values;
+}
+
+const sameValues = (a: ZoneCheckValues, b: ZoneCheckValues) => JSON.stringify(a) === JSON.stringify(b);
+
+export class ZoneCheckAutosave {
+  private draft: DeviceDraft;
+  private snapshot: AutosaveSnapshot;
+  private listeners = new Set<() => void>();
+  private timer: unknown;
+  private isInFlight = false;
+  private attempt = 0;
+
+  constructor(
+    private readonly visitId: string,
+    private readonly zoneId: string,
+    private readonly serverCheck: ZoneCheckDto | undefined,
+    private readonly canEdit: boolean,
+    private readonly deps: AutosaveDeps,
+  ) {
+    const values = serverCheck ? valuesFrom(serverCheck) : { ...emptyZoneCheck(zoneId) };
+    const { baseVersion: _b, ...initial } = values as ZoneCheckValues & { baseVersion?: number };
+    this.draft = { id: serverCheck?.id ?? "", values: initial, baseVersion: serverCheck?.version ?? 0, isDirty: false, savedLocallyAt: "" };
+    this.snapshot = { values: initial, saveState: { kind: "idle" }, isRestored: false };
+  }
+
+  /** Reads the device copy (call once mounted, in the browser). */
+  start(): void {
+    const local = this.deps.storage.read();
+    if (local?.isDirty && this.canEdit) {
+      this.draft = { ...local };
+      const server = this.serverCheck;
+      if (server && server.version > local.baseVersion && !sameValues(valuesFrom(server), local.values)) {
+        this.set({ values: local.values, isRestored: true, saveState: { kind: "conflict", message: "This zone check was changed on another device while this one had unsaved changes.", current: server } });
+      } else {
+        this.set({ values: local.values, isRestored: true, saveState: { kind: "pending" } });
+        void this.save();
+      }
+      return;
+    }
+    if (!this.draft.id) this.draft.id = local?.id ?? this.deps.newId();
+  }
+
+  subscribe = (listener: () => void): (() => void) => {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  };
+
+  getSnapshot = (): AutosaveSnapshot => this.snapshot;
+
+  get hasUnsavedChanges(): boolean {
+    return this.draft.isDirty;
+  }
+
+  update(change: (previous: ZoneCheckValues) => ZoneCheckValues): void {
+    if (!this.canEdit) return;
+    if (!this.draft.id) this.draft.id = this.deps.newId();
+    this.draft.values = change(this.draft.values);
+    this.draft.isDirty = true;
+    this.persist();
+    const keep = this.snapshot.saveState.kind === "conflict" || this.snapshot.saveState.kind === "locked";
+    this.set({ values: this.draft.values, saveState: keep ? this.snapshot.saveState : { kind: "pending" } });
+    this.schedule(DEBOUNCE_MS);
+  }
+
+  resolveConflict(keep: "mine" | "theirs"): void {
+    const state = this.snapshot.saveState;
+    if (state.kind !== "conflict") return;
+    const theirs = state.current;
+    this.draft.id = theirs.id;
+    this.draft.baseVersion = theirs.version;
+    if (keep === "theirs") {
+      this.draft.values = valuesFrom(theirs);
+      this.draft.isDirty = false;
+      this.persist();
+      this.deps.onSaved(theirs);
+      this.set({ values: this.draft.values, saveState: { kind: "saved", at: theirs.updatedAt } });
+    } else {
+      this.draft.isDirty = true;
+      this.persist();
+      this.set({ saveState: { kind: "pending" } });
+      void this.save();
+    }
+  }
+
+  retryNow(): void {
+    this.attempt = 0;
+    this.deps.clearTimer(this.timer);
+    void this.save();
+  }
+
+  /** Sends what is pending now (page hidden or closing). */
+  flush(): void {
+    if (!this.draft.isDirty) return;
+    this.deps.clearTimer(this.timer);
+    void this.save(true);
+  }
+
+  dispose(): void {
+    this.deps.clearTimer(this.timer);
+    this.listeners.clear();
+  }
+
+  async save(keepalive = false): Promise<void> {
+    const kind = this.snapshot.saveState.kind;
+    if (!this.draft.isDirty || !this.canEdit || kind === "conflict" || kind === "locked" || this.isInFlight) return;
+    this.isInFlight = true;
+    this.set({ saveState: { kind: "saving" } });
+    const sent = this.draft.values;
+    const result = await this.deps.send(`/api/v1/visits/${this.visitId}/zone-checks/${this.draft.id}`, { ...sent, baseVersion: this.draft.baseVersion }, keepalive);
+    this.isInFlight = false;
+
+    if (result.ok) {
+      this.attempt = 0;
+      this.draft.baseVersion = result.data.version;
+      if (sameValues(this.draft.values, sent)) this.draft.isDirty = false;
+      this.persist();
+      this.deps.onSaved(result.data);
+      if (this.draft.isDirty) {
+        // Typed while the save was in flight: send that too.
+        this.set({ saveState: { kind: "pending" } });
+        void this.save();
+      } else this.set({ saveState: { kind: "saved", at: result.data.updatedAt } });
+      return;
+    }
+    if (result.status === 409 && result.error.details?.current) {
+      this.set({ saveState: { kind: "conflict", message: result.error.message, current: result.error.details.current as ZoneCheckDto } });
+    } else if (result.status === 403 || result.status === 404) {
+      this.set({ saveState: { kind: "locked", message: result.error.message } });
+    } else if (result.status === 422) {
+      this.set({ saveState: { kind: "invalid", message: result.error.message, fieldErrors: result.error.fieldErrors ?? {} } });
+    } else {
+      const wait = RETRY_SECONDS[Math.min(this.attempt, RETRY_SECONDS.length - 1)]!;
+      this.attempt++;
+      this.set({ saveState: { kind: "retrying", message: result.status === 0 ? "No connection." : result.error.message, inSeconds: wait } });
+      this.schedule(wait * 1000);
+    }
+  }
+
+  private schedule(ms: number): void {
+    this.deps.clearTimer(this.timer);
+    this.timer = this.deps.setTimer(() => void this.save(), ms);
+  }
+
+  private persist(): void {
+    if (this.draft.isDirty) this.deps.storage.write({ ...this.draft, savedLocallyAt: new Date().toISOString() });
+    else this.deps.storage.clear();
+  }
+
+  private set(patch: Partial<AutosaveSnapshot>): void {
+    this.snapshot = { ...this.snapshot, ...patch };
+    for (const listener of this.listeners) listener();
+  }
+}

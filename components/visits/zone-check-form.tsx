@@ -1,0 +1,221 @@
+"use client";
+// One zone check on a phone: ratings, ground, symptoms, mowing signs, notes — or "zone skipped".
+// Every tap is kept on the device and autosaved; nothing needs typing except notes.
+import { Ban, CheckCircle2, RotateCcw } from "lucide-react";
+import { useState } from "react";
+import { MOWING_DIRECTION, RATING_FIELDS, SKIP_REASONS, SOIL_MOISTURE } from "@/fixtures/visit-options";
+import { ChoiceGroup } from "@/components/ui/choice-group";
+import { Stepper } from "@/components/ui/stepper";
+import { ToggleChip } from "@/components/ui/toggle-chip";
+import { Button } from "@/components/ui/button";
+import type { ZoneDto } from "@/lib/properties/dto";
+import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
+import { zoneCheckSchema } from "@/lib/visits/schemas";
+import { RatingPicker } from "./rating-picker";
+import { SaveStatus } from "./save-status";
+import { SymptomPicker } from "./symptom-picker";
+import { useZoneCheckAutosave } from "./use-zone-check-autosave";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+
+const choicesOf = <T extends string>(labels: Record<T, string>) => (Object.entries(labels) as [T, string][]).map(([value, label]) => ({ value, label }));
+
+function Section({ title, children }: { title: string; children: React.ReactNode }) {
+  return (
+    <section className="space-y-4 rounded-xl border border-line bg-card p-4">
+      <h3 className="text-lg font-bold">{title}</h3>
+      {children}
+    </section>
+  );
+}
+
+export function ZoneCheckForm({
+  visitId,
+  zone,
+  serverCheck,
+  canEdit,
+  timeZone,
+  onSaved,
+  footer,
+}: {
+  footer?: React.ReactNode;
+  visitId: string;
+  zone: ZoneDto;
+  serverCheck: ZoneCheckDto | undefined;
+  canEdit: boolean;
+  timeZone: string;
+  onSaved: (check: ZoneCheckDto) => void;
+}) {
+  const { values, saveState, isRestored, store } = useZoneCheckAutosave(visitId, zone.id, serverCheck, canEdit, onSaved);
+  const [localErrors, setLocalErrors] = useState<Record<string, string[]>>({});
+  const serverErrors = saveState.kind === "invalid" ? saveState.fieldErrors : {};
+  const errorOf = (field: string) => localErrors[field]?.[0] ?? serverErrors[field]?.[0];
+  const set = <K extends keyof ZoneCheckValues>(field: K, value: ZoneCheckValues[K]) => {
+    setLocalErrors((e) => ({ ...e, [field]: [] }));
+    store.update((v) => {
+      const next = { ...v, [field]: value };
+      // Clearing a rating on a zone marked done puts it back to draft instead of failing to save.
+      if (next.status === "done" && (Object.keys(RATING_FIELDS) as (keyof typeof RATING_FIELDS)[]).some((k) => next[k] === null)) next.status = "draft";
+      return next;
+    });
+  };
+  const species = findGrassSpecies(zone.grassSpecies.key);
+  const isSkipped = values.status === "skipped";
+  const disabled = !canEdit;
+
+  function markDone() {
+    const result = zoneCheckSchema.safeParse({ ...values, status: "done", baseVersion: 0 });
+    if (!result.success) {
+      const fieldErrors: Record<string, string[]> = {};
+      for (const issue of result.error.issues) (fieldErrors[String(issue.path[0])] ??= []).push(issue.message);
+      setLocalErrors(fieldErrors);
+      return;
+    }
+    setLocalErrors({});
+    store.update((v) => ({ ...v, status: "done" }));
+  }
+
+  return (
+    <div className="space-y-4">
+      {isRestored ? (
+        <p className="rounded-lg border border-rain bg-rain-tint p-3 text-ink" role="status">
+          Restored the unsaved changes kept on this phone.
+        </p>
+      ) : null}
+      {saveState.kind === "conflict" ? (
+        <div role="alert" className="space-y-3 rounded-xl border-2 border-clay bg-clay-tint p-4 text-ink">
+          <p className="font-bold text-clay">{saveState.message}</p>
+          <p>
+            Their version: overall quality {saveState.current.quality ?? "—"}, colour {saveState.current.color ?? "—"}, {saveState.current.symptoms.length} symptom(s). Yours is on screen.
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <Button type="button" onClick={() => store.resolveConflict("mine")}>
+              Keep mine
+            </Button>
+            <Button type="button" variant="secondary" onClick={() => store.resolveConflict("theirs")}>
+              Use theirs
+            </Button>
+          </div>
+        </div>
+      ) : null}
+      {isSkipped ? (
+        <Section title="Zone skipped">
+          <ChoiceGroup label="Why was the zone skipped?" choices={choicesOf(SKIP_REASONS)} value={values.skipReason} onChange={(v) => set("skipReason", v)} columns={2} allowClear={false} />
+          {errorOf("skipReason") ? <p className="font-semibold text-clay">{errorOf("skipReason")}</p> : null}
+          <label className="block space-y-1">
+            <span className="font-semibold">{values.skipReason === "other" ? "Describe the reason (required)" : "Anything to add (optional)"}</span>
+            <textarea value={values.skipNote} disabled={disabled} onChange={(e) => set("skipNote", e.target.value)} rows={2} maxLength={1000} className="block w-full rounded-lg border border-line p-3 text-base" />
+          </label>
+          {errorOf("skipNote") ? <p className="font-semibold text-clay">{errorOf("skipNote")}</p> : null}
+          <Button type="button" variant="secondary" disabled={disabled} onClick={() => set("status", "draft")}>
+            <RotateCcw className="size-5" aria-hidden="true" />
+            Check this zone after all
+          </Button>
+        </Section>
+      ) : (
+        <>
+          <Section title="Ratings">
+            {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(([field, label]) => (
+              <RatingPicker key={field} id={`${zone.id}-${field}`} label={label} value={values[field]} onChange={(v) => set(field, v)} error={errorOf(field)} />
+            ))}
+          </Section>
+
+          <Section title="Ground">
+            <div>
+              <p className="mb-1 font-semibold">Bare ground</p>
+              <Stepper label="Bare ground" value={values.barePct} onChange={(v) => set("barePct", v)} step={5} min={0} max={100} startAt={0} unit="%" />
+            </div>
+            <div>
+              <p className="mb-1 font-semibold">Weeds</p>
+              <Stepper label="Weeds" value={values.weedsPct} onChange={(v) => set("weedsPct", v)} step={5} min={0} max={100} startAt={0} unit="%" />
+            </div>
+            <div>
+              <p className="mb-1 font-semibold">Thatch depth</p>
+              <Stepper label="Thatch depth" value={values.thatchIn} onChange={(v) => set("thatchIn", v)} step={0.25} min={0} max={6} startAt={0.25} unit="in" format={(v) => v.toFixed(2)} />
+            </div>
+            <div className="space-y-2">
+              <p className="font-semibold">Soil moisture</p>
+              <ChoiceGroup label="Soil moisture" choices={choicesOf(SOIL_MOISTURE)} value={values.soilMoisture} onChange={(v) => set("soilMoisture", v)} />
+              <label className="flex items-center gap-2">
+                <span className="text-sm">Probe reading (optional)</span>
+                <input
+                  type="number"
+                  inputMode="decimal"
+                  min={0}
+                  max={100}
+                  step={0.5}
+                  disabled={disabled}
+                  value={values.soilMoisturePct ?? ""}
+                  onChange={(e) => set("soilMoisturePct", e.target.value === "" ? null : Math.min(100, Math.max(0, Number(e.target.value))))}
+                  className="min-h-tap w-24 rounded-lg border border-line px-2 text-right text-base"
+                  aria-label="Soil moisture probe reading in percent"
+                />
+                <span className="text-sm">%</span>
+              </label>
+            </div>
+          </Section>
+
+          <Section title="Symptoms">
+            <SymptomPicker value={values.symptoms} onChange={(v) => set("symptoms", v)} disabled={disabled} />
+          </Section>
+
+          <Section title="Mowing">
+            <div>
+              <p className="mb-1 font-semibold">Measured height of cut</p>
+              {species ? (
+                <p className="mb-2 text-sm text-muted">
+                  {species.name}: {species.heightOfCutIn.min}–{species.heightOfCutIn.max} in (home lawns sit near the top)
+                </p>
+              ) : null}
+              <Stepper label="Height of cut" value={values.heightOfCutIn} onChange={(v) => set("heightOfCutIn", v)} step={0.25} min={0} max={12} startAt={3} unit="in" format={(v) => v.toFixed(2)} />
+            </div>
+            <div className="space-y-2">
+              <p className="font-semibold">Mowing direction, compared with the last check</p>
+              <ChoiceGroup label="Mowing direction" choices={choicesOf(MOWING_DIRECTION)} value={values.mowingDirection} onChange={(v) => set("mowingDirection", v)} columns={3} />
+            </div>
+            <div className="grid grid-cols-2 gap-2">
+              <ToggleChip label="Lay-over / matting" isOn={values.isMatted} onChange={(v) => set("isMatted", v)} />
+              <ToggleChip label="Scalping" isOn={values.isScalped} onChange={(v) => set("isScalped", v)} />
+              <ToggleChip label="Torn leaf tips" isOn={values.hasTornTips} onChange={(v) => set("hasTornTips", v)} />
+              <ToggleChip label="Clumped clippings" isOn={values.hasClumpedClippings} onChange={(v) => set("hasClumpedClippings", v)} />
+            </div>
+            {values.hasTornTips ? (
+              <p className="rounded-lg bg-sun-tint p-3 text-sm">
+                Torn tips point to a dull blade. Remind the homeowner: blades are sharpened with the engine off and the spark plug disconnected, cutting edges pointed away from yourself and others.
+              </p>
+            ) : null}
+          </Section>
+
+          <Section title="Notes">
+            <label className="block">
+              <span className="sr-only">Notes about this zone</span>
+              <textarea value={values.notes} disabled={disabled} onChange={(e) => set("notes", e.target.value)} rows={3} maxLength={4000} placeholder="What stood out in this zone" className="block w-full rounded-lg border border-line p-3 text-base" />
+            </label>
+          </Section>
+
+          {canEdit ? (
+            <div className="grid gap-2 sm:grid-cols-2">
+              {values.status === "done" ? (
+                <p className="flex min-h-tap items-center gap-2 rounded-lg bg-sward-tint px-3 font-semibold text-sward-deep">
+                  <CheckCircle2 className="size-5" aria-hidden="true" /> Zone marked done
+                </p>
+              ) : (
+                <Button type="button" onClick={markDone}>
+                  <CheckCircle2 className="size-5" aria-hidden="true" />
+                  Mark zone done
+                </Button>
+              )}
+              <Button type="button" variant="secondary" onClick={() => set("status", "skipped")}>
+                <Ban className="size-5" aria-hidden="true" />
+                Skip this zone
+              </Button>
+            </div>
+          ) : null}
+        </>
+      )}
+      <div className="sticky bottom-[5.25rem] z-10 space-y-2 rounded-xl border border-line bg-card p-2 shadow-lg md:bottom-2">
+        <SaveStatus state={saveState} onRetry={() => store.retryNow()} timeZone={timeZone} />
+        {footer}
+      </div>
+    </div>
+  );
+}

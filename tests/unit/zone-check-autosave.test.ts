@@ -1,0 +1,147 @@
+// The autosave store behind the zone-check form: nothing typed is dropped, saves are debounced,
+// failures retried with back-off, stale versions become conflicts, drafts survive a reload.
+import { describe, expect, it } from "vitest";
+import type { DeviceDraft } from "@/components/visits/draft-store";
+import { type AutosaveDeps, DEBOUNCE_MS, ZoneCheckAutosave } from "@/components/visits/zone-check-autosave";
+import type { ZoneCheckDto } from "@/lib/visits/dto";
+import type { SendResult } from "@/lib/query-client";
+
+const ZONE = "11111111-1111-4111-8111-111111111111";
+
+function harness(responses: ((body: Record<string, unknown>) => SendResult<ZoneCheckDto>)[], stored: DeviceDraft | null = null) {
+  const timers: { fn: () => void; ms: number }[] = [];
+  const sent: Record<string, unknown>[] = [];
+  let storage = stored;
+  const saved: ZoneCheckDto[] = [];
+  let version = 0;
+  const deps: AutosaveDeps = {
+    send: async (_url, body) => {
+      sent.push(body as Record<string, unknown>);
+      const next = responses.shift();
+      return next ? next(body as Record<string, unknown>) : ok(body as Record<string, unknown>);
+    },
+    storage: { read: () => storage, write: (d) => (storage = structuredClone(d)), clear: () => (storage = null) },
+    newId: () => "22222222-2222-4222-8222-222222222222",
+    setTimer: (fn, ms) => timers.push({ fn, ms }),
+    clearTimer: () => timers.splice(0),
+    onSaved: (c) => saved.push(c),
+  };
+  function ok(body: Record<string, unknown>): SendResult<ZoneCheckDto> {
+    version++;
+    const { baseVersion: _b, ...values } = body;
+    return { ok: true, status: 200, data: { ...(values as object), id: "22222222-2222-4222-8222-222222222222", visitId: "v", version, updatedAt: "2026-06-01T10:00:00Z", updatedBy: "Luis" } as ZoneCheckDto };
+  }
+  const runTimers = async () => {
+    while (timers.length) {
+      const t = timers.shift()!;
+      t.fn();
+      await new Promise((r) => setTimeout(r, 0));
+    }
+  };
+  return { deps, sent, saved, timers, runTimers, storage: () => storage, ok };
+}
+
+describe("ZoneCheckAutosave", () => {
+  it("keeps every change on the device at once and sends once after the pause", async () => {
+    const h = harness([]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 7 }));
+    store.update((v) => ({ ...v, color: 8 }));
+    expect(h.storage()?.values).toMatchObject({ quality: 7, color: 8 });
+    expect(h.storage()?.isDirty).toBe(true);
+    expect(h.timers.at(-1)?.ms).toBe(DEBOUNCE_MS);
+    expect(h.sent).toHaveLength(0);
+    await h.runTimers();
+    expect(h.sent).toHaveLength(1);
+    expect(h.sent[0]).toMatchObject({ quality: 7, color: 8, baseVersion: 0 });
+    expect(store.getSnapshot().saveState.kind).toBe("saved");
+    expect(h.storage()).toBeNull(); // acknowledged: the device copy is no longer needed
+  });
+
+  it("what is typed while a save is in flight is sent next, with the new base version", async () => {
+    const h = harness([]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 6 }));
+    const first = store.save();
+    store.update((v) => ({ ...v, notes: "typed during the save" }));
+    await first;
+    await h.runTimers();
+    await new Promise((r) => setTimeout(r, 0));
+    expect(h.sent.map((b) => [b.baseVersion, b.notes])).toEqual([
+      [0, ""],
+      [1, "typed during the save"],
+    ]);
+    expect(store.hasUnsavedChanges).toBe(false);
+  });
+
+  it("a failed save is visible, kept on the device, and retried with back-off", async () => {
+    const offline = (): SendResult<ZoneCheckDto> => ({ ok: false, status: 0, error: { code: "offline", message: "No connection to Sward right now." } });
+    const h = harness([offline, offline]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, weedsPct: 10 }));
+    await h.runTimers();
+    expect(h.sent.length).toBe(3); // two failures, then success
+    expect(store.getSnapshot().saveState.kind).toBe("saved");
+    expect(h.sent.every((b) => b.weedsPct === 10)).toBe(true);
+  });
+
+  it("back-off waits grow: 2 s, then 5 s", async () => {
+    const fail = (): SendResult<ZoneCheckDto> => ({ ok: false, status: 503, error: { code: "internal", message: "Busy" } });
+    const h = harness([fail, fail, fail]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 5 }));
+    h.timers.shift()!.fn();
+    await new Promise((r) => setTimeout(r, 0));
+    expect(store.getSnapshot().saveState).toMatchObject({ kind: "retrying", inSeconds: 2 });
+    h.timers.shift()!.fn();
+    await new Promise((r) => setTimeout(r, 0));
+    expect(store.getSnapshot().saveState).toMatchObject({ kind: "retrying", inSeconds: 5 });
+    expect(h.storage()?.values.quality).toBe(5);
+  });
+
+  it("a conflict stops autosave and offers both versions", async () => {
+    const theirs = { id: "22222222-2222-4222-8222-222222222222", visitId: "v", version: 3, updatedAt: "x", updatedBy: "Dana", zoneId: ZONE, quality: 4 } as unknown as ZoneCheckDto;
+    const h = harness([() => ({ ok: false, status: 409, error: { code: "conflict", message: "Changed on another device", details: { current: theirs } } })]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 8 }));
+    await h.runTimers();
+    expect(store.getSnapshot().saveState.kind).toBe("conflict");
+    store.update((v) => ({ ...v, notes: "still typing" }));
+    await h.runTimers();
+    expect(h.sent).toHaveLength(1); // no silent overwrite
+    store.resolveConflict("mine");
+    await new Promise((r) => setTimeout(r, 0));
+    expect(h.sent[1]).toMatchObject({ quality: 8, notes: "still typing", baseVersion: 3 });
+  });
+
+  it("after a reload, unsaved device changes are restored and sent", async () => {
+    const stored: DeviceDraft = {
+      id: "22222222-2222-4222-8222-222222222222",
+      values: { zoneId: ZONE, status: "draft", quality: 6, notes: "before the reload" } as DeviceDraft["values"],
+      baseVersion: 0,
+      isDirty: true,
+      savedLocallyAt: "x",
+    };
+    const h = harness([], stored);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    expect(store.getSnapshot()).toMatchObject({ isRestored: true, values: { notes: "before the reload" } });
+    await new Promise((r) => setTimeout(r, 0));
+    expect(h.sent[0]).toMatchObject({ notes: "before the reload", baseVersion: 0 });
+  });
+
+  it("a locked visit stops saving and says why", async () => {
+    const h = harness([() => ({ ok: false, status: 403, error: { code: "forbidden", message: "This visit is finished and locked." } })]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 2 }));
+    await h.runTimers();
+    expect(store.getSnapshot().saveState).toEqual({ kind: "locked", message: "This visit is finished and locked." });
+    expect(h.storage()?.values.quality).toBe(2); // still on the device
+  });
+});
