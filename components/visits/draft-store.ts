@@ -30,9 +30,12 @@ export function writeDraft(visitId: string, zoneId: string, draft: DeviceDraft):
   }
 }
 
-export function clearDraft(visitId: string, zoneId: string): void {
+/** Forgets every device copy of a visit's zone checks (after the visit is finished). */
+export function clearVisitDrafts(visitId: string): void {
   try {
-    window.localStorage.removeItem(key(visitId, zoneId));
+    const prefix = `sward:zone-check:${visitId}:`;
+    const keys = Array.from({ length: window.localStorage.length }, (_, i) => window.localStorage.key(i)).filter((k): k is string => k?.startsWith(prefix) ?? false);
+    for (const k of keys) window.localStorage.removeItem(k);
   } catch {
     /* nothing to clear */
   }

@@ -3,7 +3,7 @@
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 import type { ZoneCheckDto } from "@/lib/visits/dto";
 import { sendJson } from "@/lib/query-client";
-import { clearDraft, readDraft, writeDraft } from "./draft-store";
+import { readDraft, writeDraft } from "./draft-store";
 import { ZoneCheckAutosave } from "./zone-check-autosave";
 
 export function useZoneCheckAutosave(visitId: string, zoneId: string, serverCheck: ZoneCheckDto | undefined, canEdit: boolean, onSaved: (check: ZoneCheckDto) => void) {
@@ -15,7 +15,7 @@ export function useZoneCheckAutosave(visitId: string, zoneId: string, serverChec
     () =>
       new ZoneCheckAutosave(visitId, zoneId, serverCheck, canEdit, {
         send: (url, body, keepalive) => sendJson<ZoneCheckDto>("PUT", url, body, { keepalive }),
-        storage: { read: () => readDraft(visitId, zoneId), write: (d) => writeDraft(visitId, zoneId, d), clear: () => clearDraft(visitId, zoneId) },
+        storage: { read: () => readDraft(visitId, zoneId), write: (d) => writeDraft(visitId, zoneId, d) },
         newId: () => crypto.randomUUID(),
         setTimer: (fn, ms) => setTimeout(fn, ms),
         clearTimer: (handle) => clearTimeout(handle as ReturnType<typeof setTimeout>),

@@ -13,6 +13,7 @@ import { formatDate } from "@/lib/dates";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { sendJson } from "@/lib/query-client";
+import { clearVisitDrafts } from "./draft-store";
 import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
 import { useMergeZoneCheck, useVisit } from "./use-visit";
 import { VisitSummary } from "./visit-summary";
@@ -64,6 +65,7 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
     const result = await sendJson<VisitDetailDto>("POST", `/api/v1/visits/${visitId}/finish`, {});
     setIsBusy(false);
     if (result.ok) {
+      clearVisitDrafts(visitId);
       setVisit(result.data);
       void queryClient.invalidateQueries({ queryKey: visitKeys.all });
       openZone(null);

@@ -25,7 +25,7 @@ export interface AutosaveSnapshot {
 
 export interface AutosaveDeps {
   send: (url: string, body: unknown, keepalive: boolean) => Promise<SendResult<ZoneCheckDto>>;
-  storage: { read(): DeviceDraft | null; write(draft: DeviceDraft): void; clear(): void };
+  storage: { read(): DeviceDraft | null; write(draft: DeviceDraft): void };
   newId: () => string;
   setTimer: (fn: () => void, ms: number) => unknown;
   clearTimer: (handle: unknown) => void;
@@ -66,6 +66,14 @@ export class ZoneCheckAutosave {
   /** Reads the device copy (call once mounted, in the browser). */
   start(): void {
     const local = this.deps.storage.read();
+    const serverVersion = this.serverCheck?.version ?? 0;
+    if (local && !local.isDirty && local.baseVersion > serverVersion) {
+      // The page was rendered from data older than this phone's last acknowledged save (a save
+      // sent while the page was reloading can land after the reload read the server).
+      this.draft = { ...local };
+      this.set({ values: local.values });
+      return;
+    }
     if (local?.isDirty && this.canEdit) {
       this.draft = { ...local };
       const server = this.serverCheck;
@@ -181,9 +189,9 @@ export class ZoneCheckAutosave {
     this.timer = this.deps.setTimer(() => void this.save(), ms);
   }
 
+  /** The device keeps the last state, acknowledged or not, with the version it is based on. */
   private persist(): void {
-    if (this.draft.isDirty) this.deps.storage.write({ ...this.draft, savedLocallyAt: new Date().toISOString() });
-    else this.deps.storage.clear();
+    this.deps.storage.write({ ...this.draft, savedLocallyAt: new Date().toISOString() });
   }
 
   private set(patch: Partial<AutosaveSnapshot>): void {

@@ -20,7 +20,7 @@ function harness(responses: ((body: Record<string, unknown>) => SendResult<ZoneC
       const next = responses.shift();
       return next ? next(body as Record<string, unknown>) : ok(body as Record<string, unknown>);
     },
-    storage: { read: () => storage, write: (d) => (storage = structuredClone(d)), clear: () => (storage = null) },
+    storage: { read: () => storage, write: (d) => void (storage = structuredClone(d)) },
     newId: () => "22222222-2222-4222-8222-222222222222",
     setTimer: (fn, ms) => timers.push({ fn, ms }),
     clearTimer: () => timers.splice(0),
@@ -56,7 +56,24 @@ describe("ZoneCheckAutosave", () => {
     expect(h.sent).toHaveLength(1);
     expect(h.sent[0]).toMatchObject({ quality: 7, color: 8, baseVersion: 0 });
     expect(store.getSnapshot().saveState.kind).toBe("saved");
-    expect(h.storage()).toBeNull(); // acknowledged: the device copy is no longer needed
+    expect(h.storage()).toMatchObject({ isDirty: false, baseVersion: 1 }); // acknowledged, kept with its version
+  });
+
+  it("a page rendered from older server data than the phone's last acknowledged save shows the phone's copy", () => {
+    const acknowledged: DeviceDraft = {
+      id: "22222222-2222-4222-8222-222222222222",
+      values: { zoneId: ZONE, status: "draft", quality: 6, notes: "saved while reloading" } as DeviceDraft["values"],
+      baseVersion: 3,
+      isDirty: false,
+      savedLocallyAt: "x",
+    };
+    const stale = { id: acknowledged.id, visitId: "v", version: 2, updatedAt: "x", updatedBy: null, zoneId: ZONE, status: "draft", quality: 6, notes: "" } as unknown as ZoneCheckDto;
+    const h = harness([], acknowledged);
+    const store = new ZoneCheckAutosave("v", ZONE, stale, true, h.deps);
+    store.start();
+    expect(store.getSnapshot().values.notes).toBe("saved while reloading");
+    store.update((v) => ({ ...v, quality: 7 }));
+    return h.runTimers().then(() => expect(h.sent[0]).toMatchObject({ baseVersion: 3, notes: "saved while reloading" }));
   });
 
   it("what is typed while a save is in flight is sent next, with the new base version", async () => {
