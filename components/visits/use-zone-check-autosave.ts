@@ -23,6 +23,9 @@ export function useZoneCheckAutosave(visitId: string, zoneId: string, serverChec
       }),
   );
 
+  // Subscribe first, so the snapshot that start() publishes is seen.
+  const snapshot = useSyncExternalStore(store.subscribe, store.getSnapshot, store.getSnapshot);
+
   useEffect(() => {
     store.start();
     const flushIfHidden = () => document.visibilityState === "hidden" && store.flush();
@@ -37,6 +40,5 @@ export function useZoneCheckAutosave(visitId: string, zoneId: string, serverChec
     };
   }, [store]);
 
-  const snapshot = useSyncExternalStore(store.subscribe, store.getSnapshot, store.getSnapshot);
   return { ...snapshot, store };
 }

@@ -21,6 +21,8 @@ export interface AutosaveSnapshot {
   values: ZoneCheckValues;
   saveState: SaveState;
   isRestored: boolean;
+  /** False until the device copy has been read: the form stays disabled until then. */
+  isReady: boolean;
 }
 
 export interface AutosaveDeps {
@@ -60,7 +62,7 @@ export class ZoneCheckAutosave {
     const values = serverCheck ? valuesFrom(serverCheck) : { ...emptyZoneCheck(zoneId) };
     const { baseVersion: _b, ...initial } = values as ZoneCheckValues & { baseVersion?: number };
     this.draft = { id: serverCheck?.id ?? "", values: initial, baseVersion: serverCheck?.version ?? 0, isDirty: false, savedLocallyAt: "" };
-    this.snapshot = { values: initial, saveState: { kind: "idle" }, isRestored: false };
+    this.snapshot = { values: initial, saveState: { kind: "idle" }, isRestored: false, isReady: false };
   }
 
   /** Reads the device copy (call once mounted, in the browser). */
@@ -71,21 +73,22 @@ export class ZoneCheckAutosave {
       // The page was rendered from data older than this phone's last acknowledged save (a save
       // sent while the page was reloading can land after the reload read the server).
       this.draft = { ...local };
-      this.set({ values: local.values });
+      this.set({ values: local.values, isReady: true });
       return;
     }
     if (local?.isDirty && this.canEdit) {
       this.draft = { ...local };
       const server = this.serverCheck;
       if (server && server.version > local.baseVersion && !sameValues(valuesFrom(server), local.values)) {
-        this.set({ values: local.values, isRestored: true, saveState: { kind: "conflict", message: "This zone check was changed on another device while this one had unsaved changes.", current: server } });
+        this.set({ values: local.values, isRestored: true, isReady: true, saveState: { kind: "conflict", message: "This zone check was changed on another device while this one had unsaved changes.", current: server } });
       } else {
-        this.set({ values: local.values, isRestored: true, saveState: { kind: "pending" } });
+        this.set({ values: local.values, isRestored: true, isReady: true, saveState: { kind: "pending" } });
         void this.save();
       }
       return;
     }
     if (!this.draft.id) this.draft.id = local?.id ?? this.deps.newId();
+    this.set({ isReady: true });
   }
 
   subscribe = (listener: () => void): (() => void) => {

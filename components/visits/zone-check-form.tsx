@@ -45,7 +45,7 @@ export function ZoneCheckForm({
   timeZone: string;
   onSaved: (check: ZoneCheckDto) => void;
 }) {
-  const { values, saveState, isRestored, store } = useZoneCheckAutosave(visitId, zone.id, serverCheck, canEdit, onSaved);
+  const { values, saveState, isRestored, isReady, store } = useZoneCheckAutosave(visitId, zone.id, serverCheck, canEdit, onSaved);
   const [localErrors, setLocalErrors] = useState<Record<string, string[]>>({});
   const serverErrors = saveState.kind === "invalid" ? saveState.fieldErrors : {};
   const errorOf = (field: string) => localErrors[field]?.[0] ?? serverErrors[field]?.[0];
@@ -75,7 +75,8 @@ export function ZoneCheckForm({
   }
 
   return (
-    <div className="space-y-4">
+    <fieldset disabled={!isReady} aria-busy={!isReady} className="min-w-0 space-y-4">
+      <legend className="sr-only">Zone check of {zone.name}</legend>
       {isRestored ? (
         <p className="rounded-lg border border-rain bg-rain-tint p-3 text-ink" role="status">
           Restored the unsaved changes kept on this phone.
@@ -216,6 +217,6 @@ export function ZoneCheckForm({
         <SaveStatus state={saveState} onRetry={() => store.retryNow()} timeZone={timeZone} />
         {footer}
       </div>
-    </div>
+    </fieldset>
   );
 }

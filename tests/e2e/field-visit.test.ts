@@ -79,7 +79,10 @@ describe("a technician runs a visit on a phone", () => {
     // Reload at once: the last keystrokes may not have reached the server; the phone kept them.
     await page.reload();
     await page.getByRole("heading", { name: "Under the oaks" }).waitFor();
-    expect(await page.getByPlaceholder("What stood out in this zone").inputValue()).toBe("Thin under the two oaks; suggest shade-tolerant fine fescue overseeding.");
+    // The form opens once this phone's copy has been read (its fields are disabled until then).
+    const notes = page.getByPlaceholder("What stood out in this zone");
+    await expect.poll(() => notes.isEnabled(), { timeout: 10_000 }).toBe(true);
+    expect(await notes.inputValue()).toBe("Thin under the two oaks; suggest shade-tolerant fine fescue overseeding.");
     await expect(page.getByRole("radiogroup", { name: "Density, below acceptable" }).getByRole("radio", { name: "4", exact: true }).getAttribute("aria-checked")).resolves.toBe("true");
     await expect(page.getByText("Shade thinning", { exact: true }).isVisible()).resolves.toBe(true);
     await snap(page, "visit-04-after-reload");

@@ -1,12 +1,25 @@
 // E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
 // on 127.0.0.1. Builds first when no build exists. Stops the server by its PID afterwards.
 import { type ChildProcess, spawn } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, readdirSync, statSync } from "node:fs";
+import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { TSX, run, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 let server: ChildProcess | undefined;
+
+/** No build, or a source file changed after it: e2e tests must never run against old code. */
+function isBuildStale(): boolean {
+  if (!existsSync(".next/BUILD_ID")) return true;
+  const built = statSync(".next/BUILD_ID").mtimeMs;
+  const newest = (dir: string): number =>
+    readdirSync(dir, { withFileTypes: true }).reduce((max, entry) => {
+      const full = path.join(dir, entry.name);
+      return Math.max(max, entry.isDirectory() ? newest(full) : statSync(full).mtimeMs);
+    }, 0);
+  return ["app", "components", "lib", "db", "fixtures", "public"].some((dir) => existsSync(dir) && newest(dir) > built);
+}
 
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   const databaseUrl = `postgres://postgres@127.0.0.1:${process.env.SWARD_PG_PORT ?? "54329"}/sward_e2e`;
@@ -14,7 +27,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await run(TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
   await run(TSX, ["db/migrate.ts"], { DATABASE_URL: databaseUrl });
   await run(TSX, ["db/seed.ts"], { DATABASE_URL: databaseUrl });
-  if (!existsSync(".next/BUILD_ID")) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
+  if (isBuildStale()) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
 
   const baseUrl = `http://localhost:${PORT}`;
   server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
