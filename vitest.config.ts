@@ -37,6 +37,8 @@ export default defineConfig({
             AUTH_SECRET: "integration-tests-only-secret-0123456789abcdef",
             SIGN_IN_MAX_PER_ACCOUNT: "5",
             SIGN_IN_MAX_PER_ADDRESS: "20",
+            PHOTO_STORAGE: "local",
+            PHOTO_DIR: "tests/.artifacts/photos-integration",
           },
           testTimeout: 20_000,
           hookTimeout: 60_000,

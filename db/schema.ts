@@ -212,6 +212,32 @@ export interface AuditEventsTable {
   created_at: Generated<Date>;
 }
 
+export interface PhotosTable {
+  id: Generated<string>;
+  company_id: string;
+  visit_id: string;
+  zone_check_id: string;
+  zone_id: string;
+  property_id: string;
+  content_hash: string;
+  original_format: "jpeg" | "png" | "webp";
+  original_bytes: number;
+  width: number;
+  height: number;
+  display_key: string;
+  display_width: number;
+  display_height: number;
+  thumb_key: string;
+  green_cover_pct: number;
+  dgci: number | null;
+  /** Capture time as the camera recorded it (local, no zone), e.g. "2026-06-14 09:31:05". */
+  captured_local: string | null;
+  gps_latitude: number | null;
+  gps_longitude: number | null;
+  uploaded_by: string | null;
+  created_at: Generated<Date>;
+}
+
 export interface Database {
   companies: CompaniesTable;
   users: UsersTable;
@@ -227,6 +253,7 @@ export interface Database {
   visits: VisitsTable;
   zone_checks: ZoneChecksTable;
   audit_events: AuditEventsTable;
+  photos: PhotosTable;
 }
 
 export type Company = Selectable<CompaniesTable>;
@@ -256,3 +283,5 @@ export type ZoneCheck = Selectable<ZoneChecksTable>;
 export type NewZoneCheck = Insertable<ZoneChecksTable>;
 export type ZoneCheckUpdate = Updateable<ZoneChecksTable>;
 export type AuditEvent = Selectable<AuditEventsTable>;
+export type Photo = Selectable<PhotosTable>;
+export type NewPhoto = Insertable<PhotosTable>;

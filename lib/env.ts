@@ -17,7 +17,15 @@ const serverSchema = z.object({
   /** Failed sign-ins allowed per client address within the window. */
   SIGN_IN_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(20),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
-});
+  /** Where photo derivatives live: "local" (PHOTO_DIR on this machine) or "s3". */
+  PHOTO_STORAGE: z.enum(["local", "s3"]).default("local"),
+  PHOTO_DIR: z.string().default(".data/photos"),
+  S3_BUCKET: z.string().optional(),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_ENDPOINT: z.url().optional(),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+}).refine((env) => env.PHOTO_STORAGE !== "s3" || Boolean(env.S3_BUCKET), { message: "S3_BUCKET is required when PHOTO_STORAGE=s3", path: ["S3_BUCKET"] });
 
 export type ServerEnv = z.infer<typeof serverSchema>;
 

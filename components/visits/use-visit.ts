@@ -2,6 +2,7 @@
 // Client reads and cache updates of one visit.
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useCallback } from "react";
+import type { PhotoDto } from "@/lib/photos/dto";
 import type { VisitDetailDto, ZoneCheckDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { fetchJson } from "@/lib/query-client";
@@ -23,6 +24,19 @@ export function useMergeZoneCheck(visitId: string) {
         const checkedZones = checks.filter((c) => c.status !== "draft").length;
         return { ...visit, checks, checkedZones, status: visit.status === "scheduled" ? "in_progress" : visit.status };
       });
+    },
+    [queryClient, visitId],
+  );
+}
+
+/** Adds an uploaded photo to the cached visit. */
+export function useMergePhoto(visitId: string) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    (photo: PhotoDto) => {
+      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) =>
+        visit && !visit.photos.some((p) => p.id === photo.id) ? { ...visit, photos: [...visit.photos, photo] } : visit,
+      );
     },
     [queryClient, visitId],
   );

@@ -15,7 +15,7 @@ import { visitKeys } from "@/lib/visits/query-keys";
 import { sendJson } from "@/lib/query-client";
 import { clearVisitDrafts } from "./draft-store";
 import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
-import { useMergeZoneCheck, useVisit } from "./use-visit";
+import { useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
 import { VisitSummary } from "./visit-summary";
 import { ZoneCheckForm } from "./zone-check-form";
 
@@ -33,6 +33,7 @@ function currentPosition(): Promise<{ latitude: number | null; longitude: number
 export function VisitRunner({ visitId, isManager }: { visitId: string; isManager: boolean }) {
   const { data: visit } = useVisit(visitId);
   const mergeCheck = useMergeZoneCheck(visitId);
+  const mergePhoto = useMergePhoto(visitId);
   const queryClient = useQueryClient();
   const router = useRouter();
   const pathname = usePathname();
@@ -130,6 +131,8 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
           canEdit={visit.canEdit}
           timeZone={visit.timeZone}
           onSaved={mergeCheck}
+          photos={visit.photos.filter((p) => p.zoneId === zone.id)}
+          onPhotoUploaded={mergePhoto}
           footer={
             <div className="flex gap-2">
               <Button type="button" variant="secondary" className="flex-1" onClick={() => openZone(null)}>

@@ -10,6 +10,7 @@ import { formatTime } from "@/lib/dates";
 import type { AuditEventDto, VisitDetailDto, ZoneCheckDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { fetchJson } from "@/lib/query-client";
+import { PhotoFigure } from "@/components/photos/photo-figure";
 import { ZoneStatusBadge } from "./status-badge";
 
 const SEVERITY = { 1: "light", 2: "moderate", 3: "severe" } as const;
@@ -121,6 +122,17 @@ export function VisitSummary({ visit, isManager, onEditZone }: { visit: VisitDet
                 <ZoneStatusBadge status={check?.status ?? null} />
               </div>
               {check ? <Facts check={check} /> : <p className="text-muted">Not checked at this visit.</p>}
+              {visit.photos.some((p) => p.zoneId === zone.id) ? (
+                <ul className="mt-3 grid grid-cols-2 gap-2 sm:grid-cols-4" aria-label={`Photos of ${zone.name}`}>
+                  {visit.photos
+                    .filter((p) => p.zoneId === zone.id)
+                    .map((p) => (
+                      <li key={p.id}>
+                        <PhotoFigure photo={p} />
+                      </li>
+                    ))}
+                </ul>
+              ) : null}
               {onEditZone && check ? (
                 <Button type="button" variant="secondary" className="mt-3" onClick={() => onEditZone(zone.id)}>
                   <PencilLine className="size-5" aria-hidden="true" />

@@ -133,6 +133,25 @@ export class ZoneCheckAutosave {
     }
   }
 
+  /**
+   * Resolves with the check's id once the server has it (photos attach to a saved check).
+   * Sends the check now if it was never saved.
+   */
+  async ensureSaved(): Promise<string> {
+    for (let attempt = 0; attempt < 40; attempt++) {
+      if (this.draft.baseVersion > 0 && this.draft.id) return this.draft.id;
+      const kind = this.snapshot.saveState.kind;
+      if (kind === "conflict" || kind === "locked" || kind === "invalid") throw new Error("Save the zone check first (see the message above).");
+      if (!this.isInFlight) {
+        if (!this.draft.id) this.draft.id = this.deps.newId();
+        this.draft.isDirty = true;
+        this.deps.clearTimer(this.timer);
+        await this.save();
+      } else await new Promise((r) => setTimeout(r, 250));
+    }
+    throw new Error("The zone check could not be saved yet; try again in a moment.");
+  }
+
   retryNow(): void {
     this.attempt = 0;
     this.deps.clearTimer(this.timer);

@@ -16,6 +16,8 @@ import { SaveStatus } from "./save-status";
 import { SymptomPicker } from "./symptom-picker";
 import { useZoneCheckAutosave } from "./use-zone-check-autosave";
 import { findGrassSpecies } from "@/fixtures/grass-species";
+import { PhotoUploader } from "@/components/photos/photo-uploader";
+import type { PhotoDto } from "@/lib/photos/dto";
 
 const choicesOf = <T extends string>(labels: Record<T, string>) => (Object.entries(labels) as [T, string][]).map(([value, label]) => ({ value, label }));
 
@@ -36,8 +38,12 @@ export function ZoneCheckForm({
   timeZone,
   onSaved,
   footer,
+  photos,
+  onPhotoUploaded,
 }: {
   footer?: React.ReactNode;
+  photos: PhotoDto[];
+  onPhotoUploaded: (photo: PhotoDto) => void;
   visitId: string;
   zone: ZoneDto;
   serverCheck: ZoneCheckDto | undefined;
@@ -153,6 +159,10 @@ export function ZoneCheckForm({
                 <span className="text-sm">%</span>
               </label>
             </div>
+          </Section>
+
+          <Section title="Photos">
+            <PhotoUploader visitId={visitId} ensureSaved={() => store.ensureSaved()} photos={photos} onUploaded={onPhotoUploaded} disabled={disabled} />
           </Section>
 
           <Section title="Symptoms">

@@ -1,5 +1,13 @@
 // One application error type with codes; the guard maps it to an HTTP status and a clear message.
-export type AppErrorCode = "unauthenticated" | "forbidden" | "not_found" | "invalid_input" | "conflict" | "rate_limited";
+export type AppErrorCode =
+  | "unauthenticated"
+  | "forbidden"
+  | "not_found"
+  | "invalid_input"
+  | "conflict"
+  | "rate_limited"
+  | "payload_too_large"
+  | "unsupported_media";
 
 const STATUS: Record<AppErrorCode, number> = {
   unauthenticated: 401,
@@ -8,6 +16,8 @@ const STATUS: Record<AppErrorCode, number> = {
   invalid_input: 422,
   conflict: 409,
   rate_limited: 429,
+  payload_too_large: 413,
+  unsupported_media: 415,
 };
 
 export class AppError extends Error {

@@ -1,5 +1,6 @@
 // Visit and zone-check data as it leaves the server.
 import type { PlannedService, VisitStatus } from "@/db/schema";
+import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
 import type { ZoneCheckInput } from "./schemas";
 
@@ -36,6 +37,7 @@ export interface VisitDetailDto extends VisitSummaryDto {
   completedBy: string | null;
   zones: ZoneDto[];
   checks: ZoneCheckDto[];
+  photos: PhotoDto[];
   /** Staff may edit: technicians until the visit is finished, managers always (audited). */
   canEdit: boolean;
 }

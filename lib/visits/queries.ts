@@ -3,6 +3,7 @@ import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
+import { listVisitPhotos } from "@/lib/photos/queries";
 import { ZONE_COLUMNS, toZoneDto } from "@/lib/properties/map";
 import { propertyInScope } from "@/lib/properties/scope";
 import type { AuditEventDto, TodayStopDto, VisitDetailDto, VisitSummaryDto, ZoneHistoryEntryDto } from "./dto";
@@ -119,6 +120,7 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     completedBy: row.completed_by_name ?? null,
     zones: zones.map(toZoneDto),
     checks: checks.map((c) => toZoneCheckDto(c, c.updated_by_name)),
+    photos: await listVisitPhotos(actor, visitId),
     canEdit: actor.role === "manager" || (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
   };
 }

@@ -5,6 +5,7 @@ import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+import { lawnImage } from "../helpers/images";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -62,6 +63,17 @@ describe("a technician runs a visit on a phone", () => {
     await page.getByRole("button", { name: "Height of cut: more" }).click(); // first tap sets 3.00 in
     await page.getByRole("button", { name: "Height of cut: more" }).click(); // 3.25 in
     await page.getByRole("radiogroup", { name: "Mowing direction" }).getByRole("radio", { name: "Changed" }).click();
+    // Two photos at once from the library, and one file that is not a photo.
+    await page.getByLabel("Choose photos from the library").setInputFiles([
+      { name: "front-1.jpg", mimeType: "image/jpeg", buffer: await lawnImage(2400, 1800, 0.3) },
+      { name: "front-2.jpg", mimeType: "image/jpeg", buffer: await lawnImage(1600, 1200, 0.1) },
+      { name: "notes.jpg", mimeType: "image/jpeg", buffer: Buffer.from("a text file with a photo's name") },
+    ]);
+    const photos = page.getByRole("list", { name: "Photos of this zone check" });
+    await expect.poll(async () => (await photos.getByRole("listitem").count().catch(() => 0)), { timeout: 20_000 }).toBe(2);
+    expect(await photos.innerText()).toMatch(/\d+\.\d % green cover · DGCI 0\.\d{3}/);
+    await page.getByRole("alert").filter({ hasText: "not a photo Sward can read" }).waitFor();
+    await snap(page, "visit-03a-photos");
     await page.getByRole("button", { name: "Mark zone done" }).click();
     await waitSaved(page);
     await snap(page, "visit-03-front-lawn-done");
@@ -137,6 +149,7 @@ describe("a technician runs a visit on a phone", () => {
     expect(text).toContain("Shade thinning (moderate, 5 %)");
     expect(text).toContain("Skipped: Dog in yard");
     expect(text).toContain("3.25 in");
+    expect(await page.getByRole("list", { name: "Photos of Front lawn" }).getByRole("listitem").count()).toBe(2);
     await expect(page.getByText("Finished", { exact: true }).first().isVisible()).resolves.toBe(true);
     await snap(page, "visit-08-manager-view", true);
     expect(await seriousViolations(page)).toEqual([]);

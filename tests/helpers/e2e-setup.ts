@@ -40,6 +40,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
       AUTH_SECRET: "e2e-tests-only-secret-0123456789abcdefghijkl",
       AUTH_URL: baseUrl,
       LOG_LEVEL: "warn",
+      PHOTO_DIR: "tests/.artifacts/photos-e2e",
     },
   });
   await waitForUrl(`${baseUrl}/sign-in`, 30_000);

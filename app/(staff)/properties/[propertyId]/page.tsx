@@ -6,6 +6,7 @@ import { AddZone, ArchiveProperty, HomeownerAdmin, ZoneActions } from "@/compone
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { buttonClass } from "@/components/ui/button";
+import { PhotoFigure } from "@/components/photos/photo-figure";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
@@ -13,6 +14,7 @@ import { formatDate } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
+import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { listVisits } from "@/lib/visits/queries";
 
 export const metadata: Metadata = { title: "Property" };
@@ -25,7 +27,7 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const visits = await listVisits(actor, { propertyId: property.id });
+  const [visits, latestPhotos] = await Promise.all([listVisits(actor, { propertyId: property.id }), listLatestPhotoPerZone(actor, property.id)]);
   const isManager = actor.role === "manager";
 
   return (
@@ -69,6 +71,20 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
         <div className="mt-3">
           <AddZone propertyId={property.id} />
         </div>
+      ) : null}
+
+      {latestPhotos.length ? (
+        <>
+          <h2 className="mb-3 mt-10 text-2xl font-bold">Latest photo of each zone</h2>
+          <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4" aria-label="Latest photos">
+            {latestPhotos.map((photo) => (
+              <li key={photo.id}>
+                <p className="mb-1 font-semibold">{property.zones.find((z) => z.id === photo.zoneId)?.name ?? "Archived zone"}</p>
+                <PhotoFigure photo={photo} showDate />
+              </li>
+            ))}
+          </ul>
+        </>
       ) : null}
 
       <h2 className="mb-3 mt-10 text-2xl font-bold">Visits</h2>

@@ -2,6 +2,7 @@ import { ArrowLeft } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { BeforeAfter } from "@/components/photos/before-after";
 import { ZoneStatusBadge } from "@/components/visits/status-badge";
 import { findSymptom } from "@/fixtures/symptoms";
 import { RATING_SCALE, SKIP_REASONS } from "@/fixtures/visit-options";
@@ -9,6 +10,7 @@ import { requireActor } from "@/lib/auth/require";
 import { formatDate } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { zoneIdParams } from "@/lib/properties/schemas";
+import { listZonePhotos } from "@/lib/photos/queries";
 import { getZoneHistory } from "@/lib/visits/queries";
 
 export const metadata: Metadata = { title: "Zone history" };
@@ -26,6 +28,7 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
     throw err;
   });
   if (history.propertyId !== raw.propertyId) notFound();
+  const photos = await listZonePhotos(actor, parsed.data.zoneId);
 
   return (
     <>
@@ -34,6 +37,9 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
         Back to the property
       </Link>
       <h1 className="text-3xl font-bold">{history.zoneName}: history</h1>
+      <h2 className="mb-3 mt-6 text-2xl font-bold">Before and after</h2>
+      <BeforeAfter photos={photos} zoneName={history.zoneName} />
+      <h2 className="mb-1 mt-8 text-2xl font-bold">Checks</h2>
       <p className="mb-6 mt-1 text-muted">Every check of this zone, newest first. Ratings 1–9 (9 ideal, 6 lowest acceptable; ▼ below acceptable).</p>
       {history.entries.length === 0 ? (
         <p className="rounded-lg border border-line bg-card p-4">This zone has not been checked yet.</p>

@@ -1,0 +1,45 @@
+// The first and the latest photo of a zone side by side, and every photo over time.
+import type { PhotoDto } from "@/lib/photos/dto";
+import { PhotoFigure } from "./photo-figure";
+
+export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName: string }) {
+  if (photos.length === 0) return <p className="rounded-lg border border-line bg-card p-4">No photos of {zoneName} yet. Technicians add them on the zone check.</p>;
+  const first = photos[0]!;
+  const latest = photos[photos.length - 1]!;
+  const change = photos.length > 1 ? latest.greenCoverPct - first.greenCoverPct : null;
+  return (
+    <div className="space-y-4">
+      {photos.length > 1 ? (
+        <>
+          <div className="grid gap-3 sm:grid-cols-2">
+            <div>
+              <p className="mb-1 font-bold">Before</p>
+              <PhotoFigure photo={first} size="display" showDate />
+            </div>
+            <div>
+              <p className="mb-1 font-bold">Latest</p>
+              <PhotoFigure photo={latest} size="display" showDate />
+            </div>
+          </div>
+          {change !== null ? (
+            <p className="font-semibold">
+              Green cover {change >= 0 ? "up" : "down"} {Math.abs(change).toFixed(1)} points since the first photo
+              {first.dgci !== null && latest.dgci !== null ? `; DGCI ${first.dgci.toFixed(3)} → ${latest.dgci.toFixed(3)}` : ""}.
+            </p>
+          ) : null}
+        </>
+      ) : (
+        <div className="max-w-md">
+          <PhotoFigure photo={first} size="display" showDate />
+        </div>
+      )}
+      <ol className="flex gap-2 overflow-x-auto pb-2" aria-label={`All photos of ${zoneName}, oldest first`}>
+        {photos.map((p) => (
+          <li key={p.id} className="w-40 shrink-0">
+            <PhotoFigure photo={p} showDate />
+          </li>
+        ))}
+      </ol>
+    </div>
+  );
+}

@@ -1,0 +1,71 @@
+// Attaching a processed photo to a zone check. The visit must be in scope and open for the
+// actor; derivatives are stored under content-hash keys per company, so the same photo is
+// stored once; the same photo on the same check is one row (a retry returns it).
+import "server-only";
+import { db } from "@/db";
+import type { Actor } from "@/lib/auth/actor";
+import { AppError, notFound } from "@/lib/http/app-error";
+import type { PhotoStorage } from "@/lib/services/storage";
+import { visitInScope } from "@/lib/visits/scope";
+import type { PhotoDto } from "./dto";
+import type { ProcessedPhoto } from "./process";
+import { findZoneCheckPhoto } from "./queries";
+
+/** Checks that the actor may add a photo to this zone check, before any work is done. */
+export async function assertCanAddPhoto(actor: Actor, visitId: string, zoneCheckId: string) {
+  const row = await db()
+    .selectFrom("visits")
+    .innerJoin("zone_checks", "zone_checks.visit_id", "visits.id")
+    .select(["visits.status", "visits.property_id", "zone_checks.zone_id", "zone_checks.status as check_status"])
+    .where(visitInScope(actor))
+    .where("visits.id", "=", visitId)
+    .where("zone_checks.id", "=", zoneCheckId)
+    .where("zone_checks.company_id", "=", actor.companyId)
+    .executeTakeFirst();
+  if (!row) throw notFound("That zone check");
+  if (row.status === "cancelled") throw new AppError("conflict", "This visit was cancelled; photos can no longer be added.");
+  if (row.status === "completed" && actor.role !== "manager") throw new AppError("forbidden", "This visit is finished and locked. Ask your manager to add the photo.");
+  return row;
+}
+
+export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: string, photo: ProcessedPhoto, storage: PhotoStorage): Promise<{ photo: PhotoDto; isNew: boolean }> {
+  const target = await assertCanAddPhoto(actor, visitId, zoneCheckId);
+  const existing = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
+  if (existing) return { photo: existing, isNew: false };
+
+  const prefix = `${actor.companyId}/${photo.contentHash}`;
+  const displayKey = `${prefix}-display.webp`;
+  const thumbKey = `${prefix}-thumb.webp`;
+  if (!(await storage.has(displayKey))) await storage.put(displayKey, photo.display.data, "image/webp");
+  if (!(await storage.has(thumbKey))) await storage.put(thumbKey, photo.thumb.data, "image/webp");
+
+  await db()
+    .insertInto("photos")
+    .values({
+      company_id: actor.companyId,
+      visit_id: visitId,
+      zone_check_id: zoneCheckId,
+      zone_id: target.zone_id,
+      property_id: target.property_id,
+      content_hash: photo.contentHash,
+      original_format: photo.format,
+      original_bytes: photo.bytes,
+      width: photo.width,
+      height: photo.height,
+      display_key: displayKey,
+      display_width: photo.display.width,
+      display_height: photo.display.height,
+      thumb_key: thumbKey,
+      green_cover_pct: photo.greenCoverPct,
+      dgci: photo.dgci,
+      captured_local: photo.capturedLocal,
+      gps_latitude: photo.gps?.latitude ?? null,
+      gps_longitude: photo.gps?.longitude ?? null,
+      uploaded_by: actor.userId,
+    })
+    .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
+    .execute();
+  const saved = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
+  if (!saved) throw new Error("photo row missing after insert");
+  return { photo: saved, isNew: true };
+}

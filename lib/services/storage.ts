@@ -1,0 +1,79 @@
+// Object storage for photo derivatives behind one small interface, with two drivers:
+// the local disk (default; a git-ignored folder) and S3 (any S3-compatible service).
+import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
+import path from "node:path";
+import { GetObjectCommand, HeadObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+
+export interface PhotoStorage {
+  /** Stores bytes under a key; storing the same key again is harmless (keys are content hashes). */
+  put(key: string, body: Buffer, contentType: string): Promise<void>;
+  get(key: string): Promise<Buffer | null>;
+  has(key: string): Promise<boolean>;
+}
+
+const SAFE_KEY = /^[a-z0-9-]+(\/[a-z0-9.-]+)+$/;
+function assertKey(key: string): void {
+  if (!SAFE_KEY.test(key) || key.includes("..")) throw new Error(`unsafe storage key: ${key}`);
+}
+
+export function localDiskStorage(root: string): PhotoStorage {
+  const file = (key: string) => {
+    assertKey(key);
+    return path.join(root, key);
+  };
+  return {
+    async put(key, body) {
+      const target = file(key);
+      await mkdir(path.dirname(target), { recursive: true });
+      const temp = `${target}.${process.pid}.${Date.now()}.tmp`;
+      await writeFile(temp, body);
+      await rename(temp, target); // atomic: readers never see half a file
+    },
+    async get(key) {
+      try {
+        return await readFile(file(key));
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === "ENOENT") return null;
+        throw err;
+      }
+    },
+    async has(key) {
+      return (await this.get(key)) !== null;
+    },
+  };
+}
+
+export function s3Storage(options: { bucket: string; region: string; endpoint?: string; accessKeyId?: string; secretAccessKey?: string; forcePathStyle?: boolean }): PhotoStorage {
+  const client = new S3Client({
+    region: options.region,
+    endpoint: options.endpoint,
+    forcePathStyle: options.forcePathStyle ?? Boolean(options.endpoint),
+    credentials: options.accessKeyId && options.secretAccessKey ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey } : undefined,
+  });
+  return {
+    async put(key, body, contentType) {
+      assertKey(key);
+      await client.send(new PutObjectCommand({ Bucket: options.bucket, Key: key, Body: body, ContentType: contentType }));
+    },
+    async get(key) {
+      assertKey(key);
+      try {
+        const out = await client.send(new GetObjectCommand({ Bucket: options.bucket, Key: key }));
+        return out.Body ? Buffer.from(await out.Body.transformToByteArray()) : null;
+      } catch (err) {
+        if (err instanceof NoSuchKey || (err as { name?: string }).name === "NoSuchKey") return null;
+        throw err;
+      }
+    },
+    async has(key) {
+      assertKey(key);
+      try {
+        await client.send(new HeadObjectCommand({ Bucket: options.bucket, Key: key }));
+        return true;
+      } catch (err) {
+        if ((err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return false;
+        throw err;
+      }
+    },
+  };
+}

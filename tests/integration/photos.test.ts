@@ -1,0 +1,158 @@
+// Photo uploads through the route handler against the real database and the local-disk store:
+// the attack set is refused with a clear 4xx and stores nothing; derivatives carry no EXIF; the
+// same photo is stored once; photo URLs are 404 outside the actor's scope.
+import { readdirSync, rmSync, statSync } from "node:fs";
+import path from "node:path";
+import exifr from "exifr";
+import sharp from "sharp";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+import { otherCompany } from "@/fixtures/demo-scenario";
+import type { Actor } from "@/lib/auth/actor";
+import type { PhotoDto } from "@/lib/photos/dto";
+import { PHOTO_LIMITS } from "@/lib/photos/process";
+import { finishVisit, saveZoneCheck } from "@/lib/visits/mutations";
+import { emptyZoneCheck } from "@/lib/visits/schemas";
+import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+import { jpegWithGps, lawnImage, pixelFloodPng } from "../helpers/images";
+import { doneCheck, newId } from "../helpers/zone-checks";
+
+let current: Actor | null = null;
+vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
+const upload = await import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/photos/route");
+const download = await import("@/app/api/v1/photos/[photoId]/[variant]/route");
+
+const STORE = "tests/.artifacts/photos-integration";
+let c: TestCompany;
+let other: TestCompany;
+let visitId: string;
+let zoneIds: string[];
+const checkIds: string[] = [];
+
+function filesIn(dir: string): string[] {
+  try {
+    return readdirSync(dir, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).map((e) => path.join(e.parentPath, e.name));
+  } catch {
+    return [];
+  }
+}
+
+async function post(body: Buffer | Uint8Array, checkIndex = 0, type = "image/jpeg") {
+  return upload.POST(
+    new Request("http://localhost/api/x", { method: "POST", body: new Uint8Array(body), headers: { origin: "http://localhost", host: "localhost", "content-type": type } }),
+    { params: Promise.resolve({ visitId, zoneCheckId: checkIds[checkIndex]! }) },
+  );
+}
+
+beforeAll(async () => {
+  rmSync(STORE, { recursive: true, force: true });
+  [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
+  const tech1 = await c.actor("tech1");
+  const visit = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
+  visitId = visit.id;
+  zoneIds = (await testDb().selectFrom("zones").select("id").where("property_id", "=", c.propertyIds["haddad"]!).orderBy("sort_order").execute()).map((z) => z.id);
+  for (const zoneId of zoneIds) checkIds.push((await saveZoneCheck(tech1, visitId, newId(), emptyZoneCheck(zoneId))).id);
+  current = tech1;
+});
+
+describe("the attack set", () => {
+  const truncatedJpeg = async () => (await lawnImage(800, 600, 0.2)).subarray(0, 4000);
+  const cases: [string, () => Promise<Buffer> | Buffer, number, RegExp][] = [
+    ["a text file named .jpg", () => Buffer.from("This is a note about the lawn, not a picture.\n".repeat(20)), 415, /not a photo Sward can read/],
+    ["a truncated JPEG", truncatedJpeg, 422, /damaged or cut short/],
+    ["a 20,000 × 20,000 PNG", () => pixelFloodPng(20_000, 20_000), 422, /20000 × 20000 pixels, above the 50 megapixel limit/],
+    ["a file over the size limit", () => Buffer.alloc(PHOTO_LIMITS.maxBytes + 1, 0xff), 413, /larger than 25 MB/],
+    ["an SVG", () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100"><rect width="100" height="100" fill="green"/></svg>'), 415, /SVG files are not accepted/],
+    ["a zero-byte file", () => Buffer.alloc(0), 422, /file is empty/],
+  ];
+
+  it.each(cases)("%s is refused with a clear message and nothing is stored", async (_name, make, status, message) => {
+    const before = { files: filesIn(STORE).length, rows: (await testDb().selectFrom("photos").select("id").execute()).length };
+    const res = await post(await make());
+    expect(res.status).toBe(status);
+    const body = (await res.json()) as { error: { message: string } };
+    expect(body.error.message).toMatch(message);
+    expect(filesIn(STORE).length).toBe(before.files);
+    expect((await testDb().selectFrom("photos").select("id").execute()).length).toBe(before.rows);
+  });
+});
+
+describe("accepted photos", () => {
+  let photo: PhotoDto;
+
+  it("a JPEG with GPS EXIF is accepted; GPS and capture time are kept as staff evidence; derivatives carry no EXIF", async () => {
+    const res = await post(await jpegWithGps());
+    expect(res.status).toBe(201);
+    photo = (await res.json()) as PhotoDto;
+    expect(photo.capturedLocal).toBe("2026-06-14 09:31:05");
+    expect(photo.gps?.latitude).toBeCloseTo(40.334, 3);
+    expect(photo.gps?.longitude).toBeCloseTo(-74.739, 3);
+    expect(photo.greenCoverPct).toBe(100);
+
+    for (const file of filesIn(STORE)) {
+      const bytes = (await import("node:fs")).readFileSync(file);
+      expect(await exifr.gps(bytes).catch(() => undefined)).toBeUndefined();
+      expect(await exifr.parse(bytes).catch(() => undefined)).toBeUndefined();
+      const meta = await sharp(bytes).metadata();
+      expect(meta.format).toBe("webp");
+      expect(meta.exif).toBeUndefined();
+      expect(meta.xmp).toBeUndefined();
+    }
+    console.log(`uploads: ${filesIn(STORE).length} stored files, ${filesIn(STORE).map((f) => statSync(f).size).join(" + ")} bytes, 0 with EXIF`);
+  });
+
+  it("the same photo uploaded twice to the check is one row and one set of files; on another check it reuses the files", async () => {
+    const jpeg = await jpegWithGps();
+    const again = await post(jpeg);
+    expect(again.status).toBe(200);
+    expect(((await again.json()) as PhotoDto).id).toBe(photo.id);
+    const filesBefore = filesIn(STORE).length;
+    const onOtherCheck = await post(jpeg, 1);
+    expect(onOtherCheck.status).toBe(201);
+    expect(filesIn(STORE).length).toBe(filesBefore);
+    expect((await testDb().selectFrom("photos").select("id").where("visit_id", "=", visitId).execute()).length).toBe(2);
+  });
+
+  it("derivatives have the promised sizes and are served as WebP with the right headers", async () => {
+    const big = await post(await lawnImage(4000, 3000, 0.25));
+    expect(big.status).toBe(201);
+    const dto = (await big.json()) as PhotoDto;
+    expect(dto.width).toBe(4000);
+    for (const [variant, longSide] of [["display", 1600], ["thumb", 320]] as const) {
+      const res = await download.GET(new Request(`http://localhost${dto.displayUrl}`), { params: Promise.resolve({ photoId: dto.id, variant }) });
+      expect(res.status).toBe(200);
+      expect(res.headers.get("content-type")).toBe("image/webp");
+      expect(res.headers.get("content-disposition")).toMatch(/^inline; filename=".+\.webp"$/);
+      expect(res.headers.get("cache-control")).toBe("private, max-age=31536000, immutable");
+      const meta = await sharp(Buffer.from(await res.arrayBuffer())).metadata();
+      expect(Math.max(meta.width!, meta.height!)).toBe(longSide);
+    }
+  });
+
+  it("photo URLs are 404 for another company's manager and another property's homeowner; the own homeowner only after the visit is finished", async () => {
+    const get = () => download.GET(new Request("http://localhost/x"), { params: Promise.resolve({ photoId: photo.id, variant: "thumb" }) });
+    current = await other.actor("manager");
+    expect((await get()).status).toBe(404);
+    current = await c.actor("owner1"); // Oyelaran, not Haddad
+    expect((await get()).status).toBe(404);
+    current = await c.actor("owner2"); // Haddad's homeowner: the visit is not finished yet
+    expect((await get()).status).toBe(404);
+    current = await c.actor("manager");
+    expect((await get()).status).toBe(200);
+
+    const tech1 = await c.actor("tech1");
+    for (const [i, zoneId] of zoneIds.entries()) await saveZoneCheck(tech1, visitId, checkIds[i]!, { ...doneCheck(zoneId), baseVersion: 1 });
+    await finishVisit(tech1, visitId);
+    current = await c.actor("owner2");
+    const res = await get();
+    expect(res.status).toBe(200);
+    // Homeowners never receive the GPS evidence.
+    const { listVisitPhotos } = await import("@/lib/photos/queries");
+    expect((await listVisitPhotos(current, visitId)).every((p) => p.gps === null && p.capturedLocal === null)).toBe(true);
+  });
+
+  it("a technician cannot add photos to a finished visit", async () => {
+    current = await c.actor("tech1");
+    const res = await post(await lawnImage(300, 200, 0.1));
+    expect(res.status).toBe(403);
+  });
+});
