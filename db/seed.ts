@@ -2,6 +2,7 @@
 // exists is left as it is, so running the demo again keeps what you entered.
 import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo-scenario";
 import { createDb, localDatabaseUrl } from "./client";
+import { seedDemoPhotos } from "./seed-photos";
 import { ensureDemoDay, removeCompany, seedCompany } from "./seed-scenario";
 
 const isReset = process.argv.includes("--reset");
@@ -16,7 +17,8 @@ try {
     }
     if (existing) await removeCompany(db, company.slug);
     const seeded = await seedCompany(db, company, DEMO_PASSWORD);
-    console.log(`seed: ${company.name}: ${company.people.length} sign-ins, ${Object.keys(seeded.propertyIds).length} properties`);
+    const photos = company.schedule ? await seedDemoPhotos(db, company.slug, process.env.PHOTO_DIR ?? ".data/photos") : 0;
+    console.log(`seed: ${company.name}: ${company.people.length} sign-ins, ${Object.keys(seeded.propertyIds).length} properties, ${photos} photos`);
   }
 } catch (err) {
   console.error("seed: failed:", err instanceof Error ? err.message : err);

@@ -11,7 +11,7 @@ export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName
     <div className="space-y-4">
       {photos.length > 1 ? (
         <>
-          <div className="grid gap-3 sm:grid-cols-2">
+          <div className="grid grid-cols-2 gap-3">
             <div>
               <p className="mb-1 font-bold">Before</p>
               <PhotoFigure photo={first} size="display" showDate />

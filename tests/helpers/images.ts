@@ -2,6 +2,8 @@
 import { deflateSync } from "node:zlib";
 import sharp from "sharp";
 
+export { lawnImage } from "@/fixtures/demo-photos";
+
 /** RGB image whose first `greenFraction` of rows are `green` and the rest `soil`. */
 export async function stripedImage(width: number, height: number, greenFraction: number, green: [number, number, number], soil: [number, number, number], format: "png" | "jpeg" = "png"): Promise<Buffer> {
   const data = Buffer.alloc(width * height * 3);
@@ -17,30 +19,6 @@ export async function stripedImage(width: number, height: number, greenFraction:
   }
   const img = sharp(data, { raw: { width, height, channels: 3 } });
   return format === "png" ? img.png().toBuffer() : img.jpeg({ quality: 92 }).toBuffer();
-}
-
-/** A mottled "lawn": turf greens of varying shade with soil-brown patches covering `soilFraction`. */
-export async function lawnImage(width: number, height: number, soilFraction: number, format: "jpeg" | "png" = "jpeg"): Promise<Buffer> {
-  const data = Buffer.alloc(width * height * 3);
-  const cell = 16;
-  let seed = 7;
-  const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
-  const cellsX = Math.ceil(width / cell);
-  const cellsY = Math.ceil(height / cell);
-  const isSoil = Array.from({ length: cellsX * cellsY }, () => rnd() < soilFraction);
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const soil = isSoil[Math.floor(y / cell) * cellsX + Math.floor(x / cell)];
-      const shade = 0.8 + 0.4 * rnd();
-      const [r, g, b] = soil ? [120 * shade, 85 * shade, 55 * shade] : [55 * shade, 120 * shade, 40 * shade];
-      const i = (y * width + x) * 3;
-      data[i] = Math.min(255, r);
-      data[i + 1] = Math.min(255, g);
-      data[i + 2] = Math.min(255, b);
-    }
-  }
-  const img = sharp(data, { raw: { width, height, channels: 3 } });
-  return format === "png" ? img.png().toBuffer() : img.jpeg({ quality: 88 }).toBuffer();
 }
 
 export async function uniformImage(rgb: [number, number, number], size = 64): Promise<Buffer> {
