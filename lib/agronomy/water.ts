@@ -1,0 +1,29 @@
+// Turf water use and water balance. Crop coefficients for turf against FAO-56 reference ET:
+// about 0.8 for cool-season and 0.6 for warm-season turf (University of California guidance
+// following Meyer, Gibeault & Youngner 1985 — from memory, the primary text was not read).
+import type { GrassSeason } from "@/fixtures/grass-species";
+import { IN_IN_MM } from "./units";
+
+export const TURF_KC: Record<GrassSeason, number> = { cool: 0.8, warm: 0.6 };
+
+export const mmToIn = (mm: number) => mm / IN_IN_MM;
+export const inToMm = (inches: number) => inches * IN_IN_MM;
+
+/** Turf water use, same unit as ETo: Kc × ETo. */
+export const turfWaterUse = (et0: number, kc: number) => kc * et0;
+
+/** Depth of an irrigation from its run time and the system's precipitation rate (in/h). */
+export const wateringDepthIn = (runMinutes: number, precipitationRateInPerHour: number) => (runMinutes / 60) * precipitationRateInPerHour;
+
+/** Water balance over a window: rain + watering − turf use (same unit; negative = deficit). */
+export function waterBalance(days: { rain: number; watering: number; use: number }[]): number {
+  return days.reduce((sum, d) => sum + d.rain + d.watering - d.use, 0);
+}
+
+/** Trailing moving mean over `window` values (the first window − 1 entries use what exists). */
+export function movingMean(values: number[], window: number): number[] {
+  return values.map((_, i) => {
+    const slice = values.slice(Math.max(0, i - window + 1), i + 1);
+    return slice.reduce((a, b) => a + b, 0) / slice.length;
+  });
+}
