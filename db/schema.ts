@@ -39,11 +39,73 @@ export interface CompaniesTable {
   created_at: Generated<Date>;
 }
 
+export type PhosphorusRule = "allowed" | "soil_test_or_establishment";
+
 export interface RuleSetsTable {
   id: Generated<string>;
   company_id: string;
   name: string;
   citation: Generated<string>;
+  limits_are_law: Generated<boolean>;
+  max_n_lb_per_1000: number | null;
+  max_wsn_lb_per_1000: number | null;
+  min_slow_release_pct: number | null;
+  pro_blackout_start: string | null;
+  pro_blackout_end: string | null;
+  homeowner_blackout_start: string | null;
+  homeowner_blackout_end: string | null;
+  phosphorus_rule: Generated<PhosphorusRule>;
+  soil_test_max_age_years: number | null;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export type ProductFormValue = "granular" | "liquid" | "soluble";
+
+export interface ProductsTable {
+  id: Generated<string>;
+  company_id: string;
+  name: string;
+  form: ProductFormValue;
+  n_pct: number;
+  p2o5_pct: number;
+  k2o_pct: number;
+  slow_release_pct_of_n: Generated<number>;
+  density_lb_per_gal: number | null;
+  is_pesticide: Generated<boolean>;
+  registration_number: Generated<string>;
+  label_cautions: Generated<string>;
+  reentry_guidance: Generated<string>;
+  archived_at: NullableTimestamp;
+  created_at: Generated<Date>;
+}
+
+export interface ApplicationsTable {
+  id: string;
+  company_id: string;
+  visit_id: string;
+  zone_id: string;
+  product_id: string;
+  rate_amount: number;
+  rate_unit: "lb/1000ft2" | "oz/1000ft2" | "floz/1000ft2" | "gal/1000ft2" | "kg/ha" | "g/m2" | "lb/acre" | "L/ha";
+  area_ft2: number;
+  product_total_lb: number;
+  product_total_gal: number | null;
+  n_lb_per_1000: number;
+  p2o5_lb_per_1000: number;
+  k2o_lb_per_1000: number;
+  wsn_lb_per_1000: number;
+  applied_on: ColumnType<string, string, string>;
+  applied_at: Timestamp;
+  wind_mph: number | null;
+  temperature_f: number | null;
+  is_establishing: Generated<boolean>;
+  applicator_name: Generated<string>;
+  applicator_licence: Generated<string>;
+  findings: ColumnType<unknown[], string, string>;
+  override_reason: string | null;
+  override_by: string | null;
+  created_by: string | null;
   created_at: Generated<Date>;
 }
 
@@ -119,6 +181,7 @@ export interface PropertiesTable {
   time_zone: string;
   technician_id: string | null;
   rule_set_id: string | null;
+  p_soil_test_on: ColumnType<string | null, string | null | undefined, string | null>;
   notes: Generated<string>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
@@ -254,6 +317,8 @@ export interface Database {
   zone_checks: ZoneChecksTable;
   audit_events: AuditEventsTable;
   photos: PhotosTable;
+  products: ProductsTable;
+  applications: ApplicationsTable;
 }
 
 export type Company = Selectable<CompaniesTable>;
@@ -285,3 +350,6 @@ export type ZoneCheckUpdate = Updateable<ZoneChecksTable>;
 export type AuditEvent = Selectable<AuditEventsTable>;
 export type Photo = Selectable<PhotosTable>;
 export type NewPhoto = Insertable<PhotosTable>;
+export type Product = Selectable<ProductsTable>;
+export type NewProduct = Insertable<ProductsTable>;
+export type Application = Selectable<ApplicationsTable>;
