@@ -268,7 +268,7 @@ export interface AuditEventsTable {
   id: Generated<string>;
   company_id: string;
   actor_id: string | null;
-  entity: "visit" | "zone_check" | "property" | "zone";
+  entity: "visit" | "zone_check" | "property" | "zone" | "rule_set" | "application";
   entity_id: string;
   action: string;
   changes: ColumnType<Record<string, { from: unknown; to: unknown }>, string, string>;

@@ -2,6 +2,7 @@
 // Client reads and cache updates of one visit.
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useCallback } from "react";
+import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { VisitDetailDto, ZoneCheckDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
@@ -36,6 +37,19 @@ export function useMergePhoto(visitId: string) {
     (photo: PhotoDto) => {
       queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) =>
         visit && !visit.photos.some((p) => p.id === photo.id) ? { ...visit, photos: [...visit.photos, photo] } : visit,
+      );
+    },
+    [queryClient, visitId],
+  );
+}
+
+/** Adds a recorded application to the cached visit. */
+export function useMergeApplication(visitId: string) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    (application: ApplicationDto) => {
+      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) =>
+        visit && !visit.applications.some((a) => a.id === application.id) ? { ...visit, applications: [...visit.applications, application], status: visit.status === "scheduled" ? "in_progress" : visit.status } : visit,
       );
     },
     [queryClient, visitId],

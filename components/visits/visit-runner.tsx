@@ -15,7 +15,7 @@ import { visitKeys } from "@/lib/visits/query-keys";
 import { sendJson } from "@/lib/query-client";
 import { clearVisitDrafts } from "./draft-store";
 import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
-import { useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
+import { useMergeApplication, useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
 import { VisitSummary } from "./visit-summary";
 import { ZoneCheckForm } from "./zone-check-form";
 
@@ -34,6 +34,7 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
   const { data: visit } = useVisit(visitId);
   const mergeCheck = useMergeZoneCheck(visitId);
   const mergePhoto = useMergePhoto(visitId);
+  const mergeApplication = useMergeApplication(visitId);
   const queryClient = useQueryClient();
   const router = useRouter();
   const pathname = usePathname();
@@ -133,6 +134,10 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
           onSaved={mergeCheck}
           photos={visit.photos.filter((p) => p.zoneId === zone.id)}
           onPhotoUploaded={mergePhoto}
+          applications={visit.applications}
+          onApplicationRecorded={mergeApplication}
+          ruleSetId={visit.ruleSetId}
+          isManager={isManager}
           footer={
             <div className="flex gap-2">
               <Button type="button" variant="secondary" className="flex-1" onClick={() => openZone(null)}>

@@ -16,7 +16,9 @@ import { SaveStatus } from "./save-status";
 import { SymptomPicker } from "./symptom-picker";
 import { useZoneCheckAutosave } from "./use-zone-check-autosave";
 import { findGrassSpecies } from "@/fixtures/grass-species";
+import { ApplicationPanel } from "@/components/applications/application-panel";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
+import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 
 const choicesOf = <T extends string>(labels: Record<T, string>) => (Object.entries(labels) as [T, string][]).map(([value, label]) => ({ value, label }));
@@ -40,7 +42,15 @@ export function ZoneCheckForm({
   footer,
   photos,
   onPhotoUploaded,
+  applications,
+  onApplicationRecorded,
+  ruleSetId,
+  isManager,
 }: {
+  applications: ApplicationDto[];
+  onApplicationRecorded: (application: ApplicationDto) => void;
+  ruleSetId: string | null;
+  isManager: boolean;
   footer?: React.ReactNode;
   photos: PhotoDto[];
   onPhotoUploaded: (photo: PhotoDto) => void;
@@ -163,6 +173,10 @@ export function ZoneCheckForm({
 
           <Section title="Photos">
             <PhotoUploader visitId={visitId} ensureSaved={() => store.ensureSaved()} photos={photos} onUploaded={onPhotoUploaded} disabled={disabled} />
+          </Section>
+
+          <Section title="Applications">
+            <ApplicationPanel visitId={visitId} zoneId={zone.id} areaFt2={zone.areaFt2} ruleSetId={ruleSetId} timeZone={timeZone} applications={applications} isManager={isManager} disabled={disabled} onRecorded={onApplicationRecorded} />
           </Section>
 
           <Section title="Symptoms">

@@ -1,5 +1,6 @@
 // Visit and zone-check data as it leaves the server.
 import type { PlannedService, VisitStatus } from "@/db/schema";
+import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
 import type { ZoneCheckInput } from "./schemas";
@@ -33,11 +34,13 @@ export interface VisitSummaryDto {
 export interface VisitDetailDto extends VisitSummaryDto {
   notes: string;
   timeZone: string;
+  ruleSetId: string | null;
   version: number;
   completedBy: string | null;
   zones: ZoneDto[];
   checks: ZoneCheckDto[];
   photos: PhotoDto[];
+  applications: ApplicationDto[];
   /** Staff may edit: technicians until the visit is finished, managers always (audited). */
   canEdit: boolean;
 }

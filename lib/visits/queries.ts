@@ -3,6 +3,7 @@ import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
+import { listVisitApplications } from "@/lib/applications/queries";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { ZONE_COLUMNS, toZoneDto } from "@/lib/properties/map";
 import { propertyInScope } from "@/lib/properties/scope";
@@ -24,6 +25,7 @@ function visitSummaries() {
       "properties.street",
       "properties.city",
       "properties.time_zone",
+      "properties.rule_set_id",
       "visits.scheduled_for",
       "visits.stop_order",
       "visits.planned_service",
@@ -116,11 +118,13 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     ...toSummary(row),
     notes: row.notes,
     timeZone: row.time_zone,
+    ruleSetId: row.rule_set_id,
     version: row.version,
     completedBy: row.completed_by_name ?? null,
     zones: zones.map(toZoneDto),
     checks: checks.map((c) => toZoneCheckDto(c, c.updated_by_name)),
     photos: await listVisitPhotos(actor, visitId),
+    applications: await listVisitApplications(actor, visitId),
     canEdit: actor.role === "manager" || (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
   };
 }

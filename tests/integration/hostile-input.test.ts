@@ -8,6 +8,9 @@ import { z } from "zod";
 import type { Actor } from "@/lib/auth/actor";
 import { propertySchema, zoneSchema, homeownerLinkSchema } from "@/lib/properties/schemas";
 import { finishVisitSchema, scheduleVisitSchema, startVisitSchema, zoneCheckFields } from "@/lib/visits/schemas";
+import { applicationSchema } from "@/lib/applications/schemas";
+import { productSchema } from "@/lib/products/schemas";
+import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
@@ -16,13 +19,15 @@ vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
 
 const RUNS = Number(process.env.HOSTILE_RUNS ?? 1000);
 let c: TestCompany;
-let ids: { propertyId: string; zoneId: string; visitId: string; techId: string };
+let ids: { propertyId: string; zoneId: string; visitId: string; techId: string; productId: string; ruleSetId: string };
 
 beforeAll(async () => {
   c = await createTestCompany();
   const zone = await testDb().selectFrom("zones").select("id").where("property_id", "=", c.propertyIds["haddad"]!).executeTakeFirstOrThrow();
   const visit = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
-  ids = { propertyId: c.propertyIds["haddad"]!, zoneId: zone.id, visitId: visit.id, techId: c.userIds["tech1"]! };
+  const productRow = await testDb().selectFrom("products").select("id").where("company_id", "=", c.companyId).executeTakeFirstOrThrow();
+  const ruleSetRow = await testDb().selectFrom("rule_sets").select("id").where("company_id", "=", c.companyId).executeTakeFirstOrThrow();
+  ids = { propertyId: c.propertyIds["haddad"]!, zoneId: zone.id, visitId: visit.id, techId: c.userIds["tech1"]!, productId: productRow.id, ruleSetId: ruleSetRow.id };
 });
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
@@ -48,6 +53,11 @@ const endpoints: Endpoint[] = [
   { name: "POST /visits/:id/finish", load: () => import("@/app/api/v1/visits/[visitId]/finish/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: finishVisitSchema, valid: () => ({}) },
   { name: "POST /visits/:id/cancel", load: () => import("@/app/api/v1/visits/[visitId]/cancel/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: z.object({}).strict(), valid: () => ({}) },
   { name: "PUT /visits/:id/zone-checks/:id", load: () => import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/route"), method: "PUT", params: () => ({ visitId: ids.visitId, zoneCheckId: newId() }), schema: zoneCheckFields, valid: () => ({ ...doneCheck(ids.zoneId) }) },
+  { name: "POST /products", load: () => import("@/app/api/v1/products/route"), method: "POST", params: () => ({}), schema: productSchema as unknown as z.ZodObject, valid: () => ({ name: "P", form: "granular", nPct: 20, p2o5Pct: 0, k2oPct: 5, slowReleasePctOfN: 0, densityLbPerGal: null, isPesticide: false, registrationNumber: "", labelCautions: "", reentryGuidance: "" }) },
+  { name: "PUT /products/:id", load: () => import("@/app/api/v1/products/[productId]/route"), method: "PUT", params: () => ({ productId: ids.productId }), schema: productSchema as unknown as z.ZodObject, valid: () => ({ name: "P", form: "liquid", nPct: 20, p2o5Pct: 0, k2oPct: 5, slowReleasePctOfN: 0, densityLbPerGal: 11, isPesticide: false, registrationNumber: "", labelCautions: "", reentryGuidance: "" }) },
+  { name: "POST /rule-sets", load: () => import("@/app/api/v1/rule-sets/route"), method: "POST", params: () => ({}), schema: ruleSetSchema, valid: () => ({ name: "R", citation: "", limitsAreLaw: false, maxNLbPer1000: 1, maxWsnLbPer1000: null, minSlowReleasePct: null, proBlackout: null, homeownerBlackout: ["11-15", "03-01"], phosphorusRule: "allowed", soilTestMaxAgeYears: null }) },
+  { name: "PUT /rule-sets/:id", load: () => import("@/app/api/v1/rule-sets/[ruleSetId]/route"), method: "PUT", params: () => ({ ruleSetId: ids.ruleSetId }), schema: ruleSetSchema, valid: () => ({ name: "R", citation: "", limitsAreLaw: true, maxNLbPer1000: 0.9, maxWsnLbPer1000: 0.7, minSlowReleasePct: 20, proBlackout: ["12-01", "03-01"], homeownerBlackout: null, phosphorusRule: "soil_test_or_establishment", soilTestMaxAgeYears: 3 }) },
+  { name: "POST /visits/:id/applications", load: () => import("@/app/api/v1/visits/[visitId]/applications/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: applicationSchema, valid: () => ({ id: newId(), zoneId: ids.zoneId, productId: ids.productId, rateAmount: 2, rateUnit: "lb/1000ft2", windMph: null, temperatureF: null, isEstablishing: false, applicatorName: "", applicatorLicence: "", overrideReason: null }) },
 ];
 
 const junk = fc.oneof(
@@ -96,7 +106,9 @@ async function tableCounts(): Promise<string> {
   const { rows } = await sql<{ t: string; n: number }>`
     select 'properties' t, count(*)::int n from properties union all select 'zones', count(*)::int from zones
     union all select 'visits', count(*)::int from visits union all select 'zone_checks', count(*)::int from zone_checks
-    union all select 'users', count(*)::int from users union all select 'audit', count(*)::int from audit_events`.execute(testDb());
+    union all select 'users', count(*)::int from users union all select 'audit', count(*)::int from audit_events
+    union all select 'products', count(*)::int from products union all select 'rule_sets', count(*)::int from rule_sets
+    union all select 'applications', count(*)::int from applications`.execute(testDb());
   return JSON.stringify(rows);
 }
 

@@ -1,0 +1,138 @@
+// Recording an application: the nutrient maths are computed here (never trusted from the
+// client), checked against the property's rule set, and refused when a legal limit is broken
+// unless a manager records an override reason. The client's id makes a retry harmless.
+import "server-only";
+import { sql } from "kysely";
+import { db } from "@/db";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+import { type RuleFinding, checkApplication, isRefused } from "@/lib/agronomy/rules";
+import { NutrientInputError, nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
+import { recordAudit } from "@/lib/audit/record";
+import type { Actor } from "@/lib/auth/actor";
+import { todayIn } from "@/lib/dates";
+import { AppError, notFound } from "@/lib/http/app-error";
+import { analysisOf } from "@/lib/products/dto";
+import { toProductDto } from "@/lib/products/queries";
+import { toRuleSetDto } from "@/lib/rule-sets/queries";
+import { visitInScope } from "@/lib/visits/scope";
+import type { ApplicationDto } from "./dto";
+import { listVisitApplications, zoneNitrogenYearToDate } from "./queries";
+import type { ApplicationInput } from "./schemas";
+
+const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") => new AppError("invalid_input", message, fieldErrors);
+
+export async function recordApplication(actor: Actor, visitId: string, input: ApplicationInput): Promise<ApplicationDto> {
+  const existing = await db().selectFrom("applications").select(["id", "visit_id", "company_id"]).where("id", "=", input.id).executeTakeFirst();
+  if (existing) {
+    if (existing.company_id !== actor.companyId || existing.visit_id !== visitId) throw new AppError("conflict", "A different application already uses that id.");
+    const found = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
+    if (!found) throw notFound("That application");
+    return found; // a retry of a recorded application
+  }
+
+  const visit = await db()
+    .selectFrom("visits")
+    .innerJoin("properties", "properties.id", "visits.property_id")
+    .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
+    .select(["visits.id", "visits.status", "visits.property_id", "properties.time_zone", "properties.p_soil_test_on", "rule_sets.id as rule_set_id"])
+    .where(visitInScope(actor))
+    .where("visits.id", "=", visitId)
+    .executeTakeFirst();
+  if (!visit) throw notFound("That visit");
+  if (visit.status === "cancelled") throw new AppError("conflict", "This visit was cancelled.");
+  if (visit.status === "completed" && actor.role !== "manager") throw new AppError("forbidden", "This visit is finished and locked. Ask your manager to add the application.");
+
+  const zone = await db().selectFrom("zones").selectAll().where("company_id", "=", actor.companyId).where("property_id", "=", visit.property_id).where("id", "=", input.zoneId).executeTakeFirst();
+  if (!zone) throw invalid({ zoneId: ["That zone is not part of this property."] });
+  const productRow = await db().selectFrom("products").selectAll().where("company_id", "=", actor.companyId).where("id", "=", input.productId).executeTakeFirst();
+  if (!productRow) throw invalid({ productId: ["Choose a product from your catalogue."] });
+  const product = toProductDto(productRow);
+  if (product.isArchived) throw invalid({ productId: ["That product is archived."] });
+  if (product.isPesticide) {
+    const missing: Record<string, string[]> = {};
+    if (!input.applicatorName) missing.applicatorName = ["A pesticide record needs the certified applicator's name."];
+    if (!input.applicatorLicence) missing.applicatorLicence = ["A pesticide record needs the applicator's certification (licence) number."];
+    if (Object.keys(missing).length) throw invalid(missing, "The pesticide record is incomplete.");
+  }
+
+  const rate = { amount: input.rateAmount, unit: input.rateUnit };
+  let per1000: ReturnType<typeof nutrientsPer1000>;
+  let totals: ReturnType<typeof productForArea>;
+  try {
+    per1000 = nutrientsPer1000(analysisOf(product), rate);
+    totals = productForArea(analysisOf(product), rate, Number(zone.area_ft2));
+  } catch (err) {
+    if (err instanceof NutrientInputError) throw invalid({ rateUnit: [err.message] });
+    throw err;
+  }
+
+  const appliedAt = input.appliedAt ? new Date(input.appliedAt) : new Date();
+  const appliedOn = todayIn(visit.time_zone, appliedAt);
+  const species = findGrassSpecies(zone.grass_species);
+  let findings: RuleFinding[] = [];
+  if (visit.rule_set_id) {
+    const ruleRow = await db().selectFrom("rule_sets").selectAll().where("id", "=", visit.rule_set_id).executeTakeFirstOrThrow();
+    findings = checkApplication(toRuleSetDto(ruleRow), {
+      appliedOn,
+      byProfessional: true,
+      nPct: product.nPct,
+      nLb: per1000.nLb,
+      wsnLb: per1000.wsnLb,
+      p2o5Lb: per1000.p2o5Lb,
+      slowReleasePctOfN: product.slowReleasePctOfN,
+      isEstablishing: input.isEstablishing,
+      soilTestOn: visit.p_soil_test_on,
+      yearToDateNLb: await zoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
+      annualNRange: species ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max } : null,
+    });
+  }
+  const refused = isRefused(findings);
+  if (refused && (actor.role !== "manager" || !input.overrideReason)) {
+    throw new AppError(
+      "invalid_input",
+      actor.role === "manager" ? "This application breaks a legal limit. Record an override reason to save it anyway." : "This application breaks a legal limit and was not recorded. Ask your manager if it must go ahead.",
+      { rateAmount: findings.filter((f) => f.severity === "refusal").map((f) => f.message) },
+      { findings },
+    );
+  }
+
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      await trx
+        .insertInto("applications")
+        .values({
+          id: input.id,
+          company_id: actor.companyId,
+          visit_id: visitId,
+          zone_id: zone.id,
+          product_id: product.id,
+          rate_amount: input.rateAmount,
+          rate_unit: input.rateUnit,
+          area_ft2: Number(zone.area_ft2),
+          product_total_lb: totals.lb,
+          product_total_gal: totals.gal,
+          n_lb_per_1000: per1000.nLb,
+          p2o5_lb_per_1000: per1000.p2o5Lb,
+          k2o_lb_per_1000: per1000.k2oLb,
+          wsn_lb_per_1000: per1000.wsnLb,
+          applied_on: appliedOn,
+          applied_at: appliedAt,
+          wind_mph: input.windMph,
+          temperature_f: input.temperatureF,
+          is_establishing: input.isEstablishing,
+          applicator_name: input.applicatorName,
+          applicator_licence: input.applicatorLicence,
+          findings: JSON.stringify(findings),
+          override_reason: refused ? input.overrideReason : null,
+          override_by: refused ? actor.userId : null,
+          created_by: actor.userId,
+        })
+        .execute();
+      if (refused) await recordAudit(trx, actor, { entity: "application", entityId: input.id, action: "override_legal_limit", changes: { reason: { from: null, to: input.overrideReason } } });
+      if (visit.status === "scheduled") await trx.updateTable("visits").set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId }).where("id", "=", visitId).execute();
+    });
+  const saved = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
+  if (!saved) throw new Error("application missing after insert");
+  return saved;
+}

@@ -1,0 +1,57 @@
+// Application reads, scoped like visits (staff); homeowners read them through visit reports later.
+import "server-only";
+import { db } from "@/db";
+import type { Actor } from "@/lib/auth/actor";
+import type { RuleFinding } from "@/lib/agronomy/rules";
+import { visitInScope } from "@/lib/visits/scope";
+import type { ApplicationDto } from "./dto";
+
+export async function listVisitApplications(actor: Actor, visitId: string): Promise<ApplicationDto[]> {
+  if (actor.role === "homeowner") return [];
+  const rows = await db()
+    .selectFrom("applications")
+    .innerJoin("visits", "visits.id", "applications.visit_id")
+    .innerJoin("products", "products.id", "applications.product_id")
+    .leftJoin("users as overrider", "overrider.id", "applications.override_by")
+    .selectAll("applications")
+    .select(["products.name as product_name", "products.is_pesticide", "products.registration_number", "products.label_cautions", "products.reentry_guidance", "overrider.name as override_by_name"])
+    .where(visitInScope(actor))
+    .where("applications.company_id", "=", actor.companyId)
+    .where("applications.visit_id", "=", visitId)
+    .orderBy("applications.applied_at")
+    .execute();
+  return rows.map((r) => ({
+    id: r.id,
+    visitId: r.visit_id,
+    zoneId: r.zone_id,
+    product: { id: r.product_id, name: r.product_name, isPesticide: r.is_pesticide, registrationNumber: r.registration_number, labelCautions: r.label_cautions, reentryGuidance: r.reentry_guidance },
+    rate: { amount: Number(r.rate_amount), unit: r.rate_unit },
+    areaFt2: Number(r.area_ft2),
+    productTotalLb: Number(r.product_total_lb),
+    productTotalGal: r.product_total_gal === null ? null : Number(r.product_total_gal),
+    per1000: { nLb: Number(r.n_lb_per_1000), p2o5Lb: Number(r.p2o5_lb_per_1000), k2oLb: Number(r.k2o_lb_per_1000), wsnLb: Number(r.wsn_lb_per_1000) },
+    appliedAt: new Date(r.applied_at).toISOString(),
+    appliedOn: r.applied_on,
+    windMph: r.wind_mph === null ? null : Number(r.wind_mph),
+    temperatureF: r.temperature_f === null ? null : Number(r.temperature_f),
+    isEstablishing: r.is_establishing,
+    applicatorName: r.applicator_name,
+    applicatorLicence: r.applicator_licence,
+    findings: r.findings as RuleFinding[],
+    overrideReason: r.override_reason,
+    overrideBy: r.override_by_name,
+  }));
+}
+
+/** lb N per 1,000 ft² put down on a zone in a calendar year before a date (year to date). */
+export async function zoneNitrogenYearToDate(companyId: string, zoneId: string, beforeDate: string): Promise<number> {
+  const row = await db()
+    .selectFrom("applications")
+    .select((eb) => eb.fn.coalesce(eb.fn.sum<number>("n_lb_per_1000"), eb.lit(0)).as("n"))
+    .where("company_id", "=", companyId)
+    .where("zone_id", "=", zoneId)
+    .where("applied_on", ">=", `${beforeDate.slice(0, 4)}-01-01`)
+    .where("applied_on", "<=", beforeDate)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}

@@ -1,0 +1,23 @@
+// A catalogue product as screens and the nutrient maths use it.
+import type { ProductFormValue } from "@/db/schema";
+
+export interface ProductDto {
+  id: string;
+  name: string;
+  form: ProductFormValue;
+  nPct: number;
+  p2o5Pct: number;
+  k2oPct: number;
+  slowReleasePctOfN: number;
+  densityLbPerGal: number | null;
+  isPesticide: boolean;
+  registrationNumber: string;
+  labelCautions: string;
+  reentryGuidance: string;
+  isArchived: boolean;
+}
+
+/** The part of a product the nutrient maths need. */
+export function analysisOf(p: ProductDto): import("@/lib/agronomy/nutrients").ProductAnalysis {
+  return { nPct: p.nPct, p2o5Pct: p.p2o5Pct, k2oPct: p.k2oPct, form: p.form, densityLbPerGal: p.densityLbPerGal ?? undefined, slowReleaseNPctOfN: p.slowReleasePctOfN };
+}
