@@ -1,0 +1,18 @@
+import type { Metadata } from "next";
+import { ProductList } from "@/components/products/product-list";
+import { requireActor } from "@/lib/auth/require";
+import { listProducts } from "@/lib/products/queries";
+
+export const metadata: Metadata = { title: "Products" };
+
+export default async function ProductsPage() {
+  const actor = await requireActor(["manager"]);
+  const products = await listProducts(actor);
+  return (
+    <>
+      <h1 className="text-3xl font-bold">Products</h1>
+      <p className="mb-6 mt-1 text-muted">The catalogue technicians choose from. Analyses come from each product&apos;s label (guaranteed analysis, % by weight).</p>
+      <ProductList products={products} />
+    </>
+  );
+}
