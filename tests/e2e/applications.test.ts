@@ -1,0 +1,84 @@
+// Applications on a phone: tech1 records an application and sees the nutrient maths and the
+// cautions; one over New Jersey's legal N limit is refused with the law's citation; the manager
+// records it with an override reason.
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
+import { isInWindow } from "@/lib/agronomy/rules";
+import { todayIn } from "@/lib/dates";
+import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+import { snap } from "../helpers/screenshots";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+let zoneUrl = "";
+const nj = SHIPPED_RULE_SETS.find((r) => r.name.startsWith("New Jersey"))!;
+const isBlackoutToday = isInWindow(todayIn("America/New_York").slice(5), nj.proBlackout!);
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function openForm(page: Page, product: string) {
+  await page.getByRole("button", { name: "Record an application" }).click();
+  await page.getByLabel("Product").selectOption({ label: product });
+}
+
+describe("applications", () => {
+  it("tech1 sees the maths and cautions; an over-limit application is refused with the citation", async () => {
+    const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
+    const page = await context.newPage();
+    await signIn(page, baseUrl, "tech1@demo.sward.test");
+    await page.waitForURL("**/today");
+    await page.getByRole("link", { name: /Haddad residence/ }).click();
+    await page.waitForURL(/\/visits\//);
+    await page.getByRole("button", { name: "Start visit" }).click();
+    await page.waitForURL(/zone=/);
+    zoneUrl = new URL(page.url()).pathname + new URL(page.url()).search;
+
+    await openForm(page, "Larkmoor Steadyfeed 24-0-8 (24-0-8, 30 % slow-release N)");
+    await page.getByLabel("Rate", { exact: true }).fill("3");
+    const maths = page.getByRole("table", { name: "Nutrients delivered" });
+    await maths.waitFor();
+    expect(await maths.innerText()).toMatch(/N\s+0\.72 lb\s+1\.30 lb/); // 3 lb × 24 % = 0.72 lb N / 1,000 ft²; 1,800 ft² → 1.30 lb
+    expect(await page.getByRole("complementary", { name: "Safety cautions" }).innerText()).toContain("the label is the law");
+    await snap(page, "application-01-maths");
+    await page.getByRole("button", { name: "Record application" }).click();
+    if (isBlackoutToday) {
+      await page.getByText(/may not be applied between 12-01 and 03-01/).first().waitFor();
+    } else {
+      await page.getByRole("list", { name: "Applications on this zone" }).getByText("Larkmoor Steadyfeed").waitFor();
+    }
+
+    await page.getByRole("button", { name: "Cancel" }).last().click().catch(() => undefined);
+    await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
+    await page.getByLabel("Rate", { exact: true }).fill("4");
+    await page.getByRole("button", { name: "Record application" }).click();
+    const refusal = page.getByRole("list", { name: "Rule checks" });
+    await refusal.getByText(/1\.12 lb N per 1,000 ft² is above the 0\.90 lb limit/).waitFor();
+    expect(await refusal.innerText()).toContain("P.L.2010, c.112");
+    await page.getByText("was not recorded").waitFor();
+    await snap(page, "application-02-refused");
+    await context.close();
+  });
+
+  it("the manager records the refused application with an override reason", async () => {
+    expect(zoneUrl).not.toBe("");
+    const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
+    const page = await context.newPage();
+    await signIn(page, baseUrl, "manager@demo.sward.test");
+    await page.waitForURL("**/properties");
+    await page.goto(zoneUrl);
+    await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
+    await page.getByLabel("Rate", { exact: true }).fill("4");
+    await page.getByLabel(/Override reason/).fill("Sod repair after irrigation work; agronomist's written recommendation on file.");
+    await page.getByRole("button", { name: "Record with override" }).click();
+    const recorded = page.getByRole("list", { name: "Applications on this zone" });
+    await recorded.getByText(/Legal limit overridden by Dana Whitcombe/).waitFor();
+    await snap(page, "application-03-override");
+    await context.close();
+  });
+});
