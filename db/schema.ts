@@ -231,6 +231,8 @@ export interface VisitsTable {
   created_by: string | null;
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
+  /** Weather of the visit day as known when the visit started, or { status: "unavailable" }. */
+  weather: ColumnType<Record<string, unknown> | null, string | null | undefined, string | null>;
 }
 
 export interface ZoneChecksTable {
@@ -301,6 +303,38 @@ export interface PhotosTable {
   created_at: Generated<Date>;
 }
 
+export interface WateringsTable {
+  id: string;
+  company_id: string;
+  property_id: string;
+  zone_id: string | null;
+  watered_on: ColumnType<string, string, string>;
+  depth_in: number;
+  run_minutes: number | null;
+  precipitation_rate_in_per_h: number | null;
+  entered_by_role: Role;
+  notes: Generated<string>;
+  created_by: string | null;
+  created_at: Generated<Date>;
+}
+
+export interface WeatherDaysTable {
+  cell: string;
+  day: ColumnType<string, string, string>;
+  tmax_c: number;
+  tmin_c: number;
+  rh_max_pct: number | null;
+  rh_min_pct: number | null;
+  rh_mean_pct: number | null;
+  wind_ms: number | null;
+  wind_height_m: number | null;
+  sunshine_h: number | null;
+  solar_mj: number | null;
+  precip_mm: Generated<number>;
+  is_forecast: Generated<boolean>;
+  fetched_at: Generated<Date>;
+}
+
 export interface Database {
   companies: CompaniesTable;
   users: UsersTable;
@@ -319,6 +353,8 @@ export interface Database {
   photos: PhotosTable;
   products: ProductsTable;
   applications: ApplicationsTable;
+  waterings: WateringsTable;
+  weather_days: WeatherDaysTable;
 }
 
 export type Company = Selectable<CompaniesTable>;
@@ -353,3 +389,5 @@ export type NewPhoto = Insertable<PhotosTable>;
 export type Product = Selectable<ProductsTable>;
 export type NewProduct = Insertable<ProductsTable>;
 export type Application = Selectable<ApplicationsTable>;
+export type Watering = Selectable<WateringsTable>;
+export type WeatherDay = Selectable<WeatherDaysTable>;

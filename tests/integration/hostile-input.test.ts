@@ -11,6 +11,7 @@ import { finishVisitSchema, scheduleVisitSchema, startVisitSchema, zoneCheckFiel
 import { applicationSchema } from "@/lib/applications/schemas";
 import { productSchema } from "@/lib/products/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
+import { wateringSchema } from "@/lib/watering/schemas";
 import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
@@ -58,6 +59,7 @@ const endpoints: Endpoint[] = [
   { name: "POST /rule-sets", load: () => import("@/app/api/v1/rule-sets/route"), method: "POST", params: () => ({}), schema: ruleSetSchema, valid: () => ({ name: "R", citation: "", limitsAreLaw: false, maxNLbPer1000: 1, maxWsnLbPer1000: null, minSlowReleasePct: null, proBlackout: null, homeownerBlackout: ["11-15", "03-01"], phosphorusRule: "allowed", soilTestMaxAgeYears: null }) },
   { name: "PUT /rule-sets/:id", load: () => import("@/app/api/v1/rule-sets/[ruleSetId]/route"), method: "PUT", params: () => ({ ruleSetId: ids.ruleSetId }), schema: ruleSetSchema, valid: () => ({ name: "R", citation: "", limitsAreLaw: true, maxNLbPer1000: 0.9, maxWsnLbPer1000: 0.7, minSlowReleasePct: 20, proBlackout: ["12-01", "03-01"], homeownerBlackout: null, phosphorusRule: "soil_test_or_establishment", soilTestMaxAgeYears: 3 }) },
   { name: "POST /visits/:id/applications", load: () => import("@/app/api/v1/visits/[visitId]/applications/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: applicationSchema, valid: () => ({ id: newId(), zoneId: ids.zoneId, productId: ids.productId, rateAmount: 2, rateUnit: "lb/1000ft2", windMph: null, temperatureF: null, isEstablishing: false, applicatorName: "", applicatorLicence: "", overrideReason: null }) },
+  { name: "POST /properties/:id/waterings", load: () => import("@/app/api/v1/properties/[propertyId]/waterings/route"), method: "POST", params: () => ({ propertyId: ids.propertyId }), schema: wateringSchema as unknown as z.ZodObject, valid: () => ({ id: newId(), zoneId: null, wateredOn: "2026-07-01", depthIn: 0.5, runMinutes: null, precipitationRateInPerHour: null, notes: "" }) },
 ];
 
 const junk = fc.oneof(
@@ -108,7 +110,7 @@ async function tableCounts(): Promise<string> {
     union all select 'visits', count(*)::int from visits union all select 'zone_checks', count(*)::int from zone_checks
     union all select 'users', count(*)::int from users union all select 'audit', count(*)::int from audit_events
     union all select 'products', count(*)::int from products union all select 'rule_sets', count(*)::int from rule_sets
-    union all select 'applications', count(*)::int from applications`.execute(testDb());
+    union all select 'applications', count(*)::int from applications union all select 'waterings', count(*)::int from waterings`.execute(testDb());
   return JSON.stringify(rows);
 }
 

@@ -7,6 +7,7 @@ import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { buttonClass } from "@/components/ui/button";
 import { PhotoFigure } from "@/components/photos/photo-figure";
+import { WateringLog } from "@/components/watering/watering-log";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
@@ -15,6 +16,8 @@ import { AppError } from "@/lib/http/app-error";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
+import { listWaterings } from "@/lib/watering/queries";
+import { todayIn } from "@/lib/dates";
 import { listVisits } from "@/lib/visits/queries";
 
 export const metadata: Metadata = { title: "Property" };
@@ -27,7 +30,7 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const [visits, latestPhotos] = await Promise.all([listVisits(actor, { propertyId: property.id }), listLatestPhotoPerZone(actor, property.id)]);
+  const [visits, latestPhotos, waterings] = await Promise.all([listVisits(actor, { propertyId: property.id }), listLatestPhotoPerZone(actor, property.id), listWaterings(actor, property.id)]);
   const isManager = actor.role === "manager";
 
   return (
@@ -104,6 +107,9 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
           ))}
         </ul>
       )}
+
+      <h2 className="mb-3 mt-10 text-2xl font-bold">Watering log</h2>
+      <WateringLog propertyId={property.id} zones={property.zones} today={todayIn(property.timeZone)} waterings={waterings} canAdd={!property.isArchived} />
 
       {isManager ? (
         <>
