@@ -25,6 +25,9 @@ const serverSchema = z.object({
   S3_ENDPOINT: z.url().optional(),
   S3_ACCESS_KEY_ID: z.string().optional(),
   S3_SECRET_ACCESS_KEY: z.string().optional(),
+  /** Base URL of the daily-weather JSON service (the demo and tests start a local fake). */
+  WEATHER_BASE_URL: z.url().optional(),
+  WEATHER_API_KEY: z.string().optional(),
 }).refine((env) => env.PHOTO_STORAGE !== "s3" || Boolean(env.S3_BUCKET), { message: "S3_BUCKET is required when PHOTO_STORAGE=s3", path: ["S3_BUCKET"] });
 
 export type ServerEnv = z.infer<typeof serverSchema>;

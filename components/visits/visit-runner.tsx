@@ -87,6 +87,13 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
       <p>
         {PLANNED_SERVICES[visit.plannedService]} · {formatDate(visit.scheduledFor)} · {visit.technician?.name ?? "no technician"}
       </p>
+      {visit.weather?.status === "ok" ? (
+        <p className="text-sm text-ink">
+          Weather: {Math.round(visit.weather.tmaxF)}/{Math.round(visit.weather.tminF)} °F · humidity {visit.weather.rhMinPct ?? "—"}–{visit.weather.rhMaxPct ?? "—"} % · wind {visit.weather.windMph ?? "—"} mph · rain {visit.weather.precipIn.toFixed(2)} in
+        </p>
+      ) : visit.weather?.status === "unavailable" ? (
+        <p className="text-sm text-muted">Weather unavailable for now; it is added when the service answers.</p>
+      ) : null}
     </header>
   );
 

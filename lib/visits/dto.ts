@@ -35,6 +35,8 @@ export interface VisitDetailDto extends VisitSummaryDto {
   notes: string;
   timeZone: string;
   ruleSetId: string | null;
+  /** The visit day's weather as kept with the visit, or null before it starts. */
+  weather: { status: "ok"; tmaxF: number; tminF: number; rhMinPct: number | null; rhMaxPct: number | null; windMph: number | null; precipIn: number; isForecast: boolean } | { status: "unavailable"; message: string } | null;
   version: number;
   completedBy: string | null;
   zones: ZoneDto[];

@@ -9,6 +9,7 @@ import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
+import { fillVisitWeather } from "@/lib/weather/mutations";
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
@@ -105,6 +106,9 @@ export async function startVisit(actor: Actor, visitId: string, location: { lati
         .where("id", "=", visitId)
         .execute();
     });
+  // The day's weather goes with the visit; a slow or absent service leaves "unavailable" and
+  // never blocks the start (the next page load tries again).
+  await fillVisitWeather(actor, visitId).catch(() => undefined);
   return getVisit(actor, visitId);
 }
 

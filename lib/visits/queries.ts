@@ -35,6 +35,7 @@ function visitSummaries() {
       "visits.started_at",
       "visits.completed_at",
       "visits.notes",
+      "visits.weather",
       "visits.version",
       "visits.company_id",
       eb
@@ -119,6 +120,7 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     notes: row.notes,
     timeZone: row.time_zone,
     ruleSetId: row.rule_set_id,
+    weather: (row.weather as VisitDetailDto["weather"]) ?? null,
     version: row.version,
     completedBy: row.completed_by_name ?? null,
     zones: zones.map(toZoneDto),

@@ -57,9 +57,14 @@ if (!(await portIsFree(PORT))) {
 }
 must("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
 
+// The local fake weather service (deterministic data on 127.0.0.1).
+const WEATHER_PORT = Number(process.env.SWARD_WEATHER_PORT ?? 3999);
+const WEATHER_BASE_URL = process.env.WEATHER_BASE_URL ?? `http://127.0.0.1:${WEATHER_PORT}`;
+const weather = process.env.WEATHER_BASE_URL ? null : spawn("node_modules/.bin/tsx", ["tests/harness/weather-fake.ts", String(WEATHER_PORT)], { stdio: ["ignore", "ignore", "inherit"] });
+
 const server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
   stdio: ["ignore", "inherit", "inherit"],
-  env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL, AUTH_SECRET, AUTH_URL },
+  env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL, AUTH_SECRET, AUTH_URL, WEATHER_BASE_URL },
 });
 
 for (let i = 0; i < 120; i++) {
@@ -81,10 +86,12 @@ function stop() {
   if (stopping) return;
   stopping = true;
   if (server.exitCode === null) server.kill("SIGTERM");
+  if (weather && weather.exitCode === null) weather.kill("SIGTERM");
 }
 process.on("SIGINT", stop);
 process.on("SIGTERM", stop);
 server.on("exit", (code) => {
+  if (weather && weather.exitCode === null) weather.kill("SIGTERM");
   if (!wasRunning) spawnSync("sh", ["db/cluster.sh", "stop"], { stdio: "inherit" });
   process.exit(code ?? 0);
 });

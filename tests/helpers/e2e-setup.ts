@@ -8,6 +8,7 @@ import { TSX, run, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 let server: ChildProcess | undefined;
+let weather: ChildProcess | undefined;
 
 /** No build, or a source file changed after it: e2e tests must never run against old code. */
 function isBuildStale(): boolean {
@@ -30,6 +31,9 @@ export default async function setup(project: TestProject): Promise<() => Promise
   if (isBuildStale()) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
 
   const baseUrl = `http://localhost:${PORT}`;
+  const weatherPort = PORT + 1;
+  weather = spawn(TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], { stdio: ["ignore", "ignore", "inherit"] });
+  await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
   server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
     stdio: ["ignore", "ignore", "inherit"],
     env: {
@@ -41,12 +45,14 @@ export default async function setup(project: TestProject): Promise<() => Promise
       AUTH_URL: baseUrl,
       LOG_LEVEL: "warn",
       PHOTO_DIR: "tests/.artifacts/photos-e2e",
+      WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
     },
   });
   await waitForUrl(`${baseUrl}/sign-in`, 30_000);
   project.provide("baseUrl", baseUrl);
 
   return async () => {
+    if (weather?.pid && weather.exitCode === null) weather.kill("SIGTERM");
     if (server?.pid && server.exitCode === null) {
       server.kill("SIGTERM");
       await new Promise((r) => server?.once("exit", r));

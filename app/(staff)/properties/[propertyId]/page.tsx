@@ -8,6 +8,8 @@ import { ZoneList } from "@/components/properties/zone-list";
 import { buttonClass } from "@/components/ui/button";
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { WateringLog } from "@/components/watering/watering-log";
+import { WeatherPanel } from "@/components/weather/weather-panel";
+import { propertyWeather } from "@/lib/weather/queries";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
@@ -30,7 +32,12 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const [visits, latestPhotos, waterings] = await Promise.all([listVisits(actor, { propertyId: property.id }), listLatestPhotoPerZone(actor, property.id), listWaterings(actor, property.id)]);
+  const [visits, latestPhotos, waterings, weather] = await Promise.all([
+    listVisits(actor, { propertyId: property.id }),
+    listLatestPhotoPerZone(actor, property.id),
+    listWaterings(actor, property.id),
+    propertyWeather(actor, property.id),
+  ]);
   const isManager = actor.role === "manager";
 
   return (
@@ -107,6 +114,10 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
           ))}
         </ul>
       )}
+
+      <div className="mt-10">
+        <WeatherPanel weather={weather} />
+      </div>
 
       <h2 className="mb-3 mt-10 text-2xl font-bold">Watering log</h2>
       <WateringLog propertyId={property.id} zones={property.zones} today={todayIn(property.timeZone)} waterings={waterings} canAdd={!property.isArchived} />

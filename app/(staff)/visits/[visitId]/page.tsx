@@ -9,6 +9,7 @@ import { makeQueryClient } from "@/lib/query-client";
 import { getVisit } from "@/lib/visits/queries";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { visitIdParams } from "@/lib/visits/schemas";
+import { fillVisitWeather } from "@/lib/weather/mutations";
 
 export const metadata: Metadata = { title: "Visit" };
 
@@ -16,6 +17,7 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
   const actor = await requireActor(["manager", "technician"]);
   const parsed = visitIdParams.safeParse(await params);
   if (!parsed.success) notFound();
+  await fillVisitWeather(actor, parsed.data.visitId).catch(() => undefined);
   const visit = await getVisit(actor, parsed.data.visitId).catch((err: unknown) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
