@@ -6,8 +6,14 @@ import type { WeatherDayInput } from "./contract";
 
 function hash(text: string): number {
   let h = 2166136261;
-  for (const ch of text) h = Math.imul(h ^ ch.charCodeAt(0), 16777619) >>> 0;
-  return h / 2 ** 32;
+  for (const ch of text) h = Math.imul(h ^ ch.charCodeAt(0), 16777619);
+  // Final avalanche (MurmurHash3 fmix32) so that nearby dates give unrelated values.
+  h ^= h >>> 16;
+  h = Math.imul(h, 0x85ebca6b);
+  h ^= h >>> 13;
+  h = Math.imul(h, 0xc2b2ae35);
+  h ^= h >>> 16;
+  return (h >>> 0) / 2 ** 32;
 }
 
 export function fakeWeatherDay(lat: number, lon: number, date: string, today: string): WeatherDayInput {
