@@ -56,6 +56,9 @@ export interface RuleSetsTable {
   homeowner_blackout_end: string | null;
   phosphorus_rule: Generated<PhosphorusRule>;
   soil_test_max_age_years: number | null;
+  record_retention_years: Generated<number>;
+  record_required_fields: ColumnType<string[], string[] | undefined, string[]>;
+  record_fields_apply_to: Generated<"pesticides" | "all">;
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
 }

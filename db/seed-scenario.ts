@@ -41,6 +41,9 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
           homeowner_blackout_end: r.homeownerBlackout?.[1] ?? null,
           phosphorus_rule: r.phosphorusRule,
           soil_test_max_age_years: r.soilTestMaxAgeYears,
+          record_retention_years: r.recordRetentionYears,
+          record_required_fields: r.recordRequiredFields,
+          record_fields_apply_to: r.recordFieldsApplyTo,
         })),
       )
       .returning(["id", "name"])

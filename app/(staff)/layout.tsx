@@ -1,4 +1,4 @@
-import { CalendarDays, ClipboardList, FlaskConical, Gavel, Trees } from "lucide-react";
+import { CalendarDays, ClipboardList, FileSpreadsheet, FlaskConical, Gavel, Trees } from "lucide-react";
 import type { ReactNode } from "react";
 import { AppShell, type NavItem } from "@/components/shell/app-shell";
 import { requireActor } from "@/lib/auth/require";
@@ -12,6 +12,7 @@ export default async function StaffLayout({ children }: { children: ReactNode })
           { href: "/visits", label: "Visits", icon: ClipboardList },
           { href: "/products", label: "Products", icon: FlaskConical },
           { href: "/rule-sets", label: "Rule sets", icon: Gavel },
+          { href: "/records", label: "Records", icon: FileSpreadsheet },
         ]
       : [
           { href: "/today", label: "Today", icon: CalendarDays },

@@ -214,10 +214,10 @@ export function ApplicationPanel({ visitId, zoneId, areaFt2, ruleSetId, timeZone
           {product && hasRate ? <Maths product={product} amount={rateAmount} unit={unit} areaFt2={areaFt2} /> : null}
           <Findings findings={shownFindings} />
           <div className="grid grid-cols-2 gap-2">
-            <Field id={`${zoneId}-temp`} label="Temperature (°F)">
+            <Field id={`${zoneId}-temp`} label="Temperature (°F)" error={fieldErrors.temperatureF?.[0]}>
               <input id={`${zoneId}-temp`} inputMode="decimal" value={temperatureF} onChange={(e) => setTemperatureF(e.target.value)} className={inputClass} />
             </Field>
-            <Field id={`${zoneId}-wind`} label="Wind (mph)">
+            <Field id={`${zoneId}-wind`} label="Wind (mph)" error={fieldErrors.windMph?.[0]}>
               <input id={`${zoneId}-wind`} inputMode="decimal" value={windMph} onChange={(e) => setWindMph(e.target.value)} className={inputClass} />
             </Field>
           </div>

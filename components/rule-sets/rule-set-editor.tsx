@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
+import { RECORD_FIELDS, type RecordField } from "@/fixtures/record-fields";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -27,7 +28,10 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
     homeEnd: ruleSet?.homeownerBlackout?.[1] ?? "",
     phosphorusRule: ruleSet?.phosphorusRule ?? "allowed",
     soilAge: str(ruleSet?.soilTestMaxAgeYears ?? null),
+    retention: String(ruleSet?.recordRetentionYears ?? 3),
+    applyTo: ruleSet?.recordFieldsApplyTo ?? "pesticides",
   });
+  const [fields, setFields] = useState<RecordField[]>(ruleSet?.recordRequiredFields ?? ["applicator_name", "applicator_licence"]);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<string | null>(null);
   const set = (k: keyof typeof v) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) =>
@@ -47,6 +51,9 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
       homeownerBlackout: v.homeStart || v.homeEnd ? [v.homeStart, v.homeEnd] : null,
       phosphorusRule: v.phosphorusRule,
       soilTestMaxAgeYears: num(v.soilAge),
+      recordRetentionYears: Number(v.retention),
+      recordRequiredFields: fields,
+      recordFieldsApplyTo: v.applyTo,
     };
     const parsed = ruleSetSchema.safeParse(body);
     if (!parsed.success) return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
@@ -110,6 +117,28 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
           <input id={`${p}-soil`} inputMode="numeric" value={v.soilAge} onChange={set("soilAge")} className={inputClass} />
         </Field>
       </div>
+      <fieldset className="space-y-3 rounded-lg border border-line p-3">
+        <legend className="px-1 font-bold">Application records</legend>
+        <div className="grid gap-3 sm:grid-cols-2">
+          <Field id={`${p}-retention`} label="Keep records for (years)" error={errors.recordRetentionYears}>
+            <input id={`${p}-retention`} inputMode="numeric" value={v.retention} onChange={set("retention")} className={inputClass} />
+          </Field>
+          <Field id={`${p}-applyto`} label="Required fields apply to">
+            <select id={`${p}-applyto`} value={v.applyTo} onChange={set("applyTo")} className={inputClass}>
+              <option value="pesticides">Pesticide applications</option>
+              <option value="all">Every application</option>
+            </select>
+          </Field>
+        </div>
+        <div className="flex flex-wrap gap-3">
+          {(Object.entries(RECORD_FIELDS) as [RecordField, string][]).map(([key, label]) => (
+            <label key={key} className="flex min-h-tap items-center gap-2">
+              <input type="checkbox" className="size-6" checked={fields.includes(key)} onChange={(e) => setFields(e.target.checked ? [...fields, key] : fields.filter((f) => f !== key))} />
+              {label}
+            </label>
+          ))}
+        </div>
+      </fieldset>
       <div className="flex gap-2">
         <Button type="submit">{ruleSet ? "Save rule set" : "Add rule set"}</Button>
         <Button type="button" variant="secondary" onClick={onDone}>Cancel</Button>

@@ -14,7 +14,8 @@ function describe(r: RuleSetDto): string[] {
   if (r.proBlackout) out.push(`no fertiliser by professionals ${r.proBlackout[0]} to ${r.proBlackout[1]}`);
   if (r.homeownerBlackout) out.push(`no fertiliser by homeowners ${r.homeownerBlackout[0]} to ${r.homeownerBlackout[1]}`);
   if (r.phosphorusRule === "soil_test_or_establishment") out.push(`phosphorus only with a soil test${r.soilTestMaxAgeYears ? ` (within ${r.soilTestMaxAgeYears} years)` : ""} or when establishing`);
-  return out.length ? out : ["no limits"];
+  out.push(`records kept ${r.recordRetentionYears} years; ${r.recordRequiredFields.length ? `${r.recordFieldsApplyTo === "all" ? "every application" : "pesticide applications"} need ${r.recordRequiredFields.map((f) => f.replaceAll("_", " ")).join(", ")}` : "no extra record fields"}`);
+  return out;
 }
 
 export function RuleSetList({ ruleSets }: { ruleSets: RuleSetDto[] }) {

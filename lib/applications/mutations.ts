@@ -48,12 +48,18 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
   if (!productRow) throw invalid({ productId: ["Choose a product from your catalogue."] });
   const product = toProductDto(productRow);
   if (product.isArchived) throw invalid({ productId: ["That product is archived."] });
-  if (product.isPesticide) {
-    const missing: Record<string, string[]> = {};
-    if (!input.applicatorName) missing.applicatorName = ["A pesticide record needs the certified applicator's name."];
-    if (!input.applicatorLicence) missing.applicatorLicence = ["A pesticide record needs the applicator's certification (licence) number."];
-    if (Object.keys(missing).length) throw invalid(missing, "The pesticide record is incomplete.");
-  }
+  const ruleRow = visit.rule_set_id ? await db().selectFrom("rule_sets").selectAll().where("id", "=", visit.rule_set_id).executeTakeFirstOrThrow() : null;
+  const ruleSet = ruleRow ? toRuleSetDto(ruleRow) : null;
+  // A record is not complete until the fields its rule set requires are filled (pesticides
+  // always need the applicator's name and certification number).
+  const required = new Set<string>(product.isPesticide ? ["applicator_name", "applicator_licence"] : []);
+  if (ruleSet && (ruleSet.recordFieldsApplyTo === "all" || product.isPesticide)) for (const f of ruleSet.recordRequiredFields) required.add(f);
+  const missing: Record<string, string[]> = {};
+  if (required.has("applicator_name") && !input.applicatorName) missing.applicatorName = ["The record needs the certified applicator's name."];
+  if (required.has("applicator_licence") && !input.applicatorLicence) missing.applicatorLicence = ["The record needs the applicator's certification (licence) number."];
+  if (required.has("wind_mph") && input.windMph === null) missing.windMph = ["The record needs the wind speed at application."];
+  if (required.has("temperature_f") && input.temperatureF === null) missing.temperatureF = ["The record needs the temperature at application."];
+  if (Object.keys(missing).length) throw invalid(missing, "The application record is incomplete.");
 
   const rate = { amount: input.rateAmount, unit: input.rateUnit };
   let per1000: ReturnType<typeof nutrientsPer1000>;
@@ -70,9 +76,8 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
   const appliedOn = todayIn(visit.time_zone, appliedAt);
   const species = findGrassSpecies(zone.grass_species);
   let findings: RuleFinding[] = [];
-  if (visit.rule_set_id) {
-    const ruleRow = await db().selectFrom("rule_sets").selectAll().where("id", "=", visit.rule_set_id).executeTakeFirstOrThrow();
-    findings = checkApplication(toRuleSetDto(ruleRow), {
+  if (ruleSet) {
+    findings = checkApplication(ruleSet, {
       appliedOn,
       byProfessional: true,
       nPct: product.nPct,

@@ -22,6 +22,9 @@ const columns = (r: RuleSetInput) => ({
   homeowner_blackout_end: r.homeownerBlackout?.[1] ?? null,
   phosphorus_rule: r.phosphorusRule,
   soil_test_max_age_years: r.soilTestMaxAgeYears,
+  record_retention_years: r.recordRetentionYears,
+  record_required_fields: r.recordRequiredFields,
+  record_fields_apply_to: r.recordFieldsApplyTo,
 });
 
 export async function saveRuleSet(actor: Actor, ruleSetId: string | null, input: RuleSetInput): Promise<RuleSetDto> {

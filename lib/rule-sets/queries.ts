@@ -19,6 +19,9 @@ export function toRuleSetDto(r: RuleSet): RuleSetDto {
     homeownerBlackout: r.homeowner_blackout_start && r.homeowner_blackout_end ? [r.homeowner_blackout_start, r.homeowner_blackout_end] : null,
     phosphorusRule: r.phosphorus_rule,
     soilTestMaxAgeYears: r.soil_test_max_age_years,
+    recordRetentionYears: r.record_retention_years,
+    recordRequiredFields: r.record_required_fields as RuleSetDto["recordRequiredFields"],
+    recordFieldsApplyTo: r.record_fields_apply_to,
   };
 }
 

@@ -1,5 +1,6 @@
 // Rule-set input (managers), shared by the route and the form.
 import { z } from "zod";
+import { RECORD_FIELD_KEYS } from "@/fixtures/record-fields";
 
 const monthDay = z.string().regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "Use month-day, e.g. 12-01.");
 const window = z.tuple([monthDay, monthDay]).nullable();
@@ -19,6 +20,9 @@ export const ruleSetSchema = z
     homeownerBlackout: window,
     phosphorusRule: z.enum(["allowed", "soil_test_or_establishment"]),
     soilTestMaxAgeYears: z.number().int().min(1).max(20).nullable(),
+    recordRetentionYears: z.number().int().min(1, "Keep records at least a year.").max(30),
+    recordRequiredFields: z.array(z.enum(RECORD_FIELD_KEYS)).max(RECORD_FIELD_KEYS.length).refine((a) => new Set(a).size === a.length, "Each field once."),
+    recordFieldsApplyTo: z.enum(["pesticides", "all"]),
   })
   .strict();
 export type RuleSetInput = z.infer<typeof ruleSetSchema>;
