@@ -72,7 +72,30 @@ function Findings({ findings }: { findings: RuleFinding[] }) {
   );
 }
 
-export function ApplicationPanel({ visitId, zoneId, areaFt2, ruleSetId, timeZone, applications, isManager, disabled, onRecorded }: { visitId: string; zoneId: string; areaFt2: number; ruleSetId: string | null; timeZone: string; applications: ApplicationDto[]; isManager: boolean; disabled: boolean; onRecorded: (a: ApplicationDto) => void }) {
+export function ApplicationPanel({
+  visitId,
+  zoneId,
+  areaFt2,
+  ruleSetId,
+  timeZone,
+  applications,
+  isManager,
+  disabled,
+  onRecorded,
+  weather,
+}: {
+  visitId: string;
+  zoneId: string;
+  areaFt2: number;
+  ruleSetId: string | null;
+  timeZone: string;
+  applications: ApplicationDto[];
+  isManager: boolean;
+  disabled: boolean;
+  onRecorded: (a: ApplicationDto) => void;
+  /** The visit's weather snapshot: prefills temperature and wind (editable). */
+  weather: { tmaxF: number; windMph: number | null } | null;
+}) {
   const products = useQuery({ queryKey: ["products"], queryFn: async () => (await fetchJson<{ items: ProductDto[] }>("/api/v1/products")).items });
   const ruleSets = useQuery({ queryKey: ["rule-sets"], queryFn: async () => (await fetchJson<{ items: RuleSetDto[] }>("/api/v1/rule-sets")).items });
   const [isOpen, setIsOpen] = useState(false);
@@ -80,8 +103,8 @@ export function ApplicationPanel({ visitId, zoneId, areaFt2, ruleSetId, timeZone
   const [amount, setAmount] = useState("");
   const [unit, setUnit] = useState<RateUnit>("lb/1000ft2");
   const [targetN, setTargetN] = useState("");
-  const [temperatureF, setTemperatureF] = useState("");
-  const [windMph, setWindMph] = useState("");
+  const [temperatureF, setTemperatureF] = useState(weather ? String(Math.round(weather.tmaxF)) : "");
+  const [windMph, setWindMph] = useState(weather?.windMph !== null && weather?.windMph !== undefined ? String(weather.windMph) : "");
   const [isEstablishing, setIsEstablishing] = useState(false);
   const [applicatorName, setApplicatorName] = useState("");
   const [applicatorLicence, setApplicatorLicence] = useState("");
@@ -214,10 +237,10 @@ export function ApplicationPanel({ visitId, zoneId, areaFt2, ruleSetId, timeZone
           {product && hasRate ? <Maths product={product} amount={rateAmount} unit={unit} areaFt2={areaFt2} /> : null}
           <Findings findings={shownFindings} />
           <div className="grid grid-cols-2 gap-2">
-            <Field id={`${zoneId}-temp`} label="Temperature (°F)" error={fieldErrors.temperatureF?.[0]}>
+            <Field id={`${zoneId}-temp`} label={weather ? "Temperature (°F, from today's weather)" : "Temperature (°F)"} error={fieldErrors.temperatureF?.[0]}>
               <input id={`${zoneId}-temp`} inputMode="decimal" value={temperatureF} onChange={(e) => setTemperatureF(e.target.value)} className={inputClass} />
             </Field>
-            <Field id={`${zoneId}-wind`} label="Wind (mph)" error={fieldErrors.windMph?.[0]}>
+            <Field id={`${zoneId}-wind`} label={weather ? "Wind (mph, from today's weather)" : "Wind (mph)"} error={fieldErrors.windMph?.[0]}>
               <input id={`${zoneId}-wind`} inputMode="decimal" value={windMph} onChange={(e) => setWindMph(e.target.value)} className={inputClass} />
             </Field>
           </div>

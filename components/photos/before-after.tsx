@@ -33,7 +33,7 @@ export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName
           <PhotoFigure photo={first} size="display" showDate />
         </div>
       )}
-      <ol className="flex gap-2 overflow-x-auto pb-2" aria-label={`All photos of ${zoneName}, oldest first`}>
+      <ol className="flex gap-2 overflow-x-auto pb-2" aria-label={`All photos of ${zoneName}, oldest first`} tabIndex={0}>
         {photos.map((p) => (
           <li key={p.id} className="w-40 shrink-0">
             <PhotoFigure photo={p} showDate />

@@ -145,6 +145,7 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
           onApplicationRecorded={mergeApplication}
           ruleSetId={visit.ruleSetId}
           isManager={isManager}
+          weather={visit.weather?.status === "ok" ? visit.weather : null}
           footer={
             <div className="flex gap-2">
               <Button type="button" variant="secondary" className="flex-1" onClick={() => openZone(null)}>

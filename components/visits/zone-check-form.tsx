@@ -46,7 +46,9 @@ export function ZoneCheckForm({
   onApplicationRecorded,
   ruleSetId,
   isManager,
+  weather,
 }: {
+  weather: { tmaxF: number; windMph: number | null } | null;
   applications: ApplicationDto[];
   onApplicationRecorded: (application: ApplicationDto) => void;
   ruleSetId: string | null;
@@ -176,7 +178,7 @@ export function ZoneCheckForm({
           </Section>
 
           <Section title="Applications">
-            <ApplicationPanel visitId={visitId} zoneId={zone.id} areaFt2={zone.areaFt2} ruleSetId={ruleSetId} timeZone={timeZone} applications={applications} isManager={isManager} disabled={disabled} onRecorded={onApplicationRecorded} />
+            <ApplicationPanel visitId={visitId} zoneId={zone.id} areaFt2={zone.areaFt2} ruleSetId={ruleSetId} timeZone={timeZone} applications={applications} isManager={isManager} disabled={disabled} onRecorded={onApplicationRecorded} weather={weather} />
           </Section>
 
           <Section title="Symptoms">

@@ -27,7 +27,7 @@ export function WeatherPanel({ weather }: { weather: PropertyWeather }) {
         </dl>
       ) : null}
       {weather.days.length ? (
-        <div className="overflow-x-auto rounded-xl border border-line bg-card">
+        <div className="overflow-x-auto rounded-xl border border-line bg-card" role="region" aria-label="Daily weather and water (scrolls sideways)" tabIndex={0}>
           <table className="w-full min-w-[44rem] text-left text-sm">
             <caption className="p-3 text-left text-muted">
               Balance = rain + watering − turf use (Kc {weather.kc.toFixed(2)} × reference ET, FAO-56 Penman–Monteith; Hargreaves where humidity, wind or sun are missing).

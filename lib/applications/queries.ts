@@ -55,3 +55,19 @@ export async function zoneNitrogenYearToDate(companyId: string, zoneId: string, 
     .executeTakeFirstOrThrow();
   return Number(row.n);
 }
+
+/** lb N per 1,000 ft² applied to each zone of a property in a calendar year (zone id → lb). */
+export async function propertyNitrogenByZone(actor: Actor, propertyId: string, year: string): Promise<Record<string, number>> {
+  if (actor.role === "homeowner") return {};
+  const rows = await db()
+    .selectFrom("applications")
+    .select((eb) => ["zone_id", eb.fn.sum<number>("n_lb_per_1000").as("n")])
+    .innerJoin("visits", "visits.id", "applications.visit_id")
+    .where("applications.company_id", "=", actor.companyId)
+    .where("visits.property_id", "=", propertyId)
+    .where("applied_on", ">=", `${year}-01-01`)
+    .where("applied_on", "<=", `${year}-12-31`)
+    .groupBy("zone_id")
+    .execute();
+  return Object.fromEntries(rows.map((r) => [r.zone_id, Number(r.n)]));
+}

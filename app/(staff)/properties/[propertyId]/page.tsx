@@ -7,6 +7,8 @@ import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { buttonClass } from "@/components/ui/button";
 import { PhotoFigure } from "@/components/photos/photo-figure";
+import { NitrogenToDate } from "@/components/properties/nitrogen-to-date";
+import { propertyNitrogenByZone } from "@/lib/applications/queries";
 import { WateringLog } from "@/components/watering/watering-log";
 import { WeatherPanel } from "@/components/weather/weather-panel";
 import { propertyWeather } from "@/lib/weather/queries";
@@ -38,6 +40,8 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     listWaterings(actor, property.id),
     propertyWeather(actor, property.id),
   ]);
+  const year = todayIn(property.timeZone).slice(0, 4);
+  const nitrogen = await propertyNitrogenByZone(actor, property.id, year);
   const isManager = actor.role === "manager";
 
   return (
@@ -76,7 +80,15 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
       </section>
 
       <h2 className="mb-3 text-2xl font-bold">Zones</h2>
-      <ZoneList zones={property.zones} actions={(zone) => <ZoneActions propertyId={property.id} zone={zone} canManage={isManager && !property.isArchived} />} />
+      <ZoneList
+        zones={property.zones}
+        actions={(zone) => (
+          <>
+            <NitrogenToDate nLb={nitrogen[zone.id] ?? 0} speciesKey={zone.grassSpecies.key} year={year} />
+            <ZoneActions propertyId={property.id} zone={zone} canManage={isManager && !property.isArchived} />
+          </>
+        )}
+      />
       {isManager && !property.isArchived ? (
         <div className="mt-3">
           <AddZone propertyId={property.id} />

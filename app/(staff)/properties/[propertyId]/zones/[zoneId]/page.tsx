@@ -44,7 +44,7 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
       {history.entries.length === 0 ? (
         <p className="rounded-lg border border-line bg-card p-4">This zone has not been checked yet.</p>
       ) : (
-        <div className="overflow-x-auto rounded-xl border border-line bg-card">
+        <div className="overflow-x-auto rounded-xl border border-line bg-card" role="region" aria-label={`Checks of ${history.zoneName} (scrolls sideways)`} tabIndex={0}>
           <table className="w-full min-w-[40rem] text-left">
             <caption className="sr-only">Checks of {history.zoneName}</caption>
             <thead className="border-b border-line bg-paper text-sm">
