@@ -6,6 +6,8 @@ import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo-scenario"
 import { DEMO_PRODUCTS } from "@/fixtures/demo-products";
 import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
 import { hashPassword } from "@/lib/auth/password";
+import { productColumns } from "@/lib/products/columns";
+import { ruleSetColumns } from "@/lib/rule-sets/columns";
 import { addDays, todayIn } from "@/lib/dates";
 import type { Database, NewZoneCheck } from "./schema";
 
@@ -27,24 +29,7 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
     const ruleSets = await trx
       .insertInto("rule_sets")
       .values(
-        SHIPPED_RULE_SETS.map((r) => ({
-          company_id: companyId,
-          name: r.name,
-          citation: r.citation,
-          limits_are_law: r.limitsAreLaw,
-          max_n_lb_per_1000: r.maxNLbPer1000,
-          max_wsn_lb_per_1000: r.maxWsnLbPer1000,
-          min_slow_release_pct: r.minSlowReleasePct,
-          pro_blackout_start: r.proBlackout?.[0] ?? null,
-          pro_blackout_end: r.proBlackout?.[1] ?? null,
-          homeowner_blackout_start: r.homeownerBlackout?.[0] ?? null,
-          homeowner_blackout_end: r.homeownerBlackout?.[1] ?? null,
-          phosphorus_rule: r.phosphorusRule,
-          soil_test_max_age_years: r.soilTestMaxAgeYears,
-          record_retention_years: r.recordRetentionYears,
-          record_required_fields: r.recordRequiredFields,
-          record_fields_apply_to: r.recordFieldsApplyTo,
-        })),
+        SHIPPED_RULE_SETS.map((r) => ({ company_id: companyId, ...ruleSetColumns(r) })),
       )
       .returning(["id", "name"])
       .execute();
@@ -52,20 +37,7 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
     await trx
       .insertInto("products")
       .values(
-        DEMO_PRODUCTS.map((p) => ({
-          company_id: companyId,
-          name: p.name,
-          form: p.form,
-          n_pct: p.nPct,
-          p2o5_pct: p.p2o5Pct,
-          k2o_pct: p.k2oPct,
-          slow_release_pct_of_n: p.slowReleasePctOfN,
-          density_lb_per_gal: p.densityLbPerGal,
-          is_pesticide: p.isPesticide,
-          registration_number: p.registrationNumber,
-          label_cautions: p.labelCautions,
-          reentry_guidance: p.reentryGuidance,
-        })),
+        DEMO_PRODUCTS.map((p) => ({ company_id: companyId, ...productColumns(p) })),
       )
       .execute();
 

@@ -5,21 +5,10 @@ import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 import type { ProductDto } from "./dto";
 import { getProduct } from "./queries";
+import { productColumns as columns } from "./columns";
 import type { ProductInput } from "./schemas";
 
-const columns = (p: ProductInput) => ({
-  name: p.name,
-  form: p.form,
-  n_pct: p.nPct,
-  p2o5_pct: p.p2o5Pct,
-  k2o_pct: p.k2oPct,
-  slow_release_pct_of_n: p.slowReleasePctOfN,
-  density_lb_per_gal: p.densityLbPerGal,
-  is_pesticide: p.isPesticide,
-  registration_number: p.registrationNumber,
-  label_cautions: p.labelCautions,
-  reentry_guidance: p.reentryGuidance,
-});
+
 
 function requireManager(actor: Actor) {
   if (actor.role !== "manager") throw new AppError("forbidden", "Only a manager can change the product catalogue.");
