@@ -1,0 +1,42 @@
+// The Sward Index weights and penalties: the one place to change them (and the reasons).
+//
+// Ratings carry most of the Index because they are the trade's own judgement on the 1–9 visual
+// scale (9 = ideal, 6 = lowest acceptable; NTEP rating guide, common practice):
+// - overall quality 0.35: already the evaluator's summary of the zone;
+// - density 0.20: thin turf is what lets weeds and disease in, and what customers notice first;
+// - colour 0.15: matters, but responds to a feeding within weeks, so it is weighed below density;
+// - uniformity 0.10: a patchy lawn reads worse than its average.
+// Photo metrics, when a photo exists, add a measured view of the same things:
+// - green cover 0.10 (Richardson et al. 2001 method) and DGCI 0.10 (Karcher & Richardson 2003),
+//   DGCI mapped from 0.25 (straw) to 0.65 (very dark green) onto 0–100 — the span of turf values
+//   reported for lawns in those studies, from memory.
+// Missing parts drop out and the remaining weights are rescaled, so a check without a photo is
+// scored on its ratings alone.
+// Penalties are subtracted after the weighted mean, so added bare ground, weeds or disease can
+// only lower the Index:
+// - bare ground 0.5 point per %, at most 40: bare soil is lost turf and an open door for weeds;
+// - weeds 0.25 point per %, at most 20: a weedy lawn is still turf cover;
+// - each symptom 5 / 10 / 20 points for severity 1 / 2 / 3, at most 40 in all: active disease or
+//   insect damage is the clearest sign a zone needs attention.
+export const INDEX_WEIGHTS = {
+  quality: 0.35,
+  density: 0.2,
+  color: 0.15,
+  uniformity: 0.1,
+  cover: 0.1,
+  dgci: 0.1,
+} as const;
+
+export const DGCI_SPAN = { low: 0.25, high: 0.65 } as const;
+
+export const INDEX_PENALTIES = {
+  perBarePct: 0.5,
+  maxBare: 40,
+  perWeedPct: 0.25,
+  maxWeeds: 20,
+  symptomBySeverity: { 1: 5, 2: 10, 3: 20 } as const,
+  maxSymptoms: 40,
+} as const;
+
+/** Trend words: a slope of at least this many Index points per 30 days (n ≥ 3) is a change. */
+export const TREND_THRESHOLD_PER_30_DAYS = 2;
