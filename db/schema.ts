@@ -267,6 +267,8 @@ export interface ZoneChecksTable {
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
   updated_by: string | null;
+  sward_index: number | null;
+  index_parts: ColumnType<Record<string, number> | null, string | null, string | null>;
 }
 
 export interface AuditEventsTable {

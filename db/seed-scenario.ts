@@ -8,6 +8,7 @@ import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
 import { hashPassword } from "@/lib/auth/password";
 import { productColumns } from "@/lib/products/columns";
 import { ruleSetColumns } from "@/lib/rule-sets/columns";
+import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { addDays, todayIn } from "@/lib/dates";
 import type { Database, NewZoneCheck } from "./schema";
 
@@ -175,7 +176,10 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
           updated_by: technicianId,
           ...pastCheck(`${p.key}/${z.name}/${past.daysAgo}`, past.daysAgo === latest ? schedule.findings[`${p.key}/${z.name}`] : undefined),
         }));
-      if (checks.length) await trx.insertInto("zone_checks").values(checks).execute();
+      if (checks.length) {
+        await trx.insertInto("zone_checks").values(checks).execute();
+        await refreshCheckIndex(trx, checks.map((c) => c.id));
+      }
     }
   }
   await seedDay(trx, seeded, company, today);

@@ -2,6 +2,7 @@
 // exists is left as it is, so running the demo again keeps what you entered.
 import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo-scenario";
 import { createDb, localDatabaseUrl } from "./client";
+import { recomputeAllIndexes } from "@/lib/scoring/store-index";
 import { seedDemoPhotos } from "./seed-photos";
 import { ensureDemoDay, removeCompany, seedCompany } from "./seed-scenario";
 
@@ -18,6 +19,7 @@ try {
     if (existing) await removeCompany(db, company.slug);
     const seeded = await seedCompany(db, company, DEMO_PASSWORD);
     const photos = company.schedule ? await seedDemoPhotos(db, company.slug, process.env.PHOTO_DIR ?? ".data/photos") : 0;
+    if (photos) await recomputeAllIndexes(db); // the demo photos are part of their checks' Index
     console.log(`seed: ${company.name}: ${company.people.length} sign-ins, ${Object.keys(seeded.propertyIds).length} properties, ${photos} photos`);
   }
 } catch (err) {

@@ -119,7 +119,10 @@ export function VisitSummary({ visit, isManager, onEditZone }: { visit: VisitDet
             <li key={zone.id} className="rounded-xl border border-line bg-card p-4">
               <div className="mb-2 flex flex-wrap items-center justify-between gap-2">
                 <h3 className="text-lg font-bold">{zone.name}</h3>
-                <ZoneStatusBadge status={check?.status ?? null} />
+                <span className="flex items-center gap-2">
+                  {check?.swardIndex !== null && check?.swardIndex !== undefined ? <span className="rounded-full bg-sward-tint px-2.5 py-1 font-bold text-sward-deep">Sward Index {Math.round(check.swardIndex)}</span> : null}
+                  <ZoneStatusBadge status={check?.status ?? null} />
+                </span>
               </div>
               {check ? <Facts check={check} /> : <p className="text-muted">Not checked at this visit.</p>}
               {visit.photos.some((p) => p.zoneId === zone.id) ? (

@@ -38,7 +38,7 @@ export const DEBOUNCE_MS = 700;
 export const RETRY_SECONDS = [2, 5, 10, 30, 60] as const;
 
 export function valuesFrom(check: ZoneCheckDto): ZoneCheckValues {
-  const { id: _id, visitId: _v, version: _ver, updatedAt: _u, updatedBy: _b, ...values } = check;
+  const { id: _id, visitId: _v, version: _ver, updatedAt: _u, updatedBy: _b, swardIndex: _s, ...values } = check;
   return values;
 }
 

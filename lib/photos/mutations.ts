@@ -5,6 +5,7 @@ import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import type { PhotoStorage } from "@/lib/services/storage";
 import { visitInScope } from "@/lib/visits/scope";
 import type { PhotoDto } from "./dto";
@@ -65,6 +66,7 @@ export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: strin
     })
     .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
     .execute();
+  await refreshCheckIndex(db(), [zoneCheckId]); // photo cover and colour are part of the Index
   const saved = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (!saved) throw new Error("photo row missing after insert");
   return { photo: saved, isNew: true };

@@ -10,6 +10,8 @@ export type ZoneCheckValues = Omit<ZoneCheckInput, "baseVersion">;
 export interface ZoneCheckDto extends ZoneCheckValues {
   id: string;
   visitId: string;
+  /** The stored Sward Index (0–100), null until the zone is rated. */
+  swardIndex: number | null;
   version: number;
   updatedAt: string;
   updatedBy: string | null;
@@ -56,6 +58,7 @@ export interface ZoneHistoryEntryDto {
   zoneCheckId: string;
   visitId: string;
   visitedOn: string;
+  swardIndex: number | null;
   status: ZoneCheckDto["status"];
   quality: number | null;
   color: number | null;

@@ -9,6 +9,7 @@ export function toZoneCheckDto(row: ZoneCheck, updatedBy: string | null = null):
   return {
     id: row.id,
     visitId: row.visit_id,
+    swardIndex: row.sward_index,
     version: row.version,
     updatedAt: new Date(row.updated_at).toISOString(),
     updatedBy,
@@ -16,7 +17,7 @@ export function toZoneCheckDto(row: ZoneCheck, updatedBy: string | null = null):
   };
 }
 
-export function valuesOf(row: ZoneCheck): ZoneCheckValues {
+export function valuesOf(row: Omit<ZoneCheck, "sward_index" | "index_parts"> & Partial<Pick<ZoneCheck, "sward_index" | "index_parts">>): ZoneCheckValues {
   return {
     zoneId: row.zone_id,
     status: row.status,

@@ -9,6 +9,7 @@ import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
+import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { fillVisitWeather } from "@/lib/weather/mutations";
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
@@ -190,6 +191,8 @@ export async function saveZoneCheck(actor: Actor, visitId: string, zoneCheckId: 
           await recordAudit(trx, actor, { entity: "zone_check", entityId: zoneCheckId, action: "edit_after_finish", changes: diffValues(valuesOf(existing), valuesOf(saved)) });
         }
       }
+      await refreshCheckIndex(trx, [zoneCheckId]);
+      saved = (await trx.selectFrom("zone_checks").selectAll().where("id", "=", zoneCheckId).executeTakeFirstOrThrow()) as ZoneCheck;
       if (visit.status === "scheduled") {
         // Saving a check starts the visit if the technician did not tap "Start".
         await trx.updateTable("visits").set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId }).where("id", "=", visitId).execute();

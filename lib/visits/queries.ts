@@ -203,6 +203,7 @@ export async function getZoneHistory(actor: Actor, zoneId: string): Promise<{ zo
       zoneCheckId: r.id,
       visitId: r.visit_id,
       visitedOn: r.scheduled_for,
+      swardIndex: r.sward_index,
       status: r.status,
       quality: r.quality,
       color: r.color,

@@ -196,3 +196,17 @@ describe("zone history", () => {
     await expect(getZoneHistory(owner1, zoneId)).rejects.toMatchObject({ code: "not_found" });
   });
 });
+
+describe("the stored Sward Index", () => {
+  it("is computed when a check is saved, null for drafts without ratings, and photos move it", async () => {
+    const visit = await freshVisit();
+    const [front, back] = visit.zones;
+    const rated = await saveZoneCheck(tech1, visit.id, newId(), doneCheck(front!.id, { symptoms: [] , barePct: 0, weedsPct: 0 }));
+    const { swardIndex } = await import("@/lib/scoring/sward-index");
+    expect(rated.swardIndex).toBe(swardIndex({ qualityRating: 7, colorRating: 7, densityRating: 6, uniformityRating: 7, bareSoilPct: 0, weedPct: 0, symptoms: [] }).index);
+    const draft = await saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(back!.id), quality: 6 });
+    expect(draft.swardIndex).toBeNull();
+    const history = await getZoneHistory(manager, front!.id);
+    expect(history.entries.find((e) => e.zoneCheckId === rated.id)?.swardIndex).toBe(rated.swardIndex);
+  });
+});

@@ -12,6 +12,9 @@ import { AppError } from "@/lib/http/app-error";
 import { zoneIdParams } from "@/lib/properties/schemas";
 import { listZonePhotos } from "@/lib/photos/queries";
 import { getZoneHistory } from "@/lib/visits/queries";
+import { indexTrend, trendWord } from "@/lib/scoring/trend";
+import { TREND_THRESHOLD_PER_30_DAYS } from "@/lib/scoring/weights";
+import { addDays } from "@/lib/dates";
 
 export const metadata: Metadata = { title: "Zone history" };
 
@@ -29,6 +32,14 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
   });
   if (history.propertyId !== raw.propertyId) notFound();
   const photos = await listZonePhotos(actor, parsed.data.zoneId);
+  // Trend: least squares over the last 120 days of rated checks (oldest first).
+  const latest = history.entries[0]?.visitedOn;
+  const points = history.entries
+    .filter((e) => e.swardIndex !== null && latest && e.visitedOn >= addDays(latest, -120))
+    .map((e) => ({ date: e.visitedOn, index: e.swardIndex! }))
+    .reverse();
+  const trend = indexTrend(points);
+  const word = trendWord(trend);
 
   return (
     <>
@@ -37,6 +48,16 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
         Back to the property
       </Link>
       <h1 className="text-3xl font-bold">{history.zoneName}: history</h1>
+      <p className="mt-3 rounded-lg border border-line bg-card p-3">
+        {trend && word ? (
+          <>
+            <span className="font-bold capitalize">{word}</span>: {trend.slopePer30Days >= 0 ? "+" : "−"}
+            {Math.abs(trend.slopePer30Days).toFixed(1)} Index points per 30 days over the last 120 days (r² {trend.r2.toFixed(2)}, n {trend.n}). Steady means within ±{TREND_THRESHOLD_PER_30_DAYS} points per 30 days.
+          </>
+        ) : (
+          <>Not enough rated checks for a trend yet (at least 3 in 120 days).</>
+        )}
+      </p>
       <h2 className="mb-3 mt-6 text-2xl font-bold">Before and after</h2>
       <BeforeAfter photos={photos} zoneName={history.zoneName} />
       <h2 className="mb-1 mt-8 text-2xl font-bold">Checks</h2>
@@ -45,11 +66,12 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
         <p className="rounded-lg border border-line bg-card p-4">This zone has not been checked yet.</p>
       ) : (
         <div className="overflow-x-auto rounded-xl border border-line bg-card" role="region" aria-label={`Checks of ${history.zoneName} (scrolls sideways)`} tabIndex={0}>
-          <table className="w-full min-w-[40rem] text-left">
+          <table className="w-full min-w-[46rem] text-left">
             <caption className="sr-only">Checks of {history.zoneName}</caption>
             <thead className="border-b border-line bg-paper text-sm">
               <tr>
                 <th scope="col" className="p-3">Date</th>
+                <th scope="col" className="p-3">Sward Index</th>
                 <th scope="col" className="p-3">Quality</th>
                 <th scope="col" className="p-3">Colour</th>
                 <th scope="col" className="p-3">Density</th>
@@ -71,11 +93,12 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
                     </div>
                   </td>
                   {e.status === "skipped" ? (
-                    <td className="p-3" colSpan={7}>
+                    <td className="p-3" colSpan={8}>
                       Skipped: {e.skipReason ? SKIP_REASONS[e.skipReason] : "—"}
                     </td>
                   ) : (
                     <>
+                      <td className="p-3 text-lg font-bold">{e.swardIndex === null ? "—" : Math.round(e.swardIndex)}</td>
                       <td className="p-3"><Rating value={e.quality} /></td>
                       <td className="p-3"><Rating value={e.color} /></td>
                       <td className="p-3"><Rating value={e.density} /></td>
