@@ -4,6 +4,7 @@
 import path from "node:path";
 import type { Kysely } from "kysely";
 import { lawnImage } from "@/fixtures/demo-photos";
+import { addDays, todayIn } from "@/lib/dates";
 import { processPhoto } from "@/lib/photos/process";
 import { localDiskStorage } from "@/lib/services/storage";
 import type { Database } from "./schema";
@@ -18,6 +19,8 @@ export async function seedDemoPhotos(db: Kysely<Database>, companySlug: string, 
     .select(["zone_checks.id", "zone_checks.visit_id", "zone_checks.zone_id", "zone_checks.company_id", "zone_checks.bare_pct", "zone_checks.density", "visits.property_id", "visits.scheduled_for", "visits.technician_id", "zones.sort_order"])
     .where("companies.slug", "=", companySlug)
     .where("visits.status", "=", "completed")
+    // Photos from the last three visits of the season: enough for before/after and a strip.
+    .where("visits.scheduled_for", ">=", addDays(todayIn("America/New_York"), -70))
     .orderBy("visits.scheduled_for")
     .execute();
   let count = 0;

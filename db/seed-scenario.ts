@@ -116,14 +116,20 @@ function pick(text: string, choices: readonly number[]): number {
   return choices[h % choices.length]!;
 }
 
-function pastCheck(seed: string, finding: ScenarioFinding | undefined): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
+/**
+ * A past check: the latest visit carries the scenario's findings; earlier ones are offset by the
+ * zone's drift per visit (`stepsBack` visits before the latest), so the season tells a story.
+ */
+function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack: number, drift: number): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
+  const at = (latest: number) => Math.min(9, Math.max(1, Math.round(latest - drift * stepsBack)));
+  const isLatest = stepsBack === 0;
   return {
     status: "done",
-    quality: finding?.quality ?? pick(`${seed}q`, [6, 7, 7, 8]),
-    color: finding?.color ?? pick(`${seed}c`, [6, 7, 8, 8]),
-    density: finding?.density ?? pick(`${seed}d`, [6, 7, 7, 8]),
-    uniformity: pick(`${seed}u`, [6, 7, 8]),
-    bare_pct: finding?.barePct ?? pick(`${seed}b`, [0, 0, 5]),
+    quality: at(finding?.quality ?? pick(`${seed}q`, [7, 7, 8])),
+    color: at(finding?.color ?? pick(`${seed}c`, [7, 8, 8])),
+    density: at(finding?.density ?? pick(`${seed}d`, [7, 7, 8])),
+    uniformity: at(pick(`${seed}u`, [6, 7, 8])),
+    bare_pct: Math.max(0, Math.min(100, Math.round(((finding?.barePct ?? pick(`${seed}b`, [0, 0, 5])) + (drift > 0 ? 5 : -5) * stepsBack * Math.abs(drift)) / 5) * 5)),
     weeds_pct: finding?.weedsPct ?? pick(`${seed}w`, [0, 5, 5, 10]),
     thatch_in: pick(`${seed}t`, [0.25, 0.5, 0.5]),
     soil_moisture: "moist",
@@ -131,8 +137,8 @@ function pastCheck(seed: string, finding: ScenarioFinding | undefined): Omit<New
     mowing_direction: finding?.mowingDirection ?? "changed",
     is_matted: finding?.isMatted ?? false,
     has_torn_tips: finding?.hasTornTips ?? false,
-    symptoms: JSON.stringify(finding?.symptoms ?? []),
-    notes: finding?.notes ?? "",
+    symptoms: JSON.stringify(isLatest || stepsBack === 1 ? (finding?.symptoms ?? []) : []),
+    notes: isLatest ? (finding?.notes ?? "") : "",
   };
 }
 
@@ -141,7 +147,7 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
   const schedule = company.schedule;
   if (!schedule) return;
   const zones = await trx.selectFrom("zones").select(["id", "name", "property_id"]).where("company_id", "=", seeded.companyId).execute();
-  const latest = Math.min(...schedule.pastVisitsDaysAgo.map((v) => v.daysAgo));
+  const byRecency = [...schedule.pastVisitsDaysAgo].sort((a, b) => a.daysAgo - b.daysAgo);
   for (const p of company.properties) {
     const technicianId = p.technician ? seeded.userIds[p.technician] : undefined;
     const propertyId = seeded.propertyIds[p.key];
@@ -174,7 +180,7 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
           visit_id: visitId,
           zone_id: z.id,
           updated_by: technicianId,
-          ...pastCheck(`${p.key}/${z.name}/${past.daysAgo}`, past.daysAgo === latest ? schedule.findings[`${p.key}/${z.name}`] : undefined),
+          ...pastCheck(`${p.key}/${z.name}`, schedule.findings[`${p.key}/${z.name}`], byRecency.indexOf(past), schedule.drift[`${p.key}/${z.name}`] ?? 0.25),
         }));
       if (checks.length) {
         await trx.insertInto("zone_checks").values(checks).execute();
