@@ -7,7 +7,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
-import { Field, applyFieldErrors, inputClass } from "@/components/ui/field";
+import { Field, applyFieldErrors, inputClass, nullIfEmpty } from "@/components/ui/field";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
 import { propertySchema } from "@/lib/properties/schemas";
@@ -16,7 +16,6 @@ import type { RuleSetDto } from "@/lib/rule-sets/dto";
 
 type FormIn = z.input<typeof propertySchema>;
 type FormOut = z.output<typeof propertySchema>;
-const nullIfEmpty = (v: unknown) => (v === "" ? null : v);
 
 export function PropertyForm({ property, technicians, ruleSets, timeZones }: { property?: PropertyDetailDto; technicians: PersonDto[]; ruleSets: RuleSetDto[]; timeZones: string[] }) {
   const router = useRouter();

@@ -28,3 +28,6 @@ export function Field({ id, label, hint, error, children }: { id: string; label:
 export function applyFieldErrors(fieldErrors: Record<string, string[]> | undefined, setError: (name: never, error: { message: string }) => void): void {
   for (const [name, messages] of Object.entries(fieldErrors ?? {})) if (messages[0]) setError(name as never, { message: messages[0] });
 }
+
+/** For react-hook-form selects whose empty choice means "none": "" becomes null. */
+export const nullIfEmpty = (value: unknown) => (value === "" ? null : value);

@@ -9,7 +9,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { Button } from "@/components/ui/button";
-import { Field, applyFieldErrors, inputClass } from "@/components/ui/field";
+import { Field, applyFieldErrors, inputClass, nullIfEmpty } from "@/components/ui/field";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertySummaryDto } from "@/lib/properties/dto";
 import type { VisitDetailDto } from "@/lib/visits/dto";
@@ -19,7 +19,6 @@ import { sendJson } from "@/lib/query-client";
 
 type FormIn = z.input<typeof scheduleVisitSchema>;
 type FormOut = z.output<typeof scheduleVisitSchema>;
-const nullIfEmpty = (v: unknown) => (v === "" ? null : v);
 
 export function ScheduleVisitForm({ properties, technicians, defaultDate }: { properties: PropertySummaryDto[]; technicians: PersonDto[]; defaultDate: string }) {
   const router = useRouter();
