@@ -125,7 +125,7 @@ export async function propertyWeather(actor: Actor, propertyId: string): Promise
 
   const waterings = await db()
     .selectFrom("waterings")
-    .select(["watered_on", "depth_in", "zone_id", "zone_id"])
+    .select(["waterings.watered_on", "waterings.depth_in", "waterings.zone_id"])
     .leftJoin("zones", "zones.id", "waterings.zone_id")
     .select("zones.area_ft2")
     .where("waterings.company_id", "=", actor.companyId)
