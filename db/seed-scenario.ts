@@ -9,6 +9,12 @@ import { hashPassword } from "@/lib/auth/password";
 import { productColumns } from "@/lib/products/columns";
 import { ruleSetColumns } from "@/lib/rule-sets/columns";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
+import { availableNitrogen } from "@/lib/scoring/available-nitrogen";
+import { nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
+import { checkApplication, isRefused } from "@/lib/agronomy/rules";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
+import { deriveDays } from "@/lib/weather/derived";
 import { addDays, todayIn } from "@/lib/dates";
 import type { Database, NewZoneCheck } from "./schema";
 
@@ -120,13 +126,14 @@ function pick(text: string, choices: readonly number[]): number {
  * A past check: the latest visit carries the scenario's findings; earlier ones are offset by the
  * zone's drift per visit (`stepsBack` visits before the latest), so the season tells a story.
  */
-function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack: number, drift: number): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
-  const at = (latest: number) => Math.min(9, Math.max(1, Math.round(latest - drift * stepsBack)));
+function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack: number, drift: number, fromHistory: number): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
+  const at = (latest: number, extra = 0) => Math.min(9, Math.max(1, Math.round(latest - drift * stepsBack + extra)));
   const isLatest = stepsBack === 0;
   return {
     status: "done",
-    quality: at(finding?.quality ?? pick(`${seed}q`, [7, 7, 8])),
-    color: at(finding?.color ?? pick(`${seed}c`, [7, 8, 8])),
+    quality: at(finding?.quality ?? pick(`${seed}q`, [7, 7, 8]), isLatest ? 0 : fromHistory / 2),
+    // The latest visit keeps its findings as written; earlier ones show the feeding and water they had.
+    color: at(finding?.color ?? pick(`${seed}c`, [7, 7, 8]), isLatest ? 0 : fromHistory),
     density: at(finding?.density ?? pick(`${seed}d`, [7, 7, 8])),
     uniformity: at(pick(`${seed}u`, [6, 7, 8])),
     bare_pct: Math.max(0, Math.min(100, Math.round(((finding?.barePct ?? pick(`${seed}b`, [0, 0, 5])) + (drift > 0 ? 5 : -5) * stepsBack * Math.abs(drift)) / 5) * 5)),
@@ -146,13 +153,43 @@ function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack
 async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, company: ScenarioCompany, today: string): Promise<void> {
   const schedule = company.schedule;
   if (!schedule) return;
-  const zones = await trx.selectFrom("zones").select(["id", "name", "property_id"]).where("company_id", "=", seeded.companyId).execute();
+  const zones = await trx.selectFrom("zones").select(["id", "name", "property_id", "area_ft2", "grass_species", "is_irrigated"]).where("company_id", "=", seeded.companyId).execute();
+  const products = await trx.selectFrom("products").selectAll().where("company_id", "=", seeded.companyId).execute();
   const byRecency = [...schedule.pastVisitsDaysAgo].sort((a, b) => a.daysAgo - b.daysAgo);
+  const oldestFirst = [...schedule.pastVisitsDaysAgo].sort((a, b) => b.daysAgo - a.daysAgo);
   for (const p of company.properties) {
     const technicianId = p.technician ? seeded.userIds[p.technician] : undefined;
     const propertyId = seeded.propertyIds[p.key];
     if (!technicianId || !propertyId) continue;
-    for (const past of schedule.pastVisitsDaysAgo) {
+    const rules = SHIPPED_RULE_SETS.find((r) => r.name === p.ruleSet) ?? null;
+    const applied = new Map<string, { date: string; wsnLb: number; slowLb: number }[]>(); // per zone id, so far
+    const yearN = new Map<string, number>();
+    // Irrigation of the irrigated zones, logged by the technician from the controller.
+    const { everyDays, depthIn, fromDaysAgo, untilDaysAgo } = schedule.irrigation;
+    const waterings = zones
+      .filter((z) => z.property_id === propertyId && z.is_irrigated)
+      .flatMap((z) => {
+        const rows = [];
+        for (let d = fromDaysAgo; d >= untilDaysAgo; d -= everyDays) {
+          rows.push({ id: randomUUID(), company_id: seeded.companyId, property_id: propertyId, zone_id: z.id, watered_on: addDays(today, -d), depth_in: depthIn, entered_by_role: "technician" as const, created_by: technicianId });
+        }
+        return rows;
+      });
+    if (waterings.length) await trx.insertInto("waterings").values(waterings).execute();
+    // The demo weather (the same deterministic days the local weather fake serves) gives each
+    // zone its 14-day water balance before a check; lawns without irrigation show dry spells.
+    const firstDate = addDays(today, -(oldestFirst[0]?.daysAgo ?? 0) - 15);
+    const weatherDays = Array.from({ length: Math.max(0, Math.round((Date.parse(today) - Date.parse(firstDate)) / 86_400_000) + 1) }, (_, i) => fakeWeatherDay(p.latitude, p.longitude, addDays(firstDate, i), today));
+    const balanceByZone = new Map(
+      zones
+        .filter((z) => z.property_id === propertyId)
+        .map((z) => {
+          const wateringInByDate: Record<string, number> = {};
+          for (const w of waterings) if (w.zone_id === z.id) wateringInByDate[w.watered_on] = (wateringInByDate[w.watered_on] ?? 0) + w.depth_in;
+          return [z.id, new Map(deriveDays(weatherDays, { latitudeDeg: p.latitude, kc: 0.8, wateringInByDate }).map((d) => [d.date, d.balance14In]))];
+        }),
+    );
+    for (const past of oldestFirst) {
       const date = addDays(today, -past.daysAgo);
       const at = new Date(`${date}T15:00:00Z`);
       const visitId = randomUUID();
@@ -172,19 +209,79 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
           completed_by: technicianId,
         })
         .execute();
-      const checks = zones
-        .filter((z) => z.property_id === propertyId)
-        .map((z) => ({
+      const propertyZones = zones.filter((z) => z.property_id === propertyId);
+      const checks = propertyZones.map((z) => {
+        const key = `${p.key}/${z.name}`;
+        // The zone's colour follows the N available before the check (what the feeding did).
+        const nBefore = availableNitrogen(applied.get(z.id) ?? [], addDays(date, -1));
+        const balance = Math.max(-2, Math.min(1, balanceByZone.get(z.id)?.get(addDays(date, -1)) ?? 0));
+        const fromWater = (z.is_irrigated ? 0.2 : 0.8) * balance;
+        const jitter = pick(`${key}:${past.daysAgo}`, [-0.4, 0, 0, 0.4]);
+        return {
           id: randomUUID(),
           company_id: seeded.companyId,
           visit_id: visitId,
           zone_id: z.id,
           updated_by: technicianId,
-          ...pastCheck(`${p.key}/${z.name}`, schedule.findings[`${p.key}/${z.name}`], byRecency.indexOf(past), schedule.drift[`${p.key}/${z.name}`] ?? 0.25),
-        }));
+          ...pastCheck(key, schedule.findings[key], byRecency.indexOf(past), schedule.drift[key] ?? 0.1, (schedule.nitrogenResponse[key] ?? 1.5) * (nBefore - 0.5) + fromWater + jitter),
+        };
+      });
       if (checks.length) {
         await trx.insertInto("zone_checks").values(checks).execute();
         await refreshCheckIndex(trx, checks.map((c) => c.id));
+      }
+      const plan = past.application;
+      const product = plan ? products.find((x) => x.name === plan.product) : undefined;
+      if (plan && !product) throw new Error(`Scenario ${company.slug}: unknown product ${plan.product}`);
+      for (const z of plan && product ? propertyZones.filter((z) => !plan.except?.includes(`${p.key}/${z.name}`)) : []) {
+        const analysis = { nPct: Number(product!.n_pct), p2o5Pct: Number(product!.p2o5_pct), k2oPct: Number(product!.k2o_pct), form: product!.form, slowReleaseNPctOfN: Number(product!.slow_release_pct_of_n), densityLbPerGal: product!.density_lb_per_gal === null ? undefined : Number(product!.density_lb_per_gal) };
+        const rate = { amount: plan!.rateLbPer1000, unit: "lb/1000ft2" as const };
+        const per1000 = nutrientsPer1000(analysis, rate);
+        const totals = productForArea(analysis, rate, Number(z.area_ft2));
+        const species = findGrassSpecies(z.grass_species);
+        const findings = rules
+          ? checkApplication(rules, {
+              appliedOn: date,
+              byProfessional: true,
+              nPct: analysis.nPct,
+              nLb: per1000.nLb,
+              wsnLb: per1000.wsnLb,
+              p2o5Lb: per1000.p2o5Lb,
+              slowReleasePctOfN: analysis.slowReleaseNPctOfN,
+              isEstablishing: plan!.isEstablishing ?? false,
+              soilTestOn: null,
+              yearToDateNLb: yearN.get(z.id) ?? 0,
+              annualNRange: species ? species.annualNitrogenLb : null,
+            })
+          : [];
+        if (isRefused(findings)) throw new Error(`Scenario ${company.slug}: ${plan!.product} at ${p.key}/${z.name} on ${date} breaks ${rules!.name}: ${findings.map((f) => f.message).join(" ")}`);
+        await trx
+          .insertInto("applications")
+          .values({
+            id: randomUUID(),
+            company_id: seeded.companyId,
+            visit_id: visitId,
+            zone_id: z.id,
+            product_id: product!.id,
+            rate_amount: rate.amount,
+            rate_unit: rate.unit,
+            area_ft2: Number(z.area_ft2),
+            product_total_lb: totals.lb,
+            product_total_gal: totals.gal,
+            n_lb_per_1000: per1000.nLb,
+            p2o5_lb_per_1000: per1000.p2o5Lb,
+            k2o_lb_per_1000: per1000.k2oLb,
+            wsn_lb_per_1000: per1000.wsnLb,
+            applied_on: date,
+            applied_at: new Date(at.getTime() + 20 * 60_000),
+            is_establishing: plan!.isEstablishing ?? false,
+            applicator_name: company.people.find((x) => x.key === p.technician)?.name ?? "",
+            findings: JSON.stringify(findings),
+            created_by: technicianId,
+          })
+          .execute();
+        applied.set(z.id, [...(applied.get(z.id) ?? []), { date, wsnLb: per1000.wsnLb, slowLb: per1000.nLb - per1000.wsnLb }]);
+        if (date.slice(0, 4) === today.slice(0, 4)) yearN.set(z.id, (yearN.get(z.id) ?? 0) + per1000.nLb);
       }
     }
   }
@@ -248,6 +345,8 @@ export async function removeCompany(db: Kysely<Database>, slug: string): Promise
     const company = await trx.selectFrom("companies").select("id").where("slug", "=", slug).executeTakeFirst();
     if (!company) return;
     const members = await trx.selectFrom("memberships").select("user_id").where("company_id", "=", company.id).execute();
+    // Applications keep their product (no cascade from products), so they go first.
+    await trx.deleteFrom("applications").where("company_id", "=", company.id).execute();
     await trx.deleteFrom("companies").where("id", "=", company.id).execute();
     if (members.length) await trx.deleteFrom("users").where("id", "in", members.map((m) => m.user_id)).execute();
   });
