@@ -33,6 +33,23 @@ const toInput = (r: WeatherDay): WeatherDayInput => ({
   isForecast: r.is_forecast,
 });
 
+/** A provider's day as a row of the cache. */
+export const weatherDayRow = (cell: string, d: WeatherDayInput) => ({
+  cell,
+  day: d.date,
+  tmax_c: d.tmaxC,
+  tmin_c: Math.min(d.tminC, d.tmaxC),
+  rh_max_pct: d.rhMaxPct,
+  rh_min_pct: d.rhMinPct,
+  rh_mean_pct: d.rhMeanPct,
+  wind_ms: d.windMs,
+  wind_height_m: d.windHeightM,
+  sunshine_h: d.sunshineH,
+  solar_mj: d.solarMJ,
+  precip_mm: d.precipMm,
+  is_forecast: d.isForecast,
+});
+
 export interface WeatherResult {
   days: WeatherDayInput[];
   status: "ok" | "cached" | "unavailable";
@@ -55,23 +72,7 @@ export async function weatherForLocation(provider: WeatherProvider | null, lat: 
     if (days.length) {
       await db()
         .insertInto("weather_days")
-        .values(
-          days.map((d) => ({
-            cell,
-            day: d.date,
-            tmax_c: d.tmaxC,
-            tmin_c: Math.min(d.tminC, d.tmaxC),
-            rh_max_pct: d.rhMaxPct,
-            rh_min_pct: d.rhMinPct,
-            rh_mean_pct: d.rhMeanPct,
-            wind_ms: d.windMs,
-            wind_height_m: d.windHeightM,
-            sunshine_h: d.sunshineH,
-            solar_mj: d.solarMJ,
-            precip_mm: d.precipMm,
-            is_forecast: d.isForecast,
-          })),
-        )
+        .values(days.map((d) => weatherDayRow(cell, d)))
         .onConflict((oc) =>
           oc.columns(["cell", "day"]).doUpdateSet((eb) => ({
             tmax_c: eb.ref("excluded.tmax_c"),
@@ -98,6 +99,18 @@ export async function weatherForLocation(provider: WeatherProvider | null, lat: 
   }
 }
 
+/** Where a property is (and its time zone), within the actor's scope; not found otherwise. */
+export async function propertyLocation(actor: Actor, propertyId: string) {
+  const property = await db()
+    .selectFrom("properties")
+    .select(["properties.id", "properties.latitude", "properties.longitude", "properties.time_zone"])
+    .where(propertyInScope(actor))
+    .where("properties.id", "=", propertyId)
+    .executeTakeFirst();
+  if (!property) throw notFound("That property");
+  return property;
+}
+
 export interface PropertyWeather {
   status: "ok" | "cached" | "unavailable";
   message: string | null;
@@ -108,13 +121,7 @@ export interface PropertyWeather {
 }
 
 export async function propertyWeather(actor: Actor, propertyId: string): Promise<PropertyWeather> {
-  const property = await db()
-    .selectFrom("properties")
-    .select(["properties.id", "properties.latitude", "properties.longitude", "properties.time_zone"])
-    .where(propertyInScope(actor))
-    .where("properties.id", "=", propertyId)
-    .executeTakeFirst();
-  if (!property) throw notFound("That property");
+  const property = await propertyLocation(actor, propertyId);
   const today = todayIn(property.time_zone);
   const jan1 = `${today.slice(0, 4)}-01-01`;
   const result = await weatherForLocation(weatherProvider(), property.latitude, property.longitude, jan1, addDays(today, 7), today);

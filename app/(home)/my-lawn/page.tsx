@@ -3,13 +3,15 @@ import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { requireActor } from "@/lib/auth/require";
 import { getProperty, listProperties } from "@/lib/properties/queries";
+import { LawnScore } from "@/components/scoring/lawn-score";
+import { propertyScoreHistory } from "@/lib/scoring/queries";
 
 export const metadata: Metadata = { title: "My lawn" };
 
 export default async function MyLawnPage() {
   const actor = await requireActor(["homeowner"]);
   const summaries = await listProperties(actor);
-  const properties = await Promise.all(summaries.map((p) => getProperty(actor, p.id)));
+  const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }) })));
 
   return (
     <>
@@ -25,6 +27,7 @@ export default async function MyLawnPage() {
         properties.map((property) => (
           <section key={property.id} className="mb-10" aria-label={property.name}>
             <PropertyHeader property={property} as="h2" />
+            <LawnScore history={property.scores} />
             <h3 className="mb-3 text-xl font-bold">Your lawn&apos;s zones</h3>
             <ZoneList zones={property.zones} />
           </section>

@@ -8,6 +8,8 @@ import { requireActor } from "@/lib/auth/require";
 import { listProperties } from "@/lib/properties/queries";
 import { propertyKeys } from "@/lib/properties/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
+import { BookSummary } from "@/components/scoring/book-summary";
+import { bookScoring } from "@/lib/scoring/queries";
 
 export const metadata: Metadata = { title: "Properties" };
 
@@ -16,6 +18,7 @@ export default async function PropertiesPage() {
   const queryClient = makeQueryClient();
   await queryClient.prefetchQuery({ queryKey: propertyKeys.list(), queryFn: () => listProperties(actor) });
   const isManager = actor.role === "manager";
+  const book = isManager ? await bookScoring(actor) : null;
 
   return (
     <>
@@ -31,6 +34,7 @@ export default async function PropertiesPage() {
       <p className="mb-6 mt-1 text-muted">
         {isManager ? `Every property ${actor.companyName} serves.` : "The properties assigned to you."}
       </p>
+      {book ? <BookSummary book={book} /> : null}
       <HydrationBoundary state={dehydrate(queryClient)}>
         <PropertyList showTechnician={isManager} />
       </HydrationBoundary>

@@ -23,6 +23,8 @@ import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { listWaterings } from "@/lib/watering/queries";
 import { todayIn } from "@/lib/dates";
 import { listVisits } from "@/lib/visits/queries";
+import { PropertyIndexSection } from "@/components/scoring/property-index-section";
+import { propertyScoreHistory } from "@/lib/scoring/queries";
 
 export const metadata: Metadata = { title: "Property" };
 
@@ -34,11 +36,12 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const [visits, latestPhotos, waterings, weather] = await Promise.all([
+  const [visits, latestPhotos, waterings, weather, scores] = await Promise.all([
     listVisits(actor, { propertyId: property.id }),
     listLatestPhotoPerZone(actor, property.id),
     listWaterings(actor, property.id),
     propertyWeather(actor, property.id),
+    propertyScoreHistory(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
   const nitrogen = await propertyNitrogenByZone(actor, property.id, year);
@@ -94,6 +97,10 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
           <AddZone propertyId={property.id} />
         </div>
       ) : null}
+
+      <div className="mt-10">
+        <PropertyIndexSection history={scores} zoneHref={(zoneId) => `/properties/${property.id}/zones/${zoneId}`} />
+      </div>
 
       {latestPhotos.length ? (
         <>

@@ -12,9 +12,8 @@ import { AppError } from "@/lib/http/app-error";
 import { zoneIdParams } from "@/lib/properties/schemas";
 import { listZonePhotos } from "@/lib/photos/queries";
 import { getZoneHistory } from "@/lib/visits/queries";
-import { indexTrend, trendWord } from "@/lib/scoring/trend";
-import { TREND_THRESHOLD_PER_30_DAYS } from "@/lib/scoring/weights";
-import { addDays } from "@/lib/dates";
+import { ZoneIndexSection } from "@/components/scoring/zone-index-section";
+import { propertyScoreHistory } from "@/lib/scoring/queries";
 
 export const metadata: Metadata = { title: "Zone history" };
 
@@ -31,15 +30,8 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
     throw err;
   });
   if (history.propertyId !== raw.propertyId) notFound();
-  const photos = await listZonePhotos(actor, parsed.data.zoneId);
-  // Trend: least squares over the last 120 days of rated checks (oldest first).
-  const latest = history.entries[0]?.visitedOn;
-  const points = history.entries
-    .filter((e) => e.swardIndex !== null && latest && e.visitedOn >= addDays(latest, -120))
-    .map((e) => ({ date: e.visitedOn, index: e.swardIndex! }))
-    .reverse();
-  const trend = indexTrend(points);
-  const word = trendWord(trend);
+  const [photos, scores] = await Promise.all([listZonePhotos(actor, parsed.data.zoneId), propertyScoreHistory(actor, history.propertyId)]);
+  const zoneScores = scores.zones.find((z) => z.zoneId === parsed.data.zoneId);
 
   return (
     <>
@@ -48,16 +40,13 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
         Back to the property
       </Link>
       <h1 className="text-3xl font-bold">{history.zoneName}: history</h1>
-      <p className="mt-3 rounded-lg border border-line bg-card p-3">
-        {trend && word ? (
-          <>
-            <span className="font-bold capitalize">{word}</span>: {trend.slopePer30Days >= 0 ? "+" : "−"}
-            {Math.abs(trend.slopePer30Days).toFixed(1)} Index points per 30 days over the last 120 days (r² {trend.r2.toFixed(2)}, n {trend.n}). Steady means within ±{TREND_THRESHOLD_PER_30_DAYS} points per 30 days.
-          </>
-        ) : (
-          <>Not enough rated checks for a trend yet (at least 3 in 120 days).</>
-        )}
-      </p>
+      {zoneScores ? (
+        <div className="mt-6">
+          <ZoneIndexSection zone={zoneScores} from={scores.from} to={scores.today} />
+        </div>
+      ) : (
+        <p className="mt-3 rounded-lg border border-line bg-card p-3">This zone is archived: its checks are below; it no longer has a chart.</p>
+      )}
       <h2 className="mb-3 mt-6 text-2xl font-bold">Before and after</h2>
       <BeforeAfter photos={photos} zoneName={history.zoneName} />
       <h2 className="mb-1 mt-8 text-2xl font-bold">Checks</h2>

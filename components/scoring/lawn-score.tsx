@@ -1,0 +1,58 @@
+// The homeowner's view of the Index: one number, the direction in plain words, a simple chart.
+import { SimpleTrendChart } from "@/components/charts/simple-trend-chart";
+import { formatDate } from "@/lib/dates";
+import type { PropertyScoreHistory } from "@/lib/scoring/queries";
+import { ChartFigure, Td, Th } from "./chart-figure";
+
+const SAYING = {
+  improving: "Your lawn is getting healthier.",
+  steady: "Your lawn is holding steady.",
+  declining: "Your lawn has slipped lately. Your technician records what they find at each visit.",
+} as const;
+
+export function LawnScore({ history }: { history: PropertyScoreHistory }) {
+  const latest = history.visits.at(-1);
+  if (!latest) return <p className="mb-6 rounded-lg border border-line bg-card p-4">Your lawn&apos;s health score appears after the first visit.</p>;
+  const word = history.trend?.word ?? null;
+  const change = history.season?.change ?? null;
+  return (
+    <div className="mb-6">
+      <ChartFigure
+        id={`lawn-score-${history.propertyId}`}
+        title="Lawn health score"
+        tableCaption="Lawn health score per visit"
+        summary={
+          <>
+            <p>
+              <span className="text-3xl font-bold text-sward">{Math.round(latest.index)}</span> <span className="text-muted">out of 100, at the visit of {formatDate(latest.date)}.</span>
+            </p>
+            <p>
+              {word ? SAYING[word] : "A direction shows after three visits."}
+              {change !== null && history.season ? ` ${change >= 0 ? "Up" : "Down"} ${Math.abs(Math.round(change))} points since ${formatDate(history.season.from.date)}.` : ""}
+            </p>
+            <p className="text-sm text-muted">The score sums up what your technician rated: colour, thickness, evenness, bare patches, weeds and any disease or insect damage.</p>
+          </>
+        }
+        chart={<SimpleTrendChart label="Lawn health score at each visit" from={history.from} to={history.today} points={history.visits} />}
+        table={
+          <>
+            <thead>
+              <tr>
+                <Th>Visit</Th>
+                <Th>Score</Th>
+              </tr>
+            </thead>
+            <tbody>
+              {history.visits.map((v) => (
+                <tr key={v.visitId}>
+                  <Td>{formatDate(v.date)}</Td>
+                  <Td className="font-bold">{Math.round(v.index)}</Td>
+                </tr>
+              ))}
+            </tbody>
+          </>
+        }
+      />
+    </div>
+  );
+}

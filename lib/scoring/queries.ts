@@ -1,0 +1,219 @@
+// Index history reads: a zone's, a property's and the book's. Rows come from here; every figure
+// is computed by the pure functions of lib/scoring/history.ts. Stored Indexes only (never
+// recomputed at read time); weather through the shared cache of lib/weather/queries.ts.
+import "server-only";
+import { db } from "@/db";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+import { TURF_KC } from "@/lib/agronomy/water";
+import type { Actor } from "@/lib/auth/actor";
+import { addDays, todayIn } from "@/lib/dates";
+import { propertyInScope } from "@/lib/properties/scope";
+import { weatherProvider } from "@/lib/services/weather/instance";
+import { type DerivedDay, deriveDays } from "@/lib/weather/derived";
+import { propertyLocation, weatherForLocation } from "@/lib/weather/queries";
+import {
+  type CheckPoint,
+  type NitrogenEvent,
+  type PropertyVisitIndex,
+  type SeasonChange,
+  type Trend,
+  type ZoneCorrelations,
+  MIN_CHECKS_FOR_CORRELATION,
+  indexDistribution,
+  propertyIndexByVisit,
+  propertyNitrogenEvents,
+  recentTrend,
+  seasonChange,
+  zoneCorrelations,
+} from "./history";
+
+/** How far back histories reach: one year of checks (charts start at the first of them). */
+export const HISTORY_DAYS = 365;
+
+export interface DailyWater {
+  date: string;
+  wateringIn: number;
+}
+
+export interface ZoneScoreHistory {
+  zoneId: string;
+  name: string;
+  areaFt2: number;
+  points: CheckPoint[];
+  applications: NitrogenEvent[];
+  waterings: DailyWater[];
+  trend: Trend | null;
+  season: SeasonChange | null;
+  correlations: ZoneCorrelations;
+}
+
+export interface PropertyScoreHistory {
+  propertyId: string;
+  today: string;
+  from: string;
+  weather: { status: "ok" | "cached" | "unavailable"; message: string | null; days: DerivedDay[] };
+  visits: (PropertyVisitIndex & { hasPhoto: boolean })[];
+  applications: NitrogenEvent[];
+  trend: Trend | null;
+  season: SeasonChange | null;
+  zones: ZoneScoreHistory[];
+}
+
+/** Everything the Index charts of a property need: per visit, per zone, with weather. */
+export async function propertyScoreHistory(actor: Actor, propertyId: string, options: { weather?: boolean } = {}): Promise<PropertyScoreHistory> {
+  const property = await propertyLocation(actor, propertyId);
+  const today = todayIn(property.time_zone);
+  const since = addDays(today, -HISTORY_DAYS);
+  const companyId = actor.companyId;
+
+  const [zones, checks, applications, waterings] = await Promise.all([
+    db().selectFrom("zones").select(["id", "name", "area_ft2", "grass_species"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("archived_at", "is", null).orderBy("sort_order").orderBy("name").execute(),
+    db()
+      .selectFrom("zone_checks")
+      .innerJoin("visits", "visits.id", "zone_checks.visit_id")
+      .select(["zone_checks.id", "zone_checks.zone_id", "zone_checks.visit_id", "zone_checks.sward_index", "visits.scheduled_for"])
+      .select((eb) => eb.exists(eb.selectFrom("photos").select("photos.id").whereRef("photos.zone_check_id", "=", "zone_checks.id")).as("has_photo"))
+      .where("zone_checks.company_id", "=", companyId)
+      .where("visits.property_id", "=", propertyId)
+      .where("visits.status", "!=", "cancelled")
+      .where("visits.scheduled_for", ">=", since)
+      .where("zone_checks.sward_index", "is not", null)
+      .orderBy("visits.scheduled_for")
+      .execute(),
+    db()
+      .selectFrom("applications")
+      .innerJoin("visits", "visits.id", "applications.visit_id")
+      .innerJoin("products", "products.id", "applications.product_id")
+      .select(["applications.zone_id", "applications.applied_on", "applications.n_lb_per_1000", "applications.wsn_lb_per_1000", "applications.area_ft2", "products.name as product_name"])
+      .where("applications.company_id", "=", companyId)
+      .where("visits.property_id", "=", propertyId)
+      .where("applications.applied_on", ">=", addDays(since, -60))
+      .orderBy("applications.applied_on")
+      .execute(),
+    db()
+      .selectFrom("waterings")
+      .select(["zone_id", "watered_on", "depth_in"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("watered_on", ">=", addDays(since, -15))
+      .execute(),
+  ]);
+
+  const first = checks[0]?.scheduled_for ?? today;
+  const from = addDays(first, -7) < since ? since : addDays(first, -7);
+  // Weather from 15 days before the first check, for the 14-day balance the day before it.
+  const weather =
+    options.weather === false
+      ? { days: [], status: "unavailable" as const, message: null }
+      : await weatherForLocation(weatherProvider(), property.latitude, property.longitude, addDays(first, -15), today, today);
+
+  const lawnArea = zones.reduce((s, z) => s + Number(z.area_ft2), 0);
+  const zoneHistories: ZoneScoreHistory[] = zones.map((z) => {
+    const own = checks.filter((c) => c.zone_id === z.id);
+    const points: CheckPoint[] = own.map((c) => ({ date: c.scheduled_for, index: c.sward_index!, visitId: c.visit_id, hasPhoto: Boolean(c.has_photo) }));
+    const apps: NitrogenEvent[] = applications
+      .filter((a) => a.zone_id === z.id)
+      .map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: a.product_name }));
+    const wateringByDate: Record<string, number> = {};
+    for (const w of waterings) if (w.zone_id === null || w.zone_id === z.id) wateringByDate[w.watered_on] = (wateringByDate[w.watered_on] ?? 0) + Number(w.depth_in);
+    const kc = TURF_KC[findGrassSpecies(z.grass_species)?.season ?? "cool"];
+    const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc, wateringInByDate: wateringByDate });
+    return {
+      zoneId: z.id,
+      name: z.name,
+      areaFt2: Number(z.area_ft2),
+      points,
+      applications: apps,
+      waterings: Object.entries(wateringByDate)
+        .filter(([date]) => date >= from)
+        .map(([date, wateringIn]) => ({ date, wateringIn }))
+        .sort((a, b) => a.date.localeCompare(b.date)),
+      trend: recentTrend(points),
+      season: seasonChange(points),
+      correlations: zoneCorrelations(points, apps, days),
+    };
+  });
+
+  const areaOf = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
+  const visits = propertyIndexByVisit(checks.filter((c) => areaOf.has(c.zone_id)).map((c) => ({ visitId: c.visit_id, date: c.scheduled_for, index: c.sward_index!, areaFt2: areaOf.get(c.zone_id)! }))).map((v) => ({
+    ...v,
+    hasPhoto: checks.some((c) => c.visit_id === v.visitId && c.has_photo),
+  }));
+  const propertyApps = propertyNitrogenEvents(
+    applications.map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: a.product_name, areaFt2: Number(a.area_ft2) })),
+    lawnArea,
+  ).filter((a) => a.date >= from);
+
+  // Weather for the charts: the property's mean Kc (area-weighted) for turf use.
+  const kc = lawnArea ? zones.reduce((s, z) => s + TURF_KC[findGrassSpecies(z.grass_species)?.season ?? "cool"] * Number(z.area_ft2), 0) / lawnArea : TURF_KC.cool;
+  const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc, wateringInByDate: {} }).filter((d) => d.date >= from && d.date <= today);
+  const indexPoints = visits.map((v) => ({ date: v.date, index: v.index }));
+
+  return {
+    propertyId,
+    today,
+    from,
+    weather: { status: weather.status, message: weather.message, days },
+    visits,
+    applications: propertyApps,
+    trend: recentTrend(indexPoints),
+    season: seasonChange(indexPoints),
+    zones: zoneHistories.map((z) => ({ ...z, applications: z.applications.filter((a) => a.date >= from) })),
+  };
+}
+
+export interface BookScoring {
+  properties: { propertyId: string; name: string; latest: PropertyVisitIndex | null; trend: Trend | null }[];
+  distribution: { from: number; to: number; count: number }[];
+  zonesWithEnoughChecks: number;
+  zonesRespondingToN: number;
+  zonesTotal: number;
+}
+
+/**
+ * Across the book (managers): the latest property index and trend of each property, their
+ * distribution, and the share of zones whose Index follows the nitrogen available to them.
+ * Water balance is left out here: it needs the weather of every place, and N is the question
+ * the book view answers (which lawns a feeding programme helps).
+ */
+export async function bookScoring(actor: Actor): Promise<BookScoring> {
+  const companyId = actor.companyId;
+  const since = addDays(todayIn(actor.companyTimeZone), -HISTORY_DAYS);
+  const [properties, zones, checks, applications] = await Promise.all([
+    db().selectFrom("properties").select(["id", "name"]).where(propertyInScope(actor)).where("archived_at", "is", null).orderBy("name").execute(),
+    db().selectFrom("zones").innerJoin("properties", "properties.id", "zones.property_id").select(["zones.id", "zones.property_id", "zones.area_ft2"]).where(propertyInScope(actor)).where("zones.archived_at", "is", null).where("properties.archived_at", "is", null).execute(),
+    db()
+      .selectFrom("zone_checks")
+      .innerJoin("visits", "visits.id", "zone_checks.visit_id")
+      .select(["zone_checks.zone_id", "zone_checks.visit_id", "zone_checks.sward_index", "visits.scheduled_for", "visits.property_id"])
+      .where("zone_checks.company_id", "=", companyId)
+      .where("visits.status", "!=", "cancelled")
+      .where("visits.scheduled_for", ">=", since)
+      .where("zone_checks.sward_index", "is not", null)
+      .execute(),
+    db().selectFrom("applications").select(["zone_id", "applied_on", "n_lb_per_1000", "wsn_lb_per_1000"]).where("company_id", "=", companyId).where("applied_on", ">=", addDays(since, -60)).execute(),
+  ]);
+  const zoneArea = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
+  const result = properties.map((p) => {
+    const visits = propertyIndexByVisit(
+      checks.filter((c) => c.property_id === p.id && zoneArea.has(c.zone_id)).map((c) => ({ visitId: c.visit_id, date: c.scheduled_for, index: c.sward_index!, areaFt2: zoneArea.get(c.zone_id)! })),
+    );
+    return { propertyId: p.id, name: p.name, latest: visits.at(-1) ?? null, trend: recentTrend(visits) };
+  });
+  let enough = 0;
+  let responding = 0;
+  for (const z of zones) {
+    const points = checks.filter((c) => c.zone_id === z.id).map((c) => ({ date: c.scheduled_for, index: c.sward_index! }));
+    const apps = applications.filter((a) => a.zone_id === z.id).map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: "" }));
+    const c = zoneCorrelations(points, apps, []);
+    if (c.n >= MIN_CHECKS_FOR_CORRELATION) enough++;
+    if (c.respondsToNitrogen) responding++;
+  }
+  return {
+    properties: result,
+    distribution: indexDistribution(result.flatMap((p) => (p.latest ? [p.latest.index] : []))),
+    zonesWithEnoughChecks: enough,
+    zonesRespondingToN: responding,
+    zonesTotal: zones.length,
+  };
+}
