@@ -340,6 +340,49 @@ export interface WeatherDaysTable {
   fetched_at: Generated<Date>;
 }
 
+export type AlertStatus = "open" | "acknowledged" | "resolved";
+export type AlertSeverity = "low" | "moderate" | "high";
+export type AlertEventAction = "raised" | "reopened" | "updated" | "acknowledged" | "resolved" | "auto_resolved" | "cleared" | "returned";
+
+export interface RiskAlertsTable {
+  id: Generated<string>;
+  company_id: string;
+  property_id: string;
+  zone_id: string | null;
+  kind: string;
+  status: ColumnType<AlertStatus, AlertStatus | undefined, AlertStatus>;
+  severity: AlertSeverity;
+  summary: string;
+  evidence: ColumnType<unknown, string, string>;
+  source: string;
+  raised_on: ColumnType<string, string, string>;
+  last_seen_on: ColumnType<string, string, string>;
+  clear_since: ColumnType<string | null, string | null | undefined, string | null>;
+  raised_by_visit_id: string | null;
+  previous_alert_id: string | null;
+  acknowledged_at: NullableTimestamp;
+  acknowledged_by: string | null;
+  resolved_at: NullableTimestamp;
+  resolved_by: string | null;
+  resolution: "manual" | "auto" | null;
+  notified_at: NullableTimestamp;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export interface RiskAlertEventsTable {
+  id: Generated<string>;
+  alert_id: string;
+  company_id: string;
+  at: Generated<Date>;
+  actor_id: string | null;
+  action: AlertEventAction;
+  from_status: AlertStatus | null;
+  to_status: AlertStatus | null;
+  note: Generated<string>;
+  details: ColumnType<unknown, string | undefined, string>;
+}
+
 export interface Database {
   companies: CompaniesTable;
   users: UsersTable;
@@ -360,6 +403,8 @@ export interface Database {
   applications: ApplicationsTable;
   waterings: WateringsTable;
   weather_days: WeatherDaysTable;
+  risk_alerts: RiskAlertsTable;
+  risk_alert_events: RiskAlertEventsTable;
 }
 
 export type Company = Selectable<CompaniesTable>;
@@ -396,3 +441,5 @@ export type NewProduct = Insertable<ProductsTable>;
 export type Application = Selectable<ApplicationsTable>;
 export type Watering = Selectable<WateringsTable>;
 export type WeatherDay = Selectable<WeatherDaysTable>;
+export type RiskAlert = Selectable<RiskAlertsTable>;
+export type NewRiskAlert = Insertable<RiskAlertsTable>;

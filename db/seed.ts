@@ -5,6 +5,7 @@ import { createDb, localDatabaseUrl } from "./client";
 import { recomputeAllIndexes } from "@/lib/scoring/store-index";
 import { seedDemoPhotos } from "./seed-photos";
 import { ensureDemoDay, removeCompany, seedCompany } from "./seed-scenario";
+import { evaluateProperty } from "@/lib/risk/evaluate";
 
 const isReset = process.argv.includes("--reset");
 const db = createDb(process.env.DATABASE_URL ?? localDatabaseUrl("sward"), { max: 2 });
@@ -20,7 +21,10 @@ try {
     const seeded = await seedCompany(db, company, DEMO_PASSWORD);
     const photos = company.schedule ? await seedDemoPhotos(db, company.slug, process.env.PHOTO_DIR ?? ".data/photos") : 0;
     if (photos) await recomputeAllIndexes(db); // the demo photos are part of their checks' Index
-    console.log(`seed: ${company.name}: ${company.people.length} sign-ins, ${Object.keys(seeded.propertyIds).length} properties, ${photos} photos`);
+    // Alerts from what the season recorded (the worker adds the weather-driven ones when it runs).
+    let alerts = 0;
+    for (const propertyId of Object.values(seeded.propertyIds)) alerts += (await evaluateProperty(db, seeded.companyId, propertyId, { provider: null })).raised;
+    console.log(`seed: ${company.name}: ${company.people.length} sign-ins, ${Object.keys(seeded.propertyIds).length} properties, ${photos} photos, ${alerts} open alerts`);
   }
 } catch (err) {
   console.error("seed: failed:", err instanceof Error ? err.message : err);

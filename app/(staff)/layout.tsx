@@ -1,4 +1,4 @@
-import { CalendarDays, ClipboardList, FileSpreadsheet, FlaskConical, Gavel, Trees } from "lucide-react";
+import { Bell, CalendarDays, ClipboardList, FileSpreadsheet, FlaskConical, Gavel, Trees } from "lucide-react";
 import type { ReactNode } from "react";
 import { AppShell, type NavItem } from "@/components/shell/app-shell";
 import { requireActor } from "@/lib/auth/require";
@@ -9,6 +9,7 @@ export default async function StaffLayout({ children }: { children: ReactNode })
     actor.role === "manager"
       ? [
           { href: "/properties", label: "Properties", icon: Trees },
+          { href: "/alerts", label: "Alerts", icon: Bell },
           { href: "/visits", label: "Visits", icon: ClipboardList },
           { href: "/products", label: "Products", icon: FlaskConical },
           { href: "/rule-sets", label: "Rule sets", icon: Gavel },
@@ -17,6 +18,7 @@ export default async function StaffLayout({ children }: { children: ReactNode })
       : [
           { href: "/today", label: "Today", icon: CalendarDays },
           { href: "/properties", label: "My properties", icon: Trees },
+          { href: "/alerts", label: "Alerts", icon: Bell },
         ];
   return (
     <AppShell actor={actor} nav={nav}>

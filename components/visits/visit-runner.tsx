@@ -4,7 +4,7 @@
 import { useQueryClient } from "@tanstack/react-query";
 import { ArrowLeft, ArrowRight, CheckCheck, MapPin, Play } from "lucide-react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useState } from "react";
+import { type ReactNode, useState } from "react";
 import { findGrassSpecies } from "@/fixtures/grass-species";
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { Button } from "@/components/ui/button";
@@ -30,7 +30,7 @@ function currentPosition(): Promise<{ latitude: number | null; longitude: number
   });
 }
 
-export function VisitRunner({ visitId, isManager }: { visitId: string; isManager: boolean }) {
+export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; isManager: boolean; alerts?: ReactNode }) {
   const { data: visit } = useVisit(visitId);
   const mergeCheck = useMergeZoneCheck(visitId);
   const mergePhoto = useMergePhoto(visitId);
@@ -71,6 +71,7 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
       setVisit(result.data);
       void queryClient.invalidateQueries({ queryKey: visitKeys.all });
       openZone(null);
+      router.refresh(); // the alerts raised by this visit come from the server
     } else setMessage(result.error.message);
   }
 
@@ -101,6 +102,7 @@ export function VisitRunner({ visitId, isManager }: { visitId: string; isManager
     return (
       <>
         {header}
+        {alerts}
         <VisitSummary visit={visit} isManager={isManager} onEditZone={isManager ? openZone : undefined} />
       </>
     );

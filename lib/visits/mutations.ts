@@ -11,6 +11,7 @@ import { AppError, notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { fillVisitWeather } from "@/lib/weather/mutations";
+import { evaluateAfterVisit } from "@/lib/risk/mutations";
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
@@ -231,6 +232,8 @@ export async function finishVisit(actor: Actor, visitId: string): Promise<VisitD
         .execute();
       await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "finish", changes: { status: { from: visit.status, to: "completed" } } });
     });
+  // Alerts for the property now, so the technician sees them on the summary before leaving.
+  await evaluateAfterVisit(actor, visitId);
   return getVisit(actor, visitId);
 }
 

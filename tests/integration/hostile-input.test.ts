@@ -12,6 +12,8 @@ import { applicationSchema } from "@/lib/applications/schemas";
 import { productSchema } from "@/lib/products/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import { wateringSchema } from "@/lib/watering/schemas";
+import { acknowledgeSchema, resolveSchema } from "@/lib/risk/schemas";
+import { evaluateProperty } from "@/lib/risk/evaluate";
 import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
@@ -20,7 +22,7 @@ vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
 
 const RUNS = Number(process.env.HOSTILE_RUNS ?? 1000);
 let c: TestCompany;
-let ids: { propertyId: string; zoneId: string; visitId: string; techId: string; productId: string; ruleSetId: string };
+let ids: { propertyId: string; zoneId: string; visitId: string; techId: string; productId: string; ruleSetId: string; alertId: string };
 
 beforeAll(async () => {
   c = await createTestCompany();
@@ -28,7 +30,9 @@ beforeAll(async () => {
   const visit = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
   const productRow = await testDb().selectFrom("products").select("id").where("company_id", "=", c.companyId).executeTakeFirstOrThrow();
   const ruleSetRow = await testDb().selectFrom("rule_sets").select("id").where("company_id", "=", c.companyId).executeTakeFirstOrThrow();
-  ids = { propertyId: c.propertyIds["haddad"]!, zoneId: zone.id, visitId: visit.id, techId: c.userIds["tech1"]!, productId: productRow.id, ruleSetId: ruleSetRow.id };
+  await evaluateProperty(testDb(), c.companyId, c.propertyIds["haddad"]!, { provider: null }); // the demo season raises a declining-Index alert
+  const alert = await testDb().selectFrom("risk_alerts").select("id").where("company_id", "=", c.companyId).executeTakeFirstOrThrow();
+  ids = { propertyId: c.propertyIds["haddad"]!, zoneId: zone.id, visitId: visit.id, techId: c.userIds["tech1"]!, productId: productRow.id, ruleSetId: ruleSetRow.id, alertId: alert.id };
 });
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
@@ -60,6 +64,8 @@ const endpoints: Endpoint[] = [
   { name: "PUT /rule-sets/:id", load: () => import("@/app/api/v1/rule-sets/[ruleSetId]/route"), method: "PUT", params: () => ({ ruleSetId: ids.ruleSetId }), schema: ruleSetSchema, valid: () => ({ name: "R", citation: "", limitsAreLaw: true, maxNLbPer1000: 0.9, maxWsnLbPer1000: 0.7, minSlowReleasePct: 20, proBlackout: ["12-01", "03-01"], homeownerBlackout: null, phosphorusRule: "soil_test_or_establishment", soilTestMaxAgeYears: 3, recordRetentionYears: 2, recordRequiredFields: [], recordFieldsApplyTo: "all" }) },
   { name: "POST /visits/:id/applications", load: () => import("@/app/api/v1/visits/[visitId]/applications/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: applicationSchema, valid: () => ({ id: newId(), zoneId: ids.zoneId, productId: ids.productId, rateAmount: 2, rateUnit: "lb/1000ft2", windMph: null, temperatureF: null, isEstablishing: false, applicatorName: "", applicatorLicence: "", overrideReason: null }) },
   { name: "POST /properties/:id/waterings", load: () => import("@/app/api/v1/properties/[propertyId]/waterings/route"), method: "POST", params: () => ({ propertyId: ids.propertyId }), schema: wateringSchema as unknown as z.ZodObject, valid: () => ({ id: newId(), zoneId: null, wateredOn: "2026-07-01", depthIn: 0.5, runMinutes: null, precipitationRateInPerHour: null, notes: "" }) },
+  { name: "POST /alerts/:id/acknowledge", load: () => import("@/app/api/v1/alerts/[alertId]/acknowledge/route"), method: "POST", params: () => ({ alertId: ids.alertId }), schema: acknowledgeSchema, valid: () => ({ note: "Looked at it" }) },
+  { name: "POST /alerts/:id/resolve", load: () => import("@/app/api/v1/alerts/[alertId]/resolve/route"), method: "POST", params: () => ({ alertId: ids.alertId }), schema: resolveSchema, valid: () => ({ note: "Sprayed" }) },
 ];
 
 const junk = fc.oneof(
@@ -110,7 +116,9 @@ async function tableCounts(): Promise<string> {
     union all select 'visits', count(*)::int from visits union all select 'zone_checks', count(*)::int from zone_checks
     union all select 'users', count(*)::int from users union all select 'audit', count(*)::int from audit_events
     union all select 'products', count(*)::int from products union all select 'rule_sets', count(*)::int from rule_sets
-    union all select 'applications', count(*)::int from applications union all select 'waterings', count(*)::int from waterings`.execute(testDb());
+    union all select 'applications', count(*)::int from applications union all select 'waterings', count(*)::int from waterings
+    union all select 'alerts', count(*)::int from risk_alerts union all select 'alert_events', count(*)::int from risk_alert_events
+    union all select 'alerts_open', count(*)::int from risk_alerts where status = 'open'`.execute(testDb());
   return JSON.stringify(rows);
 }
 

@@ -25,6 +25,8 @@ import { todayIn } from "@/lib/dates";
 import { listVisits } from "@/lib/visits/queries";
 import { PropertyIndexSection } from "@/components/scoring/property-index-section";
 import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { AlertList } from "@/components/alerts/alert-list";
+import { propertyAlerts } from "@/lib/risk/queries";
 
 export const metadata: Metadata = { title: "Property" };
 
@@ -36,12 +38,13 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const [visits, latestPhotos, waterings, weather, scores] = await Promise.all([
+  const [visits, latestPhotos, waterings, weather, scores, alerts] = await Promise.all([
     listVisits(actor, { propertyId: property.id }),
     listLatestPhotoPerZone(actor, property.id),
     listWaterings(actor, property.id),
     propertyWeather(actor, property.id),
     propertyScoreHistory(actor, property.id),
+    propertyAlerts(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
   const nitrogen = await propertyNitrogenByZone(actor, property.id, year);
@@ -80,6 +83,13 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
           <p className="text-sm font-semibold text-muted">Time zone</p>
           <p className="text-lg">{property.timeZone.replaceAll("_", " ")}</p>
         </div>
+      </section>
+
+      <section aria-labelledby="alerts-title" className="mb-8">
+        <h2 id="alerts-title" className="mb-3 text-2xl font-bold">
+          Alerts
+        </h2>
+        <AlertList alerts={alerts} canResolve={isManager} timeZone={property.timeZone} empty="No open alerts for this property." />
       </section>
 
       <h2 className="mb-3 text-2xl font-bold">Zones</h2>

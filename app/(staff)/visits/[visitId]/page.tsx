@@ -10,6 +10,8 @@ import { getVisit } from "@/lib/visits/queries";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { visitIdParams } from "@/lib/visits/schemas";
 import { fillVisitWeather } from "@/lib/weather/mutations";
+import { AlertList } from "@/components/alerts/alert-list";
+import { propertyAlerts } from "@/lib/risk/queries";
 
 export const metadata: Metadata = { title: "Visit" };
 
@@ -22,13 +24,25 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
+  const alerts = (await propertyAlerts(actor, visit.propertyId)).filter((a) => a.status !== "resolved");
   const queryClient = makeQueryClient();
   queryClient.setQueryData(visitKeys.detail(visit.id), visit);
 
   return (
     <HydrationBoundary state={dehydrate(queryClient)}>
       <Suspense>
-        <VisitRunner visitId={visit.id} isManager={actor.role === "manager"} />
+        <VisitRunner
+          visitId={visit.id}
+          isManager={actor.role === "manager"}
+          alerts={
+            <section aria-labelledby="visit-alerts-title" className="mb-6">
+              <h2 id="visit-alerts-title" className="mb-2 text-xl font-bold">
+                Alerts for this property
+              </h2>
+              <AlertList alerts={alerts} canResolve={actor.role === "manager"} timeZone={visit.timeZone} empty="Nothing raised: no open alerts for this property." />
+            </section>
+          }
+        />
       </Suspense>
     </HydrationBoundary>
   );

@@ -1,0 +1,98 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { AlertList } from "@/components/alerts/alert-list";
+import { buttonClass } from "@/components/ui/button";
+import { inputClass } from "@/components/ui/field";
+import { requireActor } from "@/lib/auth/require";
+import { listPeople } from "@/lib/people/queries";
+import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
+import { listAlerts } from "@/lib/risk/queries";
+import { alertFilters } from "@/lib/risk/schemas";
+
+export const metadata: Metadata = { title: "Alerts" };
+
+const STATUS_OPTIONS = { live: "Open or acknowledged", open: "Open", acknowledged: "Acknowledged", resolved: "Resolved", all: "All" } as const;
+
+export default async function AlertsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const actor = await requireActor(["manager", "technician"]);
+  const raw = await searchParams;
+  const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v) || undefined;
+  const filters = alertFilters.parse({ kind: first(raw.kind), severity: first(raw.severity), status: first(raw.status), technician: first(raw.technician), area: first(raw.area) });
+  const [alerts, technicians] = await Promise.all([listAlerts(actor, filters), actor.role === "manager" ? listPeople(actor, "technician") : Promise.resolve([])]);
+  const isFiltered = Object.values(filters).some((v) => v !== undefined);
+  const counts = { high: alerts.filter((a) => a.severity === "high").length, moderate: alerts.filter((a) => a.severity === "moderate").length, low: alerts.filter((a) => a.severity === "low").length };
+
+  return (
+    <>
+      <h1 className="text-3xl font-bold">Alerts</h1>
+      <p className="mb-4 mt-1 text-muted">
+        {actor.role === "manager" ? `Risks Sward has raised across ${actor.companyName}'s book` : "Risks raised on your properties"}, with their evidence. Checked when a visit is finished and every morning.
+      </p>
+      <form method="get" className="mb-4 grid gap-3 rounded-xl border border-line bg-card p-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="Filter alerts">
+        <label className="space-y-1">
+          <span className="block text-sm font-semibold">Kind</span>
+          <select name="kind" defaultValue={filters.kind ?? ""} className={inputClass}>
+            <option value="">Any kind</option>
+            {Object.entries(ALERT_KINDS).map(([k, v]) => (
+              <option key={k} value={k}>
+                {v}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="space-y-1">
+          <span className="block text-sm font-semibold">Severity</span>
+          <select name="severity" defaultValue={filters.severity ?? ""} className={inputClass}>
+            <option value="">Any severity</option>
+            {Object.entries(SEVERITIES).map(([k, v]) => (
+              <option key={k} value={k}>
+                {v}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="space-y-1">
+          <span className="block text-sm font-semibold">Status</span>
+          <select name="status" defaultValue={filters.status ?? "live"} className={inputClass}>
+            {Object.entries(STATUS_OPTIONS).map(([k, v]) => (
+              <option key={k} value={k}>
+                {v}
+              </option>
+            ))}
+          </select>
+        </label>
+        {actor.role === "manager" ? (
+          <label className="space-y-1">
+            <span className="block text-sm font-semibold">Technician</span>
+            <select name="technician" defaultValue={filters.technician ?? ""} className={inputClass}>
+              <option value="">Anyone</option>
+              {technicians.map((t) => (
+                <option key={t.id} value={t.id}>
+                  {t.name}
+                </option>
+              ))}
+            </select>
+          </label>
+        ) : null}
+        <label className="space-y-1">
+          <span className="block text-sm font-semibold">Area (town or ZIP)</span>
+          <input name="area" defaultValue={filters.area ?? ""} className={inputClass} maxLength={80} />
+        </label>
+        <div className="flex items-end gap-2">
+          <button type="submit" className={buttonClass("primary", "w-full")}>
+            Show
+          </button>
+          {isFiltered ? (
+            <Link href="/alerts" className={buttonClass("quiet", "no-underline")}>
+              Clear
+            </Link>
+          ) : null}
+        </div>
+      </form>
+      <p className="mb-3 font-semibold" role="status">
+        {alerts.length} {alerts.length === 1 ? "alert" : "alerts"}: {counts.high} high, {counts.moderate} moderate, {counts.low} low.
+      </p>
+      <AlertList alerts={alerts} canResolve={actor.role === "manager"} timeZone={actor.companyTimeZone} showProperty empty={isFiltered ? "No alert matches these filters." : "No open alerts. Sward checks again every morning."} />
+    </>
+  );
+}

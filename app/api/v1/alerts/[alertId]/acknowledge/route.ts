@@ -1,0 +1,8 @@
+// POST /api/v1/alerts/:alertId/acknowledge — { note } (technician or manager); acknowledging twice is harmless.
+import { route } from "@/lib/auth/guards";
+import { acknowledgeAlert } from "@/lib/risk/mutations";
+import { acknowledgeSchema, alertIdParams } from "@/lib/risk/schemas";
+
+export const POST = route({ access: ["manager", "technician"], params: alertIdParams, body: acknowledgeSchema, resource: "That alert" }, async ({ actor, params, body }) =>
+  acknowledgeAlert(actor, params.alertId, body.note),
+);

@@ -1,0 +1,68 @@
+// Names of alert kinds, severities and statuses in words (shared by pages and e-mails).
+import type { AlertKind, Severity } from "./rules";
+
+export const ALERT_KINDS: Record<AlertKind, string> = {
+  matted_canopy: "Matted canopy: fungus risk",
+  dollar_spot_weather: "Dollar spot weather",
+  brown_patch_weather: "Brown patch weather",
+  pythium_weather: "Pythium blight weather",
+  drought_stress: "Drought stress",
+  heat_feeding: "Feeding under heat stress",
+  over_application: "Over-application",
+  blackout_application: "Application in a blackout period",
+  mowing_too_short: "Mowing too short",
+  torn_tips: "Torn tips (dull blade)",
+  declining_index: "Declining Index",
+  late_season_feeding: "Late-season feeding due",
+};
+
+export const SEVERITIES: Record<Severity, string> = { high: "High", moderate: "Moderate", low: "Low" };
+export const SEVERITY_ORDER: Record<Severity, number> = { high: 0, moderate: 1, low: 2 };
+export const ALERT_STATUSES = { open: "Open", acknowledged: "Acknowledged", resolved: "Resolved" } as const;
+
+export const alertKindLabel = (kind: string) => (ALERT_KINDS as Record<string, string>)[kind] ?? kind;
+
+/** The evidence values of the rules, in words (unknown keys show as they are). */
+export const EVIDENCE_LABELS: Record<string, string> = {
+  sameDirectionChecks: "Of the last 3 checks, mowed the same way",
+  mattingSeen: "Matting seen",
+  diseaseSeen: "Disease already showing",
+  tMean5dC: "5-day mean temperature (°C)",
+  rhMean5dPct: "5-day mean humidity (%)",
+  probabilityPct: "Probability (%)",
+  highestIndex: "Highest index",
+  on: "On",
+  tmaxC: "High (°C)",
+  tminC: "Low (°C)",
+  hoursRhAbove90: "Hours above 90 % humidity (estimated)",
+  days: "Days looked at",
+  balance14In: "14-day water balance (in)",
+  forecastRainIn: "Rain forecast, next 3 days (in)",
+  wiltSeen: "Wilt seen",
+  appliedOn: "Applied on",
+  nLb: "N applied (lb / 1,000 ft²)",
+  highestF: "Highest temperature (°F)",
+  rainIn: "Rain (in)",
+  yearToDateNLb: "N this year (lb / 1,000 ft²)",
+  speciesMaxLb: "Top of the species' range (lb / 1,000 ft² a year)",
+  limitBreaches: "Applications over a limit",
+  applications: "Applications",
+  dates: "Dates",
+  heightOfCutIn: "Height of cut (in)",
+  previousIn: "Previous check's cut (in)",
+  speciesMinIn: "Bottom of the species' range (in)",
+  scalped: "Scalping seen",
+  tornTipsSeen: "Torn tips seen",
+  slopePer30Days: "Trend (points per 30 days)",
+  r2: "r²",
+  n: "Checks",
+  nSinceSep1Lb: "N since 1 September (lb / 1,000 ft²)",
+  season: "Grass type",
+};
+
+export function evidenceValue(v: unknown): string {
+  if (v === null || v === undefined) return "—";
+  if (typeof v === "boolean") return v ? "yes" : "no";
+  if (typeof v === "number") return v < 0 ? `−${Math.abs(v)}` : String(v);
+  return String(v);
+}

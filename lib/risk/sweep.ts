@@ -1,0 +1,46 @@
+// The daily sweep: every property of every company evaluated on its own local date. A property
+// that fails is logged and the sweep goes on; the sweep then fails as a whole so the job queue
+// retries it (evaluation is idempotent, so properties done the first time change nothing).
+import type { Kysely } from "kysely";
+import type { Database } from "@/db/schema";
+import type { WeatherProvider } from "@/lib/services/weather/provider";
+import { evaluateProperty } from "./evaluate";
+
+export interface SweepResult {
+  properties: number;
+  failed: number;
+  raised: number;
+  reopened: number;
+  updated: number;
+  cleared: number;
+  autoResolved: number;
+  ms: number;
+}
+
+export async function sweepBook(executor: Kysely<Database>, provider: WeatherProvider | null, options: { onError?: (propertyId: string, err: unknown) => void } = {}): Promise<SweepResult> {
+  const started = Date.now();
+  const properties = await executor.selectFrom("properties").select(["id", "company_id"]).where("archived_at", "is", null).orderBy("company_id").orderBy("id").execute();
+  const result: SweepResult = { properties: properties.length, failed: 0, raised: 0, reopened: 0, updated: 0, cleared: 0, autoResolved: 0, ms: 0 };
+  for (const p of properties) {
+    try {
+      const s = await evaluateProperty(executor, p.company_id, p.id, { provider });
+      result.raised += s.raised;
+      result.reopened += s.reopened;
+      result.updated += s.updated;
+      result.cleared += s.cleared;
+      result.autoResolved += s.autoResolved;
+    } catch (err) {
+      result.failed++;
+      options.onError?.(p.id, err);
+    }
+  }
+  result.ms = Date.now() - started;
+  if (result.failed) throw new SweepIncomplete(result);
+  return result;
+}
+
+export class SweepIncomplete extends Error {
+  constructor(readonly result: SweepResult) {
+    super(`risk sweep: ${result.failed} of ${result.properties} properties failed`);
+  }
+}

@@ -1,0 +1,182 @@
+// Risk alerts end to end below the UI: evaluation of the demo season raises the alerts its story
+// explains; evaluating or sweeping twice changes nothing (one live alert per condition); the
+// lifecycle (acknowledge with a note, resolve by a manager, auto-resolve after a clear week,
+// recurrence as a new episode); scope; and the pg-boss queue retrying a failed sweep.
+import PgBoss from "pg-boss";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+import type { Actor } from "@/lib/auth/actor";
+import { otherCompany } from "@/fixtures/demo-scenario";
+import { addDays, todayIn } from "@/lib/dates";
+import { evaluateProperty } from "@/lib/risk/evaluate";
+import { SWEEP_QUEUE, registerRiskSweep } from "@/lib/risk/jobs";
+import { AUTO_RESOLVE_AFTER_DAYS } from "@/lib/risk/lifecycle";
+import { acknowledgeAlert, resolveAlert } from "@/lib/risk/mutations";
+import { listAlerts, propertyAlerts } from "@/lib/risk/queries";
+import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+let current: Actor | null = null;
+vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
+
+let c: TestCompany;
+let other: TestCompany;
+const today = todayIn("America/New_York");
+const evaluateAll = async (at?: string) => {
+  for (const id of Object.values(c.propertyIds)) await evaluateProperty(testDb(), c.companyId, id, { provider: null, at });
+};
+const liveAlerts = () => testDb().selectFrom("risk_alerts").selectAll().where("company_id", "=", c.companyId).where("status", "!=", "resolved").orderBy("kind").orderBy("zone_id").execute();
+
+beforeAll(async () => {
+  [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
+  await evaluateAll();
+});
+
+describe("evaluation of the demo season", () => {
+  it("raises what the story explains: the three declining zones, the dull blade, the shaded zone's N", async () => {
+    const alerts = await listAlerts(await c.actor("manager"), {});
+    const names = alerts.map((a) => `${a.property.name.split(" ")[0]}/${a.zone?.name ?? "-"}: ${a.kind}/${a.severity}`).sort();
+    expect(names).toEqual([
+      "Haddad/Back yard: declining_index/high",
+      "Kowalczyk/Under the oaks: declining_index/high",
+      "Kowalczyk/Under the oaks: over_application/moderate", // 3.06 lb N on fine fescue (top of range 3)
+      "Okafor/Back yard: declining_index/moderate",
+      "Oyelaran/Front lawn: torn_tips/low",
+    ]);
+    const torn = alerts.find((a) => a.kind === "torn_tips")!;
+    expect(torn.evidence.values).toEqual({ tornTipsSeen: true });
+    expect(torn.source).toMatch(/dull blades/);
+    expect(torn.events.map((e) => e.action)).toEqual(["raised"]);
+  });
+
+  it("is idempotent: evaluating again, or on later days while the condition holds, keeps one alert per condition", async () => {
+    const before = await liveAlerts();
+    await evaluateAll();
+    await evaluateAll();
+    const after = await liveAlerts();
+    expect(after.map((a) => a.id)).toEqual(before.map((a) => a.id));
+    const events = await testDb().selectFrom("risk_alert_events").select("action").where("company_id", "=", c.companyId).execute();
+    expect(events.filter((e) => e.action === "raised")).toHaveLength(before.length);
+  });
+
+  it("is scoped: a technician sees their properties' alerts, homeowners none, another company nothing", async () => {
+    const tech2 = await listAlerts(await c.actor("tech2"), {});
+    expect(new Set(tech2.map((a) => a.property.name.split(" ")[0]))).toEqual(new Set(["Okafor"]));
+    expect(await listAlerts(await c.actor("owner1"), {})).toEqual([]);
+    expect(await listAlerts(await other.actor("manager"), {})).toEqual([]);
+    const someAlert = (await liveAlerts())[0]!;
+    await expect(acknowledgeAlert(await other.actor("manager"), someAlert.id, "")).rejects.toMatchObject({ code: "not_found" });
+  });
+
+  it("filters by kind, severity, technician and area", async () => {
+    const manager = await c.actor("manager");
+    expect((await listAlerts(manager, { kind: "declining_index" })).length).toBe(3);
+    expect((await listAlerts(manager, { severity: "high" })).every((a) => a.severity === "high")).toBe(true);
+    expect((await listAlerts(manager, { technician: c.userIds["tech2"] })).map((a) => a.property.name)).toEqual(["Okafor residence"]);
+    expect((await listAlerts(manager, { area: "Cedar" })).every((a) => a.property.city === "Cedar Ford")).toBe(true);
+    expect(await listAlerts(manager, { area: "100%_" })).toEqual([]); // LIKE wildcards are text
+  });
+});
+
+describe("lifecycle", () => {
+  it("acknowledge (technician, with a note) → resolve (manager only, with a note) → recurs as a new linked episode", async () => {
+    const tech1 = await c.actor("tech1");
+    const manager = await c.actor("manager");
+    const torn = (await propertyAlerts(tech1, c.propertyIds["oyelaran"]!)).find((a) => a.kind === "torn_tips")!;
+    const acked = await acknowledgeAlert(tech1, torn.id, "Blade sharpened at the shop today.");
+    expect(acked.status).toBe("acknowledged");
+    expect(acked.acknowledgedBy).toBe("Luis Arroyo");
+    await expect(resolveAlert(tech1, torn.id, "done")).rejects.toMatchObject({ code: "forbidden" });
+    const resolved = await resolveAlert(manager, torn.id, "Blade replaced; tips clean at the next mowing.");
+    expect(resolved).toMatchObject({ status: "resolved", resolution: "manual", resolvedBy: "Dana Whitcombe" });
+    expect(resolved.events.map((e) => [e.action, e.note])).toEqual([
+      ["raised", ""],
+      ["acknowledged", "Blade sharpened at the shop today."],
+      ["resolved", "Blade replaced; tips clean at the next mowing."],
+    ]);
+    await expect(acknowledgeAlert(tech1, torn.id, "")).rejects.toMatchObject({ code: "conflict" });
+    // The latest check still shows torn tips, so the next evaluation opens a new episode.
+    await evaluateProperty(testDb(), c.companyId, c.propertyIds["oyelaran"]!, { provider: null });
+    const again = (await propertyAlerts(manager, c.propertyIds["oyelaran"]!)).filter((a) => a.kind === "torn_tips");
+    expect(again.map((a) => a.status).sort()).toEqual(["open", "resolved"]);
+    const episode = again.find((a) => a.status === "open")!;
+    expect(episode.previousAlertId).toBe(torn.id);
+    expect(episode.events.map((e) => e.action)).toEqual(["reopened"]);
+  });
+
+  it(`resolves on its own once the condition has been clear for ${AUTO_RESOLVE_AFTER_DAYS} days`, async () => {
+    const manager = await c.actor("manager");
+    const oyelaran = c.propertyIds["oyelaran"]!;
+    // The blade was sharpened: the latest check no longer shows torn tips.
+    const front = await testDb().selectFrom("zones").select("id").where("property_id", "=", oyelaran).where("name", "=", "Front lawn").executeTakeFirstOrThrow();
+    await testDb().updateTable("zone_checks").set({ has_torn_tips: false }).where("zone_id", "=", front.id).execute();
+    await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null });
+    let torn = (await propertyAlerts(manager, oyelaran)).find((a) => a.kind === "torn_tips" && a.status !== "resolved")!;
+    expect(torn.clearSince).toBe(today);
+    await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null, at: addDays(today, AUTO_RESOLVE_AFTER_DAYS - 1) });
+    expect((await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!.status).toBe("open");
+    await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null, at: addDays(today, AUTO_RESOLVE_AFTER_DAYS) });
+    torn = (await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!;
+    expect(torn).toMatchObject({ status: "resolved", resolution: "auto", resolvedBy: null });
+    expect(torn.events.map((e) => e.action)).toEqual(["reopened", "cleared", "auto_resolved"]);
+  });
+});
+
+describe("the sweep as a pg-boss job", () => {
+  it("a failing sweep is retried and completes; a second sweep changes no alert", async () => {
+    const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: "pgboss_test", max: 2 });
+    await boss.start();
+    let calls = 0;
+    const { sweepBook } = await import("@/lib/risk/sweep");
+    const before = (await liveAlerts()).map((a) => `${a.id}:${a.severity}`);
+    await registerRiskSweep(
+      boss,
+      async () => {
+        calls++;
+        if (calls === 1) throw new Error("weather service fell over");
+        return sweepBook(testDb(), null);
+      },
+      { timeZone: "America/New_York", retryDelaySeconds: 1, schedule: false },
+    );
+    const jobId = (await boss.send(SWEEP_QUEUE, {}))!;
+    let state = "";
+    for (let i = 0; i < 60 && state !== "completed"; i++) {
+      await new Promise((r) => setTimeout(r, 500));
+      state = (await boss.getJobById(SWEEP_QUEUE, jobId))?.state ?? "";
+    }
+    await boss.stop({ graceful: false, wait: true });
+    expect(state).toBe("completed");
+    expect(calls).toBe(2);
+    expect((await liveAlerts()).map((a) => `${a.id}:${a.severity}`)).toEqual(before);
+  }, 60_000);
+});
+
+describe("the alert routes", () => {
+  const list = () => import("@/app/api/v1/alerts/route");
+  const resolveRoute = () => import("@/app/api/v1/alerts/[alertId]/resolve/route");
+  const ackRoute = () => import("@/app/api/v1/alerts/[alertId]/acknowledge/route");
+  const post = (body: unknown) => new Request("http://localhost/api", { method: "POST", body: JSON.stringify(body), headers: { origin: "http://localhost", host: "localhost", "content-type": "application/json" } });
+
+  it("lists with filters from the query string; homeowners are refused", async () => {
+    current = await c.actor("manager");
+    const res = await (await list()).GET(new Request("http://localhost/api/v1/alerts?kind=declining_index&severity=high"));
+    expect(res.status).toBe(200);
+    const { items } = (await res.json()) as { items: { kind: string; severity: string }[] };
+    expect(items.map((a) => `${a.kind}/${a.severity}`)).toEqual(["declining_index/high", "declining_index/high"]);
+    current = await c.actor("owner1");
+    expect((await (await list()).GET(new Request("http://localhost/api/v1/alerts"))).status).toBe(403);
+  });
+
+  it("a technician may acknowledge but not resolve; a missing resolution note is a clear 422", async () => {
+    const alert = (await liveAlerts()).find((a) => a.kind === "declining_index" && a.property_id === c.propertyIds["haddad"])!;
+    current = await c.actor("tech1");
+    const refused = await (await resolveRoute()).POST(post({ note: "done" }), { params: Promise.resolve({ alertId: alert.id }) });
+    expect(refused.status).toBe(403);
+    current = await c.actor("manager");
+    const noNote = await (await resolveRoute()).POST(post({ note: "  " }), { params: Promise.resolve({ alertId: alert.id }) });
+    expect(noNote.status).toBe(422);
+    expect(await noNote.json()).toMatchObject({ error: { fieldErrors: { note: ["Say how it was resolved."] } } });
+    current = await c.actor("tech1");
+    const ack = await (await ackRoute()).POST(post({ note: "Will check the fungicide timing." }), { params: Promise.resolve({ alertId: alert.id }) });
+    expect(ack.status).toBe(200);
+    expect(await ack.json()).toMatchObject({ status: "acknowledged", acknowledgedBy: "Luis Arroyo" });
+  });
+});
