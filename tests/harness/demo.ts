@@ -67,6 +67,9 @@ const server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", 
   env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL, AUTH_SECRET, AUTH_URL, WEATHER_BASE_URL },
 });
 
+// The background worker (pg-boss): the daily risk sweep, and one sweep now.
+const worker = spawn("node_modules/.bin/tsx", ["jobs/worker.ts"], { stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, DATABASE_URL, WEATHER_BASE_URL, LOG_LEVEL: process.env.LOG_LEVEL ?? "warn" } });
+
 for (let i = 0; i < 120; i++) {
   try {
     if ((await fetch(`${AUTH_URL}/sign-in`)).ok) break;
@@ -76,7 +79,7 @@ for (let i = 0; i < 120; i++) {
   await new Promise((r) => setTimeout(r, 250));
 }
 
-console.log(`\nSward is running at ${AUTH_URL}  (server PID ${server.pid}; Ctrl-C to stop)\n`);
+console.log(`\nSward is running at ${AUTH_URL}  (server PID ${server.pid}, worker PID ${worker.pid}; Ctrl-C to stop)\n`);
 console.log("Demo sign-ins:");
 for (const company of demoScenario) for (const p of company.people) console.log(`  ${p.email.padEnd(28)} ${p.role.padEnd(11)} ${company.name}`);
 console.log(`Demo password: ${DEMO_PASSWORD}\n`);
@@ -86,11 +89,13 @@ function stop() {
   if (stopping) return;
   stopping = true;
   if (server.exitCode === null) server.kill("SIGTERM");
+  if (worker.exitCode === null) worker.kill("SIGTERM");
   if (weather && weather.exitCode === null) weather.kill("SIGTERM");
 }
 process.on("SIGINT", stop);
 process.on("SIGTERM", stop);
 server.on("exit", (code) => {
+  if (worker.exitCode === null) worker.kill("SIGTERM");
   if (weather && weather.exitCode === null) weather.kill("SIGTERM");
   if (!wasRunning) spawnSync("sh", ["db/cluster.sh", "stop"], { stdio: "inherit" });
   process.exit(code ?? 0);

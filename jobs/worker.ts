@@ -1,0 +1,42 @@
+// The background worker: `tsx jobs/worker.ts`. pg-boss queues in the app's own PostgreSQL; the
+// daily risk sweep (lib/risk/jobs.ts) runs at 05:15 in the first company's time zone and once
+// when the worker starts.
+import PgBoss from "pg-boss";
+import { createDb } from "@/db/client";
+import { log } from "@/lib/log";
+import { jsonWeatherProvider } from "@/lib/services/weather/provider";
+import { SWEEP_CRON, SWEEP_QUEUE, registerRiskSweep } from "@/lib/risk/jobs";
+import { sweepBook } from "@/lib/risk/sweep";
+
+const url = process.env.DATABASE_URL;
+if (!url) {
+  console.error("worker: DATABASE_URL is not set");
+  process.exit(1);
+}
+const db = createDb(url, { max: 3 });
+// The worker needs the database and the weather service only (no sign-in secrets).
+const weather = process.env.WEATHER_BASE_URL ? jsonWeatherProvider({ baseUrl: process.env.WEATHER_BASE_URL, apiKey: process.env.WEATHER_API_KEY }) : null;
+const boss = new PgBoss({ connectionString: url, schema: "pgboss", max: 3 });
+boss.on("error", (err) => log.error({ err }, "job queue error"));
+
+await boss.start();
+const zone = (await db.selectFrom("companies").select("time_zone").orderBy("created_at").executeTakeFirst())?.time_zone ?? "America/New_York";
+await registerRiskSweep(
+  boss,
+  async () => {
+    const result = await sweepBook(db, weather, { onError: (propertyId, err) => log.error({ err, propertyId }, "risk sweep: property failed") });
+    log.info(result, "risk sweep done");
+    return result;
+  },
+  { timeZone: zone },
+);
+await boss.send(SWEEP_QUEUE, { reason: "worker start" });
+console.log(`worker: ready (daily risk sweep "${SWEEP_CRON}" ${zone})`);
+
+const stop = async () => {
+  await boss.stop({ graceful: true, timeout: 10_000 });
+  await db.destroy();
+  process.exit(0);
+};
+process.on("SIGTERM", stop);
+process.on("SIGINT", stop);
