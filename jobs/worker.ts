@@ -5,7 +5,9 @@ import PgBoss from "pg-boss";
 import { createDb } from "@/db/client";
 import { log } from "@/lib/log";
 import { jsonWeatherProvider } from "@/lib/services/weather/provider";
-import { SWEEP_CRON, SWEEP_QUEUE, registerRiskSweep } from "@/lib/risk/jobs";
+import { DIGEST_QUEUE, SWEEP_CRON, SWEEP_QUEUE, registerAlertDigest, registerRiskSweep } from "@/lib/risk/jobs";
+import { sendHighAlertDigests } from "@/lib/risk/digest";
+import { smtpMailer } from "@/lib/services/mail";
 import { sweepBook } from "@/lib/risk/sweep";
 
 const url = process.env.DATABASE_URL;
@@ -14,7 +16,9 @@ if (!url) {
   process.exit(1);
 }
 const db = createDb(url, { max: 3 });
-// The worker needs the database and the weather service only (no sign-in secrets).
+// The worker needs the database, the weather service and SMTP only (no sign-in secrets).
+const mailer = process.env.SMTP_URL ? smtpMailer(process.env.SMTP_URL) : null;
+const appUrl = process.env.AUTH_URL ?? "http://localhost:3000";
 const weather = process.env.WEATHER_BASE_URL ? jsonWeatherProvider({ baseUrl: process.env.WEATHER_BASE_URL, apiKey: process.env.WEATHER_API_KEY }) : null;
 const boss = new PgBoss({ connectionString: url, schema: "pgboss", max: 3 });
 boss.on("error", (err) => log.error({ err }, "job queue error"));
@@ -26,10 +30,20 @@ await registerRiskSweep(
   async () => {
     const result = await sweepBook(db, weather, { onError: (propertyId, err) => log.error({ err, propertyId }, "risk sweep: property failed") });
     log.info(result, "risk sweep done");
+    await boss.send(DIGEST_QUEUE, { after: "sweep" });
     return result;
   },
   { timeZone: zone },
 );
+await registerAlertDigest(boss, async () => {
+  if (!mailer) {
+    log.warn("alert digest: SMTP_URL is not set, nothing sent");
+    return { messages: 0, alerts: 0 };
+  }
+  const result = await sendHighAlertDigests(db, mailer, { appUrl });
+  log.info(result, "alert digest sent");
+  return result;
+});
 await boss.send(SWEEP_QUEUE, { reason: "worker start" });
 console.log(`worker: ready (daily risk sweep "${SWEEP_CRON}" ${zone})`);
 

@@ -11,3 +11,11 @@ export async function registerRiskSweep(boss: PgBoss, run: () => Promise<unknown
   if (options.schedule !== false) await boss.schedule(SWEEP_QUEUE, SWEEP_CRON, {}, { tz: options.timeZone });
   await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 2 }, async () => run());
 }
+
+export const DIGEST_QUEUE = "alert-digest";
+
+/** The managers' digest of new high-severity alerts: queued after each sweep, retried while SMTP is down. */
+export async function registerAlertDigest(boss: PgBoss, run: () => Promise<unknown>, options: { retryDelaySeconds?: number } = {}): Promise<void> {
+  await boss.createQueue(DIGEST_QUEUE, { name: DIGEST_QUEUE, policy: "stately", retryLimit: 10, retryDelay: options.retryDelaySeconds ?? 60, retryBackoff: true, expireInSeconds: 5 * 60 });
+  await boss.work(DIGEST_QUEUE, { pollingIntervalSeconds: 2 }, async () => run());
+}

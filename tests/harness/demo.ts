@@ -67,8 +67,13 @@ const server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", 
   env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL, AUTH_SECRET, AUTH_URL, WEATHER_BASE_URL },
 });
 
-// The background worker (pg-boss): the daily risk sweep, and one sweep now.
-const worker = spawn("node_modules/.bin/tsx", ["jobs/worker.ts"], { stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, DATABASE_URL, WEATHER_BASE_URL, LOG_LEVEL: process.env.LOG_LEVEL ?? "warn" } });
+// The local fake SMTP service: every message lands in .data/mail (read it with `npm run mail:inbox`).
+const SMTP_PORT = Number(process.env.SWARD_SMTP_PORT ?? 2525);
+const SMTP_URL = process.env.SMTP_URL ?? `smtp://127.0.0.1:${SMTP_PORT}`;
+const smtp = process.env.SMTP_URL ? null : spawn("node_modules/.bin/tsx", ["tests/harness/smtp-fake.ts", String(SMTP_PORT), ".data/mail"], { stdio: ["ignore", "ignore", "inherit"] });
+
+// The background worker (pg-boss): the daily risk sweep, and one sweep now; the managers' digest after it.
+const worker = spawn("node_modules/.bin/tsx", ["jobs/worker.ts"], { stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, DATABASE_URL, WEATHER_BASE_URL, SMTP_URL, AUTH_URL, LOG_LEVEL: process.env.LOG_LEVEL ?? "warn" } });
 
 for (let i = 0; i < 120; i++) {
   try {
@@ -82,7 +87,8 @@ for (let i = 0; i < 120; i++) {
 console.log(`\nSward is running at ${AUTH_URL}  (server PID ${server.pid}, worker PID ${worker.pid}; Ctrl-C to stop)\n`);
 console.log("Demo sign-ins:");
 for (const company of demoScenario) for (const p of company.people) console.log(`  ${p.email.padEnd(28)} ${p.role.padEnd(11)} ${company.name}`);
-console.log(`Demo password: ${DEMO_PASSWORD}\n`);
+console.log(`Demo password: ${DEMO_PASSWORD}`);
+console.log(`Mail sent by the demo (managers' alert digest) is kept by a local fake: npm run mail:inbox\n`);
 
 let stopping = false;
 function stop() {
@@ -90,12 +96,14 @@ function stop() {
   stopping = true;
   if (server.exitCode === null) server.kill("SIGTERM");
   if (worker.exitCode === null) worker.kill("SIGTERM");
+  if (smtp && smtp.exitCode === null) smtp.kill("SIGTERM");
   if (weather && weather.exitCode === null) weather.kill("SIGTERM");
 }
 process.on("SIGINT", stop);
 process.on("SIGTERM", stop);
 server.on("exit", (code) => {
   if (worker.exitCode === null) worker.kill("SIGTERM");
+  if (smtp && smtp.exitCode === null) smtp.kill("SIGTERM");
   if (weather && weather.exitCode === null) weather.kill("SIGTERM");
   if (!wasRunning) spawnSync("sh", ["db/cluster.sh", "stop"], { stdio: "inherit" });
   process.exit(code ?? 0);
