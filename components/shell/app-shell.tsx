@@ -55,7 +55,7 @@ export function AppShell({ actor, nav, children }: { actor: Actor; nav: NavItem[
         </main>
         <nav
           aria-label="Main"
-          className="no-print fixed inset-x-0 bottom-0 flex gap-1 border-t border-line bg-card px-2 pb-[max(0.5rem,env(safe-area-inset-bottom))] pt-2 md:hidden"
+          className="no-print fixed inset-x-0 bottom-0 flex gap-0.5 border-t border-line bg-card px-1 pb-[max(0.5rem,env(safe-area-inset-bottom))] pt-2 md:hidden"
         >
           {nav.map(({ href, label, icon: Icon }) => (
             <NavLink key={href} href={href} variant="bar">

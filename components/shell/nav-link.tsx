@@ -14,7 +14,7 @@ export function NavLink({ href, children, variant }: { href: string; children: R
       aria-current={isCurrent ? "page" : undefined}
       className={clsx(
         "flex min-h-tap items-center gap-2 rounded-lg font-semibold no-underline",
-        variant === "side" ? "px-3 py-2" : "flex-1 flex-col justify-center gap-0.5 px-2 py-1 text-sm",
+        variant === "side" ? "px-3 py-2" : "min-w-0 flex-1 basis-0 flex-col justify-center gap-0.5 px-0.5 py-1 text-center text-xs leading-tight",
         isCurrent ? "bg-sward-tint text-sward-deep" : "text-ink hover:bg-sward-tint",
       )}
     >

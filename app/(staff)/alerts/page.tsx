@@ -28,7 +28,7 @@ export default async function AlertsPage({ searchParams }: { searchParams: Promi
       <p className="mb-4 mt-1 text-muted">
         {actor.role === "manager" ? `Risks Sward has raised across ${actor.companyName}'s book` : "Risks raised on your properties"}, with their evidence. Checked when a visit is finished and every morning.
       </p>
-      <form method="get" className="mb-4 grid gap-3 rounded-xl border border-line bg-card p-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="Filter alerts">
+      <form method="get" className="mb-4 grid grid-cols-2 gap-3 rounded-xl border border-line bg-card p-3 sm:p-4 lg:grid-cols-3" aria-label="Filter alerts">
         <label className="space-y-1">
           <span className="block text-sm font-semibold">Kind</span>
           <select name="kind" defaultValue={filters.kind ?? ""} className={inputClass}>
