@@ -383,6 +383,30 @@ export interface RiskAlertEventsTable {
   details: ColumnType<unknown, string | undefined, string>;
 }
 
+export interface PropertySummariesTable {
+  property_id: string;
+  company_id: string;
+  latest_index: number | null;
+  latest_index_on: ColumnType<string | null, string | null | undefined, string | null>;
+  trend_slope: number | null;
+  trend_r2: number | null;
+  trend_n: number;
+  trend_word: "improving" | "steady" | "declining" | null;
+  last_visit_on: ColumnType<string | null, string | null | undefined, string | null>;
+  next_visit_on: ColumnType<string | null, string | null | undefined, string | null>;
+  missed_visit_on: ColumnType<string | null, string | null | undefined, string | null>;
+  is_overdue: boolean;
+  alerts_high: number;
+  alerts_moderate: number;
+  alerts_low: number;
+  alert_kinds: ColumnType<string[], string[] | undefined, string[]>;
+  n_ytd_lb: number;
+  n_max_lb: number | null;
+  attention_score: number;
+  attention_reasons: ColumnType<string[], string[] | undefined, string[]>;
+  updated_at: ColumnType<Date, Date | undefined, Date>;
+}
+
 export interface Database {
   companies: CompaniesTable;
   users: UsersTable;
@@ -405,6 +429,7 @@ export interface Database {
   weather_days: WeatherDaysTable;
   risk_alerts: RiskAlertsTable;
   risk_alert_events: RiskAlertEventsTable;
+  property_summaries: PropertySummariesTable;
 }
 
 export type Company = Selectable<CompaniesTable>;

@@ -17,6 +17,7 @@ import { toRuleSetDto } from "@/lib/rule-sets/queries";
 import { visitInScope } from "@/lib/visits/scope";
 import type { ApplicationDto } from "./dto";
 import { listVisitApplications, zoneNitrogenYearToDate } from "./queries";
+import { refreshPropertySummary } from "@/lib/book/summary";
 import type { ApplicationInput } from "./schemas";
 
 const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") => new AppError("invalid_input", message, fieldErrors);
@@ -139,5 +140,6 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
     });
   const saved = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
   if (!saved) throw new Error("application missing after insert");
+  await refreshPropertySummary(db(), actor.companyId, visit.property_id); // N this year in the book
   return saved;
 }

@@ -12,6 +12,7 @@ import type { WeatherProvider } from "@/lib/services/weather/provider";
 import { weatherFromCache } from "@/lib/weather/cache";
 import { deriveDays } from "@/lib/weather/derived";
 import { decide } from "./lifecycle";
+import { refreshPropertySummary } from "@/lib/book/summary";
 import {
   type ApplicationFacts,
   type CheckFacts,
@@ -145,6 +146,7 @@ export async function evaluateProperty(executor: Executor, companyId: string, pr
       await applyDecision(trx, companyId, propertyId, zoneId, result, decision, live?.id ?? null, live?.status ?? null, at, options.visitId ?? null, summary);
     }
   });
+  await refreshPropertySummary(executor, companyId, propertyId); // the book shows alerts, Index and visits
   return summary;
 }
 

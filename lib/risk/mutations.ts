@@ -9,6 +9,7 @@ import { weatherProvider } from "@/lib/services/weather/instance";
 import type { AlertDto } from "./dto";
 import { type EvaluationSummary, evaluateProperty } from "./evaluate";
 import { getAlert } from "./queries";
+import { refreshPropertySummary } from "@/lib/book/summary";
 
 async function lockAlert(actor: Actor, alertId: string) {
   const alert = await getAlert(actor, alertId); // scope: not found outside the actor's properties
@@ -32,6 +33,7 @@ export async function acknowledgeAlert(actor: Actor, alertId: string, note: stri
       if (!updated.numUpdatedRows) throw new AppError("conflict", "This alert was resolved meanwhile.");
       await trx.insertInto("risk_alert_events").values({ alert_id: alertId, company_id: actor.companyId, actor_id: actor.userId, action: "acknowledged", from_status: alert.status, to_status: "acknowledged", note }).execute();
     });
+  await refreshPropertySummary(db(), actor.companyId, alert.property.id);
   return (await getAlert(actor, alertId))!;
 }
 
@@ -51,6 +53,7 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
       if (!updated.numUpdatedRows) return;
       await trx.insertInto("risk_alert_events").values({ alert_id: alertId, company_id: actor.companyId, actor_id: actor.userId, action: "resolved", from_status: alert.status, to_status: "resolved", note }).execute();
     });
+  await refreshPropertySummary(db(), actor.companyId, alert.property.id);
   return (await getAlert(actor, alertId))!;
 }
 

@@ -12,6 +12,13 @@ import { propertyInScope } from "@/lib/properties/scope";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { fillVisitWeather } from "@/lib/weather/mutations";
 import { evaluateAfterVisit } from "@/lib/risk/mutations";
+import { refreshPropertySummary } from "@/lib/book/summary";
+
+/** Keeps the book's summary of a visit's property current. */
+async function refreshVisitProperty(actor: Actor, visitId: string): Promise<void> {
+  const visit = await db().selectFrom("visits").select("property_id").where("company_id", "=", actor.companyId).where("id", "=", visitId).executeTakeFirst();
+  if (visit) await refreshPropertySummary(db(), actor.companyId, visit.property_id);
+}
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
@@ -84,6 +91,7 @@ export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Pr
           throw new AppError("conflict", "A different visit already uses that id.");
       }
     });
+  await refreshPropertySummary(db(), actor.companyId, input.propertyId); // the book shows the next visit
   return getVisit(actor, id);
 }
 
@@ -247,5 +255,6 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
       await trx.updateTable("visits").set({ status: "cancelled", version: sql<number>`version + 1`, updated_at: sql<Date>`now()` }).where("id", "=", visitId).execute();
       await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "cancel", changes: { status: { from: visit.status, to: "cancelled" } } });
     });
+  await refreshVisitProperty(actor, visitId);
   return getVisit(actor, visitId);
 }

@@ -1,0 +1,135 @@
+// The manager's book: every property with its summary, filtered, sorted and paged by keyset on
+// (sort value, property id), so pages neither skip nor repeat rows while rows are added.
+import "server-only";
+import { type RawBuilder, sql } from "kysely";
+import { db } from "@/db";
+import type { Actor } from "@/lib/auth/actor";
+import { AppError } from "@/lib/http/app-error";
+import { propertyInScope } from "@/lib/properties/scope";
+import type { BookQuery, BookSort } from "./schemas";
+
+export interface BookRow {
+  propertyId: string;
+  name: string;
+  street: string;
+  city: string;
+  technician: { id: string; name: string } | null;
+  lastVisitOn: string | null;
+  nextVisitOn: string | null;
+  missedVisitOn: string | null;
+  isOverdue: boolean;
+  latestIndex: number | null;
+  latestIndexOn: string | null;
+  trendWord: "improving" | "steady" | "declining" | null;
+  trendSlope: number | null;
+  trendN: number;
+  alerts: { high: number; moderate: number; low: number };
+  alertKinds: string[];
+  nYtdLb: number;
+  nMaxLb: number | null;
+  attentionScore: number;
+  reasons: string[];
+}
+
+/** Sort keys: an expression without nulls (so row comparison works), its SQL type, and the natural direction. */
+const SORTS: Record<BookSort, { expr: RawBuilder<unknown>; type: "int" | "real" | "text" | "date"; dir: "asc" | "desc" }> = {
+  attention: { expr: sql`coalesce(ps.attention_score, 0)`, type: "int", dir: "desc" },
+  name: { expr: sql`lower(properties.name)`, type: "text", dir: "asc" },
+  index: { expr: sql`coalesce(ps.latest_index, -1)`, type: "real", dir: "asc" },
+  slope: { expr: sql`coalesce(ps.trend_slope, 1000000)`, type: "real", dir: "asc" },
+  last: { expr: sql`coalesce(ps.last_visit_on, date '0001-01-01')`, type: "date", dir: "asc" },
+  next: { expr: sql`coalesce(ps.next_visit_on, date '9999-12-31')`, type: "date", dir: "asc" },
+  n: { expr: sql`coalesce(ps.n_ytd_lb, 0)`, type: "real", dir: "desc" },
+};
+
+const encodeCursor = (value: unknown, id: string) => Buffer.from(JSON.stringify([value, id])).toString("base64url");
+function decodeCursor(cursor: string): [string | number, string] {
+  try {
+    const parsed = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as unknown;
+    if (Array.isArray(parsed) && parsed.length === 2 && (typeof parsed[0] === "string" || typeof parsed[0] === "number") && typeof parsed[1] === "string" && /^[0-9a-f-]{36}$/.test(parsed[1])) return [parsed[0], parsed[1]];
+  } catch {
+    /* fall through */
+  }
+  throw new AppError("invalid_input", "That page link is no longer valid. Start again from the first page.", { after: ["Not a page cursor."] });
+}
+
+const castAs = (type: string, v: string | number) => (type === "date" ? sql`cast(${String(v)} as date)` : type === "text" ? sql`${String(v)}` : type === "int" ? sql`cast(${Number(v)} as integer)` : sql`cast(${Number(v)} as real)`);
+const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+function baseQuery(actor: Actor, q: BookQuery) {
+  return db()
+    .selectFrom("properties")
+    .leftJoin("property_summaries as ps", "ps.property_id", "properties.id")
+    .leftJoin("users as tech", "tech.id", "properties.technician_id")
+    .where(propertyInScope(actor))
+    .where("properties.archived_at", "is", null)
+    .$if(Boolean(q.q), (b) => b.where((eb) => eb.or([eb("properties.name", "ilike", `%${escapeLike(q.q!)}%`), eb("properties.street", "ilike", `%${escapeLike(q.q!)}%`), eb("properties.city", "ilike", `%${escapeLike(q.q!)}%`), eb("properties.postal_code", "ilike", `${escapeLike(q.q!)}%`)])))
+    .$if(q.technician !== undefined, (b) => b.where("properties.technician_id", "=", q.technician!))
+    .$if(q.trend !== undefined && q.trend !== "none", (b) => b.where("ps.trend_word", "=", q.trend as "declining"))
+    .$if(q.trend === "none", (b) => b.where("ps.trend_word", "is", null))
+    .$if(q.kind !== undefined, (b) => b.where(sql<boolean>`${q.kind!} = any(ps.alert_kinds)`))
+    .$if(q.severity === "high", (b) => b.where("ps.alerts_high", ">", 0))
+    .$if(q.severity === "moderate", (b) => b.where("ps.alerts_moderate", ">", 0))
+    .$if(q.severity === "low", (b) => b.where("ps.alerts_low", ">", 0))
+    .$if(q.overdue === "1", (b) => b.where("ps.is_overdue", "=", true));
+}
+
+/** One page of the book, and the cursor of the next page (null on the last). */
+export async function listBook(actor: Actor, q: BookQuery): Promise<{ rows: BookRow[]; nextCursor: string | null; total: number }> {
+  if (actor.role !== "manager") throw new AppError("forbidden", "The book is for managers.");
+  const sort = SORTS[q.sort];
+  const dir = q.dir ?? sort.dir;
+  const after = q.after ? decodeCursor(q.after) : null;
+  const rows = await baseQuery(actor, q)
+    .selectAll("ps")
+    .select(["properties.id", "properties.name", "properties.street", "properties.city", "properties.technician_id", "tech.name as technician_name"])
+    .select(sort.expr.as("sort_value"))
+    .$if(after !== null, (b) => b.where(dir === "desc" ? sql<boolean>`(${sort.expr}, properties.id) < (${castAs(sort.type, after![0])}, cast(${after![1]} as uuid))` : sql<boolean>`(${sort.expr}, properties.id) > (${castAs(sort.type, after![0])}, cast(${after![1]} as uuid))`))
+    .orderBy(sort.expr, dir)
+    .orderBy("properties.id", dir)
+    .limit(q.limit + 1)
+    .execute();
+  const total = Number((await baseQuery(actor, q).select((eb) => eb.fn.countAll<number>().as("n")).executeTakeFirstOrThrow()).n);
+  const page = rows.slice(0, q.limit);
+  const last = page.at(-1);
+  return {
+    rows: page.map((r) => ({
+      propertyId: r.id,
+      name: r.name,
+      street: r.street,
+      city: r.city,
+      technician: r.technician_id && r.technician_name ? { id: r.technician_id, name: r.technician_name } : null,
+      lastVisitOn: r.last_visit_on ?? null,
+      nextVisitOn: r.next_visit_on ?? null,
+      missedVisitOn: r.missed_visit_on ?? null,
+      isOverdue: r.is_overdue ?? false,
+      latestIndex: r.latest_index ?? null,
+      latestIndexOn: r.latest_index_on ?? null,
+      trendWord: r.trend_word ?? null,
+      trendSlope: r.trend_slope ?? null,
+      trendN: r.trend_n ?? 0,
+      alerts: { high: r.alerts_high ?? 0, moderate: r.alerts_moderate ?? 0, low: r.alerts_low ?? 0 },
+      alertKinds: r.alert_kinds ?? [],
+      nYtdLb: r.n_ytd_lb ?? 0,
+      nMaxLb: r.n_max_lb ?? null,
+      attentionScore: r.attention_score ?? 0,
+      reasons: r.attention_reasons ?? [],
+    })),
+    nextCursor: rows.length > q.limit && last ? encodeCursor(normalise(last.sort_value), last.id) : null,
+    total,
+  };
+}
+
+/** Dates come back as YYYY-MM-DD strings, numbers as numbers: both go into the cursor as they are. */
+const normalise = (v: unknown): string | number => (typeof v === "number" ? v : v instanceof Date ? v.toISOString().slice(0, 10) : String(v));
+
+/** Every row of the filtered book in its order, a page at a time (for the CSV export). */
+export async function* bookRows(actor: Actor, q: BookQuery): AsyncGenerator<BookRow> {
+  let after: string | undefined;
+  for (;;) {
+    const page = await listBook(actor, { ...q, after, limit: 100 });
+    yield* page.rows;
+    if (!page.nextCursor) return;
+    after = page.nextCursor;
+  }
+}
