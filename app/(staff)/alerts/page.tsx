@@ -3,6 +3,7 @@ import Link from "next/link";
 import { AlertList } from "@/components/alerts/alert-list";
 import { buttonClass } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
+import { FilterSelect } from "@/components/ui/filter-select";
 import { requireActor } from "@/lib/auth/require";
 import { listPeople } from "@/lib/people/queries";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
@@ -29,51 +30,10 @@ export default async function AlertsPage({ searchParams }: { searchParams: Promi
         {actor.role === "manager" ? `Risks Sward has raised across ${actor.companyName}'s book` : "Risks raised on your properties"}, with their evidence. Checked when a visit is finished and every morning.
       </p>
       <form method="get" className="mb-4 grid grid-cols-2 gap-3 rounded-xl border border-line bg-card p-3 sm:p-4 lg:grid-cols-3" aria-label="Filter alerts">
-        <label className="space-y-1">
-          <span className="block text-sm font-semibold">Kind</span>
-          <select name="kind" defaultValue={filters.kind ?? ""} className={inputClass}>
-            <option value="">Any kind</option>
-            {Object.entries(ALERT_KINDS).map(([k, v]) => (
-              <option key={k} value={k}>
-                {v}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="space-y-1">
-          <span className="block text-sm font-semibold">Severity</span>
-          <select name="severity" defaultValue={filters.severity ?? ""} className={inputClass}>
-            <option value="">Any severity</option>
-            {Object.entries(SEVERITIES).map(([k, v]) => (
-              <option key={k} value={k}>
-                {v}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="space-y-1">
-          <span className="block text-sm font-semibold">Status</span>
-          <select name="status" defaultValue={filters.status ?? "live"} className={inputClass}>
-            {Object.entries(STATUS_OPTIONS).map(([k, v]) => (
-              <option key={k} value={k}>
-                {v}
-              </option>
-            ))}
-          </select>
-        </label>
-        {actor.role === "manager" ? (
-          <label className="space-y-1">
-            <span className="block text-sm font-semibold">Technician</span>
-            <select name="technician" defaultValue={filters.technician ?? ""} className={inputClass}>
-              <option value="">Anyone</option>
-              {technicians.map((t) => (
-                <option key={t.id} value={t.id}>
-                  {t.name}
-                </option>
-              ))}
-            </select>
-          </label>
-        ) : null}
+        <FilterSelect name="kind" label="Kind" value={filters.kind} any="Any kind" options={Object.entries(ALERT_KINDS)} />
+        <FilterSelect name="severity" label="Severity" value={filters.severity} any="Any severity" options={Object.entries(SEVERITIES)} />
+        <FilterSelect name="status" label="Status" value={filters.status ?? "live"} options={Object.entries(STATUS_OPTIONS)} />
+        {actor.role === "manager" ? <FilterSelect name="technician" label="Technician" value={filters.technician} any="Anyone" options={technicians.map((t) => [t.id, t.name] as const)} /> : null}
         <label className="space-y-1">
           <span className="block text-sm font-semibold">Area (town or ZIP)</span>
           <input name="area" defaultValue={filters.area ?? ""} className={inputClass} maxLength={80} />

@@ -10,34 +10,57 @@ import { propertyKeys } from "@/lib/properties/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
 import { BookSummary } from "@/components/scoring/book-summary";
 import { bookScoring } from "@/lib/scoring/queries";
+import { BookView } from "@/components/book/book-view";
+import { listBook } from "@/lib/book/queries";
+import { bookQuery } from "@/lib/book/schemas";
+import { listPeople } from "@/lib/people/queries";
+import type { Actor } from "@/lib/auth/actor";
+import { AppError } from "@/lib/http/app-error";
 
 export const metadata: Metadata = { title: "Properties" };
 
-export default async function PropertiesPage() {
+export default async function PropertiesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const actor = await requireActor(["manager", "technician"]);
+  if (actor.role === "manager") return <ManagerBook actor={actor} searchParams={await searchParams} />;
   const queryClient = makeQueryClient();
   await queryClient.prefetchQuery({ queryKey: propertyKeys.list(), queryFn: () => listProperties(actor) });
-  const isManager = actor.role === "manager";
-  const book = isManager ? await bookScoring(actor) : null;
 
   return (
     <>
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h1 className="text-3xl font-bold">{isManager ? "Properties" : "My properties"}</h1>
-        {isManager ? (
-          <Link href="/properties/new" className={buttonClass("primary", "no-underline")}>
-            <Plus className="size-5" aria-hidden="true" />
-            Add property
-          </Link>
-        ) : null}
-      </div>
-      <p className="mb-6 mt-1 text-muted">
-        {isManager ? `Every property ${actor.companyName} serves.` : "The properties assigned to you."}
-      </p>
-      {book ? <BookSummary book={book} /> : null}
+      <h1 className="text-3xl font-bold">My properties</h1>
+      <p className="mb-6 mt-1 text-muted">The properties assigned to you.</p>
       <HydrationBoundary state={dehydrate(queryClient)}>
-        <PropertyList showTechnician={isManager} />
+        <PropertyList showTechnician={false} />
       </HydrationBoundary>
+    </>
+  );
+}
+
+async function ManagerBook({ actor, searchParams }: { actor: Actor; searchParams: Record<string, string | string[] | undefined> }) {
+  const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v) || undefined;
+  const query = bookQuery.parse(Object.fromEntries(Object.keys(bookQuery.shape).map((k) => [k, first(searchParams[k])])));
+  const [page, technicians, book] = await Promise.all([
+    listBook(actor, query).catch((err: unknown) => {
+      if (err instanceof AppError && err.code === "invalid_input") return listBook(actor, { ...query, after: undefined });
+      throw err;
+    }),
+    listPeople(actor, "technician"),
+    bookScoring(actor),
+  ]);
+  return (
+    <>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h1 className="text-3xl font-bold">Properties</h1>
+        <Link href="/properties/new" className={buttonClass("primary", "no-underline")}>
+          <Plus className="size-5" aria-hidden="true" />
+          Add property
+        </Link>
+      </div>
+      <p className="mb-6 mt-1 text-muted">Every property {actor.companyName} serves.</p>
+      <BookView query={query} rows={page.rows} nextCursor={page.nextCursor} total={page.total} technicians={technicians.map((t) => ({ id: t.id, name: t.name }))} />
+      <div className="mt-10">
+        <BookSummary book={book} />
+      </div>
     </>
   );
 }
