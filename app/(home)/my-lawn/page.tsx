@@ -5,13 +5,16 @@ import { requireActor } from "@/lib/auth/require";
 import { getProperty, listProperties } from "@/lib/properties/queries";
 import { LawnScore } from "@/components/scoring/lawn-score";
 import { propertyScoreHistory } from "@/lib/scoring/queries";
+import Link from "next/link";
+import { formatDate } from "@/lib/dates";
+import { listReports } from "@/lib/reports/queries";
 
 export const metadata: Metadata = { title: "My lawn" };
 
 export default async function MyLawnPage() {
   const actor = await requireActor(["homeowner"]);
   const summaries = await listProperties(actor);
-  const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }) })));
+  const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }), reports: await listReports(actor, p.id) })));
 
   return (
     <>
@@ -28,6 +31,21 @@ export default async function MyLawnPage() {
           <section key={property.id} className="mb-10" aria-label={property.name}>
             <PropertyHeader property={property} as="h2" />
             <LawnScore history={property.scores} />
+            <h3 className="mb-2 text-xl font-bold">Visit reports</h3>
+            {property.reports.length ? (
+              <ul className="mb-6 space-y-2" aria-label="Visit reports">
+                {property.reports.map((r, i) => (
+                  <li key={r.visitId}>
+                    <Link href={`/my-lawn/visits/${r.visitId}`} className="flex min-h-tap items-center justify-between rounded-xl border border-line bg-card p-3 font-semibold text-sward no-underline hover:border-sward">
+                      <span>Visit of {formatDate(r.date)}</span>
+                      {i === 0 ? <span className="rounded-full bg-sward-tint px-2.5 py-1 text-sm text-sward-deep">Latest</span> : null}
+                    </Link>
+                  </li>
+                ))}
+              </ul>
+            ) : (
+              <p className="mb-6 rounded-lg border border-line bg-card p-4">Your first report appears here after the first visit.</p>
+            )}
             <h3 className="mb-3 text-xl font-bold">Your lawn&apos;s zones</h3>
             <ZoneList zones={property.zones} />
           </section>
