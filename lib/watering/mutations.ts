@@ -1,4 +1,4 @@
-// Logging a watering (staff now; homeowners through their portal later). Idempotent by id.
+// Logging a watering (staff, and homeowners for their own lawn). Idempotent by id.
 import "server-only";
 import { db } from "@/db";
 import { wateringDepthIn } from "@/lib/agronomy/water";

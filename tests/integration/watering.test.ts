@@ -40,5 +40,9 @@ describe("logWatering", () => {
     await expect(logWatering(await other.actor("manager"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
     expect((await listWaterings(await c.actor("owner2"), c.propertyIds["haddad"]!)).length).toBeGreaterThan(0);
     expect(await listWaterings(await c.actor("owner1"), c.propertyIds["haddad"]!)).toEqual([]);
+    // Homeowners log their own watering, and only on their own lawn.
+    const own = await logWatering(await c.actor("owner2"), c.propertyIds["haddad"]!, entry({ depthIn: 0.4 }));
+    expect(own.enteredByRole).toBe("homeowner");
+    await expect(logWatering(await c.actor("owner1"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
   });
 });

@@ -8,13 +8,16 @@ import { propertyScoreHistory } from "@/lib/scoring/queries";
 import Link from "next/link";
 import { formatDate } from "@/lib/dates";
 import { listReports } from "@/lib/reports/queries";
+import { WateringLog } from "@/components/watering/watering-log";
+import { listWaterings } from "@/lib/watering/queries";
+import { todayIn } from "@/lib/dates";
 
 export const metadata: Metadata = { title: "My lawn" };
 
 export default async function MyLawnPage() {
   const actor = await requireActor(["homeowner"]);
   const summaries = await listProperties(actor);
-  const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }), reports: await listReports(actor, p.id) })));
+  const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }), reports: await listReports(actor, p.id), waterings: await listWaterings(actor, p.id, { limit: 30 }) })));
 
   return (
     <>
@@ -46,6 +49,11 @@ export default async function MyLawnPage() {
             ) : (
               <p className="mb-6 rounded-lg border border-line bg-card p-4">Your first report appears here after the first visit.</p>
             )}
+            <h3 className="mb-1 text-xl font-bold">Your watering</h3>
+            <p className="mb-3 text-muted">Tell us when you water: it goes into the water balance we watch for drought and disease.</p>
+            <div className="mb-8">
+              <WateringLog propertyId={property.id} zones={property.zones} today={todayIn(property.timeZone)} waterings={property.waterings} canAdd />
+            </div>
             <h3 className="mb-3 text-xl font-bold">Your lawn&apos;s zones</h3>
             <ZoneList zones={property.zones} />
           </section>
