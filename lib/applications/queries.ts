@@ -71,3 +71,36 @@ export async function propertyNitrogenByZone(actor: Actor, propertyId: string, y
     .execute();
   return Object.fromEntries(rows.map((r) => [r.zone_id, Number(r.n)]));
 }
+
+/** A property's applications of a year, newest first (staff). */
+export async function listPropertyApplications(actor: Actor, propertyId: string, year: string) {
+  if (actor.role === "homeowner") return [];
+  const rows = await db()
+    .selectFrom("applications")
+    .innerJoin("visits", "visits.id", "applications.visit_id")
+    .innerJoin("products", "products.id", "applications.product_id")
+    .innerJoin("zones", "zones.id", "applications.zone_id")
+    .select(["applications.id", "applications.visit_id", "applications.applied_on", "applications.rate_amount", "applications.rate_unit", "applications.n_lb_per_1000", "applications.p2o5_lb_per_1000", "applications.k2o_lb_per_1000", "applications.override_reason", "products.name as product_name", "products.is_pesticide", "zones.name as zone_name"])
+    .where(visitInScope(actor))
+    .where("applications.company_id", "=", actor.companyId)
+    .where("visits.property_id", "=", propertyId)
+    .where("applications.applied_on", ">=", `${year}-01-01`)
+    .where("applications.applied_on", "<=", `${year}-12-31`)
+    .orderBy("applications.applied_on", "desc")
+    .orderBy("zones.name")
+    .limit(500)
+    .execute();
+  return rows.map((r) => ({
+    id: r.id,
+    visitId: r.visit_id,
+    appliedOn: r.applied_on,
+    zoneName: r.zone_name,
+    productName: r.product_name,
+    isPesticide: r.is_pesticide,
+    rate: `${Number(r.rate_amount)} ${r.rate_unit.replace("1000ft2", "1,000 ft²")}`,
+    nLb: Number(r.n_lb_per_1000),
+    p2o5Lb: Number(r.p2o5_lb_per_1000),
+    k2oLb: Number(r.k2o_lb_per_1000),
+    overridden: r.override_reason !== null,
+  }));
+}

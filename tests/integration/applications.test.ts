@@ -5,6 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { otherCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { recordApplication } from "@/lib/applications/mutations";
+import { listPropertyApplications } from "@/lib/applications/queries";
 import type { ApplicationInput } from "@/lib/applications/schemas";
 import { listProducts } from "@/lib/products/queries";
 import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
@@ -112,5 +113,19 @@ describe("recordApplication", () => {
   it("a product of another company cannot be used", async () => {
     const foreign = (await listProducts(await other.actor("manager")))[0]!.id;
     await expect(recordApplication(tech1, visitId, input({ productId: foreign }))).rejects.toMatchObject({ fieldErrors: { productId: expect.any(Array) } });
+  });
+});
+
+describe("listPropertyApplications", () => {
+  it("lists the year's applications of a property, newest first, for staff in scope only", async () => {
+    // The year of the demo season's feedings (they are dated relative to today).
+    const latest = await testDb().selectFrom("applications").select("applied_on").where("company_id", "=", c.companyId).where("zone_id", "in", testDb().selectFrom("zones").select("id").where("property_id", "=", c.propertyIds["oyelaran"]!)).orderBy("applied_on", "desc").executeTakeFirstOrThrow();
+    const year = latest.applied_on.slice(0, 4);
+    const rows = await listPropertyApplications(await c.actor("manager"), c.propertyIds["oyelaran"]!, year);
+    expect(rows.length).toBeGreaterThanOrEqual(3); // the demo season: feedings on three zones
+    expect(rows.map((r) => r.appliedOn)).toEqual([...rows.map((r) => r.appliedOn)].sort().reverse());
+    expect(rows[0]).toMatchObject({ productName: "Autumn Anchor 20-0-10", nLb: 0.9, rate: "4.5 lb/1,000 ft²" });
+    expect(await listPropertyApplications(await c.actor("owner1"), c.propertyIds["oyelaran"]!, year)).toEqual([]);
+    expect(await listPropertyApplications(await c.actor("tech2"), c.propertyIds["oyelaran"]!, year)).toEqual([]);
   });
 });

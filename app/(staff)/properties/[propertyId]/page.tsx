@@ -8,7 +8,8 @@ import { ZoneList } from "@/components/properties/zone-list";
 import { buttonClass } from "@/components/ui/button";
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { NitrogenToDate } from "@/components/properties/nitrogen-to-date";
-import { propertyNitrogenByZone } from "@/lib/applications/queries";
+import { listPropertyApplications, propertyNitrogenByZone } from "@/lib/applications/queries";
+import { PropertyApplications } from "@/components/applications/property-applications";
 import { WateringLog } from "@/components/watering/watering-log";
 import { WeatherPanel } from "@/components/weather/weather-panel";
 import { propertyWeather } from "@/lib/weather/queries";
@@ -47,7 +48,7 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     propertyAlerts(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
-  const nitrogen = await propertyNitrogenByZone(actor, property.id, year);
+  const [nitrogen, applications] = await Promise.all([propertyNitrogenByZone(actor, property.id, year), listPropertyApplications(actor, property.id, year)]);
   const isManager = actor.role === "manager";
 
   return (
@@ -147,6 +148,9 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
       <div className="mt-10">
         <WeatherPanel weather={weather} />
       </div>
+
+      <h2 className="mb-3 mt-10 text-2xl font-bold">Applications in {year}</h2>
+      <PropertyApplications rows={applications} year={year} />
 
       <h2 className="mb-3 mt-10 text-2xl font-bold">Watering log</h2>
       <WateringLog propertyId={property.id} zones={property.zones} today={todayIn(property.timeZone)} waterings={waterings} canAdd={!property.isArchived} />
