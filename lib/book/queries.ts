@@ -7,6 +7,8 @@ import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
 import type { BookQuery, BookSort } from "./schemas";
+import { addDays, todayIn } from "@/lib/dates";
+import { technicianActivity } from "./team";
 
 export interface BookRow {
   propertyId: string;
@@ -132,4 +134,34 @@ export async function* bookRows(actor: Actor, q: BookQuery): AsyncGenerator<Book
     if (!page.nextCursor) return;
     after = page.nextCursor;
   }
+}
+
+/** Each technician's last eight weeks (managers). */
+export async function teamActivity(actor: Actor) {
+  if (actor.role !== "manager") throw new AppError("forbidden", "The team view is for managers.");
+  const today = todayIn(actor.companyTimeZone);
+  const since = addDays(today, -7 * 8 - 7);
+  const [technicians, visits] = await Promise.all([
+    db().selectFrom("memberships").innerJoin("users", "users.id", "memberships.user_id").select(["users.id", "users.name"]).where("memberships.company_id", "=", actor.companyId).where("memberships.role", "=", "technician").orderBy("users.name").execute(),
+    db()
+      .selectFrom("visits")
+      .select(["visits.technician_id", "visits.scheduled_for"])
+      .select((eb) => [
+        eb.selectFrom("zone_checks").select(eb.fn.countAll<number>().as("n")).whereRef("zone_checks.visit_id", "=", "visits.id").where("zone_checks.status", "=", "done").as("checks"),
+        eb.selectFrom("photos").select(eb.fn.countAll<number>().as("n")).whereRef("photos.visit_id", "=", "visits.id").as("photos"),
+      ])
+      .where("visits.company_id", "=", actor.companyId)
+      .where("visits.status", "=", "completed")
+      .where("visits.technician_id", "is not", null)
+      .where("visits.scheduled_for", ">=", since)
+      .execute(),
+  ]);
+  return {
+    today,
+    technicians: technicianActivity(
+      technicians,
+      visits.map((v) => ({ technicianId: v.technician_id!, completedOn: v.scheduled_for, checks: Number(v.checks ?? 0), photos: Number(v.photos ?? 0) })),
+      today,
+    ),
+  };
 }

@@ -6,7 +6,7 @@ import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { otherCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
-import { listBook } from "@/lib/book/queries";
+import { listBook, teamActivity } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 import { refreshPropertySummary } from "@/lib/book/summary";
 import { todayIn, addDays } from "@/lib/dates";
@@ -131,5 +131,14 @@ describe("the book", () => {
     const text = await (await route.GET(new Request("http://localhost/api/v1/book/export?q=HYPERLINK"))).text();
     const [row] = parse(text, { columns: true }) as { property: string; street: string; city: string }[];
     expect(row).toMatchObject({ property: "'=HYPERLINK(\"x\")", street: "'+1 Plus Way", city: "'-Minus" });
+  });
+
+  it("shows each technician's last eight weeks (managers only)", async () => {
+    const { technicians } = await teamActivity(await c.actor("manager"));
+    const luis = technicians.find((t) => t.name === "Luis Arroyo")!;
+    expect(luis.visits).toBe(6); // the demo visits 42 and 21 days ago at his three properties
+    expect(luis.checksPerVisit).toBeCloseTo(3, 9); // (3 + 2 + 4 zones) / 3 properties
+    expect(luis.weeks.reduce((s, w) => s + w.visits, 0)).toBe(6);
+    await expect(teamActivity(await c.actor("tech1"))).rejects.toMatchObject({ code: "forbidden" });
   });
 });

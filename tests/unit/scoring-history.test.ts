@@ -142,3 +142,32 @@ describe("book figures and words", () => {
     expect(patternPhrase(0.02)).toBe("no pattern");
   });
 });
+
+import { technicianActivity, weekStart } from "@/lib/book/team";
+
+describe("technician activity", () => {
+  it("weeks start on Monday; visits per week, checks per visit and photos per check", () => {
+    expect(weekStart("2026-12-01")).toBe("2026-11-30"); // a Tuesday → Monday
+    expect(weekStart("2026-11-29")).toBe("2026-11-23"); // a Sunday → the Monday before
+    const [a, b] = technicianActivity(
+      [
+        { id: "t1", name: "A" },
+        { id: "t2", name: "B" },
+      ],
+      [
+        { technicianId: "t1", completedOn: "2026-11-30", checks: 3, photos: 6 },
+        { technicianId: "t1", completedOn: "2026-12-01", checks: 2, photos: 0 },
+        { technicianId: "t1", completedOn: "2026-11-24", checks: 4, photos: 4 },
+        { technicianId: "t1", completedOn: "2026-08-01", checks: 9, photos: 9 }, // before the 8 weeks
+      ],
+      "2026-12-01",
+    );
+    expect(a!.weeks).toHaveLength(8);
+    expect(a!.weeks.at(-1)).toEqual({ weekStart: "2026-11-30", visits: 2 });
+    expect(a!.weeks.at(-2)).toEqual({ weekStart: "2026-11-23", visits: 1 });
+    expect(a!.visits).toBe(3);
+    expect(a!.checksPerVisit).toBeCloseTo(3, 9);
+    expect(a!.photosPerCheck).toBeCloseTo(10 / 9, 9);
+    expect(b).toMatchObject({ visits: 0, checksPerVisit: null, photosPerCheck: null });
+  });
+});

@@ -9,6 +9,8 @@ import { addDays, formatDate, isIsoDate, todayIn } from "@/lib/dates";
 import { listPeople } from "@/lib/people/queries";
 import { listProperties } from "@/lib/properties/queries";
 import { listVisits } from "@/lib/visits/queries";
+import { TeamActivity } from "@/components/book/team-activity";
+import { teamActivity } from "@/lib/book/queries";
 
 export const metadata: Metadata = { title: "Visits" };
 
@@ -16,7 +18,7 @@ export default async function VisitsPage({ searchParams }: { searchParams: Promi
   const actor = await requireActor(["manager"]);
   const { date: asked } = await searchParams;
   const date = asked && isIsoDate(asked) ? asked : todayIn(actor.companyTimeZone);
-  const [visits, properties, technicians] = await Promise.all([listVisits(actor, { date }), listProperties(actor), listPeople(actor, "technician")]);
+  const [visits, properties, technicians, team] = await Promise.all([listVisits(actor, { date }), listProperties(actor), listPeople(actor, "technician"), teamActivity(actor)]);
   const byTech = new Map<string, typeof visits>();
   for (const v of visits) {
     const key = v.technician?.name ?? "No technician";
@@ -60,6 +62,13 @@ export default async function VisitsPage({ searchParams }: { searchParams: Promi
         </section>
         <ScheduleVisitForm properties={properties} technicians={technicians.filter((t) => !t.isDisabled)} defaultDate={date} />
       </div>
+      <section aria-labelledby="team-title" className="mt-10">
+        <h2 id="team-title" className="mb-1 text-2xl font-bold">
+          Technicians, last eight weeks
+        </h2>
+        <p className="mb-3 text-muted">Visits finished each week (weeks start on Monday), zone checks per visit and photos per check.</p>
+        <TeamActivity technicians={team.technicians} />
+      </section>
     </>
   );
 }
