@@ -407,6 +407,22 @@ export interface PropertySummariesTable {
   updated_at: ColumnType<Date, Date | undefined, Date>;
 }
 
+export interface MailOutboxTable {
+  id: Generated<string>;
+  company_id: string;
+  kind: string;
+  dedupe_key: string;
+  to_address: string;
+  subject: string;
+  text_body: string;
+  html_body: string;
+  status: ColumnType<"pending" | "sent", "pending" | "sent" | undefined, "pending" | "sent">;
+  attempts: Generated<number>;
+  last_error: string | null;
+  created_at: Generated<Date>;
+  sent_at: NullableTimestamp;
+}
+
 export interface Database {
   companies: CompaniesTable;
   users: UsersTable;
@@ -430,6 +446,7 @@ export interface Database {
   risk_alerts: RiskAlertsTable;
   risk_alert_events: RiskAlertEventsTable;
   property_summaries: PropertySummariesTable;
+  mail_outbox: MailOutboxTable;
 }
 
 export type Company = Selectable<CompaniesTable>;

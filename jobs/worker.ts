@@ -8,6 +8,8 @@ import { jsonWeatherProvider } from "@/lib/services/weather/provider";
 import { DIGEST_QUEUE, SWEEP_CRON, SWEEP_QUEUE, registerAlertDigest, registerRiskSweep } from "@/lib/risk/jobs";
 import { sendHighAlertDigests } from "@/lib/risk/digest";
 import { smtpMailer } from "@/lib/services/mail";
+import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
+import { deliverPendingMail } from "@/lib/mail/outbox";
 import { sweepBook } from "@/lib/risk/sweep";
 
 const url = process.env.DATABASE_URL;
@@ -44,7 +46,18 @@ await registerAlertDigest(boss, async () => {
   log.info(result, "alert digest sent");
   return result;
 });
+await registerMailOutbox(
+  boss,
+  async () => {
+    if (!mailer) return { sent: 0, pending: 0 };
+    const result = await deliverPendingMail(db, mailer);
+    if (result.sent) log.info(result, "outbox delivered");
+    return result;
+  },
+  { timeZone: zone },
+);
 await boss.send(SWEEP_QUEUE, { reason: "worker start" });
+await boss.send(MAIL_QUEUE, { reason: "worker start" });
 console.log(`worker: ready (daily risk sweep "${SWEEP_CRON}" ${zone})`);
 
 const stop = async () => {

@@ -12,6 +12,7 @@ import { propertyInScope } from "@/lib/properties/scope";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { fillVisitWeather } from "@/lib/weather/mutations";
 import { evaluateAfterVisit } from "@/lib/risk/mutations";
+import { enqueueVisitReportMail } from "@/lib/reports/mutations";
 import { refreshPropertySummary } from "@/lib/book/summary";
 
 /** Keeps the book's summary of a visit's property current. */
@@ -240,8 +241,10 @@ export async function finishVisit(actor: Actor, visitId: string): Promise<VisitD
         .execute();
       await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "finish", changes: { status: { from: visit.status, to: "completed" } } });
     });
-  // Alerts for the property now, so the technician sees them on the summary before leaving.
+  // Alerts for the property now, so the technician sees them on the summary before leaving;
+  // then the homeowners' report e-mail (its care notes include those alerts).
   await evaluateAfterVisit(actor, visitId);
+  await enqueueVisitReportMail(actor, visitId);
   return getVisit(actor, visitId);
 }
 
