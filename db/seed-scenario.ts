@@ -15,6 +15,7 @@ import { checkApplication, isRefused } from "@/lib/agronomy/rules";
 import { findGrassSpecies } from "@/fixtures/grass-species";
 import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 import { deriveDays } from "@/lib/weather/derived";
+import { zoneWateringByDate } from "@/lib/agronomy/water";
 import { addDays, todayIn } from "@/lib/dates";
 import type { Database, NewZoneCheck } from "./schema";
 
@@ -184,9 +185,7 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
       zones
         .filter((z) => z.property_id === propertyId)
         .map((z) => {
-          const wateringInByDate: Record<string, number> = {};
-          for (const w of waterings) if (w.zone_id === z.id) wateringInByDate[w.watered_on] = (wateringInByDate[w.watered_on] ?? 0) + w.depth_in;
-          return [z.id, new Map(deriveDays(weatherDays, { latitudeDeg: p.latitude, kc: 0.8, wateringInByDate }).map((d) => [d.date, d.balance14In]))];
+          return [z.id, new Map(deriveDays(weatherDays, { latitudeDeg: p.latitude, kc: 0.8, wateringInByDate: zoneWateringByDate(waterings, z.id) }).map((d) => [d.date, d.balance14In]))];
         }),
     );
     for (const past of oldestFirst) {

@@ -9,6 +9,7 @@ import { propertyInScope } from "@/lib/properties/scope";
 import type { BookQuery, BookSort } from "./schemas";
 import { addDays, todayIn } from "@/lib/dates";
 import { technicianActivity } from "./team";
+import { escapeLike } from "@/lib/text";
 
 export interface BookRow {
   propertyId: string;
@@ -56,7 +57,6 @@ function decodeCursor(cursor: string): [string | number, string] {
 }
 
 const castAs = (type: string, v: string | number) => (type === "date" ? sql`cast(${String(v)} as date)` : type === "text" ? sql`${String(v)}` : type === "int" ? sql`cast(${Number(v)} as integer)` : sql`cast(${Number(v)} as real)`);
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 function baseQuery(actor: Actor, q: BookQuery) {
   return db()
@@ -76,8 +76,13 @@ function baseQuery(actor: Actor, q: BookQuery) {
     .$if(q.overdue === "1", (b) => b.where("ps.is_overdue", "=", true));
 }
 
-/** One page of the book, and the cursor of the next page (null on the last). */
+/** One page of the book, the cursor of the next page (null on the last), and how many rows the view has. */
 export async function listBook(actor: Actor, q: BookQuery): Promise<{ rows: BookRow[]; nextCursor: string | null; total: number }> {
+  const [page, count] = await Promise.all([bookPage(actor, q), baseQuery(actor, q).select((eb) => eb.fn.countAll<number>().as("n")).executeTakeFirstOrThrow()]);
+  return { ...page, total: Number(count.n) };
+}
+
+async function bookPage(actor: Actor, q: BookQuery): Promise<{ rows: BookRow[]; nextCursor: string | null }> {
   if (actor.role !== "manager") throw new AppError("forbidden", "The book is for managers.");
   const sort = SORTS[q.sort];
   const dir = q.dir ?? sort.dir;
@@ -91,7 +96,6 @@ export async function listBook(actor: Actor, q: BookQuery): Promise<{ rows: Book
     .orderBy("properties.id", dir)
     .limit(q.limit + 1)
     .execute();
-  const total = Number((await baseQuery(actor, q).select((eb) => eb.fn.countAll<number>().as("n")).executeTakeFirstOrThrow()).n);
   const page = rows.slice(0, q.limit);
   const last = page.at(-1);
   return {
@@ -118,7 +122,6 @@ export async function listBook(actor: Actor, q: BookQuery): Promise<{ rows: Book
       reasons: r.attention_reasons ?? [],
     })),
     nextCursor: rows.length > q.limit && last ? encodeCursor(normalise(last.sort_value), last.id) : null,
-    total,
   };
 }
 
@@ -129,7 +132,7 @@ const normalise = (v: unknown): string | number => (typeof v === "number" ? v : 
 export async function* bookRows(actor: Actor, q: BookQuery): AsyncGenerator<BookRow> {
   let after: string | undefined;
   for (;;) {
-    const page = await listBook(actor, { ...q, after, limit: 100 });
+    const page = await bookPage(actor, { ...q, after, limit: 100 });
     yield* page.rows;
     if (!page.nextCursor) return;
     after = page.nextCursor;

@@ -2,8 +2,8 @@
 // keep-off guidance of anything applied, photos as links, and one button to the report.
 import type { VisitReport } from "@/lib/reports/queries";
 import { formatDate } from "@/lib/dates";
+import { escapeHtml } from "@/lib/text";
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
 export function reportEmail(report: Pick<VisitReport, "visitId" | "date" | "propertyName" | "companyName" | "technicianName" | "propertyIndex" | "zones" | "applications" | "careNotes">, appUrl: string, homeownerName: string) {
   const base = appUrl.replace(/\/$/, "");

@@ -6,13 +6,13 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import type { Mailer } from "@/lib/services/mail";
 import { alertKindLabel } from "./labels";
+import { escapeHtml } from "@/lib/text";
 
 export interface DigestResult {
   messages: number;
   alerts: number;
 }
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
 export async function sendHighAlertDigests(executor: Kysely<Database>, mailer: Mailer, options: { appUrl: string }): Promise<DigestResult> {
   const pending = await executor

@@ -5,7 +5,7 @@
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "@/db/schema";
 import { findGrassSpecies } from "@/fixtures/grass-species";
-import { TURF_KC } from "@/lib/agronomy/water";
+import { TURF_KC, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
 import { addDays, todayIn } from "@/lib/dates";
 import { recentTrend } from "@/lib/scoring/history";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
@@ -108,9 +108,7 @@ export async function propertyRuleResults(executor: Executor, companyId: string,
     const apps: ApplicationFacts[] = applications
       .filter((a) => a.zone_id === z.id)
       .map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), productName: a.product_name, findings: (a.findings as ApplicationFacts["findings"]) ?? [] }));
-    const wateringByDate: Record<string, number> = {};
-    for (const w of waterings) if (w.zone_id === null || w.zone_id === z.id) wateringByDate[w.watered_on] = (wateringByDate[w.watered_on] ?? 0) + Number(w.depth_in);
-    const days = toRiskDays(TURF_KC[species?.season ?? "cool"], wateringByDate);
+    const days = toRiskDays(turfKcOf(z.grass_species), zoneWateringByDate(waterings, z.id));
     const trend = recentTrend(own.filter((c) => c.sward_index !== null).map((c) => ({ date: c.scheduled_for, index: c.sward_index! })));
     const zoneResults = [
       mattedCanopy(facts, days, at),

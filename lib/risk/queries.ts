@@ -8,6 +8,7 @@ import type { AlertDto } from "./dto";
 import { alertKindLabel } from "./labels";
 import type { Evidence } from "./rules";
 import type { AlertFilters } from "./schemas";
+import { escapeLike } from "@/lib/text";
 
 function baseQuery(actor: Actor) {
   return db()
@@ -98,4 +99,3 @@ export async function getAlert(actor: Actor, alertId: string): Promise<AlertDto 
   return (await withEvents(rows))[0] ?? null;
 }
 
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);

@@ -3,8 +3,7 @@
 // recomputed at read time); weather through the shared cache of lib/weather/queries.ts.
 import "server-only";
 import { db } from "@/db";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { TURF_KC } from "@/lib/agronomy/water";
+import { lawnKc, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { propertyInScope } from "@/lib/properties/scope";
@@ -114,10 +113,8 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
     const apps: NitrogenEvent[] = applications
       .filter((a) => a.zone_id === z.id)
       .map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: a.product_name }));
-    const wateringByDate: Record<string, number> = {};
-    for (const w of waterings) if (w.zone_id === null || w.zone_id === z.id) wateringByDate[w.watered_on] = (wateringByDate[w.watered_on] ?? 0) + Number(w.depth_in);
-    const kc = TURF_KC[findGrassSpecies(z.grass_species)?.season ?? "cool"];
-    const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc, wateringInByDate: wateringByDate });
+    const wateringByDate = zoneWateringByDate(waterings, z.id);
+    const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc: turfKcOf(z.grass_species), wateringInByDate: wateringByDate });
     return {
       zoneId: z.id,
       name: z.name,
@@ -145,8 +142,7 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
   ).filter((a) => a.date >= from);
 
   // Weather for the charts: the property's mean Kc (area-weighted) for turf use.
-  const kc = lawnArea ? zones.reduce((s, z) => s + TURF_KC[findGrassSpecies(z.grass_species)?.season ?? "cool"] * Number(z.area_ft2), 0) / lawnArea : TURF_KC.cool;
-  const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc, wateringInByDate: {} }).filter((d) => d.date >= from && d.date <= today);
+  const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc: lawnKc(zones), wateringInByDate: {} }).filter((d) => d.date >= from && d.date <= today);
   const indexPoints = visits.map((v) => ({ date: v.date, index: v.index }));
 
   return {

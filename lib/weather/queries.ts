@@ -3,8 +3,7 @@
 // weather panel; the weather snapshot of a visit.
 import "server-only";
 import { db } from "@/db";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { TURF_KC } from "@/lib/agronomy/water";
+import { lawnKc } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { notFound } from "@/lib/http/app-error";
@@ -49,7 +48,7 @@ export async function propertyWeather(actor: Actor, propertyId: string): Promise
 
   const zones = await db().selectFrom("zones").select(["grass_species", "area_ft2"]).where("company_id", "=", actor.companyId).where("property_id", "=", propertyId).where("archived_at", "is", null).execute();
   const totalArea = zones.reduce((s, z) => s + Number(z.area_ft2), 0) || 1;
-  const kc = zones.reduce((s, z) => s + TURF_KC[findGrassSpecies(z.grass_species)?.season ?? "cool"] * Number(z.area_ft2), 0) / totalArea || TURF_KC.cool;
+  const kc = lawnKc(zones);
 
   const waterings = await db()
     .selectFrom("waterings")
