@@ -171,6 +171,13 @@ export interface SignInAttemptsTable {
   attempted_at: Generated<Date>;
 }
 
+export interface SignInLinkRequestsTable {
+  id: Generated<string>;
+  email_key: string;
+  address: string;
+  requested_at: Generated<Date>;
+}
+
 export interface PropertiesTable {
   id: Generated<string>;
   company_id: string;
@@ -431,6 +438,7 @@ export interface Database {
   auth_sessions: AuthSessionsTable;
   verification_tokens: VerificationTokensTable;
   sign_in_attempts: SignInAttemptsTable;
+  sign_in_link_requests: SignInLinkRequestsTable;
   properties: PropertiesTable;
   property_homeowners: PropertyHomeownersTable;
   zones: ZonesTable;

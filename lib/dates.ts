@@ -44,3 +44,10 @@ export function formatDate(date: IsoDate): string {
 export function formatTime(at: Date | string, timeZone: string): string {
   return new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(new Date(at));
 }
+
+/** "Tue 1 Dec, 3:05 PM" in the given zone. */
+export function formatDateTime(at: Date | string, timeZone: string): string {
+  const d = new Date(at);
+  const day = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", timeZone }).format(d);
+  return `${day}, ${formatTime(d, timeZone)}`;
+}

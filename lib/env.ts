@@ -17,6 +17,14 @@ const serverSchema = z.object({
   /** Failed sign-ins allowed per client address within the window. */
   SIGN_IN_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(20),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
+  /** Sign-in links (homeowners) one e-mail address may ask for within the window. */
+  SIGN_IN_LINK_MAX_PER_EMAIL: z.coerce.number().int().positive().default(3),
+  /** Sign-in links one client address may ask for within the window. */
+  SIGN_IN_LINK_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(10),
+  /** Outgoing mail, e.g. smtp://127.0.0.1:2525 (the local fake the demo and tests start). Unset: mail waits in the outbox. */
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, "SMTP_URL must be an smtp:// or smtps:// URL").optional(),
+  /** Development only: the folder of the local fake SMTP service, shown to managers at /dev/mail. */
+  MAIL_INBOX_DIR: z.string().optional(),
   /** Where photo derivatives live: "local" (PHOTO_DIR on this machine) or "s3". */
   PHOTO_STORAGE: z.enum(["local", "s3"]).default("local"),
   PHOTO_DIR: z.string().default(".data/photos"),

@@ -1,12 +1,16 @@
-// next-auth (Auth.js v5): e-mail + password with the JWT session strategy. Each JWT carries the
-// id of a row in auth_sessions; sign-out deletes that row, so an old token can do nothing.
+// next-auth (Auth.js v5): e-mail + password for everyone, and e-mailed sign-in links for
+// homeowners (lib/auth/sign-in-link.ts), with the JWT session strategy. Each JWT carries the id
+// of a row in auth_sessions; sign-out deletes that row, so an old token can do nothing.
 import "server-only";
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
+import Nodemailer from "next-auth/providers/nodemailer";
+import { MAIL_FROM } from "@/lib/services/mail";
 import { log } from "@/lib/log";
 import { checkCredentials } from "./credentials";
 import { createAuthSession, deleteAuthSession } from "./queries";
 import { signInSchema } from "./schemas";
+import { SIGN_IN_LINK_MINUTES, findHomeowner, queueSignInLink, signInLinkAdapter } from "./sign-in-link";
 
 export const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
 
@@ -19,8 +23,8 @@ class ThrottledSignIn extends CredentialsSignin {
 
 // The right-most x-forwarded-for entry is the one added by the nearest proxy (or by Next from the
 // socket when no proxy is in front), so a client cannot choose it behind a load balancer.
-function clientAddress(request: Request): string {
-  const hops = request.headers.get("x-forwarded-for")?.split(",") ?? [];
+export function clientAddress(headers: Headers): string {
+  const hops = headers.get("x-forwarded-for")?.split(",") ?? [];
   return hops.at(-1)?.trim() || "unknown";
 }
 
@@ -38,20 +42,33 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     debug() {},
   },
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
-  pages: { signIn: "/sign-in", error: "/sign-in" },
+  pages: { signIn: "/sign-in", error: "/sign-in", verifyRequest: "/sign-in?sent=1" },
+  adapter: signInLinkAdapter,
   providers: [
+    Nodemailer({
+      // Delivery goes through Sward's outbox (queueSignInLink); nodemailer sends it from there.
+      server: process.env.SMTP_URL ?? "smtp://127.0.0.1:25",
+      from: MAIL_FROM,
+      maxAge: SIGN_IN_LINK_MINUTES * 60,
+      sendVerificationRequest: ({ identifier, url, token }) => queueSignInLink({ identifier, url, token }),
+    }),
     Credentials({
       credentials: { email: { type: "email" }, password: { type: "password" } },
       async authorize(raw, request) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) throw new InvalidCredentials();
-        const result = await checkCredentials({ ...parsed.data, address: clientAddress(request) });
+        const result = await checkCredentials({ ...parsed.data, address: clientAddress(request.headers) });
         if (!result.ok) throw result.reason === "throttled" ? new ThrottledSignIn() : new InvalidCredentials();
         return { id: result.userId };
       },
     }),
   ],
   callbacks: {
+    // Links are for active homeowners only: checked when a link is asked for and again when it is used.
+    async signIn({ account, user }) {
+      if (account?.type !== "email") return true;
+      return Boolean(user.email && (await findHomeowner(user.email)));
+    },
     async jwt({ token, user }) {
       if (user?.id) {
         token.sub = user.id;

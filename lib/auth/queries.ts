@@ -102,3 +102,70 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
     sessionId: row.session_id,
   };
 }
+
+// ── Sign-in links (lib/auth/sign-in-link.ts) ──────────────────────────────────────────────────
+
+export interface Homeowner {
+  userId: string;
+  email: string;
+  name: string;
+  emailVerified: Date | null;
+  companyId: string;
+  companyName: string;
+}
+
+/** An active homeowner account with this (normalised) e-mail, or undefined (staff, disabled, unknown). */
+export async function findHomeowner(emailKey: string): Promise<Homeowner | undefined> {
+  const row = await db()
+    .selectFrom("users")
+    .innerJoin("memberships", "memberships.user_id", "users.id")
+    .innerJoin("companies", "companies.id", "memberships.company_id")
+    .select(["users.id", "users.email", "users.name", "users.email_verified", "memberships.company_id", "companies.name as company_name"])
+    .where("users.email", "=", emailKey)
+    .where("users.disabled_at", "is", null)
+    .where("memberships.role", "=", "homeowner")
+    .executeTakeFirst();
+  return row && { userId: row.id, email: row.email, name: row.name, emailVerified: row.email_verified, companyId: row.company_id, companyName: row.company_name };
+}
+
+export interface LinkUser {
+  id: string;
+  email: string;
+  name: string;
+  emailVerified: Date | null;
+}
+
+export async function findUserById(id: string): Promise<LinkUser | undefined> {
+  const row = await db().selectFrom("users").select(["id", "email", "name", "email_verified"]).where("id", "=", id).executeTakeFirst();
+  return row && { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
+}
+
+export async function markEmailVerified(id: string, at: Date | null | undefined): Promise<LinkUser> {
+  const row = await db().updateTable("users").set({ email_verified: at ?? undefined }).where("id", "=", id).returning(["id", "email", "name", "email_verified"]).executeTakeFirstOrThrow();
+  return { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
+}
+
+export async function storeVerificationToken(token: { identifier: string; token: string; expires: Date }): Promise<void> {
+  await db().deleteFrom("verification_tokens").where("expires", "<", sql<Date>`now() - interval '1 day'`).execute();
+  await db().insertInto("verification_tokens").values(token).execute();
+}
+
+/** Deleting as it is read makes a link single-use, even when opened twice at once. */
+export async function takeVerificationToken(identifier: string, token: string): Promise<{ identifier: string; token: string; expires: Date } | undefined> {
+  return db().deleteFrom("verification_tokens").where("identifier", "=", identifier).where("token", "=", token).returningAll().executeTakeFirst();
+}
+
+export async function countRecentLinkRequests(emailKey: string, address: string, windowMinutes: number): Promise<{ forEmail: number; fromAddress: number }> {
+  const since = sql<Date>`now() - make_interval(mins => ${windowMinutes})`;
+  const row = await db()
+    .selectNoFrom((eb) => [
+      eb.selectFrom("sign_in_link_requests").select((e) => e.fn.countAll<number>().as("n")).where("email_key", "=", emailKey).where("requested_at", ">", since).as("for_email"),
+      eb.selectFrom("sign_in_link_requests").select((e) => e.fn.countAll<number>().as("n")).where("address", "=", address).where("requested_at", ">", since).as("from_address"),
+    ])
+    .executeTakeFirstOrThrow();
+  return { forEmail: Number(row.for_email ?? 0), fromAddress: Number(row.from_address ?? 0) };
+}
+
+export async function recordLinkRequest(emailKey: string, address: string): Promise<void> {
+  await db().insertInto("sign_in_link_requests").values({ email_key: emailKey, address: address.slice(0, 100) }).execute();
+}

@@ -6,9 +6,10 @@ import type { Role } from "@/db/schema";
 import { type Actor, landingPath } from "./actor";
 import { getActor } from "./session";
 
-export async function requireActor(roles: readonly Role[]): Promise<Actor> {
+/** returnTo: the page to come back to after signing in (e.g. the report an e-mail linked to). */
+export async function requireActor(roles: readonly Role[], returnTo?: string): Promise<Actor> {
   const actor = await getActor();
-  if (!actor) redirect("/sign-in");
+  if (!actor) redirect(returnTo ? `/sign-in?${new URLSearchParams({ callbackUrl: returnTo })}` : "/sign-in");
   if (!roles.includes(actor.role)) redirect(landingPath(actor.role));
   return actor;
 }

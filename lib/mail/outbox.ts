@@ -26,19 +26,35 @@ export async function enqueueMail(executor: Kysely<Database>, mail: OutgoingMail
   return Boolean(inserted);
 }
 
-/** Sends what is pending, oldest first. Stops at the first SMTP failure (the service is likely down) and throws, so the job retries. */
-export async function deliverPendingMail(executor: Kysely<Database>, mailer: Mailer, limit = 100): Promise<{ sent: number; pending: number }> {
-  const pending = await executor.selectFrom("mail_outbox").selectAll().where("status", "=", "pending").orderBy("created_at").limit(limit).execute();
+/**
+ * Sends what is pending, oldest first, one row at a time: each row is claimed with
+ * `for update skip locked`, so the worker and a web process delivering at the same moment never
+ * send the same message twice. Stops at the first SMTP failure (the service is likely down) and
+ * throws, so the job retries.
+ */
+export async function deliverPendingMail(executor: Kysely<Database>, mailer: Mailer, limit = 100, filter?: { kind?: string }): Promise<{ sent: number; pending: number }> {
   let sent = 0;
-  for (const m of pending) {
-    try {
-      await mailer.send({ to: m.to_address, subject: m.subject, text: m.text_body, html: m.html_body });
-    } catch (err) {
-      await executor.updateTable("mail_outbox").set((eb) => ({ attempts: eb("attempts", "+", 1), last_error: String(err instanceof Error ? err.message : err).slice(0, 500) })).where("id", "=", m.id).execute();
-      throw err;
-    }
-    await executor.updateTable("mail_outbox").set((eb) => ({ status: "sent", sent_at: new Date(), attempts: eb("attempts", "+", 1), last_error: null })).where("id", "=", m.id).where("status", "=", "pending").execute();
+  while (sent < limit) {
+    const outcome = await executor.transaction().execute(async (trx) => {
+      let query = trx.selectFrom("mail_outbox").selectAll().where("status", "=", "pending");
+      if (filter?.kind) query = query.where("kind", "=", filter.kind);
+      const m = await query.orderBy("created_at").limit(1).forUpdate().skipLocked().executeTakeFirst();
+      if (!m) return "empty" as const;
+      try {
+        await mailer.send({ to: m.to_address, subject: m.subject, text: m.text_body, html: m.html_body });
+      } catch (err) {
+        await trx.updateTable("mail_outbox").set((eb) => ({ attempts: eb("attempts", "+", 1), last_error: String(err instanceof Error ? err.message : err).slice(0, 500) })).where("id", "=", m.id).execute();
+        return { error: err };
+      }
+      await trx.updateTable("mail_outbox").set((eb) => ({ status: "sent", sent_at: new Date(), attempts: eb("attempts", "+", 1), last_error: null })).where("id", "=", m.id).execute();
+      return "sent" as const;
+    });
+    if (outcome === "empty") break;
+    if (outcome !== "sent") throw outcome.error;
     sent++;
   }
-  return { sent, pending: pending.length - sent };
+  let remaining = executor.selectFrom("mail_outbox").select((eb) => eb.fn.countAll<string>().as("n")).where("status", "=", "pending");
+  if (filter?.kind) remaining = remaining.where("kind", "=", filter.kind);
+  const { n } = await remaining.executeTakeFirstOrThrow();
+  return { sent, pending: Number(n) };
 }

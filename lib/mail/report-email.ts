@@ -21,6 +21,7 @@ export function reportEmail(report: Pick<VisitReport, "visitId" | "date" | "prop
     ...(photos.length ? ["", "Photos (sign in to see them):", ...photos.map((p) => `• ${p.zone}: ${p.url}`)] : []),
     "",
     `Read the full report: ${link}`,
+    "To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.",
     "",
     `— ${report.companyName}`,
   ];
@@ -31,6 +32,7 @@ ${report.applications.length ? `<p>Applied: ${escapeHtml([...new Set(report.appl
 ${report.careNotes.length ? `<p>Care notes for you:</p><ul>${report.careNotes.map((n) => `<li>${escapeHtml(n.note.title)}</li>`).join("")}</ul>` : ""}
 ${photos.length ? `<p>Photos (sign in to see them): ${photos.map((p) => `<a href="${escapeHtml(p.url)}">${escapeHtml(p.zone)}</a>`).join(" · ")}</p>` : ""}
 <p><a href="${escapeHtml(link)}" style="display:inline-block;background:#2f6b3a;color:#fff;padding:12px 18px;border-radius:8px;text-decoration:none;font-weight:bold">Read your visit report</a></p>
+<p style="color:#5b665e">To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.</p>
 <p>— ${escapeHtml(report.companyName)}</p>
 </div>`;
   return { subject, text: lines.join("\n"), html };

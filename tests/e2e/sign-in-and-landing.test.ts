@@ -68,7 +68,7 @@ describe("sign-in errors and sign-out", () => {
     const alert = page.locator("form").getByRole("alert");
     await alert.waitFor();
     expect(await alert.innerText()).toContain("do not match an account");
-    expect(await page.getByLabel("E-mail").inputValue()).toBe("tech2@demo.sward.test");
+    expect(await page.getByLabel("E-mail", { exact: true }).inputValue()).toBe("tech2@demo.sward.test");
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     expect(await seriousViolations(page)).toEqual([]);
     await context.close();

@@ -62,15 +62,17 @@ const WEATHER_PORT = Number(process.env.SWARD_WEATHER_PORT ?? 3999);
 const WEATHER_BASE_URL = process.env.WEATHER_BASE_URL ?? `http://127.0.0.1:${WEATHER_PORT}`;
 const weather = process.env.WEATHER_BASE_URL ? null : spawn("node_modules/.bin/tsx", ["tests/harness/weather-fake.ts", String(WEATHER_PORT)], { stdio: ["ignore", "ignore", "inherit"] });
 
-const server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
-  stdio: ["ignore", "inherit", "inherit"],
-  env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL, AUTH_SECRET, AUTH_URL, WEATHER_BASE_URL },
-});
-
-// The local fake SMTP service: every message lands in .data/mail (read it with `npm run mail:inbox`).
+// The local fake SMTP service: every message lands in .data/mail (managers read it at /dev/mail, or `npm run mail:inbox`).
 const SMTP_PORT = Number(process.env.SWARD_SMTP_PORT ?? 2525);
 const SMTP_URL = process.env.SMTP_URL ?? `smtp://127.0.0.1:${SMTP_PORT}`;
 const smtp = process.env.SMTP_URL ? null : spawn("node_modules/.bin/tsx", ["tests/harness/smtp-fake.ts", String(SMTP_PORT), ".data/mail"], { stdio: ["ignore", "ignore", "inherit"] });
+const MAIL_INBOX_DIR = process.env.SMTP_URL ? undefined : ".data/mail";
+
+const server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
+  stdio: ["ignore", "inherit", "inherit"],
+  env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL, AUTH_SECRET, AUTH_URL, WEATHER_BASE_URL, SMTP_URL, ...(MAIL_INBOX_DIR ? { MAIL_INBOX_DIR } : {}) },
+});
+
 
 // The background worker (pg-boss): the daily risk sweep, and one sweep now; the managers' digest after it.
 const worker = spawn("node_modules/.bin/tsx", ["jobs/worker.ts"], { stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, DATABASE_URL, WEATHER_BASE_URL, SMTP_URL, AUTH_URL, LOG_LEVEL: process.env.LOG_LEVEL ?? "warn" } });
@@ -88,7 +90,7 @@ console.log(`\nSward is running at ${AUTH_URL}  (server PID ${server.pid}, worke
 console.log("Demo sign-ins:");
 for (const company of demoScenario) for (const p of company.people) console.log(`  ${p.email.padEnd(28)} ${p.role.padEnd(11)} ${company.name}`);
 console.log(`Demo password: ${DEMO_PASSWORD}`);
-console.log(`Mail sent by the demo (managers' alert digest) is kept by a local fake: npm run mail:inbox\n`);
+console.log(`Homeowners can also sign in with an e-mailed link. Mail the demo sends (sign-in links, visit reports, the managers' digest)\nis kept by a local fake: signed in as the manager, open ${AUTH_URL}/dev/mail — or run npm run mail:inbox\n`);
 
 let stopping = false;
 function stop() {

@@ -1,20 +1,13 @@
 // The local fake SMTP service (development and tests): accepts mail on 127.0.0.1 without auth,
 // parses it and keeps every message as JSON in a folder (the development inbox).
 // `tsx tests/harness/smtp-fake.ts [port] [dir]` — defaults 2525 and .data/mail.
-import { mkdir, readdir, readFile, writeFile } from "node:fs/promises";
+import { mkdir, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
+import type { StoredMail } from "@/lib/mail/inbox-folder";
 
-export interface StoredMail {
-  id: string;
-  receivedAt: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string;
-}
+export { readInbox } from "@/lib/mail/inbox-folder";
 
 export async function startSmtpFake(port: number, dir: string): Promise<{ server: SMTPServer; port: number; close: () => Promise<void> }> {
   await mkdir(dir, { recursive: true });
@@ -42,12 +35,6 @@ export async function startSmtpFake(port: number, dir: string): Promise<{ server
   });
   const address = server.server.address();
   return { server, port: typeof address === "object" && address ? address.port : port, close: () => new Promise((r) => server.close(() => r())) };
-}
-
-/** The messages in the inbox folder, oldest first. */
-export async function readInbox(dir: string): Promise<StoredMail[]> {
-  const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => n.endsWith(".json")).sort();
-  return Promise.all(names.map(async (n) => JSON.parse(await readFile(path.join(dir, n), "utf8")) as StoredMail));
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(new URL(import.meta.url).pathname)) {

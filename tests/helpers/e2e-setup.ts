@@ -1,12 +1,15 @@
 // E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
-// on 127.0.0.1. Builds first when no build exists. Stops the server by its PID afterwards.
+// on 127.0.0.1, with the local fake weather and SMTP services beside it. Builds first when no build
+// exists or a source changed. Stops what it started afterwards (the server by its PID).
 import { type ChildProcess, spawn } from "node:child_process";
-import { existsSync, readdirSync, statSync } from "node:fs";
+import { existsSync, readdirSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
+import { startSmtpFake } from "../harness/smtp-fake";
 import { TSX, run, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
+const MAIL_DIR = path.resolve("tests/.artifacts/mail-e2e");
 let server: ChildProcess | undefined;
 let weather: ChildProcess | undefined;
 
@@ -34,6 +37,8 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const weatherPort = PORT + 1;
   weather = spawn(TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], { stdio: ["ignore", "ignore", "inherit"] });
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
+  rmSync(MAIL_DIR, { recursive: true, force: true });
+  const smtp = await startSmtpFake(0, MAIL_DIR);
   server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
     stdio: ["ignore", "ignore", "inherit"],
     env: {
@@ -46,12 +51,17 @@ export default async function setup(project: TestProject): Promise<() => Promise
       LOG_LEVEL: "warn",
       PHOTO_DIR: "tests/.artifacts/photos-e2e",
       WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
+      SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
+      MAIL_INBOX_DIR: MAIL_DIR,
     },
   });
   await waitForUrl(`${baseUrl}/sign-in`, 30_000);
   project.provide("baseUrl", baseUrl);
+  project.provide("mailDir", MAIL_DIR);
+  project.provide("databaseUrl", databaseUrl);
 
   return async () => {
+    await smtp.close();
     if (weather?.pid && weather.exitCode === null) weather.kill("SIGTERM");
     if (server?.pid && server.exitCode === null) {
       server.kill("SIGTERM");
@@ -63,5 +73,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
+    mailDir: string;
+    databaseUrl: string;
   }
 }

@@ -15,7 +15,7 @@ import { todayIn } from "@/lib/dates";
 export const metadata: Metadata = { title: "My lawn" };
 
 export default async function MyLawnPage() {
-  const actor = await requireActor(["homeowner"]);
+  const actor = await requireActor(["homeowner"], "/my-lawn");
   const summaries = await listProperties(actor);
   const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }), reports: await listReports(actor, p.id), waterings: await listWaterings(actor, p.id, { limit: 30 }) })));
 

@@ -11,8 +11,8 @@ import { visitIdParams } from "@/lib/visits/schemas";
 export const metadata: Metadata = { title: "Visit report" };
 
 export default async function VisitReportPage({ params }: { params: Promise<{ visitId: string }> }) {
-  const actor = await requireActor(["homeowner"]);
   const parsed = visitIdParams.safeParse(await params);
+  const actor = await requireActor(["homeowner"], parsed.success ? `/my-lawn/visits/${parsed.data.visitId}` : "/my-lawn");
   if (!parsed.success) notFound();
   const report = await getVisitReport(actor, parsed.data.visitId).catch((err: unknown) => {
     if (err instanceof AppError && err.code === "not_found") notFound();

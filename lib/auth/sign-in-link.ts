@@ -1,0 +1,65 @@
+// Sign-in links for homeowners (Auth.js e-mail provider). Staff keep their passwords; only an
+// active homeowner gets a link. A link works once (the token row is deleted as it is used) and
+// for SIGN_IN_LINK_MINUTES; what travels in the e-mail is the token, what is stored is its hash
+// (Auth.js hashes it with the secret). Requests are throttled in requestSignInLinkAction.
+import "server-only";
+import { createHash } from "node:crypto";
+import type { Adapter, AdapterUser } from "next-auth/adapters";
+import { queueMail } from "@/lib/mail/mutations";
+import { signInLinkEmail } from "@/lib/mail/sign-in-email";
+import { type Homeowner, findHomeowner as findHomeownerByKey, findUserById, markEmailVerified, storeVerificationToken, takeVerificationToken } from "./queries";
+import { normaliseEmail } from "./throttle";
+
+export { countRecentLinkRequests, recordLinkRequest } from "./queries";
+
+export const SIGN_IN_LINK_MINUTES = 15;
+export const SIGN_IN_LINK_PROVIDER = "nodemailer";
+
+export function findHomeowner(email: string): Promise<Homeowner | undefined> {
+  return findHomeownerByKey(normaliseEmail(email));
+}
+
+const asAdapterUser = (h: Homeowner): AdapterUser => ({ id: h.userId, email: h.email, name: h.name, emailVerified: h.emailVerified });
+
+/** Just what the e-mail provider needs. Sward never creates an account at sign-in. */
+export const signInLinkAdapter: Adapter = {
+  async createVerificationToken(token) {
+    await storeVerificationToken(token);
+    return token;
+  },
+  async useVerificationToken({ identifier, token }) {
+    if (!identifier || !token) return null;
+    return (await takeVerificationToken(identifier, token)) ?? null;
+  },
+  async getUserByEmail(email) {
+    const h = await findHomeowner(email);
+    return h ? asAdapterUser(h) : null;
+  },
+  async getUser(id) {
+    return (await findUserById(id)) ?? null;
+  },
+  async updateUser(user) {
+    return markEmailVerified(user.id, user.emailVerified);
+  },
+  async createUser() {
+    throw new Error("Sward does not create accounts at sign-in.");
+  },
+};
+
+/**
+ * Auth.js hands over the callback URL; the e-mail links to our confirmation page instead, which
+ * sends the homeowner on with one tap. Mail scanners that open links do not use up the token.
+ */
+export function confirmationUrl(callbackUrl: string): string {
+  const url = new URL(callbackUrl);
+  return `${url.origin}/sign-in/link?${url.searchParams.toString()}`;
+}
+
+/** The provider's sendVerificationRequest: the message goes into the outbox (delivered right after the response, retried by the worker). */
+export async function queueSignInLink(params: { identifier: string; url: string; token: string }): Promise<void> {
+  const h = await findHomeowner(params.identifier);
+  if (!h) return; // the signIn callback refuses these before a token is made
+  const mail = signInLinkEmail({ link: confirmationUrl(params.url), minutes: SIGN_IN_LINK_MINUTES, companyName: h.companyName, name: h.name });
+  const key = createHash("sha256").update(params.token).digest("hex").slice(0, 40);
+  await queueMail({ companyId: h.companyId, kind: "sign_in_link", dedupeKey: `sign_in_link:${key}`, to: h.email, ...mail });
+}

@@ -1,0 +1,31 @@
+// Mail from the web process. queueMail puts a message in the outbox; deliverMailAfterResponse
+// delivers what is waiting in the outbox right after the response is sent,
+// so a sign-in link or a report e-mail arrives in seconds. If SMTP fails the row stays pending and
+// the worker's minute-by-minute run retries it; row claims keep the two from sending it twice.
+import "server-only";
+import { after } from "next/server";
+import { db } from "@/db";
+import { serverEnv } from "@/lib/env";
+import { log } from "@/lib/log";
+import { type Mailer, smtpMailer } from "@/lib/services/mail";
+import { type OutgoingMail, deliverPendingMail, enqueueMail } from "./outbox";
+
+export function queueMail(mail: OutgoingMail): Promise<boolean> {
+  return enqueueMail(db(), mail);
+}
+
+let mailer: Mailer | undefined;
+
+export function deliverMailAfterResponse(kind?: string): void {
+  const url = serverEnv().SMTP_URL;
+  if (!url) return; // no SMTP here: the worker delivers when it has one
+  mailer ??= smtpMailer(url);
+  const m = mailer;
+  after(async () => {
+    try {
+      await deliverPendingMail(db(), m, 20, kind ? { kind } : undefined);
+    } catch (err) {
+      log.warn({ err: err instanceof Error ? err.message : String(err), kind }, "mail delivery failed; the worker will retry");
+    }
+  });
+}

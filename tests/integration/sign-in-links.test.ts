@@ -1,0 +1,100 @@
+// Sign-in links against the real database: only active homeowners get one, a token is used up the
+// first time (also when opened twice at once), a tampered e-mail does not consume it, requests are
+// counted per e-mail and per address, and the link e-mail goes out once even when the web process
+// and the worker deliver at the same moment.
+import { mkdtemp } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { confirmationUrl, countRecentLinkRequests, queueSignInLink, recordLinkRequest, signInLinkAdapter } from "@/lib/auth/sign-in-link";
+import { deliverPendingMail } from "@/lib/mail/outbox";
+import { smtpMailer } from "@/lib/services/mail";
+import { readInbox, startSmtpFake } from "../harness/smtp-fake";
+import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+let c: TestCompany;
+let dir = "";
+let smtp: Awaited<ReturnType<typeof startSmtpFake>>;
+const adapter = signInLinkAdapter as Required<typeof signInLinkAdapter>;
+
+beforeAll(async () => {
+  c = await createTestCompany();
+  dir = await mkdtemp(path.join(tmpdir(), "sward-links-"));
+  smtp = await startSmtpFake(0, dir);
+});
+afterAll(async () => {
+  await smtp.close();
+});
+
+describe("who can get a sign-in link", () => {
+  it("an active homeowner, found by e-mail in any case", async () => {
+    const user = await adapter.getUserByEmail(c.emails["owner1"]!.toUpperCase());
+    expect(user).toMatchObject({ id: c.userIds["owner1"], email: c.emails["owner1"] });
+  });
+  it("not a technician or a manager (they keep their passwords), nor a disabled homeowner or a stranger", async () => {
+    expect(await adapter.getUserByEmail(c.emails["tech1"]!)).toBeNull();
+    expect(await adapter.getUserByEmail(c.emails["manager"]!)).toBeNull();
+    expect(await adapter.getUserByEmail("nobody@nowhere.sward.test")).toBeNull();
+    const other = await createTestCompany();
+    await testDb().updateTable("users").set({ disabled_at: new Date() }).where("id", "=", other.userIds["owner3"]!).execute();
+    expect(await adapter.getUserByEmail(other.emails["owner3"]!)).toBeNull();
+  });
+  it("never creates an account", async () => {
+    await expect(adapter.createUser({ id: "x", email: "new@sward.test", emailVerified: null })).rejects.toThrow(/does not create accounts/);
+  });
+});
+
+describe("a link's token", () => {
+  const identifier = () => c.emails["owner1"]!;
+  it("works once: the second use — even at the same moment — finds nothing", async () => {
+    const token = `hash-${Date.now()}-a`;
+    await adapter.createVerificationToken({ identifier: identifier(), token, expires: new Date(Date.now() + 15 * 60_000) });
+    const [first, second] = await Promise.all([adapter.useVerificationToken({ identifier: identifier(), token }), adapter.useVerificationToken({ identifier: identifier(), token })]);
+    expect([first, second].filter(Boolean)).toHaveLength(1);
+    expect(await adapter.useVerificationToken({ identifier: identifier(), token })).toBeNull();
+  });
+  it("used with another e-mail address it finds nothing and stays usable by its owner", async () => {
+    const token = `hash-${Date.now()}-b`;
+    await adapter.createVerificationToken({ identifier: identifier(), token, expires: new Date(Date.now() + 15 * 60_000) });
+    expect(await adapter.useVerificationToken({ identifier: c.emails["owner2"]!, token })).toBeNull();
+    expect(await adapter.useVerificationToken({ identifier: identifier(), token })).toMatchObject({ identifier: identifier() });
+  });
+  it("comes back with its expiry, so Auth.js can refuse an expired one", async () => {
+    const token = `hash-${Date.now()}-c`;
+    const expires = new Date(Date.now() - 60_000);
+    await adapter.createVerificationToken({ identifier: identifier(), token, expires });
+    const used = await adapter.useVerificationToken({ identifier: identifier(), token });
+    expect(used?.expires.getTime()).toBe(expires.getTime());
+  });
+});
+
+describe("throttling link requests", () => {
+  it("counts per e-mail address and per client address within the window", async () => {
+    const email = `counted-${Date.now()}@sward.test`;
+    await recordLinkRequest(email, "203.0.113.7");
+    await recordLinkRequest(email, "203.0.113.8");
+    await recordLinkRequest(`other-${email}`, "203.0.113.7");
+    expect(await countRecentLinkRequests(email, "203.0.113.7", 15)).toEqual({ forEmail: 2, fromAddress: 2 });
+    await testDb().updateTable("sign_in_link_requests").set({ requested_at: new Date(Date.now() - 20 * 60_000) }).where("email_key", "=", email).execute();
+    expect(await countRecentLinkRequests(email, "203.0.113.7", 15)).toEqual({ forEmail: 0, fromAddress: 1 });
+  });
+});
+
+describe("the link e-mail", () => {
+  it("links to the confirmation page (not straight to the token check) and is delivered once with two deliverers racing", async () => {
+    const callback = "http://localhost:3000/api/auth/callback/nodemailer?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test";
+    expect(confirmationUrl(callback)).toBe("http://localhost:3000/sign-in/link?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test");
+
+    const to = c.emails["owner2"]!;
+    await queueSignInLink({ identifier: to, url: callback.replace("owner%40x.test", encodeURIComponent(to)), token: `tok-${Date.now()}` });
+    await queueSignInLink({ identifier: "stranger@sward.test", url: callback, token: `tok-${Date.now()}-s` }); // no account: nothing queued
+    const mailer = smtpMailer(`smtp://127.0.0.1:${smtp.port}`);
+    await Promise.all([deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" }), deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" })]);
+    const mails = (await readInbox(dir)).filter((m) => m.to.includes(to));
+    expect(mails).toHaveLength(1);
+    expect(mails[0]!.subject).toMatch(/^Your sign-in link for /);
+    expect(mails[0]!.text).toMatch(/works once, within 15 minutes/);
+    expect(mails[0]!.text).toContain("/sign-in/link?");
+    expect((await readInbox(dir)).some((m) => m.to.includes("stranger@sward.test"))).toBe(false);
+  });
+});
