@@ -231,4 +231,27 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     expect((await page.goto(reportPath))?.status()).toBe(404);
     await context.close();
   });
+
+  it("the manager reads the same mail in the development inbox; the other company's manager sees none of it", async () => {
+    const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
+    const page = await context.newPage();
+    await signIn(page, baseUrl, "manager@demo.sward.test");
+    await page.waitForURL("**/properties");
+    await page.goto("/dev/mail");
+    const list = page.getByRole("list", { name: "Messages, newest first" });
+    await list.getByRole("link", { name: /Your lawn visit report — Oyelaran residence/ }).click();
+    await page.getByRole("heading", { level: 2, name: /Your lawn visit report — Oyelaran residence/ }).waitFor();
+    expect(await page.locator("pre").innerText()).toMatch(/Change the mowing direction every few mowings/);
+    expect(await list.getByRole("link", { name: /Your sign-in link for/ }).count()).toBe(3);
+    await snap(page, "mail-07-development-inbox");
+    await context.close();
+
+    const other = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
+    const page2 = await other.newPage();
+    await signIn(page2, baseUrl, "manager@other.sward.test");
+    await page2.waitForURL("**/properties");
+    await page2.goto("/dev/mail");
+    await page2.getByText("No mail yet.").waitFor();
+    await other.close();
+  });
 });

@@ -46,7 +46,7 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
         <p className="rounded-xl border border-line bg-card p-4">No mail yet. Finish a visit, or ask for a sign-in link as a homeowner.</p>
       ) : (
         <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
-          <ol aria-label="Messages, newest first" className="divide-y divide-line overflow-hidden rounded-xl border border-line bg-card">
+          <ol aria-label="Messages, newest first" className="self-start divide-y divide-line overflow-hidden rounded-xl border border-line bg-card">
             {mails.map((m) => (
               <li key={m.id}>
                 <Link href={`/dev/mail?id=${encodeURIComponent(m.id)}`} aria-current={m.id === open?.id ? "true" : undefined} className={`block p-3 no-underline hover:bg-sward-tint ${m.id === open?.id ? "bg-sward-tint" : ""}`}>
