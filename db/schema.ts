@@ -411,6 +411,9 @@ export interface PropertySummariesTable {
   n_max_lb: number | null;
   attention_score: number;
   attention_reasons: ColumnType<string[], string[] | undefined, string[]>;
+  zones_total: Generated<number>;
+  zones_enough_checks: Generated<number>;
+  zones_responding_n: Generated<number>;
   updated_at: ColumnType<Date, Date | undefined, Date>;
 }
 

@@ -1,5 +1,6 @@
 // Loads a scenario (fixtures/demo-scenario.ts) into a database. Shared by the demo seed and the
 // tests, which call it with their own scenario or the demo one.
+import { refreshPropertySummary } from "@/lib/book/summary";
 import { randomUUID } from "node:crypto";
 import type { Kysely, Transaction } from "kysely";
 import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo-scenario";
@@ -108,6 +109,8 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
     }
     const seeded = { companyId, userIds, propertyIds };
     await seedSchedule(trx, seeded, company, todayIn(companyTimeZone(company)));
+    // The book reads each property's summary; the write paths keep it from here on.
+    for (const propertyId of Object.values(propertyIds)) await refreshPropertySummary(trx, companyId, propertyId);
     return seeded;
   });
 }

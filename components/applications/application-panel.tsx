@@ -9,7 +9,7 @@ import { Field, inputClass } from "@/components/ui/field";
 import { type RuleFinding, checkApplication } from "@/lib/agronomy/rules";
 import { type RateUnit, isVolumeUnit, nutrientsPer1000, productForArea, rateForNitrogen } from "@/lib/agronomy/nutrients";
 import type { ApplicationDto } from "@/lib/applications/dto";
-import { RATE_UNITS, RATE_UNIT_LABEL } from "@/lib/applications/schemas";
+import { RATE_UNITS, RATE_UNIT_LABEL } from "@/lib/applications/units";
 import { todayIn } from "@/lib/dates";
 import { type ProductDto, analysisOf } from "@/lib/products/dto";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";

@@ -5,13 +5,14 @@ import { DistributionChart } from "@/components/charts/distribution-chart";
 import { MIN_CHECKS_FOR_CORRELATION, RESPONDS_TO_N_R } from "@/lib/scoring/history";
 import type { BookScoring } from "@/lib/scoring/queries";
 import { ChartFigure, Td, Th } from "./chart-figure";
-import { TrendBadge } from "./trend-badge";
+
+/** Named one by one up to this many; beyond it, the first few and a link to the filtered book. */
+const NAMED_DECLINING = 8;
 
 export function BookSummary({ book }: { book: BookScoring }) {
-  const scored = book.properties.filter((p) => p.latest);
-  const declining = book.properties.filter((p) => p.trend?.word === "declining");
+  const declining = book.declining;
   const share = book.zonesWithEnoughChecks ? Math.round((100 * book.zonesRespondingToN) / book.zonesWithEnoughChecks) : null;
-  const median = scored.length ? [...scored].sort((a, b) => a.latest!.index - b.latest!.index)[Math.floor((scored.length - 1) / 2)]!.latest!.index : null;
+  const median = book.median;
   return (
     <section aria-labelledby="book-title" className="mb-8 space-y-3">
       <h2 id="book-title" className="text-2xl font-bold">
@@ -21,11 +22,23 @@ export function BookSummary({ book }: { book: BookScoring }) {
         <ChartFigure
           id="book-distribution"
           title="Property indexes"
-          tableCaption="Properties by latest index"
+          tableCaption="Properties by latest index, in bins of 10"
           summary={
             <p>
-              {scored.length} of {book.properties.length} properties have an Index{median !== null ? `, with a median of ${Math.round(median)}` : ""}.{" "}
-              {declining.length === 0 ? "None is declining." : `Declining: ${declining.map((p) => p.name).join(", ")}.`}
+              {book.scored} of {book.total} properties have an Index{median !== null ? `, with a median of ${Math.round(median)}` : ""}.{" "}
+              {declining.length === 0 ? (
+                "None is declining."
+              ) : declining.length <= NAMED_DECLINING ? (
+                `Declining: ${declining.map((p) => p.name).join(", ")}.`
+              ) : (
+                <>
+                  {declining.length} are declining, steepest first: {declining.slice(0, 5).map((p) => p.name).join(", ")}…{" "}
+                  <Link href="/properties?trend=declining" className="font-semibold text-sward">
+                    See all {declining.length} in the book
+                  </Link>
+                  .
+                </>
+              )}
             </p>
           }
           chart={<DistributionChart label="Number of properties by latest property index, in bins of 10" bins={book.distribution} />}
@@ -33,23 +46,17 @@ export function BookSummary({ book }: { book: BookScoring }) {
             <>
               <thead>
                 <tr>
-                  <Th>Property</Th>
                   <Th>Latest index</Th>
-                  <Th>Trend</Th>
+                  <Th>Properties</Th>
                 </tr>
               </thead>
               <tbody>
-                {book.properties.map((p) => (
-                  <tr key={p.propertyId}>
+                {book.distribution.map((b) => (
+                  <tr key={b.from}>
                     <Td>
-                      <Link href={`/properties/${p.propertyId}`} className="font-semibold text-sward">
-                        {p.name}
-                      </Link>
+                      {b.from}–{b.to}
                     </Td>
-                    <Td className="font-bold">{p.latest ? Math.round(p.latest.index) : "—"}</Td>
-                    <Td>
-                      <TrendBadge word={p.trend?.word ?? null} />
-                    </Td>
+                    <Td className="font-bold">{b.count}</Td>
                   </tr>
                 ))}
               </tbody>

@@ -3,7 +3,7 @@
 // failed saves are retried with back-off; a stale version becomes a visible conflict; an
 // acknowledged save never drops what was typed while it was in flight.
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
-import { emptyZoneCheck } from "@/lib/visits/schemas";
+import { emptyZoneCheck } from "@/lib/visits/zone-check-rules";
 import type { SendResult } from "@/lib/query-client";
 import type { DeviceDraft } from "./draft-store";
 

@@ -10,7 +10,7 @@ import { ToggleChip } from "@/components/ui/toggle-chip";
 import { Button } from "@/components/ui/button";
 import type { ZoneDto } from "@/lib/properties/dto";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
-import { zoneCheckSchema } from "@/lib/visits/schemas";
+import { zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
 import { RatingPicker } from "./rating-picker";
 import { SaveStatus } from "./save-status";
 import { SymptomPicker } from "./symptom-picker";
@@ -81,11 +81,9 @@ export function ZoneCheckForm({
   const disabled = !canEdit;
 
   function markDone() {
-    const result = zoneCheckSchema.safeParse({ ...values, status: "done", baseVersion: 0 });
-    if (!result.success) {
-      const fieldErrors: Record<string, string[]> = {};
-      for (const issue of result.error.issues) (fieldErrors[String(issue.path[0])] ??= []).push(issue.message);
-      setLocalErrors(fieldErrors);
+    const missing = zoneCheckCompleteness({ ...values, status: "done" });
+    if (Object.keys(missing).length) {
+      setLocalErrors(Object.fromEntries(Object.entries(missing).map(([field, message]) => [field, [message]])));
       return;
     }
     setLocalErrors({});

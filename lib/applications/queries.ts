@@ -65,6 +65,7 @@ export async function propertyNitrogenByZone(actor: Actor, propertyId: string, y
     .innerJoin("visits", "visits.id", "applications.visit_id")
     .where("applications.company_id", "=", actor.companyId)
     .where("visits.property_id", "=", propertyId)
+      .where("visits.company_id", "=", actor.companyId) // lets the planner use visits_property_idx
     .where("applied_on", ">=", `${year}-01-01`)
     .where("applied_on", "<=", `${year}-12-31`)
     .groupBy("zone_id")
@@ -84,6 +85,7 @@ export async function listPropertyApplications(actor: Actor, propertyId: string,
     .where(visitInScope(actor))
     .where("applications.company_id", "=", actor.companyId)
     .where("visits.property_id", "=", propertyId)
+      .where("visits.company_id", "=", actor.companyId) // lets the planner use visits_property_idx
     .where("applications.applied_on", ">=", `${year}-01-01`)
     .where("applications.applied_on", "<=", `${year}-12-31`)
     .orderBy("applications.applied_on", "desc")

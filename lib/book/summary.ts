@@ -11,7 +11,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { findGrassSpecies } from "@/fixtures/grass-species";
 import { addDays, daysBetween, todayIn } from "@/lib/dates";
-import { propertyIndexByVisit, recentTrend } from "@/lib/scoring/history";
+import { MIN_CHECKS_FOR_CORRELATION, NITROGEN_WINDOW_DAYS, propertyIndexByVisit, recentTrend, zoneCorrelations } from "@/lib/scoring/history";
 
 export const OVERDUE_AFTER_DAYS = 35;
 export const LOW_INDEX = 60;
@@ -32,14 +32,24 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
       .select(["zone_checks.zone_id", "zone_checks.visit_id", "zone_checks.sward_index", "visits.scheduled_for"])
       .where("zone_checks.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
+      .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
       .where("visits.status", "!=", "cancelled")
       .where("zone_checks.sward_index", "is not", null)
       .where("visits.scheduled_for", ">=", addDays(today, -365))
       .execute(),
     executor.selectFrom("visits").select(["scheduled_for", "status"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("status", "!=", "cancelled").execute(),
     executor.selectFrom("risk_alerts").select(["kind", "severity"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("status", "!=", "resolved").execute(),
-    executor.selectFrom("applications").select(["zone_id", "n_lb_per_1000", "area_ft2"]).where("company_id", "=", companyId).where("zone_id", "in", executor.selectFrom("zones").select("id").where("property_id", "=", propertyId)).where("applied_on", ">=", `${year}-01-01`).where("applied_on", "<=", today).execute(),
+    // The year's N, and the feedings before each check of the last year (for the N response).
+    executor
+      .selectFrom("applications")
+      .select(["zone_id", "applied_on", "n_lb_per_1000", "wsn_lb_per_1000", "area_ft2"])
+      .where("company_id", "=", companyId)
+      .where("zone_id", "in", executor.selectFrom("zones").select("id").where("property_id", "=", propertyId))
+      .where("applied_on", ">=", addDays(today, -365 - NITROGEN_WINDOW_DAYS))
+      .where("applied_on", "<=", today)
+      .execute(),
   ]);
+  const yearApplications = applications.filter((a) => a.applied_on >= `${year}-01-01`);
 
   const area = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
   const lawn = zones.reduce((s, z) => s + Number(z.area_ft2), 0);
@@ -55,7 +65,7 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
   const count = (s: string) => alerts.filter((a) => a.severity === s).length;
   const high = count("high");
   const moderate = count("moderate");
-  const nYtd = lawn ? applications.reduce((s, a) => s + Number(a.n_lb_per_1000) * Number(a.area_ft2), 0) / lawn : 0;
+  const nYtd = lawn ? yearApplications.reduce((s, a) => s + Number(a.n_lb_per_1000) * Number(a.area_ft2), 0) / lawn : 0;
   const nMax = lawn ? zones.reduce((s, z) => s + (findGrassSpecies(z.grass_species)?.annualNitrogenLb.max ?? 0) * Number(z.area_ft2), 0) / lawn : null;
 
   const reasons: string[] = [];
@@ -81,6 +91,17 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
     reasons.push(`${plural(moderate, "moderate alert")}`);
   }
 
+  // Which zones' Index follows the N available before each check (lib/scoring/history.ts).
+  let enoughChecks = 0;
+  let respondingToN = 0;
+  for (const z of zones) {
+    const points = checks.filter((c) => c.zone_id === z.id).map((c) => ({ date: c.scheduled_for, index: c.sward_index! }));
+    const feedings = applications.filter((a) => a.zone_id === z.id).map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: "" }));
+    const r = zoneCorrelations(points, feedings, []);
+    if (r.n >= MIN_CHECKS_FOR_CORRELATION) enoughChecks++;
+    if (r.respondsToNitrogen) respondingToN++;
+  }
+
   const row = {
     property_id: propertyId,
     company_id: companyId,
@@ -102,6 +123,9 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
     n_max_lb: nMax,
     attention_score: score,
     attention_reasons: reasons,
+    zones_total: zones.length,
+    zones_enough_checks: enoughChecks,
+    zones_responding_n: respondingToN,
     updated_at: new Date(),
   };
   await executor

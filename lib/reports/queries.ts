@@ -38,6 +38,7 @@ export async function listReports(actor: Actor, propertyId: string): Promise<{ v
     .innerJoin("properties", "properties.id", "visits.property_id")
     .select(["visits.id", "visits.scheduled_for"])
     .where(propertyInScope(actor))
+    .where("visits.company_id", "=", actor.companyId)
     .where("visits.property_id", "=", propertyId)
     .where("visits.status", "=", "completed")
     .orderBy("visits.scheduled_for", "desc")

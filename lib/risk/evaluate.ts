@@ -65,6 +65,7 @@ export async function propertyRuleResults(executor: Executor, companyId: string,
       .select(["zone_checks.zone_id", "zone_checks.mowing_direction", "zone_checks.is_matted", "zone_checks.is_scalped", "zone_checks.has_torn_tips", "zone_checks.height_of_cut_in", "zone_checks.symptoms", "zone_checks.sward_index", "visits.scheduled_for"])
       .where("zone_checks.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
+      .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
       .where("visits.status", "!=", "cancelled")
       .where("zone_checks.status", "=", "done")
       .where("visits.scheduled_for", "<=", at)

@@ -17,27 +17,36 @@ export interface SweepResult {
   ms: number;
 }
 
-export async function sweepBook(executor: Kysely<Database>, provider: WeatherProvider | null, options: { onError?: (propertyId: string, err: unknown) => void } = {}): Promise<SweepResult> {
+export async function sweepBook(executor: Kysely<Database>, provider: WeatherProvider | null, options: { onError?: (propertyId: string, err: unknown) => void; concurrency?: number } = {}): Promise<SweepResult> {
   const started = Date.now();
   const properties = await executor.selectFrom("properties").select(["id", "company_id"]).where("archived_at", "is", null).orderBy("company_id").orderBy("id").execute();
   const result: SweepResult = { properties: properties.length, failed: 0, raised: 0, reopened: 0, updated: 0, cleared: 0, autoResolved: 0, ms: 0 };
-  for (const p of properties) {
-    try {
-      const s = await evaluateProperty(executor, p.company_id, p.id, { provider });
-      result.raised += s.raised;
-      result.reopened += s.reopened;
-      result.updated += s.updated;
-      result.cleared += s.cleared;
-      result.autoResolved += s.autoResolved;
-    } catch (err) {
-      result.failed++;
-      options.onError?.(p.id, err);
+  // Properties are independent: a few at a time keep the database busy while Node evaluates rules.
+  let next = 0;
+  const lane = async () => {
+    while (next < properties.length) {
+      const p = properties[next++]!;
+      try {
+        const s = await evaluateProperty(executor, p.company_id, p.id, { provider });
+        result.raised += s.raised;
+        result.reopened += s.reopened;
+        result.updated += s.updated;
+        result.cleared += s.cleared;
+        result.autoResolved += s.autoResolved;
+      } catch (err) {
+        result.failed++;
+        options.onError?.(p.id, err);
+      }
     }
-  }
+  };
+  await Promise.all(Array.from({ length: Math.max(1, options.concurrency ?? SWEEP_CONCURRENCY) }, lane));
   result.ms = Date.now() - started;
   if (result.failed) throw new SweepIncomplete(result);
   return result;
 }
+
+/** Properties evaluated at once by the sweep (each holds one database connection at a time). */
+export const SWEEP_CONCURRENCY = 3;
 
 export class SweepIncomplete extends Error {
   constructor(readonly result: SweepResult) {

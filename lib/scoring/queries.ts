@@ -17,7 +17,6 @@ import {
   type SeasonChange,
   type Trend,
   type ZoneCorrelations,
-  MIN_CHECKS_FOR_CORRELATION,
   indexDistribution,
   propertyIndexByVisit,
   propertyNitrogenEvents,
@@ -74,6 +73,7 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
       .select((eb) => eb.exists(eb.selectFrom("photos").select("photos.id").whereRef("photos.zone_check_id", "=", "zone_checks.id")).as("has_photo"))
       .where("zone_checks.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
+      .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
       .where("visits.status", "!=", "cancelled")
       .where("visits.scheduled_for", ">=", since)
       .where("zone_checks.sward_index", "is not", null)
@@ -86,6 +86,7 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
       .select(["applications.zone_id", "applications.applied_on", "applications.n_lb_per_1000", "applications.wsn_lb_per_1000", "applications.area_ft2", "products.name as product_name"])
       .where("applications.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
+      .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
       .where("applications.applied_on", ">=", addDays(since, -60))
       .orderBy("applications.applied_on")
       .execute(),
@@ -159,57 +160,46 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
 }
 
 export interface BookScoring {
-  properties: { propertyId: string; name: string; latest: PropertyVisitIndex | null; trend: Trend | null }[];
+  /** Properties in the book, and how many have an Index. */
+  total: number;
+  scored: number;
+  median: number | null;
   distribution: { from: number; to: number; count: number }[];
+  /** Declining properties, steepest first. */
+  declining: { propertyId: string; name: string; slopePer30Days: number }[];
   zonesWithEnoughChecks: number;
   zonesRespondingToN: number;
   zonesTotal: number;
 }
 
 /**
- * Across the book (managers): the latest property index and trend of each property, their
- * distribution, and the share of zones whose Index follows the nitrogen available to them.
- * Water balance is left out here: it needs the weather of every place, and N is the question
- * the book view answers (which lawns a feeding programme helps).
+ * Across the book (managers): how the latest property indexes are spread, which properties are
+ * declining, and the share of zones whose Index follows the nitrogen available to them — all read
+ * from the property summaries that the write paths and the sweep keep (lib/book/summary.ts), so
+ * the cost does not grow with the zone checks. Water balance is left out here: it needs the
+ * weather of every place, and N is the question the book view answers.
  */
 export async function bookScoring(actor: Actor): Promise<BookScoring> {
-  const companyId = actor.companyId;
-  const since = addDays(todayIn(actor.companyTimeZone), -HISTORY_DAYS);
-  const [properties, zones, checks, applications] = await Promise.all([
-    db().selectFrom("properties").select(["id", "name"]).where(propertyInScope(actor)).where("archived_at", "is", null).orderBy("name").execute(),
-    db().selectFrom("zones").innerJoin("properties", "properties.id", "zones.property_id").select(["zones.id", "zones.property_id", "zones.area_ft2"]).where(propertyInScope(actor)).where("zones.archived_at", "is", null).where("properties.archived_at", "is", null).execute(),
-    db()
-      .selectFrom("zone_checks")
-      .innerJoin("visits", "visits.id", "zone_checks.visit_id")
-      .select(["zone_checks.zone_id", "zone_checks.visit_id", "zone_checks.sward_index", "visits.scheduled_for", "visits.property_id"])
-      .where("zone_checks.company_id", "=", companyId)
-      .where("visits.status", "!=", "cancelled")
-      .where("visits.scheduled_for", ">=", since)
-      .where("zone_checks.sward_index", "is not", null)
-      .execute(),
-    db().selectFrom("applications").select(["zone_id", "applied_on", "n_lb_per_1000", "wsn_lb_per_1000"]).where("company_id", "=", companyId).where("applied_on", ">=", addDays(since, -60)).execute(),
-  ]);
-  const zoneArea = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
-  const result = properties.map((p) => {
-    const visits = propertyIndexByVisit(
-      checks.filter((c) => c.property_id === p.id && zoneArea.has(c.zone_id)).map((c) => ({ visitId: c.visit_id, date: c.scheduled_for, index: c.sward_index!, areaFt2: zoneArea.get(c.zone_id)! })),
-    );
-    return { propertyId: p.id, name: p.name, latest: visits.at(-1) ?? null, trend: recentTrend(visits) };
-  });
-  let enough = 0;
-  let responding = 0;
-  for (const z of zones) {
-    const points = checks.filter((c) => c.zone_id === z.id).map((c) => ({ date: c.scheduled_for, index: c.sward_index! }));
-    const apps = applications.filter((a) => a.zone_id === z.id).map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: "" }));
-    const c = zoneCorrelations(points, apps, []);
-    if (c.n >= MIN_CHECKS_FOR_CORRELATION) enough++;
-    if (c.respondsToNitrogen) responding++;
-  }
+  const rows = await db()
+    .selectFrom("properties")
+    .leftJoin("property_summaries as ps", "ps.property_id", "properties.id")
+    .select(["properties.id", "properties.name", "ps.latest_index", "ps.trend_word", "ps.trend_slope", "ps.zones_total", "ps.zones_enough_checks", "ps.zones_responding_n"])
+    .where(propertyInScope(actor))
+    .where("properties.archived_at", "is", null)
+    .execute();
+  const indexes = rows.flatMap((r) => (r.latest_index === null ? [] : [Number(r.latest_index)])).sort((a, b) => a - b);
+  const sum = (k: "zones_total" | "zones_enough_checks" | "zones_responding_n") => rows.reduce((s, r) => s + Number(r[k] ?? 0), 0);
   return {
-    properties: result,
-    distribution: indexDistribution(result.flatMap((p) => (p.latest ? [p.latest.index] : []))),
-    zonesWithEnoughChecks: enough,
-    zonesRespondingToN: responding,
-    zonesTotal: zones.length,
+    total: rows.length,
+    scored: indexes.length,
+    median: indexes.length ? indexes[Math.floor((indexes.length - 1) / 2)]! : null,
+    distribution: indexDistribution(indexes),
+    declining: rows
+      .filter((r) => r.trend_word === "declining")
+      .map((r) => ({ propertyId: r.id, name: r.name, slopePer30Days: Number(r.trend_slope ?? 0) }))
+      .sort((a, b) => a.slopePer30Days - b.slopePer30Days || a.name.localeCompare(b.name)),
+    zonesWithEnoughChecks: sum("zones_enough_checks"),
+    zonesRespondingToN: sum("zones_responding_n"),
+    zonesTotal: sum("zones_total"),
   };
 }

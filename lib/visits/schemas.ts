@@ -2,6 +2,9 @@
 import { z } from "zod";
 import { symptomKeys } from "@/fixtures/symptoms";
 import { isIsoDate } from "@/lib/dates";
+import { zoneCheckCompleteness } from "./zone-check-rules";
+
+export { emptyZoneCheck } from "./zone-check-rules";
 
 const rating = z.number().int("Whole numbers only.").min(1, "1 is the lowest rating.").max(9, "9 is the highest rating.").nullable();
 const percentBy5 = z
@@ -99,44 +102,9 @@ export const zoneCheckFields = z
   .strict();
 
 export const zoneCheckSchema = zoneCheckFields.superRefine((check, ctx) => {
-  if (check.status === "done") {
-    for (const field of ["quality", "color", "density", "uniformity"] as const) {
-      if (check[field] === null) ctx.addIssue({ code: "custom", path: [field], message: "Rate this before marking the zone done." });
-    }
-  }
-  if (check.status === "skipped") {
-    if (!check.skipReason) ctx.addIssue({ code: "custom", path: ["skipReason"], message: "Say why the zone was skipped." });
-    if (check.skipReason === "other" && !check.skipNote.trim()) ctx.addIssue({ code: "custom", path: ["skipNote"], message: "Describe the reason." });
-  }
+  for (const [field, message] of Object.entries(zoneCheckCompleteness(check))) ctx.addIssue({ code: "custom", path: [field], message });
 });
 export type ZoneCheckInput = z.infer<typeof zoneCheckSchema>;
 
 export const finishVisitSchema = z.object({ notes: z.string().max(4000).optional() }).strict();
 
-/** An empty zone check, as a form starts it. */
-export function emptyZoneCheck(zoneId: string): ZoneCheckInput {
-  return {
-    zoneId,
-    baseVersion: 0,
-    status: "draft",
-    quality: null,
-    color: null,
-    density: null,
-    uniformity: null,
-    barePct: null,
-    weedsPct: null,
-    thatchIn: null,
-    soilMoisture: null,
-    soilMoisturePct: null,
-    heightOfCutIn: null,
-    mowingDirection: null,
-    isMatted: false,
-    isScalped: false,
-    hasTornTips: false,
-    hasClumpedClippings: false,
-    symptoms: [],
-    notes: "",
-    skipReason: null,
-    skipNote: "",
-  };
-}

@@ -75,15 +75,16 @@ describe("propertyScoreHistory", () => {
 describe("bookScoring", () => {
   it("spreads the latest property indexes and counts the zones that follow nitrogen", async () => {
     const book = await bookScoring(await c.actor("manager"));
-    expect(book.properties).toHaveLength(6);
+    expect(book.total).toBe(6);
+    expect(book.scored).toBe(6);
     expect(book.distribution.reduce((s, b) => s + b.count, 0)).toBe(6);
     expect(book.zonesTotal).toBe(17);
     expect(book.zonesWithEnoughChecks).toBe(17);
     // The demo story: the dollar-spot back yard, the shaded zone and the grub-damaged back yard do not follow the feeding.
     expect(book.zonesRespondingToN).toBe(14);
-    expect(book.properties.find((p) => p.name === "Haddad residence")?.trend?.word).toBe("declining");
+    expect(book.declining.map((p) => p.name)).toEqual(["Haddad residence"]);
     const theirs = await bookScoring(await other.actor("manager"));
-    expect(theirs.properties.map((p) => p.name)).toEqual(["Aaland residence"]);
+    expect(theirs.total).toBe(1);
     expect(theirs.zonesWithEnoughChecks).toBe(0);
   });
 });
