@@ -10,6 +10,8 @@ try {
   const result = await lighthouse(url, { port: chrome.port, output: "json", logLevel: "error", onlyCategories: ["performance", "accessibility"], extraHeaders: cookie ? { Cookie: cookie } : undefined });
   const c = result.lhr.categories;
   if (result.lhr.runtimeError) throw new Error(result.lhr.runtimeError.message);
+  // A page that sent Lighthouse to sign in would score the sign-in page: refuse that.
+  if (new URL(result.lhr.finalDisplayedUrl).pathname !== new URL(url).pathname) throw new Error(`Lighthouse ended on ${result.lhr.finalDisplayedUrl}, not ${url}`);
   console.log(JSON.stringify({ performance: Math.round((c.performance.score ?? 0) * 100), accessibility: Math.round((c.accessibility.score ?? 0) * 100) }));
 } finally {
   await chrome.kill();

@@ -137,6 +137,8 @@ async function main() {
     const today = todayIn(company.time_zone);
     const techId = (await db.selectFrom("users").select("id").where("email", "=", benchTechnician(0)).executeTakeFirstOrThrow()).id;
     const stops = await db.selectFrom("visits").select(["id", "property_id", "status"]).where("technician_id", "=", techId).where("scheduled_for", "=", today).execute();
+    // A second run starts from the same place: the checks an earlier run saved on these stops go.
+    await db.deleteFrom("zone_checks").where("visit_id", "in", stops.map((s) => s.id)).execute();
     for (const s of stops.filter((v) => v.status === "scheduled")) {
       const res = await fetch(`${BASE}/api/v1/visits/${s.id}/start`, { method: "POST", headers: { cookie: tech, "content-type": "application/json", origin: BASE }, body: JSON.stringify({ latitude: null, longitude: null }) });
       if (!res.ok) throw new Error(`bench: could not start visit ${s.id}: ${res.status} ${await res.text()}`);

@@ -11,6 +11,7 @@ vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
 const me = await import("@/app/api/v1/me/route");
 const list = await import("@/app/api/v1/properties/route");
 const detail = await import("@/app/api/v1/properties/[propertyId]/route");
+const book = await import("@/app/api/v1/book/route");
 
 let main: TestCompany;
 let other: TestCompany;
@@ -62,5 +63,27 @@ describe("GET /api/v1/properties[/:id]", () => {
     current = await main.actor("manager");
     const res = await list.GET(new Request("http://localhost/api/v1/properties", { method: "POST", headers: { origin: "https://evil.example", host: "localhost" } }));
     expect(res.status).toBe(403);
+  });
+});
+
+describe("GET /api/v1/book", () => {
+  it("gives managers a page of their own company's book with the next cursor and the total; others are refused", async () => {
+    current = await main.actor("manager");
+    const first = (await (await book.GET(get("/api/v1/book?limit=4"))).json()) as { rows: { name: string }[]; nextCursor: string | null; total: number };
+    expect(first.total).toBe(main.scenario.properties.length);
+    expect(first.rows).toHaveLength(4);
+    expect(first.nextCursor).toEqual(expect.any(String));
+    const rest = (await (await book.GET(get(`/api/v1/book?limit=4&after=${first.nextCursor}`))).json()) as { rows: { name: string }[]; nextCursor: string | null };
+    expect([...first.rows, ...rest.rows].map((r) => r.name).sort()).toEqual(main.scenario.properties.map((p) => p.name).sort());
+    expect(rest.nextCursor).toBeNull();
+    const declining = (await (await book.GET(get("/api/v1/book?trend=declining"))).json()) as { rows: { name: string }[] };
+    expect(declining.rows.map((r) => r.name)).toEqual(["Haddad residence"]); // the demo story's declining lawn
+
+    current = await main.actor("tech1");
+    expect((await book.GET(get("/api/v1/book"))).status).toBe(403);
+    current = await main.actor("owner1");
+    expect((await book.GET(get("/api/v1/book"))).status).toBe(403);
+    current = null;
+    expect((await book.GET(get("/api/v1/book"))).status).toBe(401);
   });
 });
