@@ -19,7 +19,7 @@ export function signInLinkEmail(input: { link: string; minutes: number; companyN
 <p>${escapeHtml(greeting)}</p>
 <p>Open this link to sign in and see your lawn's visit reports. It works once, within ${input.minutes} minutes.</p>
 <p><a href="${escapeHtml(input.link)}" style="display:inline-block;background:#2f6b3a;color:#fff;padding:12px 18px;border-radius:8px;text-decoration:none;font-weight:bold">Sign in to see your lawn</a></p>
-<p style="color:#5b665e">If the button does not work, copy this address into your browser:<br>${escapeHtml(input.link)}</p>
+<p style="color:#5b665e;word-break:break-all">If the button does not work, copy this address into your browser:<br>${escapeHtml(input.link)}</p>
 <p style="color:#5b665e">If you did not ask to sign in, ignore this e-mail: nobody can sign in without the link.</p>
 <p>— ${escapeHtml(input.companyName)}</p>
 </div>`;
