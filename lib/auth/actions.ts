@@ -8,6 +8,7 @@ import { AppError } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { deliverMailAfterResponse } from "@/lib/mail/mutations";
 import { clientAddress, signIn, signOut } from "./config";
+import { sitePath } from "./actor";
 import { action } from "./guards";
 import { SIGN_IN_MESSAGES, signInLinkSchema, signInSchema } from "./schemas";
 import { SIGN_IN_LINK_PROVIDER, countRecentLinkRequests, findHomeowner, recordLinkRequest } from "./sign-in-link";
@@ -20,9 +21,7 @@ export interface SignInState {
 }
 
 /** Only a path on this site; anything else falls back to the role's landing page. */
-function safeRedirect(target: string | undefined): string {
-  return target && target.startsWith("/") && !target.startsWith("//") && !target.startsWith("/\\") ? target : "/";
-}
+const safeRedirect = (target: string | undefined): string => sitePath(target) ?? "/";
 
 const signInGuarded = action({ access: "public", input: signInSchema }, async ({ input }) => {
   try {

@@ -21,3 +21,8 @@ export const isStaff = (actor: Actor) => actor.role === "manager" || actor.role 
 export function landingPath(role: Role): string {
   return { manager: "/properties", technician: "/today", homeowner: "/my-lawn" }[role];
 }
+
+/** A path on this site, or undefined: never another origin (`//host`, `/\\host`) or a full URL. */
+export function sitePath(target: string | undefined): string | undefined {
+  return target && target.startsWith("/") && !target.startsWith("//") && !target.startsWith("/\\") ? target : undefined;
+}

@@ -3,7 +3,7 @@ import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { SignInLinkForm } from "@/components/auth/sign-in-link-form";
 import { SwardMark } from "@/components/ui/sward-mark";
-import { landingPath } from "@/lib/auth/actor";
+import { landingPath, sitePath } from "@/lib/auth/actor";
 import { getActor } from "@/lib/auth/session";
 import { SIGN_IN_LINK_MINUTES } from "@/lib/auth/sign-in-link";
 
@@ -16,13 +16,10 @@ const LINK_ERRORS: Record<string, string> = {
   Configuration: "That sign-in link is incomplete. Open it straight from the e-mail, or ask for a new one below.",
 };
 
-function safePath(target: string | undefined): string | undefined {
-  return target?.startsWith("/") && !target.startsWith("//") && !target.startsWith("/\\") ? target : undefined;
-}
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string; error?: string }> }) {
   const { callbackUrl, error } = await searchParams;
-  const redirectTo = safePath(callbackUrl);
+  const redirectTo = sitePath(callbackUrl);
   const actor = await getActor();
   if (actor) redirect(redirectTo ?? landingPath(actor.role));
   const linkNotice = error ? LINK_ERRORS[error] : undefined;
