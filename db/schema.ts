@@ -1,6 +1,6 @@
 // The one typed view of Sward's database. Table interfaces describe columns; query results use
 // the Selectable/Insertable/Updateable aliases below. Nullable columns are `T | null`, never optional.
-import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
+import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable, Updateable } from "kysely";
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type NullableTimestamp = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
@@ -196,6 +196,8 @@ export interface PropertiesTable {
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
+  /** lower(name street city postal_code), for the book's text search (trigram index). */
+  search_text: GeneratedAlways<string>;
 }
 
 export interface PropertyHomeownersTable {

@@ -9,6 +9,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { listBook, teamActivity } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 import { refreshPropertySummary } from "@/lib/book/summary";
+import { createProperty, setPropertyArchived } from "@/lib/properties/mutations";
 import { todayIn, addDays } from "@/lib/dates";
 import { evaluateProperty } from "@/lib/risk/evaluate";
 import { resolveAlert } from "@/lib/risk/mutations";
@@ -61,6 +62,28 @@ describe("the book", () => {
     expect((await listBook(manager, q({ q: "%" }))).rows).toEqual([]);
     await expect(listBook(await c.actor("tech1"), q())).rejects.toMatchObject({ code: "forbidden" });
     expect((await listBook(await other.actor("manager"), q())).rows.map((r) => r.name)).toEqual(["Aaland residence"]);
+  });
+
+  it("shows a property from the moment it is created, finds it by postal code or any case, and drops it when archived", async () => {
+    const manager = await c.actor("manager");
+    const before = (await listBook(manager, q())).total;
+    // No visit, no refresh: the summary row comes with the property (a database trigger).
+    const created = await createProperty(manager, { name: "Quillfeather Cottage", street: "9 Brackenridge Row", city: "Larkfield", region: "NJ", postalCode: "08599", latitude: 40.3, longitude: -74.7, timeZone: "America/New_York", ruleSetId: null, technicianId: null, notes: "" });
+    expect((await listBook(manager, q())).total).toBe(before + 1);
+    for (const text of ["QUILLFEATHER", "brackenridge", "08599"]) {
+      const found = await listBook(manager, q({ q: text }));
+      expect(found.rows.map((r) => r.name)).toEqual(["Quillfeather Cottage"]);
+      expect(found.total).toBe(1);
+    }
+    const row = (await listBook(manager, q({ q: "Quillfeather" }))).rows[0]!;
+    expect(row).toMatchObject({ lastVisitOn: null, latestIndex: null, trendWord: null, attentionScore: 0, alerts: { high: 0, moderate: 0, low: 0 } });
+    // The count of a view filtered on the summary agrees with its rows.
+    const none = await listBook(manager, q({ trend: "none", limit: 100 }));
+    expect(none.total).toBe(none.rows.length);
+    expect(none.rows.map((r) => r.name)).toContain("Quillfeather Cottage");
+    await setPropertyArchived(manager, created.id, true);
+    expect((await listBook(manager, q({ q: "Quillfeather" }))).total).toBe(0);
+    expect((await listBook(manager, q())).total).toBe(before);
   });
 
   it("keeps the summary current: a visit scheduled, an alert resolved", async () => {
