@@ -1,6 +1,7 @@
 // Photo reads, scoped: staff of the company within their reach; a homeowner only their own
 // property's photos, and only from completed visits. Out of scope = not found.
 import "server-only";
+import { findZoneInScope } from "@/lib/properties/queries";
 import type { ExpressionBuilder } from "kysely";
 import { db } from "@/db";
 import type { Database, Photo } from "@/db/schema";
@@ -62,6 +63,7 @@ export async function getPhotoFile(actor: Actor, photoId: string, variant: "disp
 }
 
 export async function listZonePhotos(actor: Actor, zoneId: string): Promise<PhotoDto[]> {
+  await findZoneInScope(actor, zoneId); // an unknown or foreign zone is 404, as its history is
   const rows = await scopedPhotos(actor).where("photos.zone_id", "=", zoneId).orderBy("visits.scheduled_for").orderBy("photos.created_at").limit(500).execute();
   return rows.map((r) => toPhotoDto(r, actor));
 }

@@ -75,6 +75,26 @@ export async function listProperties(actor: Actor, options: { includeArchived?: 
   return rows.map(toSummary);
 }
 
+/** 404 "That property" unless the property is within the actor's scope (lists under a property answer as the property does). */
+export async function assertPropertyInScope(actor: Actor, propertyId: string): Promise<void> {
+  const row = await db().selectFrom("properties").select("properties.id").where(propertyInScope(actor)).where("properties.id", "=", propertyId).executeTakeFirst();
+  if (!row) throw notFound("That property");
+}
+
+/** The zone, if its property is within the actor's scope; else 404 "That zone". */
+export async function findZoneInScope(actor: Actor, zoneId: string): Promise<{ id: string; name: string; property_id: string }> {
+  const zone = await db()
+    .selectFrom("zones")
+    .innerJoin("properties", "properties.id", "zones.property_id")
+    .select(["zones.id", "zones.name", "zones.property_id"])
+    .where("zones.id", "=", zoneId)
+    .where("zones.company_id", "=", actor.companyId)
+    .where(propertyInScope(actor))
+    .executeTakeFirst();
+  if (!zone) throw notFound("That zone");
+  return zone;
+}
+
 export async function getProperty(actor: Actor, propertyId: string): Promise<PropertyDetailDto> {
   const row = await selectSummary(db().selectFrom("properties"))
     .where(propertyInScope(actor))

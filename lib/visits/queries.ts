@@ -1,12 +1,12 @@
 // Visit reads, scoped to the actor (lib/visits/scope.ts). Out of scope = not found.
 import "server-only";
+import { findZoneInScope } from "@/lib/properties/queries";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
 import { listVisitApplications } from "@/lib/applications/queries";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { ZONE_COLUMNS, toZoneDto } from "@/lib/properties/map";
-import { propertyInScope } from "@/lib/properties/scope";
 import type { AuditEventDto, TodayStopDto, VisitDetailDto, VisitSummaryDto, ZoneHistoryEntryDto } from "./dto";
 import type { z } from "zod";
 import { concernsOf, toZoneCheckDto, valuesOf } from "./map";
@@ -172,15 +172,7 @@ export async function listTodayStops(actor: Actor, date: string, technicianId?: 
 
 /** Every check of a zone, newest first. The zone must be within the actor's property scope. */
 export async function getZoneHistory(actor: Actor, zoneId: string): Promise<{ zoneName: string; propertyId: string; entries: ZoneHistoryEntryDto[] }> {
-  const zone = await db()
-    .selectFrom("zones")
-    .innerJoin("properties", "properties.id", "zones.property_id")
-    .select(["zones.id", "zones.name", "zones.property_id"])
-    .where("zones.id", "=", zoneId)
-    .where("zones.company_id", "=", actor.companyId)
-    .where(propertyInScope(actor))
-    .executeTakeFirst();
-  if (!zone) throw notFound("That zone");
+  const zone = await findZoneInScope(actor, zoneId);
 
   const rows = await db()
     .selectFrom("zone_checks")

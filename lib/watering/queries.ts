@@ -2,10 +2,12 @@
 import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
+import { assertPropertyInScope } from "@/lib/properties/queries";
 import { propertyInScope } from "@/lib/properties/scope";
 import type { WateringDto } from "./schemas";
 
 export async function listWaterings(actor: Actor, propertyId: string, options: { from?: string; limit?: number } = {}): Promise<WateringDto[]> {
+  await assertPropertyInScope(actor, propertyId); // an unknown or foreign property is 404, as the property itself is
   const rows = await db()
     .selectFrom("waterings")
     .innerJoin("properties", "properties.id", "waterings.property_id")

@@ -10,6 +10,8 @@ import { TSX, run, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 const MAIL_DIR = path.resolve("tests/.artifacts/mail-e2e");
+const AUTH_SECRET = "e2e-tests-only-secret-0123456789abcdefghijkl";
+const PHOTO_DIR = "tests/.artifacts/photos-e2e";
 let server: ChildProcess | undefined;
 let weather: ChildProcess | undefined;
 
@@ -30,7 +32,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await run("sh", ["db/cluster.sh", "start"]);
   await run(TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
   await run(TSX, ["db/migrate.ts"], { DATABASE_URL: databaseUrl });
-  await run(TSX, ["db/seed.ts"], { DATABASE_URL: databaseUrl, PHOTO_DIR: "tests/.artifacts/photos-e2e" });
+  await run(TSX, ["db/seed.ts"], { DATABASE_URL: databaseUrl, PHOTO_DIR });
   if (isBuildStale()) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
 
   const baseUrl = `http://localhost:${PORT}`;
@@ -46,10 +48,10 @@ export default async function setup(project: TestProject): Promise<() => Promise
       NODE_ENV: "production",
       NEXT_TELEMETRY_DISABLED: "1",
       DATABASE_URL: databaseUrl,
-      AUTH_SECRET: "e2e-tests-only-secret-0123456789abcdefghijkl",
+      AUTH_SECRET,
       AUTH_URL: baseUrl,
       LOG_LEVEL: "warn",
-      PHOTO_DIR: "tests/.artifacts/photos-e2e",
+      PHOTO_DIR,
       WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
       SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
       MAIL_INBOX_DIR: MAIL_DIR,
@@ -59,6 +61,8 @@ export default async function setup(project: TestProject): Promise<() => Promise
   project.provide("baseUrl", baseUrl);
   project.provide("mailDir", MAIL_DIR);
   project.provide("databaseUrl", databaseUrl);
+  project.provide("authSecret", AUTH_SECRET);
+  project.provide("photoDir", PHOTO_DIR);
 
   return async () => {
     await smtp.close();
@@ -75,5 +79,8 @@ declare module "vitest" {
     baseUrl: string;
     mailDir: string;
     databaseUrl: string;
+    /** The server's AUTH_SECRET, for tests that mint a session cookie as sign-in does. */
+    authSecret: string;
+    photoDir: string;
   }
 }

@@ -39,7 +39,9 @@ describe("logWatering", () => {
     await expect(logWatering(await c.actor("tech2"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
     await expect(logWatering(await other.actor("manager"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
     expect((await listWaterings(await c.actor("owner2"), c.propertyIds["haddad"]!)).length).toBeGreaterThan(0);
-    expect(await listWaterings(await c.actor("owner1"), c.propertyIds["haddad"]!)).toEqual([]);
+    // Another homeowner's lawn is not found (as the property itself is), not an empty list.
+    await expect(listWaterings(await c.actor("owner1"), c.propertyIds["haddad"]!)).rejects.toMatchObject({ code: "not_found" });
+    await expect(listWaterings(await other.actor("manager"), c.propertyIds["haddad"]!)).rejects.toMatchObject({ code: "not_found" });
     // Homeowners log their own watering, and only on their own lawn.
     const own = await logWatering(await c.actor("owner2"), c.propertyIds["haddad"]!, entry({ depthIn: 0.4 }));
     expect(own.enteredByRole).toBe("homeowner");
