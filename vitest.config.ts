@@ -31,6 +31,8 @@ export default defineConfig({
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
           globalSetup: ["tests/helpers/integration-setup.ts"],
+          // next-auth imports "next/server" without an extension; inlined, Vite resolves it.
+          server: { deps: { inline: ["next-auth"] } },
           env: {
             NODE_ENV: "test",
             DATABASE_URL: `postgres://postgres@127.0.0.1:${pgPort}/sward_test`,

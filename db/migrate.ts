@@ -1,36 +1,19 @@
-// Runs Kysely's Migrator over db/migrations: `tsx db/migrate.ts [latest|down|reset]`.
-// Target database: DATABASE_URL, else the local cluster's "sward". Exits non-zero on failure.
-import { promises as fs } from "node:fs";
-import path from "node:path";
-import { fileURLToPath } from "node:url";
-import { FileMigrationProvider, Migrator, NO_MIGRATIONS } from "kysely";
+// Runs Kysely's Migrator over db/migrations: `tsx db/migrate.ts [latest|up|down|reset]`
+// (latest: every pending one; up: the next one; down: reverts the last one; reset: reverts all).
+// Target database: DATABASE_URL, else the local cluster's "sward". Exits non-zero on failure; a
+// failed run changes nothing (db/migrator.ts: one transaction per run).
 import { createDb, localDatabaseUrl } from "./client";
+import { DIRECTIONS, type Direction, runMigrations } from "./migrator";
 
-const here = path.dirname(fileURLToPath(import.meta.url));
 const url = process.env.DATABASE_URL ?? localDatabaseUrl("sward");
 const direction = process.argv[2] ?? "latest";
+if (!(DIRECTIONS as readonly string[]).includes(direction)) {
+  console.error(`usage: tsx db/migrate.ts [${DIRECTIONS.join("|")}]   (got "${direction}")`);
+  process.exit(2);
+}
 
 const db = createDb(url, { max: 2 });
-const migrator = new Migrator({
-  db,
-  provider: new FileMigrationProvider({ fs, path, migrationFolder: path.join(here, "migrations") }),
-});
-
-const { error, results } =
-  direction === "down"
-    ? await migrator.migrateDown()
-    : direction === "reset"
-      ? await migrator.migrateTo(NO_MIGRATIONS)
-      : await migrator.migrateToLatest();
-
-for (const r of results ?? []) {
-  const verb = r.direction === "Up" ? "applied" : "reverted";
-  if (r.status === "Success") console.log(`migrate: ${verb} ${r.migrationName}`);
-  else if (r.status === "Error") console.error(`migrate: FAILED ${r.migrationName}`);
-}
-if (!error && (results ?? []).length === 0) console.log("migrate: already up to date");
+const run = await runMigrations(db, direction as Direction);
 await db.destroy();
-if (error) {
-  console.error("migrate: error:", error instanceof Error ? error.message : error);
-  process.exit(1);
-}
+for (const line of run.lines) (run.ok ? console.log : console.error)(line);
+if (!run.ok) process.exit(1);

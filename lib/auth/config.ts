@@ -83,6 +83,9 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     },
   },
   events: {
+    signIn({ user, account }) {
+      if (account?.type === "email") log.info({ event: "sign_in", method: "link", userId: user.id }, "signed in with an e-mailed link");
+    },
     async signOut(message) {
       const sid = "token" in message ? message.token?.sid : undefined;
       if (typeof sid === "string") await deleteAuthSession(sid);

@@ -2,6 +2,7 @@
 // e-mails cost the same work as known ones and get the same answer.
 import "server-only";
 import { serverEnv } from "@/lib/env";
+import { log, maskEmail } from "@/lib/log";
 import { decoyPasswordHash, verifyPassword } from "./password";
 import { countRecentFailures, findSignInCandidate, recordSignInAttempt } from "./queries";
 import { isThrottled, normaliseEmail } from "./throttle";
@@ -17,7 +18,10 @@ export async function checkCredentials(input: { email: string; password: string;
     windowMinutes: env.SIGN_IN_WINDOW_MINUTES,
   };
   const failures = await countRecentFailures(emailKey, input.address, limits.windowMinutes);
-  if (isThrottled(failures, limits)) return { ok: false, reason: "throttled" };
+  if (isThrottled(failures, limits)) {
+    log.warn({ event: "sign_in_throttled", method: "password", user: maskEmail(emailKey), address: input.address }, "sign-in refused: too many failures");
+    return { ok: false, reason: "throttled" };
+  }
 
   const candidate = await findSignInCandidate(emailKey);
   const hashToCheck = candidate?.passwordHash ?? (await decoyPasswordHash());
@@ -25,5 +29,8 @@ export async function checkCredentials(input: { email: string; password: string;
   const isAllowed = isMatch && candidate !== undefined && !candidate.isDisabled && candidate.role !== null;
 
   await recordSignInAttempt(emailKey, input.address, isAllowed);
+  // JSON lines (pino): a value with CR/LF in it is escaped inside its string and cannot start a line of its own.
+  if (isAllowed) log.info({ event: "sign_in", method: "password", userId: candidate.userId, address: input.address }, "signed in");
+  else log.warn({ event: "sign_in_failed", method: "password", user: maskEmail(emailKey), address: input.address }, "sign-in refused: wrong e-mail or password");
   return isAllowed ? { ok: true, userId: candidate.userId } : { ok: false, reason: "invalid" };
 }

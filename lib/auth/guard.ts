@@ -5,6 +5,7 @@ import { unstable_rethrow } from "next/navigation";
 import { z } from "zod";
 import type { Role } from "@/db/schema";
 import { AppError, notFound, toErrorBody } from "@/lib/http/app-error";
+import { isSameSiteWrite } from "@/lib/http/origin";
 import { log } from "@/lib/log";
 import type { Actor } from "./actor";
 
@@ -17,6 +18,8 @@ export type ActionResult<T> =
   | { ok: false; error: { code: string; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> } };
 
 const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+/** Refused authorisations, logged (ASVS V16): not signed in, not allowed. "Not found" is routine and is not. */
+const REFUSALS = new Set(["unauthenticated", "forbidden"]);
 
 function invalid(error: z.ZodError, message = "Some values need attention."): AppError {
   return new AppError("invalid_input", message, z.flattenError(error).fieldErrors as Record<string, string[]>);
@@ -31,12 +34,7 @@ function authorise<A extends Access>(actor: Actor | null, access: A): ActorFor<A
 
 /** Refuses cross-site mutations: the Origin (or Fetch Metadata) must name this site. */
 export function assertSameOrigin(request: Request): void {
-  if (!MUTATING.has(request.method)) return;
-  const site = request.headers.get("sec-fetch-site");
-  if (site && site !== "same-origin" && site !== "none") throw new AppError("forbidden", "Cross-site requests are refused.");
-  const origin = request.headers.get("origin");
-  const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
-  if (!origin || !host || new URL(origin).host !== host) throw new AppError("forbidden", "Cross-site requests are refused.");
+  if (MUTATING.has(request.method) && !isSameSiteWrite(request.headers)) throw new AppError("forbidden", "Cross-site requests are refused.");
 }
 
 export function createGuards(resolveActor: () => Promise<Actor | null>) {
@@ -69,6 +67,7 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
         return Response.json(result, { headers: { "Cache-Control": "private, no-store" } });
       } catch (err) {
         if (!(err instanceof AppError)) log.error({ err, path: new URL(request.url).pathname }, "route failed");
+        else if (REFUSALS.has(err.code)) log.warn({ event: "access_refused", code: err.code, method: request.method, path: new URL(request.url).pathname }, "request refused");
         const { status, body } = toErrorBody(err);
         return Response.json(body, { status, headers: { "Cache-Control": "no-store" } });
       }
@@ -89,6 +88,7 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
       } catch (err) {
         unstable_rethrow(err); // let Next's redirect() and notFound() through
         if (!(err instanceof AppError)) log.error({ err }, "action failed");
+        else if (REFUSALS.has(err.code)) log.warn({ event: "access_refused", code: err.code, action: handler.name || "action" }, "action refused");
         return { ok: false, error: toErrorBody(err).body.error };
       }
     };

@@ -13,6 +13,7 @@ import { readFileSync, readdirSync } from "node:fs";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, inject, it } from "vitest";
+import { mintSessionCookie, useE2eDatabase } from "../helpers/e2e-db";
 import { doneCheck } from "../helpers/zone-checks";
 
 const BASE = inject("baseUrl");
@@ -186,15 +187,11 @@ let t: Targets;
 const cookies = new Map<Persona, string>();
 
 beforeAll(async () => {
-  process.env.DATABASE_URL = inject("databaseUrl");
-  process.env.AUTH_SECRET = inject("authSecret");
-  process.env.PHOTO_DIR = inject("photoDir");
-  const [{ createTestCompany, testDb }, { otherCompany }, { evaluateProperty }, { createAuthSession }, { encode }, { scheduleVisit }, { linkHomeowner }, { todayIn }] = await Promise.all([
+  useE2eDatabase();
+  const [{ createTestCompany, testDb }, { otherCompany }, { evaluateProperty }, { scheduleVisit }, { linkHomeowner }, { todayIn }] = await Promise.all([
     import("../helpers/factories"),
     import("@/fixtures/demo-scenario"),
     import("@/lib/risk/evaluate"),
-    import("@/lib/auth/queries"),
-    import("next-auth/jwt"),
     import("@/lib/visits/mutations"),
     import("@/lib/properties/mutations"),
     import("@/lib/dates"),
@@ -247,11 +244,7 @@ beforeAll(async () => {
   };
   // Session cookies as sign-in issues them (a session row, its id in the encrypted JWT).
   const people: Record<Exclude<Persona, "anonymous">, string> = { owner: c.userIds["owner1"]!, otherOwner: c.userIds["owner2"]!, assignedTech: c.userIds["tech1"]!, otherTech: c.userIds["tech2"]!, manager: c.userIds["manager"]!, otherManager: other.userIds["manager"]! };
-  const name = "authjs.session-token";
-  for (const [persona, userId] of Object.entries(people) as [Persona, string][]) {
-    const sid = await createAuthSession(userId, 3600);
-    cookies.set(persona, `${name}=${await encode({ token: { sid }, secret: process.env.AUTH_SECRET!, salt: name, maxAge: 3600 })}`);
-  }
+  for (const [persona, userId] of Object.entries(people) as [Persona, string][]) cookies.set(persona, await mintSessionCookie(userId));
   // The unassigned technician must have no open visit at the property (that would put it in their scope).
   expect(await db.selectFrom("visits").select("id").where("property_id", "=", propertyId).where("technician_id", "=", c.userIds["tech2"]!).where("status", "in", ["scheduled", "in_progress"]).execute()).toEqual([]);
 }, 120_000);

@@ -2,7 +2,7 @@
 // on 127.0.0.1, with the local fake weather and SMTP services beside it. Builds first when no build
 // exists or a source changed. Stops what it started afterwards (the server by its PID).
 import { type ChildProcess, spawn } from "node:child_process";
-import { existsSync, readdirSync, rmSync, statSync } from "node:fs";
+import { existsSync, openSync, readdirSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { startSmtpFake } from "../harness/smtp-fake";
@@ -12,6 +12,7 @@ const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 const MAIL_DIR = path.resolve("tests/.artifacts/mail-e2e");
 const AUTH_SECRET = "e2e-tests-only-secret-0123456789abcdefghijkl";
 const PHOTO_DIR = "tests/.artifacts/photos-e2e";
+const SERVER_LOG = path.resolve("tests/.artifacts/e2e-server.log");
 let server: ChildProcess | undefined;
 let weather: ChildProcess | undefined;
 
@@ -41,8 +42,10 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
   rmSync(MAIL_DIR, { recursive: true, force: true });
   const smtp = await startSmtpFake(0, MAIL_DIR);
+  // The server's JSON log lines go to a file the log test reads (tests/e2e/security-logs.test.ts).
+  const logFile = openSync(SERVER_LOG, "w");
   server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
-    stdio: ["ignore", "ignore", "inherit"],
+    stdio: ["ignore", logFile, "inherit"],
     env: {
       ...process.env,
       NODE_ENV: "production",
@@ -50,7 +53,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
       DATABASE_URL: databaseUrl,
       AUTH_SECRET,
       AUTH_URL: baseUrl,
-      LOG_LEVEL: "warn",
+      LOG_LEVEL: "info",
       PHOTO_DIR,
       WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
       SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
@@ -63,6 +66,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   project.provide("databaseUrl", databaseUrl);
   project.provide("authSecret", AUTH_SECRET);
   project.provide("photoDir", PHOTO_DIR);
+  project.provide("serverLog", SERVER_LOG);
 
   return async () => {
     await smtp.close();
@@ -82,5 +86,6 @@ declare module "vitest" {
     /** The server's AUTH_SECRET, for tests that mint a session cookie as sign-in does. */
     authSecret: string;
     photoDir: string;
+    serverLog: string;
   }
 }

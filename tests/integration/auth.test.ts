@@ -35,17 +35,20 @@ describe("checkCredentials", () => {
     expect(await checkCredentials({ email: c.emails.owner2!, password: TEST_PASSWORD, address: nextAddress() })).toEqual({ ok: false, reason: "invalid" });
   });
 
-  it("throttles an account after 5 failures, even with the right password, and says so", async () => {
+  it("100 wrong passwords for one account: throttled after 5, even the right password then, and says so", async () => {
     const c = await createTestCompany();
     const email = c.emails.owner3!;
     const outcomes: string[] = [];
-    for (let i = 0; i < 7; i++) {
+    for (let i = 0; i < 100; i++) {
       const r = await checkCredentials({ email, password: "wrong-guess-" + i, address: nextAddress() });
       outcomes.push(r.ok ? "ok" : r.reason);
     }
-    expect(outcomes).toEqual(["invalid", "invalid", "invalid", "invalid", "invalid", "throttled", "throttled"]);
+    const throttledFrom = outcomes.indexOf("throttled");
+    expect(throttledFrom).toBe(5); // SIGN_IN_MAX_PER_ACCOUNT in vitest.config.ts
+    expect(outcomes.slice(throttledFrom).every((o) => o === "throttled")).toBe(true);
+    expect(outcomes).not.toContain("ok");
     expect(await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() })).toEqual({ ok: false, reason: "throttled" });
-    console.log(`throttle: account locked after ${outcomes.indexOf("throttled")} failures within the window`);
+    console.log(`throttle: 100 wrong passwords for one account (each from a new address): refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled, 0 accepted`);
   });
 
   it("throttles an unknown e-mail the same way (no hint that it does not exist)", async () => {
@@ -58,16 +61,20 @@ describe("checkCredentials", () => {
     expect(outcomes.indexOf("throttled")).toBe(5);
   });
 
-  it("throttles a client address after 20 failures across accounts", async () => {
+  it("100 wrong passwords from one address across 100 accounts: throttled after 20", async () => {
     const from = nextAddress();
-    let throttledAt = -1;
-    for (let i = 0; i < 22; i++) {
+    const outcomes: string[] = [];
+    for (let i = 0; i < 100; i++) {
       const r = await checkCredentials({ email: `spray-${i}@test.sward.test`, password: "x", address: from });
-      if (!r.ok && r.reason === "throttled" && throttledAt < 0) throttledAt = i;
+      outcomes.push(r.ok ? "ok" : r.reason);
     }
-    expect(throttledAt).toBe(20);
-    // Another address is unaffected.
+    const throttledFrom = outcomes.indexOf("throttled");
+    expect(throttledFrom).toBe(20); // SIGN_IN_MAX_PER_ADDRESS in vitest.config.ts
+    expect(outcomes.slice(throttledFrom).every((o) => o === "throttled")).toBe(true);
+    // The right password from that address is refused too; another address is unaffected.
+    expect(await checkCredentials({ email: company.emails.manager!, password: TEST_PASSWORD, address: from })).toEqual({ ok: false, reason: "throttled" });
     expect(await checkCredentials({ email: company.emails.manager!, password: TEST_PASSWORD, address: nextAddress() })).toMatchObject({ ok: true });
+    console.log(`throttle: 100 wrong passwords from one address across 100 e-mails: refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled`);
   });
 
   it("failures older than the window no longer count", async () => {
@@ -87,14 +94,14 @@ describe("checkCredentials", () => {
     };
     const known: number[] = [];
     const unknown: number[] = [];
-    for (let i = 0; i < 8; i++) {
+    for (let i = 0; i < 16; i++) {
       const c = i % 2 ? company.emails.tech1! : company.emails.manager!;
       known.push(await time(c));
       unknown.push(await time(`unknown-${i}@test.sward.test`));
     }
     const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
     const gap = Math.abs(median(known) - median(unknown));
-    console.log(`timing: median known ${median(known).toFixed(1)} ms, unknown ${median(unknown).toFixed(1)} ms, gap ${gap.toFixed(1)} ms`);
+    console.log(`timing: wrong password for an existing e-mail, median ${median(known).toFixed(1)} ms; for an unknown e-mail ${median(unknown).toFixed(1)} ms; median gap ${gap.toFixed(1)} ms (16 each)`);
     // Both paths run one Argon2id verification (~tens of ms); a missing account must not be a fast path.
     expect(median(unknown)).toBeGreaterThan(median(known) * 0.5);
   });
@@ -138,5 +145,6 @@ describe("sessions and the actor", () => {
     expect(m).toBeGreaterThanOrEqual(19_456);
     expect(t).toBeGreaterThanOrEqual(2);
     expect(p).toBeGreaterThanOrEqual(1);
+    console.log(`passwords: argon2id m=${m} KiB, t=${t}, p=${p} (OWASP minimum m=19456, t=2, p=1)`);
   });
 });

@@ -52,6 +52,8 @@ describe("route()", () => {
     const post = (headers: Record<string, string>) => handler(new Request("http://h/x", { method: "POST", headers }));
     expect((await post({ origin: "https://elsewhere.test", host: "h" })).status).toBe(403);
     expect((await post({ host: "h" })).status).toBe(403);
+    // Origin "null" (sandboxed frames, some redirects) and unparsable origins are refused, not a 500.
+    for (const origin of ["null", "::not a url", "http://", "file://"]) expect((await post({ origin, host: "h" })).status).toBe(403);
     expect((await post({ origin: "http://h", host: "h", "sec-fetch-site": "cross-site" })).status).toBe(403);
     expect((await post({ origin: "http://h", host: "h", "sec-fetch-site": "same-origin" })).status).toBe(200);
   });
