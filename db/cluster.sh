@@ -1,6 +1,7 @@
 #!/bin/sh
 # Sward's own PostgreSQL server on loopback: start | stop | status | url [db]
-#   Data folder: .data/pg inside the project (git-ignored), or /tmp/sward-pg-<hash> when the
+#   Data folder: $SWARD_PG_DATA when set (a second, separate cluster, e.g. the crash suite's);
+#   otherwise .data/pg inside the project (git-ignored), or /tmp/sward-pg-<hash> when the
 #   server user cannot reach the project folder. Port: $SWARD_PG_PORT (default 54329).
 #   As root, the server runs as the "postgres" user; otherwise as the calling user.
 set -eu
@@ -40,9 +41,10 @@ else
   as_server() { "$@"; }
 fi
 
-# Choose the data folder: inside the project when the server user can reach it.
-DATA="$ROOT/.data/pg"
-if [ "$RUN_AS" = "postgres" ]; then
+# Choose the data folder: the one named by SWARD_PG_DATA, else inside the project when the server
+# user can reach it.
+DATA=${SWARD_PG_DATA:-"$ROOT/.data/pg"}
+if [ -z "${SWARD_PG_DATA:-}" ] && [ "$RUN_AS" = "postgres" ]; then
   mkdir -p "$ROOT/.data"
   if ! runuser -u postgres -- test -x "$ROOT/.data"; then
     HASH=$(printf '%s' "$ROOT" | cksum | cut -d' ' -f1)

@@ -40,33 +40,40 @@ export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: strin
   if (!(await storage.has(displayKey))) await storage.put(displayKey, photo.display.data, "image/webp");
   if (!(await storage.has(thumbKey))) await storage.put(thumbKey, photo.thumb.data, "image/webp");
 
+  // The row and the Index it changes commit together: were they apart, a crash between them would
+  // leave the photo stored and the Index without it, and the retry (which finds the row) would
+  // answer 200 without ever correcting it.
   await db()
-    .insertInto("photos")
-    .values({
-      company_id: actor.companyId,
-      visit_id: visitId,
-      zone_check_id: zoneCheckId,
-      zone_id: target.zone_id,
-      property_id: target.property_id,
-      content_hash: photo.contentHash,
-      original_format: photo.format,
-      original_bytes: photo.bytes,
-      width: photo.width,
-      height: photo.height,
-      display_key: displayKey,
-      display_width: photo.display.width,
-      display_height: photo.display.height,
-      thumb_key: thumbKey,
-      green_cover_pct: photo.greenCoverPct,
-      dgci: photo.dgci,
-      captured_local: photo.capturedLocal,
-      gps_latitude: photo.gps?.latitude ?? null,
-      gps_longitude: photo.gps?.longitude ?? null,
-      uploaded_by: actor.userId,
-    })
-    .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
-    .execute();
-  await refreshCheckIndex(db(), [zoneCheckId]); // photo cover and colour are part of the Index
+    .transaction()
+    .execute(async (trx) => {
+      await trx
+        .insertInto("photos")
+        .values({
+          company_id: actor.companyId,
+          visit_id: visitId,
+          zone_check_id: zoneCheckId,
+          zone_id: target.zone_id,
+          property_id: target.property_id,
+          content_hash: photo.contentHash,
+          original_format: photo.format,
+          original_bytes: photo.bytes,
+          width: photo.width,
+          height: photo.height,
+          display_key: displayKey,
+          display_width: photo.display.width,
+          display_height: photo.display.height,
+          thumb_key: thumbKey,
+          green_cover_pct: photo.greenCoverPct,
+          dgci: photo.dgci,
+          captured_local: photo.capturedLocal,
+          gps_latitude: photo.gps?.latitude ?? null,
+          gps_longitude: photo.gps?.longitude ?? null,
+          uploaded_by: actor.userId,
+        })
+        .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
+        .execute();
+      await refreshCheckIndex(trx, [zoneCheckId]); // photo cover and colour are part of the Index
+    });
   const saved = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (!saved) throw new Error("photo row missing after insert");
   return { photo: saved, isNew: true };

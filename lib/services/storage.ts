@@ -1,6 +1,6 @@
 // Object storage for photo derivatives behind one small interface, with two drivers:
 // the local disk (default; a git-ignored folder) and S3 (any S3-compatible service).
-import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
+import { mkdir, open, readFile, rename } from "node:fs/promises";
 import path from "node:path";
 import { GetObjectCommand, HeadObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 
@@ -16,6 +16,15 @@ function assertKey(key: string): void {
   if (!SAFE_KEY.test(key) || key.includes("..")) throw new Error(`unsafe storage key: ${key}`);
 }
 
+async function syncFolder(dir: string): Promise<void> {
+  const handle = await open(dir, "r");
+  try {
+    await handle.sync();
+  } finally {
+    await handle.close();
+  }
+}
+
 export function localDiskStorage(root: string): PhotoStorage {
   const file = (key: string) => {
     assertKey(key);
@@ -24,10 +33,24 @@ export function localDiskStorage(root: string): PhotoStorage {
   return {
     async put(key, body) {
       const target = file(key);
-      await mkdir(path.dirname(target), { recursive: true });
+      const dir = path.dirname(target);
+      const created = await mkdir(dir, { recursive: true });
       const temp = `${target}.${process.pid}.${Date.now()}.tmp`;
-      await writeFile(temp, body);
+      // The photo row is written once put() returns, so the file must be on the disk by then, not
+      // only in the page cache: sync the bytes before the rename, then the folders whose entries
+      // changed (the renamed file's, and those of any folder just created).
+      const handle = await open(temp, "w");
+      try {
+        await handle.writeFile(body);
+        await handle.sync();
+      } finally {
+        await handle.close();
+      }
       await rename(temp, target); // atomic: readers never see half a file
+      for (let d = dir; ; d = path.dirname(d)) {
+        await syncFolder(d);
+        if (!created || d === path.dirname(created) || d === path.dirname(d)) break;
+      }
     },
     async get(key) {
       try {

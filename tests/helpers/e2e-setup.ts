@@ -2,10 +2,11 @@
 // on 127.0.0.1, with the local fake weather and SMTP services beside it. Builds first when no build
 // exists or a source changed. Stops what it started afterwards (the server by its PID).
 import { type ChildProcess, spawn } from "node:child_process";
-import { existsSync, openSync, readdirSync, rmSync, statSync } from "node:fs";
+import { openSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { startSmtpFake } from "../harness/smtp-fake";
+import { isBuildStale } from "./build";
 import { TSX, run, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
@@ -15,18 +16,6 @@ const PHOTO_DIR = "tests/.artifacts/photos-e2e";
 const SERVER_LOG = path.resolve("tests/.artifacts/e2e-server.log");
 let server: ChildProcess | undefined;
 let weather: ChildProcess | undefined;
-
-/** No build, or a source file changed after it: e2e tests must never run against old code. */
-function isBuildStale(): boolean {
-  if (!existsSync(".next/BUILD_ID")) return true;
-  const built = statSync(".next/BUILD_ID").mtimeMs;
-  const newest = (dir: string): number =>
-    readdirSync(dir, { withFileTypes: true }).reduce((max, entry) => {
-      const full = path.join(dir, entry.name);
-      return Math.max(max, entry.isDirectory() ? newest(full) : statSync(full).mtimeMs);
-    }, 0);
-  return ["app", "components", "lib", "db", "fixtures", "public"].some((dir) => existsSync(dir) && newest(dir) > built);
-}
 
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   const databaseUrl = `postgres://postgres@127.0.0.1:${process.env.SWARD_PG_PORT ?? "54329"}/sward_e2e`;
