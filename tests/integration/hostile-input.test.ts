@@ -1,6 +1,8 @@
-// fast-check: for every mutating endpoint, malformed payloads (wrong types, out-of-range values,
-// huge strings, unknown fields, missing fields, prototype-pollution keys, non-objects) get 422
-// with field errors — never a 5xx — and change no rows.
+// fast-check: for every mutating endpoint (route handlers and the public server actions),
+// 10,000 malformed payloads each (wrong types, out-of-range values, huge strings, unicode, unknown
+// fields, missing fields, prototype-pollution keys, SQL and HTML fragments, non-objects) get 422
+// with field errors — never a 5xx, never a stack trace or an SQL error in the body — and change no
+// rows. HOSTILE_RUNS lowers the count for a quick local run.
 import fc from "fast-check";
 import { sql } from "kysely";
 import { beforeAll, describe, expect, it, vi } from "vitest";
@@ -13,14 +15,17 @@ import { productSchema } from "@/lib/products/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import { wateringSchema } from "@/lib/watering/schemas";
 import { acknowledgeSchema, resolveSchema } from "@/lib/risk/schemas";
+import { signInLinkSchema, signInSchema } from "@/lib/auth/schemas";
 import { evaluateProperty } from "@/lib/risk/evaluate";
 import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
+// The sign-in actions read the client address from the request headers.
+vi.mock("next/headers", () => ({ headers: async () => new Headers({ "x-forwarded-for": "198.51.100.77" }), cookies: async () => ({ get: () => undefined }) }));
 
-const RUNS = Number(process.env.HOSTILE_RUNS ?? 1000);
+const RUNS = Number(process.env.HOSTILE_RUNS ?? 10_000);
 let c: TestCompany;
 let ids: { propertyId: string; zoneId: string; visitId: string; techId: string; productId: string; ruleSetId: string; alertId: string };
 
@@ -64,6 +69,7 @@ const endpoints: Endpoint[] = [
   { name: "PUT /rule-sets/:id", load: () => import("@/app/api/v1/rule-sets/[ruleSetId]/route"), method: "PUT", params: () => ({ ruleSetId: ids.ruleSetId }), schema: ruleSetSchema, valid: () => ({ name: "R", citation: "", limitsAreLaw: true, maxNLbPer1000: 0.9, maxWsnLbPer1000: 0.7, minSlowReleasePct: 20, proBlackout: ["12-01", "03-01"], homeownerBlackout: null, phosphorusRule: "soil_test_or_establishment", soilTestMaxAgeYears: 3, recordRetentionYears: 2, recordRequiredFields: [], recordFieldsApplyTo: "all" }) },
   { name: "POST /visits/:id/applications", load: () => import("@/app/api/v1/visits/[visitId]/applications/route"), method: "POST", params: () => ({ visitId: ids.visitId }), schema: applicationSchema, valid: () => ({ id: newId(), zoneId: ids.zoneId, productId: ids.productId, rateAmount: 2, rateUnit: "lb/1000ft2", windMph: null, temperatureF: null, isEstablishing: false, applicatorName: "", applicatorLicence: "", overrideReason: null }) },
   { name: "POST /properties/:id/waterings", load: () => import("@/app/api/v1/properties/[propertyId]/waterings/route"), method: "POST", params: () => ({ propertyId: ids.propertyId }), schema: wateringSchema as unknown as z.ZodObject, valid: () => ({ id: newId(), zoneId: null, wateredOn: "2026-07-01", depthIn: 0.5, runMinutes: null, precipitationRateInPerHour: null, notes: "" }) },
+  { name: "POST /products/:id/archive", load: () => import("@/app/api/v1/products/[productId]/archive/route"), method: "POST", params: () => ({ productId: ids.productId }), schema: z.object({ archived: z.boolean() }).strict(), valid: () => ({ archived: false }) },
   { name: "POST /alerts/:id/acknowledge", load: () => import("@/app/api/v1/alerts/[alertId]/acknowledge/route"), method: "POST", params: () => ({ alertId: ids.alertId }), schema: acknowledgeSchema, valid: () => ({ note: "Looked at it" }) },
   { name: "POST /alerts/:id/resolve", load: () => import("@/app/api/v1/alerts/[alertId]/resolve/route"), method: "POST", params: () => ({ alertId: ids.alertId }), schema: resolveSchema, valid: () => ({ note: "Sprayed" }) },
 ];
@@ -71,7 +77,8 @@ const endpoints: Endpoint[] = [
 const junk = fc.oneof(
   fc.anything({ maxDepth: 3 }),
   fc.string({ minLength: 5000, maxLength: 20000 }),
-  fc.constantFrom("' OR 1=1 --", "<script>alert(1)</script>", "\u0000", "😀".repeat(500), "NaN", "1e309", "__proto__"),
+  fc.constantFrom("' OR 1=1 --", "'); drop table properties; --", "<script>alert(1)</script>", '"><img src=x onerror=alert(1)>', "\u0000", "\r\n{\"level\":60}", "😀".repeat(500), "\u202e\u0301\ufeff", "NaN", "1e309", "__proto__", "{{7*7}}", "${7*7}"),
+  fc.string({ unit: "grapheme", maxLength: 200 }),
   fc.double(),
   fc.integer({ min: -1e9, max: 1e9 }),
   fc.constantFrom(null, true, [], {}, -1, 10, 101, 1.5),
@@ -122,8 +129,11 @@ async function tableCounts(): Promise<string> {
   return JSON.stringify(rows);
 }
 
+const stats = { payloads: 0, serverErrors: 0, leakyBodies: 0, rowsChanged: 0 };
+const LEAKY = /\n\s+at |node_modules|syntax error|relation "|violates|duplicate key|postgres/i;
+const prototypeBefore = Object.getOwnPropertyNames(Object.prototype).sort();
+
 describe("malformed payloads", () => {
-  let total = 0;
   for (const endpoint of endpoints) {
     it(`${endpoint.name}: ${RUNS} payloads → 422, never 5xx, nothing changed`, async () => {
       current = await c.actor("manager");
@@ -136,21 +146,63 @@ describe("malformed payloads", () => {
             { params: Promise.resolve(endpoint.params()) },
           );
           const text = await res.text();
+          stats.payloads++;
+          if (res.status >= 500) stats.serverErrors++;
+          if (LEAKY.test(text)) stats.leakyBodies++;
           expect(res.status).toBe(422);
           const body = JSON.parse(text) as { error: { code: string; fieldErrors?: Record<string, string[]> } };
           expect(body.error.code).toBe("invalid_input");
           if (payload !== null && typeof payload === "object" && !Array.isArray(payload)) expect(body.error.fieldErrors).toBeDefined();
-          expect(text).not.toMatch(/\n\s+at |node_modules|syntax error|relation "/);
-          total++;
+          expect(text).not.toMatch(LEAKY);
         }),
         { numRuns: RUNS },
       );
-      expect(await tableCounts()).toBe(before);
-    }, 120_000);
+      const after = await tableCounts();
+      if (after !== before) stats.rowsChanged++;
+      expect(after).toBe(before);
+    }, 300_000);
   }
 
-  it("the valid payloads themselves are accepted by their schemas (the generator corrupts something real)", () => {
+  // The public server actions take FormData: every value arrives as a string.
+  const actions = [
+    { name: "action requestSignInLinkAction", schema: signInLinkSchema, valid: () => ({ email: "owner1@demo.sward.test" }), run: async (form: FormData) => (await import("@/lib/auth/actions")).requestSignInLinkAction({ email: "" }, form) },
+    { name: "action signInAction", schema: signInSchema, valid: () => ({ email: "owner1@demo.sward.test", password: "x" }), run: async (form: FormData) => (await import("@/lib/auth/actions")).signInAction({ email: "" }, form) },
+  ];
+  for (const a of actions) {
+    it(`${a.name}: ${RUNS} malformed forms → an error state with field errors, nothing recorded`, async () => {
+      current = null;
+      const counts = async () => JSON.stringify((await sql<{ a: number; l: number; v: number }>`select (select count(*)::int from sign_in_attempts) a, (select count(*)::int from sign_in_link_requests) l, (select count(*)::int from verification_tokens) v`.execute(testDb())).rows);
+      const before = await counts();
+      const field = fc.oneof(junk.map((v) => (typeof v === "string" ? v : JSON.stringify(v) ?? "")), fc.string({ maxLength: 400 }));
+      const form = fc
+        .record({ email: fc.option(field, { nil: undefined }), password: fc.option(field, { nil: undefined }), redirectTo: fc.option(field, { nil: undefined }) }, { requiredKeys: [] })
+        .map((o) => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Record<string, string>)
+        .filter((o) => !a.schema.safeParse(o).success);
+      await fc.assert(
+        fc.asyncProperty(form, async (fields) => {
+          const data = new FormData();
+          for (const [k, v] of Object.entries(fields)) data.set(k, v);
+          const state = await a.run(data);
+          stats.payloads++;
+          if (LEAKY.test(JSON.stringify(state))) stats.leakyBodies++;
+          expect(state.error).toBeTruthy();
+          expect(state.fieldErrors).toBeDefined();
+          expect(JSON.stringify(state)).not.toMatch(LEAKY);
+        }),
+        { numRuns: RUNS },
+      );
+      const after = await counts();
+      if (after !== before) stats.rowsChanged++;
+      expect(after).toBe(before);
+    }, 300_000);
+  }
+
+  it("the valid payloads themselves are accepted by their schemas (the generator corrupts something real), and Object.prototype is untouched", () => {
     for (const e of endpoints) expect(e.schema.safeParse(e.valid()).success, e.name).toBe(true);
-    console.log(`hostile input: ${total} malformed payloads across ${endpoints.length} endpoints, 0 responses 5xx`);
+    for (const a of actions) expect(a.schema.safeParse(a.valid()).success, a.name).toBe(true);
+    expect(Object.getOwnPropertyNames(Object.prototype).sort()).toEqual(prototypeBefore);
+    expect(({} as Record<string, unknown>).isAdmin).toBeUndefined();
+    console.log(`hostile input: ${stats.payloads} malformed payloads across ${endpoints.length} route handlers and ${actions.length} server actions (${RUNS} each); responses 5xx ${stats.serverErrors}, stack traces or SQL errors in bodies ${stats.leakyBodies}, endpoints with rows changed by rejected requests ${stats.rowsChanged}`);
+    expect(stats).toMatchObject({ serverErrors: 0, leakyBodies: 0, rowsChanged: 0 });
   });
 });
