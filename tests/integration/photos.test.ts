@@ -5,7 +5,7 @@ import { readdirSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import exifr from "exifr";
 import sharp from "sharp";
-import { beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { otherCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import type { PhotoDto } from "@/lib/photos/dto";
@@ -43,6 +43,23 @@ async function post(body: Buffer | Uint8Array, checkIndex = 0, type = "image/jpe
   );
 }
 
+/** A real JPEG with its SOF frame header changed to claim 60,000 × 60,000 pixels. */
+async function jpegClaiming60k(): Promise<Buffer> {
+  const jpeg = Buffer.from(await lawnImage(64, 48, 0.2));
+  for (let i = 2; i < jpeg.length - 9; ) {
+    if (jpeg[i] !== 0xff) break;
+    const marker = jpeg[i + 1]!;
+    const length = jpeg.readUInt16BE(i + 2);
+    if (marker >= 0xc0 && marker <= 0xc2) {
+      jpeg.writeUInt16BE(60_000, i + 5); // height
+      jpeg.writeUInt16BE(60_000, i + 7); // width
+      return jpeg;
+    }
+    i += 2 + length;
+  }
+  throw new Error("no SOF segment found");
+}
+
 beforeAll(async () => {
   rmSync(STORE, { recursive: true, force: true });
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
@@ -63,11 +80,31 @@ describe("the attack set", () => {
     ["a file over the size limit", () => Buffer.alloc(PHOTO_LIMITS.maxBytes + 1, 0xff), 413, /larger than 25 MB/],
     ["an SVG", () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100"><rect width="100" height="100" fill="green"/></svg>'), 415, /SVG files are not accepted/],
     ["a zero-byte file", () => Buffer.alloc(0), 422, /file is empty/],
+    // Polyglots: JPEG magic bytes in front of another format (an HTML page, a ZIP archive).
+    ["a JPEG/HTML polyglot", () => Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.from("<html><script>alert(document.cookie)</script></html>".repeat(40))]), 415, /not a photo Sward can read/],
+    ["a JPEG/ZIP polyglot", () => Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xdb]), Buffer.from("PK\u0003\u0004", "latin1"), Buffer.alloc(3000, 0x41)]), 415, /not a photo Sward can read/],
+    // Decompression bombs: a few kilobytes that would decode to gigabytes.
+    ["a PNG bomb (60,000 × 60,000, 1-bit, deflated)", () => pixelFloodPng(60_000, 60_000), 422, /60000 × 60000 pixels, above the 50 megapixel limit/],
+    ["a JPEG whose frame header claims 60,000 × 60,000", jpegClaiming60k, 422, /60000 × 60000 pixels, above the 50 megapixel limit/],
   ];
+
+  // The route runs in this process: its peak memory while refusing the set is the server's.
+  let peakRss = 0;
+  let sampler: ReturnType<typeof setInterval> | undefined;
+  let refused = 0;
+  const startRss = process.memoryUsage().rss;
+  beforeAll(() => {
+    sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 5);
+  });
+  afterAll(() => {
+    clearInterval(sampler);
+    console.log(`uploads: attack set of ${cases.length} files — accepted 0, refused ${refused}; peak memory of the server process ${(peakRss / 2 ** 20).toFixed(0)} MB (${((peakRss - startRss) / 2 ** 20).toFixed(0)} MB above the start)`);
+  });
 
   it.each(cases)("%s is refused with a clear message and nothing is stored", async (_name, make, status, message) => {
     const before = { files: filesIn(STORE).length, rows: (await testDb().selectFrom("photos").select("id").execute()).length };
     const res = await post(await make());
+    if (res.status >= 400 && res.status < 500) refused++;
     expect(res.status).toBe(status);
     const body = (await res.json()) as { error: { message: string } };
     expect(body.error.message).toMatch(message);
@@ -154,5 +191,30 @@ describe("accepted photos", () => {
     current = await c.actor("tech1");
     const res = await post(await lawnImage(300, 200, 0.1));
     expect(res.status).toBe(403);
+  });
+});
+
+describe("what is stored", () => {
+  it("no stored file carries EXIF, XMP or GPS, and none holds the bytes of an uploaded script", async () => {
+    // A real JPEG carrying a script in a comment segment is a photo: it is accepted (here by the
+    // manager, the visit being finished), and only its re-encoded WebP derivatives are stored.
+    current = await c.actor("manager");
+    const jpeg = Buffer.from(await lawnImage(320, 240, 0.1, "jpeg", 11));
+    const comment = Buffer.from("<script>alert(document.cookie)</script>");
+    const segment = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from([(comment.length + 2) >> 8, (comment.length + 2) & 0xff]), comment]);
+    const res = await post(Buffer.concat([jpeg.subarray(0, 2), segment, jpeg.subarray(2)]), 1);
+    expect(res.status).toBe(201);
+    const files = filesIn(STORE);
+    let withExif = 0;
+    let withScript = 0;
+    for (const file of files) {
+      const bytes = (await import("node:fs")).readFileSync(file);
+      const meta = await sharp(bytes).metadata();
+      if (meta.exif || meta.xmp || (await exifr.parse(bytes).catch(() => undefined)) !== undefined) withExif++;
+      if (bytes.includes("<script")) withScript++;
+    }
+    console.log(`uploads: ${files.length} stored files, ${withExif} with EXIF/XMP, ${withScript} holding an uploaded script`);
+    expect(withExif).toBe(0);
+    expect(withScript).toBe(0);
   });
 });
