@@ -22,14 +22,19 @@ import type { ApplicationInput } from "./schemas";
 
 const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") => new AppError("invalid_input", message, fieldErrors);
 
+/** The application already recorded under this client id (a retry), or undefined; a conflict when the id is another one's. */
+async function recordedApplication(actor: Actor, visitId: string, id: string): Promise<ApplicationDto | undefined> {
+  const existing = await db().selectFrom("applications").select(["id", "visit_id", "company_id"]).where("id", "=", id).executeTakeFirst();
+  if (!existing) return undefined;
+  if (existing.company_id !== actor.companyId || existing.visit_id !== visitId) throw new AppError("conflict", "A different application already uses that id.");
+  const found = (await listVisitApplications(actor, visitId)).find((a) => a.id === id);
+  if (!found) throw notFound("That application");
+  return found;
+}
+
 export async function recordApplication(actor: Actor, visitId: string, input: ApplicationInput): Promise<ApplicationDto> {
-  const existing = await db().selectFrom("applications").select(["id", "visit_id", "company_id"]).where("id", "=", input.id).executeTakeFirst();
-  if (existing) {
-    if (existing.company_id !== actor.companyId || existing.visit_id !== visitId) throw new AppError("conflict", "A different application already uses that id.");
-    const found = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
-    if (!found) throw notFound("That application");
-    return found; // a retry of a recorded application
-  }
+  const retried = await recordedApplication(actor, visitId, input.id);
+  if (retried) return retried; // a retry of a recorded application
 
   const visit = await db()
     .selectFrom("visits")
@@ -102,10 +107,10 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
     );
   }
 
-  await db()
+  const inserted = await db()
     .transaction()
     .execute(async (trx) => {
-      await trx
+      const row = await trx
         .insertInto("applications")
         .values({
           id: input.id,
@@ -134,10 +139,21 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
           override_by: refused ? actor.userId : null,
           created_by: actor.userId,
         })
-        .execute();
+        // The same submission sent again while the first was being recorded: the first one wins.
+        // No conflict target: the id is unique twice over (primary key and (company_id, id)).
+        .onConflict((oc) => oc.doNothing())
+        .returning("id")
+        .executeTakeFirst();
+      if (!row) return false;
       if (refused) await recordAudit(trx, actor, { entity: "application", entityId: input.id, action: "override_legal_limit", changes: { reason: { from: null, to: input.overrideReason } } });
       if (visit.status === "scheduled") await trx.updateTable("visits").set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId }).where("id", "=", visitId).execute();
+      return true;
     });
+  if (!inserted) {
+    const first = await recordedApplication(actor, visitId, input.id);
+    if (!first) throw new Error("application missing after a concurrent insert");
+    return first;
+  }
   const saved = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
   if (!saved) throw new Error("application missing after insert");
   await refreshPropertySummary(db(), actor.companyId, visit.property_id); // N this year in the book

@@ -43,10 +43,10 @@ export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: strin
   // The row and the Index it changes commit together: were they apart, a crash between them would
   // leave the photo stored and the Index without it, and the retry (which finds the row) would
   // answer 200 without ever correcting it.
-  await db()
+  const inserted = await db()
     .transaction()
     .execute(async (trx) => {
-      await trx
+      const row = await trx
         .insertInto("photos")
         .values({
           company_id: actor.companyId,
@@ -71,10 +71,13 @@ export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: strin
           uploaded_by: actor.userId,
         })
         .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
-        .execute();
+        .returning("id")
+        .executeTakeFirst();
       await refreshCheckIndex(trx, [zoneCheckId]); // photo cover and colour are part of the Index
+      return row !== undefined;
     });
   const saved = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (!saved) throw new Error("photo row missing after insert");
-  return { photo: saved, isNew: true };
+  // A retry that raced the first upload finds the row the first one wrote: 200, not a second 201.
+  return { photo: saved, isNew: inserted };
 }

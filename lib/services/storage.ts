@@ -1,6 +1,7 @@
 // Object storage for photo derivatives behind one small interface, with two drivers:
 // the local disk (default; a git-ignored folder) and S3 (any S3-compatible service).
 import { mkdir, open, readFile, rename } from "node:fs/promises";
+import { randomUUID } from "node:crypto";
 import path from "node:path";
 import { GetObjectCommand, HeadObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 
@@ -35,7 +36,8 @@ export function localDiskStorage(root: string): PhotoStorage {
       const target = file(key);
       const dir = path.dirname(target);
       const created = await mkdir(dir, { recursive: true });
-      const temp = `${target}.${process.pid}.${Date.now()}.tmp`;
+      // Unique per call: two uploads of the same photo at once write the same key, and must not share a temporary file.
+      const temp = `${target}.${process.pid}.${randomUUID()}.tmp`;
       // The photo row is written once put() returns, so the file must be on the disk by then, not
       // only in the page cache: sync the bytes before the rename, then the folders whose entries
       // changed (the renamed file's, and those of any folder just created).

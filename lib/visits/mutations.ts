@@ -82,7 +82,9 @@ export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Pr
           notes: input.notes,
           created_by: actor.userId,
         })
-        .onConflict((oc) => oc.column("id").doNothing())
+        // No conflict target: the id is unique twice over (primary key and (company_id, id)), and a
+        // concurrent retry may trip either.
+        .onConflict((oc) => oc.doNothing())
         .returning("id")
         .executeTakeFirst();
       if (!inserted) {
