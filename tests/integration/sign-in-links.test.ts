@@ -49,9 +49,10 @@ describe("a link's token", () => {
   it("works once: the second use — even at the same moment — finds nothing", async () => {
     const token = `hash-${Date.now()}-a`;
     await adapter.createVerificationToken({ identifier: identifier(), token, expires: new Date(Date.now() + 15 * 60_000) });
-    const [first, second] = await Promise.all([adapter.useVerificationToken({ identifier: identifier(), token }), adapter.useVerificationToken({ identifier: identifier(), token })]);
-    expect([first, second].filter(Boolean)).toHaveLength(1);
+    const uses = await Promise.all(Array.from({ length: 5 }, () => adapter.useVerificationToken({ identifier: identifier(), token })));
+    expect(uses.filter(Boolean)).toHaveLength(1);
     expect(await adapter.useVerificationToken({ identifier: identifier(), token })).toBeNull();
+    console.log(`sign-in links: 5 uses of one link at the same moment → ${uses.filter(Boolean).length} sign-in; a later use finds nothing`);
   });
   it("used with another e-mail address it finds nothing and stays usable by its owner", async () => {
     const token = `hash-${Date.now()}-b`;
