@@ -41,7 +41,7 @@ describe("local photo storage", () => {
 
     const target = path.join(root, "photos", key);
     const [syncTemp, renamed, ...folders] = calls;
-    expect(syncTemp).toMatch(new RegExp(`^sync ${target}\\.\\d+\\.\\d+\\.tmp$`));
+    expect(syncTemp).toMatch(new RegExp(`^sync ${target}\\.\\d+\\.[0-9a-f-]{36}\\.tmp$`));
     expect(renamed).toBe(`rename ${syncTemp!.slice(5)} -> ${target}`);
     // The company folder and the store's root were both created here: their parents' entries changed too.
     expect(folders).toEqual([`sync ${path.dirname(target)}`, `sync ${path.join(root, "photos")}`, `sync ${root}`]);
