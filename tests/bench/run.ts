@@ -12,6 +12,7 @@ import { sql } from "kysely";
 import { createDb } from "@/db/client";
 import { todayIn } from "@/lib/dates";
 import { launchBrowser } from "../helpers/browser";
+import { passwordSignIn } from "../helpers/password-sign-in";
 import { waitForUrl } from "../helpers/processes";
 import { doneCheck } from "../helpers/zone-checks";
 import { BENCH_MANAGER, benchDatabaseUrl, benchHomeowner, benchTechnician } from "./seed";
@@ -37,27 +38,9 @@ function must(cmd: string, args: string[], env: Record<string, string> = {}) {
 
 /** Signs in through Auth.js's credentials callback, as the form does, and returns the cookie header. */
 async function signIn(email: string): Promise<string> {
-  const csrf = await fetch(`${BASE}/api/auth/csrf`);
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const [name, ...value] = pair!.split("=");
-      jar.set(name!, value.join("="));
-    }
-  };
-  keep(csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: [...jar].map(([k, v]) => `${k}=${v}`).join("; "), origin: BASE },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, callbackUrl: "/" }),
-  });
-  keep(res);
-  const cookie = [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  if (!cookie.includes("session-token")) throw new Error(`bench: could not sign in as ${email} (status ${res.status})`);
-  return cookie;
+  const result = await passwordSignIn(BASE, email, PASSWORD);
+  if (!result.sessionToken) throw new Error(`bench: could not sign in as ${email} (status ${result.status})`);
+  return result.cookie;
 }
 
 interface Cannon {

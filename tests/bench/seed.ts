@@ -17,6 +17,7 @@ import { sweepBook } from "@/lib/risk/sweep";
 import { indexInputOf } from "@/lib/scoring/from-check";
 import { swardIndex } from "@/lib/scoring/sward-index";
 import { cellOf } from "@/lib/weather/cache";
+import { seededRandom } from "../helpers/seeded-random";
 
 export const BENCH_DB = "sward_bench";
 export const BENCH_SLUG = "bench-fieldstone";
@@ -42,17 +43,6 @@ const FEEDINGS = [ // day of the season (from 1 April) and product, within New J
   { day: 200, product: "Autumn Anchor 20-0-10", rate: 3.5 },
 ];
 
-/** Mulberry32: a small seeded generator, so every run builds the same book. */
-function generator(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
 
 type Column = readonly [name: string, pgType: string];
@@ -103,7 +93,7 @@ export async function seedBench(options: { properties: number; fresh: boolean })
     const passwordHash = (await db.selectFrom("users").select("password_hash").where("email", "=", BENCH_MANAGER).executeTakeFirstOrThrow()).password_hash;
     lap("company");
 
-    const rand = generator(20261202);
+    const rand = seededRandom(20261202);
     const properties: unknown[][] = [];
     const zones: unknown[][] = [];
     const users: unknown[][] = [];
@@ -200,7 +190,7 @@ export async function seedBench(options: { properties: number; fresh: boolean })
     // A year of daily weather (and a week of forecast) for every location cell of the book.
     const cells = new Map(plan.map((p) => [cellOf(p.lat, p.lon), p]));
     const weather: unknown[][] = [];
-    const wr = generator(7);
+    const wr = seededRandom(7);
     for (const cell of cells.keys()) {
       for (let i = -365; i <= 7; i++) {
         const day = addDays(today, i);

@@ -2,6 +2,7 @@
 // does, and sends requests the way the app's offline queue does: a request that fails with a
 // network error or a 5xx is sent again, unchanged (same client id, same body), after a short
 // back-off; any other answer is final.
+import { passwordSignIn } from "../helpers/password-sign-in";
 
 export class Client {
   /** Requests on the wire right now. */
@@ -17,28 +18,11 @@ export class Client {
   ) {}
 
   static async signIn(base: string, email: string, password: string): Promise<Client> {
-    const jar = new Map<string, string>();
-    const keep = (res: Response) => {
-      for (const c of res.headers.getSetCookie()) {
-        const [pair] = c.split(";");
-        const [name, ...value] = pair!.split("=");
-        jar.set(name!, value.join("="));
-      }
-    };
-    const header = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-    const csrf = await fetch(`${base}/api/auth/csrf`);
-    keep(csrf);
-    const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-    const res = await fetch(`${base}/api/auth/callback/credentials`, {
-      method: "POST",
-      redirect: "manual",
-      headers: { "content-type": "application/x-www-form-urlencoded", cookie: header(), origin: base },
-      body: new URLSearchParams({ csrfToken, email, password, callbackUrl: "/" }),
-    });
-    keep(res);
-    if (!header().includes("session-token")) throw new Error(`crash: could not sign in as ${email} (status ${res.status})`);
-    return new Client(base, header());
+    const result = await passwordSignIn(base, email, password);
+    if (!result.sessionToken) throw new Error(`crash: could not sign in as ${email} (status ${result.status})`);
+    return new Client(base, result.cookie);
   }
+
 
   /** One attempt, no retry (setup steps before the crashes start). */
   async once<T>(method: string, path: string, body?: unknown): Promise<T> {

@@ -25,6 +25,7 @@ import type { VisitDetailDto, VisitSummaryDto } from "@/lib/visits/dto";
 import type { ZoneCheckInput } from "@/lib/visits/schemas";
 import { isBuildStale } from "../helpers/build";
 import { TSX, run } from "../helpers/processes";
+import { seededRandom } from "../helpers/seeded-random";
 import { doneCheck } from "../helpers/zone-checks";
 import { Client } from "./client";
 import { type Cluster, crashCluster, freshCluster, isListening, kill9 as killPostgres, postmasterPid, processState, restartAfterCrash, stopCluster } from "./postgres";
@@ -44,17 +45,8 @@ const TECHNICIAN = "tech1@demo.sward.test";
 const MANAGER = "manager@demo.sward.test";
 
 const seed = Number(process.env.CRASH_SEED ?? randomBytes(4).readUInt32BE(0));
-/** mulberry32: a small seeded generator, so CRASH_SEED repeats the crash points and the values sent. */
-const random = (() => {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-})();
+/** Seeded, so CRASH_SEED repeats the crash points and the values sent. */
+const random = seededRandom(seed);
 const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!;
 const between = (lo: number, hi: number) => lo + Math.floor(random() * (hi - lo + 1));
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));

@@ -5,6 +5,7 @@
 import { readFileSync } from "node:fs";
 import { beforeAll, describe, expect, inject, it } from "vitest";
 import { mintSessionCookie, useE2eDatabase } from "../helpers/e2e-db";
+import { passwordSignIn } from "../helpers/password-sign-in";
 import type { TestCompany } from "../helpers/factories";
 
 const BASE = inject("baseUrl");
@@ -12,22 +13,7 @@ const LOG = inject("serverLog");
 const FORGED = '{"level":30,"event":"sign_in","forged":true}';
 let c: TestCompany;
 
-async function signIn(email: string, password: string): Promise<{ status: number; cookie: string; csrfToken: string }> {
-  const csrf = await fetch(`${BASE}/api/auth/csrf`);
-  const jar = new Map(csrf.headers.getSetCookie().map((x) => x.split(";")[0]!.split(/=(.*)/s).slice(0, 2) as [string, string]));
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: [...jar].map(([k, v]) => `${k}=${v}`).join("; "), origin: BASE },
-    body: new URLSearchParams({ csrfToken, email, password, callbackUrl: "/" }),
-  });
-  for (const x of res.headers.getSetCookie()) {
-    const [k, v] = x.split(";")[0]!.split(/=(.*)/s);
-    jar.set(k!, v!);
-  }
-  return { status: res.status, cookie: jar.get("authjs.session-token") ?? "", csrfToken };
-}
+const signIn = (email: string, password: string) => passwordSignIn(BASE, email, password);
 
 beforeAll(async () => {
   useE2eDatabase();
@@ -40,7 +26,7 @@ describe("security logs", () => {
     const secretPassword = `Wrong-Horse-Battery-${Date.now()}\r\n${FORGED}`;
     const failed = await signIn(c.emails["tech2"]!, secretPassword);
     const ok = await signIn(c.emails["manager"]!, TEST_PASSWORD);
-    expect(ok.cookie).not.toBe("");
+    expect(ok.sessionToken).not.toBe("");
     // Refused authorisations: anonymous (401) and a technician at a manager's route (403), one with CR/LF in the query.
     const tech = await mintSessionCookie(c.userIds["tech1"]!);
     const refusals = [
@@ -73,7 +59,7 @@ describe("security logs", () => {
     const refused = events.filter((e) => e.event === "access_refused" && (e.path === "/api/v1/book" || e.path === "/api/v1/products"));
     const all = lines.join("\n");
     const emails = Object.values(c.emails).filter((email) => all.includes(email));
-    const secrets = [secretPassword.split("\r")[0]!, TEST_PASSWORD, ok.cookie, failed.csrfToken, ok.csrfToken, tech.split("=")[1]!].filter((x) => all.includes(x));
+    const secrets = [secretPassword.split("\r")[0]!, TEST_PASSWORD, ok.sessionToken, failed.csrfToken, ok.csrfToken, tech.split("=")[1]!].filter((x) => all.includes(x));
     const forged = events.filter((e) => e.forged === true);
     console.log(`logs: ${lines.length} lines, ${notJson.length} not JSON; sign-ins ${signIns.length}, failed sign-ins ${failures.length}, refused authorisations ${refused.length}; passwords or tokens in the log ${secrets.length}, full e-mail addresses ${emails.length}, forged lines ${forged.length}`);
     expect(notJson).toEqual([]);

@@ -5,6 +5,7 @@
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, inject, it } from "vitest";
 import { useE2eDatabase } from "../helpers/e2e-db";
+import { passwordSignIn } from "../helpers/password-sign-in";
 import type { TestCompany } from "../helpers/factories";
 
 const BASE = inject("baseUrl");
@@ -15,21 +16,9 @@ let propertyId: string;
 
 /** A real password sign-in through Auth.js's credentials callback, as the sign-in form does. */
 async function signIn(email: string, password: string): Promise<string> {
-  const csrf = await fetch(`${BASE}/api/auth/csrf`);
-  const jar = new Map(csrf.headers.getSetCookie().map((x) => x.split(";")[0]!.split(/=(.*)/s).slice(0, 2) as [string, string]));
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: [...jar].map(([k, v]) => `${k}=${v}`).join("; "), origin: BASE },
-    body: new URLSearchParams({ csrfToken, email, password, callbackUrl: "/" }),
-  });
-  for (const x of res.headers.getSetCookie()) {
-    const [k, v] = x.split(";")[0]!.split(/=(.*)/s);
-    jar.set(k!, v!);
-  }
-  expect(jar.has("authjs.session-token"), `sign-in as ${email} failed (${res.status})`).toBe(true);
-  return [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  const result = await passwordSignIn(BASE, email, password);
+  expect(result.sessionToken, `sign-in as ${email} failed (${result.status})`).not.toBe("");
+  return result.cookie;
 }
 
 /** What a manager's session can do; each would succeed with a live session. */

@@ -1,0 +1,12 @@
+// Mulberry32: a small seeded generator of numbers in [0, 1), so a seed repeats a run exactly
+// (the benchmark's book, the crash suite's crash points and values).
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
