@@ -8,9 +8,22 @@ const config = [
   { ignores: [".next/**", "node_modules/**", ".data/**", "next-env.d.ts", "tests/.artifacts/**"] },
   {
     rules: {
-      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-unused-vars": [
+        "error",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_" },
+      ],
       // One door to the database: only data-access modules import the Kysely instance.
-      "no-restricted-imports": ["error", { paths: [{ name: "@/db", message: "Only lib/**/queries.ts and lib/**/mutations.ts import the database." }] }],
+      "no-restricted-imports": [
+        "error",
+        {
+          paths: [
+            {
+              name: "@/db",
+              message: "Only lib/**/queries.ts and lib/**/mutations.ts import the database.",
+            },
+          ],
+        },
+      ],
     },
   },
   {

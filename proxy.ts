@@ -2,12 +2,16 @@
 // action whose Origin does not match the host by throwing, which answers 500; this answers the
 // same refusal as the route handlers do — 403 with a JSON error — before any action code runs.
 // Not a security boundary of its own: every action is still checked by lib/auth/guard.ts.
-import { type NextRequest, NextResponse } from "next/server";
+import { NextResponse, type NextRequest } from "next/server";
+
 import { isSameSiteWrite } from "@/lib/http/origin";
 
 export function proxy(request: NextRequest): NextResponse {
   if (request.method === "POST" && !isSameSiteWrite(request.headers)) {
-    return NextResponse.json({ error: { code: "forbidden", message: "Cross-site requests are refused." } }, { status: 403, headers: { "Cache-Control": "no-store" } });
+    return NextResponse.json(
+      { error: { code: "forbidden", message: "Cross-site requests are refused." } },
+      { status: 403, headers: { "Cache-Control": "no-store" } },
+    );
   }
   return NextResponse.next();
 }

@@ -1,14 +1,24 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import type { ReactNode } from "react";
+
 import { Providers } from "@/components/providers";
+
 import "./globals.css";
 
 // Atkinson Hyperlegible Next (SIL OFL 1.1, app/fonts/), shipped with the app.
 const sward = localFont({
   src: [
-    { path: "./fonts/atkinson-hyperlegible-next-latin-wght-normal.woff2", style: "normal", weight: "200 800" },
-    { path: "./fonts/atkinson-hyperlegible-next-latin-wght-italic.woff2", style: "italic", weight: "200 800" },
+    {
+      path: "./fonts/atkinson-hyperlegible-next-latin-wght-normal.woff2",
+      style: "normal",
+      weight: "200 800",
+    },
+    {
+      path: "./fonts/atkinson-hyperlegible-next-latin-wght-italic.woff2",
+      style: "italic",
+      weight: "200 800",
+    },
   ],
   variable: "--font-sward",
   display: "swap",

@@ -1,5 +1,6 @@
 // The front door: each role goes to its own landing page.
 import { redirect } from "next/navigation";
+
 import { landingPath } from "@/lib/auth/actor";
 import { getActor } from "@/lib/auth/session";
 

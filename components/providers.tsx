@@ -1,7 +1,9 @@
 "use client";
+
 // Client-side providers shared by every page.
 import { QueryClientProvider } from "@tanstack/react-query";
 import type { ReactNode } from "react";
+
 import { getQueryClient } from "@/lib/query-client";
 
 export function Providers({ children }: { children: ReactNode }) {

@@ -9,9 +9,9 @@
 import { constants, promises as fs } from "node:fs";
 import path from "node:path";
 import pg from "pg";
+
 import { localDatabaseUrl } from "./client";
 import {
-  ToolError,
   databaseName,
   describeRun,
   displayUrl,
@@ -23,22 +23,35 @@ import {
   serverMajor,
   sha256File,
   tableCounts,
+  ToolError,
 } from "./pg-tools";
 
 const url = process.env.DATABASE_URL ?? localDatabaseUrl("sward");
 
 function timestamp(now = new Date()): string {
   // 2026-12-02T031500Z: sortable, no colons (safe in every file system).
-  return now.toISOString().replace(/\.\d+Z$/, "Z").replaceAll(":", "");
+  return now
+    .toISOString()
+    .replace(/\.\d+Z$/, "Z")
+    .replaceAll(":", "");
 }
 
 async function main(): Promise<void> {
   const name = databaseName(url);
-  const target = path.resolve(process.argv[2] ?? path.join("backups", `${name}-${timestamp()}.dump`));
-  if (process.argv[2] === undefined) await fs.mkdir(path.dirname(target), { recursive: true, mode: 0o700 });
+  const target = path.resolve(
+    process.argv[2] ?? path.join("backups", `${name}-${timestamp()}.dump`),
+  );
+  if (process.argv[2] === undefined)
+    await fs.mkdir(path.dirname(target), { recursive: true, mode: 0o700 });
   for (const file of [target, `${target}.sha256`]) {
-    const taken = await fs.access(file, constants.F_OK).then(() => true, () => false);
-    if (taken) throw new ToolError(`${file} already exists; give another file name (a backup is never overwritten).`);
+    const taken = await fs.access(file, constants.F_OK).then(
+      () => true,
+      () => false,
+    );
+    if (taken)
+      throw new ToolError(
+        `${file} already exists; give another file name (a backup is never overwritten).`,
+      );
   }
   const partial = `${target}.partial-${process.pid}`;
   let renamed = false;
@@ -47,7 +60,9 @@ async function main(): Promise<void> {
   try {
     await client.connect();
   } catch (err) {
-    throw new ToolError(`cannot connect to ${displayUrl(url)}: ${err instanceof Error ? err.message : String(err)}`);
+    throw new ToolError(
+      `cannot connect to ${displayUrl(url)}: ${err instanceof Error ? err.message : String(err)}`,
+    );
   }
   try {
     const pgDump = findPgTool("pg_dump", await serverMajor(client));
@@ -57,29 +72,49 @@ async function main(): Promise<void> {
     try {
       await (await fs.open(partial, "wx", 0o600)).close();
     } catch (err) {
-      throw new ToolError(`cannot write ${partial}: ${err instanceof Error ? err.message : String(err)}`);
+      throw new ToolError(
+        `cannot write ${partial}: ${err instanceof Error ? err.message : String(err)}`,
+      );
     }
 
     // One snapshot for pg_dump and for the counts printed below.
     await client.query("begin isolation level repeatable read read only");
-    const { rows } = await client.query<{ snapshot: string }>("select pg_export_snapshot() as snapshot");
+    const { rows } = await client.query<{ snapshot: string }>(
+      "select pg_export_snapshot() as snapshot",
+    );
     const { dbname, env } = libpqConnection(url);
-    const dumping = runTool(pgDump, ["--format=custom", `--file=${partial}`, `--snapshot=${rows[0]!.snapshot}`, "--no-password", `--dbname=${dbname}`], env);
+    const dumping = runTool(
+      pgDump,
+      [
+        "--format=custom",
+        `--file=${partial}`,
+        `--snapshot=${rows[0]!.snapshot}`,
+        "--no-password",
+        `--dbname=${dbname}`,
+      ],
+      env,
+    );
     const [counted, dumped] = await Promise.allSettled([tableCounts(client), dumping]);
     await client.query("commit");
     if (dumped.status === "rejected") throw dumped.reason;
-    if (dumped.value.code !== 0 || dumped.value.signal) throw new ToolError(`pg_dump failed (${describeRun(dumped.value)})`);
+    if (dumped.value.code !== 0 || dumped.value.signal)
+      throw new ToolError(`pg_dump failed (${describeRun(dumped.value)})`);
     if (counted.status === "rejected") throw counted.reason;
     const counts = counted.value;
 
     const check = await runTool(pgRestore, ["--list", partial], process.env);
-    if (check.code !== 0 || check.signal) throw new ToolError(`the new archive cannot be read back (pg_restore --list ${describeRun(check)})`);
+    if (check.code !== 0 || check.signal)
+      throw new ToolError(
+        `the new archive cannot be read back (pg_restore --list ${describeRun(check)})`,
+      );
     const handle = await fs.open(partial, "r");
     await handle.sync();
     await handle.close();
     // The checksum beside the archive (sha256sum format): db:restore refuses a file that changed.
     const sha256 = await sha256File(partial);
-    await fs.writeFile(`${target}.sha256`, `${sha256}  ${path.basename(target)}\n`, { mode: 0o600 });
+    await fs.writeFile(`${target}.sha256`, `${sha256}  ${path.basename(target)}\n`, {
+      mode: 0o600,
+    });
     await fs.rename(partial, target);
     renamed = true;
 
@@ -88,7 +123,9 @@ async function main(): Promise<void> {
     console.log(`backup: ${displayUrl(url)} (${pgDump})`);
     const shown = path.relative(process.cwd(), target);
     console.log(`backup: file ${shown.startsWith("..") ? target : shown}`);
-    console.log(`backup: size ${formatBytes(size)} (${size} bytes), ${counts.length} tables, ${total} rows`);
+    console.log(
+      `backup: size ${formatBytes(size)} (${size} bytes), ${counts.length} tables, ${total} rows`,
+    );
     console.log(`backup: sha256 ${sha256} (in ${path.basename(target)}.sha256)`);
     console.log(formatCounts(counts));
   } catch (err) {
@@ -103,7 +140,9 @@ async function main(): Promise<void> {
 try {
   await main();
 } catch (err) {
-  console.error(`backup: ${err instanceof ToolError ? err.message : err instanceof Error ? err.stack : String(err)}`);
+  console.error(
+    `backup: ${err instanceof ToolError ? err.message : err instanceof Error ? err.stack : String(err)}`,
+  );
   console.error("backup: FAILED — no backup file was written.");
   process.exitCode = 1;
 }

@@ -1,11 +1,14 @@
 // Creates a database on the local cluster if missing: `tsx db/ensure-database.ts NAME [--fresh]`.
 // --fresh drops it first (tests start from an empty, freshly migrated database).
 import pg from "pg";
+
 import { localDatabaseUrl } from "./client";
 
 const [name, flag] = process.argv.slice(2);
 if (!name || !/^[a-z][a-z0-9_]{0,62}$/.test(name)) {
-  console.error("usage: tsx db/ensure-database.ts NAME [--fresh]   (NAME: lower-case letters, digits, _)");
+  console.error(
+    "usage: tsx db/ensure-database.ts NAME [--fresh]   (NAME: lower-case letters, digits, _)",
+  );
   process.exit(2);
 }
 

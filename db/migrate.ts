@@ -3,7 +3,7 @@
 // Target database: DATABASE_URL, else the local cluster's "sward". Exits non-zero on failure; a
 // failed run changes nothing (db/migrator.ts: one transaction per run).
 import { createDb, localDatabaseUrl } from "./client";
-import { DIRECTIONS, type Direction, runMigrations } from "./migrator";
+import { DIRECTIONS, runMigrations, type Direction } from "./migrator";
 
 const url = process.env.DATABASE_URL ?? localDatabaseUrl("sward");
 const direction = process.argv[2] ?? "latest";

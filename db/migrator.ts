@@ -5,9 +5,19 @@
 import { promises as fs } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
-import { type Kysely, type Migration, type MigrationProvider, type MigrationResult, Migrator, NO_MIGRATIONS } from "kysely";
+import {
+  Migrator,
+  NO_MIGRATIONS,
+  type Kysely,
+  type Migration,
+  type MigrationProvider,
+  type MigrationResult,
+} from "kysely";
 
-export const MIGRATIONS_FOLDER = path.join(path.dirname(fileURLToPath(import.meta.url)), "migrations");
+export const MIGRATIONS_FOLDER = path.join(
+  path.dirname(fileURLToPath(import.meta.url)),
+  "migrations",
+);
 
 export const DIRECTIONS = ["latest", "up", "down", "reset"] as const;
 export type Direction = (typeof DIRECTIONS)[number];
@@ -23,9 +33,14 @@ export function folderMigrations(folder: string = MIGRATIONS_FOLDER): MigrationP
       const migrations: Record<string, Migration> = {};
       for (const file of (await fs.readdir(folder)).sort()) {
         if (!/\.(ts|js|mjs)$/.test(file) || file.endsWith(".d.ts")) continue;
-        const loaded = (await import(pathToFileURL(path.join(folder, file)).href)) as Partial<Migration>;
+        const loaded = (await import(
+          pathToFileURL(path.join(folder, file)).href
+        )) as Partial<Migration>;
         if (typeof loaded.up !== "function") throw new Error(`migration ${file} exports no up()`);
-        if (typeof loaded.down !== "function") throw new Error(`migration ${file} exports no down(); every migration must be reversible`);
+        if (typeof loaded.down !== "function")
+          throw new Error(
+            `migration ${file} exports no down(); every migration must be reversible`,
+          );
         migrations[file.replace(/\.(ts|js|mjs)$/, "")] = { up: loaded.up, down: loaded.down };
       }
       return migrations;
@@ -41,7 +56,11 @@ export interface MigrationRun {
   lines: string[];
 }
 
-export async function runMigrations<DB>(db: Kysely<DB>, direction: Direction, provider: MigrationProvider = folderMigrations()): Promise<MigrationRun> {
+export async function runMigrations<DB>(
+  db: Kysely<DB>,
+  direction: Direction,
+  provider: MigrationProvider = folderMigrations(),
+): Promise<MigrationRun> {
   const migrator = new Migrator({ db, provider });
   const { error, results = [] } =
     direction === "up"
@@ -55,15 +74,22 @@ export async function runMigrations<DB>(db: Kysely<DB>, direction: Direction, pr
   const lines: string[] = [];
   for (const r of results) {
     const verb = r.direction === "Up" ? "applied" : "reverted";
-    if (r.status === "Error") lines.push(`migrate: FAILED ${r.migrationName} (${r.direction === "Up" ? "up" : "down"})`);
+    if (r.status === "Error")
+      lines.push(`migrate: FAILED ${r.migrationName} (${r.direction === "Up" ? "up" : "down"})`);
     // The whole call was one transaction: what "succeeded" before the failure was rolled back.
-    else if (r.status === "Success") lines.push(error ? `migrate: rolled back ${r.migrationName} (${verb}, then undone with the failed run)` : `migrate: ${verb} ${r.migrationName}`);
+    else if (r.status === "Success")
+      lines.push(
+        error
+          ? `migrate: rolled back ${r.migrationName} (${verb}, then undone with the failed run)`
+          : `migrate: ${verb} ${r.migrationName}`,
+      );
   }
   if (!error && results.length === 0) lines.push("migrate: already up to date");
   if (error) {
     const message = error instanceof Error ? error.message : String(error);
     lines.push(`migrate: error: ${message}`);
-    if (results.length > 0) lines.push("migrate: nothing was changed: the run is one transaction and it was rolled back");
+    if (results.length > 0)
+      lines.push("migrate: nothing was changed: the run is one transaction and it was rolled back");
   }
   return { ok: !error, error, results, lines };
 }

@@ -40,34 +40,49 @@ export function findPgTool(tool: PgTool, serverMajor: number): string {
   } else {
     let versions: number[] = [];
     try {
-      versions = readdirSync("/usr/lib/postgresql").map(Number).filter((v) => Number.isInteger(v));
+      versions = readdirSync("/usr/lib/postgresql")
+        .map(Number)
+        .filter((v) => Number.isInteger(v));
     } catch {
       // no Debian server packages: PATH only
     }
-    for (const v of [serverMajor, ...versions.filter((v) => v > serverMajor).sort((a, b) => a - b)]) {
+    for (const v of [
+      serverMajor,
+      ...versions.filter((v) => v > serverMajor).sort((a, b) => a - b),
+    ]) {
       candidates.push(`/usr/lib/postgresql/${v}/bin/${tool}`);
     }
-    for (const dir of (process.env.PATH ?? "").split(path.delimiter)) if (dir) candidates.push(path.join(dir, tool));
+    for (const dir of (process.env.PATH ?? "").split(path.delimiter))
+      if (dir) candidates.push(path.join(dir, tool));
   }
   const found = candidates.find(isExecutable);
   if (!found) {
-    const where = explicit ? `in SWARD_PG_BIN=${explicit}` : "in /usr/lib/postgresql/*/bin or on PATH";
+    const where = explicit
+      ? `in SWARD_PG_BIN=${explicit}`
+      : "in /usr/lib/postgresql/*/bin or on PATH";
     throw new ToolError(
       `${tool} not found ${where}. Install the PostgreSQL ${serverMajor} client tools ` +
         `(Debian: apt-get install postgresql-client-${serverMajor}) or set SWARD_PG_BIN to the folder that holds ${tool}.`,
     );
   }
   const major = toolMajor(found);
-  if (major === null) throw new ToolError(`${found} does not answer --version like ${tool}; set SWARD_PG_BIN to the folder of PostgreSQL ${serverMajor}'s tools.`);
+  if (major === null)
+    throw new ToolError(
+      `${found} does not answer --version like ${tool}; set SWARD_PG_BIN to the folder of PostgreSQL ${serverMajor}'s tools.`,
+    );
   if (major < serverMajor) {
-    throw new ToolError(`${found} is version ${major}, older than the PostgreSQL ${serverMajor} server; install postgresql-client-${serverMajor} or set SWARD_PG_BIN.`);
+    throw new ToolError(
+      `${found} is version ${major}, older than the PostgreSQL ${serverMajor} server; install postgresql-client-${serverMajor} or set SWARD_PG_BIN.`,
+    );
   }
   return found;
 }
 
 /** The server's major version (15 for 15.18). */
 export async function serverMajor(client: pg.Client): Promise<number> {
-  const { rows } = await client.query<{ v: string }>("select current_setting($1) as v", ["server_version_num"]);
+  const { rows } = await client.query<{ v: string }>("select current_setting($1) as v", [
+    "server_version_num",
+  ]);
   return Math.floor(Number(rows[0]?.v ?? 0) / 10_000);
 }
 
@@ -79,7 +94,10 @@ export function libpqConnection(url: string): { dbname: string; env: NodeJS.Proc
   const parsed = new URL(url);
   const password = decodeURIComponent(parsed.password);
   parsed.password = "";
-  return { dbname: parsed.toString(), env: password ? { ...process.env, PGPASSWORD: password } : { ...process.env } };
+  return {
+    dbname: parsed.toString(),
+    env: password ? { ...process.env, PGPASSWORD: password } : { ...process.env },
+  };
 }
 
 /** The URL as it may be printed: no password. */
@@ -117,8 +135,12 @@ export function runTool(file: string, args: string[], env: NodeJS.ProcessEnv): P
     child.stderr.on("data", (chunk: string) => {
       stderr += chunk;
     });
-    child.on("error", (err) => reject(new ToolError(`${path.basename(file)} could not start: ${err.message}`)));
-    child.on("close", (code, signal) => resolve({ code: code ?? 128, signal, stderr: stderr.trim() }));
+    child.on("error", (err) =>
+      reject(new ToolError(`${path.basename(file)} could not start: ${err.message}`)),
+    );
+    child.on("close", (code, signal) =>
+      resolve({ code: code ?? 128, signal, stderr: stderr.trim() }),
+    );
   });
 }
 
@@ -153,7 +175,10 @@ export async function tableCounts(client: pg.Client): Promise<TableCount[]> {
   for (const { schema, name } of tables) {
     const ident = `"${schema.replaceAll('"', '""')}"."${name.replaceAll('"', '""')}"`;
     const { rows } = await client.query<{ n: string }>(`select count(*) as n from ${ident}`);
-    counts.push({ table: schema === "public" ? name : `${schema}.${name}`, rows: Number(rows[0]?.n ?? 0) });
+    counts.push({
+      table: schema === "public" ? name : `${schema}.${name}`,
+      rows: Number(rows[0]?.n ?? 0),
+    });
   }
   return counts;
 }
@@ -162,7 +187,9 @@ export function formatCounts(counts: TableCount[]): string {
   const width = Math.max(5, ...counts.map((c) => c.table.length));
   const total = counts.reduce((sum, c) => sum + c.rows, 0);
   return [
-    ...counts.map((c) => `  ${c.table.padEnd(width)}  ${c.rows.toLocaleString("en-US").padStart(10)}`),
+    ...counts.map(
+      (c) => `  ${c.table.padEnd(width)}  ${c.rows.toLocaleString("en-US").padStart(10)}`,
+    ),
     `  ${"total".padEnd(width)}  ${total.toLocaleString("en-US").padStart(10)}  (${counts.length} tables)`,
   ].join("\n");
 }

@@ -1,13 +1,16 @@
 // The recompute job: stores the Sward Index of every zone check again (run after changing the
 // weights in lib/scoring/weights.ts): `npm run db:recompute-index`.
 import { recomputeAllIndexes } from "@/lib/scoring/store-index";
+
 import { createDb, localDatabaseUrl } from "./client";
 
 const db = createDb(process.env.DATABASE_URL ?? localDatabaseUrl("sward"), { max: 2 });
 const started = Date.now();
 try {
   const n = await recomputeAllIndexes(db);
-  console.log(`recompute-index: ${n} zone checks in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+  console.log(
+    `recompute-index: ${n} zone checks in ${((Date.now() - started) / 1000).toFixed(1)} s`,
+  );
 } catch (err) {
   console.error("recompute-index: failed:", err instanceof Error ? err.message : err);
   process.exitCode = 1;

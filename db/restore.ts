@@ -9,10 +9,9 @@
 // after the restore the planner statistics are rebuilt (ANALYZE) and every table's row count printed.
 import { constants, promises as fs } from "node:fs";
 import pg from "pg";
+
 import { localDatabaseUrl } from "./client";
 import {
-  ToolError,
-  type ToolRun,
   databaseName,
   describeRun,
   displayUrl,
@@ -24,17 +23,23 @@ import {
   serverMajor,
   sha256File,
   tableCounts,
+  ToolError,
+  type ToolRun,
 } from "./pg-tools";
 
 const url = process.env.DATABASE_URL ?? localDatabaseUrl("sward");
-const USAGE = "usage: npm run db:restore -- <file.dump>   (into DATABASE_URL, else the local database sward)";
+const USAGE =
+  "usage: npm run db:restore -- <file.dump>   (into DATABASE_URL, else the local database sward)";
 
 /** Refuses anything that is not a readable custom-format archive, before the database is touched. */
 async function checkArchive(file: string): Promise<number> {
   let size: number;
   try {
     const stat = await fs.stat(file);
-    if (stat.isDirectory()) throw new ToolError(`${file} is a folder; db:restore reads the single-file archives db:backup writes (pg_dump --format=custom).`);
+    if (stat.isDirectory())
+      throw new ToolError(
+        `${file} is a folder; db:restore reads the single-file archives db:backup writes (pg_dump --format=custom).`,
+      );
     size = stat.size;
     await fs.access(file, constants.R_OK);
   } catch (err) {
@@ -56,7 +61,9 @@ async function checkArchive(file: string): Promise<number> {
     const plain = head.toString("latin1").startsWith("--");
     throw new ToolError(
       `${file} is not a pg_dump custom-format archive (it does not start with PGDMP)` +
-        (plain ? "; it looks like a plain SQL dump, which is restored with psql." : "; it is damaged or not a backup."),
+        (plain
+          ? "; it looks like a plain SQL dump, which is restored with psql."
+          : "; it is damaged or not a backup."),
     );
   }
   return size;
@@ -69,19 +76,31 @@ async function checkChecksum(file: string): Promise<string> {
   try {
     expected = (await fs.readFile(sidecar, "utf8")).trim().split(/\s+/)[0] ?? "";
   } catch (err) {
-    if ((err as NodeJS.ErrnoException).code === "ENOENT") return "no checksum beside it: not verified";
-    throw new ToolError(`cannot read ${sidecar}: ${err instanceof Error ? err.message : String(err)}`);
+    if ((err as NodeJS.ErrnoException).code === "ENOENT")
+      return "no checksum beside it: not verified";
+    throw new ToolError(
+      `cannot read ${sidecar}: ${err instanceof Error ? err.message : String(err)}`,
+    );
   }
-  if (!/^[0-9a-f]{64}$/.test(expected)) throw new ToolError(`${sidecar} holds no sha256; remove it to restore the archive unverified.`);
+  if (!/^[0-9a-f]{64}$/.test(expected))
+    throw new ToolError(`${sidecar} holds no sha256; remove it to restore the archive unverified.`);
   const actual = await sha256File(file);
   if (actual !== expected) {
-    throw new ToolError(`${file} does not match its checksum (${sidecar}): it changed since the backup (truncated or corrupt). Nothing was changed.`);
+    throw new ToolError(
+      `${file} does not match its checksum (${sidecar}): it changed since the backup (truncated or corrupt). Nothing was changed.`,
+    );
   }
   return "sha256 verified";
 }
 
 function whatFailed(run: ToolRun): string {
-  if (run.signal || /could not read|end of file|unexpected|unrecognized|corrupt|invalid|uncompress|decompress/i.test(run.stderr)) return "the archive is truncated or corrupt";
+  if (
+    run.signal ||
+    /could not read|end of file|unexpected|unrecognized|corrupt|invalid|uncompress|decompress/i.test(
+      run.stderr,
+    )
+  )
+    return "the archive is truncated or corrupt";
   return "pg_restore failed";
 }
 
@@ -91,7 +110,9 @@ async function connect(connectionString: string): Promise<pg.Client> {
     await client.connect();
     return client;
   } catch (err) {
-    throw new ToolError(`cannot connect to ${displayUrl(connectionString)}: ${err instanceof Error ? err.message : String(err)}`);
+    throw new ToolError(
+      `cannot connect to ${displayUrl(connectionString)}: ${err instanceof Error ? err.message : String(err)}`,
+    );
   }
 }
 
@@ -112,22 +133,44 @@ async function main(): Promise<void> {
   let pgRestore: string;
   try {
     pgRestore = findPgTool("pg_restore", await serverMajor(admin));
-    exists = ((await admin.query("select 1 from pg_database where datname = $1", [name])).rowCount ?? 0) > 0;
-    others = Number((await admin.query<{ n: string }>("select count(*) as n from pg_stat_activity where datname = $1", [name])).rows[0]?.n ?? 0);
+    exists =
+      ((await admin.query("select 1 from pg_database where datname = $1", [name])).rowCount ?? 0) >
+      0;
+    others = Number(
+      (
+        await admin.query<{ n: string }>(
+          "select count(*) as n from pg_stat_activity where datname = $1",
+          [name],
+        )
+      ).rows[0]?.n ?? 0,
+    );
   } finally {
     await admin.end().catch(() => undefined);
   }
 
   const list = await runTool(pgRestore, ["--list", file], process.env);
   if (list.code !== 0 || list.signal) {
-    throw new ToolError(`${file} cannot be read: it is truncated or corrupt. Nothing was changed. (pg_restore --list ${describeRun(list)})`);
+    throw new ToolError(
+      `${file} cannot be read: it is truncated or corrupt. Nothing was changed. (pg_restore --list ${describeRun(list)})`,
+    );
   }
 
   const { dbname, env } = libpqConnection(url);
-  const common = ["--no-owner", "--single-transaction", "--exit-on-error", "--no-password", `--dbname=${dbname}`];
+  const common = [
+    "--no-owner",
+    "--single-transaction",
+    "--exit-on-error",
+    "--no-password",
+    `--dbname=${dbname}`,
+  ];
   if (exists) {
-    console.log(`restore: ${file} (${verified}) → ${displayUrl(url)}, an existing database: its objects are replaced, in one transaction`);
-    if (others > 0) console.log(`restore: ${others} other session(s) use ${name}; the restore waits for their locks (stop the app and the worker first)`);
+    console.log(
+      `restore: ${file} (${verified}) → ${displayUrl(url)}, an existing database: its objects are replaced, in one transaction`,
+    );
+    if (others > 0)
+      console.log(
+        `restore: ${others} other session(s) use ${name}; the restore waits for their locks (stop the app and the worker first)`,
+      );
     const run = await runTool(pgRestore, ["--clean", "--if-exists", ...common, file], env);
     if (run.code !== 0 || run.signal) {
       throw new ToolError(
@@ -145,7 +188,9 @@ async function main(): Promise<void> {
       const run = await runTool(pgRestore, common.concat(file), env);
       if (run.code !== 0 || run.signal) {
         await creator.query(`drop database if exists "${name.replaceAll('"', '""')}" with (force)`);
-        throw new ToolError(`${whatFailed(run)}; the database ${name} created for it was dropped again. (pg_restore ${describeRun(run)})`);
+        throw new ToolError(
+          `${whatFailed(run)}; the database ${name} created for it was dropped again. (pg_restore ${describeRun(run)})`,
+        );
       }
     } finally {
       await creator.end().catch(() => undefined);
@@ -157,7 +202,9 @@ async function main(): Promise<void> {
     await client.query("analyze");
     const counts = await tableCounts(client);
     const total = counts.reduce((sum, c) => sum + c.rows, 0);
-    console.log(`restore: done, ${counts.length} tables, ${total} rows (${pgRestore}); planner statistics rebuilt`);
+    console.log(
+      `restore: done, ${counts.length} tables, ${total} rows (${pgRestore}); planner statistics rebuilt`,
+    );
     console.log(formatCounts(counts));
   } finally {
     await client.end().catch(() => undefined);
@@ -167,7 +214,9 @@ async function main(): Promise<void> {
 try {
   await main();
 } catch (err) {
-  console.error(`restore: ${err instanceof ToolError ? err.message : err instanceof Error ? err.stack : String(err)}`);
+  console.error(
+    `restore: ${err instanceof ToolError ? err.message : err instanceof Error ? err.stack : String(err)}`,
+  );
   console.error("restore: FAILED");
   process.exitCode = 1;
 }

@@ -1,9 +1,20 @@
 // The one typed view of Sward's database. Table interfaces describe columns; query results use
 // the Selectable/Insertable/Updateable aliases below. Nullable columns are `T | null`, never optional.
-import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable, Updateable } from "kysely";
+import type {
+  ColumnType,
+  Generated,
+  GeneratedAlways,
+  Insertable,
+  Selectable,
+  Updateable,
+} from "kysely";
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
-type NullableTimestamp = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+type NullableTimestamp = ColumnType<
+  Date | null,
+  Date | string | null | undefined,
+  Date | string | null
+>;
 
 export type Role = "manager" | "technician" | "homeowner";
 export type UnitSystem = "imperial" | "metric";
@@ -90,7 +101,15 @@ export interface ApplicationsTable {
   zone_id: string;
   product_id: string;
   rate_amount: number;
-  rate_unit: "lb/1000ft2" | "oz/1000ft2" | "floz/1000ft2" | "gal/1000ft2" | "kg/ha" | "g/m2" | "lb/acre" | "L/ha";
+  rate_unit:
+    | "lb/1000ft2"
+    | "oz/1000ft2"
+    | "floz/1000ft2"
+    | "gal/1000ft2"
+    | "kg/ha"
+    | "g/m2"
+    | "lb/acre"
+    | "L/ha";
   area_ft2: number;
   product_total_lb: number;
   product_total_gal: number | null;
@@ -351,7 +370,15 @@ export interface WeatherDaysTable {
 
 export type AlertStatus = "open" | "acknowledged" | "resolved";
 export type AlertSeverity = "low" | "moderate" | "high";
-export type AlertEventAction = "raised" | "reopened" | "updated" | "acknowledged" | "resolved" | "auto_resolved" | "cleared" | "returned";
+export type AlertEventAction =
+  | "raised"
+  | "reopened"
+  | "updated"
+  | "acknowledged"
+  | "resolved"
+  | "auto_resolved"
+  | "cleared"
+  | "returned";
 
 export interface RiskAlertsTable {
   id: Generated<string>;

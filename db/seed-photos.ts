@@ -3,20 +3,37 @@
 // the before/after views have something to show. Stored like any upload (processed, local disk).
 import path from "node:path";
 import type { Kysely } from "kysely";
+
 import { lawnImage } from "@/fixtures/demo-photos";
 import { addDays, todayIn } from "@/lib/dates";
 import { processPhoto } from "@/lib/photos/process";
 import { localDiskStorage } from "@/lib/services/storage";
+
 import type { Database } from "./schema";
 
-export async function seedDemoPhotos(db: Kysely<Database>, companySlug: string, photoDir: string): Promise<number> {
+export async function seedDemoPhotos(
+  db: Kysely<Database>,
+  companySlug: string,
+  photoDir: string,
+): Promise<number> {
   const storage = localDiskStorage(path.resolve(photoDir));
   const checks = await db
     .selectFrom("zone_checks")
     .innerJoin("visits", "visits.id", "zone_checks.visit_id")
     .innerJoin("companies", "companies.id", "visits.company_id")
     .innerJoin("zones", "zones.id", "zone_checks.zone_id")
-    .select(["zone_checks.id", "zone_checks.visit_id", "zone_checks.zone_id", "zone_checks.company_id", "zone_checks.bare_pct", "zone_checks.density", "visits.property_id", "visits.scheduled_for", "visits.technician_id", "zones.sort_order"])
+    .select([
+      "zone_checks.id",
+      "zone_checks.visit_id",
+      "zone_checks.zone_id",
+      "zone_checks.company_id",
+      "zone_checks.bare_pct",
+      "zone_checks.density",
+      "visits.property_id",
+      "visits.scheduled_for",
+      "visits.technician_id",
+      "zones.sort_order",
+    ])
     .where("companies.slug", "=", companySlug)
     .where("visits.status", "=", "completed")
     // Photos from the last three visits of the season: enough for before/after and a strip.

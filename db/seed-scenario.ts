@@ -1,23 +1,25 @@
 // Loads a scenario (fixtures/demo-scenario.ts) into a database. Shared by the demo seed and the
 // tests, which call it with their own scenario or the demo one.
-import { refreshPropertySummary } from "@/lib/book/summary";
 import { randomUUID } from "node:crypto";
 import type { Kysely, Transaction } from "kysely";
-import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo-scenario";
+
 import { DEMO_PRODUCTS } from "@/fixtures/demo-products";
+import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo-scenario";
+import { findGrassSpecies } from "@/fixtures/grass-species";
 import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
-import { hashPassword } from "@/lib/auth/password";
-import { productColumns } from "@/lib/products/columns";
-import { ruleSetColumns } from "@/lib/rule-sets/columns";
-import { refreshCheckIndex } from "@/lib/scoring/store-index";
-import { availableNitrogen } from "@/lib/scoring/available-nitrogen";
 import { nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
 import { checkApplication, isRefused } from "@/lib/agronomy/rules";
-import { findGrassSpecies } from "@/fixtures/grass-species";
+import { zoneWateringByDate } from "@/lib/agronomy/water";
+import { hashPassword } from "@/lib/auth/password";
+import { refreshPropertySummary } from "@/lib/book/summary";
+import { addDays, todayIn } from "@/lib/dates";
+import { productColumns } from "@/lib/products/columns";
+import { ruleSetColumns } from "@/lib/rule-sets/columns";
+import { availableNitrogen } from "@/lib/scoring/available-nitrogen";
+import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 import { deriveDays } from "@/lib/weather/derived";
-import { zoneWateringByDate } from "@/lib/agronomy/water";
-import { addDays, todayIn } from "@/lib/dates";
+
 import type { Database, NewZoneCheck } from "./schema";
 
 export interface SeededCompany {
@@ -26,45 +28,58 @@ export interface SeededCompany {
   propertyIds: Record<string, string>;
 }
 
-export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany, password: string): Promise<SeededCompany> {
+export async function seedCompany(
+  db: Kysely<Database>,
+  company: ScenarioCompany,
+  password: string,
+): Promise<SeededCompany> {
   const passwordHash = await hashPassword(password);
   return db.transaction().execute(async (trx) => {
     const { id: companyId } = await trx
       .insertInto("companies")
-      .values({ name: company.name, slug: company.slug, unit_system: company.unitSystem, time_zone: companyTimeZone(company) })
+      .values({
+        name: company.name,
+        slug: company.slug,
+        unit_system: company.unitSystem,
+        time_zone: companyTimeZone(company),
+      })
       .returning("id")
       .executeTakeFirstOrThrow();
 
     const ruleSets = await trx
       .insertInto("rule_sets")
-      .values(
-        SHIPPED_RULE_SETS.map((r) => ({ company_id: companyId, ...ruleSetColumns(r) })),
-      )
+      .values(SHIPPED_RULE_SETS.map((r) => ({ company_id: companyId, ...ruleSetColumns(r) })))
       .returning(["id", "name"])
       .execute();
 
     await trx
       .insertInto("products")
-      .values(
-        DEMO_PRODUCTS.map((p) => ({ company_id: companyId, ...productColumns(p) })),
-      )
+      .values(DEMO_PRODUCTS.map((p) => ({ company_id: companyId, ...productColumns(p) })))
       .execute();
 
     const userIds: Record<string, string> = {};
     for (const person of company.people) {
       const { id } = await trx
         .insertInto("users")
-        .values({ email: person.email.toLowerCase(), name: person.name, password_hash: passwordHash })
+        .values({
+          email: person.email.toLowerCase(),
+          name: person.name,
+          password_hash: passwordHash,
+        })
         .returning("id")
         .executeTakeFirstOrThrow();
-      await trx.insertInto("memberships").values({ company_id: companyId, user_id: id, role: person.role }).execute();
+      await trx
+        .insertInto("memberships")
+        .values({ company_id: companyId, user_id: id, role: person.role })
+        .execute();
       userIds[person.key] = id;
     }
 
     const propertyIds: Record<string, string> = {};
     for (const p of company.properties) {
       const technicianId = p.technician ? userIds[p.technician] : null;
-      if (technicianId === undefined) throw new Error(`Scenario ${company.slug}: unknown technician ${p.technician}`);
+      if (technicianId === undefined)
+        throw new Error(`Scenario ${company.slug}: unknown technician ${p.technician}`);
       const { id } = await trx
         .insertInto("properties")
         .values({
@@ -86,7 +101,10 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
       for (const owner of p.homeowners) {
         const userId = userIds[owner];
         if (!userId) throw new Error(`Scenario ${company.slug}: unknown homeowner ${owner}`);
-        await trx.insertInto("property_homeowners").values({ property_id: id, user_id: userId, company_id: companyId }).execute();
+        await trx
+          .insertInto("property_homeowners")
+          .values({ property_id: id, user_id: userId, company_id: companyId })
+          .execute();
       }
       if (p.zones.length) {
         await trx
@@ -110,7 +128,8 @@ export async function seedCompany(db: Kysely<Database>, company: ScenarioCompany
     const seeded = { companyId, userIds, propertyIds };
     await seedSchedule(trx, seeded, company, todayIn(companyTimeZone(company)));
     // The book reads each property's summary; the write paths keep it from here on.
-    for (const propertyId of Object.values(propertyIds)) await refreshPropertySummary(trx, companyId, propertyId);
+    for (const propertyId of Object.values(propertyIds))
+      await refreshPropertySummary(trx, companyId, propertyId);
     return seeded;
   });
 }
@@ -130,8 +149,15 @@ function pick(text: string, choices: readonly number[]): number {
  * A past check: the latest visit carries the scenario's findings; earlier ones are offset by the
  * zone's drift per visit (`stepsBack` visits before the latest), so the season tells a story.
  */
-function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack: number, drift: number, fromHistory: number): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
-  const at = (latest: number, extra = 0) => Math.min(9, Math.max(1, Math.round(latest - drift * stepsBack + extra)));
+function pastCheck(
+  seed: string,
+  finding: ScenarioFinding | undefined,
+  stepsBack: number,
+  drift: number,
+  fromHistory: number,
+): Omit<NewZoneCheck, "id" | "company_id" | "visit_id" | "zone_id"> {
+  const at = (latest: number, extra = 0) =>
+    Math.min(9, Math.max(1, Math.round(latest - drift * stepsBack + extra)));
   const isLatest = stepsBack === 0;
   return {
     status: "done",
@@ -140,7 +166,17 @@ function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack
     color: at(finding?.color ?? pick(`${seed}c`, [7, 7, 8]), isLatest ? 0 : fromHistory),
     density: at(finding?.density ?? pick(`${seed}d`, [7, 7, 8])),
     uniformity: at(pick(`${seed}u`, [6, 7, 8])),
-    bare_pct: Math.max(0, Math.min(100, Math.round(((finding?.barePct ?? pick(`${seed}b`, [0, 0, 5])) + (drift > 0 ? 5 : -5) * stepsBack * Math.abs(drift)) / 5) * 5)),
+    bare_pct: Math.max(
+      0,
+      Math.min(
+        100,
+        Math.round(
+          ((finding?.barePct ?? pick(`${seed}b`, [0, 0, 5])) +
+            (drift > 0 ? 5 : -5) * stepsBack * Math.abs(drift)) /
+            5,
+        ) * 5,
+      ),
+    ),
     weeds_pct: finding?.weedsPct ?? pick(`${seed}w`, [0, 5, 5, 10]),
     thatch_in: pick(`${seed}t`, [0.25, 0.5, 0.5]),
     soil_moisture: "moist",
@@ -154,11 +190,24 @@ function pastCheck(seed: string, finding: ScenarioFinding | undefined, stepsBack
 }
 
 /** Past completed visits with their zone checks, and today's stops (dates relative to today). */
-async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, company: ScenarioCompany, today: string): Promise<void> {
+async function seedSchedule(
+  trx: Transaction<Database>,
+  seeded: SeededCompany,
+  company: ScenarioCompany,
+  today: string,
+): Promise<void> {
   const schedule = company.schedule;
   if (!schedule) return;
-  const zones = await trx.selectFrom("zones").select(["id", "name", "property_id", "area_ft2", "grass_species", "is_irrigated"]).where("company_id", "=", seeded.companyId).execute();
-  const products = await trx.selectFrom("products").selectAll().where("company_id", "=", seeded.companyId).execute();
+  const zones = await trx
+    .selectFrom("zones")
+    .select(["id", "name", "property_id", "area_ft2", "grass_species", "is_irrigated"])
+    .where("company_id", "=", seeded.companyId)
+    .execute();
+  const products = await trx
+    .selectFrom("products")
+    .selectAll()
+    .where("company_id", "=", seeded.companyId)
+    .execute();
   const byRecency = [...schedule.pastVisitsDaysAgo].sort((a, b) => a.daysAgo - b.daysAgo);
   const oldestFirst = [...schedule.pastVisitsDaysAgo].sort((a, b) => b.daysAgo - a.daysAgo);
   for (const p of company.properties) {
@@ -175,7 +224,16 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
       .flatMap((z) => {
         const rows = [];
         for (let d = fromDaysAgo; d >= untilDaysAgo; d -= everyDays) {
-          rows.push({ id: randomUUID(), company_id: seeded.companyId, property_id: propertyId, zone_id: z.id, watered_on: addDays(today, -d), depth_in: depthIn, entered_by_role: "technician" as const, created_by: technicianId });
+          rows.push({
+            id: randomUUID(),
+            company_id: seeded.companyId,
+            property_id: propertyId,
+            zone_id: z.id,
+            watered_on: addDays(today, -d),
+            depth_in: depthIn,
+            entered_by_role: "technician" as const,
+            created_by: technicianId,
+          });
         }
         return rows;
       });
@@ -183,12 +241,29 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
     // The demo weather (the same deterministic days the local weather fake serves) gives each
     // zone its 14-day water balance before a check; lawns without irrigation show dry spells.
     const firstDate = addDays(today, -(oldestFirst[0]?.daysAgo ?? 0) - 15);
-    const weatherDays = Array.from({ length: Math.max(0, Math.round((Date.parse(today) - Date.parse(firstDate)) / 86_400_000) + 1) }, (_, i) => fakeWeatherDay(p.latitude, p.longitude, addDays(firstDate, i), today));
+    const weatherDays = Array.from(
+      {
+        length: Math.max(
+          0,
+          Math.round((Date.parse(today) - Date.parse(firstDate)) / 86_400_000) + 1,
+        ),
+      },
+      (_, i) => fakeWeatherDay(p.latitude, p.longitude, addDays(firstDate, i), today),
+    );
     const balanceByZone = new Map(
       zones
         .filter((z) => z.property_id === propertyId)
         .map((z) => {
-          return [z.id, new Map(deriveDays(weatherDays, { latitudeDeg: p.latitude, kc: 0.8, wateringInByDate: zoneWateringByDate(waterings, z.id) }).map((d) => [d.date, d.balance14In]))];
+          return [
+            z.id,
+            new Map(
+              deriveDays(weatherDays, {
+                latitudeDeg: p.latitude,
+                kc: 0.8,
+                wateringInByDate: zoneWateringByDate(waterings, z.id),
+              }).map((d) => [d.date, d.balance14In]),
+            ),
+          ];
         }),
     );
     for (const past of oldestFirst) {
@@ -216,7 +291,10 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
         const key = `${p.key}/${z.name}`;
         // The zone's colour follows the N available before the check (what the feeding did).
         const nBefore = availableNitrogen(applied.get(z.id) ?? [], addDays(date, -1));
-        const balance = Math.max(-2, Math.min(1, balanceByZone.get(z.id)?.get(addDays(date, -1)) ?? 0));
+        const balance = Math.max(
+          -2,
+          Math.min(1, balanceByZone.get(z.id)?.get(addDays(date, -1)) ?? 0),
+        );
         const fromWater = (z.is_irrigated ? 0.2 : 0.8) * balance;
         const jitter = pick(`${key}:${past.daysAgo}`, [-0.4, 0, 0, 0.4]);
         return {
@@ -225,18 +303,38 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
           visit_id: visitId,
           zone_id: z.id,
           updated_by: technicianId,
-          ...pastCheck(key, schedule.findings[key], byRecency.indexOf(past), schedule.drift[key] ?? 0.1, (schedule.nitrogenResponse[key] ?? 1.5) * (nBefore - 0.5) + fromWater + jitter),
+          ...pastCheck(
+            key,
+            schedule.findings[key],
+            byRecency.indexOf(past),
+            schedule.drift[key] ?? 0.1,
+            (schedule.nitrogenResponse[key] ?? 1.5) * (nBefore - 0.5) + fromWater + jitter,
+          ),
         };
       });
       if (checks.length) {
         await trx.insertInto("zone_checks").values(checks).execute();
-        await refreshCheckIndex(trx, checks.map((c) => c.id));
+        await refreshCheckIndex(
+          trx,
+          checks.map((c) => c.id),
+        );
       }
       const plan = past.application;
       const product = plan ? products.find((x) => x.name === plan.product) : undefined;
-      if (plan && !product) throw new Error(`Scenario ${company.slug}: unknown product ${plan.product}`);
-      for (const z of plan && product ? propertyZones.filter((z) => !plan.except?.includes(`${p.key}/${z.name}`)) : []) {
-        const analysis = { nPct: Number(product!.n_pct), p2o5Pct: Number(product!.p2o5_pct), k2oPct: Number(product!.k2o_pct), form: product!.form, slowReleaseNPctOfN: Number(product!.slow_release_pct_of_n), densityLbPerGal: product!.density_lb_per_gal === null ? undefined : Number(product!.density_lb_per_gal) };
+      if (plan && !product)
+        throw new Error(`Scenario ${company.slug}: unknown product ${plan.product}`);
+      for (const z of plan && product
+        ? propertyZones.filter((z) => !plan.except?.includes(`${p.key}/${z.name}`))
+        : []) {
+        const analysis = {
+          nPct: Number(product!.n_pct),
+          p2o5Pct: Number(product!.p2o5_pct),
+          k2oPct: Number(product!.k2o_pct),
+          form: product!.form,
+          slowReleaseNPctOfN: Number(product!.slow_release_pct_of_n),
+          densityLbPerGal:
+            product!.density_lb_per_gal === null ? undefined : Number(product!.density_lb_per_gal),
+        };
         const rate = { amount: plan!.rateLbPer1000, unit: "lb/1000ft2" as const };
         const per1000 = nutrientsPer1000(analysis, rate);
         const totals = productForArea(analysis, rate, Number(z.area_ft2));
@@ -256,7 +354,10 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
               annualNRange: species ? species.annualNitrogenLb : null,
             })
           : [];
-        if (isRefused(findings)) throw new Error(`Scenario ${company.slug}: ${plan!.product} at ${p.key}/${z.name} on ${date} breaks ${rules!.name}: ${findings.map((f) => f.message).join(" ")}`);
+        if (isRefused(findings))
+          throw new Error(
+            `Scenario ${company.slug}: ${plan!.product} at ${p.key}/${z.name} on ${date} breaks ${rules!.name}: ${findings.map((f) => f.message).join(" ")}`,
+          );
         await trx
           .insertInto("applications")
           .values({
@@ -282,8 +383,12 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
             created_by: technicianId,
           })
           .execute();
-        applied.set(z.id, [...(applied.get(z.id) ?? []), { date, wsnLb: per1000.wsnLb, slowLb: per1000.nLb - per1000.wsnLb }]);
-        if (date.slice(0, 4) === today.slice(0, 4)) yearN.set(z.id, (yearN.get(z.id) ?? 0) + per1000.nLb);
+        applied.set(z.id, [
+          ...(applied.get(z.id) ?? []),
+          { date, wsnLb: per1000.wsnLb, slowLb: per1000.nLb - per1000.wsnLb },
+        ]);
+        if (date.slice(0, 4) === today.slice(0, 4))
+          yearN.set(z.id, (yearN.get(z.id) ?? 0) + per1000.nLb);
       }
     }
   }
@@ -291,7 +396,12 @@ async function seedSchedule(trx: Transaction<Database>, seeded: SeededCompany, c
 }
 
 /** Today's stops, as scheduled visits in order. */
-async function seedDay(trx: Transaction<Database> | Kysely<Database>, seeded: SeededCompany, company: ScenarioCompany, today: string): Promise<number> {
+async function seedDay(
+  trx: Transaction<Database> | Kysely<Database>,
+  seeded: SeededCompany,
+  company: ScenarioCompany,
+  today: string,
+): Promise<number> {
   const schedule = company.schedule;
   if (!schedule) return 0;
   let count = 0;
@@ -323,11 +433,23 @@ async function seedDay(trx: Transaction<Database> | Kysely<Database>, seeded: Se
  * Keeps the demo usable on later days: when the company has no visits today, today's stops are
  * scheduled again (the people and properties are looked up by their scenario e-mails and names).
  */
-export async function ensureDemoDay(db: Kysely<Database>, company: ScenarioCompany): Promise<number> {
-  const row = await db.selectFrom("companies").select(["id", "time_zone"]).where("slug", "=", company.slug).executeTakeFirst();
+export async function ensureDemoDay(
+  db: Kysely<Database>,
+  company: ScenarioCompany,
+): Promise<number> {
+  const row = await db
+    .selectFrom("companies")
+    .select(["id", "time_zone"])
+    .where("slug", "=", company.slug)
+    .executeTakeFirst();
   if (!row || !company.schedule) return 0;
   const today = todayIn(row.time_zone);
-  const existing = await db.selectFrom("visits").select("id").where("company_id", "=", row.id).where("scheduled_for", "=", today).executeTakeFirst();
+  const existing = await db
+    .selectFrom("visits")
+    .select("id")
+    .where("company_id", "=", row.id)
+    .where("scheduled_for", "=", today)
+    .executeTakeFirst();
   if (existing) return 0;
   const users = await db
     .selectFrom("users")
@@ -335,21 +457,45 @@ export async function ensureDemoDay(db: Kysely<Database>, company: ScenarioCompa
     .select(["users.id", "users.email"])
     .where("memberships.company_id", "=", row.id)
     .execute();
-  const properties = await db.selectFrom("properties").select(["id", "name"]).where("company_id", "=", row.id).execute();
-  const userIds = Object.fromEntries(company.people.map((p) => [p.key, users.find((u) => u.email === p.email)?.id ?? ""]));
-  const propertyIds = Object.fromEntries(company.properties.map((p) => [p.key, properties.find((x) => x.name === p.name)?.id ?? ""]));
+  const properties = await db
+    .selectFrom("properties")
+    .select(["id", "name"])
+    .where("company_id", "=", row.id)
+    .execute();
+  const userIds = Object.fromEntries(
+    company.people.map((p) => [p.key, users.find((u) => u.email === p.email)?.id ?? ""]),
+  );
+  const propertyIds = Object.fromEntries(
+    company.properties.map((p) => [p.key, properties.find((x) => x.name === p.name)?.id ?? ""]),
+  );
   return seedDay(db, { companyId: row.id, userIds, propertyIds }, company, today);
 }
 
 /** Removes a company and everything it owns (cascades), then the users who belonged to it. */
 export async function removeCompany(db: Kysely<Database>, slug: string): Promise<void> {
   await db.transaction().execute(async (trx) => {
-    const company = await trx.selectFrom("companies").select("id").where("slug", "=", slug).executeTakeFirst();
+    const company = await trx
+      .selectFrom("companies")
+      .select("id")
+      .where("slug", "=", slug)
+      .executeTakeFirst();
     if (!company) return;
-    const members = await trx.selectFrom("memberships").select("user_id").where("company_id", "=", company.id).execute();
+    const members = await trx
+      .selectFrom("memberships")
+      .select("user_id")
+      .where("company_id", "=", company.id)
+      .execute();
     // Applications keep their product (no cascade from products), so they go first.
     await trx.deleteFrom("applications").where("company_id", "=", company.id).execute();
     await trx.deleteFrom("companies").where("id", "=", company.id).execute();
-    if (members.length) await trx.deleteFrom("users").where("id", "in", members.map((m) => m.user_id)).execute();
+    if (members.length)
+      await trx
+        .deleteFrom("users")
+        .where(
+          "id",
+          "in",
+          members.map((m) => m.user_id),
+        )
+        .execute();
   });
 }

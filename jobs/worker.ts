@@ -2,15 +2,22 @@
 // daily risk sweep (lib/risk/jobs.ts) runs at 05:15 in the first company's time zone and once
 // when the worker starts.
 import PgBoss from "pg-boss";
+
 import { createDb } from "@/db/client";
 import { log } from "@/lib/log";
-import { jsonWeatherProvider } from "@/lib/services/weather/provider";
-import { DIGEST_QUEUE, SWEEP_CRON, SWEEP_QUEUE, registerAlertDigest, registerRiskSweep } from "@/lib/risk/jobs";
-import { sendHighAlertDigests } from "@/lib/risk/digest";
-import { smtpMailer } from "@/lib/services/mail";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
+import { sendHighAlertDigests } from "@/lib/risk/digest";
+import {
+  DIGEST_QUEUE,
+  registerAlertDigest,
+  registerRiskSweep,
+  SWEEP_CRON,
+  SWEEP_QUEUE,
+} from "@/lib/risk/jobs";
 import { sweepBook } from "@/lib/risk/sweep";
+import { smtpMailer } from "@/lib/services/mail";
+import { jsonWeatherProvider } from "@/lib/services/weather/provider";
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -21,16 +28,25 @@ const db = createDb(url, { max: 3 });
 // The worker needs the database, the weather service and SMTP only (no sign-in secrets).
 const mailer = process.env.SMTP_URL ? smtpMailer(process.env.SMTP_URL) : null;
 const appUrl = process.env.AUTH_URL ?? "http://localhost:3000";
-const weather = process.env.WEATHER_BASE_URL ? jsonWeatherProvider({ baseUrl: process.env.WEATHER_BASE_URL, apiKey: process.env.WEATHER_API_KEY }) : null;
+const weather = process.env.WEATHER_BASE_URL
+  ? jsonWeatherProvider({
+      baseUrl: process.env.WEATHER_BASE_URL,
+      apiKey: process.env.WEATHER_API_KEY,
+    })
+  : null;
 const boss = new PgBoss({ connectionString: url, schema: "pgboss", max: 3 });
 boss.on("error", (err) => log.error({ err }, "job queue error"));
 
 await boss.start();
-const zone = (await db.selectFrom("companies").select("time_zone").orderBy("created_at").executeTakeFirst())?.time_zone ?? "America/New_York";
+const zone =
+  (await db.selectFrom("companies").select("time_zone").orderBy("created_at").executeTakeFirst())
+    ?.time_zone ?? "America/New_York";
 await registerRiskSweep(
   boss,
   async () => {
-    const result = await sweepBook(db, weather, { onError: (propertyId, err) => log.error({ err, propertyId }, "risk sweep: property failed") });
+    const result = await sweepBook(db, weather, {
+      onError: (propertyId, err) => log.error({ err, propertyId }, "risk sweep: property failed"),
+    });
     log.info(result, "risk sweep done");
     await boss.send(DIGEST_QUEUE, { after: "sweep" });
     return result;

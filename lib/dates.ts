@@ -12,7 +12,12 @@ export function isIsoDate(value: string): boolean {
 /** Today's date in the time zone (e.g. "America/New_York"). */
 export function todayIn(timeZone: string, now: Date = new Date()): IsoDate {
   // en-CA formats as YYYY-MM-DD.
-  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
+  return new Intl.DateTimeFormat("en-CA", {
+    timeZone,
+    year: "numeric",
+    month: "2-digit",
+    day: "2-digit",
+  }).format(now);
 }
 
 export function addDays(date: IsoDate, days: number): IsoDate {
@@ -36,18 +41,29 @@ export function isValidTimeZone(timeZone: string): boolean {
 
 /** "Tue 1 Dec 2026" — unambiguous for readers on either side of the Atlantic. */
 export function formatDate(date: IsoDate): string {
-  return new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(
-    new Date(`${date}T00:00:00Z`),
-  );
+  return new Intl.DateTimeFormat("en-GB", {
+    weekday: "short",
+    day: "numeric",
+    month: "short",
+    year: "numeric",
+    timeZone: "UTC",
+  }).format(new Date(`${date}T00:00:00Z`));
 }
 
 export function formatTime(at: Date | string, timeZone: string): string {
-  return new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(new Date(at));
+  return new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(
+    new Date(at),
+  );
 }
 
 /** "Tue 1 Dec, 3:05 PM" in the given zone. */
 export function formatDateTime(at: Date | string, timeZone: string): string {
   const d = new Date(at);
-  const day = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", timeZone }).format(d);
+  const day = new Intl.DateTimeFormat("en-GB", {
+    weekday: "short",
+    day: "numeric",
+    month: "short",
+    timeZone,
+  }).format(d);
   return `${day}, ${formatTime(d, timeZone)}`;
 }

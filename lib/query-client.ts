@@ -1,5 +1,5 @@
 // The one React Query client factory: a new client per server request, one per browser tab.
-import { QueryClient, isServer } from "@tanstack/react-query";
+import { isServer, QueryClient } from "@tanstack/react-query";
 
 export function makeQueryClient(): QueryClient {
   return new QueryClient({
@@ -7,7 +7,8 @@ export function makeQueryClient(): QueryClient {
       queries: {
         staleTime: 30_000, // data prefetched on the server is not refetched at once on hydration
         refetchOnWindowFocus: true,
-        retry: (failureCount, error) => failureCount < 2 && !(error instanceof HttpError && error.status < 500),
+        retry: (failureCount, error) =>
+          failureCount < 2 && !(error instanceof HttpError && error.status < 500),
       },
     },
   });
@@ -33,21 +34,42 @@ export class HttpError extends Error {
 
 /** GET a JSON route of ours; errors arrive as { error: { code, message } }. */
 export async function fetchJson<T>(url: string): Promise<T> {
-  const response = await fetch(url, { headers: { Accept: "application/json" }, credentials: "same-origin" });
+  const response = await fetch(url, {
+    headers: { Accept: "application/json" },
+    credentials: "same-origin",
+  });
   const body: unknown = await response.json().catch(() => null);
   if (!response.ok) {
     const error = (body as { error?: { code?: string; message?: string } } | null)?.error;
-    throw new HttpError(response.status, error?.code ?? "http_error", error?.message ?? `Request failed (${response.status}).`);
+    throw new HttpError(
+      response.status,
+      error?.code ?? "http_error",
+      error?.message ?? `Request failed (${response.status}).`,
+    );
   }
   return body as T;
 }
 
 export type SendResult<T> =
   | { ok: true; status: number; data: T }
-  | { ok: false; status: number; error: { code: string; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> } };
+  | {
+      ok: false;
+      status: number;
+      error: {
+        code: string;
+        message: string;
+        fieldErrors?: Record<string, string[]>;
+        details?: Record<string, unknown>;
+      };
+    };
 
 /** POST/PUT/DELETE JSON to a route of ours. Network failures come back as status 0, never thrown. */
-export async function sendJson<T>(method: "POST" | "PUT" | "DELETE", url: string, body?: unknown, init: { keepalive?: boolean } = {}): Promise<SendResult<T>> {
+export async function sendJson<T>(
+  method: "POST" | "PUT" | "DELETE",
+  url: string,
+  body?: unknown,
+  init: { keepalive?: boolean } = {},
+): Promise<SendResult<T>> {
   try {
     const response = await fetch(url, {
       method,
@@ -58,9 +80,19 @@ export async function sendJson<T>(method: "POST" | "PUT" | "DELETE", url: string
     });
     const parsed: unknown = await response.json().catch(() => null);
     if (response.ok) return { ok: true, status: response.status, data: parsed as T };
-    const error = (parsed as { error?: SendResult<T> extends { ok: false; error: infer E } ? E : never } | null)?.error;
-    return { ok: false, status: response.status, error: error ?? { code: "http_error", message: `The server answered ${response.status}.` } };
+    const error = (
+      parsed as { error?: SendResult<T> extends { ok: false; error: infer E } ? E : never } | null
+    )?.error;
+    return {
+      ok: false,
+      status: response.status,
+      error: error ?? { code: "http_error", message: `The server answered ${response.status}.` },
+    };
   } catch {
-    return { ok: false, status: 0, error: { code: "offline", message: "No connection to Sward right now." } };
+    return {
+      ok: false,
+      status: 0,
+      error: { code: "offline", message: "No connection to Sward right now." },
+    };
   }
 }

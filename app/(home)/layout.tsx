@@ -1,7 +1,8 @@
 import { Sprout } from "lucide-react";
-import type { ReactNode } from "react";
-import { AppShell } from "@/components/shell/app-shell";
 import { redirect } from "next/navigation";
+import type { ReactNode } from "react";
+
+import { AppShell } from "@/components/shell/app-shell";
 import { landingPath } from "@/lib/auth/actor";
 import { getActor } from "@/lib/auth/session";
 

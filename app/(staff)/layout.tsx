@@ -1,5 +1,14 @@
-import { Bell, CalendarDays, ClipboardList, FileSpreadsheet, FlaskConical, Gavel, Trees } from "lucide-react";
+import {
+  Bell,
+  CalendarDays,
+  ClipboardList,
+  FileSpreadsheet,
+  FlaskConical,
+  Gavel,
+  Trees,
+} from "lucide-react";
 import type { ReactNode } from "react";
+
 import { AppShell, type NavItem } from "@/components/shell/app-shell";
 import { requireActor } from "@/lib/auth/require";
 

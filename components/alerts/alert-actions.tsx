@@ -1,12 +1,22 @@
 "use client";
+
 // Acknowledge (technician or manager) or resolve (manager) an alert, each with a note.
 import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
+
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { sendJson } from "@/lib/query-client";
 
-export function AlertActions({ alertId, status, canResolve }: { alertId: string; status: "open" | "acknowledged"; canResolve: boolean }) {
+export function AlertActions({
+  alertId,
+  status,
+  canResolve,
+}: {
+  alertId: string;
+  status: "open" | "acknowledged";
+  canResolve: boolean;
+}) {
   const router = useRouter();
   const id = useId();
   const [mode, setMode] = useState<"acknowledge" | "resolve" | null>(null);
@@ -48,7 +58,16 @@ export function AlertActions({ alertId, status, canResolve }: { alertId: string;
       <label htmlFor={`${id}-note`} className="block font-semibold">
         {mode === "acknowledge" ? "Note (optional): what you will do" : "How was it resolved?"}
       </label>
-      <textarea id={`${id}-note`} className={inputClass} rows={2} maxLength={2000} value={note} onChange={(e) => setNote(e.target.value)} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-error` : undefined} />
+      <textarea
+        id={`${id}-note`}
+        className={inputClass}
+        rows={2}
+        maxLength={2000}
+        value={note}
+        onChange={(e) => setNote(e.target.value)}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+      />
       {error ? (
         <p id={`${id}-error`} role="alert" className="font-semibold text-clay">
           {error}

@@ -1,9 +1,11 @@
 // Alerts with their evidence in plain words, the rule's source, the lifecycle so far and the
 // actions the viewer may take. Rendered on the server (property page, visit summary, alerts page).
 import Link from "next/link";
+
 import { formatDate } from "@/lib/dates";
 import type { AlertDto } from "@/lib/risk/dto";
 import { ALERT_STATUSES, EVIDENCE_LABELS, evidenceValue } from "@/lib/risk/labels";
+
 import { AlertActions } from "./alert-actions";
 import { SeverityBadge } from "./severity-badge";
 
@@ -18,13 +20,32 @@ const ACTIONS: Record<string, string> = {
   auto_resolved: "Resolved automatically (clear for a week)",
 };
 
-export function AlertList({ alerts, canResolve, timeZone, showProperty = false, empty }: { alerts: AlertDto[]; canResolve: boolean; timeZone: string; showProperty?: boolean; empty: string }) {
-  const at = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone });
+export function AlertList({
+  alerts,
+  canResolve,
+  timeZone,
+  showProperty = false,
+  empty,
+}: {
+  alerts: AlertDto[];
+  canResolve: boolean;
+  timeZone: string;
+  showProperty?: boolean;
+  empty: string;
+}) {
+  const at = new Intl.DateTimeFormat("en-GB", {
+    dateStyle: "medium",
+    timeStyle: "short",
+    timeZone,
+  });
   if (!alerts.length) return <p className="rounded-lg border border-line bg-card p-4">{empty}</p>;
   return (
     <ul className="space-y-3" aria-label="Alerts">
       {alerts.map((a) => (
-        <li key={a.id} className={`rounded-xl border bg-card p-4 ${a.status === "resolved" ? "border-line opacity-90" : a.severity === "high" ? "border-clay" : "border-line"}`}>
+        <li
+          key={a.id}
+          className={`rounded-xl border bg-card p-4 ${a.status === "resolved" ? "border-line opacity-90" : a.severity === "high" ? "border-clay" : "border-line"}`}
+        >
           <div className="flex flex-wrap items-center gap-2">
             <SeverityBadge severity={a.severity} />
             <h3 className="text-lg font-bold">{a.kindLabel}</h3>
@@ -43,12 +64,16 @@ export function AlertList({ alerts, canResolve, timeZone, showProperty = false, 
             ) : null}
             {a.zone ? a.zone.name : "Whole property"} · raised {formatDate(a.raisedOn)}
             {a.lastSeenOn !== a.raisedOn ? `, last seen ${formatDate(a.lastSeenOn)}` : ""}
-            {a.clearSince && a.status !== "resolved" ? ` · clear since ${formatDate(a.clearSince)}` : ""}
+            {a.clearSince && a.status !== "resolved"
+              ? ` · clear since ${formatDate(a.clearSince)}`
+              : ""}
             {showProperty && a.technicianName ? ` · ${a.technicianName}` : ""}
           </p>
           <p className="mt-2">{a.summary}</p>
           <details className="mt-2">
-            <summary className="min-h-tap cursor-pointer py-2 font-semibold text-sward">Evidence and source</summary>
+            <summary className="min-h-tap cursor-pointer py-2 font-semibold text-sward">
+              Evidence and source
+            </summary>
             <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
               {Object.entries(a.evidence.values).map(([k, v]) => (
                 <div key={k} className="contents">
@@ -64,10 +89,14 @@ export function AlertList({ alerts, canResolve, timeZone, showProperty = false, 
               <dd>{a.source}</dd>
             </dl>
             {a.events.length ? (
-              <ol className="mt-3 space-y-1 border-l-2 border-line pl-3 text-sm" aria-label="History of this alert">
+              <ol
+                className="mt-3 space-y-1 border-l-2 border-line pl-3 text-sm"
+                aria-label="History of this alert"
+              >
                 {a.events.map((e, i) => (
                   <li key={i}>
-                    <span className="font-semibold">{ACTIONS[e.action] ?? e.action}</span> · {at.format(new Date(e.at))}
+                    <span className="font-semibold">{ACTIONS[e.action] ?? e.action}</span> ·{" "}
+                    {at.format(new Date(e.at))}
                     {e.actor ? ` · ${e.actor}` : ""}
                     {e.note ? <span className="block text-ink">“{e.note}”</span> : null}
                   </li>

@@ -1,57 +1,116 @@
 "use client";
+
 // Applications on a zone: the form with live nutrient maths and rule checks, the cautions, and
 // the applications already recorded here. The server recomputes everything and decides.
 import { useQuery } from "@tanstack/react-query";
 import { CircleAlert, FlaskConical, TriangleAlert } from "lucide-react";
 import { useState } from "react";
+
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
-import { type RuleFinding, checkApplication } from "@/lib/agronomy/rules";
-import { type RateUnit, isVolumeUnit, nutrientsPer1000, productForArea, rateForNitrogen } from "@/lib/agronomy/nutrients";
+import {
+  isVolumeUnit,
+  nutrientsPer1000,
+  productForArea,
+  rateForNitrogen,
+  type RateUnit,
+} from "@/lib/agronomy/nutrients";
+import { checkApplication, type RuleFinding } from "@/lib/agronomy/rules";
 import type { ApplicationDto } from "@/lib/applications/dto";
-import { RATE_UNITS, RATE_UNIT_LABEL } from "@/lib/applications/units";
+import { RATE_UNIT_LABEL, RATE_UNITS } from "@/lib/applications/units";
 import { todayIn } from "@/lib/dates";
-import { type ProductDto, analysisOf } from "@/lib/products/dto";
-import type { RuleSetDto } from "@/lib/rule-sets/dto";
+import { analysisOf, type ProductDto } from "@/lib/products/dto";
 import { fetchJson, sendJson } from "@/lib/query-client";
+import type { RuleSetDto } from "@/lib/rule-sets/dto";
+
 import { SafetyCautions } from "./safety-cautions";
 
 const f2 = (x: number) => x.toFixed(2);
 
 function computeMaths(product: ProductDto, amount: number, unit: RateUnit, areaFt2: number) {
   try {
-    return { n: nutrientsPer1000(analysisOf(product), { amount, unit }), total: productForArea(analysisOf(product), { amount, unit }, areaFt2), error: null };
+    return {
+      n: nutrientsPer1000(analysisOf(product), { amount, unit }),
+      total: productForArea(analysisOf(product), { amount, unit }, areaFt2),
+      error: null,
+    };
   } catch (err) {
     return { n: null, total: null, error: err instanceof Error ? err.message : "Check the rate." };
   }
 }
 
-function Maths({ product, amount, unit, areaFt2 }: { product: ProductDto; amount: number; unit: RateUnit; areaFt2: number }) {
+function Maths({
+  product,
+  amount,
+  unit,
+  areaFt2,
+}: {
+  product: ProductDto;
+  amount: number;
+  unit: RateUnit;
+  areaFt2: number;
+}) {
   const { n, total, error } = computeMaths(product, amount, unit, areaFt2);
-  if (!n || !total) return <p role="alert" className="text-clay">{error}</p>;
+  if (!n || !total)
+    return (
+      <p role="alert" className="text-clay">
+        {error}
+      </p>
+    );
   const k = areaFt2 / 1000;
   return (
-      <div className="rounded-xl border border-line bg-paper p-3" aria-live="polite">
-        <table className="w-full text-left text-sm">
-          <caption className="mb-1 text-left font-bold">Nutrients delivered</caption>
-          <thead>
-            <tr className="text-muted">
-              <th scope="col" className="py-1 font-semibold">&nbsp;</th>
-              <th scope="col" className="py-1 font-semibold">per 1,000 ft²</th>
-              <th scope="col" className="py-1 font-semibold">zone ({areaFt2.toLocaleString("en-US")} ft²)</th>
-            </tr>
-          </thead>
-          <tbody className="font-semibold">
-            <tr><th scope="row" className="py-0.5 font-normal">N</th><td>{f2(n.nLb)} lb</td><td>{f2(n.nLb * k)} lb</td></tr>
-            <tr><th scope="row" className="py-0.5 font-normal">water-soluble N</th><td>{f2(n.wsnLb)} lb</td><td>{f2(n.wsnLb * k)} lb</td></tr>
-            <tr><th scope="row" className="py-0.5 font-normal">P₂O₅</th><td>{f2(n.p2o5Lb)} lb</td><td>{f2(n.p2o5Lb * k)} lb</td></tr>
-            <tr><th scope="row" className="py-0.5 font-normal">K₂O</th><td>{f2(n.k2oLb)} lb</td><td>{f2(n.k2oLb * k)} lb</td></tr>
-          </tbody>
-        </table>
-        <p className="mt-2 font-bold">
-          Load {f2(total.lb)} lb of product{total.gal !== null ? ` (${f2(total.gal)} gal)` : ""} for this zone.
-        </p>
-      </div>
+    <div className="rounded-xl border border-line bg-paper p-3" aria-live="polite">
+      <table className="w-full text-left text-sm">
+        <caption className="mb-1 text-left font-bold">Nutrients delivered</caption>
+        <thead>
+          <tr className="text-muted">
+            <th scope="col" className="py-1 font-semibold">
+              &nbsp;
+            </th>
+            <th scope="col" className="py-1 font-semibold">
+              per 1,000 ft²
+            </th>
+            <th scope="col" className="py-1 font-semibold">
+              zone ({areaFt2.toLocaleString("en-US")} ft²)
+            </th>
+          </tr>
+        </thead>
+        <tbody className="font-semibold">
+          <tr>
+            <th scope="row" className="py-0.5 font-normal">
+              N
+            </th>
+            <td>{f2(n.nLb)} lb</td>
+            <td>{f2(n.nLb * k)} lb</td>
+          </tr>
+          <tr>
+            <th scope="row" className="py-0.5 font-normal">
+              water-soluble N
+            </th>
+            <td>{f2(n.wsnLb)} lb</td>
+            <td>{f2(n.wsnLb * k)} lb</td>
+          </tr>
+          <tr>
+            <th scope="row" className="py-0.5 font-normal">
+              P₂O₅
+            </th>
+            <td>{f2(n.p2o5Lb)} lb</td>
+            <td>{f2(n.p2o5Lb * k)} lb</td>
+          </tr>
+          <tr>
+            <th scope="row" className="py-0.5 font-normal">
+              K₂O
+            </th>
+            <td>{f2(n.k2oLb)} lb</td>
+            <td>{f2(n.k2oLb * k)} lb</td>
+          </tr>
+        </tbody>
+      </table>
+      <p className="mt-2 font-bold">
+        Load {f2(total.lb)} lb of product{total.gal !== null ? ` (${f2(total.gal)} gal)` : ""} for
+        this zone.
+      </p>
+    </div>
   );
 }
 
@@ -60,9 +119,16 @@ function Findings({ findings }: { findings: RuleFinding[] }) {
   return (
     <ul className="space-y-2" aria-label="Rule checks">
       {findings.map((f) => (
-        <li key={f.key} className={`rounded-lg border p-3 text-sm ${f.severity === "refusal" ? "border-clay bg-clay-tint" : "border-sun bg-sun-tint"}`}>
+        <li
+          key={f.key}
+          className={`rounded-lg border p-3 text-sm ${f.severity === "refusal" ? "border-clay bg-clay-tint" : "border-sun bg-sun-tint"}`}
+        >
           <p className="flex items-center gap-1.5 font-bold">
-            {f.severity === "refusal" ? <CircleAlert className="size-4 text-clay" aria-hidden="true" /> : <TriangleAlert className="size-4 text-sun" aria-hidden="true" />}
+            {f.severity === "refusal" ? (
+              <CircleAlert className="size-4 text-clay" aria-hidden="true" />
+            ) : (
+              <TriangleAlert className="size-4 text-sun" aria-hidden="true" />
+            )}
             {f.severity === "refusal" ? "Refused — legal limit" : "Warning"}: {f.message}
           </p>
           <p className="mt-1 text-muted">{f.source}</p>
@@ -96,15 +162,25 @@ export function ApplicationPanel({
   /** The visit's weather snapshot: prefills temperature and wind (editable). */
   weather: { tmaxF: number; windMph: number | null } | null;
 }) {
-  const products = useQuery({ queryKey: ["products"], queryFn: async () => (await fetchJson<{ items: ProductDto[] }>("/api/v1/products")).items });
-  const ruleSets = useQuery({ queryKey: ["rule-sets"], queryFn: async () => (await fetchJson<{ items: RuleSetDto[] }>("/api/v1/rule-sets")).items });
+  const products = useQuery({
+    queryKey: ["products"],
+    queryFn: async () => (await fetchJson<{ items: ProductDto[] }>("/api/v1/products")).items,
+  });
+  const ruleSets = useQuery({
+    queryKey: ["rule-sets"],
+    queryFn: async () => (await fetchJson<{ items: RuleSetDto[] }>("/api/v1/rule-sets")).items,
+  });
   const [isOpen, setIsOpen] = useState(false);
   const [productId, setProductId] = useState("");
   const [amount, setAmount] = useState("");
   const [unit, setUnit] = useState<RateUnit>("lb/1000ft2");
   const [targetN, setTargetN] = useState("");
-  const [temperatureF, setTemperatureF] = useState(weather ? String(Math.round(weather.tmaxF)) : "");
-  const [windMph, setWindMph] = useState(weather?.windMph !== null && weather?.windMph !== undefined ? String(weather.windMph) : "");
+  const [temperatureF, setTemperatureF] = useState(
+    weather ? String(Math.round(weather.tmaxF)) : "",
+  );
+  const [windMph, setWindMph] = useState(
+    weather?.windMph !== null && weather?.windMph !== undefined ? String(weather.windMph) : "",
+  );
   const [isEstablishing, setIsEstablishing] = useState(false);
   const [applicatorName, setApplicatorName] = useState("");
   const [applicatorLicence, setApplicatorLicence] = useState("");
@@ -125,7 +201,19 @@ export function ApplicationPanel({
   const preview = product && hasRate ? computeMaths(product, rateAmount, unit, areaFt2).n : null;
   const liveFindings: RuleFinding[] =
     product && preview && ruleSet
-      ? checkApplication(ruleSet, { appliedOn: todayIn(timeZone), byProfessional: true, nPct: product.nPct, nLb: preview.nLb, wsnLb: preview.wsnLb, p2o5Lb: preview.p2o5Lb, slowReleasePctOfN: product.slowReleasePctOfN, isEstablishing, soilTestOn: null, yearToDateNLb: 0, annualNRange: null })
+      ? checkApplication(ruleSet, {
+          appliedOn: todayIn(timeZone),
+          byProfessional: true,
+          nPct: product.nPct,
+          nLb: preview.nLb,
+          wsnLb: preview.wsnLb,
+          p2o5Lb: preview.p2o5Lb,
+          slowReleasePctOfN: product.slowReleasePctOfN,
+          isEstablishing,
+          soilTestOn: null,
+          yearToDateNLb: 0,
+          annualNRange: null,
+        })
       : [];
 
   function proposeFromTarget(value: string) {
@@ -146,19 +234,23 @@ export function ApplicationPanel({
     setIsSaving(true);
     setMessage(null);
     setFieldErrors({});
-    const result = await sendJson<ApplicationDto>("POST", `/api/v1/visits/${visitId}/applications`, {
-      id,
-      zoneId,
-      productId: product.id,
-      rateAmount,
-      rateUnit: unit,
-      windMph: windMph === "" ? null : Number(windMph),
-      temperatureF: temperatureF === "" ? null : Number(temperatureF),
-      isEstablishing,
-      applicatorName,
-      applicatorLicence,
-      overrideReason: withOverride && overrideReason.trim() ? overrideReason.trim() : null,
-    });
+    const result = await sendJson<ApplicationDto>(
+      "POST",
+      `/api/v1/visits/${visitId}/applications`,
+      {
+        id,
+        zoneId,
+        productId: product.id,
+        rateAmount,
+        rateUnit: unit,
+        windMph: windMph === "" ? null : Number(windMph),
+        temperatureF: temperatureF === "" ? null : Number(temperatureF),
+        isEstablishing,
+        applicatorName,
+        applicatorLicence,
+        overrideReason: withOverride && overrideReason.trim() ? overrideReason.trim() : null,
+      },
+    );
     setIsSaving(false);
     if (result.ok) {
       onRecorded(result.data);
@@ -189,84 +281,204 @@ export function ApplicationPanel({
                 {a.product.name}: {a.rate.amount} {RATE_UNIT_LABEL[a.rate.unit]}
               </p>
               <p>
-                {f2(a.per1000.nLb)} lb N ({f2(a.per1000.wsnLb)} water-soluble), {f2(a.per1000.p2o5Lb)} lb P₂O₅, {f2(a.per1000.k2oLb)} lb K₂O per 1,000 ft² · {f2(a.productTotalLb)} lb product on {a.areaFt2.toLocaleString("en-US")} ft²
+                {f2(a.per1000.nLb)} lb N ({f2(a.per1000.wsnLb)} water-soluble),{" "}
+                {f2(a.per1000.p2o5Lb)} lb P₂O₅, {f2(a.per1000.k2oLb)} lb K₂O per 1,000 ft² ·{" "}
+                {f2(a.productTotalLb)} lb product on {a.areaFt2.toLocaleString("en-US")} ft²
               </p>
-              {a.overrideReason ? <p className="mt-1 font-semibold text-clay">Legal limit overridden by {a.overrideBy}: {a.overrideReason}</p> : null}
-              {a.findings.filter((f) => f.severity === "warning").map((f) => (
-                <p key={f.key} className="mt-1 text-ink">⚠ {f.message}</p>
-              ))}
+              {a.overrideReason ? (
+                <p className="mt-1 font-semibold text-clay">
+                  Legal limit overridden by {a.overrideBy}: {a.overrideReason}
+                </p>
+              ) : null}
+              {a.findings
+                .filter((f) => f.severity === "warning")
+                .map((f) => (
+                  <p key={f.key} className="mt-1 text-ink">
+                    ⚠ {f.message}
+                  </p>
+                ))}
             </li>
           ))}
         </ul>
       ) : null}
       {!isOpen ? (
-        <Button type="button" variant="secondary" disabled={disabled} onClick={() => setIsOpen(true)}>
+        <Button
+          type="button"
+          variant="secondary"
+          disabled={disabled}
+          onClick={() => setIsOpen(true)}
+        >
           <FlaskConical className="size-5" aria-hidden="true" />
           Record an application
         </Button>
       ) : (
         <div className="space-y-4 rounded-xl border-2 border-sward bg-card p-4">
-          <SafetyCautions labelCautions={product?.labelCautions} reentryGuidance={product?.reentryGuidance} isPesticide={product?.isPesticide} />
+          <SafetyCautions
+            labelCautions={product?.labelCautions}
+            reentryGuidance={product?.reentryGuidance}
+            isPesticide={product?.isPesticide}
+          />
           <Field id={`${zoneId}-product`} label="Product" error={fieldErrors.productId?.[0]}>
-            <select id={`${zoneId}-product`} value={productId} onChange={(e) => { setProductId(e.target.value); setServerFindings(null); }} className={inputClass}>
+            <select
+              id={`${zoneId}-product`}
+              value={productId}
+              onChange={(e) => {
+                setProductId(e.target.value);
+                setServerFindings(null);
+              }}
+              className={inputClass}
+            >
               <option value="">Choose a product</option>
               {products.data?.map((p) => (
                 <option key={p.id} value={p.id}>
-                  {p.name} ({p.nPct}-{p.p2o5Pct}-{p.k2oPct}{p.slowReleasePctOfN ? `, ${p.slowReleasePctOfN} % slow-release N` : ""})
+                  {p.name} ({p.nPct}-{p.p2o5Pct}-{p.k2oPct}
+                  {p.slowReleasePctOfN ? `, ${p.slowReleasePctOfN} % slow-release N` : ""})
                 </option>
               ))}
             </select>
           </Field>
           {product && product.nPct > 0 ? (
-            <Field id={`${zoneId}-target`} label="Target lb N per 1,000 ft² (optional — proposes the rate)">
-              <input id={`${zoneId}-target`} inputMode="decimal" value={targetN} onChange={(e) => proposeFromTarget(e.target.value)} className={inputClass} placeholder="e.g. 0.75" />
+            <Field
+              id={`${zoneId}-target`}
+              label="Target lb N per 1,000 ft² (optional — proposes the rate)"
+            >
+              <input
+                id={`${zoneId}-target`}
+                inputMode="decimal"
+                value={targetN}
+                onChange={(e) => proposeFromTarget(e.target.value)}
+                className={inputClass}
+                placeholder="e.g. 0.75"
+              />
             </Field>
           ) : null}
           <div className="grid grid-cols-[1fr_auto] gap-2">
-            <Field id={`${zoneId}-rate`} label="Rate" error={fieldErrors.rateAmount?.[0] ?? fieldErrors.rateUnit?.[0]}>
-              <input id={`${zoneId}-rate`} inputMode="decimal" value={amount} onChange={(e) => { setAmount(e.target.value); setServerFindings(null); }} className={inputClass} />
+            <Field
+              id={`${zoneId}-rate`}
+              label="Rate"
+              error={fieldErrors.rateAmount?.[0] ?? fieldErrors.rateUnit?.[0]}
+            >
+              <input
+                id={`${zoneId}-rate`}
+                inputMode="decimal"
+                value={amount}
+                onChange={(e) => {
+                  setAmount(e.target.value);
+                  setServerFindings(null);
+                }}
+                className={inputClass}
+              />
             </Field>
             <Field id={`${zoneId}-unit`} label="Unit">
-              <select id={`${zoneId}-unit`} value={unit} onChange={(e) => setUnit(e.target.value as RateUnit)} className={inputClass}>
+              <select
+                id={`${zoneId}-unit`}
+                value={unit}
+                onChange={(e) => setUnit(e.target.value as RateUnit)}
+                className={inputClass}
+              >
                 {units.map((u) => (
-                  <option key={u} value={u}>{RATE_UNIT_LABEL[u]}</option>
+                  <option key={u} value={u}>
+                    {RATE_UNIT_LABEL[u]}
+                  </option>
                 ))}
               </select>
             </Field>
           </div>
-          {product && hasRate ? <Maths product={product} amount={rateAmount} unit={unit} areaFt2={areaFt2} /> : null}
+          {product && hasRate ? (
+            <Maths product={product} amount={rateAmount} unit={unit} areaFt2={areaFt2} />
+          ) : null}
           <Findings findings={shownFindings} />
           <div className="grid grid-cols-2 gap-2">
-            <Field id={`${zoneId}-temp`} label={weather ? "Temperature (°F, from today's weather)" : "Temperature (°F)"} error={fieldErrors.temperatureF?.[0]}>
-              <input id={`${zoneId}-temp`} inputMode="decimal" value={temperatureF} onChange={(e) => setTemperatureF(e.target.value)} className={inputClass} />
+            <Field
+              id={`${zoneId}-temp`}
+              label={weather ? "Temperature (°F, from today's weather)" : "Temperature (°F)"}
+              error={fieldErrors.temperatureF?.[0]}
+            >
+              <input
+                id={`${zoneId}-temp`}
+                inputMode="decimal"
+                value={temperatureF}
+                onChange={(e) => setTemperatureF(e.target.value)}
+                className={inputClass}
+              />
             </Field>
-            <Field id={`${zoneId}-wind`} label={weather ? "Wind (mph, from today's weather)" : "Wind (mph)"} error={fieldErrors.windMph?.[0]}>
-              <input id={`${zoneId}-wind`} inputMode="decimal" value={windMph} onChange={(e) => setWindMph(e.target.value)} className={inputClass} />
+            <Field
+              id={`${zoneId}-wind`}
+              label={weather ? "Wind (mph, from today's weather)" : "Wind (mph)"}
+              error={fieldErrors.windMph?.[0]}
+            >
+              <input
+                id={`${zoneId}-wind`}
+                inputMode="decimal"
+                value={windMph}
+                onChange={(e) => setWindMph(e.target.value)}
+                className={inputClass}
+              />
             </Field>
           </div>
           <label className="flex min-h-tap items-center gap-2 font-semibold">
-            <input type="checkbox" checked={isEstablishing} onChange={(e) => setIsEstablishing(e.target.checked)} className="size-6" />
+            <input
+              type="checkbox"
+              checked={isEstablishing}
+              onChange={(e) => setIsEstablishing(e.target.checked)}
+              className="size-6"
+            />
             Establishing or repairing turf (seeding, sodding)
           </label>
           {product?.isPesticide ? (
             <div className="grid gap-2 sm:grid-cols-2">
-              <Field id={`${zoneId}-applicator`} label="Certified applicator" error={fieldErrors.applicatorName?.[0]}>
-                <input id={`${zoneId}-applicator`} value={applicatorName} onChange={(e) => setApplicatorName(e.target.value)} className={inputClass} />
+              <Field
+                id={`${zoneId}-applicator`}
+                label="Certified applicator"
+                error={fieldErrors.applicatorName?.[0]}
+              >
+                <input
+                  id={`${zoneId}-applicator`}
+                  value={applicatorName}
+                  onChange={(e) => setApplicatorName(e.target.value)}
+                  className={inputClass}
+                />
               </Field>
-              <Field id={`${zoneId}-licence`} label="Certification (licence) number" error={fieldErrors.applicatorLicence?.[0]}>
-                <input id={`${zoneId}-licence`} value={applicatorLicence} onChange={(e) => setApplicatorLicence(e.target.value)} className={inputClass} />
+              <Field
+                id={`${zoneId}-licence`}
+                label="Certification (licence) number"
+                error={fieldErrors.applicatorLicence?.[0]}
+              >
+                <input
+                  id={`${zoneId}-licence`}
+                  value={applicatorLicence}
+                  onChange={(e) => setApplicatorLicence(e.target.value)}
+                  className={inputClass}
+                />
               </Field>
             </div>
           ) : null}
-          {message ? <p role="alert" className="rounded-lg bg-clay-tint p-3 font-semibold text-clay">{message}</p> : null}
+          {message ? (
+            <p role="alert" className="rounded-lg bg-clay-tint p-3 font-semibold text-clay">
+              {message}
+            </p>
+          ) : null}
           {isRefusedNow && isManager ? (
-            <Field id={`${zoneId}-override`} label="Override reason (managers; kept in the audit trail)">
-              <textarea id={`${zoneId}-override`} rows={2} value={overrideReason} onChange={(e) => setOverrideReason(e.target.value)} className={inputClass} />
+            <Field
+              id={`${zoneId}-override`}
+              label="Override reason (managers; kept in the audit trail)"
+            >
+              <textarea
+                id={`${zoneId}-override`}
+                rows={2}
+                value={overrideReason}
+                onChange={(e) => setOverrideReason(e.target.value)}
+                className={inputClass}
+              />
             </Field>
           ) : null}
           <div className="flex flex-wrap gap-2">
             {isRefusedNow && isManager ? (
-              <Button type="button" disabled={isSaving || !overrideReason.trim()} onClick={() => submit(true)}>
+              <Button
+                type="button"
+                disabled={isSaving || !overrideReason.trim()}
+                onClick={() => submit(true)}
+              >
                 Record with override
               </Button>
             ) : (

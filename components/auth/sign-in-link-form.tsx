@@ -1,14 +1,28 @@
 "use client";
+
 // Homeowners: "e-mail me a sign-in link". The answer is the same whether or not the address has an
 // account; the e-mail is kept on errors.
 import { MailCheck } from "lucide-react";
 import { useActionState, useState } from "react";
-import { type SignInLinkState, requestSignInLinkAction } from "@/lib/auth/actions";
+
 import { Button } from "@/components/ui/button";
+import { requestSignInLinkAction, type SignInLinkState } from "@/lib/auth/actions";
+
 import { AuthAlert, AuthField } from "./auth-field";
 
-export function SignInLinkForm({ redirectTo, minutes, notice }: { redirectTo?: string; minutes: number; notice?: string }) {
-  const [state, formAction, isPending] = useActionState<SignInLinkState, FormData>(requestSignInLinkAction, { email: "" });
+export function SignInLinkForm({
+  redirectTo,
+  minutes,
+  notice,
+}: {
+  redirectTo?: string;
+  minutes: number;
+  notice?: string;
+}) {
+  const [state, formAction, isPending] = useActionState<SignInLinkState, FormData>(
+    requestSignInLinkAction,
+    { email: "" },
+  );
   const [again, setAgain] = useState(0);
   const emailError = state.fieldErrors?.email?.[0];
 
@@ -20,9 +34,12 @@ export function SignInLinkForm({ redirectTo, minutes, notice }: { redirectTo?: s
           <span>Check your e-mail</span>
         </p>
         <p>
-          If <strong className="break-words">{state.email}</strong> belongs to a homeowner account with us, a sign-in link is on its way. It works once, within {minutes} minutes.
+          If <strong className="break-words">{state.email}</strong> belongs to a homeowner account
+          with us, a sign-in link is on its way. It works once, within {minutes} minutes.
         </p>
-        <p className="text-muted">Nothing after a few minutes? Look in your spam folder, or check the address and ask again.</p>
+        <p className="text-muted">
+          Nothing after a few minutes? Look in your spam folder, or check the address and ask again.
+        </p>
         <Button type="button" variant="secondary" onClick={() => setAgain(1)}>
           Use a different address
         </Button>
@@ -32,10 +49,26 @@ export function SignInLinkForm({ redirectTo, minutes, notice }: { redirectTo?: s
 
   const alert = state.error && !emailError ? state.error : notice;
   return (
-    <form action={(data) => { setAgain(0); formAction(data); }} className="space-y-4" noValidate>
+    <form
+      action={(data) => {
+        setAgain(0);
+        formAction(data);
+      }}
+      className="space-y-4"
+      noValidate
+    >
       {alert ? <AuthAlert>{alert}</AuthAlert> : null}
       {redirectTo ? <input type="hidden" name="redirectTo" value={redirectTo} /> : null}
-      <AuthField id="link-email" name="email" label="Your e-mail address" type="email" autoComplete="email" inputMode="email" defaultValue={state.email} error={emailError} />
+      <AuthField
+        id="link-email"
+        name="email"
+        label="Your e-mail address"
+        type="email"
+        autoComplete="email"
+        inputMode="email"
+        defaultValue={state.email}
+        error={emailError}
+      />
       <Button type="submit" className="w-full text-lg" disabled={isPending}>
         {isPending ? "Sending…" : "E-mail me a sign-in link"}
       </Button>

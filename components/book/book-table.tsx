@@ -1,9 +1,11 @@
 "use client";
+
 // The book as a table (TanStack Table, headless): the rows come sorted, filtered and paged by the
 // server; a column header is a link to the same view sorted by it (state lives in the URL).
 import { createColumnHelper, flexRender, tableFeatures, useTable } from "@tanstack/react-table";
 import { ArrowDown, ArrowUp } from "lucide-react";
 import Link from "next/link";
+
 import { SeverityBadge } from "@/components/alerts/severity-badge";
 import { TrendBadge } from "@/components/scoring/trend-badge";
 import type { BookRow } from "@/lib/book/queries";
@@ -32,12 +34,25 @@ const columns = helper.columns([
   helper.accessor("reasons", {
     id: "attention",
     header: "Needs attention",
-    cell: (info) => (info.getValue().length ? <ul className="space-y-0.5 text-sm">{info.getValue().map((r) => <li key={r}>{r}</li>)}</ul> : <span className="text-sm text-muted">Nothing pressing</span>),
+    cell: (info) =>
+      info.getValue().length ? (
+        <ul className="space-y-0.5 text-sm">
+          {info.getValue().map((r) => (
+            <li key={r}>{r}</li>
+          ))}
+        </ul>
+      ) : (
+        <span className="text-sm text-muted">Nothing pressing</span>
+      ),
   }),
   helper.accessor("latestIndex", {
     id: "index",
     header: "Index",
-    cell: (info) => <span className="text-lg font-bold">{info.getValue() === null ? "—" : Math.round(info.getValue()!)}</span>,
+    cell: (info) => (
+      <span className="text-lg font-bold">
+        {info.getValue() === null ? "—" : Math.round(info.getValue()!)}
+      </span>
+    ),
   }),
   helper.accessor("trendSlope", {
     id: "slope",
@@ -45,7 +60,12 @@ const columns = helper.columns([
     cell: (info) => (
       <div className="space-y-1">
         <TrendBadge word={info.row.original.trendWord} />
-        {info.getValue() !== null && info.row.original.trendWord ? <div className="text-sm text-muted">{info.getValue()! >= 0 ? "+" : "−"}{Math.abs(info.getValue()!).toFixed(1)} / 30 d</div> : null}
+        {info.getValue() !== null && info.row.original.trendWord ? (
+          <div className="text-sm text-muted">
+            {info.getValue()! >= 0 ? "+" : "−"}
+            {Math.abs(info.getValue()!).toFixed(1)} / 30 d
+          </div>
+        ) : null}
       </div>
     ),
   }),
@@ -57,21 +77,39 @@ const columns = helper.columns([
       if (!a.high && !a.moderate && !a.low) return <span className="text-sm text-muted">None</span>;
       return (
         <div className="flex flex-wrap gap-1">
-          {a.high ? <span className="inline-flex items-center gap-1"><SeverityBadge severity="high" />×{a.high}</span> : null}
-          {a.moderate ? <span className="inline-flex items-center gap-1"><SeverityBadge severity="moderate" />×{a.moderate}</span> : null}
-          {a.low ? <span className="inline-flex items-center gap-1"><SeverityBadge severity="low" />×{a.low}</span> : null}
+          {a.high ? (
+            <span className="inline-flex items-center gap-1">
+              <SeverityBadge severity="high" />×{a.high}
+            </span>
+          ) : null}
+          {a.moderate ? (
+            <span className="inline-flex items-center gap-1">
+              <SeverityBadge severity="moderate" />×{a.moderate}
+            </span>
+          ) : null}
+          {a.low ? (
+            <span className="inline-flex items-center gap-1">
+              <SeverityBadge severity="low" />×{a.low}
+            </span>
+          ) : null}
         </div>
       );
     },
   }),
-  helper.accessor("lastVisitOn", { id: "last", header: "Last visit", cell: (info) => short(info.getValue()) }),
+  helper.accessor("lastVisitOn", {
+    id: "last",
+    header: "Last visit",
+    cell: (info) => short(info.getValue()),
+  }),
   helper.accessor("nextVisitOn", {
     id: "next",
     header: "Next visit",
     cell: (info) => (
       <div>
         {short(info.getValue())}
-        {info.row.original.isOverdue ? <div className="text-sm font-bold text-clay">Overdue</div> : null}
+        {info.row.original.isOverdue ? (
+          <div className="text-sm font-bold text-clay">Overdue</div>
+        ) : null}
       </div>
     ),
   }),
@@ -85,17 +123,39 @@ const columns = helper.columns([
       </span>
     ),
   }),
-  helper.accessor((r) => r.technician?.name ?? "", { id: "technician", header: "Technician", cell: (info) => info.getValue() || <span className="text-muted">Not assigned</span> }),
+  helper.accessor((r) => r.technician?.name ?? "", {
+    id: "technician",
+    header: "Technician",
+    cell: (info) => info.getValue() || <span className="text-muted">Not assigned</span>,
+  }),
 ]);
 
 const SORTABLE = new Set<string>(["name", "attention", "index", "slope", "last", "next", "n"]);
 
-export function BookTable({ rows, sort, dir, hrefFor }: { rows: BookRow[]; sort: BookSort; dir: "asc" | "desc"; hrefFor: Record<string, string> }) {
+export function BookTable({
+  rows,
+  sort,
+  dir,
+  hrefFor,
+}: {
+  rows: BookRow[];
+  sort: BookSort;
+  dir: "asc" | "desc";
+  hrefFor: Record<string, string>;
+}) {
   const table = useTable({ features, columns, data: rows });
   return (
-    <div className="overflow-x-auto rounded-xl border border-line bg-card" role="region" aria-label="The book (scrolls sideways)" tabIndex={0}>
+    <div
+      className="overflow-x-auto rounded-xl border border-line bg-card"
+      role="region"
+      aria-label="The book (scrolls sideways)"
+      tabIndex={0}
+    >
       <table className="w-full min-w-[60rem] text-left">
-        <caption className="sr-only">Every property, {sort === "attention" ? "those needing attention first" : `sorted by ${sort}`}</caption>
+        <caption className="sr-only">
+          Every property,{" "}
+          {sort === "attention" ? "those needing attention first" : `sorted by ${sort}`}
+        </caption>
         <thead className="border-b border-line bg-paper text-sm">
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
@@ -103,11 +163,25 @@ export function BookTable({ rows, sort, dir, hrefFor }: { rows: BookRow[]; sort:
                 const id = header.column.id;
                 const isSorted = id === sort;
                 return (
-                  <th key={header.id} scope="col" className="p-3 align-bottom" aria-sort={isSorted ? (dir === "asc" ? "ascending" : "descending") : undefined}>
+                  <th
+                    key={header.id}
+                    scope="col"
+                    className="p-3 align-bottom"
+                    aria-sort={isSorted ? (dir === "asc" ? "ascending" : "descending") : undefined}
+                  >
                     {SORTABLE.has(id) && hrefFor[id] ? (
-                      <Link href={hrefFor[id]} className="inline-flex items-center gap-1 font-bold text-ink no-underline hover:text-sward">
+                      <Link
+                        href={hrefFor[id]}
+                        className="inline-flex items-center gap-1 font-bold text-ink no-underline hover:text-sward"
+                      >
                         {flexRender(header.column.columnDef.header, header.getContext())}
-                        {isSorted ? dir === "asc" ? <ArrowUp className="size-4" aria-label="ascending" /> : <ArrowDown className="size-4" aria-label="descending" /> : null}
+                        {isSorted ? (
+                          dir === "asc" ? (
+                            <ArrowUp className="size-4" aria-label="ascending" />
+                          ) : (
+                            <ArrowDown className="size-4" aria-label="descending" />
+                          )
+                        ) : null}
                       </Link>
                     ) : (
                       flexRender(header.column.columnDef.header, header.getContext())
@@ -120,7 +194,11 @@ export function BookTable({ rows, sort, dir, hrefFor }: { rows: BookRow[]; sort:
         </thead>
         <tbody>
           {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-line align-top last:border-0" data-property={row.original.name}>
+            <tr
+              key={row.id}
+              className="border-b border-line align-top last:border-0"
+              data-property={row.original.name}
+            >
               {row.getAllCells().map((cell) => (
                 <td key={cell.id} className="p-3">
                   {flexRender(cell.column.columnDef.cell, cell.getContext())}

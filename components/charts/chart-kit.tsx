@@ -1,8 +1,10 @@
 "use client";
+
 // Shared pieces of Sward's charts (@visx/xychart): the theme from our palette, dates on a time
 // axis, and the vertical markers (feedings, before/after photos) drawn over a chart's plot area.
 import { buildChartTheme, DataContext } from "@visx/xychart";
 import { useContext } from "react";
+
 import { palette } from "@/tailwind.config";
 
 export const chartTheme = buildChartTheme({
@@ -28,7 +30,8 @@ export const shortDate = (d: Date | { valueOf(): number }) => SHORT.format(new D
 /** Every day from `from` to `to` (inclusive), for daily bars that need one datum per day. */
 export function everyDay(from: string, to: string): string[] {
   const days: string[] = [];
-  for (let t = Date.parse(`${from}T00:00:00Z`); t <= Date.parse(`${to}T00:00:00Z`); t += 86_400_000) days.push(new Date(t).toISOString().slice(0, 10));
+  for (let t = Date.parse(`${from}T00:00:00Z`); t <= Date.parse(`${to}T00:00:00Z`); t += 86_400_000)
+    days.push(new Date(t).toISOString().slice(0, 10));
   return days;
 }
 
@@ -56,7 +59,15 @@ export function Markers({ markers }: { markers: Marker[] }) {
         const row = m.tone === "photo" ? innerHeight - 6 : 12 + (i % 2) * 14;
         return (
           <g key={`${m.tone}-${m.date}-${i}`}>
-            <line x1={x} x2={x} y1={margin.top} y2={margin.top + innerHeight} stroke={color} strokeWidth={1.5} strokeDasharray={m.tone === "feed" ? "4 3" : "1 3"} />
+            <line
+              x1={x}
+              x2={x}
+              y1={margin.top}
+              y2={margin.top + innerHeight}
+              stroke={color}
+              strokeWidth={1.5}
+              strokeDasharray={m.tone === "feed" ? "4 3" : "1 3"}
+            />
             <text x={x + 3} y={margin.top + row} fontSize={11} fill={color} fontWeight={600}>
               {width && width < 560 ? m.label.replace(" lb N", "") : m.label}
             </text>

@@ -1,9 +1,15 @@
 // The first and the latest photo of a zone side by side, and every photo over time.
 import type { PhotoDto } from "@/lib/photos/dto";
+
 import { PhotoFigure } from "./photo-figure";
 
 export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName: string }) {
-  if (photos.length === 0) return <p className="rounded-lg border border-line bg-card p-4">No photos of {zoneName} yet. Technicians add them on the zone check.</p>;
+  if (photos.length === 0)
+    return (
+      <p className="rounded-lg border border-line bg-card p-4">
+        No photos of {zoneName} yet. Technicians add them on the zone check.
+      </p>
+    );
   const first = photos[0]!;
   const latest = photos[photos.length - 1]!;
   const change = photos.length > 1 ? latest.greenCoverPct - first.greenCoverPct : null;
@@ -23,8 +29,12 @@ export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName
           </div>
           {change !== null ? (
             <p className="font-semibold">
-              Green cover {change >= 0 ? "up" : "down"} {Math.abs(change).toFixed(1)} points since the first photo
-              {first.dgci !== null && latest.dgci !== null ? `; DGCI ${first.dgci.toFixed(3)} → ${latest.dgci.toFixed(3)}` : ""}.
+              Green cover {change >= 0 ? "up" : "down"} {Math.abs(change).toFixed(1)} points since
+              the first photo
+              {first.dgci !== null && latest.dgci !== null
+                ? `; DGCI ${first.dgci.toFixed(3)} → ${latest.dgci.toFixed(3)}`
+                : ""}
+              .
             </p>
           ) : null}
         </>
@@ -33,7 +43,11 @@ export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName
           <PhotoFigure photo={first} size="display" showDate />
         </div>
       )}
-      <ol className="flex gap-2 overflow-x-auto pb-2" aria-label={`All photos of ${zoneName}, oldest first`} tabIndex={0}>
+      <ol
+        className="flex gap-2 overflow-x-auto pb-2"
+        aria-label={`All photos of ${zoneName}, oldest first`}
+        tabIndex={0}
+      >
         {photos.map((p) => (
           <li key={p.id} className="w-40 shrink-0">
             <PhotoFigure photo={p} showDate />

@@ -1,13 +1,16 @@
 "use client";
+
 // Photos on a zone check: drag and drop on a desktop; "Take photo" (rear camera) and "Choose from
 // library" on a phone; several at once, each with a progress bar (upload, then processing),
 // thumbnails at once, and a retry for a file that failed.
 import { Camera, ImagePlus, RefreshCw, Upload } from "lucide-react";
 import { useCallback, useEffect, useRef, useState } from "react";
-import { createLimiter } from "@/lib/photos/limiter";
 import { useDropzone } from "react-dropzone";
+
 import { Button } from "@/components/ui/button";
 import type { PhotoDto } from "@/lib/photos/dto";
+import { createLimiter } from "@/lib/photos/limiter";
+
 import { PhotoFigure } from "./photo-figure";
 
 const MAX_BYTES = 25 * 1024 * 1024;
@@ -22,12 +25,18 @@ interface QueueItem {
   message?: string;
 }
 
-function send(url: string, file: File, onProgress: (pct: number) => void, onUploaded: () => void): Promise<{ status: number; body: unknown }> {
+function send(
+  url: string,
+  file: File,
+  onProgress: (pct: number) => void,
+  onUploaded: () => void,
+): Promise<{ status: number; body: unknown }> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open("POST", url);
     xhr.setRequestHeader("Content-Type", file.type || "application/octet-stream");
-    xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(Math.round((100 * e.loaded) / e.total));
+    xhr.upload.onprogress = (e) =>
+      e.lengthComputable && onProgress(Math.round((100 * e.loaded) / e.total));
     xhr.upload.onload = onUploaded;
     xhr.onload = () => {
       let body: unknown = null;
@@ -45,34 +54,54 @@ function send(url: string, file: File, onProgress: (pct: number) => void, onUplo
   });
 }
 
-export function PhotoUploader({ visitId, ensureSaved, photos, onUploaded, disabled }: { visitId: string; ensureSaved: () => Promise<string>; photos: PhotoDto[]; onUploaded: (photo: PhotoDto) => void; disabled: boolean }) {
+export function PhotoUploader({
+  visitId,
+  ensureSaved,
+  photos,
+  onUploaded,
+  disabled,
+}: {
+  visitId: string;
+  ensureSaved: () => Promise<string>;
+  photos: PhotoDto[];
+  onUploaded: (photo: PhotoDto) => void;
+  disabled: boolean;
+}) {
   const [queue, setQueue] = useState<QueueItem[]>([]);
   const [limit] = useState(() => createLimiter(PARALLEL));
   const cameraInput = useRef<HTMLInputElement>(null);
-  const patch = (localId: string, change: Partial<QueueItem>) => setQueue((q) => q.map((item) => (item.localId === localId ? { ...item, ...change } : item)));
+  const patch = (localId: string, change: Partial<QueueItem>) =>
+    setQueue((q) => q.map((item) => (item.localId === localId ? { ...item, ...change } : item)));
 
   const upload = useCallback(
     (item: QueueItem) =>
       limit(async () => {
-      patch(item.localId, { status: "uploading", progress: 0, message: undefined });
-      try {
-        const zoneCheckId = await ensureSaved();
-        const { status, body } = await send(
-          `/api/v1/visits/${visitId}/zone-checks/${zoneCheckId}/photos`,
-          item.file,
-          (progress) => patch(item.localId, { progress }),
-          () => patch(item.localId, { status: "processing", progress: 100 }),
-        );
-        if (status === 200 || status === 201) {
-          patch(item.localId, { status: "done" });
-          onUploaded(body as PhotoDto);
-        } else {
-          const message = (body as { error?: { message?: string } } | null)?.error?.message ?? (status === 0 ? "No connection. The photo is still here; retry when you have signal." : `The server answered ${status}.`);
-          patch(item.localId, { status: "error", message });
+        patch(item.localId, { status: "uploading", progress: 0, message: undefined });
+        try {
+          const zoneCheckId = await ensureSaved();
+          const { status, body } = await send(
+            `/api/v1/visits/${visitId}/zone-checks/${zoneCheckId}/photos`,
+            item.file,
+            (progress) => patch(item.localId, { progress }),
+            () => patch(item.localId, { status: "processing", progress: 100 }),
+          );
+          if (status === 200 || status === 201) {
+            patch(item.localId, { status: "done" });
+            onUploaded(body as PhotoDto);
+          } else {
+            const message =
+              (body as { error?: { message?: string } } | null)?.error?.message ??
+              (status === 0
+                ? "No connection. The photo is still here; retry when you have signal."
+                : `The server answered ${status}.`);
+            patch(item.localId, { status: "error", message });
+          }
+        } catch (err) {
+          patch(item.localId, {
+            status: "error",
+            message: err instanceof Error ? err.message : "Upload failed.",
+          });
         }
-      } catch (err) {
-        patch(item.localId, { status: "error", message: err instanceof Error ? err.message : "Upload failed." });
-      }
       }),
     [ensureSaved, limit, onUploaded, visitId],
   );
@@ -84,21 +113,35 @@ export function PhotoUploader({ visitId, ensureSaved, photos, onUploaded, disabl
     return () => urls.forEach((url) => URL.revokeObjectURL(url));
   }, []);
 
-  const add = useCallback((files: File[]) => {
-    const items = files.map<QueueItem>((file) => ({
-      localId: crypto.randomUUID(),
-      file,
-      previewUrl: URL.createObjectURL(file),
-      status: file.size > MAX_BYTES ? "error" : file.size === 0 ? "error" : "waiting",
-      progress: 0,
-      message: file.size > MAX_BYTES ? "The photo is larger than 25 MB. Send a smaller copy." : file.size === 0 ? "The file is empty. Choose the photo again." : undefined,
-    }));
-    previews.current.push(...items.map((i) => i.previewUrl));
-    setQueue((q) => [...q, ...items]);
-    for (const item of items) if (item.status === "waiting") void upload(item);
-  }, [upload]);
+  const add = useCallback(
+    (files: File[]) => {
+      const items = files.map<QueueItem>((file) => ({
+        localId: crypto.randomUUID(),
+        file,
+        previewUrl: URL.createObjectURL(file),
+        status: file.size > MAX_BYTES ? "error" : file.size === 0 ? "error" : "waiting",
+        progress: 0,
+        message:
+          file.size > MAX_BYTES
+            ? "The photo is larger than 25 MB. Send a smaller copy."
+            : file.size === 0
+              ? "The file is empty. Choose the photo again."
+              : undefined,
+      }));
+      previews.current.push(...items.map((i) => i.previewUrl));
+      setQueue((q) => [...q, ...items]);
+      for (const item of items) if (item.status === "waiting") void upload(item);
+    },
+    [upload],
+  );
 
-  const { getRootProps, getInputProps, isDragActive, open } = useDropzone({ onDrop: add, noClick: true, noKeyboard: true, multiple: true, disabled });
+  const { getRootProps, getInputProps, isDragActive, open } = useDropzone({
+    onDrop: add,
+    noClick: true,
+    noKeyboard: true,
+    multiple: true,
+    disabled,
+  });
   const pending = queue.filter((q) => q.status !== "done");
 
   return (
@@ -150,7 +193,10 @@ export function PhotoUploader({ visitId, ensureSaved, photos, onUploaded, disabl
       {pending.length ? (
         <ul className="space-y-2" aria-label="Uploads">
           {pending.map((item) => (
-            <li key={item.localId} className="flex items-center gap-3 rounded-lg border border-line bg-card p-2">
+            <li
+              key={item.localId}
+              className="flex items-center gap-3 rounded-lg border border-line bg-card p-2"
+            >
               {/* eslint-disable-next-line @next/next/no-img-element -- a local preview (blob: URL) of the file being sent */}
               <img src={item.previewUrl} alt="" className="size-14 shrink-0 rounded object-cover" />
               <div className="min-w-0 flex-1">
@@ -161,18 +207,32 @@ export function PhotoUploader({ visitId, ensureSaved, photos, onUploaded, disabl
                   </p>
                 ) : (
                   <>
-                    <progress className="h-2 w-full accent-sward" max={100} value={item.status === "processing" ? undefined : item.progress} aria-label={`Upload of ${item.file.name || "photo"}`} />
+                    <progress
+                      className="h-2 w-full accent-sward"
+                      max={100}
+                      value={item.status === "processing" ? undefined : item.progress}
+                      aria-label={`Upload of ${item.file.name || "photo"}`}
+                    />
                     <p className="text-sm text-muted" role="status">
-                      {item.status === "waiting" ? "Waiting…" : item.status === "uploading" ? `Uploading ${item.progress} %` : "Measuring cover and colour…"}
+                      {item.status === "waiting"
+                        ? "Waiting…"
+                        : item.status === "uploading"
+                          ? `Uploading ${item.progress} %`
+                          : "Measuring cover and colour…"}
                     </p>
                   </>
                 )}
               </div>
               {item.status === "error" && item.file.size > 0 && item.file.size <= MAX_BYTES ? (
-                <Button type="button" variant="secondary" onClick={() => {
+                <Button
+                  type="button"
+                  variant="secondary"
+                  onClick={() => {
                     patch(item.localId, { status: "waiting", message: undefined });
                     void upload(item);
-                  }} aria-label={`Retry ${item.file.name || "photo"}`}>
+                  }}
+                  aria-label={`Retry ${item.file.name || "photo"}`}
+                >
                   <RefreshCw className="size-5" aria-hidden="true" />
                   Retry
                 </Button>

@@ -1,4 +1,5 @@
 "use client";
+
 // Add or edit a catalogue product (manager): guaranteed analysis, slow-release share, density for
 // liquids, label cautions and re-entry; pesticides carry their registration number.
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -6,24 +7,43 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
+
 import { Button } from "@/components/ui/button";
-import { Field, applyFieldErrors, inputClass } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
 import type { ProductDto } from "@/lib/products/dto";
 import { productSchema } from "@/lib/products/schemas";
 import { sendJson } from "@/lib/query-client";
 
 type FormIn = z.input<typeof productSchema>;
 type FormOut = z.output<typeof productSchema>;
-const numberOrNull = (v: unknown) => (v === "" || v === null || Number.isNaN(Number(v)) ? null : Number(v));
+const numberOrNull = (v: unknown) =>
+  v === "" || v === null || Number.isNaN(Number(v)) ? null : Number(v);
 
 export function ProductEditor({ product, onDone }: { product?: ProductDto; onDone: () => void }) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
-  const { register, handleSubmit, setError, control, formState: { errors, isSubmitting } } = useForm<FormIn, unknown, FormOut>({
+  const {
+    register,
+    handleSubmit,
+    setError,
+    control,
+    formState: { errors, isSubmitting },
+  } = useForm<FormIn, unknown, FormOut>({
     resolver: zodResolver(productSchema),
     defaultValues: product
       ? { ...product }
-      : { form: "granular", nPct: 0, p2o5Pct: 0, k2oPct: 0, slowReleasePctOfN: 0, densityLbPerGal: null, isPesticide: false, registrationNumber: "", labelCautions: "", reentryGuidance: "" },
+      : {
+          form: "granular",
+          nPct: 0,
+          p2o5Pct: 0,
+          k2oPct: 0,
+          slowReleasePctOfN: 0,
+          densityLbPerGal: null,
+          isPesticide: false,
+          registrationNumber: "",
+          labelCautions: "",
+          reentryGuidance: "",
+        },
   });
   const p = product ? `product-${product.id}` : "product-new";
   const form = useWatch({ control, name: "form" });
@@ -31,7 +51,9 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
 
   async function onSubmit(values: FormOut) {
     setMessage(null);
-    const result = product ? await sendJson<ProductDto>("PUT", `/api/v1/products/${product.id}`, values) : await sendJson<ProductDto>("POST", "/api/v1/products", values);
+    const result = product
+      ? await sendJson<ProductDto>("PUT", `/api/v1/products/${product.id}`, values)
+      : await sendJson<ProductDto>("POST", "/api/v1/products", values);
     if (!result.ok) {
       applyFieldErrors(result.error.fieldErrors, setError as never);
       return setMessage(result.error.message);
@@ -42,8 +64,17 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
 
   const err = (k: keyof FormIn) => errors[k]?.message;
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-4 rounded-xl border-2 border-sward bg-card p-4" aria-label={product ? `Edit ${product.name}` : "New product"}>
-      {message ? <p role="alert" className="rounded-lg bg-clay-tint p-3 text-clay">{message}</p> : null}
+    <form
+      onSubmit={handleSubmit(onSubmit)}
+      noValidate
+      className="space-y-4 rounded-xl border-2 border-sward bg-card p-4"
+      aria-label={product ? `Edit ${product.name}` : "New product"}
+    >
+      {message ? (
+        <p role="alert" className="rounded-lg bg-clay-tint p-3 text-clay">
+          {message}
+        </p>
+      ) : null}
       <Field id={`${p}-name`} label="Product name" error={err("name")}>
         <input id={`${p}-name`} {...register("name")} className={inputClass} />
       </Field>
@@ -56,22 +87,55 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
           </select>
         </Field>
         <Field id={`${p}-n`} label="N %" error={err("nPct")}>
-          <input id={`${p}-n`} inputMode="decimal" {...register("nPct", { valueAsNumber: true })} className={inputClass} />
+          <input
+            id={`${p}-n`}
+            inputMode="decimal"
+            {...register("nPct", { valueAsNumber: true })}
+            className={inputClass}
+          />
         </Field>
         <Field id={`${p}-p`} label="P₂O₅ %" error={err("p2o5Pct")}>
-          <input id={`${p}-p`} inputMode="decimal" {...register("p2o5Pct", { valueAsNumber: true })} className={inputClass} />
+          <input
+            id={`${p}-p`}
+            inputMode="decimal"
+            {...register("p2o5Pct", { valueAsNumber: true })}
+            className={inputClass}
+          />
         </Field>
         <Field id={`${p}-k`} label="K₂O %" error={err("k2oPct")}>
-          <input id={`${p}-k`} inputMode="decimal" {...register("k2oPct", { valueAsNumber: true })} className={inputClass} />
+          <input
+            id={`${p}-k`}
+            inputMode="decimal"
+            {...register("k2oPct", { valueAsNumber: true })}
+            className={inputClass}
+          />
         </Field>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field id={`${p}-slow`} label="Slow-release share of N (%)" error={err("slowReleasePctOfN")}>
-          <input id={`${p}-slow`} inputMode="decimal" {...register("slowReleasePctOfN", { valueAsNumber: true })} className={inputClass} />
+        <Field
+          id={`${p}-slow`}
+          label="Slow-release share of N (%)"
+          error={err("slowReleasePctOfN")}
+        >
+          <input
+            id={`${p}-slow`}
+            inputMode="decimal"
+            {...register("slowReleasePctOfN", { valueAsNumber: true })}
+            className={inputClass}
+          />
         </Field>
         {form === "liquid" ? (
-          <Field id={`${p}-density`} label="Density (lb/gal, from the label)" error={err("densityLbPerGal")}>
-            <input id={`${p}-density`} inputMode="decimal" {...register("densityLbPerGal", { setValueAs: numberOrNull })} className={inputClass} />
+          <Field
+            id={`${p}-density`}
+            label="Density (lb/gal, from the label)"
+            error={err("densityLbPerGal")}
+          >
+            <input
+              id={`${p}-density`}
+              inputMode="decimal"
+              {...register("densityLbPerGal", { setValueAs: numberOrNull })}
+              className={inputClass}
+            />
           </Field>
         ) : null}
       </div>
@@ -85,14 +149,23 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
         </Field>
       ) : null}
       <Field id={`${p}-cautions`} label="Label cautions" error={err("labelCautions")}>
-        <textarea id={`${p}-cautions`} rows={3} {...register("labelCautions")} className={inputClass} />
+        <textarea
+          id={`${p}-cautions`}
+          rows={3}
+          {...register("labelCautions")}
+          className={inputClass}
+        />
       </Field>
       <Field id={`${p}-reentry`} label="Re-entry guidance" error={err("reentryGuidance")}>
         <input id={`${p}-reentry`} {...register("reentryGuidance")} className={inputClass} />
       </Field>
       <div className="flex gap-2">
-        <Button type="submit" disabled={isSubmitting}>{isSubmitting ? "Saving…" : product ? "Save product" : "Add product"}</Button>
-        <Button type="button" variant="secondary" onClick={onDone}>Cancel</Button>
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? "Saving…" : product ? "Save product" : "Add product"}
+        </Button>
+        <Button type="button" variant="secondary" onClick={onDone}>
+          Cancel
+        </Button>
       </div>
     </form>
   );

@@ -1,11 +1,14 @@
 "use client";
+
 // The product catalogue with inline editing (manager).
 import { Archive, PencilLine, Plus } from "lucide-react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+
 import { Button } from "@/components/ui/button";
 import type { ProductDto } from "@/lib/products/dto";
 import { sendJson } from "@/lib/query-client";
+
 import { ProductEditor } from "./product-editor";
 
 const FORM = { granular: "Granular", liquid: "Liquid", soluble: "Soluble powder" } as const;
@@ -14,13 +17,20 @@ export function ProductList({ products }: { products: ProductDto[] }) {
   const router = useRouter();
   const [editing, setEditing] = useState<string | null>(null);
   async function archive(p: ProductDto) {
-    if (!window.confirm(`Archive ${p.name}? Past applications keep it; it leaves the list for new ones.`)) return;
+    if (
+      !window.confirm(
+        `Archive ${p.name}? Past applications keep it; it leaves the list for new ones.`,
+      )
+    )
+      return;
     const r = await sendJson("POST", `/api/v1/products/${p.id}/archive`, { archived: true });
     if (r.ok) router.refresh();
   }
   return (
     <div className="space-y-3">
-      {editing === "new" ? <ProductEditor onDone={() => setEditing(null)} /> : (
+      {editing === "new" ? (
+        <ProductEditor onDone={() => setEditing(null)} />
+      ) : (
         <Button type="button" onClick={() => setEditing("new")}>
           <Plus className="size-5" aria-hidden="true" />
           Add a product
@@ -29,25 +39,41 @@ export function ProductList({ products }: { products: ProductDto[] }) {
       <ul className="space-y-3" aria-label="Products">
         {products.map((p) =>
           editing === p.id ? (
-            <li key={p.id}><ProductEditor product={p} onDone={() => setEditing(null)} /></li>
+            <li key={p.id}>
+              <ProductEditor product={p} onDone={() => setEditing(null)} />
+            </li>
           ) : (
             <li key={p.id} className="rounded-xl border border-line bg-card p-4">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
                 <h2 className="text-lg font-bold">{p.name}</h2>
-                <p className="font-semibold">{p.nPct}-{p.p2o5Pct}-{p.k2oPct}</p>
+                <p className="font-semibold">
+                  {p.nPct}-{p.p2o5Pct}-{p.k2oPct}
+                </p>
               </div>
               <p className="text-muted">
                 {FORM[p.form]}
-                {p.slowReleasePctOfN ? ` · ${p.slowReleasePctOfN} % of N slow-release` : " · all N water-soluble"}
+                {p.slowReleasePctOfN
+                  ? ` · ${p.slowReleasePctOfN} % of N slow-release`
+                  : " · all N water-soluble"}
                 {p.densityLbPerGal ? ` · ${p.densityLbPerGal} lb/gal` : ""}
                 {p.isPesticide ? ` · pesticide, reg. ${p.registrationNumber}` : ""}
               </p>
               {p.labelCautions ? <p className="mt-2 text-sm">{p.labelCautions}</p> : null}
               <div className="mt-3 flex gap-2">
-                <Button type="button" variant="secondary" onClick={() => setEditing(p.id)} aria-label={`Edit ${p.name}`}>
+                <Button
+                  type="button"
+                  variant="secondary"
+                  onClick={() => setEditing(p.id)}
+                  aria-label={`Edit ${p.name}`}
+                >
                   <PencilLine className="size-5" aria-hidden="true" /> Edit
                 </Button>
-                <Button type="button" variant="quiet" onClick={() => archive(p)} aria-label={`Archive ${p.name}`}>
+                <Button
+                  type="button"
+                  variant="quiet"
+                  onClick={() => archive(p)}
+                  aria-label={`Archive ${p.name}`}
+                >
                   <Archive className="size-5" aria-hidden="true" /> Archive
                 </Button>
               </div>

@@ -1,22 +1,42 @@
 "use client";
+
 // Manager controls on a property page: zones (add, edit, archive), homeowner sign-ins (link,
 // unlink) and archiving the property. Each change goes through the JSON API and refreshes the page.
-import { Archive, ArchiveRestore, History, PencilLine, Plus, UserMinus, UserPlus } from "lucide-react";
+import {
+  Archive,
+  ArchiveRestore,
+  History,
+  PencilLine,
+  Plus,
+  UserMinus,
+  UserPlus,
+} from "lucide-react";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+
 import { Button, buttonClass } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import type { PropertyDetailDto, ZoneDto } from "@/lib/properties/dto";
 import { homeownerLinkSchema } from "@/lib/properties/schemas";
 import { sendJson } from "@/lib/query-client";
+
 import { ZoneEditor } from "./zone-editor";
 
-export function ZoneActions({ propertyId, zone, canManage }: { propertyId: string; zone: ZoneDto; canManage: boolean }) {
+export function ZoneActions({
+  propertyId,
+  zone,
+  canManage,
+}: {
+  propertyId: string;
+  zone: ZoneDto;
+  canManage: boolean;
+}) {
   const router = useRouter();
   const [isEditing, setIsEditing] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
-  if (isEditing) return <ZoneEditor propertyId={propertyId} zone={zone} onDone={() => setIsEditing(false)} />;
+  if (isEditing)
+    return <ZoneEditor propertyId={propertyId} zone={zone} onDone={() => setIsEditing(false)} />;
   async function archive() {
     if (!window.confirm(`Archive ${zone.name}? Its past checks stay in the history.`)) return;
     const result = await sendJson("POST", `/api/v1/zones/${zone.id}/archive`, { archived: true });
@@ -25,23 +45,40 @@ export function ZoneActions({ propertyId, zone, canManage }: { propertyId: strin
   }
   return (
     <div className="mt-3 flex flex-wrap gap-2">
-      <Link href={`/properties/${propertyId}/zones/${zone.id}`} className={buttonClass("secondary", "no-underline")}>
+      <Link
+        href={`/properties/${propertyId}/zones/${zone.id}`}
+        className={buttonClass("secondary", "no-underline")}
+      >
         <History className="size-5" aria-hidden="true" />
         History
       </Link>
       {canManage ? (
         <>
-          <Button type="button" variant="secondary" onClick={() => setIsEditing(true)} aria-label={`Edit ${zone.name}`}>
+          <Button
+            type="button"
+            variant="secondary"
+            onClick={() => setIsEditing(true)}
+            aria-label={`Edit ${zone.name}`}
+          >
             <PencilLine className="size-5" aria-hidden="true" />
             Edit
           </Button>
-          <Button type="button" variant="quiet" onClick={archive} aria-label={`Archive ${zone.name}`}>
+          <Button
+            type="button"
+            variant="quiet"
+            onClick={archive}
+            aria-label={`Archive ${zone.name}`}
+          >
             <Archive className="size-5" aria-hidden="true" />
             Archive
           </Button>
         </>
       ) : null}
-      {message ? <p role="alert" className="w-full text-clay">{message}</p> : null}
+      {message ? (
+        <p role="alert" className="w-full text-clay">
+          {message}
+        </p>
+      ) : null}
     </div>
   );
 }
@@ -69,8 +106,15 @@ export function HomeownerAdmin({ property }: { property: PropertyDetailDto }) {
     event.preventDefault();
     setMessage(null);
     const parsed = homeownerLinkSchema.safeParse({ email, name });
-    if (!parsed.success) return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), [i.message]])));
-    const result = await sendJson("POST", `/api/v1/properties/${property.id}/homeowners`, parsed.data);
+    if (!parsed.success)
+      return setErrors(
+        Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), [i.message]])),
+      );
+    const result = await sendJson(
+      "POST",
+      `/api/v1/properties/${property.id}/homeowners`,
+      parsed.data,
+    );
     if (!result.ok) {
       setErrors(result.error.fieldErrors ?? {});
       return setMessage(result.error.message);
@@ -83,7 +127,10 @@ export function HomeownerAdmin({ property }: { property: PropertyDetailDto }) {
 
   async function unlink(userId: string, who: string) {
     if (!window.confirm(`Unlink ${who}? They will no longer see this property.`)) return;
-    const result = await sendJson("DELETE", `/api/v1/properties/${property.id}/homeowners/${userId}`);
+    const result = await sendJson(
+      "DELETE",
+      `/api/v1/properties/${property.id}/homeowners/${userId}`,
+    );
     if (result.ok) router.refresh();
     else setMessage(result.error.message);
   }
@@ -92,29 +139,59 @@ export function HomeownerAdmin({ property }: { property: PropertyDetailDto }) {
     <div className="space-y-3">
       <ul className="space-y-2">
         {property.homeowners.map((h) => (
-          <li key={h.id} className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-line bg-card p-3">
+          <li
+            key={h.id}
+            className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-line bg-card p-3"
+          >
             <span>
-              <span className="font-semibold">{h.name}</span> <span className="text-muted">{h.email}</span>
+              <span className="font-semibold">{h.name}</span>{" "}
+              <span className="text-muted">{h.email}</span>
             </span>
-            <Button type="button" variant="quiet" onClick={() => unlink(h.id, h.name)} aria-label={`Unlink ${h.name}`}>
+            <Button
+              type="button"
+              variant="quiet"
+              onClick={() => unlink(h.id, h.name)}
+              aria-label={`Unlink ${h.name}`}
+            >
               <UserMinus className="size-5" aria-hidden="true" />
               Unlink
             </Button>
           </li>
         ))}
       </ul>
-      <form onSubmit={link} className="grid gap-3 rounded-xl border border-line bg-card p-4 sm:grid-cols-[1fr_1fr_auto] sm:items-end" noValidate aria-label="Link a homeowner">
+      <form
+        onSubmit={link}
+        className="grid gap-3 rounded-xl border border-line bg-card p-4 sm:grid-cols-[1fr_1fr_auto] sm:items-end"
+        noValidate
+        aria-label="Link a homeowner"
+      >
         <Field id="homeowner-name" label="Homeowner name" error={errors.name?.[0]}>
-          <input id="homeowner-name" value={name} onChange={(e) => setName(e.target.value)} className={inputClass} />
+          <input
+            id="homeowner-name"
+            value={name}
+            onChange={(e) => setName(e.target.value)}
+            className={inputClass}
+          />
         </Field>
         <Field id="homeowner-email" label="E-mail" error={errors.email?.[0]}>
-          <input id="homeowner-email" type="email" inputMode="email" value={email} onChange={(e) => setEmail(e.target.value)} className={inputClass} />
+          <input
+            id="homeowner-email"
+            type="email"
+            inputMode="email"
+            value={email}
+            onChange={(e) => setEmail(e.target.value)}
+            className={inputClass}
+          />
         </Field>
         <Button type="submit">
           <UserPlus className="size-5" aria-hidden="true" />
           Link
         </Button>
-        {message ? <p role="alert" className="text-clay sm:col-span-3">{message}</p> : null}
+        {message ? (
+          <p role="alert" className="text-clay sm:col-span-3">
+            {message}
+          </p>
+        ) : null}
       </form>
     </div>
   );
@@ -125,18 +202,34 @@ export function ArchiveProperty({ property }: { property: PropertyDetailDto }) {
   const [message, setMessage] = useState<string | null>(null);
   async function toggle() {
     const archived = !property.isArchived;
-    if (archived && !window.confirm(`Archive ${property.name}? It leaves the book; its visits and history are kept.`)) return;
-    const result = await sendJson("POST", `/api/v1/properties/${property.id}/archive`, { archived });
+    if (
+      archived &&
+      !window.confirm(
+        `Archive ${property.name}? It leaves the book; its visits and history are kept.`,
+      )
+    )
+      return;
+    const result = await sendJson("POST", `/api/v1/properties/${property.id}/archive`, {
+      archived,
+    });
     if (result.ok) router.refresh();
     else setMessage(result.error.message);
   }
   return (
     <>
       <Button type="button" variant="secondary" onClick={toggle}>
-        {property.isArchived ? <ArchiveRestore className="size-5" aria-hidden="true" /> : <Archive className="size-5" aria-hidden="true" />}
+        {property.isArchived ? (
+          <ArchiveRestore className="size-5" aria-hidden="true" />
+        ) : (
+          <Archive className="size-5" aria-hidden="true" />
+        )}
         {property.isArchived ? "Restore property" : "Archive property"}
       </Button>
-      {message ? <p role="alert" className="text-clay">{message}</p> : null}
+      {message ? (
+        <p role="alert" className="text-clay">
+          {message}
+        </p>
+      ) : null}
     </>
   );
 }

@@ -1,4 +1,5 @@
 "use client";
+
 // Create or edit a property (manager). The zod schema that validates the route drives this form.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { LocateFixed } from "lucide-react";
@@ -6,8 +7,9 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+
 import { Button } from "@/components/ui/button";
-import { Field, applyFieldErrors, inputClass, nullIfEmpty } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
 import { propertySchema } from "@/lib/properties/schemas";
@@ -17,7 +19,17 @@ import type { RuleSetDto } from "@/lib/rule-sets/dto";
 type FormIn = z.input<typeof propertySchema>;
 type FormOut = z.output<typeof propertySchema>;
 
-export function PropertyForm({ property, technicians, ruleSets, timeZones }: { property?: PropertyDetailDto; technicians: PersonDto[]; ruleSets: RuleSetDto[]; timeZones: string[] }) {
+export function PropertyForm({
+  property,
+  technicians,
+  ruleSets,
+  timeZones,
+}: {
+  property?: PropertyDetailDto;
+  technicians: PersonDto[];
+  ruleSets: RuleSetDto[];
+  timeZones: string[];
+}) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [locating, setLocating] = useState<string | null>(null);
@@ -43,7 +55,12 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
           technicianId: property.technician?.id ?? null,
           notes: property.notes,
         }
-      : { timeZone: "America/New_York", ruleSetId: ruleSets[0]?.id ?? null, technicianId: null, notes: "" },
+      : {
+          timeZone: "America/New_York",
+          ruleSetId: ruleSets[0]?.id ?? null,
+          technicianId: null,
+          notes: "",
+        },
   });
 
   async function onSubmit(values: FormOut) {
@@ -61,7 +78,8 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
   }
 
   function useDeviceLocation() {
-    if (!("geolocation" in navigator)) return setLocating("This device cannot share its location; type the coordinates.");
+    if (!("geolocation" in navigator))
+      return setLocating("This device cannot share its location; type the coordinates.");
     setLocating("Finding this device's location…");
     navigator.geolocation.getCurrentPosition(
       (p) => {
@@ -69,13 +87,17 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
         setValue("longitude", Number(p.coords.longitude.toFixed(5)), { shouldValidate: true });
         setLocating(`Location set (±${Math.round(p.coords.accuracy)} m).`);
       },
-      () => setLocating("Location was not shared. Allow it in the browser, or type the coordinates."),
+      () =>
+        setLocating("Location was not shared. Allow it in the browser, or type the coordinates."),
       { timeout: 10_000, enableHighAccuracy: true },
     );
   }
 
   const err = (name: keyof FormIn) => errors[name]?.message;
-  const aria = (name: keyof FormIn) => ({ "aria-invalid": errors[name] ? true : undefined, "aria-describedby": errors[name] ? `${name}-error` : undefined });
+  const aria = (name: keyof FormIn) => ({
+    "aria-invalid": errors[name] ? true : undefined,
+    "aria-describedby": errors[name] ? `${name}-error` : undefined,
+  });
 
   return (
     <form onSubmit={handleSubmit(onSubmit)} className="max-w-2xl space-y-5" noValidate>
@@ -84,11 +106,22 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
           {message}
         </p>
       ) : null}
-      <Field id="name" label="Property name" hint="How the office refers to it, e.g. “Haddad residence”." error={err("name")}>
+      <Field
+        id="name"
+        label="Property name"
+        hint="How the office refers to it, e.g. “Haddad residence”."
+        error={err("name")}
+      >
         <input id="name" {...register("name")} {...aria("name")} className={inputClass} />
       </Field>
       <Field id="street" label="Street address" error={err("street")}>
-        <input id="street" autoComplete="street-address" {...register("street")} {...aria("street")} className={inputClass} />
+        <input
+          id="street"
+          autoComplete="street-address"
+          {...register("street")}
+          {...aria("street")}
+          className={inputClass}
+        />
       </Field>
       <div className="grid gap-4 sm:grid-cols-3">
         <Field id="city" label="Town or city" error={err("city")}>
@@ -98,17 +131,35 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
           <input id="region" {...register("region")} {...aria("region")} className={inputClass} />
         </Field>
         <Field id="postalCode" label="ZIP code" error={err("postalCode")}>
-          <input id="postalCode" inputMode="numeric" {...register("postalCode")} {...aria("postalCode")} className={inputClass} />
+          <input
+            id="postalCode"
+            inputMode="numeric"
+            {...register("postalCode")}
+            {...aria("postalCode")}
+            className={inputClass}
+          />
         </Field>
       </div>
       <fieldset className="space-y-3 rounded-xl border border-line p-4">
         <legend className="px-1 font-bold">Location</legend>
         <div className="grid gap-4 sm:grid-cols-2">
           <Field id="latitude" label="Latitude (°)" error={err("latitude")}>
-            <input id="latitude" inputMode="decimal" {...register("latitude", { valueAsNumber: true })} {...aria("latitude")} className={inputClass} />
+            <input
+              id="latitude"
+              inputMode="decimal"
+              {...register("latitude", { valueAsNumber: true })}
+              {...aria("latitude")}
+              className={inputClass}
+            />
           </Field>
           <Field id="longitude" label="Longitude (°)" error={err("longitude")}>
-            <input id="longitude" inputMode="decimal" {...register("longitude", { valueAsNumber: true })} {...aria("longitude")} className={inputClass} />
+            <input
+              id="longitude"
+              inputMode="decimal"
+              {...register("longitude", { valueAsNumber: true })}
+              {...aria("longitude")}
+              className={inputClass}
+            />
           </Field>
         </div>
         <Button type="button" variant="secondary" onClick={useDeviceLocation}>
@@ -118,7 +169,12 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
         {locating ? <p role="status">{locating}</p> : null}
       </fieldset>
       <Field id="timeZone" label="Time zone" error={err("timeZone")}>
-        <select id="timeZone" {...register("timeZone")} {...aria("timeZone")} className={inputClass}>
+        <select
+          id="timeZone"
+          {...register("timeZone")}
+          {...aria("timeZone")}
+          className={inputClass}
+        >
           {timeZones.map((tz) => (
             <option key={tz} value={tz}>
               {tz.replaceAll("_", " ")}
@@ -126,8 +182,18 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
           ))}
         </select>
       </Field>
-      <Field id="ruleSetId" label="Fertiliser rule set" hint="The local rules every application here is checked against." error={err("ruleSetId")}>
-        <select id="ruleSetId" {...register("ruleSetId", { setValueAs: nullIfEmpty })} {...aria("ruleSetId")} className={inputClass}>
+      <Field
+        id="ruleSetId"
+        label="Fertiliser rule set"
+        hint="The local rules every application here is checked against."
+        error={err("ruleSetId")}
+      >
+        <select
+          id="ruleSetId"
+          {...register("ruleSetId", { setValueAs: nullIfEmpty })}
+          {...aria("ruleSetId")}
+          className={inputClass}
+        >
           <option value="">None chosen yet</option>
           {ruleSets.map((r) => (
             <option key={r.id} value={r.id}>
@@ -137,7 +203,12 @@ export function PropertyForm({ property, technicians, ruleSets, timeZones }: { p
         </select>
       </Field>
       <Field id="technicianId" label="Assigned technician" error={err("technicianId")}>
-        <select id="technicianId" {...register("technicianId", { setValueAs: nullIfEmpty })} {...aria("technicianId")} className={inputClass}>
+        <select
+          id="technicianId"
+          {...register("technicianId", { setValueAs: nullIfEmpty })}
+          {...aria("technicianId")}
+          className={inputClass}
+        >
           <option value="">Not assigned</option>
           {technicians.map((t) => (
             <option key={t.id} value={t.id}>

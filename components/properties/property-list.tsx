@@ -1,8 +1,11 @@
 "use client";
+
 // The staff list of properties in scope, read through React Query (prefetched on the server).
 import { CircleAlert, MapPin, UserRound } from "lucide-react";
 import Link from "next/link";
+
 import { formatAreaFt2, formatCount } from "@/components/ui/format";
+
 import { useProperties } from "./use-properties";
 
 export function PropertyList({ showTechnician }: { showTechnician: boolean }) {
@@ -11,7 +14,10 @@ export function PropertyList({ showTechnician }: { showTechnician: boolean }) {
   if (isPending) return <p className="text-muted">Loading properties…</p>;
   if (error)
     return (
-      <div role="alert" className="flex items-start gap-2 rounded-lg border border-clay bg-clay-tint p-3 text-clay">
+      <div
+        role="alert"
+        className="flex items-start gap-2 rounded-lg border border-clay bg-clay-tint p-3 text-clay"
+      >
         <CircleAlert className="mt-0.5 size-5 shrink-0" aria-hidden="true" />
         <p>
           Properties could not be loaded: {error.message}{" "}
@@ -24,7 +30,9 @@ export function PropertyList({ showTechnician }: { showTechnician: boolean }) {
   if (data.length === 0)
     return (
       <p className="rounded-lg border border-line bg-card p-4">
-        {showTechnician ? "No properties in the book yet." : "No properties are assigned to you yet. Your manager assigns them."}
+        {showTechnician
+          ? "No properties in the book yet."
+          : "No properties are assigned to you yet. Your manager assigns them."}
       </p>
     );
 

@@ -1,13 +1,15 @@
 "use client";
+
 // Add or edit a zone (manager): area in ft² or m² (stored as ft²), species from the reference table.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { grassSpecies } from "@/fixtures/grass-species";
+
 import { Button } from "@/components/ui/button";
-import { Field, applyFieldErrors, inputClass } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
+import { grassSpecies } from "@/fixtures/grass-species";
 import { SLOPE_LABEL, SUN_EXPOSURE_LABEL, type ZoneDto } from "@/lib/properties/dto";
 import { zoneSchema } from "@/lib/properties/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -15,7 +17,15 @@ import { sendJson } from "@/lib/query-client";
 type FormIn = z.input<typeof zoneSchema>;
 type FormOut = z.output<typeof zoneSchema>;
 
-export function ZoneEditor({ propertyId, zone, onDone }: { propertyId: string; zone?: ZoneDto; onDone: () => void }) {
+export function ZoneEditor({
+  propertyId,
+  zone,
+  onDone,
+}: {
+  propertyId: string;
+  zone?: ZoneDto;
+  onDone: () => void;
+}) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const {
@@ -26,14 +36,30 @@ export function ZoneEditor({ propertyId, zone, onDone }: { propertyId: string; z
   } = useForm<FormIn, unknown, FormOut>({
     resolver: zodResolver(zoneSchema),
     defaultValues: zone
-      ? { name: zone.name, area: zone.areaFt2, areaUnit: "ft2", grassSpecies: zone.grassSpecies.key, sunExposure: zone.sunExposure, isIrrigated: zone.isIrrigated, slope: zone.slope }
-      : { areaUnit: "ft2", grassSpecies: "tall_fescue", sunExposure: "full_sun", isIrrigated: false, slope: "flat" },
+      ? {
+          name: zone.name,
+          area: zone.areaFt2,
+          areaUnit: "ft2",
+          grassSpecies: zone.grassSpecies.key,
+          sunExposure: zone.sunExposure,
+          isIrrigated: zone.isIrrigated,
+          slope: zone.slope,
+        }
+      : {
+          areaUnit: "ft2",
+          grassSpecies: "tall_fescue",
+          sunExposure: "full_sun",
+          isIrrigated: false,
+          slope: "flat",
+        },
   });
   const prefix = zone ? `zone-${zone.id}` : "zone-new";
 
   async function onSubmit(values: FormOut) {
     setMessage(null);
-    const result = zone ? await sendJson<ZoneDto>("PUT", `/api/v1/zones/${zone.id}`, values) : await sendJson<ZoneDto>("POST", `/api/v1/properties/${propertyId}/zones`, values);
+    const result = zone
+      ? await sendJson<ZoneDto>("PUT", `/api/v1/zones/${zone.id}`, values)
+      : await sendJson<ZoneDto>("POST", `/api/v1/properties/${propertyId}/zones`, values);
     if (!result.ok) {
       applyFieldErrors(result.error.fieldErrors, setError as never);
       setMessage(result.error.message);
@@ -44,18 +70,39 @@ export function ZoneEditor({ propertyId, zone, onDone }: { propertyId: string; z
   }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4 rounded-xl border-2 border-sward bg-card p-4" noValidate aria-label={zone ? `Edit ${zone.name}` : "New zone"}>
+    <form
+      onSubmit={handleSubmit(onSubmit)}
+      className="space-y-4 rounded-xl border-2 border-sward bg-card p-4"
+      noValidate
+      aria-label={zone ? `Edit ${zone.name}` : "New zone"}
+    >
       {message ? (
         <p role="alert" className="rounded-lg border border-clay bg-clay-tint p-3 text-clay">
           {message}
         </p>
       ) : null}
-      <Field id={`${prefix}-name`} label="Zone name" hint="e.g. Front slope, Back yard" error={errors.name?.message}>
-        <input id={`${prefix}-name`} {...register("name")} aria-invalid={errors.name ? true : undefined} className={inputClass} />
+      <Field
+        id={`${prefix}-name`}
+        label="Zone name"
+        hint="e.g. Front slope, Back yard"
+        error={errors.name?.message}
+      >
+        <input
+          id={`${prefix}-name`}
+          {...register("name")}
+          aria-invalid={errors.name ? true : undefined}
+          className={inputClass}
+        />
       </Field>
       <div className="grid grid-cols-[1fr_auto] gap-2">
         <Field id={`${prefix}-area`} label="Area" error={errors.area?.message}>
-          <input id={`${prefix}-area`} inputMode="decimal" {...register("area", { valueAsNumber: true })} aria-invalid={errors.area ? true : undefined} className={inputClass} />
+          <input
+            id={`${prefix}-area`}
+            inputMode="decimal"
+            {...register("area", { valueAsNumber: true })}
+            aria-invalid={errors.area ? true : undefined}
+            className={inputClass}
+          />
         </Field>
         <Field id={`${prefix}-unit`} label="Unit">
           <select id={`${prefix}-unit`} {...register("areaUnit")} className={inputClass}>

@@ -1,6 +1,8 @@
 "use client";
+
 // Prints the report (the page's print styles drop the navigation and buttons).
 import { Printer } from "lucide-react";
+
 import { Button } from "@/components/ui/button";
 
 export function PrintButton() {

@@ -1,9 +1,11 @@
 // A visit report for the homeowner: what was seen in each zone in plain words, what was applied
 // with its cautions and keep-off time, the photos, and the care notes that match what was seen.
 import { ShieldAlert } from "lucide-react";
+
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { formatDate } from "@/lib/dates";
 import type { VisitReport } from "@/lib/reports/queries";
+
 import { PrintButton } from "./print-button";
 
 export function VisitReportView({ report }: { report: VisitReport }) {
@@ -17,11 +19,15 @@ export function VisitReportView({ report }: { report: VisitReport }) {
         <p className="text-muted">{report.address}</p>
         <p>
           {report.technicianName ? `Your technician: ${report.technicianName}. ` : ""}
-          {report.weather ? `Weather that day: ${Math.round(report.weather.tmaxF)}/${Math.round(report.weather.tminF)} °F, ${report.weather.precipIn.toFixed(2)} in of rain.` : ""}
+          {report.weather
+            ? `Weather that day: ${Math.round(report.weather.tmaxF)}/${Math.round(report.weather.tminF)} °F, ${report.weather.precipIn.toFixed(2)} in of rain.`
+            : ""}
         </p>
         {report.propertyIndex !== null ? (
           <p className="text-lg">
-            Lawn health score at this visit: <strong className="text-2xl text-sward">{Math.round(report.propertyIndex)}</strong> out of 100.
+            Lawn health score at this visit:{" "}
+            <strong className="text-2xl text-sward">{Math.round(report.propertyIndex)}</strong> out
+            of 100.
           </p>
         ) : null}
         <div className="pt-2">
@@ -35,7 +41,10 @@ export function VisitReportView({ report }: { report: VisitReport }) {
         </h2>
         <div className="space-y-4">
           {report.zones.map((z) => (
-            <div key={z.zoneId} className="break-inside-avoid rounded-xl border border-line bg-card p-4">
+            <div
+              key={z.zoneId}
+              className="break-inside-avoid rounded-xl border border-line bg-card p-4"
+            >
               <h3 className="text-xl font-bold">{z.name}</h3>
               {z.skipped ? (
                 <p className="mt-1">Not checked this time: {z.skipped.toLowerCase()}.</p>
@@ -47,7 +56,10 @@ export function VisitReportView({ report }: { report: VisitReport }) {
                 </ul>
               )}
               {z.photos.length ? (
-                <ul className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-3" aria-label={`Photos of ${z.name}`}>
+                <ul
+                  className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-3"
+                  aria-label={`Photos of ${z.name}`}
+                >
                   {z.photos.map((p) => (
                     <li key={p.id}>
                       <PhotoFigure photo={p} />
@@ -65,32 +77,45 @@ export function VisitReportView({ report }: { report: VisitReport }) {
           What we applied
         </h2>
         {report.applications.length === 0 ? (
-          <p className="rounded-lg border border-line bg-card p-4">Nothing was applied at this visit.</p>
+          <p className="rounded-lg border border-line bg-card p-4">
+            Nothing was applied at this visit.
+          </p>
         ) : (
           <ul className="space-y-3">
             {report.applications.map((a, i) => (
-              <li key={`${a.productName}-${a.zoneName}-${i}`} className="break-inside-avoid rounded-xl border border-line bg-card p-4">
+              <li
+                key={`${a.productName}-${a.zoneName}-${i}`}
+                className="break-inside-avoid rounded-xl border border-line bg-card p-4"
+              >
                 <p className="font-bold">
                   {a.productName} on the {a.zoneName.toLowerCase()}
                 </p>
                 {a.nLb > 0 || a.p2o5Lb > 0 || a.k2oLb > 0 ? (
                   <p className="text-sm text-muted">
-                    Per 1,000 ft²: {a.nLb.toFixed(2)} lb nitrogen, {a.p2o5Lb.toFixed(2)} lb phosphate, {a.k2oLb.toFixed(2)} lb potash.
+                    Per 1,000 ft²: {a.nLb.toFixed(2)} lb nitrogen, {a.p2o5Lb.toFixed(2)} lb
+                    phosphate, {a.k2oLb.toFixed(2)} lb potash.
                   </p>
                 ) : null}
-                {a.isPesticide && a.registrationNumber ? <p className="text-sm text-muted">Registration number {a.registrationNumber}.</p> : null}
+                {a.isPesticide && a.registrationNumber ? (
+                  <p className="text-sm text-muted">Registration number {a.registrationNumber}.</p>
+                ) : null}
                 {a.reentryGuidance ? (
                   <p className="mt-2 flex items-start gap-2 rounded-lg bg-sun-tint p-3 font-semibold">
                     <ShieldAlert className="mt-0.5 size-5 shrink-0 text-sun" aria-hidden="true" />
                     {a.reentryGuidance}
                   </p>
                 ) : null}
-                {a.labelCautions ? <p className="mt-2 text-sm">From the label: {a.labelCautions}</p> : null}
+                {a.labelCautions ? (
+                  <p className="mt-2 text-sm">From the label: {a.labelCautions}</p>
+                ) : null}
               </li>
             ))}
           </ul>
         )}
-        <p className="mt-3 text-sm text-muted">The product label is the law: read it before handling any lawn product, and follow local rules on fertiliser and pesticide use.</p>
+        <p className="mt-3 text-sm text-muted">
+          The product label is the law: read it before handling any lawn product, and follow local
+          rules on fertiliser and pesticide use.
+        </p>
       </section>
 
       <section aria-labelledby="notes-title">
@@ -98,16 +123,24 @@ export function VisitReportView({ report }: { report: VisitReport }) {
           Care notes
         </h2>
         {report.careNotes.length === 0 ? (
-          <p className="rounded-lg border border-line bg-card p-4">Nothing to change: keep mowing high and watering deeply when it is dry.</p>
+          <p className="rounded-lg border border-line bg-card p-4">
+            Nothing to change: keep mowing high and watering deeply when it is dry.
+          </p>
         ) : (
           <ul className="space-y-3">
             {report.careNotes.map(({ note, because }) => (
-              <li key={note.key} className="break-inside-avoid rounded-xl border border-line bg-card p-4">
+              <li
+                key={note.key}
+                className="break-inside-avoid rounded-xl border border-line bg-card p-4"
+              >
                 <h3 className="text-lg font-bold">{note.title}</h3>
                 <p className="mt-1 text-sm text-muted">Because we saw: {because.join("; ")}.</p>
                 <p className="mt-2">{note.body}</p>
                 {note.cautions?.map((c) => (
-                  <p key={c} className="mt-2 flex items-start gap-2 rounded-lg bg-sun-tint p-3 text-sm">
+                  <p
+                    key={c}
+                    className="mt-2 flex items-start gap-2 rounded-lg bg-sun-tint p-3 text-sm"
+                  >
                     <ShieldAlert className="mt-0.5 size-5 shrink-0 text-sun" aria-hidden="true" />
                     {c}
                   </p>

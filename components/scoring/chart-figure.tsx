@@ -2,9 +2,26 @@
 // table (for screen readers, print, and anyone who prefers numbers).
 import type { ReactNode } from "react";
 
-export function ChartFigure({ id, title, summary, chart, table, tableCaption }: { id: string; title: string; summary: ReactNode; chart: ReactNode; table: ReactNode; tableCaption: string }) {
+export function ChartFigure({
+  id,
+  title,
+  summary,
+  chart,
+  table,
+  tableCaption,
+}: {
+  id: string;
+  title: string;
+  summary: ReactNode;
+  chart: ReactNode;
+  table: ReactNode;
+  tableCaption: string;
+}) {
   return (
-    <figure aria-labelledby={`${id}-title`} className="rounded-xl border border-line bg-card p-3 sm:p-4">
+    <figure
+      aria-labelledby={`${id}-title`}
+      className="rounded-xl border border-line bg-card p-3 sm:p-4"
+    >
       <figcaption>
         <h3 id={`${id}-title`} className="text-lg font-bold">
           {title}
@@ -15,8 +32,15 @@ export function ChartFigure({ id, title, summary, chart, table, tableCaption }: 
         {chart}
       </div>
       <details className="mt-2">
-        <summary className="min-h-tap cursor-pointer py-2 font-semibold text-sward">Show as a table</summary>
-        <div className="overflow-x-auto" role="region" aria-label={`${tableCaption} (scrolls sideways)`} tabIndex={0}>
+        <summary className="min-h-tap cursor-pointer py-2 font-semibold text-sward">
+          Show as a table
+        </summary>
+        <div
+          className="overflow-x-auto"
+          role="region"
+          aria-label={`${tableCaption} (scrolls sideways)`}
+          tabIndex={0}
+        >
           <table className="w-full text-left text-sm [&_td:first-child]:whitespace-nowrap">
             <caption className="sr-only">{tableCaption}</caption>
             {table}
@@ -32,4 +56,6 @@ export const Th = ({ children }: { children: ReactNode }) => (
     {children}
   </th>
 );
-export const Td = ({ children, className = "" }: { children: ReactNode; className?: string }) => <td className={`border-b border-line p-2 ${className}`}>{children}</td>;
+export const Td = ({ children, className = "" }: { children: ReactNode; className?: string }) => (
+  <td className={`border-b border-line p-2 ${className}`}>{children}</td>
+);

@@ -2,6 +2,7 @@
 import { SimpleTrendChart } from "@/components/charts/simple-trend-chart";
 import { formatDate } from "@/lib/dates";
 import type { PropertyScoreHistory } from "@/lib/scoring/queries";
+
 import { ChartFigure, Td, Th } from "./chart-figure";
 
 const SAYING = {
@@ -12,7 +13,12 @@ const SAYING = {
 
 export function LawnScore({ history }: { history: PropertyScoreHistory }) {
   const latest = history.visits.at(-1);
-  if (!latest) return <p className="mb-6 rounded-lg border border-line bg-card p-4">Your lawn&apos;s health score appears after the first visit.</p>;
+  if (!latest)
+    return (
+      <p className="mb-6 rounded-lg border border-line bg-card p-4">
+        Your lawn&apos;s health score appears after the first visit.
+      </p>
+    );
   const word = history.trend?.word ?? null;
   const change = history.season?.change ?? null;
   return (
@@ -24,16 +30,31 @@ export function LawnScore({ history }: { history: PropertyScoreHistory }) {
         summary={
           <>
             <p>
-              <span className="text-3xl font-bold text-sward">{Math.round(latest.index)}</span> <span className="text-muted">out of 100, at the visit of {formatDate(latest.date)}.</span>
+              <span className="text-3xl font-bold text-sward">{Math.round(latest.index)}</span>{" "}
+              <span className="text-muted">
+                out of 100, at the visit of {formatDate(latest.date)}.
+              </span>
             </p>
             <p>
               {word ? SAYING[word] : "A direction shows after three visits."}
-              {change !== null && history.season ? ` ${change >= 0 ? "Up" : "Down"} ${Math.abs(Math.round(change))} points since ${formatDate(history.season.from.date)}.` : ""}
+              {change !== null && history.season
+                ? ` ${change >= 0 ? "Up" : "Down"} ${Math.abs(Math.round(change))} points since ${formatDate(history.season.from.date)}.`
+                : ""}
             </p>
-            <p className="text-sm text-muted">The score sums up what your technician rated: colour, thickness, evenness, bare patches, weeds and any disease or insect damage.</p>
+            <p className="text-sm text-muted">
+              The score sums up what your technician rated: colour, thickness, evenness, bare
+              patches, weeds and any disease or insect damage.
+            </p>
           </>
         }
-        chart={<SimpleTrendChart label="Lawn health score at each visit" from={history.from} to={history.today} points={history.visits} />}
+        chart={
+          <SimpleTrendChart
+            label="Lawn health score at each visit"
+            from={history.from}
+            to={history.today}
+            points={history.visits}
+          />
+        }
         table={
           <>
             <thead>

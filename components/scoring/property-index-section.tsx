@@ -1,12 +1,14 @@
 // The property's Sward Index through the season, the weather on the same dates, and each zone's
 // latest Index with its trend and how it moved with nitrogen (staff property page).
 import Link from "next/link";
+
 import { IndexChart } from "@/components/charts/index-chart";
 import { WeatherStrip } from "@/components/charts/weather-strip";
 import { formatDate } from "@/lib/dates";
 import { MIN_CHECKS_FOR_CORRELATION } from "@/lib/scoring/history";
 import type { PropertyScoreHistory } from "@/lib/scoring/queries";
 import { coefficient, patternPhrase, seasonSentence, trendSentence } from "@/lib/scoring/words";
+
 import { ChartFigure, Td, Th } from "./chart-figure";
 import { TrendBadge } from "./trend-badge";
 
@@ -15,10 +17,18 @@ const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
 /** The first and last visits with photos, for the before/after markers. */
 export function beforeAfterOf(points: { date: string; hasPhoto: boolean }[]) {
   const withPhotos = points.filter((p) => p.hasPhoto);
-  return withPhotos.length >= 2 ? { before: withPhotos[0]!.date, after: withPhotos.at(-1)!.date } : null;
+  return withPhotos.length >= 2
+    ? { before: withPhotos[0]!.date, after: withPhotos.at(-1)!.date }
+    : null;
 }
 
-export function PropertyIndexSection({ history, zoneHref }: { history: PropertyScoreHistory; zoneHref: (zoneId: string) => string }) {
+export function PropertyIndexSection({
+  history,
+  zoneHref,
+}: {
+  history: PropertyScoreHistory;
+  zoneHref: (zoneId: string) => string;
+}) {
   const { visits, applications, weather, from, today } = history;
   const latest = visits.at(-1);
   const totalN = sum(applications.map((a) => a.nLb));
@@ -27,7 +37,13 @@ export function PropertyIndexSection({ history, zoneHref }: { history: PropertyS
   const weeks: { from: string; to: string; rainIn: number; et0In: number; gddF: number }[] = [];
   for (let i = 0; i < days.length; i += 7) {
     const block = days.slice(i, i + 7);
-    weeks.push({ from: block[0]!.date, to: block.at(-1)!.date, rainIn: sum(block.map((d) => d.rainIn)), et0In: sum(block.map((d) => d.et0In)), gddF: sum(block.map((d) => d.gddF)) });
+    weeks.push({
+      from: block[0]!.date,
+      to: block.at(-1)!.date,
+      rainIn: sum(block.map((d) => d.rainIn)),
+      et0In: sum(block.map((d) => d.et0In)),
+      gddF: sum(block.map((d) => d.gddF)),
+    });
   }
 
   return (
@@ -36,7 +52,9 @@ export function PropertyIndexSection({ history, zoneHref }: { history: PropertyS
         Sward Index
       </h2>
       {visits.length === 0 ? (
-        <p className="rounded-lg border border-line bg-card p-4">No rated checks yet: the Index appears after the first visit.</p>
+        <p className="rounded-lg border border-line bg-card p-4">
+          No rated checks yet: the Index appears after the first visit.
+        </p>
       ) : (
         <>
           <ChartFigure
@@ -46,14 +64,28 @@ export function PropertyIndexSection({ history, zoneHref }: { history: PropertyS
             summary={
               <>
                 <p>
-                  Latest <strong>{Math.round(latest!.index)}</strong> on {formatDate(latest!.date)} ({latest!.zonesChecked} {latest!.zonesChecked === 1 ? "zone" : "zones"} checked, weighted by area). {trendSentence(history.trend)} {seasonSentence(history.season)}
+                  Latest <strong>{Math.round(latest!.index)}</strong> on {formatDate(latest!.date)}{" "}
+                  ({latest!.zonesChecked} {latest!.zonesChecked === 1 ? "zone" : "zones"} checked,
+                  weighted by area). {trendSentence(history.trend)} {seasonSentence(history.season)}
                 </p>
                 <p className="text-sm text-muted">
-                  Dashed lines: nitrogen applied, lb N per 1,000 ft² averaged over the lawn ({applications.length} {applications.length === 1 ? "feeding" : "feedings"}, {totalN.toFixed(2)} in all). Ringed points: visits with photos; “before” and “after” mark the first and latest of them.
+                  Dashed lines: nitrogen applied, lb N per 1,000 ft² averaged over the lawn (
+                  {applications.length} {applications.length === 1 ? "feeding" : "feedings"},{" "}
+                  {totalN.toFixed(2)} in all). Ringed points: visits with photos; “before” and
+                  “after” mark the first and latest of them.
                 </p>
               </>
             }
-            chart={<IndexChart label="Property index over time" from={from} to={today} points={visits} feedings={applications} beforeAfter={beforeAfterOf(visits)} />}
+            chart={
+              <IndexChart
+                label="Property index over time"
+                from={from}
+                to={today}
+                points={visits}
+                feedings={applications}
+                beforeAfter={beforeAfterOf(visits)}
+              />
+            }
             table={
               <>
                 <thead>
@@ -92,13 +124,25 @@ export function PropertyIndexSection({ history, zoneHref }: { history: PropertyS
                 <p>{weather.message ?? "Weather unavailable."}</p>
               ) : (
                 <p>
-                  From {formatDate(days[0]!.date)}: {sum(days.map((d) => d.rainIn)).toFixed(1)} in of rain, {sum(days.map((d) => d.et0In)).toFixed(1)} in of reference ET, {Math.round(sum(days.map((d) => d.gddF))).toLocaleString("en-US")} growing degree days (base 50 °F).
-                  {weather.status === "cached" ? " Showing the weather Sward kept; the service is not answering." : ""}
-                  <span className="block text-sm text-muted">Top: rain (blue bars) and reference ET (brown line), inches per day. Bottom: growing degree days per day.</span>
+                  From {formatDate(days[0]!.date)}: {sum(days.map((d) => d.rainIn)).toFixed(1)} in
+                  of rain, {sum(days.map((d) => d.et0In)).toFixed(1)} in of reference ET,{" "}
+                  {Math.round(sum(days.map((d) => d.gddF))).toLocaleString("en-US")} growing degree
+                  days (base 50 °F).
+                  {weather.status === "cached"
+                    ? " Showing the weather Sward kept; the service is not answering."
+                    : ""}
+                  <span className="block text-sm text-muted">
+                    Top: rain (blue bars) and reference ET (brown line), inches per day. Bottom:
+                    growing degree days per day.
+                  </span>
                 </p>
               )
             }
-            chart={days.length ? <WeatherStrip label="Weather" from={from} to={today} days={days} /> : null}
+            chart={
+              days.length ? (
+                <WeatherStrip label="Weather" from={from} to={today} days={days} />
+              ) : null
+            }
             table={
               <>
                 <thead>
@@ -141,8 +185,18 @@ export function PropertyIndexSection({ history, zoneHref }: { history: PropertyS
               </div>
               <p className="mt-1 flex flex-wrap items-center gap-2">
                 <TrendBadge word={z.trend?.word ?? null} />
-                {z.trend && z.trend.word ? <span className="text-sm text-muted">{z.trend.slopePer30Days >= 0 ? "+" : "−"}{Math.abs(z.trend.slopePer30Days).toFixed(1)} / 30 days</span> : null}
-                {z.season ? <span className="text-sm text-muted">· {z.season.change >= 0 ? "+" : "−"}{Math.abs(Math.round(z.season.change))} this season</span> : null}
+                {z.trend && z.trend.word ? (
+                  <span className="text-sm text-muted">
+                    {z.trend.slopePer30Days >= 0 ? "+" : "−"}
+                    {Math.abs(z.trend.slopePer30Days).toFixed(1)} / 30 days
+                  </span>
+                ) : null}
+                {z.season ? (
+                  <span className="text-sm text-muted">
+                    · {z.season.change >= 0 ? "+" : "−"}
+                    {Math.abs(Math.round(z.season.change))} this season
+                  </span>
+                ) : null}
               </p>
               <p className="mt-2 text-sm">
                 {c.n < MIN_CHECKS_FOR_CORRELATION

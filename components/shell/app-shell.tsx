@@ -1,9 +1,11 @@
 // The signed-in frame: side navigation on a desktop, a bottom bar within thumb reach on a phone.
 import type { LucideIcon } from "lucide-react";
 import type { ReactNode } from "react";
+
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { SwardMark } from "@/components/ui/sward-mark";
 import type { Actor } from "@/lib/auth/actor";
+
 import { NavLink } from "./nav-link";
 
 export interface NavItem {
@@ -12,9 +14,21 @@ export interface NavItem {
   icon: LucideIcon;
 }
 
-const ROLE_LABEL = { manager: "Manager", technician: "Technician", homeowner: "Homeowner" } as const;
+const ROLE_LABEL = {
+  manager: "Manager",
+  technician: "Technician",
+  homeowner: "Homeowner",
+} as const;
 
-export function AppShell({ actor, nav, children }: { actor: Actor; nav: NavItem[]; children: ReactNode }) {
+export function AppShell({
+  actor,
+  nav,
+  children,
+}: {
+  actor: Actor;
+  nav: NavItem[];
+  children: ReactNode;
+}) {
   return (
     <div className="min-h-dvh md:flex">
       <aside className="no-print hidden w-64 shrink-0 flex-col border-r border-line bg-card p-4 md:flex">
@@ -50,12 +64,15 @@ export function AppShell({ actor, nav, children }: { actor: Actor; nav: NavItem[
           </div>
           <SignOutButton compact />
         </header>
-        <main id="main" className="mx-auto w-full max-w-reading flex-1 px-4 pb-28 pt-6 md:px-8 md:pb-10">
+        <main
+          id="main"
+          className="mx-auto w-full max-w-reading flex-1 px-4 pt-6 pb-28 md:px-8 md:pb-10"
+        >
           {children}
         </main>
         <nav
           aria-label="Main"
-          className="no-print fixed inset-x-0 bottom-0 flex gap-0.5 border-t border-line bg-card px-1 pb-[max(0.5rem,env(safe-area-inset-bottom))] pt-2 md:hidden"
+          className="no-print fixed inset-x-0 bottom-0 flex gap-0.5 border-t border-line bg-card px-1 pt-2 pb-[max(0.5rem,env(safe-area-inset-bottom))] md:hidden"
         >
           {nav.map(({ href, label, icon: Icon }) => (
             <NavLink key={href} href={href} variant="bar">

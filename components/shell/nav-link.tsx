@@ -1,11 +1,20 @@
 "use client";
+
 // A navigation link that marks the current page for sighted and screen-reader users.
 import clsx from "clsx";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import type { ReactNode } from "react";
 
-export function NavLink({ href, children, variant }: { href: string; children: ReactNode; variant: "side" | "bar" }) {
+export function NavLink({
+  href,
+  children,
+  variant,
+}: {
+  href: string;
+  children: ReactNode;
+  variant: "side" | "bar";
+}) {
   const pathname = usePathname();
   const isCurrent = pathname === href || pathname.startsWith(`${href}/`);
   return (
@@ -14,7 +23,9 @@ export function NavLink({ href, children, variant }: { href: string; children: R
       aria-current={isCurrent ? "page" : undefined}
       className={clsx(
         "flex min-h-tap items-center gap-2 rounded-lg font-semibold no-underline",
-        variant === "side" ? "px-3 py-2" : "min-w-0 flex-1 basis-0 flex-col justify-center gap-0.5 px-0.5 py-1 text-center text-xs leading-tight",
+        variant === "side"
+          ? "px-3 py-2"
+          : "min-w-0 flex-1 basis-0 flex-col justify-center gap-0.5 px-0.5 py-1 text-center text-xs leading-tight",
         isCurrent ? "bg-sward-tint text-sward-deep" : "text-ink hover:bg-sward-tint",
       )}
     >

@@ -18,6 +18,10 @@ export function buttonClass(variant: Variant = "primary", className?: string): s
   );
 }
 
-export function Button({ variant = "primary", className, ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+export function Button({
+  variant = "primary",
+  className,
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
   return <button className={buttonClass(variant, className)} {...props} />;
 }

@@ -1,4 +1,5 @@
 "use client";
+
 // A row of large radio-like buttons (one choice, or none). Keyboard: arrows move, space picks.
 import clsx from "clsx";
 
@@ -26,7 +27,13 @@ export function ChoiceGroup<T extends string | number>({
   describedBy?: string;
 }) {
   return (
-    <div role="radiogroup" aria-label={label} aria-describedby={describedBy} className="grid gap-2" style={{ gridTemplateColumns: `repeat(${columns ?? choices.length}, minmax(0, 1fr))` }}>
+    <div
+      role="radiogroup"
+      aria-label={label}
+      aria-describedby={describedBy}
+      className="grid gap-2"
+      style={{ gridTemplateColumns: `repeat(${columns ?? choices.length}, minmax(0, 1fr))` }}
+    >
       {choices.map((choice) => {
         const isChecked = choice.value === value;
         return (

@@ -1,9 +1,22 @@
 // A labelled form field with its hint and error, and the input styles every form uses.
 import type { ReactNode } from "react";
 
-export const inputClass = "block w-full min-h-tap rounded-lg border border-line bg-card px-3 py-2 text-base text-ink aria-[invalid=true]:border-clay";
+export const inputClass =
+  "block w-full min-h-tap rounded-lg border border-line bg-card px-3 py-2 text-base text-ink aria-[invalid=true]:border-clay";
 
-export function Field({ id, label, hint, error, children }: { id: string; label: string; hint?: string; error?: string; children: ReactNode }) {
+export function Field({
+  id,
+  label,
+  hint,
+  error,
+  children,
+}: {
+  id: string;
+  label: string;
+  hint?: string;
+  error?: string;
+  children: ReactNode;
+}) {
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block font-semibold">
@@ -25,8 +38,12 @@ export function Field({ id, label, hint, error, children }: { id: string; label:
 }
 
 /** Applies a route's 422 field errors to a react-hook-form form. */
-export function applyFieldErrors(fieldErrors: Record<string, string[]> | undefined, setError: (name: never, error: { message: string }) => void): void {
-  for (const [name, messages] of Object.entries(fieldErrors ?? {})) if (messages[0]) setError(name as never, { message: messages[0] });
+export function applyFieldErrors(
+  fieldErrors: Record<string, string[]> | undefined,
+  setError: (name: never, error: { message: string }) => void,
+): void {
+  for (const [name, messages] of Object.entries(fieldErrors ?? {}))
+    if (messages[0]) setError(name as never, { message: messages[0] });
 }
 
 /** For react-hook-form selects whose empty choice means "none": "" becomes null. */

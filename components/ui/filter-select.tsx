@@ -1,7 +1,19 @@
 // A labelled select of a GET filter form (its value lives in the URL); "any" is the empty value.
 import { inputClass } from "./field";
 
-export function FilterSelect({ name, label, value, any, options }: { name: string; label: string; value: string | undefined; any?: string; options: readonly (readonly [string, string])[] }) {
+export function FilterSelect({
+  name,
+  label,
+  value,
+  any,
+  options,
+}: {
+  name: string;
+  label: string;
+  value: string | undefined;
+  any?: string;
+  options: readonly (readonly [string, string])[];
+}) {
   return (
     <label className="space-y-1">
       <span className="block text-sm font-semibold">{label}</span>

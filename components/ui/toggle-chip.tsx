@@ -1,9 +1,18 @@
 "use client";
+
 // An on/off observation as a large pressed/unpressed button.
 import clsx from "clsx";
 import { Check } from "lucide-react";
 
-export function ToggleChip({ label, isOn, onChange }: { label: string; isOn: boolean; onChange: (isOn: boolean) => void }) {
+export function ToggleChip({
+  label,
+  isOn,
+  onChange,
+}: {
+  label: string;
+  isOn: boolean;
+  onChange: (isOn: boolean) => void;
+}) {
   return (
     <button
       type="button"
@@ -14,7 +23,13 @@ export function ToggleChip({ label, isOn, onChange }: { label: string; isOn: boo
         isOn ? "border-sun bg-sun-tint text-ink" : "border-line bg-card text-ink",
       )}
     >
-      <span className={clsx("grid size-6 place-items-center rounded border-2", isOn ? "border-sun bg-sun text-white" : "border-line")} aria-hidden="true">
+      <span
+        className={clsx(
+          "grid size-6 place-items-center rounded border-2",
+          isOn ? "border-sun bg-sun text-white" : "border-line",
+        )}
+        aria-hidden="true"
+      >
         {isOn ? <Check className="size-4" /> : null}
       </span>
       {label}

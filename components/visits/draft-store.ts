@@ -34,7 +34,9 @@ export function writeDraft(visitId: string, zoneId: string, draft: DeviceDraft):
 export function clearVisitDrafts(visitId: string): void {
   try {
     const prefix = `sward:zone-check:${visitId}:`;
-    const keys = Array.from({ length: window.localStorage.length }, (_, i) => window.localStorage.key(i)).filter((k): k is string => k?.startsWith(prefix) ?? false);
+    const keys = Array.from({ length: window.localStorage.length }, (_, i) =>
+      window.localStorage.key(i),
+    ).filter((k): k is string => k?.startsWith(prefix) ?? false);
     for (const k of keys) window.localStorage.removeItem(k);
   } catch {
     /* nothing to clear */

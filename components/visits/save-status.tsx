@@ -1,9 +1,19 @@
 "use client";
+
 // Where the zone check stands with the server, in words and an icon (never colour alone).
-import { CircleAlert, CloudOff, CloudUpload, Lock, RefreshCw, CheckCircle2 } from "lucide-react";
+import { CheckCircle2, CircleAlert, CloudOff, CloudUpload, Lock, RefreshCw } from "lucide-react";
+
 import type { SaveState } from "./zone-check-autosave";
 
-export function SaveStatus({ state, onRetry, timeZone }: { state: SaveState; onRetry: () => void; timeZone: string }) {
+export function SaveStatus({
+  state,
+  onRetry,
+  timeZone,
+}: {
+  state: SaveState;
+  onRetry: () => void;
+  timeZone: string;
+}) {
   const base = "flex items-center gap-2 rounded-lg px-3 py-1.5 text-sm font-semibold";
   switch (state.kind) {
     case "idle":
@@ -20,7 +30,12 @@ export function SaveStatus({ state, onRetry, timeZone }: { state: SaveState; onR
       return (
         <p className={`${base} bg-sward-tint text-sward-deep`} role="status">
           <CheckCircle2 className="size-5" aria-hidden="true" />
-          Saved {new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(new Date(state.at))}
+          Saved{" "}
+          {new Intl.DateTimeFormat("en-US", {
+            hour: "numeric",
+            minute: "2-digit",
+            timeZone,
+          }).format(new Date(state.at))}
         </p>
       );
     case "retrying":
@@ -30,7 +45,11 @@ export function SaveStatus({ state, onRetry, timeZone }: { state: SaveState; onR
           <span className="flex-1">
             Not saved yet — {state.message} Kept on this phone; trying again in {state.inSeconds} s.
           </span>
-          <button type="button" onClick={onRetry} className="inline-flex min-h-tap items-center gap-1 underline">
+          <button
+            type="button"
+            onClick={onRetry}
+            className="inline-flex min-h-tap items-center gap-1 underline"
+          >
             <RefreshCw className="size-4" aria-hidden="true" />
             Retry now
           </button>

@@ -1,4 +1,5 @@
 "use client";
+
 // The manager schedules a visit: property, date, technician, planned service. The visit id is
 // chosen here, so a double click or a retry after a timeout creates one visit, never two.
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -7,20 +8,29 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { PLANNED_SERVICES } from "@/fixtures/visit-options";
+
 import { Button } from "@/components/ui/button";
-import { Field, applyFieldErrors, inputClass, nullIfEmpty } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
+import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertySummaryDto } from "@/lib/properties/dto";
+import { sendJson } from "@/lib/query-client";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { scheduleVisitSchema } from "@/lib/visits/schemas";
-import { sendJson } from "@/lib/query-client";
 
 type FormIn = z.input<typeof scheduleVisitSchema>;
 type FormOut = z.output<typeof scheduleVisitSchema>;
 
-export function ScheduleVisitForm({ properties, technicians, defaultDate }: { properties: PropertySummaryDto[]; technicians: PersonDto[]; defaultDate: string }) {
+export function ScheduleVisitForm({
+  properties,
+  technicians,
+  defaultDate,
+}: {
+  properties: PropertySummaryDto[];
+  technicians: PersonDto[];
+  defaultDate: string;
+}) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
@@ -34,28 +44,58 @@ export function ScheduleVisitForm({ properties, technicians, defaultDate }: { pr
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
     resolver: zodResolver(scheduleVisitSchema),
-    defaultValues: { scheduledFor: defaultDate, plannedService: "feeding_round", technicianId: null, stopOrder: 0, notes: "" },
+    defaultValues: {
+      scheduledFor: defaultDate,
+      plannedService: "feeding_round",
+      technicianId: null,
+      stopOrder: 0,
+      notes: "",
+    },
   });
 
   async function onSubmit(values: FormOut) {
     setMessage(null);
-    const result = await sendJson<VisitDetailDto>("POST", "/api/v1/visits", { ...values, id: visitId });
+    const result = await sendJson<VisitDetailDto>("POST", "/api/v1/visits", {
+      ...values,
+      id: visitId,
+    });
     if (!result.ok) {
       applyFieldErrors(result.error.fieldErrors, setError as never);
       return setMessage({ tone: "error", text: result.error.message });
     }
-    setMessage({ tone: "ok", text: `Scheduled: ${result.data.propertyName} on ${result.data.scheduledFor}.` });
+    setMessage({
+      tone: "ok",
+      text: `Scheduled: ${result.data.propertyName} on ${result.data.scheduledFor}.`,
+    });
     setVisitId(crypto.randomUUID());
-    reset({ scheduledFor: values.scheduledFor, plannedService: values.plannedService, technicianId: null, stopOrder: 0, notes: "" });
+    reset({
+      scheduledFor: values.scheduledFor,
+      plannedService: values.plannedService,
+      technicianId: null,
+      stopOrder: 0,
+      notes: "",
+    });
     void queryClient.invalidateQueries({ queryKey: visitKeys.all });
     router.refresh();
   }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4 rounded-xl border border-line bg-card p-4" noValidate aria-label="Schedule a visit">
+    <form
+      onSubmit={handleSubmit(onSubmit)}
+      className="space-y-4 rounded-xl border border-line bg-card p-4"
+      noValidate
+      aria-label="Schedule a visit"
+    >
       <h2 className="text-xl font-bold">Schedule a visit</h2>
       {message ? (
-        <p role={message.tone === "error" ? "alert" : "status"} className={message.tone === "error" ? "rounded-lg bg-clay-tint p-3 text-clay" : "rounded-lg bg-sward-tint p-3 text-sward-deep"}>
+        <p
+          role={message.tone === "error" ? "alert" : "status"}
+          className={
+            message.tone === "error"
+              ? "rounded-lg bg-clay-tint p-3 text-clay"
+              : "rounded-lg bg-sward-tint p-3 text-sward-deep"
+          }
+        >
           {message.text}
         </p>
       ) : null}
@@ -87,12 +127,24 @@ export function ScheduleVisitForm({ properties, technicians, defaultDate }: { pr
           <input id="sv-date" type="date" {...register("scheduledFor")} className={inputClass} />
         </Field>
         <Field id="sv-order" label="Stop number in the day" error={errors.stopOrder?.message}>
-          <input id="sv-order" type="number" min={0} max={1000} inputMode="numeric" {...register("stopOrder", { valueAsNumber: true })} className={inputClass} />
+          <input
+            id="sv-order"
+            type="number"
+            min={0}
+            max={1000}
+            inputMode="numeric"
+            {...register("stopOrder", { valueAsNumber: true })}
+            className={inputClass}
+          />
         </Field>
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
         <Field id="sv-tech" label="Technician" error={errors.technicianId?.message}>
-          <select id="sv-tech" {...register("technicianId", { setValueAs: nullIfEmpty })} className={inputClass}>
+          <select
+            id="sv-tech"
+            {...register("technicianId", { setValueAs: nullIfEmpty })}
+            className={inputClass}
+          >
             <option value="">Not assigned yet</option>
             {technicians.map((t) => (
               <option key={t.id} value={t.id}>

@@ -1,6 +1,7 @@
 // Visit and zone-check status in words with an icon.
 import clsx from "clsx";
 import { Ban, CheckCircle2, CircleDashed, Clock, PencilLine, XCircle } from "lucide-react";
+
 import type { VisitStatus, ZoneCheckStatus } from "@/db/schema";
 
 const VISIT = {
@@ -19,12 +20,21 @@ const ZONE = {
 
 function Badge({ label, icon: Icon, tone }: { label: string; icon: typeof Clock; tone: string }) {
   return (
-    <span className={clsx("inline-flex items-center gap-1 whitespace-nowrap rounded-full px-2.5 py-1 text-sm font-semibold", tone)}>
+    <span
+      className={clsx(
+        "inline-flex items-center gap-1 rounded-full px-2.5 py-1 text-sm font-semibold whitespace-nowrap",
+        tone,
+      )}
+    >
       <Icon className="size-4" aria-hidden="true" />
       {label}
     </span>
   );
 }
 
-export const VisitStatusBadge = ({ status }: { status: VisitStatus }) => <Badge {...VISIT[status]} />;
-export const ZoneStatusBadge = ({ status }: { status: ZoneCheckStatus | null }) => <Badge {...ZONE[status ?? "none"]} />;
+export const VisitStatusBadge = ({ status }: { status: VisitStatus }) => (
+  <Badge {...VISIT[status]} />
+);
+export const ZoneStatusBadge = ({ status }: { status: ZoneCheckStatus | null }) => (
+  <Badge {...ZONE[status ?? "none"]} />
+);

@@ -1,11 +1,13 @@
 "use client";
+
 // Symptoms from the catalogue: tap to add, then severity 1–3 and extent (% of zone).
 import { Plus, X } from "lucide-react";
 import { useState } from "react";
-import type { ObservedSymptom } from "@/db/schema";
-import { SYMPTOM_KIND_LABEL, type SymptomKind, findSymptom, symptoms } from "@/fixtures/symptoms";
+
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Stepper } from "@/components/ui/stepper";
+import type { ObservedSymptom } from "@/db/schema";
+import { findSymptom, SYMPTOM_KIND_LABEL, symptoms, type SymptomKind } from "@/fixtures/symptoms";
 
 const SEVERITY = [
   { value: 1, label: "1 light" },
@@ -13,10 +15,19 @@ const SEVERITY = [
   { value: 3, label: "3 severe" },
 ];
 
-export function SymptomPicker({ value, onChange, disabled }: { value: ObservedSymptom[]; onChange: (next: ObservedSymptom[]) => void; disabled: boolean }) {
+export function SymptomPicker({
+  value,
+  onChange,
+  disabled,
+}: {
+  value: ObservedSymptom[];
+  onChange: (next: ObservedSymptom[]) => void;
+  disabled: boolean;
+}) {
   const [isOpen, setIsOpen] = useState(false);
   const chosen = new Set(value.map((s) => s.key));
-  const update = (key: string, patch: Partial<ObservedSymptom>) => onChange(value.map((s) => (s.key === key ? { ...s, ...patch } : s)));
+  const update = (key: string, patch: Partial<ObservedSymptom>) =>
+    onChange(value.map((s) => (s.key === key ? { ...s, ...patch } : s)));
 
   return (
     <div className="space-y-3">
@@ -29,14 +40,35 @@ export function SymptomPicker({ value, onChange, disabled }: { value: ObservedSy
                 <p className="font-bold">{findSymptom(s.key)?.name ?? s.key}</p>
                 <p className="text-sm">{findSymptom(s.key)?.signs}</p>
               </div>
-              <button type="button" disabled={disabled} onClick={() => onChange(value.filter((x) => x.key !== s.key))} className="grid size-11 shrink-0 place-items-center rounded-lg border border-line bg-card" aria-label={`Remove ${findSymptom(s.key)?.name ?? s.key}`}>
+              <button
+                type="button"
+                disabled={disabled}
+                onClick={() => onChange(value.filter((x) => x.key !== s.key))}
+                className="grid size-11 shrink-0 place-items-center rounded-lg border border-line bg-card"
+                aria-label={`Remove ${findSymptom(s.key)?.name ?? s.key}`}
+              >
                 <X className="size-5" aria-hidden="true" />
               </button>
             </div>
-            <ChoiceGroup label="Severity" choices={SEVERITY} value={s.severity} allowClear={false} onChange={(v) => v && update(s.key, { severity: v as 1 | 2 | 3 })} />
+            <ChoiceGroup
+              label="Severity"
+              choices={SEVERITY}
+              value={s.severity}
+              allowClear={false}
+              onChange={(v) => v && update(s.key, { severity: v as 1 | 2 | 3 })}
+            />
             <div>
               <p className="mb-1 text-sm font-semibold">Extent (share of the zone)</p>
-              <Stepper label="Extent" value={s.extentPct} onChange={(v) => update(s.key, { extentPct: v ?? 0 })} step={5} min={0} max={100} startAt={5} unit="%" />
+              <Stepper
+                label="Extent"
+                value={s.extentPct}
+                onChange={(v) => update(s.key, { extentPct: v ?? 0 })}
+                step={5}
+                min={0}
+                max={100}
+                startAt={5}
+                unit="%"
+              />
             </div>
           </li>
         ))}
@@ -66,12 +98,21 @@ export function SymptomPicker({ value, onChange, disabled }: { value: ObservedSy
               </div>
             </div>
           ))}
-          <button type="button" onClick={() => setIsOpen(false)} className="min-h-tap font-semibold underline">
+          <button
+            type="button"
+            onClick={() => setIsOpen(false)}
+            className="min-h-tap font-semibold underline"
+          >
             Close the list
           </button>
         </div>
       ) : (
-        <button type="button" disabled={disabled} onClick={() => setIsOpen(true)} className="inline-flex min-h-tap items-center gap-2 rounded-lg border-2 border-dashed border-line bg-card px-4 py-2 font-semibold">
+        <button
+          type="button"
+          disabled={disabled}
+          onClick={() => setIsOpen(true)}
+          className="inline-flex min-h-tap items-center gap-2 rounded-lg border-2 border-dashed border-line bg-card px-4 py-2 font-semibold"
+        >
           <Plus className="size-5" aria-hidden="true" />
           Add a symptom
         </button>

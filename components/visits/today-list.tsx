@@ -1,23 +1,37 @@
 "use client";
+
 // The technician's stops for a day, in order, with the last visit and what it found.
 import { useQuery } from "@tanstack/react-query";
 import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
+
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { formatDate } from "@/lib/dates";
+import { fetchJson } from "@/lib/query-client";
 import type { TodayStopDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
-import { fetchJson } from "@/lib/query-client";
+
 import { VisitStatusBadge } from "./status-badge";
 
 export function TodayList({ date }: { date: string }) {
   const { data, error, isPending } = useQuery({
     queryKey: visitKeys.today(date),
-    queryFn: async () => (await fetchJson<{ items: TodayStopDto[] }>(`/api/v1/today?date=${date}`)).items,
+    queryFn: async () =>
+      (await fetchJson<{ items: TodayStopDto[] }>(`/api/v1/today?date=${date}`)).items,
   });
   if (isPending) return <p className="text-muted">Loading your stops…</p>;
-  if (error) return <p role="alert" className="rounded-lg border border-clay bg-clay-tint p-3 text-clay">Your stops could not be loaded: {error.message}</p>;
-  if (data.length === 0) return <p className="rounded-lg border border-line bg-card p-4">No stops scheduled for {formatDate(date)}.</p>;
+  if (error)
+    return (
+      <p role="alert" className="rounded-lg border border-clay bg-clay-tint p-3 text-clay">
+        Your stops could not be loaded: {error.message}
+      </p>
+    );
+  if (data.length === 0)
+    return (
+      <p className="rounded-lg border border-line bg-card p-4">
+        No stops scheduled for {formatDate(date)}.
+      </p>
+    );
 
   const done = data.filter((s) => s.status === "completed").length;
   return (
@@ -28,9 +42,15 @@ export function TodayList({ date }: { date: string }) {
       <ol className="space-y-3" aria-label="Stops">
         {data.map((stop, index) => (
           <li key={stop.id}>
-            <Link href={`/visits/${stop.id}`} className="block rounded-xl border border-line bg-card p-4 no-underline shadow-sm hover:border-sward">
+            <Link
+              href={`/visits/${stop.id}`}
+              className="block rounded-xl border border-line bg-card p-4 no-underline shadow-sm hover:border-sward"
+            >
               <div className="flex items-start gap-3">
-                <span className="grid size-10 shrink-0 place-items-center rounded-full bg-sward text-lg font-bold text-white" aria-label={`Stop ${index + 1}`}>
+                <span
+                  className="grid size-10 shrink-0 place-items-center rounded-full bg-sward text-lg font-bold text-white"
+                  aria-label={`Stop ${index + 1}`}
+                >
                   {index + 1}
                 </span>
                 <div className="min-w-0 flex-1">
@@ -43,7 +63,8 @@ export function TodayList({ date }: { date: string }) {
                     {stop.address}
                   </p>
                   <p className="mt-1 text-ink">
-                    {PLANNED_SERVICES[stop.plannedService]} · {stop.zoneCount} zones · last visit {stop.lastVisitOn ? formatDate(stop.lastVisitOn) : "none yet"}
+                    {PLANNED_SERVICES[stop.plannedService]} · {stop.zoneCount} zones · last visit{" "}
+                    {stop.lastVisitOn ? formatDate(stop.lastVisitOn) : "none yet"}
                   </p>
                   {stop.concerns.length ? (
                     <div className="mt-3 rounded-lg bg-sun-tint p-3">
@@ -55,7 +76,9 @@ export function TodayList({ date }: { date: string }) {
                         {stop.concerns.slice(0, 5).map((c) => (
                           <li key={c}>{c}</li>
                         ))}
-                        {stop.concerns.length > 5 ? <li>and {stop.concerns.length - 5} more</li> : null}
+                        {stop.concerns.length > 5 ? (
+                          <li>and {stop.concerns.length - 5} more</li>
+                        ) : null}
                       </ul>
                     </div>
                   ) : null}

@@ -1,12 +1,21 @@
 "use client";
+
 // React binding of ZoneCheckAutosave: one store per zone check, browser storage and fetch.
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
-import type { ZoneCheckDto } from "@/lib/visits/dto";
+
 import { sendJson } from "@/lib/query-client";
+import type { ZoneCheckDto } from "@/lib/visits/dto";
+
 import { readDraft, writeDraft } from "./draft-store";
 import { ZoneCheckAutosave } from "./zone-check-autosave";
 
-export function useZoneCheckAutosave(visitId: string, zoneId: string, serverCheck: ZoneCheckDto | undefined, canEdit: boolean, onSaved: (check: ZoneCheckDto) => void) {
+export function useZoneCheckAutosave(
+  visitId: string,
+  zoneId: string,
+  serverCheck: ZoneCheckDto | undefined,
+  canEdit: boolean,
+  onSaved: (check: ZoneCheckDto) => void,
+) {
   const onSavedRef = useRef(onSaved);
   useEffect(() => {
     onSavedRef.current = onSaved;
@@ -15,7 +24,10 @@ export function useZoneCheckAutosave(visitId: string, zoneId: string, serverChec
     () =>
       new ZoneCheckAutosave(visitId, zoneId, serverCheck, canEdit, {
         send: (url, body, keepalive) => sendJson<ZoneCheckDto>("PUT", url, body, { keepalive }),
-        storage: { read: () => readDraft(visitId, zoneId), write: (d) => writeDraft(visitId, zoneId, d) },
+        storage: {
+          read: () => readDraft(visitId, zoneId),
+          write: (d) => writeDraft(visitId, zoneId, d),
+        },
         newId: () => crypto.randomUUID(),
         setTimer: (fn, ms) => setTimeout(fn, ms),
         clearTimer: (handle) => clearTimeout(handle as ReturnType<typeof setTimeout>),

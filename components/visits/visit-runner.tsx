@@ -1,18 +1,21 @@
 "use client";
+
 // Running a visit on a phone: start it, go zone by zone, finish. The zone in progress is kept in
 // the URL (?zone=…) so a reload lands on the same zone with its draft.
 import { useQueryClient } from "@tanstack/react-query";
 import { ArrowLeft, ArrowRight, CheckCheck, MapPin, Play } from "lucide-react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { type ReactNode, useState } from "react";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { PLANNED_SERVICES } from "@/fixtures/visit-options";
+import { useState, type ReactNode } from "react";
+
 import { Button } from "@/components/ui/button";
 import { formatAreaFt2 } from "@/components/ui/format";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { formatDate } from "@/lib/dates";
+import { sendJson } from "@/lib/query-client";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
-import { sendJson } from "@/lib/query-client";
+
 import { clearVisitDrafts } from "./draft-store";
 import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
 import { useMergeApplication, useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
@@ -23,14 +26,26 @@ function currentPosition(): Promise<{ latitude: number | null; longitude: number
   return new Promise((resolve) => {
     if (!("geolocation" in navigator)) return resolve({ latitude: null, longitude: null });
     navigator.geolocation.getCurrentPosition(
-      (p) => resolve({ latitude: Number(p.coords.latitude.toFixed(5)), longitude: Number(p.coords.longitude.toFixed(5)) }),
+      (p) =>
+        resolve({
+          latitude: Number(p.coords.latitude.toFixed(5)),
+          longitude: Number(p.coords.longitude.toFixed(5)),
+        }),
       () => resolve({ latitude: null, longitude: null }),
       { timeout: 8000, maximumAge: 60_000 },
     );
   });
 }
 
-export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; isManager: boolean; alerts?: ReactNode }) {
+export function VisitRunner({
+  visitId,
+  isManager,
+  alerts,
+}: {
+  visitId: string;
+  isManager: boolean;
+  alerts?: ReactNode;
+}) {
   const { data: visit } = useVisit(visitId);
   const mergeCheck = useMergeZoneCheck(visitId);
   const mergePhoto = useMergePhoto(visitId);
@@ -46,14 +61,20 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
   const zoneId = searchParams.get("zone");
   const zone = visit.zones.find((z) => z.id === zoneId);
   const checkOf = (id: string) => visit.checks.find((c) => c.zoneId === id);
-  const openZone = (id: string | null) => router.replace(id ? `${pathname}?zone=${id}` : pathname, { scroll: true });
+  const openZone = (id: string | null) =>
+    router.replace(id ? `${pathname}?zone=${id}` : pathname, { scroll: true });
   const remaining = visit.zones.filter((z) => !checkOf(z.id) || checkOf(z.id)?.status === "draft");
-  const setVisit = (next: VisitDetailDto) => queryClient.setQueryData(visitKeys.detail(visitId), next);
+  const setVisit = (next: VisitDetailDto) =>
+    queryClient.setQueryData(visitKeys.detail(visitId), next);
 
   async function start() {
     setIsBusy(true);
     setMessage(null);
-    const result = await sendJson<VisitDetailDto>("POST", `/api/v1/visits/${visitId}/start`, await currentPosition());
+    const result = await sendJson<VisitDetailDto>(
+      "POST",
+      `/api/v1/visits/${visitId}/start`,
+      await currentPosition(),
+    );
     setIsBusy(false);
     if (result.ok) {
       setVisit(result.data);
@@ -86,14 +107,19 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
         {visit.address}
       </p>
       <p>
-        {PLANNED_SERVICES[visit.plannedService]} · {formatDate(visit.scheduledFor)} · {visit.technician?.name ?? "no technician"}
+        {PLANNED_SERVICES[visit.plannedService]} · {formatDate(visit.scheduledFor)} ·{" "}
+        {visit.technician?.name ?? "no technician"}
       </p>
       {visit.weather?.status === "ok" ? (
         <p className="text-sm text-ink">
-          Weather: {Math.round(visit.weather.tmaxF)}/{Math.round(visit.weather.tminF)} °F · humidity {visit.weather.rhMinPct ?? "—"}–{visit.weather.rhMaxPct ?? "—"} % · wind {visit.weather.windMph ?? "—"} mph · rain {visit.weather.precipIn.toFixed(2)} in
+          Weather: {Math.round(visit.weather.tmaxF)}/{Math.round(visit.weather.tminF)} °F · humidity{" "}
+          {visit.weather.rhMinPct ?? "—"}–{visit.weather.rhMaxPct ?? "—"} % · wind{" "}
+          {visit.weather.windMph ?? "—"} mph · rain {visit.weather.precipIn.toFixed(2)} in
         </p>
       ) : visit.weather?.status === "unavailable" ? (
-        <p className="text-sm text-muted">Weather unavailable for now; it is added when the service answers.</p>
+        <p className="text-sm text-muted">
+          Weather unavailable for now; it is added when the service answers.
+        </p>
       ) : null}
     </header>
   );
@@ -103,7 +129,11 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
       <>
         {header}
         {alerts}
-        <VisitSummary visit={visit} isManager={isManager} onEditZone={isManager ? openZone : undefined} />
+        <VisitSummary
+          visit={visit}
+          isManager={isManager}
+          onEditZone={isManager ? openZone : undefined}
+        />
       </>
     );
   }
@@ -114,7 +144,11 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
     const species = findGrassSpecies(zone.grassSpecies.key);
     return (
       <>
-        <button type="button" onClick={() => openZone(null)} className="mb-3 inline-flex min-h-tap items-center gap-1 font-semibold text-sward">
+        <button
+          type="button"
+          onClick={() => openZone(null)}
+          className="mb-3 inline-flex min-h-tap items-center gap-1 font-semibold text-sward"
+        >
           <ArrowLeft className="size-5" aria-hidden="true" />
           {visit.propertyName}: all zones
         </button>
@@ -131,7 +165,9 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
           </p>
         </header>
         {visit.status === "completed" ? (
-          <p className="mb-4 rounded-lg bg-sun-tint p-3">This visit is finished. Your changes are recorded in its audit trail.</p>
+          <p className="mb-4 rounded-lg bg-sun-tint p-3">
+            This visit is finished. Your changes are recorded in its audit trail.
+          </p>
         ) : null}
         <ZoneCheckForm
           key={zone.id}
@@ -150,10 +186,19 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
           weather={visit.weather?.status === "ok" ? visit.weather : null}
           footer={
             <div className="flex gap-2">
-              <Button type="button" variant="secondary" className="flex-1" onClick={() => openZone(null)}>
+              <Button
+                type="button"
+                variant="secondary"
+                className="flex-1"
+                onClick={() => openZone(null)}
+              >
                 All zones
               </Button>
-              <Button type="button" className="flex-1" onClick={() => openZone(next ? next.id : null)}>
+              <Button
+                type="button"
+                className="flex-1"
+                onClick={() => openZone(next ? next.id : null)}
+              >
                 {next ? `Next: ${next.name}` : "Review and finish"}
                 <ArrowRight className="size-5" aria-hidden="true" />
               </Button>
@@ -167,7 +212,9 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
   return (
     <>
       {header}
-      {visit.notes ? <p className="mb-4 rounded-lg border border-line bg-card p-3">Office note: {visit.notes}</p> : null}
+      {visit.notes ? (
+        <p className="mb-4 rounded-lg border border-line bg-card p-3">Office note: {visit.notes}</p>
+      ) : null}
       <h2 className="mb-2 text-xl font-bold">Zones</h2>
       <ul className="space-y-2" aria-label="Zones of this visit">
         {visit.zones.map((z) => (
@@ -202,9 +249,18 @@ export function VisitRunner({ visitId, isManager, alerts }: { visitId: string; i
               {isBusy ? "Starting…" : "Start visit"}
             </Button>
           ) : (
-            <Button type="button" className="w-full text-lg" onClick={finish} disabled={isBusy || remaining.length > 0}>
+            <Button
+              type="button"
+              className="w-full text-lg"
+              onClick={finish}
+              disabled={isBusy || remaining.length > 0}
+            >
               <CheckCheck className="size-5" aria-hidden="true" />
-              {remaining.length > 0 ? `Finish visit (${visit.zones.length - remaining.length} of ${visit.zones.length} zones done)` : isBusy ? "Finishing…" : "Finish visit"}
+              {remaining.length > 0
+                ? `Finish visit (${visit.zones.length - remaining.length} of ${visit.zones.length} zones done)`
+                : isBusy
+                  ? "Finishing…"
+                  : "Finish visit"}
             </Button>
           )}
         </div>

@@ -1,16 +1,24 @@
 "use client";
+
 // A finished visit: what each zone check recorded, in words; for managers, corrections and
 // the audit trail of who changed what after the visit was finished.
 import { useQuery } from "@tanstack/react-query";
 import { History, PencilLine } from "lucide-react";
-import { findSymptom } from "@/fixtures/symptoms";
-import { MOWING_DIRECTION, RATING_FIELDS, SKIP_REASONS, SOIL_MOISTURE } from "@/fixtures/visit-options";
+
+import { PhotoFigure } from "@/components/photos/photo-figure";
 import { Button } from "@/components/ui/button";
+import { findSymptom } from "@/fixtures/symptoms";
+import {
+  MOWING_DIRECTION,
+  RATING_FIELDS,
+  SKIP_REASONS,
+  SOIL_MOISTURE,
+} from "@/fixtures/visit-options";
 import { formatTime } from "@/lib/dates";
+import { fetchJson } from "@/lib/query-client";
 import type { AuditEventDto, VisitDetailDto, ZoneCheckDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
-import { fetchJson } from "@/lib/query-client";
-import { PhotoFigure } from "@/components/photos/photo-figure";
+
 import { ZoneStatusBadge } from "./status-badge";
 
 const SEVERITY = { 1: "light", 2: "moderate", 3: "severe" } as const;
@@ -24,15 +32,22 @@ function Facts({ check }: { check: ZoneCheckDto }) {
       </p>
     );
   }
-  const signs = [check.isMatted && "lay-over / matting", check.isScalped && "scalping", check.hasTornTips && "torn leaf tips", check.hasClumpedClippings && "clumped clippings"].filter(Boolean);
+  const signs = [
+    check.isMatted && "lay-over / matting",
+    check.isScalped && "scalping",
+    check.hasTornTips && "torn leaf tips",
+    check.hasClumpedClippings && "clumped clippings",
+  ].filter(Boolean);
   return (
     <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4">
-      {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(([field, label]) => (
-        <div key={field}>
-          <dt className="text-muted">{label}</dt>
-          <dd className="text-base font-bold">{check[field] ?? "—"} of 9</dd>
-        </div>
-      ))}
+      {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(
+        ([field, label]) => (
+          <div key={field}>
+            <dt className="text-muted">{label}</dt>
+            <dd className="text-base font-bold">{check[field] ?? "—"} of 9</dd>
+          </div>
+        ),
+      )}
       <div>
         <dt className="text-muted">Bare / weeds</dt>
         <dd className="font-semibold">
@@ -41,7 +56,9 @@ function Facts({ check }: { check: ZoneCheckDto }) {
       </div>
       <div>
         <dt className="text-muted">Thatch</dt>
-        <dd className="font-semibold">{check.thatchIn === null ? "—" : `${check.thatchIn.toFixed(2)} in`}</dd>
+        <dd className="font-semibold">
+          {check.thatchIn === null ? "—" : `${check.thatchIn.toFixed(2)} in`}
+        </dd>
       </div>
       <div>
         <dt className="text-muted">Soil</dt>
@@ -52,18 +69,31 @@ function Facts({ check }: { check: ZoneCheckDto }) {
       </div>
       <div>
         <dt className="text-muted">Height of cut</dt>
-        <dd className="font-semibold">{check.heightOfCutIn === null ? "—" : `${check.heightOfCutIn.toFixed(2)} in`}</dd>
+        <dd className="font-semibold">
+          {check.heightOfCutIn === null ? "—" : `${check.heightOfCutIn.toFixed(2)} in`}
+        </dd>
       </div>
       <div className="col-span-2 sm:col-span-4">
         <dt className="text-muted">Mowing</dt>
         <dd>
-          {check.mowingDirection ? MOWING_DIRECTION[check.mowingDirection] : "direction not recorded"}
+          {check.mowingDirection
+            ? MOWING_DIRECTION[check.mowingDirection]
+            : "direction not recorded"}
           {signs.length ? `; ${signs.join(", ")}` : ""}
         </dd>
       </div>
       <div className="col-span-2 sm:col-span-4">
         <dt className="text-muted">Symptoms</dt>
-        <dd>{check.symptoms.length ? check.symptoms.map((s) => `${findSymptom(s.key)?.name ?? s.key} (${SEVERITY[s.severity]}, ${s.extentPct} %)`).join("; ") : "none"}</dd>
+        <dd>
+          {check.symptoms.length
+            ? check.symptoms
+                .map(
+                  (s) =>
+                    `${findSymptom(s.key)?.name ?? s.key} (${SEVERITY[s.severity]}, ${s.extentPct} %)`,
+                )
+                .join("; ")
+            : "none"}
+        </dd>
       </div>
       {check.notes ? (
         <div className="col-span-2 sm:col-span-4">
@@ -76,7 +106,11 @@ function Facts({ check }: { check: ZoneCheckDto }) {
 }
 
 function AuditTrail({ visitId, timeZone }: { visitId: string; timeZone: string }) {
-  const { data } = useQuery({ queryKey: visitKeys.audit(visitId), queryFn: async () => (await fetchJson<{ items: AuditEventDto[] }>(`/api/v1/visits/${visitId}/audit`)).items });
+  const { data } = useQuery({
+    queryKey: visitKeys.audit(visitId),
+    queryFn: async () =>
+      (await fetchJson<{ items: AuditEventDto[] }>(`/api/v1/visits/${visitId}/audit`)).items,
+  });
   if (!data?.length) return null;
   return (
     <section className="mt-8" aria-labelledby="audit-title">
@@ -88,7 +122,9 @@ function AuditTrail({ visitId, timeZone }: { visitId: string; timeZone: string }
         {data.map((e) => (
           <li key={e.id} className="rounded-lg border border-line bg-card p-3 text-sm">
             <p className="font-semibold">
-              {new Date(e.at).toLocaleDateString("en-GB", { timeZone })} {formatTime(e.at, timeZone)} · {e.actor ?? "someone"} · {e.action.replaceAll("_", " ")}
+              {new Date(e.at).toLocaleDateString("en-GB", { timeZone })}{" "}
+              {formatTime(e.at, timeZone)} · {e.actor ?? "someone"} ·{" "}
+              {e.action.replaceAll("_", " ")}
             </p>
             <ul className="mt-1">
               {Object.entries(e.changes).map(([field, { from, to }]) => (
@@ -104,12 +140,21 @@ function AuditTrail({ visitId, timeZone }: { visitId: string; timeZone: string }
   );
 }
 
-export function VisitSummary({ visit, isManager, onEditZone }: { visit: VisitDetailDto; isManager: boolean; onEditZone?: (zoneId: string) => void }) {
+export function VisitSummary({
+  visit,
+  isManager,
+  onEditZone,
+}: {
+  visit: VisitDetailDto;
+  isManager: boolean;
+  onEditZone?: (zoneId: string) => void;
+}) {
   return (
     <>
       <p className="mb-4 rounded-lg bg-sward-tint p-3 text-sward-deep">
         Finished{visit.completedAt ? ` at ${formatTime(visit.completedAt, visit.timeZone)}` : ""}
-        {visit.completedBy ? ` by ${visit.completedBy}` : ""}. {visit.checkedZones} of {visit.zones.length} zones recorded.
+        {visit.completedBy ? ` by ${visit.completedBy}` : ""}. {visit.checkedZones} of{" "}
+        {visit.zones.length} zones recorded.
       </p>
       <h2 className="mb-3 text-xl font-bold">Zone checks</h2>
       <ul className="space-y-3" aria-label="Zone checks">
@@ -120,13 +165,24 @@ export function VisitSummary({ visit, isManager, onEditZone }: { visit: VisitDet
               <div className="mb-2 flex flex-wrap items-center justify-between gap-2">
                 <h3 className="text-lg font-bold">{zone.name}</h3>
                 <span className="flex items-center gap-2">
-                  {check?.swardIndex !== null && check?.swardIndex !== undefined ? <span className="rounded-full bg-sward-tint px-2.5 py-1 font-bold text-sward-deep">Sward Index {Math.round(check.swardIndex)}</span> : null}
+                  {check?.swardIndex !== null && check?.swardIndex !== undefined ? (
+                    <span className="rounded-full bg-sward-tint px-2.5 py-1 font-bold text-sward-deep">
+                      Sward Index {Math.round(check.swardIndex)}
+                    </span>
+                  ) : null}
                   <ZoneStatusBadge status={check?.status ?? null} />
                 </span>
               </div>
-              {check ? <Facts check={check} /> : <p className="text-muted">Not checked at this visit.</p>}
+              {check ? (
+                <Facts check={check} />
+              ) : (
+                <p className="text-muted">Not checked at this visit.</p>
+              )}
               {visit.photos.some((p) => p.zoneId === zone.id) ? (
-                <ul className="mt-3 grid grid-cols-2 gap-2 sm:grid-cols-4" aria-label={`Photos of ${zone.name}`}>
+                <ul
+                  className="mt-3 grid grid-cols-2 gap-2 sm:grid-cols-4"
+                  aria-label={`Photos of ${zone.name}`}
+                >
                   {visit.photos
                     .filter((p) => p.zoneId === zone.id)
                     .map((p) => (
@@ -137,7 +193,12 @@ export function VisitSummary({ visit, isManager, onEditZone }: { visit: VisitDet
                 </ul>
               ) : null}
               {onEditZone && check ? (
-                <Button type="button" variant="secondary" className="mt-3" onClick={() => onEditZone(zone.id)}>
+                <Button
+                  type="button"
+                  variant="secondary"
+                  className="mt-3"
+                  onClick={() => onEditZone(zone.id)}
+                >
                   <PencilLine className="size-5" aria-hidden="true" />
                   Correct this check
                 </Button>

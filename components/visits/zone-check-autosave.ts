@@ -2,9 +2,10 @@
 // every change is kept on the device at once and sent to the server after a short pause;
 // failed saves are retried with back-off; a stale version becomes a visible conflict; an
 // acknowledged save never drops what was typed while it was in flight.
+import type { SendResult } from "@/lib/query-client";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
 import { emptyZoneCheck } from "@/lib/visits/zone-check-rules";
-import type { SendResult } from "@/lib/query-client";
+
 import type { DeviceDraft } from "./draft-store";
 
 export type SaveState =
@@ -38,11 +39,20 @@ export const DEBOUNCE_MS = 700;
 export const RETRY_SECONDS = [2, 5, 10, 30, 60] as const;
 
 export function valuesFrom(check: ZoneCheckDto): ZoneCheckValues {
-  const { id: _id, visitId: _v, version: _ver, updatedAt: _u, updatedBy: _b, swardIndex: _s, ...values } = check;
+  const {
+    id: _id,
+    visitId: _v,
+    version: _ver,
+    updatedAt: _u,
+    updatedBy: _b,
+    swardIndex: _s,
+    ...values
+  } = check;
   return values;
 }
 
-const sameValues = (a: ZoneCheckValues, b: ZoneCheckValues) => JSON.stringify(a) === JSON.stringify(b);
+const sameValues = (a: ZoneCheckValues, b: ZoneCheckValues) =>
+  JSON.stringify(a) === JSON.stringify(b);
 
 export class ZoneCheckAutosave {
   private draft: DeviceDraft;
@@ -61,8 +71,19 @@ export class ZoneCheckAutosave {
   ) {
     const values = serverCheck ? valuesFrom(serverCheck) : { ...emptyZoneCheck(zoneId) };
     const { baseVersion: _b, ...initial } = values as ZoneCheckValues & { baseVersion?: number };
-    this.draft = { id: serverCheck?.id ?? "", values: initial, baseVersion: serverCheck?.version ?? 0, isDirty: false, savedLocallyAt: "" };
-    this.snapshot = { values: initial, saveState: { kind: "idle" }, isRestored: false, isReady: false };
+    this.draft = {
+      id: serverCheck?.id ?? "",
+      values: initial,
+      baseVersion: serverCheck?.version ?? 0,
+      isDirty: false,
+      savedLocallyAt: "",
+    };
+    this.snapshot = {
+      values: initial,
+      saveState: { kind: "idle" },
+      isRestored: false,
+      isReady: false,
+    };
   }
 
   /** Reads the device copy (call once mounted, in the browser). */
@@ -79,10 +100,29 @@ export class ZoneCheckAutosave {
     if (local?.isDirty && this.canEdit) {
       this.draft = { ...local };
       const server = this.serverCheck;
-      if (server && server.version > local.baseVersion && !sameValues(valuesFrom(server), local.values)) {
-        this.set({ values: local.values, isRestored: true, isReady: true, saveState: { kind: "conflict", message: "This zone check was changed on another device while this one had unsaved changes.", current: server } });
+      if (
+        server &&
+        server.version > local.baseVersion &&
+        !sameValues(valuesFrom(server), local.values)
+      ) {
+        this.set({
+          values: local.values,
+          isRestored: true,
+          isReady: true,
+          saveState: {
+            kind: "conflict",
+            message:
+              "This zone check was changed on another device while this one had unsaved changes.",
+            current: server,
+          },
+        });
       } else {
-        this.set({ values: local.values, isRestored: true, isReady: true, saveState: { kind: "pending" } });
+        this.set({
+          values: local.values,
+          isRestored: true,
+          isReady: true,
+          saveState: { kind: "pending" },
+        });
         void this.save();
       }
       return;
@@ -108,8 +148,12 @@ export class ZoneCheckAutosave {
     this.draft.values = change(this.draft.values);
     this.draft.isDirty = true;
     this.persist();
-    const keep = this.snapshot.saveState.kind === "conflict" || this.snapshot.saveState.kind === "locked";
-    this.set({ values: this.draft.values, saveState: keep ? this.snapshot.saveState : { kind: "pending" } });
+    const keep =
+      this.snapshot.saveState.kind === "conflict" || this.snapshot.saveState.kind === "locked";
+    this.set({
+      values: this.draft.values,
+      saveState: keep ? this.snapshot.saveState : { kind: "pending" },
+    });
     this.schedule(DEBOUNCE_MS);
   }
 
@@ -141,7 +185,8 @@ export class ZoneCheckAutosave {
     for (let attempt = 0; attempt < 40; attempt++) {
       if (this.draft.baseVersion > 0 && this.draft.id) return this.draft.id;
       const kind = this.snapshot.saveState.kind;
-      if (kind === "conflict" || kind === "locked" || kind === "invalid") throw new Error("Save the zone check first (see the message above).");
+      if (kind === "conflict" || kind === "locked" || kind === "invalid")
+        throw new Error("Save the zone check first (see the message above).");
       if (!this.isInFlight) {
         if (!this.draft.id) this.draft.id = this.deps.newId();
         this.draft.isDirty = true;
@@ -172,11 +217,22 @@ export class ZoneCheckAutosave {
 
   async save(keepalive = false): Promise<void> {
     const kind = this.snapshot.saveState.kind;
-    if (!this.draft.isDirty || !this.canEdit || kind === "conflict" || kind === "locked" || this.isInFlight) return;
+    if (
+      !this.draft.isDirty ||
+      !this.canEdit ||
+      kind === "conflict" ||
+      kind === "locked" ||
+      this.isInFlight
+    )
+      return;
     this.isInFlight = true;
     this.set({ saveState: { kind: "saving" } });
     const sent = this.draft.values;
-    const result = await this.deps.send(`/api/v1/visits/${this.visitId}/zone-checks/${this.draft.id}`, { ...sent, baseVersion: this.draft.baseVersion }, keepalive);
+    const result = await this.deps.send(
+      `/api/v1/visits/${this.visitId}/zone-checks/${this.draft.id}`,
+      { ...sent, baseVersion: this.draft.baseVersion },
+      keepalive,
+    );
     this.isInFlight = false;
 
     if (result.ok) {
@@ -193,15 +249,33 @@ export class ZoneCheckAutosave {
       return;
     }
     if (result.status === 409 && result.error.details?.current) {
-      this.set({ saveState: { kind: "conflict", message: result.error.message, current: result.error.details.current as ZoneCheckDto } });
+      this.set({
+        saveState: {
+          kind: "conflict",
+          message: result.error.message,
+          current: result.error.details.current as ZoneCheckDto,
+        },
+      });
     } else if (result.status === 403 || result.status === 404) {
       this.set({ saveState: { kind: "locked", message: result.error.message } });
     } else if (result.status === 422) {
-      this.set({ saveState: { kind: "invalid", message: result.error.message, fieldErrors: result.error.fieldErrors ?? {} } });
+      this.set({
+        saveState: {
+          kind: "invalid",
+          message: result.error.message,
+          fieldErrors: result.error.fieldErrors ?? {},
+        },
+      });
     } else {
       const wait = RETRY_SECONDS[Math.min(this.attempt, RETRY_SECONDS.length - 1)]!;
       this.attempt++;
-      this.set({ saveState: { kind: "retrying", message: result.status === 0 ? "No connection." : result.error.message, inSeconds: wait } });
+      this.set({
+        saveState: {
+          kind: "retrying",
+          message: result.status === 0 ? "No connection." : result.error.message,
+          inSeconds: wait,
+        },
+      });
       this.schedule(wait * 1000);
     }
   }

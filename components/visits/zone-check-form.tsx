@@ -1,27 +1,36 @@
 "use client";
+
 // One zone check on a phone: ratings, ground, symptoms, mowing signs, notes — or "zone skipped".
 // Every tap is kept on the device and autosaved; nothing needs typing except notes.
 import { Ban, CheckCircle2, RotateCcw } from "lucide-react";
 import { useState } from "react";
-import { MOWING_DIRECTION, RATING_FIELDS, SKIP_REASONS, SOIL_MOISTURE } from "@/fixtures/visit-options";
+
+import { ApplicationPanel } from "@/components/applications/application-panel";
+import { PhotoUploader } from "@/components/photos/photo-uploader";
+import { Button } from "@/components/ui/button";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Stepper } from "@/components/ui/stepper";
 import { ToggleChip } from "@/components/ui/toggle-chip";
-import { Button } from "@/components/ui/button";
+import { findGrassSpecies } from "@/fixtures/grass-species";
+import {
+  MOWING_DIRECTION,
+  RATING_FIELDS,
+  SKIP_REASONS,
+  SOIL_MOISTURE,
+} from "@/fixtures/visit-options";
+import type { ApplicationDto } from "@/lib/applications/dto";
+import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
 import { zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
+
 import { RatingPicker } from "./rating-picker";
 import { SaveStatus } from "./save-status";
 import { SymptomPicker } from "./symptom-picker";
 import { useZoneCheckAutosave } from "./use-zone-check-autosave";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { ApplicationPanel } from "@/components/applications/application-panel";
-import { PhotoUploader } from "@/components/photos/photo-uploader";
-import type { ApplicationDto } from "@/lib/applications/dto";
-import type { PhotoDto } from "@/lib/photos/dto";
 
-const choicesOf = <T extends string>(labels: Record<T, string>) => (Object.entries(labels) as [T, string][]).map(([value, label]) => ({ value, label }));
+const choicesOf = <T extends string>(labels: Record<T, string>) =>
+  (Object.entries(labels) as [T, string][]).map(([value, label]) => ({ value, label }));
 
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
   return (
@@ -63,7 +72,13 @@ export function ZoneCheckForm({
   timeZone: string;
   onSaved: (check: ZoneCheckDto) => void;
 }) {
-  const { values, saveState, isRestored, isReady, store } = useZoneCheckAutosave(visitId, zone.id, serverCheck, canEdit, onSaved);
+  const { values, saveState, isRestored, isReady, store } = useZoneCheckAutosave(
+    visitId,
+    zone.id,
+    serverCheck,
+    canEdit,
+    onSaved,
+  );
   const [localErrors, setLocalErrors] = useState<Record<string, string[]>>({});
   const serverErrors = saveState.kind === "invalid" ? saveState.fieldErrors : {};
   const errorOf = (field: string) => localErrors[field]?.[0] ?? serverErrors[field]?.[0];
@@ -72,7 +87,11 @@ export function ZoneCheckForm({
     store.update((v) => {
       const next = { ...v, [field]: value };
       // Clearing a rating on a zone marked done puts it back to draft instead of failing to save.
-      if (next.status === "done" && (Object.keys(RATING_FIELDS) as (keyof typeof RATING_FIELDS)[]).some((k) => next[k] === null)) next.status = "draft";
+      if (
+        next.status === "done" &&
+        (Object.keys(RATING_FIELDS) as (keyof typeof RATING_FIELDS)[]).some((k) => next[k] === null)
+      )
+        next.status = "draft";
       return next;
     });
   };
@@ -83,7 +102,9 @@ export function ZoneCheckForm({
   function markDone() {
     const missing = zoneCheckCompleteness({ ...values, status: "done" });
     if (Object.keys(missing).length) {
-      setLocalErrors(Object.fromEntries(Object.entries(missing).map(([field, message]) => [field, [message]])));
+      setLocalErrors(
+        Object.fromEntries(Object.entries(missing).map(([field, message]) => [field, [message]])),
+      );
       return;
     }
     setLocalErrors({});
@@ -99,16 +120,25 @@ export function ZoneCheckForm({
         </p>
       ) : null}
       {saveState.kind === "conflict" ? (
-        <div role="alert" className="space-y-3 rounded-xl border-2 border-clay bg-clay-tint p-4 text-ink">
+        <div
+          role="alert"
+          className="space-y-3 rounded-xl border-2 border-clay bg-clay-tint p-4 text-ink"
+        >
           <p className="font-bold text-clay">{saveState.message}</p>
           <p>
-            Their version: overall quality {saveState.current.quality ?? "—"}, colour {saveState.current.color ?? "—"}, {saveState.current.symptoms.length} symptom(s). Yours is on screen.
+            Their version: overall quality {saveState.current.quality ?? "—"}, colour{" "}
+            {saveState.current.color ?? "—"}, {saveState.current.symptoms.length} symptom(s). Yours
+            is on screen.
           </p>
           <div className="flex flex-wrap gap-2">
             <Button type="button" onClick={() => store.resolveConflict("mine")}>
               Keep mine
             </Button>
-            <Button type="button" variant="secondary" onClick={() => store.resolveConflict("theirs")}>
+            <Button
+              type="button"
+              variant="secondary"
+              onClick={() => store.resolveConflict("theirs")}
+            >
               Use theirs
             </Button>
           </div>
@@ -116,14 +146,41 @@ export function ZoneCheckForm({
       ) : null}
       {isSkipped ? (
         <Section title="Zone skipped">
-          <ChoiceGroup label="Why was the zone skipped?" choices={choicesOf(SKIP_REASONS)} value={values.skipReason} onChange={(v) => set("skipReason", v)} columns={2} allowClear={false} />
-          {errorOf("skipReason") ? <p className="font-semibold text-clay">{errorOf("skipReason")}</p> : null}
+          <ChoiceGroup
+            label="Why was the zone skipped?"
+            choices={choicesOf(SKIP_REASONS)}
+            value={values.skipReason}
+            onChange={(v) => set("skipReason", v)}
+            columns={2}
+            allowClear={false}
+          />
+          {errorOf("skipReason") ? (
+            <p className="font-semibold text-clay">{errorOf("skipReason")}</p>
+          ) : null}
           <label className="block space-y-1">
-            <span className="font-semibold">{values.skipReason === "other" ? "Describe the reason (required)" : "Anything to add (optional)"}</span>
-            <textarea value={values.skipNote} disabled={disabled} onChange={(e) => set("skipNote", e.target.value)} rows={2} maxLength={1000} className="block w-full rounded-lg border border-line p-3 text-base" />
+            <span className="font-semibold">
+              {values.skipReason === "other"
+                ? "Describe the reason (required)"
+                : "Anything to add (optional)"}
+            </span>
+            <textarea
+              value={values.skipNote}
+              disabled={disabled}
+              onChange={(e) => set("skipNote", e.target.value)}
+              rows={2}
+              maxLength={1000}
+              className="block w-full rounded-lg border border-line p-3 text-base"
+            />
           </label>
-          {errorOf("skipNote") ? <p className="font-semibold text-clay">{errorOf("skipNote")}</p> : null}
-          <Button type="button" variant="secondary" disabled={disabled} onClick={() => set("status", "draft")}>
+          {errorOf("skipNote") ? (
+            <p className="font-semibold text-clay">{errorOf("skipNote")}</p>
+          ) : null}
+          <Button
+            type="button"
+            variant="secondary"
+            disabled={disabled}
+            onClick={() => set("status", "draft")}
+          >
             <RotateCcw className="size-5" aria-hidden="true" />
             Check this zone after all
           </Button>
@@ -131,27 +188,69 @@ export function ZoneCheckForm({
       ) : (
         <>
           <Section title="Ratings">
-            {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(([field, label]) => (
-              <RatingPicker key={field} id={`${zone.id}-${field}`} label={label} value={values[field]} onChange={(v) => set(field, v)} error={errorOf(field)} />
-            ))}
+            {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(
+              ([field, label]) => (
+                <RatingPicker
+                  key={field}
+                  id={`${zone.id}-${field}`}
+                  label={label}
+                  value={values[field]}
+                  onChange={(v) => set(field, v)}
+                  error={errorOf(field)}
+                />
+              ),
+            )}
           </Section>
 
           <Section title="Ground">
             <div>
               <p className="mb-1 font-semibold">Bare ground</p>
-              <Stepper label="Bare ground" value={values.barePct} onChange={(v) => set("barePct", v)} step={5} min={0} max={100} startAt={0} unit="%" />
+              <Stepper
+                label="Bare ground"
+                value={values.barePct}
+                onChange={(v) => set("barePct", v)}
+                step={5}
+                min={0}
+                max={100}
+                startAt={0}
+                unit="%"
+              />
             </div>
             <div>
               <p className="mb-1 font-semibold">Weeds</p>
-              <Stepper label="Weeds" value={values.weedsPct} onChange={(v) => set("weedsPct", v)} step={5} min={0} max={100} startAt={0} unit="%" />
+              <Stepper
+                label="Weeds"
+                value={values.weedsPct}
+                onChange={(v) => set("weedsPct", v)}
+                step={5}
+                min={0}
+                max={100}
+                startAt={0}
+                unit="%"
+              />
             </div>
             <div>
               <p className="mb-1 font-semibold">Thatch depth</p>
-              <Stepper label="Thatch depth" value={values.thatchIn} onChange={(v) => set("thatchIn", v)} step={0.25} min={0} max={6} startAt={0.25} unit="in" format={(v) => v.toFixed(2)} />
+              <Stepper
+                label="Thatch depth"
+                value={values.thatchIn}
+                onChange={(v) => set("thatchIn", v)}
+                step={0.25}
+                min={0}
+                max={6}
+                startAt={0.25}
+                unit="in"
+                format={(v) => v.toFixed(2)}
+              />
             </div>
             <div className="space-y-2">
               <p className="font-semibold">Soil moisture</p>
-              <ChoiceGroup label="Soil moisture" choices={choicesOf(SOIL_MOISTURE)} value={values.soilMoisture} onChange={(v) => set("soilMoisture", v)} />
+              <ChoiceGroup
+                label="Soil moisture"
+                choices={choicesOf(SOIL_MOISTURE)}
+                value={values.soilMoisture}
+                onChange={(v) => set("soilMoisture", v)}
+              />
               <label className="flex items-center gap-2">
                 <span className="text-sm">Probe reading (optional)</span>
                 <input
@@ -162,7 +261,14 @@ export function ZoneCheckForm({
                   step={0.5}
                   disabled={disabled}
                   value={values.soilMoisturePct ?? ""}
-                  onChange={(e) => set("soilMoisturePct", e.target.value === "" ? null : Math.min(100, Math.max(0, Number(e.target.value))))}
+                  onChange={(e) =>
+                    set(
+                      "soilMoisturePct",
+                      e.target.value === ""
+                        ? null
+                        : Math.min(100, Math.max(0, Number(e.target.value))),
+                    )
+                  }
                   className="min-h-tap w-24 rounded-lg border border-line px-2 text-right text-base"
                   aria-label="Soil moisture probe reading in percent"
                 />
@@ -172,15 +278,36 @@ export function ZoneCheckForm({
           </Section>
 
           <Section title="Photos">
-            <PhotoUploader visitId={visitId} ensureSaved={() => store.ensureSaved()} photos={photos} onUploaded={onPhotoUploaded} disabled={disabled} />
+            <PhotoUploader
+              visitId={visitId}
+              ensureSaved={() => store.ensureSaved()}
+              photos={photos}
+              onUploaded={onPhotoUploaded}
+              disabled={disabled}
+            />
           </Section>
 
           <Section title="Applications">
-            <ApplicationPanel visitId={visitId} zoneId={zone.id} areaFt2={zone.areaFt2} ruleSetId={ruleSetId} timeZone={timeZone} applications={applications} isManager={isManager} disabled={disabled} onRecorded={onApplicationRecorded} weather={weather} />
+            <ApplicationPanel
+              visitId={visitId}
+              zoneId={zone.id}
+              areaFt2={zone.areaFt2}
+              ruleSetId={ruleSetId}
+              timeZone={timeZone}
+              applications={applications}
+              isManager={isManager}
+              disabled={disabled}
+              onRecorded={onApplicationRecorded}
+              weather={weather}
+            />
           </Section>
 
           <Section title="Symptoms">
-            <SymptomPicker value={values.symptoms} onChange={(v) => set("symptoms", v)} disabled={disabled} />
+            <SymptomPicker
+              value={values.symptoms}
+              onChange={(v) => set("symptoms", v)}
+              disabled={disabled}
+            />
           </Section>
 
           <Section title="Mowing">
@@ -188,24 +315,59 @@ export function ZoneCheckForm({
               <p className="mb-1 font-semibold">Measured height of cut</p>
               {species ? (
                 <p className="mb-2 text-sm text-muted">
-                  {species.name}: {species.heightOfCutIn.min}–{species.heightOfCutIn.max} in (home lawns sit near the top)
+                  {species.name}: {species.heightOfCutIn.min}–{species.heightOfCutIn.max} in (home
+                  lawns sit near the top)
                 </p>
               ) : null}
-              <Stepper label="Height of cut" value={values.heightOfCutIn} onChange={(v) => set("heightOfCutIn", v)} step={0.25} min={0} max={12} startAt={3} unit="in" format={(v) => v.toFixed(2)} />
+              <Stepper
+                label="Height of cut"
+                value={values.heightOfCutIn}
+                onChange={(v) => set("heightOfCutIn", v)}
+                step={0.25}
+                min={0}
+                max={12}
+                startAt={3}
+                unit="in"
+                format={(v) => v.toFixed(2)}
+              />
             </div>
             <div className="space-y-2">
               <p className="font-semibold">Mowing direction, compared with the last check</p>
-              <ChoiceGroup label="Mowing direction" choices={choicesOf(MOWING_DIRECTION)} value={values.mowingDirection} onChange={(v) => set("mowingDirection", v)} columns={3} />
+              <ChoiceGroup
+                label="Mowing direction"
+                choices={choicesOf(MOWING_DIRECTION)}
+                value={values.mowingDirection}
+                onChange={(v) => set("mowingDirection", v)}
+                columns={3}
+              />
             </div>
             <div className="grid grid-cols-2 gap-2">
-              <ToggleChip label="Lay-over / matting" isOn={values.isMatted} onChange={(v) => set("isMatted", v)} />
-              <ToggleChip label="Scalping" isOn={values.isScalped} onChange={(v) => set("isScalped", v)} />
-              <ToggleChip label="Torn leaf tips" isOn={values.hasTornTips} onChange={(v) => set("hasTornTips", v)} />
-              <ToggleChip label="Clumped clippings" isOn={values.hasClumpedClippings} onChange={(v) => set("hasClumpedClippings", v)} />
+              <ToggleChip
+                label="Lay-over / matting"
+                isOn={values.isMatted}
+                onChange={(v) => set("isMatted", v)}
+              />
+              <ToggleChip
+                label="Scalping"
+                isOn={values.isScalped}
+                onChange={(v) => set("isScalped", v)}
+              />
+              <ToggleChip
+                label="Torn leaf tips"
+                isOn={values.hasTornTips}
+                onChange={(v) => set("hasTornTips", v)}
+              />
+              <ToggleChip
+                label="Clumped clippings"
+                isOn={values.hasClumpedClippings}
+                onChange={(v) => set("hasClumpedClippings", v)}
+              />
             </div>
             {values.hasTornTips ? (
               <p className="rounded-lg bg-sun-tint p-3 text-sm">
-                Torn tips point to a dull blade. Remind the homeowner: blades are sharpened with the engine off and the spark plug disconnected, cutting edges pointed away from yourself and others.
+                Torn tips point to a dull blade. Remind the homeowner: blades are sharpened with the
+                engine off and the spark plug disconnected, cutting edges pointed away from yourself
+                and others.
               </p>
             ) : null}
           </Section>
@@ -213,7 +375,15 @@ export function ZoneCheckForm({
           <Section title="Notes">
             <label className="block">
               <span className="sr-only">Notes about this zone</span>
-              <textarea value={values.notes} disabled={disabled} onChange={(e) => set("notes", e.target.value)} rows={3} maxLength={4000} placeholder="What stood out in this zone" className="block w-full rounded-lg border border-line p-3 text-base" />
+              <textarea
+                value={values.notes}
+                disabled={disabled}
+                onChange={(e) => set("notes", e.target.value)}
+                rows={3}
+                maxLength={4000}
+                placeholder="What stood out in this zone"
+                className="block w-full rounded-lg border border-line p-3 text-base"
+              />
             </label>
           </Section>
 

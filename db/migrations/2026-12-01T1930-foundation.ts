@@ -1,6 +1,6 @@
 // Foundation: companies, people and their roles, Auth.js tables, sign-in throttling,
 // properties with their zones and homeowners. Frozen: never import app code here.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`create extension if not exists pgcrypto`.execute(db);
@@ -36,7 +36,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       role text not null check (role in ('manager', 'technician', 'homeowner')),
       created_at timestamptz not null default now()
     )`.execute(db);
-  await sql`create index memberships_company_role_idx on memberships (company_id, role)`.execute(db);
+  await sql`create index memberships_company_role_idx on memberships (company_id, role)`.execute(
+    db,
+  );
 
   await sql`
     create table auth_accounts (
@@ -81,8 +83,12 @@ export async function up(db: Kysely<any>): Promise<void> {
       succeeded boolean not null,
       attempted_at timestamptz not null default now()
     )`.execute(db);
-  await sql`create index sign_in_attempts_email_idx on sign_in_attempts (email_key, attempted_at)`.execute(db);
-  await sql`create index sign_in_attempts_address_idx on sign_in_attempts (address, attempted_at)`.execute(db);
+  await sql`create index sign_in_attempts_email_idx on sign_in_attempts (email_key, attempted_at)`.execute(
+    db,
+  );
+  await sql`create index sign_in_attempts_address_idx on sign_in_attempts (address, attempted_at)`.execute(
+    db,
+  );
 
   await sql`
     create table properties (
@@ -102,8 +108,12 @@ export async function up(db: Kysely<any>): Promise<void> {
       updated_at timestamptz not null default now(),
       unique (company_id, id)
     )`.execute(db);
-  await sql`create index properties_company_name_idx on properties (company_id, name, id)`.execute(db);
-  await sql`create index properties_technician_idx on properties (company_id, technician_id)`.execute(db);
+  await sql`create index properties_company_name_idx on properties (company_id, name, id)`.execute(
+    db,
+  );
+  await sql`create index properties_technician_idx on properties (company_id, technician_id)`.execute(
+    db,
+  );
 
   // company_id is repeated so every scoped query filters on it without a join, and the composite
   // foreign key keeps it equal to the property's company.

@@ -1,9 +1,11 @@
 // Field visits: rule-set references on properties, scheduled visits, one zone check per zone per
 // visit (with versions for conflict detection), and an audit trail. Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
-  await sql`alter table companies add column time_zone text not null default 'America/New_York'`.execute(db);
+  await sql`alter table companies add column time_zone text not null default 'America/New_York'`.execute(
+    db,
+  );
 
   // The rules themselves (limits, blackout windows) arrive with the agronomy engine; properties
   // reference a named rule set from the start.
@@ -17,10 +19,16 @@ export async function up(db: Kysely<any>): Promise<void> {
       unique (company_id, name),
       unique (company_id, id)
     )`.execute(db);
-  await sql`alter table properties add column rule_set_id uuid references rule_sets (id) on delete set null`.execute(db);
-  await sql`alter table properties add column notes text not null default '' check (length(notes) <= 4000)`.execute(db);
+  await sql`alter table properties add column rule_set_id uuid references rule_sets (id) on delete set null`.execute(
+    db,
+  );
+  await sql`alter table properties add column notes text not null default '' check (length(notes) <= 4000)`.execute(
+    db,
+  );
   await sql`alter table zones add column updated_at timestamptz not null default now()`.execute(db);
-  await sql`alter table zones add constraint zones_company_id_id_key unique (company_id, id)`.execute(db);
+  await sql`alter table zones add constraint zones_company_id_id_key unique (company_id, id)`.execute(
+    db,
+  );
 
   await sql`
     create table visits (
@@ -47,8 +55,12 @@ export async function up(db: Kysely<any>): Promise<void> {
       unique (company_id, id),
       foreign key (company_id, property_id) references properties (company_id, id) on delete cascade
     )`.execute(db);
-  await sql`create index visits_technician_day_idx on visits (company_id, technician_id, scheduled_for, stop_order)`.execute(db);
-  await sql`create index visits_property_idx on visits (company_id, property_id, scheduled_for desc)`.execute(db);
+  await sql`create index visits_technician_day_idx on visits (company_id, technician_id, scheduled_for, stop_order)`.execute(
+    db,
+  );
+  await sql`create index visits_property_idx on visits (company_id, property_id, scheduled_for desc)`.execute(
+    db,
+  );
 
   await sql`
     create table zone_checks (
@@ -85,7 +97,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       foreign key (company_id, visit_id) references visits (company_id, id) on delete cascade,
       foreign key (company_id, zone_id) references zones (company_id, id) on delete cascade
     )`.execute(db);
-  await sql`create index zone_checks_zone_idx on zone_checks (company_id, zone_id, created_at desc)`.execute(db);
+  await sql`create index zone_checks_zone_idx on zone_checks (company_id, zone_id, created_at desc)`.execute(
+    db,
+  );
 
   await sql`
     create table audit_events (
@@ -98,7 +112,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       changes jsonb not null default '{}',
       created_at timestamptz not null default now()
     )`.execute(db);
-  await sql`create index audit_events_entity_idx on audit_events (company_id, entity, entity_id, created_at)`.execute(db);
+  await sql`create index audit_events_entity_idx on audit_events (company_id, entity, entity_id, created_at)`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -1,6 +1,6 @@
 // Zone photos: derivatives in object storage (content-addressed), measured cover and DGCI,
 // and EXIF capture time and GPS kept as staff-only evidence. Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`

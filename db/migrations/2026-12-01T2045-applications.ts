@@ -1,6 +1,6 @@
 // Product catalogue, rule-set limits, and applications with their computed nutrients, rule
 // findings and override. Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`
@@ -74,7 +74,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       foreign key (company_id, zone_id) references zones (company_id, id) on delete cascade,
       foreign key (company_id, product_id) references products (company_id, id)
     )`.execute(db);
-  await sql`create index applications_zone_idx on applications (company_id, zone_id, applied_on)`.execute(db);
+  await sql`create index applications_zone_idx on applications (company_id, zone_id, applied_on)`.execute(
+    db,
+  );
   await sql`create index applications_visit_idx on applications (company_id, visit_id)`.execute(db);
 }
 

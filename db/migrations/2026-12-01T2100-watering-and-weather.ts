@@ -1,6 +1,6 @@
 // Watering log per zone or property, daily weather cached per location cell, and the weather
 // snapshot each visit keeps. Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`
@@ -20,7 +20,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       foreign key (company_id, property_id) references properties (company_id, id) on delete cascade,
       foreign key (company_id, zone_id) references zones (company_id, id) on delete cascade
     )`.execute(db);
-  await sql`create index waterings_property_idx on waterings (company_id, property_id, watered_on desc)`.execute(db);
+  await sql`create index waterings_property_idx on waterings (company_id, property_id, watered_on desc)`.execute(
+    db,
+  );
 
   // One row per location cell (0.1° of latitude and longitude, about 11 km) and day.
   await sql`

@@ -1,7 +1,7 @@
 // Risk alerts with their lifecycle (open → acknowledged → resolved), one live alert per
 // property, zone and kind, episodes linked when a resolved alert recurs, and every change kept.
 // Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`
@@ -34,9 +34,15 @@ export async function up(db: Kysely<any>): Promise<void> {
       check ((status = 'resolved') = (resolved_at is not null))
     )`.execute(db);
   // The same condition updates its one live alert: never two open for one property, zone and kind.
-  await sql`create unique index risk_alerts_live_key on risk_alerts (company_id, property_id, coalesce(zone_id, '00000000-0000-0000-0000-000000000000'::uuid), kind) where status <> 'resolved'`.execute(db);
-  await sql`create index risk_alerts_company_idx on risk_alerts (company_id, status, severity, raised_on desc)`.execute(db);
-  await sql`create index risk_alerts_property_idx on risk_alerts (company_id, property_id, status)`.execute(db);
+  await sql`create unique index risk_alerts_live_key on risk_alerts (company_id, property_id, coalesce(zone_id, '00000000-0000-0000-0000-000000000000'::uuid), kind) where status <> 'resolved'`.execute(
+    db,
+  );
+  await sql`create index risk_alerts_company_idx on risk_alerts (company_id, status, severity, raised_on desc)`.execute(
+    db,
+  );
+  await sql`create index risk_alerts_property_idx on risk_alerts (company_id, property_id, status)`.execute(
+    db,
+  );
 
   await sql`
     create table risk_alert_events (
@@ -51,7 +57,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       note text not null default '' check (length(note) <= 2000),
       details jsonb not null default '{}'
     )`.execute(db);
-  await sql`create index risk_alert_events_alert_idx on risk_alert_events (alert_id, at)`.execute(db);
+  await sql`create index risk_alert_events_alert_idx on risk_alert_events (alert_id, at)`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -2,7 +2,7 @@
 // open alerts, nitrogen this year, overdue, and the "needs attention" rank with its reasons.
 // Kept current by the write paths and the daily sweep (lib/book/summary.ts). Frozen: never
 // import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`
@@ -30,7 +30,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       updated_at timestamptz not null default now(),
       foreign key (company_id, property_id) references properties (company_id, id) on delete cascade
     )`.execute(db);
-  await sql`create index property_summaries_attention_idx on property_summaries (company_id, attention_score desc, property_id)`.execute(db);
+  await sql`create index property_summaries_attention_idx on property_summaries (company_id, attention_score desc, property_id)`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -1,7 +1,7 @@
 // The mail outbox: every message Sward sends is first a row here, sent by the worker and retried
 // until the SMTP service accepts it, so an outage delays mail but never loses it. Frozen: never
 // import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`
@@ -20,7 +20,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       created_at timestamptz not null default now(),
       sent_at timestamptz
     )`.execute(db);
-  await sql`create index mail_outbox_pending_idx on mail_outbox (created_at) where status = 'pending'`.execute(db);
+  await sql`create index mail_outbox_pending_idx on mail_outbox (created_at) where status = 'pending'`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

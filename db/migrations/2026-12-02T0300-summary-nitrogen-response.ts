@@ -2,7 +2,7 @@
 // summary (computed on write and by the sweep), so the book never reads every zone check to
 // count them. Rows written before this migration count 0 until their next refresh; the worker's
 // sweep at start refreshes every property. Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`
@@ -13,5 +13,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  await sql`alter table property_summaries drop column zones_responding_n, drop column zones_enough_checks, drop column zones_total`.execute(db);
+  await sql`alter table property_summaries drop column zones_responding_n, drop column zones_enough_checks, drop column zones_total`.execute(
+    db,
+  );
 }

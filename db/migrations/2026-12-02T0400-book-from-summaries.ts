@@ -8,7 +8,7 @@
 // instead of four case-insensitive patterns. pg_trgm is a trusted extension: the database's
 // owner may create it.
 // Frozen: never import app code.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 const SORT_INDEXES: [string, string][] = [
   ["property_summaries_book_attention_idx", "attention_score"],
@@ -31,18 +31,31 @@ export async function up(db: Kysely<any>): Promise<void> {
       on conflict (property_id) do nothing;
       return new;
     end $$`.execute(db);
-  await sql`create trigger properties_summary_row after insert on properties for each row execute function property_summary_on_insert()`.execute(db);
-  for (const [name, expr] of SORT_INDEXES) await sql`create index ${sql.id(name)} on property_summaries (company_id, (${sql.raw(expr)}), property_id)`.execute(db);
-  await sql`create index properties_company_lower_name_idx on properties (company_id, lower(name), id)`.execute(db);
+  await sql`create trigger properties_summary_row after insert on properties for each row execute function property_summary_on_insert()`.execute(
+    db,
+  );
+  for (const [name, expr] of SORT_INDEXES)
+    await sql`create index ${sql.id(name)} on property_summaries (company_id, (${sql.raw(expr)}), property_id)`.execute(
+      db,
+    );
+  await sql`create index properties_company_lower_name_idx on properties (company_id, lower(name), id)`.execute(
+    db,
+  );
   await sql`drop index property_summaries_attention_idx`.execute(db);
   await sql`create extension if not exists pg_trgm`.execute(db);
-  await sql`alter table properties add column search_text text generated always as (lower(name || ' ' || street || ' ' || city || ' ' || postal_code)) stored`.execute(db);
-  await sql`create index properties_search_text_trgm_idx on properties using gin (search_text gin_trgm_ops)`.execute(db);
+  await sql`alter table properties add column search_text text generated always as (lower(name || ' ' || street || ' ' || city || ' ' || postal_code)) stored`.execute(
+    db,
+  );
+  await sql`create index properties_search_text_trgm_idx on properties using gin (search_text gin_trgm_ops)`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
   await sql`alter table properties drop column search_text`.execute(db);
-  await sql`create index property_summaries_attention_idx on property_summaries (company_id, attention_score desc, property_id)`.execute(db);
+  await sql`create index property_summaries_attention_idx on property_summaries (company_id, attention_score desc, property_id)`.execute(
+    db,
+  );
   await sql`drop index properties_company_lower_name_idx`.execute(db);
   for (const [name] of SORT_INDEXES) await sql`drop index ${sql.id(name)}`.execute(db);
   await sql`drop trigger properties_summary_row on properties`.execute(db);

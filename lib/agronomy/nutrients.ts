@@ -1,10 +1,26 @@
 // Nutrients delivered by an application, per 1,000 ft² (the trade's unit), from the product's
 // guaranteed analysis (N-P₂O₅-K₂O, % by weight) and the rate. Extension arithmetic: lb of a
 // nutrient = lb of product × % / 100; liquids by volume need their density (lb/gal).
-import { FL_OZ_PER_GAL, G_M2_PER_LB_1000FT2, KG_HA_PER_LB_1000FT2, LB_ACRE_PER_LB_1000FT2, OZ_PER_LB, THOUSAND_FT2_PER_HA, US_GAL_IN_L } from "./units";
+import {
+  FL_OZ_PER_GAL,
+  G_M2_PER_LB_1000FT2,
+  KG_HA_PER_LB_1000FT2,
+  LB_ACRE_PER_LB_1000FT2,
+  OZ_PER_LB,
+  THOUSAND_FT2_PER_HA,
+  US_GAL_IN_L,
+} from "./units";
 
 export type ProductForm = "granular" | "liquid" | "soluble";
-export type RateUnit = "lb/1000ft2" | "oz/1000ft2" | "floz/1000ft2" | "gal/1000ft2" | "kg/ha" | "g/m2" | "lb/acre" | "L/ha";
+export type RateUnit =
+  | "lb/1000ft2"
+  | "oz/1000ft2"
+  | "floz/1000ft2"
+  | "gal/1000ft2"
+  | "kg/ha"
+  | "g/m2"
+  | "lb/acre"
+  | "L/ha";
 
 export interface ProductAnalysis {
   nPct: number;
@@ -36,18 +52,26 @@ function checkProduct(p: ProductAnalysis): void {
     ["P₂O₅", p.p2o5Pct],
     ["K₂O", p.k2oPct],
   ] as const) {
-    if (!Number.isFinite(v) || v < 0 || v > 100) throw new NutrientInputError(`${name} must be between 0 and 100 %.`);
+    if (!Number.isFinite(v) || v < 0 || v > 100)
+      throw new NutrientInputError(`${name} must be between 0 and 100 %.`);
   }
-  if (p.nPct + p.p2o5Pct + p.k2oPct > 100) throw new NutrientInputError("The analysis adds up to more than 100 %; check N-P₂O₅-K₂O.");
-  if (p.slowReleaseNPctOfN !== undefined && (p.slowReleaseNPctOfN < 0 || p.slowReleaseNPctOfN > 100)) throw new NutrientInputError("The slow-release share is a percentage of N, 0–100 %.");
+  if (p.nPct + p.p2o5Pct + p.k2oPct > 100)
+    throw new NutrientInputError("The analysis adds up to more than 100 %; check N-P₂O₅-K₂O.");
+  if (
+    p.slowReleaseNPctOfN !== undefined &&
+    (p.slowReleaseNPctOfN < 0 || p.slowReleaseNPctOfN > 100)
+  )
+    throw new NutrientInputError("The slow-release share is a percentage of N, 0–100 %.");
 }
 
 /** Pounds of product per 1,000 ft² for a rate in any supported unit. */
 export function productLbPer1000(product: ProductAnalysis, rate: Rate): number {
-  if (!Number.isFinite(rate.amount) || rate.amount < 0) throw new NutrientInputError("The rate cannot be negative.");
+  if (!Number.isFinite(rate.amount) || rate.amount < 0)
+    throw new NutrientInputError("The rate cannot be negative.");
   const needsDensity = isVolumeUnit(rate.unit);
   const density = product.densityLbPerGal;
-  if (needsDensity && (density === undefined || !(density > 0))) throw new NutrientInputError("A rate by volume needs the product's density (lb/gal).");
+  if (needsDensity && (density === undefined || !(density > 0)))
+    throw new NutrientInputError("A rate by volume needs the product's density (lb/gal).");
   switch (rate.unit) {
     case "lb/1000ft2":
       return rate.amount;
@@ -69,7 +93,10 @@ export function productLbPer1000(product: ProductAnalysis, rate: Rate): number {
 }
 
 /** lb N, P₂O₅, K₂O and water-soluble N per 1,000 ft². */
-export function nutrientsPer1000(product: ProductAnalysis, rate: Rate): { nLb: number; p2o5Lb: number; k2oLb: number; wsnLb: number } {
+export function nutrientsPer1000(
+  product: ProductAnalysis,
+  rate: Rate,
+): { nLb: number; p2o5Lb: number; k2oLb: number; wsnLb: number } {
   checkProduct(product);
   const lb = productLbPer1000(product, rate);
   const nLb = (lb * product.nPct) / 100;
@@ -88,14 +115,22 @@ export function rateForNitrogen(product: ProductAnalysis, targetNLb: number): Ra
   if (!(targetNLb >= 0)) throw new NutrientInputError("The nitrogen target cannot be negative.");
   const lb = targetNLb / (product.nPct / 100);
   if (product.form === "liquid") {
-    if (!(product.densityLbPerGal && product.densityLbPerGal > 0)) throw new NutrientInputError("A liquid needs its density (lb/gal).");
+    if (!(product.densityLbPerGal && product.densityLbPerGal > 0))
+      throw new NutrientInputError("A liquid needs its density (lb/gal).");
     return { amount: (lb / product.densityLbPerGal) * FL_OZ_PER_GAL, unit: "floz/1000ft2" };
   }
   return { amount: lb, unit: "lb/1000ft2" };
 }
 
 /** What to load for a zone: total product (lb, and gallons for liquids). */
-export function productForArea(product: ProductAnalysis, rate: Rate, areaFt2: number): { lb: number; gal: number | null } {
+export function productForArea(
+  product: ProductAnalysis,
+  rate: Rate,
+  areaFt2: number,
+): { lb: number; gal: number | null } {
   const lb = (productLbPer1000(product, rate) * areaFt2) / 1000;
-  return { lb, gal: product.densityLbPerGal && product.form === "liquid" ? lb / product.densityLbPerGal : null };
+  return {
+    lb,
+    gal: product.densityLbPerGal && product.form === "liquid" ? lb / product.densityLbPerGal : null,
+  };
 }

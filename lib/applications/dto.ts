@@ -1,12 +1,19 @@
 // An application as it leaves the server.
-import type { RuleFinding } from "@/lib/agronomy/rules";
 import type { RateUnit } from "@/lib/agronomy/nutrients";
+import type { RuleFinding } from "@/lib/agronomy/rules";
 
 export interface ApplicationDto {
   id: string;
   visitId: string;
   zoneId: string;
-  product: { id: string; name: string; isPesticide: boolean; registrationNumber: string; labelCautions: string; reentryGuidance: string };
+  product: {
+    id: string;
+    name: string;
+    isPesticide: boolean;
+    registrationNumber: string;
+    labelCautions: string;
+    reentryGuidance: string;
+  };
   rate: { amount: number; unit: RateUnit };
   areaFt2: number;
   productTotalLb: number;

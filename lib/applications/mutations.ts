@@ -2,37 +2,54 @@
 // client), checked against the property's rule set, and refused when a legal limit is broken
 // unless a manager records an override reason. The client's id makes a retry harmless.
 import "server-only";
+
 import { sql } from "kysely";
+
 import { db } from "@/db";
 import { findGrassSpecies } from "@/fixtures/grass-species";
-import { type RuleFinding, checkApplication, isRefused } from "@/lib/agronomy/rules";
 import { NutrientInputError, nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
+import { checkApplication, isRefused, type RuleFinding } from "@/lib/agronomy/rules";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
+import { refreshPropertySummary } from "@/lib/book/summary";
 import { todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { analysisOf } from "@/lib/products/dto";
 import { toProductDto } from "@/lib/products/queries";
 import { toRuleSetDto } from "@/lib/rule-sets/queries";
 import { visitInScope } from "@/lib/visits/scope";
+
 import type { ApplicationDto } from "./dto";
 import { listVisitApplications, zoneNitrogenYearToDate } from "./queries";
-import { refreshPropertySummary } from "@/lib/book/summary";
 import type { ApplicationInput } from "./schemas";
 
-const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") => new AppError("invalid_input", message, fieldErrors);
+const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") =>
+  new AppError("invalid_input", message, fieldErrors);
 
 /** The application already recorded under this client id (a retry), or undefined; a conflict when the id is another one's. */
-async function recordedApplication(actor: Actor, visitId: string, id: string): Promise<ApplicationDto | undefined> {
-  const existing = await db().selectFrom("applications").select(["id", "visit_id", "company_id"]).where("id", "=", id).executeTakeFirst();
+async function recordedApplication(
+  actor: Actor,
+  visitId: string,
+  id: string,
+): Promise<ApplicationDto | undefined> {
+  const existing = await db()
+    .selectFrom("applications")
+    .select(["id", "visit_id", "company_id"])
+    .where("id", "=", id)
+    .executeTakeFirst();
   if (!existing) return undefined;
-  if (existing.company_id !== actor.companyId || existing.visit_id !== visitId) throw new AppError("conflict", "A different application already uses that id.");
+  if (existing.company_id !== actor.companyId || existing.visit_id !== visitId)
+    throw new AppError("conflict", "A different application already uses that id.");
   const found = (await listVisitApplications(actor, visitId)).find((a) => a.id === id);
   if (!found) throw notFound("That application");
   return found;
 }
 
-export async function recordApplication(actor: Actor, visitId: string, input: ApplicationInput): Promise<ApplicationDto> {
+export async function recordApplication(
+  actor: Actor,
+  visitId: string,
+  input: ApplicationInput,
+): Promise<ApplicationDto> {
   const retried = await recordedApplication(actor, visitId, input.id);
   if (retried) return retried; // a retry of a recorded application
 
@@ -40,31 +57,68 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
     .selectFrom("visits")
     .innerJoin("properties", "properties.id", "visits.property_id")
     .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
-    .select(["visits.id", "visits.status", "visits.property_id", "properties.time_zone", "properties.p_soil_test_on", "rule_sets.id as rule_set_id"])
+    .select([
+      "visits.id",
+      "visits.status",
+      "visits.property_id",
+      "properties.time_zone",
+      "properties.p_soil_test_on",
+      "rule_sets.id as rule_set_id",
+    ])
     .where(visitInScope(actor))
     .where("visits.id", "=", visitId)
     .executeTakeFirst();
   if (!visit) throw notFound("That visit");
   if (visit.status === "cancelled") throw new AppError("conflict", "This visit was cancelled.");
-  if (visit.status === "completed" && actor.role !== "manager") throw new AppError("forbidden", "This visit is finished and locked. Ask your manager to add the application.");
+  if (visit.status === "completed" && actor.role !== "manager")
+    throw new AppError(
+      "forbidden",
+      "This visit is finished and locked. Ask your manager to add the application.",
+    );
 
-  const zone = await db().selectFrom("zones").selectAll().where("company_id", "=", actor.companyId).where("property_id", "=", visit.property_id).where("id", "=", input.zoneId).executeTakeFirst();
+  const zone = await db()
+    .selectFrom("zones")
+    .selectAll()
+    .where("company_id", "=", actor.companyId)
+    .where("property_id", "=", visit.property_id)
+    .where("id", "=", input.zoneId)
+    .executeTakeFirst();
   if (!zone) throw invalid({ zoneId: ["That zone is not part of this property."] });
-  const productRow = await db().selectFrom("products").selectAll().where("company_id", "=", actor.companyId).where("id", "=", input.productId).executeTakeFirst();
+  const productRow = await db()
+    .selectFrom("products")
+    .selectAll()
+    .where("company_id", "=", actor.companyId)
+    .where("id", "=", input.productId)
+    .executeTakeFirst();
   if (!productRow) throw invalid({ productId: ["Choose a product from your catalogue."] });
   const product = toProductDto(productRow);
   if (product.isArchived) throw invalid({ productId: ["That product is archived."] });
-  const ruleRow = visit.rule_set_id ? await db().selectFrom("rule_sets").selectAll().where("id", "=", visit.rule_set_id).executeTakeFirstOrThrow() : null;
+  const ruleRow = visit.rule_set_id
+    ? await db()
+        .selectFrom("rule_sets")
+        .selectAll()
+        .where("id", "=", visit.rule_set_id)
+        .executeTakeFirstOrThrow()
+    : null;
   const ruleSet = ruleRow ? toRuleSetDto(ruleRow) : null;
   // A record is not complete until the fields its rule set requires are filled (pesticides
   // always need the applicator's name and certification number).
-  const required = new Set<string>(product.isPesticide ? ["applicator_name", "applicator_licence"] : []);
-  if (ruleSet && (ruleSet.recordFieldsApplyTo === "all" || product.isPesticide)) for (const f of ruleSet.recordRequiredFields) required.add(f);
+  const required = new Set<string>(
+    product.isPesticide ? ["applicator_name", "applicator_licence"] : [],
+  );
+  if (ruleSet && (ruleSet.recordFieldsApplyTo === "all" || product.isPesticide))
+    for (const f of ruleSet.recordRequiredFields) required.add(f);
   const missing: Record<string, string[]> = {};
-  if (required.has("applicator_name") && !input.applicatorName) missing.applicatorName = ["The record needs the certified applicator's name."];
-  if (required.has("applicator_licence") && !input.applicatorLicence) missing.applicatorLicence = ["The record needs the applicator's certification (licence) number."];
-  if (required.has("wind_mph") && input.windMph === null) missing.windMph = ["The record needs the wind speed at application."];
-  if (required.has("temperature_f") && input.temperatureF === null) missing.temperatureF = ["The record needs the temperature at application."];
+  if (required.has("applicator_name") && !input.applicatorName)
+    missing.applicatorName = ["The record needs the certified applicator's name."];
+  if (required.has("applicator_licence") && !input.applicatorLicence)
+    missing.applicatorLicence = [
+      "The record needs the applicator's certification (licence) number.",
+    ];
+  if (required.has("wind_mph") && input.windMph === null)
+    missing.windMph = ["The record needs the wind speed at application."];
+  if (required.has("temperature_f") && input.temperatureF === null)
+    missing.temperatureF = ["The record needs the temperature at application."];
   if (Object.keys(missing).length) throw invalid(missing, "The application record is incomplete.");
 
   const rate = { amount: input.rateAmount, unit: input.rateUnit };
@@ -94,14 +148,18 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
       isEstablishing: input.isEstablishing,
       soilTestOn: visit.p_soil_test_on,
       yearToDateNLb: await zoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
-      annualNRange: species ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max } : null,
+      annualNRange: species
+        ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max }
+        : null,
     });
   }
   const refused = isRefused(findings);
   if (refused && (actor.role !== "manager" || !input.overrideReason)) {
     throw new AppError(
       "invalid_input",
-      actor.role === "manager" ? "This application breaks a legal limit. Record an override reason to save it anyway." : "This application breaks a legal limit and was not recorded. Ask your manager if it must go ahead.",
+      actor.role === "manager"
+        ? "This application breaks a legal limit. Record an override reason to save it anyway."
+        : "This application breaks a legal limit and was not recorded. Ask your manager if it must go ahead.",
       { rateAmount: findings.filter((f) => f.severity === "refusal").map((f) => f.message) },
       { findings },
     );
@@ -145,8 +203,19 @@ export async function recordApplication(actor: Actor, visitId: string, input: Ap
         .returning("id")
         .executeTakeFirst();
       if (!row) return false;
-      if (refused) await recordAudit(trx, actor, { entity: "application", entityId: input.id, action: "override_legal_limit", changes: { reason: { from: null, to: input.overrideReason } } });
-      if (visit.status === "scheduled") await trx.updateTable("visits").set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId }).where("id", "=", visitId).execute();
+      if (refused)
+        await recordAudit(trx, actor, {
+          entity: "application",
+          entityId: input.id,
+          action: "override_legal_limit",
+          changes: { reason: { from: null, to: input.overrideReason } },
+        });
+      if (visit.status === "scheduled")
+        await trx
+          .updateTable("visits")
+          .set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId })
+          .where("id", "=", visitId)
+          .execute();
       return true;
     });
   if (!inserted) {

@@ -1,12 +1,17 @@
 // Application reads, scoped like visits (staff); homeowners read them through visit reports later.
 import "server-only";
+
 import { db } from "@/db";
-import type { Actor } from "@/lib/auth/actor";
 import type { RuleFinding } from "@/lib/agronomy/rules";
+import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/visits/scope";
+
 import type { ApplicationDto } from "./dto";
 
-export async function listVisitApplications(actor: Actor, visitId: string): Promise<ApplicationDto[]> {
+export async function listVisitApplications(
+  actor: Actor,
+  visitId: string,
+): Promise<ApplicationDto[]> {
   if (actor.role === "homeowner") return [];
   const rows = await db()
     .selectFrom("applications")
@@ -14,7 +19,14 @@ export async function listVisitApplications(actor: Actor, visitId: string): Prom
     .innerJoin("products", "products.id", "applications.product_id")
     .leftJoin("users as overrider", "overrider.id", "applications.override_by")
     .selectAll("applications")
-    .select(["products.name as product_name", "products.is_pesticide", "products.registration_number", "products.label_cautions", "products.reentry_guidance", "overrider.name as override_by_name"])
+    .select([
+      "products.name as product_name",
+      "products.is_pesticide",
+      "products.registration_number",
+      "products.label_cautions",
+      "products.reentry_guidance",
+      "overrider.name as override_by_name",
+    ])
     .where(visitInScope(actor))
     .where("applications.company_id", "=", actor.companyId)
     .where("applications.visit_id", "=", visitId)
@@ -24,12 +36,24 @@ export async function listVisitApplications(actor: Actor, visitId: string): Prom
     id: r.id,
     visitId: r.visit_id,
     zoneId: r.zone_id,
-    product: { id: r.product_id, name: r.product_name, isPesticide: r.is_pesticide, registrationNumber: r.registration_number, labelCautions: r.label_cautions, reentryGuidance: r.reentry_guidance },
+    product: {
+      id: r.product_id,
+      name: r.product_name,
+      isPesticide: r.is_pesticide,
+      registrationNumber: r.registration_number,
+      labelCautions: r.label_cautions,
+      reentryGuidance: r.reentry_guidance,
+    },
     rate: { amount: Number(r.rate_amount), unit: r.rate_unit },
     areaFt2: Number(r.area_ft2),
     productTotalLb: Number(r.product_total_lb),
     productTotalGal: r.product_total_gal === null ? null : Number(r.product_total_gal),
-    per1000: { nLb: Number(r.n_lb_per_1000), p2o5Lb: Number(r.p2o5_lb_per_1000), k2oLb: Number(r.k2o_lb_per_1000), wsnLb: Number(r.wsn_lb_per_1000) },
+    per1000: {
+      nLb: Number(r.n_lb_per_1000),
+      p2o5Lb: Number(r.p2o5_lb_per_1000),
+      k2oLb: Number(r.k2o_lb_per_1000),
+      wsnLb: Number(r.wsn_lb_per_1000),
+    },
     appliedAt: new Date(r.applied_at).toISOString(),
     appliedOn: r.applied_on,
     windMph: r.wind_mph === null ? null : Number(r.wind_mph),
@@ -44,7 +68,11 @@ export async function listVisitApplications(actor: Actor, visitId: string): Prom
 }
 
 /** lb N per 1,000 ft² put down on a zone in a calendar year before a date (year to date). */
-export async function zoneNitrogenYearToDate(companyId: string, zoneId: string, beforeDate: string): Promise<number> {
+export async function zoneNitrogenYearToDate(
+  companyId: string,
+  zoneId: string,
+  beforeDate: string,
+): Promise<number> {
   const row = await db()
     .selectFrom("applications")
     .select((eb) => eb.fn.coalesce(eb.fn.sum<number>("n_lb_per_1000"), eb.lit(0)).as("n"))
@@ -57,7 +85,11 @@ export async function zoneNitrogenYearToDate(companyId: string, zoneId: string, 
 }
 
 /** lb N per 1,000 ft² applied to each zone of a property in a calendar year (zone id → lb). */
-export async function propertyNitrogenByZone(actor: Actor, propertyId: string, year: string): Promise<Record<string, number>> {
+export async function propertyNitrogenByZone(
+  actor: Actor,
+  propertyId: string,
+  year: string,
+): Promise<Record<string, number>> {
   if (actor.role === "homeowner") return {};
   const rows = await db()
     .selectFrom("applications")
@@ -65,7 +97,7 @@ export async function propertyNitrogenByZone(actor: Actor, propertyId: string, y
     .innerJoin("visits", "visits.id", "applications.visit_id")
     .where("applications.company_id", "=", actor.companyId)
     .where("visits.property_id", "=", propertyId)
-      .where("visits.company_id", "=", actor.companyId) // lets the planner use visits_property_idx
+    .where("visits.company_id", "=", actor.companyId) // lets the planner use visits_property_idx
     .where("applied_on", ">=", `${year}-01-01`)
     .where("applied_on", "<=", `${year}-12-31`)
     .groupBy("zone_id")
@@ -81,11 +113,24 @@ export async function listPropertyApplications(actor: Actor, propertyId: string,
     .innerJoin("visits", "visits.id", "applications.visit_id")
     .innerJoin("products", "products.id", "applications.product_id")
     .innerJoin("zones", "zones.id", "applications.zone_id")
-    .select(["applications.id", "applications.visit_id", "applications.applied_on", "applications.rate_amount", "applications.rate_unit", "applications.n_lb_per_1000", "applications.p2o5_lb_per_1000", "applications.k2o_lb_per_1000", "applications.override_reason", "products.name as product_name", "products.is_pesticide", "zones.name as zone_name"])
+    .select([
+      "applications.id",
+      "applications.visit_id",
+      "applications.applied_on",
+      "applications.rate_amount",
+      "applications.rate_unit",
+      "applications.n_lb_per_1000",
+      "applications.p2o5_lb_per_1000",
+      "applications.k2o_lb_per_1000",
+      "applications.override_reason",
+      "products.name as product_name",
+      "products.is_pesticide",
+      "zones.name as zone_name",
+    ])
     .where(visitInScope(actor))
     .where("applications.company_id", "=", actor.companyId)
     .where("visits.property_id", "=", propertyId)
-      .where("visits.company_id", "=", actor.companyId) // lets the planner use visits_property_idx
+    .where("visits.company_id", "=", actor.companyId) // lets the planner use visits_property_idx
     .where("applications.applied_on", ">=", `${year}-01-01`)
     .where("applications.applied_on", "<=", `${year}-12-31`)
     .orderBy("applications.applied_on", "desc")

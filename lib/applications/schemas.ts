@@ -10,7 +10,10 @@ export const applicationSchema = z
     id: z.uuid("An application needs its id."),
     zoneId: z.uuid("Choose the zone."),
     productId: z.uuid("Choose a product."),
-    rateAmount: z.number("Enter the rate.").positive("The rate must be above 0.").max(100_000, "That rate is implausibly high; check the unit."),
+    rateAmount: z
+      .number("Enter the rate.")
+      .positive("The rate must be above 0.")
+      .max(100_000, "That rate is implausibly high; check the unit."),
     rateUnit: z.enum(RATE_UNITS),
     appliedAt: z.iso.datetime({ offset: true, error: "Use a date and time." }).optional(),
     windMph: z.number().min(0).max(150).nullable(),

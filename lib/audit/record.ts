@@ -1,12 +1,18 @@
 // Writes an audit event inside the caller's transaction (who, when, what changed: old → new).
 import type { Kysely, Transaction } from "kysely";
+
 import type { AuditEventsTable, Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 
 export async function recordAudit(
   trx: Transaction<Database> | Kysely<Database>,
   actor: Actor,
-  event: { entity: AuditEventsTable["entity"]; entityId: string; action: string; changes?: Record<string, { from: unknown; to: unknown }> },
+  event: {
+    entity: AuditEventsTable["entity"];
+    entityId: string;
+    action: string;
+    changes?: Record<string, { from: unknown; to: unknown }>;
+  },
 ): Promise<void> {
   await trx
     .insertInto("audit_events")

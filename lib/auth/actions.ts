@@ -1,17 +1,25 @@
 "use server";
+
 // Sign-in and sign-out server actions (public POST endpoints, built with the guard).
 import { AuthError } from "next-auth";
 import { headers } from "next/headers";
 import { z } from "zod";
+
 import { serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { deliverMailAfterResponse } from "@/lib/mail/mutations";
-import { clientAddress, signIn, signOut } from "./config";
+
 import { sitePath } from "./actor";
+import { clientAddress, signIn, signOut } from "./config";
 import { action } from "./guards";
 import { SIGN_IN_MESSAGES, signInLinkSchema, signInSchema } from "./schemas";
-import { SIGN_IN_LINK_PROVIDER, countRecentLinkRequests, findHomeowner, recordLinkRequest } from "./sign-in-link";
+import {
+  countRecentLinkRequests,
+  findHomeowner,
+  recordLinkRequest,
+  SIGN_IN_LINK_PROVIDER,
+} from "./sign-in-link";
 import { normaliseEmail } from "./throttle";
 
 export interface SignInState {
@@ -25,7 +33,11 @@ const safeRedirect = (target: string | undefined): string => sitePath(target) ??
 
 const signInGuarded = action({ access: "public", input: signInSchema }, async ({ input }) => {
   try {
-    await signIn("credentials", { email: input.email, password: input.password, redirectTo: safeRedirect(input.redirectTo) });
+    await signIn("credentials", {
+      email: input.email,
+      password: input.password,
+      redirectTo: safeRedirect(input.redirectTo),
+    });
   } catch (err) {
     if (err instanceof AuthError) {
       const code = (err as AuthError & { code?: string }).code;
@@ -37,7 +49,10 @@ const signInGuarded = action({ access: "public", input: signInSchema }, async ({
   }
 });
 
-export async function signInAction(_previous: SignInState, formData: FormData): Promise<SignInState> {
+export async function signInAction(
+  _previous: SignInState,
+  formData: FormData,
+): Promise<SignInState> {
   const email = String(formData.get("email") ?? "");
   const result = await signInGuarded(formData);
   if (result.ok) return { email };
@@ -53,24 +68,37 @@ export interface SignInLinkState {
 
 // Every request is counted and answered the same way whether or not the address has a homeowner
 // account, so the answer reveals nothing; only a homeowner's address gets a link.
-const requestLinkGuarded = action({ access: "public", input: signInLinkSchema }, async ({ input }) => {
-  const env = serverEnv();
-  const emailKey = normaliseEmail(input.email);
-  const address = clientAddress(await headers());
-  const recent = await countRecentLinkRequests(emailKey, address, env.SIGN_IN_WINDOW_MINUTES);
-  if (recent.forEmail >= env.SIGN_IN_LINK_MAX_PER_EMAIL || recent.fromAddress >= env.SIGN_IN_LINK_MAX_PER_ADDRESS) {
-    log.info({ event: "sign_in_link_throttled" }, "sign-in link refused: too many requests");
-    throw new AppError("rate_limited", SIGN_IN_MESSAGES.linkThrottled);
-  }
-  await recordLinkRequest(emailKey, address);
-  if (await findHomeowner(emailKey)) {
-    await signIn(SIGN_IN_LINK_PROVIDER, { email: emailKey, redirect: false, redirectTo: safeRedirect(input.redirectTo) });
-  }
-  deliverMailAfterResponse("sign_in_link");
-  log.info({ event: "sign_in_link_requested" }, "sign-in link requested");
-});
+const requestLinkGuarded = action(
+  { access: "public", input: signInLinkSchema },
+  async ({ input }) => {
+    const env = serverEnv();
+    const emailKey = normaliseEmail(input.email);
+    const address = clientAddress(await headers());
+    const recent = await countRecentLinkRequests(emailKey, address, env.SIGN_IN_WINDOW_MINUTES);
+    if (
+      recent.forEmail >= env.SIGN_IN_LINK_MAX_PER_EMAIL ||
+      recent.fromAddress >= env.SIGN_IN_LINK_MAX_PER_ADDRESS
+    ) {
+      log.info({ event: "sign_in_link_throttled" }, "sign-in link refused: too many requests");
+      throw new AppError("rate_limited", SIGN_IN_MESSAGES.linkThrottled);
+    }
+    await recordLinkRequest(emailKey, address);
+    if (await findHomeowner(emailKey)) {
+      await signIn(SIGN_IN_LINK_PROVIDER, {
+        email: emailKey,
+        redirect: false,
+        redirectTo: safeRedirect(input.redirectTo),
+      });
+    }
+    deliverMailAfterResponse("sign_in_link");
+    log.info({ event: "sign_in_link_requested" }, "sign-in link requested");
+  },
+);
 
-export async function requestSignInLinkAction(_previous: SignInLinkState, formData: FormData): Promise<SignInLinkState> {
+export async function requestSignInLinkAction(
+  _previous: SignInLinkState,
+  formData: FormData,
+): Promise<SignInLinkState> {
   const email = String(formData.get("email") ?? "").slice(0, 320);
   const result = await requestLinkGuarded(formData);
   if (result.ok) return { email, sent: true };

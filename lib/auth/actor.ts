@@ -24,5 +24,7 @@ export function landingPath(role: Role): string {
 
 /** A path on this site, or undefined: never another origin (`//host`, `/\\host`) or a full URL. */
 export function sitePath(target: string | undefined): string | undefined {
-  return target && target.startsWith("/") && !target.startsWith("//") && !target.startsWith("/\\") ? target : undefined;
+  return target && target.startsWith("/") && !target.startsWith("//") && !target.startsWith("/\\")
+    ? target
+    : undefined;
 }

@@ -2,15 +2,23 @@
 // homeowners (lib/auth/sign-in-link.ts), with the JWT session strategy. Each JWT carries the id
 // of a row in auth_sessions; sign-out deletes that row, so an old token can do nothing.
 import "server-only";
+
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import Nodemailer from "next-auth/providers/nodemailer";
-import { MAIL_FROM } from "@/lib/services/mail";
+
 import { log } from "@/lib/log";
+import { MAIL_FROM } from "@/lib/services/mail";
+
 import { checkCredentials } from "./credentials";
 import { createAuthSession, deleteAuthSession } from "./queries";
 import { signInSchema } from "./schemas";
-import { SIGN_IN_LINK_MINUTES, findHomeowner, queueSignInLink, signInLinkAdapter } from "./sign-in-link";
+import {
+  findHomeowner,
+  queueSignInLink,
+  SIGN_IN_LINK_MINUTES,
+  signInLinkAdapter,
+} from "./sign-in-link";
 
 export const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
 
@@ -50,15 +58,20 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       server: process.env.SMTP_URL ?? "smtp://127.0.0.1:25",
       from: MAIL_FROM,
       maxAge: SIGN_IN_LINK_MINUTES * 60,
-      sendVerificationRequest: ({ identifier, url, token }) => queueSignInLink({ identifier, url, token }),
+      sendVerificationRequest: ({ identifier, url, token }) =>
+        queueSignInLink({ identifier, url, token }),
     }),
     Credentials({
       credentials: { email: { type: "email" }, password: { type: "password" } },
       async authorize(raw, request) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) throw new InvalidCredentials();
-        const result = await checkCredentials({ ...parsed.data, address: clientAddress(request.headers) });
-        if (!result.ok) throw result.reason === "throttled" ? new ThrottledSignIn() : new InvalidCredentials();
+        const result = await checkCredentials({
+          ...parsed.data,
+          address: clientAddress(request.headers),
+        });
+        if (!result.ok)
+          throw result.reason === "throttled" ? new ThrottledSignIn() : new InvalidCredentials();
         return { id: result.userId };
       },
     }),
@@ -79,12 +92,19 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     async session({ session, token }) {
       // Only the opaque session id travels; who the user is and what they may do is read
       // from the database on every request (lib/auth/session.ts).
-      return { expires: session.expires, sessionId: typeof token.sid === "string" ? token.sid : undefined } as unknown as typeof session;
+      return {
+        expires: session.expires,
+        sessionId: typeof token.sid === "string" ? token.sid : undefined,
+      } as unknown as typeof session;
     },
   },
   events: {
     signIn({ user, account }) {
-      if (account?.type === "email") log.info({ event: "sign_in", method: "link", userId: user.id }, "signed in with an e-mailed link");
+      if (account?.type === "email")
+        log.info(
+          { event: "sign_in", method: "link", userId: user.id },
+          "signed in with an e-mailed link",
+        );
     },
     async signOut(message) {
       const sid = "token" in message ? message.token?.sid : undefined;

@@ -3,10 +3,12 @@
 // Security decisions live here and in the data-access layer, never only in a layout or proxy.
 import { unstable_rethrow } from "next/navigation";
 import { z } from "zod";
+
 import type { Role } from "@/db/schema";
 import { AppError, notFound, toErrorBody } from "@/lib/http/app-error";
 import { isSameSiteWrite } from "@/lib/http/origin";
 import { log } from "@/lib/log";
+
 import type { Actor } from "./actor";
 
 type Access = readonly Role[] | "public";
@@ -15,14 +17,26 @@ type RouteContext = { params: Promise<Record<string, string | string[] | undefin
 
 export type ActionResult<T> =
   | { ok: true; data: T }
-  | { ok: false; error: { code: string; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> } };
+  | {
+      ok: false;
+      error: {
+        code: string;
+        message: string;
+        fieldErrors?: Record<string, string[]>;
+        details?: Record<string, unknown>;
+      };
+    };
 
 const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
 /** Refused authorisations, logged (ASVS V16): not signed in, not allowed. "Not found" is routine and is not. */
 const REFUSALS = new Set(["unauthenticated", "forbidden"]);
 
 function invalid(error: z.ZodError, message = "Some values need attention."): AppError {
-  return new AppError("invalid_input", message, z.flattenError(error).fieldErrors as Record<string, string[]>);
+  return new AppError(
+    "invalid_input",
+    message,
+    z.flattenError(error).fieldErrors as Record<string, string[]>,
+  );
 }
 
 function authorise<A extends Access>(actor: Actor | null, access: A): ActorFor<A> {
@@ -34,25 +48,48 @@ function authorise<A extends Access>(actor: Actor | null, access: A): ActorFor<A
 
 /** Refuses cross-site mutations: the Origin (or Fetch Metadata) must name this site. */
 export function assertSameOrigin(request: Request): void {
-  if (MUTATING.has(request.method) && !isSameSiteWrite(request.headers)) throw new AppError("forbidden", "Cross-site requests are refused.");
+  if (MUTATING.has(request.method) && !isSameSiteWrite(request.headers))
+    throw new AppError("forbidden", "Cross-site requests are refused.");
 }
 
 export function createGuards(resolveActor: () => Promise<Actor | null>) {
-  function route<A extends Access, P extends z.ZodType = z.ZodType<Record<string, never>>, Q extends z.ZodType = z.ZodType<Record<string, never>>, B extends z.ZodType = z.ZodType<undefined>>(
-    spec: { access: A; params?: P; query?: Q; body?: B; /** e.g. "That property": names what a bad id fails to find */ resource?: string },
-    handler: (ctx: { actor: ActorFor<A>; params: z.infer<P>; query: z.infer<Q>; body: z.infer<B>; request: Request }) => Promise<unknown>,
+  function route<
+    A extends Access,
+    P extends z.ZodType = z.ZodType<Record<string, never>>,
+    Q extends z.ZodType = z.ZodType<Record<string, never>>,
+    B extends z.ZodType = z.ZodType<undefined>,
+  >(
+    spec: {
+      access: A;
+      params?: P;
+      query?: Q;
+      body?: B;
+      /** e.g. "That property": names what a bad id fails to find */ resource?: string;
+    },
+    handler: (ctx: {
+      actor: ActorFor<A>;
+      params: z.infer<P>;
+      query: z.infer<Q>;
+      body: z.infer<B>;
+      request: Request;
+    }) => Promise<unknown>,
   ) {
     return async (request: Request, context?: RouteContext): Promise<Response> => {
       try {
         assertSameOrigin(request);
         const actor = authorise(await resolveActor(), spec.access);
         const rawParams = (await context?.params) ?? {};
-        const params = spec.params ? spec.params.safeParse(rawParams) : { success: true as const, data: {} };
+        const params = spec.params
+          ? spec.params.safeParse(rawParams)
+          : { success: true as const, data: {} };
         // A malformed id cannot name a record in scope: answer as for any unknown record.
         if (!params.success) throw notFound(spec.resource);
         const url = new URL(request.url);
-        const query = spec.query ? spec.query.safeParse(Object.fromEntries(url.searchParams)) : { success: true as const, data: {} };
-        if (!query.success) throw invalid(query.error, "The query string has values that are not allowed.");
+        const query = spec.query
+          ? spec.query.safeParse(Object.fromEntries(url.searchParams))
+          : { success: true as const, data: {} };
+        if (!query.success)
+          throw invalid(query.error, "The query string has values that are not allowed.");
         let body: unknown = undefined;
         if (spec.body) {
           const json = await request.json().catch(() => {
@@ -62,12 +99,28 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
           if (!parsed.success) throw invalid(parsed.error);
           body = parsed.data;
         }
-        const result = await handler({ actor, params: params.data as z.infer<P>, query: query.data as z.infer<Q>, body: body as z.infer<B>, request });
+        const result = await handler({
+          actor,
+          params: params.data as z.infer<P>,
+          query: query.data as z.infer<Q>,
+          body: body as z.infer<B>,
+          request,
+        });
         if (result instanceof Response) return result;
         return Response.json(result, { headers: { "Cache-Control": "private, no-store" } });
       } catch (err) {
-        if (!(err instanceof AppError)) log.error({ err, path: new URL(request.url).pathname }, "route failed");
-        else if (REFUSALS.has(err.code)) log.warn({ event: "access_refused", code: err.code, method: request.method, path: new URL(request.url).pathname }, "request refused");
+        if (!(err instanceof AppError))
+          log.error({ err, path: new URL(request.url).pathname }, "route failed");
+        else if (REFUSALS.has(err.code))
+          log.warn(
+            {
+              event: "access_refused",
+              code: err.code,
+              method: request.method,
+              path: new URL(request.url).pathname,
+            },
+            "request refused",
+          );
         const { status, body } = toErrorBody(err);
         return Response.json(body, { status, headers: { "Cache-Control": "no-store" } });
       }
@@ -88,7 +141,11 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
       } catch (err) {
         unstable_rethrow(err); // let Next's redirect() and notFound() through
         if (!(err instanceof AppError)) log.error({ err }, "action failed");
-        else if (REFUSALS.has(err.code)) log.warn({ event: "access_refused", code: err.code, action: handler.name || "action" }, "action refused");
+        else if (REFUSALS.has(err.code))
+          log.warn(
+            { event: "access_refused", code: err.code, action: handler.name || "action" },
+            "action refused",
+          );
         return { ok: false, error: toErrorBody(err).body.error };
       }
     };

@@ -1,9 +1,12 @@
 // Data access for sign-in and sessions: the only auth code that touches the database.
 import "server-only";
+
 import { randomBytes } from "node:crypto";
 import { sql } from "kysely";
+
 import { db } from "@/db";
 import type { Role } from "@/db/schema";
+
 import type { Actor } from "./actor";
 import type { RecentFailures } from "./throttle";
 
@@ -22,10 +25,19 @@ export async function findSignInCandidate(email: string): Promise<SignInCandidat
     .where("users.email", "=", email)
     .executeTakeFirst();
   if (!row) return undefined;
-  return { userId: row.id, passwordHash: row.password_hash, isDisabled: row.disabled_at !== null, role: row.role };
+  return {
+    userId: row.id,
+    passwordHash: row.password_hash,
+    isDisabled: row.disabled_at !== null,
+    role: row.role,
+  };
 }
 
-export async function countRecentFailures(emailKey: string, address: string, windowMinutes: number): Promise<RecentFailures> {
+export async function countRecentFailures(
+  emailKey: string,
+  address: string,
+  windowMinutes: number,
+): Promise<RecentFailures> {
   const since = sql<Date>`now() - make_interval(mins => ${windowMinutes})`;
   const row = await db()
     .selectNoFrom((eb) => [
@@ -48,11 +60,22 @@ export async function countRecentFailures(emailKey: string, address: string, win
   return { forAccount: Number(row.for_account ?? 0), fromAddress: Number(row.from_address ?? 0) };
 }
 
-export async function recordSignInAttempt(emailKey: string, address: string, succeeded: boolean): Promise<void> {
-  await db().insertInto("sign_in_attempts").values({ email_key: emailKey, address, succeeded }).execute();
+export async function recordSignInAttempt(
+  emailKey: string,
+  address: string,
+  succeeded: boolean,
+): Promise<void> {
+  await db()
+    .insertInto("sign_in_attempts")
+    .values({ email_key: emailKey, address, succeeded })
+    .execute();
   if (succeeded) {
     // A successful sign-in clears that account's failure count.
-    await db().deleteFrom("sign_in_attempts").where("email_key", "=", emailKey).where("succeeded", "=", false).execute();
+    await db()
+      .deleteFrom("sign_in_attempts")
+      .where("email_key", "=", emailKey)
+      .where("succeeded", "=", false)
+      .execute();
   }
 }
 
@@ -120,12 +143,28 @@ export async function findHomeowner(emailKey: string): Promise<Homeowner | undef
     .selectFrom("users")
     .innerJoin("memberships", "memberships.user_id", "users.id")
     .innerJoin("companies", "companies.id", "memberships.company_id")
-    .select(["users.id", "users.email", "users.name", "users.email_verified", "memberships.company_id", "companies.name as company_name"])
+    .select([
+      "users.id",
+      "users.email",
+      "users.name",
+      "users.email_verified",
+      "memberships.company_id",
+      "companies.name as company_name",
+    ])
     .where("users.email", "=", emailKey)
     .where("users.disabled_at", "is", null)
     .where("memberships.role", "=", "homeowner")
     .executeTakeFirst();
-  return row && { userId: row.id, email: row.email, name: row.name, emailVerified: row.email_verified, companyId: row.company_id, companyName: row.company_name };
+  return (
+    row && {
+      userId: row.id,
+      email: row.email,
+      name: row.name,
+      emailVerified: row.email_verified,
+      companyId: row.company_id,
+      companyName: row.company_name,
+    }
+  );
 }
 
 export interface LinkUser {
@@ -136,36 +175,80 @@ export interface LinkUser {
 }
 
 export async function findUserById(id: string): Promise<LinkUser | undefined> {
-  const row = await db().selectFrom("users").select(["id", "email", "name", "email_verified"]).where("id", "=", id).executeTakeFirst();
+  const row = await db()
+    .selectFrom("users")
+    .select(["id", "email", "name", "email_verified"])
+    .where("id", "=", id)
+    .executeTakeFirst();
   return row && { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
 }
 
-export async function markEmailVerified(id: string, at: Date | null | undefined): Promise<LinkUser> {
-  const row = await db().updateTable("users").set({ email_verified: at ?? undefined }).where("id", "=", id).returning(["id", "email", "name", "email_verified"]).executeTakeFirstOrThrow();
+export async function markEmailVerified(
+  id: string,
+  at: Date | null | undefined,
+): Promise<LinkUser> {
+  const row = await db()
+    .updateTable("users")
+    .set({ email_verified: at ?? undefined })
+    .where("id", "=", id)
+    .returning(["id", "email", "name", "email_verified"])
+    .executeTakeFirstOrThrow();
   return { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
 }
 
-export async function storeVerificationToken(token: { identifier: string; token: string; expires: Date }): Promise<void> {
-  await db().deleteFrom("verification_tokens").where("expires", "<", sql<Date>`now() - interval '1 day'`).execute();
+export async function storeVerificationToken(token: {
+  identifier: string;
+  token: string;
+  expires: Date;
+}): Promise<void> {
+  await db()
+    .deleteFrom("verification_tokens")
+    .where("expires", "<", sql<Date>`now() - interval '1 day'`)
+    .execute();
   await db().insertInto("verification_tokens").values(token).execute();
 }
 
 /** Deleting as it is read makes a link single-use, even when opened twice at once. */
-export async function takeVerificationToken(identifier: string, token: string): Promise<{ identifier: string; token: string; expires: Date } | undefined> {
-  return db().deleteFrom("verification_tokens").where("identifier", "=", identifier).where("token", "=", token).returningAll().executeTakeFirst();
+export async function takeVerificationToken(
+  identifier: string,
+  token: string,
+): Promise<{ identifier: string; token: string; expires: Date } | undefined> {
+  return db()
+    .deleteFrom("verification_tokens")
+    .where("identifier", "=", identifier)
+    .where("token", "=", token)
+    .returningAll()
+    .executeTakeFirst();
 }
 
-export async function countRecentLinkRequests(emailKey: string, address: string, windowMinutes: number): Promise<{ forEmail: number; fromAddress: number }> {
+export async function countRecentLinkRequests(
+  emailKey: string,
+  address: string,
+  windowMinutes: number,
+): Promise<{ forEmail: number; fromAddress: number }> {
   const since = sql<Date>`now() - make_interval(mins => ${windowMinutes})`;
   const row = await db()
     .selectNoFrom((eb) => [
-      eb.selectFrom("sign_in_link_requests").select((e) => e.fn.countAll<number>().as("n")).where("email_key", "=", emailKey).where("requested_at", ">", since).as("for_email"),
-      eb.selectFrom("sign_in_link_requests").select((e) => e.fn.countAll<number>().as("n")).where("address", "=", address).where("requested_at", ">", since).as("from_address"),
+      eb
+        .selectFrom("sign_in_link_requests")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .where("email_key", "=", emailKey)
+        .where("requested_at", ">", since)
+        .as("for_email"),
+      eb
+        .selectFrom("sign_in_link_requests")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .where("address", "=", address)
+        .where("requested_at", ">", since)
+        .as("from_address"),
     ])
     .executeTakeFirstOrThrow();
   return { forEmail: Number(row.for_email ?? 0), fromAddress: Number(row.from_address ?? 0) };
 }
 
 export async function recordLinkRequest(emailKey: string, address: string): Promise<void> {
-  await db().insertInto("sign_in_link_requests").values({ email_key: emailKey, address: address.slice(0, 100) }).execute();
+  await db()
+    .insertInto("sign_in_link_requests")
+    .values({ email_key: emailKey, address: address.slice(0, 100) })
+    .execute();
 }

@@ -6,10 +6,13 @@
 // about 4.5 ms per API call under load (tests/bench). Sessions therefore end 14 days after sign-in
 // (the JWT's and the auth_sessions row's expiry), not 14 days after the last request.
 import "server-only";
+
 import { decode } from "next-auth/jwt";
 import { cookies } from "next/headers";
 import { cache } from "react";
+
 import { serverEnv } from "@/lib/env";
+
 import type { Actor } from "./actor";
 import { findActorBySession } from "./queries";
 
@@ -30,11 +33,14 @@ async function sessionIdOf(name: string, value: string): Promise<string | null> 
   const known = decodedTokens.get(key);
   if (known && known.expiresAtMs > Date.now()) return known.sessionId;
   decodedTokens.delete(key);
-  const token = await decode({ token: value, secret: serverEnv().AUTH_SECRET, salt: name }).catch(() => null);
+  const token = await decode({ token: value, secret: serverEnv().AUTH_SECRET, salt: name }).catch(
+    () => null,
+  );
   const sessionId = token?.sid;
   if (typeof sessionId !== "string") return null;
   if (typeof token?.exp === "number") {
-    if (decodedTokens.size >= DECODED_TOKENS_MAX) decodedTokens.delete(decodedTokens.keys().next().value!);
+    if (decodedTokens.size >= DECODED_TOKENS_MAX)
+      decodedTokens.delete(decodedTokens.keys().next().value!);
     decodedTokens.set(key, { sessionId, expiresAtMs: token.exp * 1000 });
   }
   return sessionId;

@@ -3,11 +3,21 @@
 // for SIGN_IN_LINK_MINUTES; what travels in the e-mail is the token, what is stored is its hash
 // (Auth.js hashes it with the secret). Requests are throttled in requestSignInLinkAction.
 import "server-only";
+
 import { createHash } from "node:crypto";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
+
 import { queueMail } from "@/lib/mail/mutations";
 import { signInLinkEmail } from "@/lib/mail/sign-in-email";
-import { type Homeowner, findHomeowner as findHomeownerByKey, findUserById, markEmailVerified, storeVerificationToken, takeVerificationToken } from "./queries";
+
+import {
+  findHomeowner as findHomeownerByKey,
+  findUserById,
+  markEmailVerified,
+  storeVerificationToken,
+  takeVerificationToken,
+  type Homeowner,
+} from "./queries";
 import { normaliseEmail } from "./throttle";
 
 export { countRecentLinkRequests, recordLinkRequest } from "./queries";
@@ -19,7 +29,12 @@ export function findHomeowner(email: string): Promise<Homeowner | undefined> {
   return findHomeownerByKey(normaliseEmail(email));
 }
 
-const asAdapterUser = (h: Homeowner): AdapterUser => ({ id: h.userId, email: h.email, name: h.name, emailVerified: h.emailVerified });
+const asAdapterUser = (h: Homeowner): AdapterUser => ({
+  id: h.userId,
+  email: h.email,
+  name: h.name,
+  emailVerified: h.emailVerified,
+});
 
 /** Just what the e-mail provider needs. Sward never creates an account at sign-in. */
 export const signInLinkAdapter: Adapter = {
@@ -56,10 +71,25 @@ export function confirmationUrl(callbackUrl: string): string {
 }
 
 /** The provider's sendVerificationRequest: the message goes into the outbox (delivered right after the response, retried by the worker). */
-export async function queueSignInLink(params: { identifier: string; url: string; token: string }): Promise<void> {
+export async function queueSignInLink(params: {
+  identifier: string;
+  url: string;
+  token: string;
+}): Promise<void> {
   const h = await findHomeowner(params.identifier);
   if (!h) return; // the signIn callback refuses these before a token is made
-  const mail = signInLinkEmail({ link: confirmationUrl(params.url), minutes: SIGN_IN_LINK_MINUTES, companyName: h.companyName, name: h.name });
+  const mail = signInLinkEmail({
+    link: confirmationUrl(params.url),
+    minutes: SIGN_IN_LINK_MINUTES,
+    companyName: h.companyName,
+    name: h.name,
+  });
   const key = createHash("sha256").update(params.token).digest("hex").slice(0, 40);
-  await queueMail({ companyId: h.companyId, kind: "sign_in_link", dedupeKey: `sign_in_link:${key}`, to: h.email, ...mail });
+  await queueMail({
+    companyId: h.companyId,
+    kind: "sign_in_link",
+    dedupeKey: `sign_in_link:${key}`,
+    to: h.email,
+    ...mail,
+  });
 }

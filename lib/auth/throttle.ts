@@ -12,7 +12,9 @@ export interface RecentFailures {
 }
 
 export function isThrottled(failures: RecentFailures, limits: ThrottleLimits): boolean {
-  return failures.forAccount >= limits.maxPerAccount || failures.fromAddress >= limits.maxPerAddress;
+  return (
+    failures.forAccount >= limits.maxPerAccount || failures.fromAddress >= limits.maxPerAddress
+  );
 }
 
 /** E-mail addresses compare case-insensitively and without surrounding spaces. */

@@ -1,16 +1,19 @@
 // The manager's book: every property with its summary, filtered, sorted and paged by keyset on
 // (sort value, property id), so pages neither skip nor repeat rows while rows are added.
 import "server-only";
-import { type ExpressionBuilder, type RawBuilder, sql } from "kysely";
-import type { Database } from "@/db/schema";
+
+import { sql, type ExpressionBuilder, type RawBuilder } from "kysely";
+
 import { db } from "@/db";
+import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { addDays, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
-import type { BookQuery, BookSort } from "./schemas";
-import { addDays, todayIn } from "@/lib/dates";
-import { technicianActivity } from "./team";
 import { escapeLike } from "@/lib/text";
+
+import type { BookQuery, BookSort } from "./schemas";
+import { technicianActivity } from "./team";
 
 export interface BookRow {
   propertyId: string;
@@ -40,28 +43,75 @@ export interface BookRow {
  * direction, and the id column that breaks ties. Each expression is exactly the one indexed in
  * db/migrations/2026-12-02T0400-book-from-summaries.ts, so a page is read in index order.
  */
-const SORTS: Record<BookSort, { expr: RawBuilder<unknown>; type: "int" | "real" | "text" | "date"; dir: "asc" | "desc"; id: "ps.property_id" | "properties.id" }> = {
+const SORTS: Record<
+  BookSort,
+  {
+    expr: RawBuilder<unknown>;
+    type: "int" | "real" | "text" | "date";
+    dir: "asc" | "desc";
+    id: "ps.property_id" | "properties.id";
+  }
+> = {
   attention: { expr: sql`ps.attention_score`, type: "int", dir: "desc", id: "ps.property_id" },
   name: { expr: sql`lower(properties.name)`, type: "text", dir: "asc", id: "properties.id" },
-  index: { expr: sql`coalesce(ps.latest_index, -1)`, type: "real", dir: "asc", id: "ps.property_id" },
-  slope: { expr: sql`coalesce(ps.trend_slope, 1000000)`, type: "real", dir: "asc", id: "ps.property_id" },
-  last: { expr: sql`coalesce(ps.last_visit_on, date '0001-01-01')`, type: "date", dir: "asc", id: "ps.property_id" },
-  next: { expr: sql`coalesce(ps.next_visit_on, date '9999-12-31')`, type: "date", dir: "asc", id: "ps.property_id" },
+  index: {
+    expr: sql`coalesce(ps.latest_index, -1)`,
+    type: "real",
+    dir: "asc",
+    id: "ps.property_id",
+  },
+  slope: {
+    expr: sql`coalesce(ps.trend_slope, 1000000)`,
+    type: "real",
+    dir: "asc",
+    id: "ps.property_id",
+  },
+  last: {
+    expr: sql`coalesce(ps.last_visit_on, date '0001-01-01')`,
+    type: "date",
+    dir: "asc",
+    id: "ps.property_id",
+  },
+  next: {
+    expr: sql`coalesce(ps.next_visit_on, date '9999-12-31')`,
+    type: "date",
+    dir: "asc",
+    id: "ps.property_id",
+  },
   n: { expr: sql`ps.n_ytd_lb`, type: "real", dir: "desc", id: "ps.property_id" },
 };
 
-const encodeCursor = (value: unknown, id: string) => Buffer.from(JSON.stringify([value, id])).toString("base64url");
+const encodeCursor = (value: unknown, id: string) =>
+  Buffer.from(JSON.stringify([value, id])).toString("base64url");
 function decodeCursor(cursor: string): [string | number, string] {
   try {
     const parsed = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as unknown;
-    if (Array.isArray(parsed) && parsed.length === 2 && (typeof parsed[0] === "string" || typeof parsed[0] === "number") && typeof parsed[1] === "string" && /^[0-9a-f-]{36}$/.test(parsed[1])) return [parsed[0], parsed[1]];
+    if (
+      Array.isArray(parsed) &&
+      parsed.length === 2 &&
+      (typeof parsed[0] === "string" || typeof parsed[0] === "number") &&
+      typeof parsed[1] === "string" &&
+      /^[0-9a-f-]{36}$/.test(parsed[1])
+    )
+      return [parsed[0], parsed[1]];
   } catch {
     /* fall through */
   }
-  throw new AppError("invalid_input", "That page link is no longer valid. Start again from the first page.", { after: ["Not a page cursor."] });
+  throw new AppError(
+    "invalid_input",
+    "That page link is no longer valid. Start again from the first page.",
+    { after: ["Not a page cursor."] },
+  );
 }
 
-const castAs = (type: string, v: string | number) => (type === "date" ? sql`cast(${String(v)} as date)` : type === "text" ? sql`${String(v)}` : type === "int" ? sql`cast(${Number(v)} as integer)` : sql`cast(${Number(v)} as real)`);
+const castAs = (type: string, v: string | number) =>
+  type === "date"
+    ? sql`cast(${String(v)} as date)`
+    : type === "text"
+      ? sql`${String(v)}`
+      : type === "int"
+        ? sql`cast(${Number(v)} as integer)`
+        : sql`cast(${Number(v)} as real)`;
 
 /** The view's conditions on the property itself: scope, not archived, text search, technician. */
 function propertyConditions(actor: Actor, q: BookQuery) {
@@ -74,7 +124,8 @@ function propertyConditions(actor: Actor, q: BookQuery) {
     ]);
 }
 
-const filtersOnSummary = (q: BookQuery) => q.trend !== undefined || q.kind !== undefined || q.severity !== undefined || q.overdue === "1";
+const filtersOnSummary = (q: BookQuery) =>
+  q.trend !== undefined || q.kind !== undefined || q.severity !== undefined || q.overdue === "1";
 
 /** Every property has its summary row (a trigger inserts it with the property), so the book starts from the summaries. */
 function baseQuery(actor: Actor, q: BookQuery) {
@@ -84,7 +135,9 @@ function baseQuery(actor: Actor, q: BookQuery) {
     .leftJoin("users as tech", "tech.id", "properties.technician_id")
     .where("ps.company_id", "=", actor.companyId)
     .where(propertyConditions(actor, q))
-    .$if(q.trend !== undefined && q.trend !== "none", (b) => b.where("ps.trend_word", "=", q.trend as "declining"))
+    .$if(q.trend !== undefined && q.trend !== "none", (b) =>
+      b.where("ps.trend_word", "=", q.trend as "declining"),
+    )
     .$if(q.trend === "none", (b) => b.where("ps.trend_word", "is", null))
     .$if(q.kind !== undefined, (b) => b.where(sql<boolean>`${q.kind!} = any(ps.alert_kinds)`))
     .$if(q.severity === "high", (b) => b.where("ps.alerts_high", ">", 0))
@@ -97,7 +150,10 @@ function baseQuery(actor: Actor, q: BookQuery) {
 function countQuery(actor: Actor, q: BookQuery) {
   return filtersOnSummary(q)
     ? baseQuery(actor, q).select((eb) => eb.fn.countAll<number>().as("n"))
-    : db().selectFrom("properties").where(propertyConditions(actor, q)).select((eb) => eb.fn.countAll<number>().as("n"));
+    : db()
+        .selectFrom("properties")
+        .where(propertyConditions(actor, q))
+        .select((eb) => eb.fn.countAll<number>().as("n"));
 }
 
 /**
@@ -105,11 +161,18 @@ function countQuery(actor: Actor, q: BookQuery) {
  * view has. The count rides in the page's own statement as a scalar subquery: one round trip to
  * the database instead of two (tests/bench measures the book API under load).
  */
-export async function listBook(actor: Actor, q: BookQuery): Promise<{ rows: BookRow[]; nextCursor: string | null; total: number }> {
+export async function listBook(
+  actor: Actor,
+  q: BookQuery,
+): Promise<{ rows: BookRow[]; nextCursor: string | null; total: number }> {
   const count = countQuery(actor, q);
   const rows = await bookPageQuery(actor, q).select(count.as("view_total")).execute();
   // A page past the end has no row to carry the count: ask for it on its own.
-  const total = rows[0] ? Number(rows[0].view_total) : q.after ? Number((await count.executeTakeFirstOrThrow()).n) : 0;
+  const total = rows[0]
+    ? Number(rows[0].view_total)
+    : q.after
+      ? Number((await count.executeTakeFirstOrThrow()).n)
+      : 0;
   return { ...toPage(rows, q), total };
 }
 
@@ -121,9 +184,22 @@ export function bookPageQuery(actor: Actor, q: BookQuery) {
   const after = q.after ? decodeCursor(q.after) : null;
   return baseQuery(actor, q)
     .selectAll("ps")
-    .select(["properties.id", "properties.name", "properties.street", "properties.city", "properties.technician_id", "tech.name as technician_name"])
+    .select([
+      "properties.id",
+      "properties.name",
+      "properties.street",
+      "properties.city",
+      "properties.technician_id",
+      "tech.name as technician_name",
+    ])
     .select(sort.expr.as("sort_value"))
-    .$if(after !== null, (b) => b.where(dir === "desc" ? sql<boolean>`(${sort.expr}, ${sql.ref(sort.id)}) < (${castAs(sort.type, after![0])}, cast(${after![1]} as uuid))` : sql<boolean>`(${sort.expr}, ${sql.ref(sort.id)}) > (${castAs(sort.type, after![0])}, cast(${after![1]} as uuid))`))
+    .$if(after !== null, (b) =>
+      b.where(
+        dir === "desc"
+          ? sql<boolean>`(${sort.expr}, ${sql.ref(sort.id)}) < (${castAs(sort.type, after![0])}, cast(${after![1]} as uuid))`
+          : sql<boolean>`(${sort.expr}, ${sql.ref(sort.id)}) > (${castAs(sort.type, after![0])}, cast(${after![1]} as uuid))`,
+      ),
+    )
     .orderBy(sort.expr, dir)
     .orderBy(sort.id, dir)
     .limit(q.limit + 1);
@@ -140,7 +216,10 @@ function toPage(rows: PageRow[], q: BookQuery): { rows: BookRow[]; nextCursor: s
       name: r.name,
       street: r.street,
       city: r.city,
-      technician: r.technician_id && r.technician_name ? { id: r.technician_id, name: r.technician_name } : null,
+      technician:
+        r.technician_id && r.technician_name
+          ? { id: r.technician_id, name: r.technician_name }
+          : null,
       lastVisitOn: r.last_visit_on,
       nextVisitOn: r.next_visit_on,
       missedVisitOn: r.missed_visit_on,
@@ -157,12 +236,14 @@ function toPage(rows: PageRow[], q: BookQuery): { rows: BookRow[]; nextCursor: s
       attentionScore: r.attention_score,
       reasons: r.attention_reasons,
     })),
-    nextCursor: rows.length > q.limit && last ? encodeCursor(normalise(last.sort_value), last.id) : null,
+    nextCursor:
+      rows.length > q.limit && last ? encodeCursor(normalise(last.sort_value), last.id) : null,
   };
 }
 
 /** Dates come back as YYYY-MM-DD strings, numbers as numbers: both go into the cursor as they are. */
-const normalise = (v: unknown): string | number => (typeof v === "number" ? v : v instanceof Date ? v.toISOString().slice(0, 10) : String(v));
+const normalise = (v: unknown): string | number =>
+  typeof v === "number" ? v : v instanceof Date ? v.toISOString().slice(0, 10) : String(v);
 
 /** Every row of the filtered book in its order, a page at a time (for the CSV export). */
 export async function* bookRows(actor: Actor, q: BookQuery): AsyncGenerator<BookRow> {
@@ -182,13 +263,29 @@ export async function teamActivity(actor: Actor) {
   const today = todayIn(actor.companyTimeZone);
   const since = addDays(today, -7 * 8 - 7);
   const [technicians, visits] = await Promise.all([
-    db().selectFrom("memberships").innerJoin("users", "users.id", "memberships.user_id").select(["users.id", "users.name"]).where("memberships.company_id", "=", actor.companyId).where("memberships.role", "=", "technician").orderBy("users.name").execute(),
+    db()
+      .selectFrom("memberships")
+      .innerJoin("users", "users.id", "memberships.user_id")
+      .select(["users.id", "users.name"])
+      .where("memberships.company_id", "=", actor.companyId)
+      .where("memberships.role", "=", "technician")
+      .orderBy("users.name")
+      .execute(),
     db()
       .selectFrom("visits")
       .select(["visits.technician_id", "visits.scheduled_for"])
       .select((eb) => [
-        eb.selectFrom("zone_checks").select(eb.fn.countAll<number>().as("n")).whereRef("zone_checks.visit_id", "=", "visits.id").where("zone_checks.status", "=", "done").as("checks"),
-        eb.selectFrom("photos").select(eb.fn.countAll<number>().as("n")).whereRef("photos.visit_id", "=", "visits.id").as("photos"),
+        eb
+          .selectFrom("zone_checks")
+          .select(eb.fn.countAll<number>().as("n"))
+          .whereRef("zone_checks.visit_id", "=", "visits.id")
+          .where("zone_checks.status", "=", "done")
+          .as("checks"),
+        eb
+          .selectFrom("photos")
+          .select(eb.fn.countAll<number>().as("n"))
+          .whereRef("photos.visit_id", "=", "visits.id")
+          .as("photos"),
       ])
       .where("visits.company_id", "=", actor.companyId)
       .where("visits.status", "=", "completed")
@@ -200,7 +297,12 @@ export async function teamActivity(actor: Actor) {
     today,
     technicians: technicianActivity(
       technicians,
-      visits.map((v) => ({ technicianId: v.technician_id!, completedOn: v.scheduled_for, checks: Number(v.checks ?? 0), photos: Number(v.photos ?? 0) })),
+      visits.map((v) => ({
+        technicianId: v.technician_id!,
+        completedOn: v.scheduled_for,
+        checks: Number(v.checks ?? 0),
+        photos: Number(v.photos ?? 0),
+      })),
       today,
     ),
   };

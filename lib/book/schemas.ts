@@ -1,8 +1,12 @@
 // The book's view state, read from the URL (unknown or malformed values fall back, never error).
 import { z } from "zod";
+
 import { ALERT_KINDS } from "@/lib/risk/labels";
 
-const kinds = Object.keys(ALERT_KINDS) as [keyof typeof ALERT_KINDS, ...(keyof typeof ALERT_KINDS)[]];
+const kinds = Object.keys(ALERT_KINDS) as [
+  keyof typeof ALERT_KINDS,
+  ...(keyof typeof ALERT_KINDS)[],
+];
 export const BOOK_SORTS = ["attention", "name", "index", "slope", "last", "next", "n"] as const;
 export type BookSort = (typeof BOOK_SORTS)[number];
 

@@ -8,28 +8,61 @@
 // - Needs attention: declining Index +100, each high alert +30, overdue +20, Index below 60 +10,
 //   each moderate alert +5. The reasons are kept with the score so the book can say why.
 import type { Kysely } from "kysely";
+
 import type { Database } from "@/db/schema";
 import { findGrassSpecies } from "@/fixtures/grass-species";
 import { addDays, daysBetween, todayIn } from "@/lib/dates";
-import { MIN_CHECKS_FOR_CORRELATION, NITROGEN_WINDOW_DAYS, propertyIndexByVisit, recentTrend, zoneCorrelations } from "@/lib/scoring/history";
+import {
+  MIN_CHECKS_FOR_CORRELATION,
+  NITROGEN_WINDOW_DAYS,
+  propertyIndexByVisit,
+  recentTrend,
+  zoneCorrelations,
+} from "@/lib/scoring/history";
 
 export const OVERDUE_AFTER_DAYS = 35;
 export const LOW_INDEX = 60;
-export const ATTENTION = { declining: 100, high: 30, overdue: 20, lowIndex: 10, moderate: 5 } as const;
+export const ATTENTION = {
+  declining: 100,
+  high: 30,
+  overdue: 20,
+  lowIndex: 10,
+  moderate: 5,
+} as const;
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
 
-export async function refreshPropertySummary(executor: Kysely<Database>, companyId: string, propertyId: string): Promise<void> {
-  const property = await executor.selectFrom("properties").select(["id", "time_zone"]).where("company_id", "=", companyId).where("id", "=", propertyId).executeTakeFirst();
+export async function refreshPropertySummary(
+  executor: Kysely<Database>,
+  companyId: string,
+  propertyId: string,
+): Promise<void> {
+  const property = await executor
+    .selectFrom("properties")
+    .select(["id", "time_zone"])
+    .where("company_id", "=", companyId)
+    .where("id", "=", propertyId)
+    .executeTakeFirst();
   if (!property) return;
   const today = todayIn(property.time_zone);
   const year = today.slice(0, 4);
   const [zones, checks, visits, alerts, applications] = await Promise.all([
-    executor.selectFrom("zones").select(["id", "area_ft2", "grass_species"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("archived_at", "is", null).execute(),
+    executor
+      .selectFrom("zones")
+      .select(["id", "area_ft2", "grass_species"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("archived_at", "is", null)
+      .execute(),
     executor
       .selectFrom("zone_checks")
       .innerJoin("visits", "visits.id", "zone_checks.visit_id")
-      .select(["zone_checks.zone_id", "zone_checks.visit_id", "zone_checks.sward_index", "visits.scheduled_for"])
+      .select([
+        "zone_checks.zone_id",
+        "zone_checks.visit_id",
+        "zone_checks.sward_index",
+        "visits.scheduled_for",
+      ])
       .where("zone_checks.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
       .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
@@ -37,14 +70,30 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
       .where("zone_checks.sward_index", "is not", null)
       .where("visits.scheduled_for", ">=", addDays(today, -365))
       .execute(),
-    executor.selectFrom("visits").select(["scheduled_for", "status"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("status", "!=", "cancelled").execute(),
-    executor.selectFrom("risk_alerts").select(["kind", "severity"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("status", "!=", "resolved").execute(),
+    executor
+      .selectFrom("visits")
+      .select(["scheduled_for", "status"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("status", "!=", "cancelled")
+      .execute(),
+    executor
+      .selectFrom("risk_alerts")
+      .select(["kind", "severity"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("status", "!=", "resolved")
+      .execute(),
     // The year's N, and the feedings before each check of the last year (for the N response).
     executor
       .selectFrom("applications")
       .select(["zone_id", "applied_on", "n_lb_per_1000", "wsn_lb_per_1000", "area_ft2"])
       .where("company_id", "=", companyId)
-      .where("zone_id", "in", executor.selectFrom("zones").select("id").where("property_id", "=", propertyId))
+      .where(
+        "zone_id",
+        "in",
+        executor.selectFrom("zones").select("id").where("property_id", "=", propertyId),
+      )
       .where("applied_on", ">=", addDays(today, -365 - NITROGEN_WINDOW_DAYS))
       .where("applied_on", "<=", today)
       .execute(),
@@ -53,20 +102,47 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
 
   const area = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
   const lawn = zones.reduce((s, z) => s + Number(z.area_ft2), 0);
-  const perVisit = propertyIndexByVisit(checks.filter((c) => area.has(c.zone_id)).map((c) => ({ visitId: c.visit_id, date: c.scheduled_for, index: c.sward_index!, areaFt2: area.get(c.zone_id)! })));
+  const perVisit = propertyIndexByVisit(
+    checks
+      .filter((c) => area.has(c.zone_id))
+      .map((c) => ({
+        visitId: c.visit_id,
+        date: c.scheduled_for,
+        index: c.sward_index!,
+        areaFt2: area.get(c.zone_id)!,
+      })),
+  );
   const latest = perVisit.at(-1) ?? null;
   const trend = recentTrend(perVisit);
-  const done = visits.filter((v) => v.status === "completed").map((v) => v.scheduled_for).sort();
-  const open = visits.filter((v) => v.status === "scheduled" || v.status === "in_progress").map((v) => v.scheduled_for).sort();
+  const done = visits
+    .filter((v) => v.status === "completed")
+    .map((v) => v.scheduled_for)
+    .sort();
+  const open = visits
+    .filter((v) => v.status === "scheduled" || v.status === "in_progress")
+    .map((v) => v.scheduled_for)
+    .sort();
   const lastVisit = done.at(-1) ?? null;
   const nextVisit = open.find((d) => d >= today) ?? null;
   const missed = open.find((d) => d < today) ?? null;
-  const isOverdue = missed !== null || (lastVisit !== null && daysBetween(lastVisit, today) > OVERDUE_AFTER_DAYS && nextVisit === null);
+  const isOverdue =
+    missed !== null ||
+    (lastVisit !== null &&
+      daysBetween(lastVisit, today) > OVERDUE_AFTER_DAYS &&
+      nextVisit === null);
   const count = (s: string) => alerts.filter((a) => a.severity === s).length;
   const high = count("high");
   const moderate = count("moderate");
-  const nYtd = lawn ? yearApplications.reduce((s, a) => s + Number(a.n_lb_per_1000) * Number(a.area_ft2), 0) / lawn : 0;
-  const nMax = lawn ? zones.reduce((s, z) => s + (findGrassSpecies(z.grass_species)?.annualNitrogenLb.max ?? 0) * Number(z.area_ft2), 0) / lawn : null;
+  const nYtd = lawn
+    ? yearApplications.reduce((s, a) => s + Number(a.n_lb_per_1000) * Number(a.area_ft2), 0) / lawn
+    : 0;
+  const nMax = lawn
+    ? zones.reduce(
+        (s, z) =>
+          s + (findGrassSpecies(z.grass_species)?.annualNitrogenLb.max ?? 0) * Number(z.area_ft2),
+        0,
+      ) / lawn
+    : null;
 
   const reasons: string[] = [];
   let score = 0;
@@ -80,7 +156,11 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
   }
   if (isOverdue) {
     score += ATTENTION.overdue;
-    reasons.push(missed ? `Visit of ${missed} not done` : `No visit for ${daysBetween(lastVisit!, today)} days`);
+    reasons.push(
+      missed
+        ? `Visit of ${missed} not done`
+        : `No visit for ${daysBetween(lastVisit!, today)} days`,
+    );
   }
   if (latest && latest.index < LOW_INDEX) {
     score += ATTENTION.lowIndex;
@@ -95,8 +175,17 @@ export async function refreshPropertySummary(executor: Kysely<Database>, company
   let enoughChecks = 0;
   let respondingToN = 0;
   for (const z of zones) {
-    const points = checks.filter((c) => c.zone_id === z.id).map((c) => ({ date: c.scheduled_for, index: c.sward_index! }));
-    const feedings = applications.filter((a) => a.zone_id === z.id).map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: "" }));
+    const points = checks
+      .filter((c) => c.zone_id === z.id)
+      .map((c) => ({ date: c.scheduled_for, index: c.sward_index! }));
+    const feedings = applications
+      .filter((a) => a.zone_id === z.id)
+      .map((a) => ({
+        date: a.applied_on,
+        nLb: Number(a.n_lb_per_1000),
+        wsnLb: Number(a.wsn_lb_per_1000),
+        productName: "",
+      }));
     const r = zoneCorrelations(points, feedings, []);
     if (r.n >= MIN_CHECKS_FOR_CORRELATION) enoughChecks++;
     if (r.respondsToNitrogen) respondingToN++;

@@ -31,13 +31,20 @@ export function technicianActivity(
   const first = addDays(weekStart(today), -7 * (weeks - 1));
   const starts = Array.from({ length: weeks }, (_, i) => addDays(first, 7 * i));
   return technicians.map((t) => {
-    const own = visits.filter((v) => v.technicianId === t.id && v.completedOn >= first && v.completedOn <= today);
+    const own = visits.filter(
+      (v) => v.technicianId === t.id && v.completedOn >= first && v.completedOn <= today,
+    );
     const checks = own.reduce((s, v) => s + v.checks, 0);
     const photos = own.reduce((s, v) => s + v.photos, 0);
     return {
       technicianId: t.id,
       name: t.name,
-      weeks: starts.map((w) => ({ weekStart: w, visits: own.filter((v) => daysBetween(w, v.completedOn) >= 0 && daysBetween(w, v.completedOn) < 7).length })),
+      weeks: starts.map((w) => ({
+        weekStart: w,
+        visits: own.filter(
+          (v) => daysBetween(w, v.completedOn) >= 0 && daysBetween(w, v.completedOn) < 7,
+        ).length,
+      })),
       visits: own.length,
       checksPerVisit: own.length ? checks / own.length : null,
       photosPerCheck: checks ? photos / checks : null,

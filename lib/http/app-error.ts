@@ -26,7 +26,12 @@ export class AppError extends Error {
   /** Extra data for the client, e.g. the server's copy of a record on a version conflict. */
   readonly details?: Record<string, unknown>;
 
-  constructor(code: AppErrorCode, message: string, fieldErrors?: Record<string, string[]>, details?: Record<string, unknown>) {
+  constructor(
+    code: AppErrorCode,
+    message: string,
+    fieldErrors?: Record<string, string[]>,
+    details?: Record<string, unknown>,
+  ) {
     super(message);
     this.name = "AppError";
     this.code = code;
@@ -39,10 +44,16 @@ export class AppError extends Error {
   }
 }
 
-export const notFound = (what = "That record") => new AppError("not_found", `${what} was not found.`);
+export const notFound = (what = "That record") =>
+  new AppError("not_found", `${what} was not found.`);
 
 export interface ErrorBody {
-  error: { code: AppErrorCode | "internal"; message: string; fieldErrors?: Record<string, string[]>; details?: Record<string, unknown> };
+  error: {
+    code: AppErrorCode | "internal";
+    message: string;
+    fieldErrors?: Record<string, string[]>;
+    details?: Record<string, unknown>;
+  };
 }
 
 /** Turns anything thrown into a status and a body safe to show: no stack, no SQL. */
@@ -55,6 +66,11 @@ export function toErrorBody(err: unknown): { status: number; body: ErrorBody } {
   }
   return {
     status: 500,
-    body: { error: { code: "internal", message: "Something went wrong on our side. Nothing was changed; please try again." } },
+    body: {
+      error: {
+        code: "internal",
+        message: "Something went wrong on our side. Nothing was changed; please try again.",
+      },
+    },
   };
 }

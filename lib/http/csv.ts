@@ -8,16 +8,29 @@ export function neutraliseCell(value: unknown): string {
 }
 
 /** Streams rows as a CSV download: BOM, header, text cells neutralised, numbers as they are. */
-export function csvResponse(columns: readonly string[], rows: AsyncIterable<(string | number | null)[]>, filename: string): Response {
+export function csvResponse(
+  columns: readonly string[],
+  rows: AsyncIterable<(string | number | null)[]>,
+  filename: string,
+): Response {
   const encoder = new TextEncoder();
   const body = new ReadableStream<Uint8Array>({
     async start(controller) {
       const { stringify } = await import("csv-stringify");
-      const csv = stringify({ header: true, columns: [...columns], cast: { number: (n) => String(n) } });
-      csv.on("data", (chunk: Buffer | string) => controller.enqueue(typeof chunk === "string" ? encoder.encode(chunk) : new Uint8Array(chunk)));
+      const csv = stringify({
+        header: true,
+        columns: [...columns],
+        cast: { number: (n) => String(n) },
+      });
+      csv.on("data", (chunk: Buffer | string) =>
+        controller.enqueue(
+          typeof chunk === "string" ? encoder.encode(chunk) : new Uint8Array(chunk),
+        ),
+      );
       controller.enqueue(encoder.encode(UTF8_BOM));
       try {
-        for await (const row of rows) csv.write(row.map((cell) => (typeof cell === "number" ? cell : neutraliseCell(cell))));
+        for await (const row of rows)
+          csv.write(row.map((cell) => (typeof cell === "number" ? cell : neutraliseCell(cell))));
         csv.end();
         await new Promise<void>((resolve) => csv.on("end", () => resolve()));
         controller.close();
@@ -27,6 +40,10 @@ export function csvResponse(columns: readonly string[], rows: AsyncIterable<(str
     },
   });
   return new Response(body, {
-    headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="${filename}"`, "Cache-Control": "private, no-store" },
+    headers: {
+      "Content-Type": "text/csv; charset=utf-8",
+      "Content-Disposition": `attachment; filename="${filename}"`,
+      "Cache-Control": "private, no-store",
+    },
   });
 }

@@ -3,7 +3,11 @@ import { AppError } from "./app-error";
 
 export async function readBodyLimited(request: Request, maxBytes: number): Promise<Buffer> {
   const declared = Number(request.headers.get("content-length") ?? "0");
-  const tooLarge = () => new AppError("payload_too_large", `The file is larger than ${Math.round(maxBytes / 1024 / 1024)} MB. Send a smaller copy.`);
+  const tooLarge = () =>
+    new AppError(
+      "payload_too_large",
+      `The file is larger than ${Math.round(maxBytes / 1024 / 1024)} MB. Send a smaller copy.`,
+    );
   if (declared > maxBytes) throw tooLarge();
   if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();

@@ -15,6 +15,10 @@ export interface StoredMail {
 
 /** The messages in the inbox folder, oldest first (an absent folder is an empty inbox). */
 export async function readInbox(dir: string): Promise<StoredMail[]> {
-  const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => n.endsWith(".json")).sort();
-  return Promise.all(names.map(async (n) => JSON.parse(await readFile(path.join(dir, n), "utf8")) as StoredMail));
+  const names = (await readdir(dir).catch(() => [] as string[]))
+    .filter((n) => n.endsWith(".json"))
+    .sort();
+  return Promise.all(
+    names.map(async (n) => JSON.parse(await readFile(path.join(dir, n), "utf8")) as StoredMail),
+  );
 }

@@ -4,8 +4,19 @@ import type PgBoss from "pg-boss";
 
 export const MAIL_QUEUE = "mail-outbox";
 
-export async function registerMailOutbox(boss: PgBoss, run: () => Promise<unknown>, options: { timeZone: string }): Promise<void> {
-  await boss.createQueue(MAIL_QUEUE, { name: MAIL_QUEUE, policy: "stately", retryLimit: 5, retryDelay: 20, retryBackoff: true, expireInSeconds: 5 * 60 });
+export async function registerMailOutbox(
+  boss: PgBoss,
+  run: () => Promise<unknown>,
+  options: { timeZone: string },
+): Promise<void> {
+  await boss.createQueue(MAIL_QUEUE, {
+    name: MAIL_QUEUE,
+    policy: "stately",
+    retryLimit: 5,
+    retryDelay: 20,
+    retryBackoff: true,
+    expireInSeconds: 5 * 60,
+  });
   await boss.schedule(MAIL_QUEUE, "* * * * *", {}, { tz: options.timeZone });
   await boss.work(MAIL_QUEUE, { pollingIntervalSeconds: 2 }, async () => run());
 }

@@ -3,12 +3,15 @@
 // so a sign-in link or a report e-mail arrives in seconds. If SMTP fails the row stays pending and
 // the worker's minute-by-minute run retries it; row claims keep the two from sending it twice.
 import "server-only";
+
 import { after } from "next/server";
+
 import { db } from "@/db";
 import { serverEnv } from "@/lib/env";
 import { log } from "@/lib/log";
-import { type Mailer, smtpMailer } from "@/lib/services/mail";
-import { type OutgoingMail, deliverPendingMail, enqueueMail } from "./outbox";
+import { smtpMailer, type Mailer } from "@/lib/services/mail";
+
+import { deliverPendingMail, enqueueMail, type OutgoingMail } from "./outbox";
 
 export function queueMail(mail: OutgoingMail): Promise<boolean> {
   return enqueueMail(db(), mail);
@@ -25,7 +28,10 @@ export function deliverMailAfterResponse(kind?: string): void {
     try {
       await deliverPendingMail(db(), m, 20, kind ? { kind } : undefined);
     } catch (err) {
-      log.warn({ err: err instanceof Error ? err.message : String(err), kind }, "mail delivery failed; the worker will retry");
+      log.warn(
+        { err: err instanceof Error ? err.message : String(err), kind },
+        "mail delivery failed; the worker will retry",
+      );
     }
   });
 }

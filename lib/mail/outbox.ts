@@ -2,6 +2,7 @@
 // pending ones, marking each sent only after SMTP accepted it. Delivery is at least once: a crash
 // between "accepted" and "marked" can repeat one message, never lose it.
 import type { Kysely } from "kysely";
+
 import type { Database } from "@/db/schema";
 import type { Mailer } from "@/lib/services/mail";
 
@@ -16,10 +17,21 @@ export interface OutgoingMail {
 }
 
 /** Queues a message; a second enqueue with the same key does nothing. Returns true when queued now. */
-export async function enqueueMail(executor: Kysely<Database>, mail: OutgoingMail): Promise<boolean> {
+export async function enqueueMail(
+  executor: Kysely<Database>,
+  mail: OutgoingMail,
+): Promise<boolean> {
   const inserted = await executor
     .insertInto("mail_outbox")
-    .values({ company_id: mail.companyId, kind: mail.kind, dedupe_key: mail.dedupeKey, to_address: mail.to, subject: mail.subject, text_body: mail.text, html_body: mail.html })
+    .values({
+      company_id: mail.companyId,
+      kind: mail.kind,
+      dedupe_key: mail.dedupeKey,
+      to_address: mail.to,
+      subject: mail.subject,
+      text_body: mail.text,
+      html_body: mail.html,
+    })
     .onConflict((oc) => oc.column("dedupe_key").doNothing())
     .returning("id")
     .executeTakeFirst();
@@ -32,28 +44,62 @@ export async function enqueueMail(executor: Kysely<Database>, mail: OutgoingMail
  * send the same message twice. Stops at the first SMTP failure (the service is likely down) and
  * throws, so the job retries.
  */
-export async function deliverPendingMail(executor: Kysely<Database>, mailer: Mailer, limit = 100, filter?: { kind?: string }): Promise<{ sent: number; pending: number }> {
+export async function deliverPendingMail(
+  executor: Kysely<Database>,
+  mailer: Mailer,
+  limit = 100,
+  filter?: { kind?: string },
+): Promise<{ sent: number; pending: number }> {
   let sent = 0;
   while (sent < limit) {
     const outcome = await executor.transaction().execute(async (trx) => {
       let query = trx.selectFrom("mail_outbox").selectAll().where("status", "=", "pending");
       if (filter?.kind) query = query.where("kind", "=", filter.kind);
-      const m = await query.orderBy("created_at").limit(1).forUpdate().skipLocked().executeTakeFirst();
+      const m = await query
+        .orderBy("created_at")
+        .limit(1)
+        .forUpdate()
+        .skipLocked()
+        .executeTakeFirst();
       if (!m) return "empty" as const;
       try {
-        await mailer.send({ to: m.to_address, subject: m.subject, text: m.text_body, html: m.html_body });
+        await mailer.send({
+          to: m.to_address,
+          subject: m.subject,
+          text: m.text_body,
+          html: m.html_body,
+        });
       } catch (err) {
-        await trx.updateTable("mail_outbox").set((eb) => ({ attempts: eb("attempts", "+", 1), last_error: String(err instanceof Error ? err.message : err).slice(0, 500) })).where("id", "=", m.id).execute();
+        await trx
+          .updateTable("mail_outbox")
+          .set((eb) => ({
+            attempts: eb("attempts", "+", 1),
+            last_error: String(err instanceof Error ? err.message : err).slice(0, 500),
+          }))
+          .where("id", "=", m.id)
+          .execute();
         return { error: err };
       }
-      await trx.updateTable("mail_outbox").set((eb) => ({ status: "sent", sent_at: new Date(), attempts: eb("attempts", "+", 1), last_error: null })).where("id", "=", m.id).execute();
+      await trx
+        .updateTable("mail_outbox")
+        .set((eb) => ({
+          status: "sent",
+          sent_at: new Date(),
+          attempts: eb("attempts", "+", 1),
+          last_error: null,
+        }))
+        .where("id", "=", m.id)
+        .execute();
       return "sent" as const;
     });
     if (outcome === "empty") break;
     if (outcome !== "sent") throw outcome.error;
     sent++;
   }
-  let remaining = executor.selectFrom("mail_outbox").select((eb) => eb.fn.countAll<string>().as("n")).where("status", "=", "pending");
+  let remaining = executor
+    .selectFrom("mail_outbox")
+    .select((eb) => eb.fn.countAll<string>().as("n"))
+    .where("status", "=", "pending");
   if (filter?.kind) remaining = remaining.where("kind", "=", filter.kind);
   const { n } = await remaining.executeTakeFirstOrThrow();
   return { sent, pending: Number(n) };

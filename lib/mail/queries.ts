@@ -1,5 +1,6 @@
 // Reads for the mail screens (development inbox).
 import "server-only";
+
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 

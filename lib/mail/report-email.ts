@@ -1,24 +1,50 @@
 // The visit report e-mail to a homeowner (pure): a short summary, the care-note titles, the
 // keep-off guidance of anything applied, photos as links, and one button to the report.
-import type { VisitReport } from "@/lib/reports/queries";
 import { formatDate } from "@/lib/dates";
+import type { VisitReport } from "@/lib/reports/queries";
 import { escapeHtml } from "@/lib/text";
 
-
-export function reportEmail(report: Pick<VisitReport, "visitId" | "date" | "propertyName" | "companyName" | "technicianName" | "propertyIndex" | "zones" | "applications" | "careNotes">, appUrl: string, homeownerName: string) {
+export function reportEmail(
+  report: Pick<
+    VisitReport,
+    | "visitId"
+    | "date"
+    | "propertyName"
+    | "companyName"
+    | "technicianName"
+    | "propertyIndex"
+    | "zones"
+    | "applications"
+    | "careNotes"
+  >,
+  appUrl: string,
+  homeownerName: string,
+) {
   const base = appUrl.replace(/\/$/, "");
   const link = `${base}/my-lawn/visits/${report.visitId}`;
   const subject = `Your lawn visit report — ${report.propertyName}, ${formatDate(report.date)}`;
   const keepOff = [...new Set(report.applications.map((a) => a.reentryGuidance).filter(Boolean))];
-  const photos = report.zones.flatMap((z) => z.photos.map((p) => ({ zone: z.name, url: `${base}${p.displayUrl}` })));
+  const photos = report.zones.flatMap((z) =>
+    z.photos.map((p) => ({ zone: z.name, url: `${base}${p.displayUrl}` })),
+  );
   const score = report.propertyIndex === null ? null : Math.round(report.propertyIndex);
   const lines = [
     `Hello ${homeownerName},`,
     "",
     `${report.technicianName ?? report.companyName} visited ${report.propertyName} on ${formatDate(report.date)}.${score !== null ? ` Your lawn's health score: ${score} out of 100.` : ""}`,
-    ...(report.applications.length ? ["", `Applied: ${[...new Set(report.applications.map((a) => a.productName))].join(", ")}.`, ...keepOff.map((k) => `Safety: ${k}`)] : []),
-    ...(report.careNotes.length ? ["", "Care notes for you:", ...report.careNotes.map((n) => `• ${n.note.title}`)] : []),
-    ...(photos.length ? ["", "Photos (sign in to see them):", ...photos.map((p) => `• ${p.zone}: ${p.url}`)] : []),
+    ...(report.applications.length
+      ? [
+          "",
+          `Applied: ${[...new Set(report.applications.map((a) => a.productName))].join(", ")}.`,
+          ...keepOff.map((k) => `Safety: ${k}`),
+        ]
+      : []),
+    ...(report.careNotes.length
+      ? ["", "Care notes for you:", ...report.careNotes.map((n) => `• ${n.note.title}`)]
+      : []),
+    ...(photos.length
+      ? ["", "Photos (sign in to see them):", ...photos.map((p) => `• ${p.zone}: ${p.url}`)]
+      : []),
     "",
     `Read the full report: ${link}`,
     "To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.",

@@ -2,7 +2,12 @@
 // when they did not ask for it.
 import { escapeHtml } from "@/lib/text";
 
-export function signInLinkEmail(input: { link: string; minutes: number; companyName: string; name: string }) {
+export function signInLinkEmail(input: {
+  link: string;
+  minutes: number;
+  companyName: string;
+  name: string;
+}) {
   const subject = `Your sign-in link for ${input.companyName}`;
   const greeting = input.name ? `Hello ${input.name},` : "Hello,";
   const text = [

@@ -1,10 +1,11 @@
 // People of the actor's company (for choosing a technician or linking a homeowner). Staff only.
 import "server-only";
+
 import { db } from "@/db";
 import type { Role } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
-import type { PersonDto } from "./dto";
 
+import type { PersonDto } from "./dto";
 
 export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]> {
   if (actor.role === "homeowner") return [];
@@ -15,5 +16,11 @@ export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]
     .where("memberships.company_id", "=", actor.companyId);
   if (role) q = q.where("memberships.role", "=", role);
   const rows = await q.orderBy("users.name").execute();
-  return rows.map((r) => ({ id: r.id, name: r.name, email: r.email, role: r.role, isDisabled: r.disabled_at !== null }));
+  return rows.map((r) => ({
+    id: r.id,
+    name: r.name,
+    email: r.email,
+    role: r.role,
+    isDisabled: r.disabled_at !== null,
+  }));
 }

@@ -3,6 +3,7 @@
 // Analysis runs on a copy downscaled to ANALYSIS_LONG_SIDE px: cover and mean colour are
 // proportions, which survive downscaling, and the work drops by the square of the factor.
 import sharp from "sharp";
+
 import { dgciOf, isGreen, rgbToHsb } from "./color";
 
 export const ANALYSIS_LONG_SIDE = 512;
@@ -17,7 +18,10 @@ export interface TurfAnalysis {
 }
 
 /** Counts green pixels and averages their DGCI over raw RGB(A) bytes. */
-export function analyzePixels(data: Uint8Array, channels: number): { greenCoverPct: number; dgci: number | null } {
+export function analyzePixels(
+  data: Uint8Array,
+  channels: number,
+): { greenCoverPct: number; dgci: number | null } {
   let green = 0;
   let sum = 0;
   const total = data.length / channels;
@@ -28,16 +32,32 @@ export function analyzePixels(data: Uint8Array, channels: number): { greenCoverP
       sum += clamp01(dgciOf(h, s, v));
     }
   }
-  return { greenCoverPct: total === 0 ? 0 : (100 * green) / total, dgci: green === 0 ? null : sum / green };
+  return {
+    greenCoverPct: total === 0 ? 0 : (100 * green) / total,
+    dgci: green === 0 ? null : sum / green,
+  };
 }
 
-export async function analyzeTurfPhoto(input: Buffer, options: { longSide?: number | null } = {}): Promise<TurfAnalysis> {
+export async function analyzeTurfPhoto(
+  input: Buffer,
+  options: { longSide?: number | null } = {},
+): Promise<TurfAnalysis> {
   const image = sharp(input, { failOn: "truncated", limitInputPixels: 100_000_000 });
   const meta = await image.metadata(); // throws on input that is not an image
   const size = meta.autoOrient ?? { width: meta.width, height: meta.height };
   const longSide = options.longSide === undefined ? ANALYSIS_LONG_SIDE : options.longSide;
   let pipeline = image.rotate();
-  if (longSide) pipeline = pipeline.resize({ width: longSide, height: longSide, fit: "inside", withoutEnlargement: true });
+  if (longSide)
+    pipeline = pipeline.resize({
+      width: longSide,
+      height: longSide,
+      fit: "inside",
+      withoutEnlargement: true,
+    });
   const { data, info } = await pipeline.removeAlpha().raw().toBuffer({ resolveWithObject: true });
-  return { ...analyzePixels(data, info.channels), width: size.width ?? info.width, height: size.height ?? info.height };
+  return {
+    ...analyzePixels(data, info.channels),
+    width: size.width ?? info.width,
+    height: size.height ?? info.height,
+  };
 }

@@ -36,8 +36,18 @@ export function dgciOf(h: number, s: number, v: number): number {
  * for saturation and brightness of at least 0.10, because the hue of a near-grey or near-black
  * pixel is noise. Revisit when the primary text is read.
  */
-export const GREEN_WINDOW = { hueMin: (57 / 255) * 360, hueMax: (107 / 255) * 360, minSaturation: 0.1, minBrightness: 0.1 } as const;
+export const GREEN_WINDOW = {
+  hueMin: (57 / 255) * 360,
+  hueMax: (107 / 255) * 360,
+  minSaturation: 0.1,
+  minBrightness: 0.1,
+} as const;
 
 export function isGreen(h: number, s: number, v: number): boolean {
-  return h >= GREEN_WINDOW.hueMin && h <= GREEN_WINDOW.hueMax && s >= GREEN_WINDOW.minSaturation && v >= GREEN_WINDOW.minBrightness;
+  return (
+    h >= GREEN_WINDOW.hueMin &&
+    h <= GREEN_WINDOW.hueMax &&
+    s >= GREEN_WINDOW.minSaturation &&
+    v >= GREEN_WINDOW.minBrightness
+  );
 }

@@ -2,12 +2,14 @@
 // actor; derivatives are stored under content-hash keys per company, so the same photo is
 // stored once; the same photo on the same check is one row (a retry returns it).
 import "server-only";
+
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import type { PhotoStorage } from "@/lib/services/storage";
 import { visitInScope } from "@/lib/visits/scope";
+
 import type { PhotoDto } from "./dto";
 import type { ProcessedPhoto } from "./process";
 import { findZoneCheckPhoto } from "./queries";
@@ -17,19 +19,35 @@ export async function assertCanAddPhoto(actor: Actor, visitId: string, zoneCheck
   const row = await db()
     .selectFrom("visits")
     .innerJoin("zone_checks", "zone_checks.visit_id", "visits.id")
-    .select(["visits.status", "visits.property_id", "zone_checks.zone_id", "zone_checks.status as check_status"])
+    .select([
+      "visits.status",
+      "visits.property_id",
+      "zone_checks.zone_id",
+      "zone_checks.status as check_status",
+    ])
     .where(visitInScope(actor))
     .where("visits.id", "=", visitId)
     .where("zone_checks.id", "=", zoneCheckId)
     .where("zone_checks.company_id", "=", actor.companyId)
     .executeTakeFirst();
   if (!row) throw notFound("That zone check");
-  if (row.status === "cancelled") throw new AppError("conflict", "This visit was cancelled; photos can no longer be added.");
-  if (row.status === "completed" && actor.role !== "manager") throw new AppError("forbidden", "This visit is finished and locked. Ask your manager to add the photo.");
+  if (row.status === "cancelled")
+    throw new AppError("conflict", "This visit was cancelled; photos can no longer be added.");
+  if (row.status === "completed" && actor.role !== "manager")
+    throw new AppError(
+      "forbidden",
+      "This visit is finished and locked. Ask your manager to add the photo.",
+    );
   return row;
 }
 
-export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: string, photo: ProcessedPhoto, storage: PhotoStorage): Promise<{ photo: PhotoDto; isNew: boolean }> {
+export async function addPhoto(
+  actor: Actor,
+  visitId: string,
+  zoneCheckId: string,
+  photo: ProcessedPhoto,
+  storage: PhotoStorage,
+): Promise<{ photo: PhotoDto; isNew: boolean }> {
   const target = await assertCanAddPhoto(actor, visitId, zoneCheckId);
   const existing = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (existing) return { photo: existing, isNew: false };
@@ -37,7 +55,8 @@ export async function addPhoto(actor: Actor, visitId: string, zoneCheckId: strin
   const prefix = `${actor.companyId}/${photo.contentHash}`;
   const displayKey = `${prefix}-display.webp`;
   const thumbKey = `${prefix}-thumb.webp`;
-  if (!(await storage.has(displayKey))) await storage.put(displayKey, photo.display.data, "image/webp");
+  if (!(await storage.has(displayKey)))
+    await storage.put(displayKey, photo.display.data, "image/webp");
   if (!(await storage.has(thumbKey))) await storage.put(thumbKey, photo.thumb.data, "image/webp");
 
   // The row and the Index it changes commit together: were they apart, a crash between them would

@@ -4,8 +4,10 @@
 import { createHash } from "node:crypto";
 import exifr from "exifr";
 import sharp, { type Metadata } from "sharp";
+
 import { AppError } from "@/lib/http/app-error";
-import { analyzePixels, ANALYSIS_LONG_SIDE } from "./analyze";
+
+import { ANALYSIS_LONG_SIDE, analyzePixels } from "./analyze";
 
 export const PHOTO_LIMITS = {
   /** 25 MB: a 24 MP JPEG straight from a phone is 6–15 MB. */
@@ -33,16 +35,33 @@ export interface ProcessedPhoto {
   gps: { latitude: number; longitude: number } | null;
 }
 
-const refuse = (message: string, code: "invalid_input" | "unsupported_media" = "invalid_input") => new AppError(code === "unsupported_media" ? "unsupported_media" : "invalid_input", message);
+const refuse = (message: string, code: "invalid_input" | "unsupported_media" = "invalid_input") =>
+  new AppError(code === "unsupported_media" ? "unsupported_media" : "invalid_input", message);
 
-async function readEvidence(input: Buffer): Promise<{ capturedLocal: string | null; gps: ProcessedPhoto["gps"] }> {
+async function readEvidence(
+  input: Buffer,
+): Promise<{ capturedLocal: string | null; gps: ProcessedPhoto["gps"] }> {
   try {
-    const tags = (await exifr.parse(input, { pick: ["DateTimeOriginal", "CreateDate"], reviveValues: false })) as Record<string, unknown> | undefined;
+    const tags = (await exifr.parse(input, {
+      pick: ["DateTimeOriginal", "CreateDate"],
+      reviveValues: false,
+    })) as Record<string, unknown> | undefined;
     const raw = (tags?.DateTimeOriginal ?? tags?.CreateDate) as string | undefined;
-    const capturedLocal = typeof raw === "string" && /^\d{4}:\d{2}:\d{2} \d{2}:\d{2}:\d{2}/.test(raw) ? `${raw.slice(0, 10).replaceAll(":", "-")} ${raw.slice(11, 19)}` : null;
+    const capturedLocal =
+      typeof raw === "string" && /^\d{4}:\d{2}:\d{2} \d{2}:\d{2}:\d{2}/.test(raw)
+        ? `${raw.slice(0, 10).replaceAll(":", "-")} ${raw.slice(11, 19)}`
+        : null;
     const gps = await exifr.gps(input).catch(() => undefined);
-    const valid = gps && Number.isFinite(gps.latitude) && Number.isFinite(gps.longitude) && Math.abs(gps.latitude) <= 90 && Math.abs(gps.longitude) <= 180;
-    return { capturedLocal, gps: valid ? { latitude: gps.latitude, longitude: gps.longitude } : null };
+    const valid =
+      gps &&
+      Number.isFinite(gps.latitude) &&
+      Number.isFinite(gps.longitude) &&
+      Math.abs(gps.latitude) <= 90 &&
+      Math.abs(gps.longitude) <= 180;
+    return {
+      capturedLocal,
+      gps: valid ? { latitude: gps.latitude, longitude: gps.longitude } : null,
+    };
   } catch {
     return { capturedLocal: null, gps: null }; // unreadable EXIF is not a reason to refuse a photo
   }
@@ -50,35 +69,77 @@ async function readEvidence(input: Buffer): Promise<{ capturedLocal: string | nu
 
 export async function processPhoto(input: Buffer): Promise<ProcessedPhoto> {
   if (input.length === 0) throw refuse("The file is empty. Choose the photo again.");
-  if (input.length > PHOTO_LIMITS.maxBytes) throw new AppError("payload_too_large", `The photo is larger than ${PHOTO_LIMITS.maxBytes / 1024 / 1024} MB. Send a smaller copy.`);
+  if (input.length > PHOTO_LIMITS.maxBytes)
+    throw new AppError(
+      "payload_too_large",
+      `The photo is larger than ${PHOTO_LIMITS.maxBytes / 1024 / 1024} MB. Send a smaller copy.`,
+    );
 
   let meta: Metadata;
   try {
     meta = await sharp(input, { limitInputPixels: false }).metadata();
   } catch {
-    throw refuse("This file is not a photo Sward can read. Use a JPEG, PNG or WebP image.", "unsupported_media");
+    throw refuse(
+      "This file is not a photo Sward can read. Use a JPEG, PNG or WebP image.",
+      "unsupported_media",
+    );
   }
   const format = meta.format;
   if (format === "heif")
-    throw refuse("HEIC photos cannot be read here. On an iPhone choose Settings › Camera › Formats › Most Compatible, or share the photo as JPEG.", "unsupported_media");
-  if (!format || !ACCEPTED.has(format)) throw refuse(`${String(format ?? "This").toUpperCase()} files are not accepted. Use a JPEG, PNG or WebP photo.`, "unsupported_media");
+    throw refuse(
+      "HEIC photos cannot be read here. On an iPhone choose Settings › Camera › Formats › Most Compatible, or share the photo as JPEG.",
+      "unsupported_media",
+    );
+  if (!format || !ACCEPTED.has(format))
+    throw refuse(
+      `${String(format ?? "This").toUpperCase()} files are not accepted. Use a JPEG, PNG or WebP photo.`,
+      "unsupported_media",
+    );
   if (!meta.width || !meta.height) throw refuse("The photo has no readable size.");
   if (meta.width * meta.height > PHOTO_LIMITS.maxPixels)
-    throw refuse(`The image is ${meta.width} × ${meta.height} pixels, above the ${PHOTO_LIMITS.maxPixels / 1_000_000} megapixel limit. Send a smaller copy.`);
-  if ((meta.pages ?? 1) > 1) throw refuse("Animated or multi-page images are not accepted. Send a single photo.");
+    throw refuse(
+      `The image is ${meta.width} × ${meta.height} pixels, above the ${PHOTO_LIMITS.maxPixels / 1_000_000} megapixel limit. Send a smaller copy.`,
+    );
+  if ((meta.pages ?? 1) > 1)
+    throw refuse("Animated or multi-page images are not accepted. Send a single photo.");
 
   const evidence = await readEvidence(input);
-  const base = () => sharp(input, { failOn: "truncated", limitInputPixels: PHOTO_LIMITS.maxPixels }).timeout({ seconds: PHOTO_LIMITS.timeoutSeconds }).rotate();
+  const base = () =>
+    sharp(input, { failOn: "truncated", limitInputPixels: PHOTO_LIMITS.maxPixels })
+      .timeout({ seconds: PHOTO_LIMITS.timeoutSeconds })
+      .rotate();
   try {
     // Decode and orient once; every derivative comes from this copy. No withMetadata(): sharp
     // writes no EXIF, XMP or ICC into the WebP files.
-    const { data: oriented, info } = await base().toColourspace("srgb").raw().toBuffer({ resolveWithObject: true });
-    const fromOriented = () => sharp(oriented, { raw: { width: info.width, height: info.height, channels: info.channels }, limitInputPixels: PHOTO_LIMITS.maxPixels });
-    const fit = (side: number) => ({ width: side, height: side, fit: "inside" as const, withoutEnlargement: true });
+    const { data: oriented, info } = await base()
+      .toColourspace("srgb")
+      .raw()
+      .toBuffer({ resolveWithObject: true });
+    const fromOriented = () =>
+      sharp(oriented, {
+        raw: { width: info.width, height: info.height, channels: info.channels },
+        limitInputPixels: PHOTO_LIMITS.maxPixels,
+      });
+    const fit = (side: number) => ({
+      width: side,
+      height: side,
+      fit: "inside" as const,
+      withoutEnlargement: true,
+    });
     const [display, thumb, small] = await Promise.all([
-      fromOriented().resize(fit(PHOTO_LIMITS.displayLongSide)).webp({ quality: 80 }).toBuffer({ resolveWithObject: true }),
-      fromOriented().resize(fit(PHOTO_LIMITS.thumbLongSide)).webp({ quality: 70 }).toBuffer({ resolveWithObject: true }),
-      fromOriented().resize(fit(ANALYSIS_LONG_SIDE)).removeAlpha().raw().toBuffer({ resolveWithObject: true }),
+      fromOriented()
+        .resize(fit(PHOTO_LIMITS.displayLongSide))
+        .webp({ quality: 80 })
+        .toBuffer({ resolveWithObject: true }),
+      fromOriented()
+        .resize(fit(PHOTO_LIMITS.thumbLongSide))
+        .webp({ quality: 70 })
+        .toBuffer({ resolveWithObject: true }),
+      fromOriented()
+        .resize(fit(ANALYSIS_LONG_SIDE))
+        .removeAlpha()
+        .raw()
+        .toBuffer({ resolveWithObject: true }),
     ]);
     const analysis = analyzePixels(small.data, small.info.channels);
     return {
@@ -94,8 +155,12 @@ export async function processPhoto(input: Buffer): Promise<ProcessedPhoto> {
     };
   } catch (err) {
     const message = err instanceof Error ? err.message : "";
-    if (/timeout/i.test(message)) throw refuse("The photo took too long to process. Send a smaller copy.");
-    if (/pixel limit/i.test(message)) throw refuse("The image has too many pixels. Send a smaller copy.");
-    throw refuse("The photo could not be read: it may be damaged or cut short. Take or choose it again.");
+    if (/timeout/i.test(message))
+      throw refuse("The photo took too long to process. Send a smaller copy.");
+    if (/pixel limit/i.test(message))
+      throw refuse("The image has too many pixels. Send a smaller copy.");
+    throw refuse(
+      "The photo could not be read: it may be damaged or cut short. Take or choose it again.",
+    );
   }
 }

@@ -19,5 +19,12 @@ export interface ProductDto {
 
 /** The part of a product the nutrient maths need. */
 export function analysisOf(p: ProductDto): import("@/lib/agronomy/nutrients").ProductAnalysis {
-  return { nPct: p.nPct, p2o5Pct: p.p2o5Pct, k2oPct: p.k2oPct, form: p.form, densityLbPerGal: p.densityLbPerGal ?? undefined, slowReleaseNPctOfN: p.slowReleasePctOfN };
+  return {
+    nPct: p.nPct,
+    p2o5Pct: p.p2o5Pct,
+    k2oPct: p.k2oPct,
+    form: p.form,
+    densityLbPerGal: p.densityLbPerGal ?? undefined,
+    slowReleaseNPctOfN: p.slowReleasePctOfN,
+  };
 }

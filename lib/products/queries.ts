@@ -1,9 +1,11 @@
 // The company's product catalogue (staff read it; managers change it).
 import "server-only";
+
 import { db } from "@/db";
 import type { Product } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
+
 import type { ProductDto } from "./dto";
 
 export function toProductDto(p: Product): ProductDto {
@@ -24,7 +26,10 @@ export function toProductDto(p: Product): ProductDto {
   };
 }
 
-export async function listProducts(actor: Actor, options: { includeArchived?: boolean } = {}): Promise<ProductDto[]> {
+export async function listProducts(
+  actor: Actor,
+  options: { includeArchived?: boolean } = {},
+): Promise<ProductDto[]> {
   if (actor.role === "homeowner") return [];
   const rows = await db()
     .selectFrom("products")
@@ -37,7 +42,15 @@ export async function listProducts(actor: Actor, options: { includeArchived?: bo
 }
 
 export async function getProduct(actor: Actor, productId: string): Promise<ProductDto> {
-  const row = actor.role === "homeowner" ? undefined : await db().selectFrom("products").selectAll().where("company_id", "=", actor.companyId).where("id", "=", productId).executeTakeFirst();
+  const row =
+    actor.role === "homeowner"
+      ? undefined
+      : await db()
+          .selectFrom("products")
+          .selectAll()
+          .where("company_id", "=", actor.companyId)
+          .where("id", "=", productId)
+          .executeTakeFirst();
   if (!row) throw notFound("That product");
   return toProductDto(row);
 }

@@ -1,6 +1,6 @@
 // What property data leaves the server: camelCase, no internal columns.
-import type { GrassSeason } from "@/fixtures/grass-species";
 import type { Slope, SunExposure } from "@/db/schema";
+import type { GrassSeason } from "@/fixtures/grass-species";
 
 export interface PropertySummaryDto {
   id: string;
@@ -39,4 +39,8 @@ export const SUN_EXPOSURE_LABEL: Record<SunExposure, string> = {
   shade: "Shade",
 };
 
-export const SLOPE_LABEL: Record<Slope, string> = { flat: "Flat", moderate: "Moderate slope", steep: "Steep slope" };
+export const SLOPE_LABEL: Record<Slope, string> = {
+  flat: "Flat",
+  moderate: "Moderate slope",
+  steep: "Steep slope",
+};

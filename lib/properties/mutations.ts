@@ -1,24 +1,33 @@
 // Property and zone writes (managers). Scope is re-checked in every statement; archiving keeps
 // history (visits and checks stay), and every change is audited.
 import "server-only";
-import { type Transaction, sql } from "kysely";
+
+import { sql, type Transaction } from "kysely";
+
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
+
 import type { PropertyDetailDto, ZoneDto } from "./dto";
-import { ZONE_COLUMNS, toZoneDto } from "./map";
+import { toZoneDto, ZONE_COLUMNS } from "./map";
 import { getProperty } from "./queries";
-import { type PropertyInput, type ZoneInput, areaInFt2 } from "./schemas";
+import { areaInFt2, type PropertyInput, type ZoneInput } from "./schemas";
 
 function requireManager(actor: Actor): void {
-  if (actor.role !== "manager") throw new AppError("forbidden", "Only a manager can change properties and zones.");
+  if (actor.role !== "manager")
+    throw new AppError("forbidden", "Only a manager can change properties and zones.");
 }
 
-const invalid = (field: string, message: string) => new AppError("invalid_input", "Some values need attention.", { [field]: [message] });
+const invalid = (field: string, message: string) =>
+  new AppError("invalid_input", "Some values need attention.", { [field]: [message] });
 
-async function checkReferences(trx: Transaction<Database>, actor: Actor, input: PropertyInput): Promise<void> {
+async function checkReferences(
+  trx: Transaction<Database>,
+  actor: Actor,
+  input: PropertyInput,
+): Promise<void> {
   if (input.technicianId) {
     const tech = await trx
       .selectFrom("memberships")
@@ -30,7 +39,12 @@ async function checkReferences(trx: Transaction<Database>, actor: Actor, input: 
     if (!tech) throw invalid("technicianId", "Choose one of your technicians.");
   }
   if (input.ruleSetId) {
-    const ruleSet = await trx.selectFrom("rule_sets").select("id").where("company_id", "=", actor.companyId).where("id", "=", input.ruleSetId).executeTakeFirst();
+    const ruleSet = await trx
+      .selectFrom("rule_sets")
+      .select("id")
+      .where("company_id", "=", actor.companyId)
+      .where("id", "=", input.ruleSetId)
+      .executeTakeFirst();
     if (!ruleSet) throw invalid("ruleSetId", "Choose one of your rule sets.");
   }
 }
@@ -51,25 +65,42 @@ function propertyColumns(input: PropertyInput) {
   };
 }
 
-export async function createProperty(actor: Actor, input: PropertyInput): Promise<PropertyDetailDto> {
+export async function createProperty(
+  actor: Actor,
+  input: PropertyInput,
+): Promise<PropertyDetailDto> {
   requireManager(actor);
   const id = await db()
     .transaction()
     .execute(async (trx) => {
       await checkReferences(trx, actor, input);
-      const row = await trx.insertInto("properties").values({ company_id: actor.companyId, ...propertyColumns(input) }).returning("id").executeTakeFirstOrThrow();
+      const row = await trx
+        .insertInto("properties")
+        .values({ company_id: actor.companyId, ...propertyColumns(input) })
+        .returning("id")
+        .executeTakeFirstOrThrow();
       await recordAudit(trx, actor, { entity: "property", entityId: row.id, action: "create" });
       return row.id;
     });
   return getProperty(actor, id);
 }
 
-export async function updateProperty(actor: Actor, propertyId: string, input: PropertyInput): Promise<PropertyDetailDto> {
+export async function updateProperty(
+  actor: Actor,
+  propertyId: string,
+  input: PropertyInput,
+): Promise<PropertyDetailDto> {
   requireManager(actor);
   await db()
     .transaction()
     .execute(async (trx) => {
-      const before = await trx.selectFrom("properties").selectAll().where("company_id", "=", actor.companyId).where("id", "=", propertyId).forUpdate().executeTakeFirst();
+      const before = await trx
+        .selectFrom("properties")
+        .selectAll()
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", propertyId)
+        .forUpdate()
+        .executeTakeFirst();
       if (!before) throw notFound("That property");
       await checkReferences(trx, actor, input);
       const next = propertyColumns(input);
@@ -78,26 +109,48 @@ export async function updateProperty(actor: Actor, propertyId: string, input: Pr
         const old = before[key as keyof typeof before];
         if (old !== value) changes[key] = { from: old, to: value };
       }
-      await trx.updateTable("properties").set({ ...next, updated_at: sql<Date>`now()` }).where("company_id", "=", actor.companyId).where("id", "=", propertyId).execute();
-      if (Object.keys(changes).length) await recordAudit(trx, actor, { entity: "property", entityId: propertyId, action: "update", changes });
+      await trx
+        .updateTable("properties")
+        .set({ ...next, updated_at: sql<Date>`now()` })
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", propertyId)
+        .execute();
+      if (Object.keys(changes).length)
+        await recordAudit(trx, actor, {
+          entity: "property",
+          entityId: propertyId,
+          action: "update",
+          changes,
+        });
     });
   return getProperty(actor, propertyId);
 }
 
-export async function setPropertyArchived(actor: Actor, propertyId: string, isArchived: boolean): Promise<PropertyDetailDto> {
+export async function setPropertyArchived(
+  actor: Actor,
+  propertyId: string,
+  isArchived: boolean,
+): Promise<PropertyDetailDto> {
   requireManager(actor);
   await db()
     .transaction()
     .execute(async (trx) => {
       const row = await trx
         .updateTable("properties")
-        .set({ archived_at: isArchived ? sql<Date>`coalesce(archived_at, now())` : null, updated_at: sql<Date>`now()` })
+        .set({
+          archived_at: isArchived ? sql<Date>`coalesce(archived_at, now())` : null,
+          updated_at: sql<Date>`now()`,
+        })
         .where("company_id", "=", actor.companyId)
         .where("id", "=", propertyId)
         .returning("id")
         .executeTakeFirst();
       if (!row) throw notFound("That property");
-      await recordAudit(trx, actor, { entity: "property", entityId: propertyId, action: isArchived ? "archive" : "restore" });
+      await recordAudit(trx, actor, {
+        entity: "property",
+        entityId: propertyId,
+        action: isArchived ? "archive" : "restore",
+      });
     });
   return getProperty(actor, propertyId);
 }
@@ -113,14 +166,27 @@ function zoneColumns(input: ZoneInput) {
   };
 }
 
-export async function createZone(actor: Actor, propertyId: string, input: ZoneInput): Promise<ZoneDto> {
+export async function createZone(
+  actor: Actor,
+  propertyId: string,
+  input: ZoneInput,
+): Promise<ZoneDto> {
   requireManager(actor);
   return db()
     .transaction()
     .execute(async (trx) => {
-      const property = await trx.selectFrom("properties").select(["id", "archived_at"]).where("company_id", "=", actor.companyId).where("id", "=", propertyId).executeTakeFirst();
+      const property = await trx
+        .selectFrom("properties")
+        .select(["id", "archived_at"])
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", propertyId)
+        .executeTakeFirst();
       if (!property) throw notFound("That property");
-      if (property.archived_at) throw new AppError("conflict", "That property is archived; restore it before adding zones.");
+      if (property.archived_at)
+        throw new AppError(
+          "conflict",
+          "That property is archived; restore it before adding zones.",
+        );
       const { next } = await trx
         .selectFrom("zones")
         .select((eb) => eb.fn.coalesce(eb.fn.max("sort_order"), eb.lit(-1)).as("next"))
@@ -128,7 +194,12 @@ export async function createZone(actor: Actor, propertyId: string, input: ZoneIn
         .executeTakeFirstOrThrow();
       const row = await trx
         .insertInto("zones")
-        .values({ company_id: actor.companyId, property_id: propertyId, sort_order: input.sortOrder ?? Number(next) + 1, ...zoneColumns(input) })
+        .values({
+          company_id: actor.companyId,
+          property_id: propertyId,
+          sort_order: input.sortOrder ?? Number(next) + 1,
+          ...zoneColumns(input),
+        })
         .returning([...ZONE_COLUMNS])
         .executeTakeFirstOrThrow();
       await recordAudit(trx, actor, { entity: "zone", entityId: row.id, action: "create" });
@@ -141,12 +212,22 @@ export async function updateZone(actor: Actor, zoneId: string, input: ZoneInput)
   return db()
     .transaction()
     .execute(async (trx) => {
-      const before = await trx.selectFrom("zones").selectAll().where("company_id", "=", actor.companyId).where("id", "=", zoneId).forUpdate().executeTakeFirst();
+      const before = await trx
+        .selectFrom("zones")
+        .selectAll()
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", zoneId)
+        .forUpdate()
+        .executeTakeFirst();
       if (!before) throw notFound("That zone");
       const next = zoneColumns(input);
       const row = await trx
         .updateTable("zones")
-        .set({ ...next, ...(input.sortOrder !== undefined ? { sort_order: input.sortOrder } : {}), updated_at: sql<Date>`now()` })
+        .set({
+          ...next,
+          ...(input.sortOrder !== undefined ? { sort_order: input.sortOrder } : {}),
+          updated_at: sql<Date>`now()`,
+        })
         .where("company_id", "=", actor.companyId)
         .where("id", "=", zoneId)
         .returning([...ZONE_COLUMNS])
@@ -156,35 +237,61 @@ export async function updateZone(actor: Actor, zoneId: string, input: ZoneInput)
         const old = before[key as keyof typeof before];
         if (String(old) !== String(value)) changes[key] = { from: old, to: value };
       }
-      if (Object.keys(changes).length) await recordAudit(trx, actor, { entity: "zone", entityId: zoneId, action: "update", changes });
+      if (Object.keys(changes).length)
+        await recordAudit(trx, actor, {
+          entity: "zone",
+          entityId: zoneId,
+          action: "update",
+          changes,
+        });
       return toZoneDto(row);
     });
 }
 
-export async function setZoneArchived(actor: Actor, zoneId: string, isArchived: boolean): Promise<void> {
+export async function setZoneArchived(
+  actor: Actor,
+  zoneId: string,
+  isArchived: boolean,
+): Promise<void> {
   requireManager(actor);
   await db()
     .transaction()
     .execute(async (trx) => {
       const row = await trx
         .updateTable("zones")
-        .set({ archived_at: isArchived ? sql<Date>`coalesce(archived_at, now())` : null, updated_at: sql<Date>`now()` })
+        .set({
+          archived_at: isArchived ? sql<Date>`coalesce(archived_at, now())` : null,
+          updated_at: sql<Date>`now()`,
+        })
         .where("company_id", "=", actor.companyId)
         .where("id", "=", zoneId)
         .returning("id")
         .executeTakeFirst();
       if (!row) throw notFound("That zone");
-      await recordAudit(trx, actor, { entity: "zone", entityId: zoneId, action: isArchived ? "archive" : "restore" });
+      await recordAudit(trx, actor, {
+        entity: "zone",
+        entityId: zoneId,
+        action: isArchived ? "archive" : "restore",
+      });
     });
 }
 
 /** Links a homeowner by e-mail: an existing homeowner of the company, or a new one (no password yet). */
-export async function linkHomeowner(actor: Actor, propertyId: string, input: { email: string; name: string }): Promise<PropertyDetailDto> {
+export async function linkHomeowner(
+  actor: Actor,
+  propertyId: string,
+  input: { email: string; name: string },
+): Promise<PropertyDetailDto> {
   requireManager(actor);
   await db()
     .transaction()
     .execute(async (trx) => {
-      const property = await trx.selectFrom("properties").select("id").where("company_id", "=", actor.companyId).where("id", "=", propertyId).executeTakeFirst();
+      const property = await trx
+        .selectFrom("properties")
+        .select("id")
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", propertyId)
+        .executeTakeFirst();
       if (!property) throw notFound("That property");
       const user = await trx
         .selectFrom("users")
@@ -195,23 +302,45 @@ export async function linkHomeowner(actor: Actor, propertyId: string, input: { e
       let userId: string;
       if (user) {
         // Do not reveal anything about accounts of other companies.
-        if (user.company_id !== actor.companyId || user.role !== "homeowner") throw invalid("email", "That e-mail cannot be linked as a homeowner. Use another address.");
+        if (user.company_id !== actor.companyId || user.role !== "homeowner")
+          throw invalid(
+            "email",
+            "That e-mail cannot be linked as a homeowner. Use another address.",
+          );
         userId = user.id;
       } else {
-        userId = (await trx.insertInto("users").values({ email: input.email, name: input.name, password_hash: null }).returning("id").executeTakeFirstOrThrow()).id;
-        await trx.insertInto("memberships").values({ company_id: actor.companyId, user_id: userId, role: "homeowner" }).execute();
+        userId = (
+          await trx
+            .insertInto("users")
+            .values({ email: input.email, name: input.name, password_hash: null })
+            .returning("id")
+            .executeTakeFirstOrThrow()
+        ).id;
+        await trx
+          .insertInto("memberships")
+          .values({ company_id: actor.companyId, user_id: userId, role: "homeowner" })
+          .execute();
       }
       await trx
         .insertInto("property_homeowners")
         .values({ property_id: propertyId, user_id: userId, company_id: actor.companyId })
         .onConflict((oc) => oc.columns(["property_id", "user_id"]).doNothing())
         .execute();
-      await recordAudit(trx, actor, { entity: "property", entityId: propertyId, action: "link_homeowner", changes: { homeowner: { from: null, to: input.email } } });
+      await recordAudit(trx, actor, {
+        entity: "property",
+        entityId: propertyId,
+        action: "link_homeowner",
+        changes: { homeowner: { from: null, to: input.email } },
+      });
     });
   return getProperty(actor, propertyId);
 }
 
-export async function unlinkHomeowner(actor: Actor, propertyId: string, userId: string): Promise<PropertyDetailDto> {
+export async function unlinkHomeowner(
+  actor: Actor,
+  propertyId: string,
+  userId: string,
+): Promise<PropertyDetailDto> {
   requireManager(actor);
   await db()
     .transaction()
@@ -224,7 +353,12 @@ export async function unlinkHomeowner(actor: Actor, propertyId: string, userId: 
         .returning("user_id")
         .executeTakeFirst();
       if (!removed) throw notFound("That homeowner link");
-      await recordAudit(trx, actor, { entity: "property", entityId: propertyId, action: "unlink_homeowner", changes: { homeowner: { from: userId, to: null } } });
+      await recordAudit(trx, actor, {
+        entity: "property",
+        entityId: propertyId,
+        action: "unlink_homeowner",
+        changes: { homeowner: { from: userId, to: null } },
+      });
     });
   return getProperty(actor, propertyId);
 }

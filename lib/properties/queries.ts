@@ -1,11 +1,14 @@
 // Property reads, scoped to the actor in every WHERE: managers see their company's book,
 // technicians the properties assigned to them, homeowners their own. Out of scope = not found.
 import "server-only";
+
 import type { SelectQueryBuilder } from "kysely";
+
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
+
 import type { PropertyDetailDto, PropertySummaryDto } from "./dto";
 import { toZoneDto } from "./map";
 import { propertyInScope } from "./scope";
@@ -53,10 +56,17 @@ function toSummary(row: SummaryRow): PropertySummaryDto {
   return {
     id: row.id,
     name: row.name,
-    address: { street: row.street, city: row.city, region: row.region, postalCode: row.postal_code },
+    address: {
+      street: row.street,
+      city: row.city,
+      region: row.region,
+      postalCode: row.postal_code,
+    },
     location: { latitude: row.latitude, longitude: row.longitude },
     timeZone: row.time_zone,
-    technician: row.technician_id ? { id: row.technician_id, name: row.technician_name ?? "" } : null,
+    technician: row.technician_id
+      ? { id: row.technician_id, name: row.technician_name ?? "" }
+      : null,
     ruleSet: row.rule_set_id ? { id: row.rule_set_id, name: row.rule_set_name ?? "" } : null,
     zoneCount: Number(row.zone_count ?? 0),
     lawnAreaFt2: Number(row.lawn_area_ft2 ?? 0),
@@ -64,7 +74,10 @@ function toSummary(row: SummaryRow): PropertySummaryDto {
   };
 }
 
-export async function listProperties(actor: Actor, options: { includeArchived?: boolean } = {}): Promise<PropertySummaryDto[]> {
+export async function listProperties(
+  actor: Actor,
+  options: { includeArchived?: boolean } = {},
+): Promise<PropertySummaryDto[]> {
   const withArchived = options.includeArchived === true && actor.role === "manager";
   const rows = await selectSummary(db().selectFrom("properties"))
     .where(propertyInScope(actor))
@@ -77,12 +90,20 @@ export async function listProperties(actor: Actor, options: { includeArchived?: 
 
 /** 404 "That property" unless the property is within the actor's scope (lists under a property answer as the property does). */
 export async function assertPropertyInScope(actor: Actor, propertyId: string): Promise<void> {
-  const row = await db().selectFrom("properties").select("properties.id").where(propertyInScope(actor)).where("properties.id", "=", propertyId).executeTakeFirst();
+  const row = await db()
+    .selectFrom("properties")
+    .select("properties.id")
+    .where(propertyInScope(actor))
+    .where("properties.id", "=", propertyId)
+    .executeTakeFirst();
   if (!row) throw notFound("That property");
 }
 
 /** The zone, if its property is within the actor's scope; else 404 "That zone". */
-export async function findZoneInScope(actor: Actor, zoneId: string): Promise<{ id: string; name: string; property_id: string }> {
+export async function findZoneInScope(
+  actor: Actor,
+  zoneId: string,
+): Promise<{ id: string; name: string; property_id: string }> {
   const zone = await db()
     .selectFrom("zones")
     .innerJoin("properties", "properties.id", "zones.property_id")
@@ -125,5 +146,10 @@ export async function getProperty(actor: Actor, propertyId: string): Promise<Pro
           .orderBy("users.name")
           .execute();
 
-  return { ...toSummary(row), zones: zones.map(toZoneDto), homeowners, notes: actor.role === "homeowner" ? "" : row.notes };
+  return {
+    ...toSummary(row),
+    zones: zones.map(toZoneDto),
+    homeowners,
+    notes: actor.role === "homeowner" ? "" : row.notes,
+  };
 }

@@ -1,5 +1,6 @@
 // Input schemas for properties and zones, shared by the route handlers and the manager's forms.
 import { z } from "zod";
+
 import { grassSpeciesKeys } from "@/fixtures/grass-species";
 import { isValidTimeZone } from "@/lib/dates";
 
@@ -7,7 +8,11 @@ export const propertyIdParams = z.object({ propertyId: z.uuid() });
 export const zoneIdParams = z.object({ zoneId: z.uuid() });
 
 const text = (label: string, max: number) =>
-  z.string(`${label} is required.`).trim().min(1, `${label} is required.`).max(max, `${label}: at most ${max} characters.`);
+  z
+    .string(`${label} is required.`)
+    .trim()
+    .min(1, `${label} is required.`)
+    .max(max, `${label}: at most ${max} characters.`);
 
 export const propertySchema = z
   .object({
@@ -16,8 +21,14 @@ export const propertySchema = z
     city: text("Town or city", 100),
     region: text("State", 100),
     postalCode: text("ZIP code", 20),
-    latitude: z.number("Enter the latitude as a number, e.g. 40.3342.").min(-90, "Latitude is between -90 and 90.").max(90, "Latitude is between -90 and 90."),
-    longitude: z.number("Enter the longitude as a number, e.g. -74.7391.").min(-180, "Longitude is between -180 and 180.").max(180, "Longitude is between -180 and 180."),
+    latitude: z
+      .number("Enter the latitude as a number, e.g. 40.3342.")
+      .min(-90, "Latitude is between -90 and 90.")
+      .max(90, "Latitude is between -90 and 90."),
+    longitude: z
+      .number("Enter the longitude as a number, e.g. -74.7391.")
+      .min(-180, "Longitude is between -180 and 180.")
+      .max(180, "Longitude is between -180 and 180."),
     timeZone: z.string().refine(isValidTimeZone, "Choose a time zone from the list."),
     ruleSetId: z.uuid("Choose a rule set.").nullable(),
     technicianId: z.uuid("Choose a technician.").nullable(),
@@ -31,7 +42,10 @@ export const M2_PER_FT2 = 0.09290304; // exact: 1 ft = 0.3048 m
 export const zoneSchema = z
   .object({
     name: text("Zone name", 120),
-    area: z.number("Enter the area as a number.").positive("Area must be above 0.").max(10_000_000, "That area is too large for one zone."),
+    area: z
+      .number("Enter the area as a number.")
+      .positive("Area must be above 0.")
+      .max(10_000_000, "That area is too large for one zone."),
     areaUnit: z.enum(["ft2", "m2"]).default("ft2"),
     grassSpecies: z.enum(grassSpeciesKeys, "Choose a grass species."),
     sunExposure: z.enum(["full_sun", "part_shade", "shade"], "Choose the sun exposure."),

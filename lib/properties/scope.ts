@@ -2,6 +2,7 @@
 // properties assigned to them and any property where they have an open visit; homeowners
 // the properties linked to them. Used in every property read and write.
 import type { ExpressionBuilder } from "kysely";
+
 import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 

@@ -49,7 +49,12 @@ function findingsOf(z: ObservedZone): Finding[] {
   if (z.isMatted) out.push("matted");
   if (z.hasTornTips) out.push("torn_tips");
   if (z.isScalped) out.push("scalped");
-  if (z.heightOfCutIn !== null && ((z.speciesMinCutIn !== null && z.heightOfCutIn < z.speciesMinCutIn) || (z.season === "cool" && z.heightOfCutIn < HOME_LAWN_MIN_CUT_IN))) out.push("short_cut");
+  if (
+    z.heightOfCutIn !== null &&
+    ((z.speciesMinCutIn !== null && z.heightOfCutIn < z.speciesMinCutIn) ||
+      (z.season === "cool" && z.heightOfCutIn < HOME_LAWN_MIN_CUT_IN))
+  )
+    out.push("short_cut");
   if (z.hasClumpedClippings) out.push("clumped_clippings");
   if (z.thatchIn !== null && z.thatchIn > THICK_THATCH_IN) out.push("thick_thatch");
   if (z.soilMoisture === "dry") out.push("dry_soil");
@@ -73,19 +78,45 @@ const FINDING_WORDS: Record<Finding, string> = {
   weeds: "weeds",
 };
 
-const isLateSeason = (a: AppliedProduct) => a.season === "cool" && a.nLb > 0 && a.appliedOn.slice(5) >= "09-01" && a.appliedOn.slice(5) <= "11-30";
+const isLateSeason = (a: AppliedProduct) =>
+  a.season === "cool" &&
+  a.nLb > 0 &&
+  a.appliedOn.slice(5) >= "09-01" &&
+  a.appliedOn.slice(5) <= "11-30";
 
-export function matchCareNotes(zones: ObservedZone[], openAlertKinds: string[], applied: AppliedProduct[], symptomName: (key: string) => string = (k) => k): MatchedNote[] {
+export function matchCareNotes(
+  zones: ObservedZone[],
+  openAlertKinds: string[],
+  applied: AppliedProduct[],
+  symptomName: (key: string) => string = (k) => k,
+): MatchedNote[] {
   const matched: MatchedNote[] = [];
   for (const note of CARE_NOTES) {
     const because = new Set<string>();
     for (const t of note.triggers) {
-      if (t.kind === "finding") for (const z of zones) if (findingsOf(z).includes(t.finding)) because.add(`${z.zoneName}: ${FINDING_WORDS[t.finding]}`);
-      if (t.kind === "symptom") for (const z of zones) for (const s of z.symptomKeys) if (t.symptoms.includes(s)) because.add(`${z.zoneName}: ${symptomName(s).toLowerCase()}`);
-      if (t.kind === "alert" && openAlertKinds.includes(t.alert)) because.add(`${alertKindLabel(t.alert).toLowerCase()} (an open alert on your lawn)`);
+      if (t.kind === "finding")
+        for (const z of zones)
+          if (findingsOf(z).includes(t.finding))
+            because.add(`${z.zoneName}: ${FINDING_WORDS[t.finding]}`);
+      if (t.kind === "symptom")
+        for (const z of zones)
+          for (const s of z.symptomKeys)
+            if (t.symptoms.includes(s))
+              because.add(`${z.zoneName}: ${symptomName(s).toLowerCase()}`);
+      if (t.kind === "alert" && openAlertKinds.includes(t.alert))
+        because.add(`${alertKindLabel(t.alert).toLowerCase()} (an open alert on your lawn)`);
       if (t.kind === "applied") {
-        const hits = applied.filter((a) => (t.applied === "fertiliser" ? !a.isPesticide && (a.nLb > 0 || a.p2o5Lb > 0) : t.applied === "pesticide" ? a.isPesticide : isLateSeason(a)));
-        for (const a of hits) because.add(`${a.zoneName}: ${t.applied === "pesticide" ? "treated today" : "fed today"}`);
+        const hits = applied.filter((a) =>
+          t.applied === "fertiliser"
+            ? !a.isPesticide && (a.nLb > 0 || a.p2o5Lb > 0)
+            : t.applied === "pesticide"
+              ? a.isPesticide
+              : isLateSeason(a),
+        );
+        for (const a of hits)
+          because.add(
+            `${a.zoneName}: ${t.applied === "pesticide" ? "treated today" : "fed today"}`,
+          );
       }
     }
     if (because.size) matched.push({ note, because: [...because] });

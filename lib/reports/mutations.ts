@@ -1,12 +1,14 @@
 // After a visit is finished: the report e-mail for each homeowner of the lawn, into the outbox
 // (sent by the worker, retried while SMTP is down; one message per visit and homeowner).
 import "server-only";
+
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { serverEnv } from "@/lib/env";
 import { log } from "@/lib/log";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { reportEmail } from "@/lib/mail/report-email";
+
 import { getVisitReport } from "./queries";
 
 export async function enqueueVisitReportMail(actor: Actor, visitId: string): Promise<number> {
@@ -24,7 +26,16 @@ export async function enqueueVisitReportMail(actor: Actor, visitId: string): Pro
     const appUrl = serverEnv().AUTH_URL ?? "http://localhost:3000";
     for (const h of homeowners) {
       const mail = reportEmail(report, appUrl, h.name);
-      if (await enqueueMail(db(), { companyId: actor.companyId, kind: "visit_report", dedupeKey: `visit_report:${visitId}:${h.id}`, to: h.email, ...mail })) queued++;
+      if (
+        await enqueueMail(db(), {
+          companyId: actor.companyId,
+          kind: "visit_report",
+          dedupeKey: `visit_report:${visitId}:${h.id}`,
+          to: h.email,
+          ...mail,
+        })
+      )
+        queued++;
     }
     return queued;
   } catch (err) {

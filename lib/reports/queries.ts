@@ -1,6 +1,7 @@
 // Visit reports: what a finished visit found and did, for the homeowner of the lawn (and staff).
 // Only completed visits of properties in the actor's scope; anything else is not found.
 import "server-only";
+
 import { db } from "@/db";
 import { findGrassSpecies } from "@/fixtures/grass-species";
 import { findSymptom } from "@/fixtures/symptoms";
@@ -12,7 +13,8 @@ import { listVisitPhotos } from "@/lib/photos/queries";
 import { propertyInScope } from "@/lib/properties/scope";
 import { propertyIndex } from "@/lib/scoring/sward-index";
 import { valuesOf } from "@/lib/visits/map";
-import { type MatchedNote, matchCareNotes } from "./care-notes";
+
+import { matchCareNotes, type MatchedNote } from "./care-notes";
 import { zoneSentences } from "./words";
 
 export interface VisitReport {
@@ -25,14 +27,34 @@ export interface VisitReport {
   technicianName: string | null;
   weather: { tmaxF: number; tminF: number; precipIn: number } | null;
   propertyIndex: number | null;
-  zones: { zoneId: string; name: string; skipped: string | null; sentences: string[]; index: number | null; photos: PhotoDto[] }[];
-  applications: { zoneName: string; productName: string; isPesticide: boolean; registrationNumber: string; nLb: number; p2o5Lb: number; k2oLb: number; labelCautions: string; reentryGuidance: string }[];
+  zones: {
+    zoneId: string;
+    name: string;
+    skipped: string | null;
+    sentences: string[];
+    index: number | null;
+    photos: PhotoDto[];
+  }[];
+  applications: {
+    zoneName: string;
+    productName: string;
+    isPesticide: boolean;
+    registrationNumber: string;
+    nLb: number;
+    p2o5Lb: number;
+    k2oLb: number;
+    labelCautions: string;
+    reentryGuidance: string;
+  }[];
   careNotes: MatchedNote[];
 }
 
 const symptomName = (k: string) => findSymptom(k)?.name ?? k;
 
-export async function listReports(actor: Actor, propertyId: string): Promise<{ visitId: string; date: string }[]> {
+export async function listReports(
+  actor: Actor,
+  propertyId: string,
+): Promise<{ visitId: string; date: string }[]> {
   const rows = await db()
     .selectFrom("visits")
     .innerJoin("properties", "properties.id", "visits.property_id")
@@ -53,26 +75,68 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
     .innerJoin("properties", "properties.id", "visits.property_id")
     .innerJoin("companies", "companies.id", "visits.company_id")
     .leftJoin("users", "users.id", "visits.technician_id")
-    .select(["visits.id", "visits.scheduled_for", "visits.weather", "visits.property_id", "properties.name", "properties.street", "properties.city", "properties.region", "properties.postal_code", "companies.name as company_name", "users.name as technician_name"])
+    .select([
+      "visits.id",
+      "visits.scheduled_for",
+      "visits.weather",
+      "visits.property_id",
+      "properties.name",
+      "properties.street",
+      "properties.city",
+      "properties.region",
+      "properties.postal_code",
+      "companies.name as company_name",
+      "users.name as technician_name",
+    ])
     .where(propertyInScope(actor))
     .where("visits.id", "=", visitId)
     .where("visits.status", "=", "completed")
     .executeTakeFirst();
   if (!visit) throw notFound("That report");
   const [zones, checks, applications, photos, alerts] = await Promise.all([
-    db().selectFrom("zones").selectAll().where("company_id", "=", actor.companyId).where("property_id", "=", visit.property_id).orderBy("sort_order").orderBy("name").execute(),
-    db().selectFrom("zone_checks").selectAll().where("company_id", "=", actor.companyId).where("visit_id", "=", visitId).execute(),
+    db()
+      .selectFrom("zones")
+      .selectAll()
+      .where("company_id", "=", actor.companyId)
+      .where("property_id", "=", visit.property_id)
+      .orderBy("sort_order")
+      .orderBy("name")
+      .execute(),
+    db()
+      .selectFrom("zone_checks")
+      .selectAll()
+      .where("company_id", "=", actor.companyId)
+      .where("visit_id", "=", visitId)
+      .execute(),
     db()
       .selectFrom("applications")
       .innerJoin("products", "products.id", "applications.product_id")
       .innerJoin("zones", "zones.id", "applications.zone_id")
-      .select(["zones.name as zone_name", "zones.grass_species", "products.name as product_name", "products.is_pesticide", "products.registration_number", "products.label_cautions", "products.reentry_guidance", "applications.n_lb_per_1000", "applications.p2o5_lb_per_1000", "applications.k2o_lb_per_1000", "applications.applied_on"])
+      .select([
+        "zones.name as zone_name",
+        "zones.grass_species",
+        "products.name as product_name",
+        "products.is_pesticide",
+        "products.registration_number",
+        "products.label_cautions",
+        "products.reentry_guidance",
+        "applications.n_lb_per_1000",
+        "applications.p2o5_lb_per_1000",
+        "applications.k2o_lb_per_1000",
+        "applications.applied_on",
+      ])
       .where("applications.company_id", "=", actor.companyId)
       .where("applications.visit_id", "=", visitId)
       .orderBy("applications.applied_at")
       .execute(),
     listVisitPhotos(actor, visitId),
-    db().selectFrom("risk_alerts").select("kind").where("company_id", "=", actor.companyId).where("property_id", "=", visit.property_id).where("status", "!=", "resolved").execute(),
+    db()
+      .selectFrom("risk_alerts")
+      .select("kind")
+      .where("company_id", "=", actor.companyId)
+      .where("property_id", "=", visit.property_id)
+      .where("status", "!=", "resolved")
+      .execute(),
   ]);
   const checked = zones.filter((z) => checks.some((c) => c.zone_id === z.id));
   const reportZones = checked.map((z) => {
@@ -81,7 +145,12 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
     return {
       zoneId: z.id,
       name: z.name,
-      skipped: c.status === "skipped" ? (c.skip_reason ? SKIP_REASONS[c.skip_reason] : "Not checked this time") : null,
+      skipped:
+        c.status === "skipped"
+          ? c.skip_reason
+            ? SKIP_REASONS[c.skip_reason]
+            : "Not checked this time"
+          : null,
       sentences: c.status === "skipped" ? [] : zoneSentences(values, symptomName),
       index: c.sward_index,
       photos: photos.filter((p) => p.zoneId === z.id),
@@ -93,10 +162,37 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
     .map(({ z, c }) => {
       const v = valuesOf(c);
       const species = findGrassSpecies(z.grass_species);
-      return { zoneName: z.name, season: species?.season ?? "cool", speciesMinCutIn: species?.heightOfCutIn.min ?? null, mowingDirection: v.mowingDirection, isMatted: v.isMatted, hasTornTips: v.hasTornTips, isScalped: v.isScalped, hasClumpedClippings: v.hasClumpedClippings, heightOfCutIn: v.heightOfCutIn, thatchIn: v.thatchIn, soilMoisture: v.soilMoisture, barePct: v.barePct, weedsPct: v.weedsPct, symptomKeys: v.symptoms.map((s) => s.key) };
+      return {
+        zoneName: z.name,
+        season: species?.season ?? "cool",
+        speciesMinCutIn: species?.heightOfCutIn.min ?? null,
+        mowingDirection: v.mowingDirection,
+        isMatted: v.isMatted,
+        hasTornTips: v.hasTornTips,
+        isScalped: v.isScalped,
+        hasClumpedClippings: v.hasClumpedClippings,
+        heightOfCutIn: v.heightOfCutIn,
+        thatchIn: v.thatchIn,
+        soilMoisture: v.soilMoisture,
+        barePct: v.barePct,
+        weedsPct: v.weedsPct,
+        symptomKeys: v.symptoms.map((s) => s.key),
+      };
     });
-  const applied = applications.map((a) => ({ zoneName: a.zone_name, nLb: Number(a.n_lb_per_1000), p2o5Lb: Number(a.p2o5_lb_per_1000), isPesticide: a.is_pesticide, appliedOn: a.applied_on, season: findGrassSpecies(a.grass_species)?.season ?? ("cool" as const) }));
-  const weather = visit.weather as { status?: string; tmaxF?: number; tminF?: number; precipIn?: number } | null;
+  const applied = applications.map((a) => ({
+    zoneName: a.zone_name,
+    nLb: Number(a.n_lb_per_1000),
+    p2o5Lb: Number(a.p2o5_lb_per_1000),
+    isPesticide: a.is_pesticide,
+    appliedOn: a.applied_on,
+    season: findGrassSpecies(a.grass_species)?.season ?? ("cool" as const),
+  }));
+  const weather = visit.weather as {
+    status?: string;
+    tmaxF?: number;
+    tminF?: number;
+    precipIn?: number;
+  } | null;
   const area = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
   return {
     visitId,
@@ -106,10 +202,32 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
     address: `${visit.street}, ${visit.city}, ${visit.region} ${visit.postal_code}`,
     companyName: visit.company_name,
     technicianName: visit.technician_name,
-    weather: weather?.status === "ok" ? { tmaxF: weather.tmaxF!, tminF: weather.tminF!, precipIn: weather.precipIn! } : null,
-    propertyIndex: propertyIndex(checks.filter((c) => c.sward_index !== null && area.has(c.zone_id)).map((c) => ({ index: c.sward_index!, areaFt2: area.get(c.zone_id)! }))),
+    weather:
+      weather?.status === "ok"
+        ? { tmaxF: weather.tmaxF!, tminF: weather.tminF!, precipIn: weather.precipIn! }
+        : null,
+    propertyIndex: propertyIndex(
+      checks
+        .filter((c) => c.sward_index !== null && area.has(c.zone_id))
+        .map((c) => ({ index: c.sward_index!, areaFt2: area.get(c.zone_id)! })),
+    ),
     zones: reportZones,
-    applications: applications.map((a) => ({ zoneName: a.zone_name, productName: a.product_name, isPesticide: a.is_pesticide, registrationNumber: a.registration_number, nLb: Number(a.n_lb_per_1000), p2o5Lb: Number(a.p2o5_lb_per_1000), k2oLb: Number(a.k2o_lb_per_1000), labelCautions: a.label_cautions, reentryGuidance: a.reentry_guidance })),
-    careNotes: matchCareNotes(observed, alerts.map((a) => a.kind), applied, symptomName),
+    applications: applications.map((a) => ({
+      zoneName: a.zone_name,
+      productName: a.product_name,
+      isPesticide: a.is_pesticide,
+      registrationNumber: a.registration_number,
+      nLb: Number(a.n_lb_per_1000),
+      p2o5Lb: Number(a.p2o5_lb_per_1000),
+      k2oLb: Number(a.k2o_lb_per_1000),
+      labelCautions: a.label_cautions,
+      reentryGuidance: a.reentry_guidance,
+    })),
+    careNotes: matchCareNotes(
+      observed,
+      alerts.map((a) => a.kind),
+      applied,
+      symptomName,
+    ),
   };
 }

@@ -21,7 +21,9 @@ export function zoneSentences(c: ZoneCheckValues, symptomName: (key: string) => 
     ["Thickness", c.density],
     ["Evenness", c.uniformity],
   ];
-  const parts = rated.filter(([, v]) => v !== null).map(([label, v]) => `${label} ${ratingWord(v!)} (${v} of 9)`);
+  const parts = rated
+    .filter(([, v]) => v !== null)
+    .map(([label, v]) => `${label} ${ratingWord(v!)} (${v} of 9)`);
   if (parts.length) out.push(`${parts.join(", ")}.`);
   if ((c.barePct ?? 0) > 0) out.push(`About ${c.barePct} % bare ground.`);
   if ((c.weedsPct ?? 0) > 0) out.push(`About ${c.weedsPct} % weeds.`);
@@ -35,6 +37,9 @@ export function zoneSentences(c: ZoneCheckValues, symptomName: (key: string) => 
   ].filter(Boolean);
   if (mowing.length) out.push(`Mowing: ${mowing.join(", ")}.`);
   if (c.soilMoisture) out.push(`Soil ${c.soilMoisture}.`);
-  for (const s of c.symptoms) out.push(`Signs of ${symptomName(s.key).toLowerCase()} (${SEVERITY[s.severity]}, about ${s.extentPct} % of the zone).`);
+  for (const s of c.symptoms)
+    out.push(
+      `Signs of ${symptomName(s.key).toLowerCase()} (${SEVERITY[s.severity]}, about ${s.extentPct} % of the zone).`,
+    );
   return out;
 }

@@ -1,5 +1,6 @@
 // Alerts as the app shows them.
 import type { AlertSeverity, AlertStatus } from "@/db/schema";
+
 import type { Evidence } from "./rules";
 
 export interface AlertDto {

@@ -3,21 +3,19 @@
 // sweep of the background worker (jobs/worker.ts). Takes the database handle from its caller;
 // idempotent: the same condition updates its one live alert.
 import type { Kysely, Transaction } from "kysely";
+
 import type { Database } from "@/db/schema";
 import { findGrassSpecies } from "@/fixtures/grass-species";
 import { TURF_KC, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
+import { refreshPropertySummary } from "@/lib/book/summary";
 import { addDays, todayIn } from "@/lib/dates";
 import { recentTrend } from "@/lib/scoring/history";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
 import { weatherFromCache } from "@/lib/weather/cache";
 import { deriveDays } from "@/lib/weather/derived";
+
 import { decide } from "./lifecycle";
-import { refreshPropertySummary } from "@/lib/book/summary";
 import {
-  type ApplicationFacts,
-  type CheckFacts,
-  type RiskDay,
-  type RuleResult,
   blackoutApplication,
   brownPatchWeather,
   decliningIndex,
@@ -30,6 +28,10 @@ import {
   overApplication,
   pythiumWeather,
   tornTips,
+  type ApplicationFacts,
+  type CheckFacts,
+  type RiskDay,
+  type RuleResult,
 } from "./rules";
 
 export interface EvaluationSummary {
@@ -47,22 +49,52 @@ type Executor = Kysely<Database>;
 const CHECK_WINDOW_DAYS = 150;
 
 /** The rule results for one property on `at` (zone rules per zone, weather rules for the property). */
-export async function propertyRuleResults(executor: Executor, companyId: string, propertyId: string, at: string, provider: WeatherProvider | null) {
+export async function propertyRuleResults(
+  executor: Executor,
+  companyId: string,
+  propertyId: string,
+  at: string,
+  provider: WeatherProvider | null,
+) {
   const property = await executor
     .selectFrom("properties")
     .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
-    .select(["properties.id", "properties.latitude", "properties.longitude", "properties.time_zone", "rule_sets.name as rule_set_name", "rule_sets.citation as rule_set_citation", "rule_sets.pro_blackout_start"])
+    .select([
+      "properties.id",
+      "properties.latitude",
+      "properties.longitude",
+      "properties.time_zone",
+      "rule_sets.name as rule_set_name",
+      "rule_sets.citation as rule_set_citation",
+      "rule_sets.pro_blackout_start",
+    ])
     .where("properties.company_id", "=", companyId)
     .where("properties.id", "=", propertyId)
     .executeTakeFirstOrThrow();
   const today = todayIn(property.time_zone);
   const year = at.slice(0, 4);
   const [zones, checks, applications, waterings] = await Promise.all([
-    executor.selectFrom("zones").select(["id", "name", "grass_species"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("archived_at", "is", null).execute(),
+    executor
+      .selectFrom("zones")
+      .select(["id", "name", "grass_species"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("archived_at", "is", null)
+      .execute(),
     executor
       .selectFrom("zone_checks")
       .innerJoin("visits", "visits.id", "zone_checks.visit_id")
-      .select(["zone_checks.zone_id", "zone_checks.mowing_direction", "zone_checks.is_matted", "zone_checks.is_scalped", "zone_checks.has_torn_tips", "zone_checks.height_of_cut_in", "zone_checks.symptoms", "zone_checks.sward_index", "visits.scheduled_for"])
+      .select([
+        "zone_checks.zone_id",
+        "zone_checks.mowing_direction",
+        "zone_checks.is_matted",
+        "zone_checks.is_scalped",
+        "zone_checks.has_torn_tips",
+        "zone_checks.height_of_cut_in",
+        "zone_checks.symptoms",
+        "zone_checks.sward_index",
+        "visits.scheduled_for",
+      ])
       .where("zone_checks.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
       .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
@@ -76,24 +108,58 @@ export async function propertyRuleResults(executor: Executor, companyId: string,
     executor
       .selectFrom("applications")
       .innerJoin("products", "products.id", "applications.product_id")
-      .select(["applications.zone_id", "applications.applied_on", "applications.n_lb_per_1000", "applications.findings", "products.name as product_name"])
+      .select([
+        "applications.zone_id",
+        "applications.applied_on",
+        "applications.n_lb_per_1000",
+        "applications.findings",
+        "products.name as product_name",
+      ])
       .where("applications.company_id", "=", companyId)
-      .where("applications.zone_id", "in", executor.selectFrom("zones").select("id").where("property_id", "=", propertyId))
+      .where(
+        "applications.zone_id",
+        "in",
+        executor.selectFrom("zones").select("id").where("property_id", "=", propertyId),
+      )
       .where("applications.applied_on", ">=", `${year}-01-01`)
       .where("applications.applied_on", "<=", at)
       .execute(),
-    executor.selectFrom("waterings").select(["zone_id", "watered_on", "depth_in"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("watered_on", ">=", addDays(at, -20)).execute(),
+    executor
+      .selectFrom("waterings")
+      .select(["zone_id", "watered_on", "depth_in"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("watered_on", ">=", addDays(at, -20))
+      .execute(),
   ]);
-  const weather = await weatherFromCache(executor, provider, property.latitude, property.longitude, addDays(at, -20), addDays(at, 3), today);
+  const weather = await weatherFromCache(
+    executor,
+    provider,
+    property.latitude,
+    property.longitude,
+    addDays(at, -20),
+    addDays(at, 3),
+    today,
+  );
   const raw = new Map(weather.days.map((d) => [d.date, d]));
   const toRiskDays = (kc: number, wateringInByDate: Record<string, number>) =>
     deriveDays(weather.days, { latitudeDeg: property.latitude, kc, wateringInByDate }).map(
-      (d): RiskDay & { balance14In: number } => ({ ...d, rhMinPct: raw.get(d.date)?.rhMinPct ?? null, rhMaxPct: raw.get(d.date)?.rhMaxPct ?? null }),
+      (d): RiskDay & { balance14In: number } => ({
+        ...d,
+        rhMinPct: raw.get(d.date)?.rhMinPct ?? null,
+        rhMaxPct: raw.get(d.date)?.rhMaxPct ?? null,
+      }),
     );
   const propertyDays = toRiskDays(TURF_KC.cool, {});
-  const ruleSource = property.rule_set_name ? `${property.rule_set_name}: ${property.rule_set_citation}` : null;
+  const ruleSource = property.rule_set_name
+    ? `${property.rule_set_name}: ${property.rule_set_citation}`
+    : null;
 
-  const results: { zoneId: string | null; result: RuleResult }[] = [dollarSpotWeather(propertyDays, at), brownPatchWeather(propertyDays, at), pythiumWeather(propertyDays, at)].map((result) => ({ zoneId: null, result }));
+  const results: { zoneId: string | null; result: RuleResult }[] = [
+    dollarSpotWeather(propertyDays, at),
+    brownPatchWeather(propertyDays, at),
+    pythiumWeather(propertyDays, at),
+  ].map((result) => ({ zoneId: null, result }));
   for (const z of zones) {
     const species = findGrassSpecies(z.grass_species);
     const own = checks.filter((c) => c.zone_id === z.id);
@@ -108,9 +174,18 @@ export async function propertyRuleResults(executor: Executor, companyId: string,
     }));
     const apps: ApplicationFacts[] = applications
       .filter((a) => a.zone_id === z.id)
-      .map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), productName: a.product_name, findings: (a.findings as ApplicationFacts["findings"]) ?? [] }));
+      .map((a) => ({
+        date: a.applied_on,
+        nLb: Number(a.n_lb_per_1000),
+        productName: a.product_name,
+        findings: (a.findings as ApplicationFacts["findings"]) ?? [],
+      }));
     const days = toRiskDays(turfKcOf(z.grass_species), zoneWateringByDate(waterings, z.id));
-    const trend = recentTrend(own.filter((c) => c.sward_index !== null).map((c) => ({ date: c.scheduled_for, index: c.sward_index! })));
+    const trend = recentTrend(
+      own
+        .filter((c) => c.sward_index !== null)
+        .map((c) => ({ date: c.scheduled_for, index: c.sward_index! })),
+    );
     const zoneResults = [
       mattedCanopy(facts, days, at),
       droughtStress(days.find((d) => d.date === at)?.balance14In ?? null, days, at, facts.at(-1)),
@@ -128,21 +203,82 @@ export async function propertyRuleResults(executor: Executor, companyId: string,
 }
 
 /** Evaluates a property and applies the lifecycle in one transaction. */
-export async function evaluateProperty(executor: Executor, companyId: string, propertyId: string, options: { at?: string; visitId?: string | null; provider: WeatherProvider | null }): Promise<EvaluationSummary> {
-  const tz = await executor.selectFrom("properties").select("time_zone").where("company_id", "=", companyId).where("id", "=", propertyId).executeTakeFirstOrThrow();
+export async function evaluateProperty(
+  executor: Executor,
+  companyId: string,
+  propertyId: string,
+  options: { at?: string; visitId?: string | null; provider: WeatherProvider | null },
+): Promise<EvaluationSummary> {
+  const tz = await executor
+    .selectFrom("properties")
+    .select("time_zone")
+    .where("company_id", "=", companyId)
+    .where("id", "=", propertyId)
+    .executeTakeFirstOrThrow();
   const at = options.at ?? todayIn(tz.time_zone);
-  const { results, weatherStatus } = await propertyRuleResults(executor, companyId, propertyId, at, options.provider);
-  const summary: EvaluationSummary = { propertyId, at, raised: 0, reopened: 0, updated: 0, cleared: 0, autoResolved: 0, weather: weatherStatus };
+  const { results, weatherStatus } = await propertyRuleResults(
+    executor,
+    companyId,
+    propertyId,
+    at,
+    options.provider,
+  );
+  const summary: EvaluationSummary = {
+    propertyId,
+    at,
+    raised: 0,
+    reopened: 0,
+    updated: 0,
+    cleared: 0,
+    autoResolved: 0,
+    weather: weatherStatus,
+  };
   await executor.transaction().execute(async (trx) => {
     // One evaluation of a property at a time (the sweep and a finished visit may meet).
-    await trx.selectFrom("properties").select("id").where("id", "=", propertyId).forUpdate().execute();
-    const existing = await trx.selectFrom("risk_alerts").selectAll().where("company_id", "=", companyId).where("property_id", "=", propertyId).orderBy("created_at", "desc").execute();
+    await trx
+      .selectFrom("properties")
+      .select("id")
+      .where("id", "=", propertyId)
+      .forUpdate()
+      .execute();
+    const existing = await trx
+      .selectFrom("risk_alerts")
+      .selectAll()
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .orderBy("created_at", "desc")
+      .execute();
     for (const { zoneId, result } of results) {
       const same = existing.filter((a) => a.kind === result.kind && a.zone_id === zoneId);
       const live = same.find((a) => a.status !== "resolved");
       const lastResolved = same.find((a) => a.status === "resolved");
-      const decision = decide(live ? { id: live.id, status: live.status as "open" | "acknowledged", severity: live.severity, summary: live.summary, clearSince: live.clear_since } : null, lastResolved?.id ?? null, result, at);
-      await applyDecision(trx, companyId, propertyId, zoneId, result, decision, live?.id ?? null, live?.status ?? null, at, options.visitId ?? null, summary);
+      const decision = decide(
+        live
+          ? {
+              id: live.id,
+              status: live.status as "open" | "acknowledged",
+              severity: live.severity,
+              summary: live.summary,
+              clearSince: live.clear_since,
+            }
+          : null,
+        lastResolved?.id ?? null,
+        result,
+        at,
+      );
+      await applyDecision(
+        trx,
+        companyId,
+        propertyId,
+        zoneId,
+        result,
+        decision,
+        live?.id ?? null,
+        live?.status ?? null,
+        at,
+        options.visitId ?? null,
+        summary,
+      );
     }
   });
   await refreshPropertySummary(executor, companyId, propertyId); // the book shows alerts, Index and visits
@@ -163,37 +299,100 @@ async function applyDecision(
   summary: EvaluationSummary,
 ) {
   const evidence = JSON.stringify(result.evidence);
-  const event = (alertId: string, action: Database["risk_alert_events"]["action"], from: string | null, to: string | null, details: Record<string, unknown> = {}) =>
-    trx.insertInto("risk_alert_events").values({ alert_id: alertId, company_id: companyId, action, from_status: from as never, to_status: to as never, details: JSON.stringify(details) }).execute();
+  const event = (
+    alertId: string,
+    action: Database["risk_alert_events"]["action"],
+    from: string | null,
+    to: string | null,
+    details: Record<string, unknown> = {},
+  ) =>
+    trx
+      .insertInto("risk_alert_events")
+      .values({
+        alert_id: alertId,
+        company_id: companyId,
+        action,
+        from_status: from as never,
+        to_status: to as never,
+        details: JSON.stringify(details),
+      })
+      .execute();
   switch (decision.action) {
     case "none":
       return;
     case "raise": {
       const { id } = await trx
         .insertInto("risk_alerts")
-        .values({ company_id: companyId, property_id: propertyId, zone_id: zoneId, kind: result.kind, severity: result.severity, summary: result.summary, evidence, source: result.source, raised_on: at, last_seen_on: at, raised_by_visit_id: visitId, previous_alert_id: decision.previousAlertId })
+        .values({
+          company_id: companyId,
+          property_id: propertyId,
+          zone_id: zoneId,
+          kind: result.kind,
+          severity: result.severity,
+          summary: result.summary,
+          evidence,
+          source: result.source,
+          raised_on: at,
+          last_seen_on: at,
+          raised_by_visit_id: visitId,
+          previous_alert_id: decision.previousAlertId,
+        })
         .returning("id")
         .executeTakeFirstOrThrow();
-      await event(id, decision.previousAlertId ? "reopened" : "raised", null, "open", { severity: result.severity, evidence: result.evidence, previousAlertId: decision.previousAlertId });
+      await event(id, decision.previousAlertId ? "reopened" : "raised", null, "open", {
+        severity: result.severity,
+        evidence: result.evidence,
+        previousAlertId: decision.previousAlertId,
+      });
       if (decision.previousAlertId) summary.reopened++;
       else summary.raised++;
       return;
     }
     case "update":
-      await trx.updateTable("risk_alerts").set({ severity: result.severity, summary: result.summary, evidence, last_seen_on: at, clear_since: null, updated_at: new Date() }).where("id", "=", liveId!).execute();
+      await trx
+        .updateTable("risk_alerts")
+        .set({
+          severity: result.severity,
+          summary: result.summary,
+          evidence,
+          last_seen_on: at,
+          clear_since: null,
+          updated_at: new Date(),
+        })
+        .where("id", "=", liveId!)
+        .execute();
       if (decision.severityChanged || decision.returned) {
-        await event(liveId!, decision.returned ? "returned" : "updated", liveStatus, liveStatus, { severity: result.severity, evidence: result.evidence });
+        await event(liveId!, decision.returned ? "returned" : "updated", liveStatus, liveStatus, {
+          severity: result.severity,
+          evidence: result.evidence,
+        });
         summary.updated++;
       }
       return;
     case "clearing":
-      await trx.updateTable("risk_alerts").set({ clear_since: decision.since, updated_at: new Date() }).where("id", "=", liveId!).execute();
+      await trx
+        .updateTable("risk_alerts")
+        .set({ clear_since: decision.since, updated_at: new Date() })
+        .where("id", "=", liveId!)
+        .execute();
       await event(liveId!, "cleared", liveStatus, liveStatus, { evidence: result.evidence });
       summary.cleared++;
       return;
     case "auto_resolve":
-      await trx.updateTable("risk_alerts").set({ status: "resolved", resolution: "auto", resolved_at: new Date(), updated_at: new Date() }).where("id", "=", liveId!).execute();
-      await event(liveId!, "auto_resolved", liveStatus, "resolved", { clearSince: decision.clearSince, evidence: result.evidence });
+      await trx
+        .updateTable("risk_alerts")
+        .set({
+          status: "resolved",
+          resolution: "auto",
+          resolved_at: new Date(),
+          updated_at: new Date(),
+        })
+        .where("id", "=", liveId!)
+        .execute();
+      await event(liveId!, "auto_resolved", liveStatus, "resolved", {
+        clearSince: decision.clearSince,
+        evidence: result.evidence,
+      });
       summary.autoResolved++;
       return;
   }

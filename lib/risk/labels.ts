@@ -16,11 +16,20 @@ export const ALERT_KINDS: Record<AlertKind, string> = {
   late_season_feeding: "Late-season feeding due",
 };
 
-export const SEVERITIES: Record<Severity, string> = { high: "High", moderate: "Moderate", low: "Low" };
+export const SEVERITIES: Record<Severity, string> = {
+  high: "High",
+  moderate: "Moderate",
+  low: "Low",
+};
 export const SEVERITY_ORDER: Record<Severity, number> = { high: 0, moderate: 1, low: 2 };
-export const ALERT_STATUSES = { open: "Open", acknowledged: "Acknowledged", resolved: "Resolved" } as const;
+export const ALERT_STATUSES = {
+  open: "Open",
+  acknowledged: "Acknowledged",
+  resolved: "Resolved",
+} as const;
 
-export const alertKindLabel = (kind: string) => (ALERT_KINDS as Record<string, string>)[kind] ?? kind;
+export const alertKindLabel = (kind: string) =>
+  (ALERT_KINDS as Record<string, string>)[kind] ?? kind;
 
 /** The evidence values of the rules, in words (unknown keys show as they are). */
 export const EVIDENCE_LABELS: Record<string, string> = {

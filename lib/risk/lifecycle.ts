@@ -3,6 +3,7 @@
 // cleared, or resolve it automatically once the condition has stayed clear for
 // AUTO_RESOLVE_AFTER_DAYS days. Acknowledging and resolving by hand are lib/risk/mutations.ts.
 import { daysBetween } from "@/lib/dates";
+
 import type { Severity } from "./rules";
 
 /**
@@ -26,13 +27,23 @@ export type Decision =
   | { action: "clearing"; since: string }
   | { action: "auto_resolve"; clearSince: string };
 
-export function decide(live: LiveAlert | null, lastResolvedId: string | null, result: { raised: boolean; severity: Severity; summary: string }, at: string): Decision {
+export function decide(
+  live: LiveAlert | null,
+  lastResolvedId: string | null,
+  result: { raised: boolean; severity: Severity; summary: string },
+  at: string,
+): Decision {
   if (result.raised) {
     if (!live) return { action: "raise", previousAlertId: lastResolvedId };
-    return { action: "update", severityChanged: live.severity !== result.severity, returned: live.clearSince !== null };
+    return {
+      action: "update",
+      severityChanged: live.severity !== result.severity,
+      returned: live.clearSince !== null,
+    };
   }
   if (!live) return { action: "none" };
   const since = live.clearSince ?? at;
-  if (daysBetween(since, at) >= AUTO_RESOLVE_AFTER_DAYS) return { action: "auto_resolve", clearSince: since };
+  if (daysBetween(since, at) >= AUTO_RESOLVE_AFTER_DAYS)
+    return { action: "auto_resolve", clearSince: since };
   return live.clearSince ? { action: "none" } : { action: "clearing", since: at };
 }

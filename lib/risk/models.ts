@@ -38,8 +38,16 @@ export const PYTHIUM = { tmaxAboveC: 30, tminAboveC: 20, hoursRhAbove90AtLeast: 
  * temperature above 30 °C followed by at least 14 hours of relative humidity above 90 % with the
  * minimum temperature above 20 °C.
  */
-export function pythiumWeatherRisk(day: { tmaxC: number; tminC: number; hoursRhAbove90: number }): boolean {
-  return day.tmaxC > PYTHIUM.tmaxAboveC && day.tminC > PYTHIUM.tminAboveC && day.hoursRhAbove90 >= PYTHIUM.hoursRhAbove90AtLeast;
+export function pythiumWeatherRisk(day: {
+  tmaxC: number;
+  tminC: number;
+  hoursRhAbove90: number;
+}): boolean {
+  return (
+    day.tmaxC > PYTHIUM.tmaxAboveC &&
+    day.tminC > PYTHIUM.tminAboveC &&
+    day.hoursRhAbove90 >= PYTHIUM.hoursRhAbove90AtLeast
+  );
 }
 
 /**

@@ -1,15 +1,17 @@
 // Alert lifecycle by hand: a technician or manager acknowledges with a note; a manager resolves
 // with a note. Evaluating a property after a finished visit. Every change is an event.
 import "server-only";
+
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
+import { refreshPropertySummary } from "@/lib/book/summary";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { weatherProvider } from "@/lib/services/weather/instance";
+
 import type { AlertDto } from "./dto";
-import { type EvaluationSummary, evaluateProperty } from "./evaluate";
+import { evaluateProperty, type EvaluationSummary } from "./evaluate";
 import { getAlert } from "./queries";
-import { refreshPropertySummary } from "@/lib/book/summary";
 
 async function lockAlert(actor: Actor, alertId: string) {
   const alert = await getAlert(actor, alertId); // scope: not found outside the actor's properties
@@ -17,28 +19,54 @@ async function lockAlert(actor: Actor, alertId: string) {
   return alert;
 }
 
-export async function acknowledgeAlert(actor: Actor, alertId: string, note: string): Promise<AlertDto> {
+export async function acknowledgeAlert(
+  actor: Actor,
+  alertId: string,
+  note: string,
+): Promise<AlertDto> {
   const alert = await lockAlert(actor, alertId);
-  if (alert.status === "resolved") throw new AppError("conflict", "This alert is already resolved.");
+  if (alert.status === "resolved")
+    throw new AppError("conflict", "This alert is already resolved.");
   if (alert.status === "acknowledged" && !note) return alert; // acknowledging twice is harmless
   await db()
     .transaction()
     .execute(async (trx) => {
       const updated = await trx
         .updateTable("risk_alerts")
-        .set({ status: "acknowledged", acknowledged_at: alert.acknowledgedAt ?? new Date(), acknowledged_by: alert.status === "acknowledged" ? undefined : actor.userId, updated_at: new Date() })
+        .set({
+          status: "acknowledged",
+          acknowledged_at: alert.acknowledgedAt ?? new Date(),
+          acknowledged_by: alert.status === "acknowledged" ? undefined : actor.userId,
+          updated_at: new Date(),
+        })
         .where("id", "=", alertId)
         .where("status", "!=", "resolved")
         .executeTakeFirst();
-      if (!updated.numUpdatedRows) throw new AppError("conflict", "This alert was resolved meanwhile.");
-      await trx.insertInto("risk_alert_events").values({ alert_id: alertId, company_id: actor.companyId, actor_id: actor.userId, action: "acknowledged", from_status: alert.status, to_status: "acknowledged", note }).execute();
+      if (!updated.numUpdatedRows)
+        throw new AppError("conflict", "This alert was resolved meanwhile.");
+      await trx
+        .insertInto("risk_alert_events")
+        .values({
+          alert_id: alertId,
+          company_id: actor.companyId,
+          actor_id: actor.userId,
+          action: "acknowledged",
+          from_status: alert.status,
+          to_status: "acknowledged",
+          note,
+        })
+        .execute();
     });
   await refreshPropertySummary(db(), actor.companyId, alert.property.id);
   return (await getAlert(actor, alertId))!;
 }
 
 export async function resolveAlert(actor: Actor, alertId: string, note: string): Promise<AlertDto> {
-  if (actor.role !== "manager") throw new AppError("forbidden", "Only a manager can resolve an alert. Acknowledge it with a note instead.");
+  if (actor.role !== "manager")
+    throw new AppError(
+      "forbidden",
+      "Only a manager can resolve an alert. Acknowledge it with a note instead.",
+    );
   const alert = await lockAlert(actor, alertId);
   if (alert.status === "resolved") return alert; // resolving twice is harmless
   await db()
@@ -46,12 +74,29 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
     .execute(async (trx) => {
       const updated = await trx
         .updateTable("risk_alerts")
-        .set({ status: "resolved", resolution: "manual", resolved_at: new Date(), resolved_by: actor.userId, updated_at: new Date() })
+        .set({
+          status: "resolved",
+          resolution: "manual",
+          resolved_at: new Date(),
+          resolved_by: actor.userId,
+          updated_at: new Date(),
+        })
         .where("id", "=", alertId)
         .where("status", "!=", "resolved")
         .executeTakeFirst();
       if (!updated.numUpdatedRows) return;
-      await trx.insertInto("risk_alert_events").values({ alert_id: alertId, company_id: actor.companyId, actor_id: actor.userId, action: "resolved", from_status: alert.status, to_status: "resolved", note }).execute();
+      await trx
+        .insertInto("risk_alert_events")
+        .values({
+          alert_id: alertId,
+          company_id: actor.companyId,
+          actor_id: actor.userId,
+          action: "resolved",
+          from_status: alert.status,
+          to_status: "resolved",
+          note,
+        })
+        .execute();
     });
   await refreshPropertySummary(db(), actor.companyId, alert.property.id);
   return (await getAlert(actor, alertId))!;
@@ -61,11 +106,22 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
  * Evaluates the property of a finished visit, so the technician sees its alerts before leaving.
  * A failure is logged and never undoes the finished visit (the daily sweep evaluates it again).
  */
-export async function evaluateAfterVisit(actor: Actor, visitId: string): Promise<EvaluationSummary | null> {
-  const visit = await db().selectFrom("visits").select(["property_id", "scheduled_for"]).where("company_id", "=", actor.companyId).where("id", "=", visitId).executeTakeFirst();
+export async function evaluateAfterVisit(
+  actor: Actor,
+  visitId: string,
+): Promise<EvaluationSummary | null> {
+  const visit = await db()
+    .selectFrom("visits")
+    .select(["property_id", "scheduled_for"])
+    .where("company_id", "=", actor.companyId)
+    .where("id", "=", visitId)
+    .executeTakeFirst();
   if (!visit) return null;
   try {
-    return await evaluateProperty(db(), actor.companyId, visit.property_id, { visitId, provider: weatherProvider("quick") });
+    return await evaluateProperty(db(), actor.companyId, visit.property_id, {
+      visitId,
+      provider: weatherProvider("quick"),
+    });
   } catch (err) {
     log.error({ err, visitId }, "alert evaluation after a visit failed");
     return null;

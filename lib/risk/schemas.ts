@@ -1,5 +1,6 @@
 // Inputs of the alert endpoints and the alerts page filters.
 import { z } from "zod";
+
 import { ALERT_KINDS } from "./labels";
 
 export const alertIdParams = z.object({ alertId: z.uuid() });
@@ -8,7 +9,10 @@ const note = z.string().trim().max(2000, "Keep the note under 2,000 characters."
 export const acknowledgeSchema = z.object({ note: note.default("") }).strict();
 export const resolveSchema = z.object({ note: note.min(1, "Say how it was resolved.") }).strict();
 
-const kinds = Object.keys(ALERT_KINDS) as [keyof typeof ALERT_KINDS, ...(keyof typeof ALERT_KINDS)[]];
+const kinds = Object.keys(ALERT_KINDS) as [
+  keyof typeof ALERT_KINDS,
+  ...(keyof typeof ALERT_KINDS)[],
+];
 /** The alerts page filters, read from the URL (anything unknown is ignored, never an error). */
 export const alertFilters = z.object({
   kind: z.enum(kinds).optional().catch(undefined),

@@ -2,8 +2,10 @@
 // that fails is logged and the sweep goes on; the sweep then fails as a whole so the job queue
 // retries it (evaluation is idempotent, so properties done the first time change nothing).
 import type { Kysely } from "kysely";
+
 import type { Database } from "@/db/schema";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
+
 import { evaluateProperty } from "./evaluate";
 
 export interface SweepResult {
@@ -17,10 +19,29 @@ export interface SweepResult {
   ms: number;
 }
 
-export async function sweepBook(executor: Kysely<Database>, provider: WeatherProvider | null, options: { onError?: (propertyId: string, err: unknown) => void; concurrency?: number } = {}): Promise<SweepResult> {
+export async function sweepBook(
+  executor: Kysely<Database>,
+  provider: WeatherProvider | null,
+  options: { onError?: (propertyId: string, err: unknown) => void; concurrency?: number } = {},
+): Promise<SweepResult> {
   const started = Date.now();
-  const properties = await executor.selectFrom("properties").select(["id", "company_id"]).where("archived_at", "is", null).orderBy("company_id").orderBy("id").execute();
-  const result: SweepResult = { properties: properties.length, failed: 0, raised: 0, reopened: 0, updated: 0, cleared: 0, autoResolved: 0, ms: 0 };
+  const properties = await executor
+    .selectFrom("properties")
+    .select(["id", "company_id"])
+    .where("archived_at", "is", null)
+    .orderBy("company_id")
+    .orderBy("id")
+    .execute();
+  const result: SweepResult = {
+    properties: properties.length,
+    failed: 0,
+    raised: 0,
+    reopened: 0,
+    updated: 0,
+    cleared: 0,
+    autoResolved: 0,
+    ms: 0,
+  };
   // Properties are independent: a few at a time keep the database busy while Node evaluates rules.
   let next = 0;
   const lane = async () => {
@@ -39,7 +60,9 @@ export async function sweepBook(executor: Kysely<Database>, provider: WeatherPro
       }
     }
   };
-  await Promise.all(Array.from({ length: Math.max(1, options.concurrency ?? SWEEP_CONCURRENCY) }, lane));
+  await Promise.all(
+    Array.from({ length: Math.max(1, options.concurrency ?? SWEEP_CONCURRENCY) }, lane),
+  );
   result.ms = Date.now() - started;
   if (result.failed) throw new SweepIncomplete(result);
   return result;

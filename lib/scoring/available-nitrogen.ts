@@ -5,7 +5,11 @@
 const DAY_MS = 86_400_000;
 export const SLOW_RELEASE_DAYS = 56;
 
-export function availableNitrogen(applications: { date: string; wsnLb: number; slowLb: number }[], at: string, windowDays = 45): number {
+export function availableNitrogen(
+  applications: { date: string; wsnLb: number; slowLb: number }[],
+  at: string,
+  windowDays = 45,
+): number {
   const end = Date.parse(`${at}T00:00:00Z`);
   const start = end - windowDays * DAY_MS;
   let total = 0;

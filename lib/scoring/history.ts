@@ -16,6 +16,7 @@
 //   It is a pattern, not proof: correlation is not cause.
 import { addDays } from "@/lib/dates";
 import type { DerivedDay } from "@/lib/weather/derived";
+
 import { availableNitrogen } from "./available-nitrogen";
 import { propertyIndex } from "./sward-index";
 import { correlate, indexTrend, trendWord, type TrendWord } from "./trend";
@@ -96,10 +97,18 @@ export interface ZoneCorrelations {
  * `days` are the zone's derived weather days (with its own Kc and watering); checks without a
  * weather day the day before get no water value and are left out of the water correlation only.
  */
-export function zoneCorrelations(checks: IndexPoint[], applications: NitrogenEvent[], days: DerivedDay[]): ZoneCorrelations {
+export function zoneCorrelations(
+  checks: IndexPoint[],
+  applications: NitrogenEvent[],
+  days: DerivedDay[],
+): ZoneCorrelations {
   const sorted = [...checks].sort((a, b) => a.date.localeCompare(b.date));
   const byDate = new Map(days.map((d) => [d.date, d]));
-  const nInputs = applications.map((a) => ({ date: a.date, wsnLb: a.wsnLb, slowLb: Math.max(0, a.nLb - a.wsnLb) }));
+  const nInputs = applications.map((a) => ({
+    date: a.date,
+    wsnLb: a.wsnLb,
+    slowLb: Math.max(0, a.nLb - a.wsnLb),
+  }));
   const pairs = sorted.map((c) => {
     const dayBefore = addDays(c.date, -1);
     return {
@@ -109,15 +118,27 @@ export function zoneCorrelations(checks: IndexPoint[], applications: NitrogenEve
       balance14In: byDate.get(dayBefore)?.balance14In ?? null,
     };
   });
-  const withWater = pairs.filter((p): p is CorrelationPair & { balance14In: number } => p.balance14In !== null);
-  const nitrogen = correlate(pairs.map((p) => p.availableNLb), pairs.map((p) => p.index), MIN_CHECKS_FOR_CORRELATION);
-  const water = correlate(withWater.map((p) => p.balance14In), withWater.map((p) => p.index), MIN_CHECKS_FOR_CORRELATION);
+  const withWater = pairs.filter(
+    (p): p is CorrelationPair & { balance14In: number } => p.balance14In !== null,
+  );
+  const nitrogen = correlate(
+    pairs.map((p) => p.availableNLb),
+    pairs.map((p) => p.index),
+    MIN_CHECKS_FOR_CORRELATION,
+  );
+  const water = correlate(
+    withWater.map((p) => p.balance14In),
+    withWater.map((p) => p.index),
+    MIN_CHECKS_FOR_CORRELATION,
+  );
   return {
     pairs,
     nitrogen,
     water,
     n: pairs.length,
-    respondsToNitrogen: nitrogen ? nitrogen.pearson >= RESPONDS_TO_N_R && nitrogen.spearman >= RESPONDS_TO_N_R : null,
+    respondsToNitrogen: nitrogen
+      ? nitrogen.pearson >= RESPONDS_TO_N_R && nitrogen.spearman >= RESPONDS_TO_N_R
+      : null,
   };
 }
 
@@ -133,7 +154,9 @@ export interface PropertyVisitIndex {
  * The property index of each visit: the area-weighted mean of the zones checked at that visit
  * (zones skipped or not yet rated are left out, so a visit is scored on what was seen).
  */
-export function propertyIndexByVisit(checks: { visitId: string; date: string; index: number; areaFt2: number }[]): PropertyVisitIndex[] {
+export function propertyIndexByVisit(
+  checks: { visitId: string; date: string; index: number; areaFt2: number }[],
+): PropertyVisitIndex[] {
   const byVisit = new Map<string, { date: string; zones: { index: number; areaFt2: number }[] }>();
   for (const c of checks) {
     const entry = byVisit.get(c.visitId) ?? { date: c.date, zones: [] };
@@ -152,7 +175,10 @@ export function propertyIndexByVisit(checks: { visitId: string; date: string; in
 }
 
 /** Property-wide N per application date: area-weighted lb N / 1,000 ft² over the whole lawn. */
-export function propertyNitrogenEvents(applications: (NitrogenEvent & { areaFt2: number })[], lawnAreaFt2: number): NitrogenEvent[] {
+export function propertyNitrogenEvents(
+  applications: (NitrogenEvent & { areaFt2: number })[],
+  lawnAreaFt2: number,
+): NitrogenEvent[] {
   const byDate = new Map<string, NitrogenEvent>();
   for (const a of applications) {
     if (a.nLb <= 0) continue;
@@ -160,15 +186,22 @@ export function propertyNitrogenEvents(applications: (NitrogenEvent & { areaFt2:
     const e = byDate.get(a.date) ?? { date: a.date, nLb: 0, wsnLb: 0, productName: a.productName };
     e.nLb += a.nLb * share;
     e.wsnLb += a.wsnLb * share;
-    if (!e.productName.split(", ").includes(a.productName)) e.productName = `${e.productName}, ${a.productName}`;
+    if (!e.productName.split(", ").includes(a.productName))
+      e.productName = `${e.productName}, ${a.productName}`;
     byDate.set(a.date, e);
   }
   return [...byDate.values()].sort((a, b) => a.date.localeCompare(b.date));
 }
 
 /** Counts of property indexes in bins of 10 points (0–9, 10–19, …, 90–100). */
-export function indexDistribution(indexes: number[]): { from: number; to: number; count: number }[] {
-  const bins = Array.from({ length: 10 }, (_, i) => ({ from: i * 10, to: i === 9 ? 100 : i * 10 + 9, count: 0 }));
+export function indexDistribution(
+  indexes: number[],
+): { from: number; to: number; count: number }[] {
+  const bins = Array.from({ length: 10 }, (_, i) => ({
+    from: i * 10,
+    to: i === 9 ? 100 : i * 10 + 9,
+    count: 0,
+  }));
   for (const x of indexes) bins[Math.min(9, Math.max(0, Math.floor(x / 10)))]!.count++;
   return bins;
 }

@@ -2,27 +2,29 @@
 // is computed by the pure functions of lib/scoring/history.ts. Stored Indexes only (never
 // recomputed at read time); weather through the shared cache of lib/weather/queries.ts.
 import "server-only";
+
 import { db } from "@/db";
 import { lawnKc, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { propertyInScope } from "@/lib/properties/scope";
 import { weatherProvider } from "@/lib/services/weather/instance";
-import { type DerivedDay, deriveDays } from "@/lib/weather/derived";
+import { deriveDays, type DerivedDay } from "@/lib/weather/derived";
 import { propertyLocation, weatherForLocation } from "@/lib/weather/queries";
+
 import {
-  type CheckPoint,
-  type NitrogenEvent,
-  type PropertyVisitIndex,
-  type SeasonChange,
-  type Trend,
-  type ZoneCorrelations,
   indexDistribution,
   propertyIndexByVisit,
   propertyNitrogenEvents,
   recentTrend,
   seasonChange,
   zoneCorrelations,
+  type CheckPoint,
+  type NitrogenEvent,
+  type PropertyVisitIndex,
+  type SeasonChange,
+  type Trend,
+  type ZoneCorrelations,
 } from "./history";
 
 /** How far back histories reach: one year of checks (charts start at the first of them). */
@@ -58,19 +60,46 @@ export interface PropertyScoreHistory {
 }
 
 /** Everything the Index charts of a property need: per visit, per zone, with weather. */
-export async function propertyScoreHistory(actor: Actor, propertyId: string, options: { weather?: boolean } = {}): Promise<PropertyScoreHistory> {
+export async function propertyScoreHistory(
+  actor: Actor,
+  propertyId: string,
+  options: { weather?: boolean } = {},
+): Promise<PropertyScoreHistory> {
   const property = await propertyLocation(actor, propertyId);
   const today = todayIn(property.time_zone);
   const since = addDays(today, -HISTORY_DAYS);
   const companyId = actor.companyId;
 
   const [zones, checks, applications, waterings] = await Promise.all([
-    db().selectFrom("zones").select(["id", "name", "area_ft2", "grass_species"]).where("company_id", "=", companyId).where("property_id", "=", propertyId).where("archived_at", "is", null).orderBy("sort_order").orderBy("name").execute(),
+    db()
+      .selectFrom("zones")
+      .select(["id", "name", "area_ft2", "grass_species"])
+      .where("company_id", "=", companyId)
+      .where("property_id", "=", propertyId)
+      .where("archived_at", "is", null)
+      .orderBy("sort_order")
+      .orderBy("name")
+      .execute(),
     db()
       .selectFrom("zone_checks")
       .innerJoin("visits", "visits.id", "zone_checks.visit_id")
-      .select(["zone_checks.id", "zone_checks.zone_id", "zone_checks.visit_id", "zone_checks.sward_index", "visits.scheduled_for"])
-      .select((eb) => eb.exists(eb.selectFrom("photos").select("photos.id").whereRef("photos.zone_check_id", "=", "zone_checks.id")).as("has_photo"))
+      .select([
+        "zone_checks.id",
+        "zone_checks.zone_id",
+        "zone_checks.visit_id",
+        "zone_checks.sward_index",
+        "visits.scheduled_for",
+      ])
+      .select((eb) =>
+        eb
+          .exists(
+            eb
+              .selectFrom("photos")
+              .select("photos.id")
+              .whereRef("photos.zone_check_id", "=", "zone_checks.id"),
+          )
+          .as("has_photo"),
+      )
       .where("zone_checks.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
       .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
@@ -83,7 +112,14 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
       .selectFrom("applications")
       .innerJoin("visits", "visits.id", "applications.visit_id")
       .innerJoin("products", "products.id", "applications.product_id")
-      .select(["applications.zone_id", "applications.applied_on", "applications.n_lb_per_1000", "applications.wsn_lb_per_1000", "applications.area_ft2", "products.name as product_name"])
+      .select([
+        "applications.zone_id",
+        "applications.applied_on",
+        "applications.n_lb_per_1000",
+        "applications.wsn_lb_per_1000",
+        "applications.area_ft2",
+        "products.name as product_name",
+      ])
       .where("applications.company_id", "=", companyId)
       .where("visits.property_id", "=", propertyId)
       .where("visits.company_id", "=", companyId) // lets the planner use visits_property_idx
@@ -105,17 +141,38 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
   const weather =
     options.weather === false
       ? { days: [], status: "unavailable" as const, message: null }
-      : await weatherForLocation(weatherProvider(), property.latitude, property.longitude, addDays(first, -15), today, today);
+      : await weatherForLocation(
+          weatherProvider(),
+          property.latitude,
+          property.longitude,
+          addDays(first, -15),
+          today,
+          today,
+        );
 
   const lawnArea = zones.reduce((s, z) => s + Number(z.area_ft2), 0);
   const zoneHistories: ZoneScoreHistory[] = zones.map((z) => {
     const own = checks.filter((c) => c.zone_id === z.id);
-    const points: CheckPoint[] = own.map((c) => ({ date: c.scheduled_for, index: c.sward_index!, visitId: c.visit_id, hasPhoto: Boolean(c.has_photo) }));
+    const points: CheckPoint[] = own.map((c) => ({
+      date: c.scheduled_for,
+      index: c.sward_index!,
+      visitId: c.visit_id,
+      hasPhoto: Boolean(c.has_photo),
+    }));
     const apps: NitrogenEvent[] = applications
       .filter((a) => a.zone_id === z.id)
-      .map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: a.product_name }));
+      .map((a) => ({
+        date: a.applied_on,
+        nLb: Number(a.n_lb_per_1000),
+        wsnLb: Number(a.wsn_lb_per_1000),
+        productName: a.product_name,
+      }));
     const wateringByDate = zoneWateringByDate(waterings, z.id);
-    const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc: turfKcOf(z.grass_species), wateringInByDate: wateringByDate });
+    const days = deriveDays(weather.days, {
+      latitudeDeg: property.latitude,
+      kc: turfKcOf(z.grass_species),
+      wateringInByDate: wateringByDate,
+    });
     return {
       zoneId: z.id,
       name: z.name,
@@ -133,17 +190,36 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
   });
 
   const areaOf = new Map(zones.map((z) => [z.id, Number(z.area_ft2)]));
-  const visits = propertyIndexByVisit(checks.filter((c) => areaOf.has(c.zone_id)).map((c) => ({ visitId: c.visit_id, date: c.scheduled_for, index: c.sward_index!, areaFt2: areaOf.get(c.zone_id)! }))).map((v) => ({
+  const visits = propertyIndexByVisit(
+    checks
+      .filter((c) => areaOf.has(c.zone_id))
+      .map((c) => ({
+        visitId: c.visit_id,
+        date: c.scheduled_for,
+        index: c.sward_index!,
+        areaFt2: areaOf.get(c.zone_id)!,
+      })),
+  ).map((v) => ({
     ...v,
     hasPhoto: checks.some((c) => c.visit_id === v.visitId && c.has_photo),
   }));
   const propertyApps = propertyNitrogenEvents(
-    applications.map((a) => ({ date: a.applied_on, nLb: Number(a.n_lb_per_1000), wsnLb: Number(a.wsn_lb_per_1000), productName: a.product_name, areaFt2: Number(a.area_ft2) })),
+    applications.map((a) => ({
+      date: a.applied_on,
+      nLb: Number(a.n_lb_per_1000),
+      wsnLb: Number(a.wsn_lb_per_1000),
+      productName: a.product_name,
+      areaFt2: Number(a.area_ft2),
+    })),
     lawnArea,
   ).filter((a) => a.date >= from);
 
   // Weather for the charts: the property's mean Kc (area-weighted) for turf use.
-  const days = deriveDays(weather.days, { latitudeDeg: property.latitude, kc: lawnKc(zones), wateringInByDate: {} }).filter((d) => d.date >= from && d.date <= today);
+  const days = deriveDays(weather.days, {
+    latitudeDeg: property.latitude,
+    kc: lawnKc(zones),
+    wateringInByDate: {},
+  }).filter((d) => d.date >= from && d.date <= today);
   const indexPoints = visits.map((v) => ({ date: v.date, index: v.index }));
 
   return {
@@ -155,7 +231,10 @@ export async function propertyScoreHistory(actor: Actor, propertyId: string, opt
     applications: propertyApps,
     trend: recentTrend(indexPoints),
     season: seasonChange(indexPoints),
-    zones: zoneHistories.map((z) => ({ ...z, applications: z.applications.filter((a) => a.date >= from) })),
+    zones: zoneHistories.map((z) => ({
+      ...z,
+      applications: z.applications.filter((a) => a.date >= from),
+    })),
   };
 }
 
@@ -183,12 +262,24 @@ export async function bookScoring(actor: Actor): Promise<BookScoring> {
   const rows = await db()
     .selectFrom("properties")
     .leftJoin("property_summaries as ps", "ps.property_id", "properties.id")
-    .select(["properties.id", "properties.name", "ps.latest_index", "ps.trend_word", "ps.trend_slope", "ps.zones_total", "ps.zones_enough_checks", "ps.zones_responding_n"])
+    .select([
+      "properties.id",
+      "properties.name",
+      "ps.latest_index",
+      "ps.trend_word",
+      "ps.trend_slope",
+      "ps.zones_total",
+      "ps.zones_enough_checks",
+      "ps.zones_responding_n",
+    ])
     .where(propertyInScope(actor))
     .where("properties.archived_at", "is", null)
     .execute();
-  const indexes = rows.flatMap((r) => (r.latest_index === null ? [] : [Number(r.latest_index)])).sort((a, b) => a - b);
-  const sum = (k: "zones_total" | "zones_enough_checks" | "zones_responding_n") => rows.reduce((s, r) => s + Number(r[k] ?? 0), 0);
+  const indexes = rows
+    .flatMap((r) => (r.latest_index === null ? [] : [Number(r.latest_index)]))
+    .sort((a, b) => a - b);
+  const sum = (k: "zones_total" | "zones_enough_checks" | "zones_responding_n") =>
+    rows.reduce((s, r) => s + Number(r[k] ?? 0), 0);
   return {
     total: rows.length,
     scored: indexes.length,

@@ -26,7 +26,12 @@ export function swardIndex(check: IndexInput): { index: number; parts: Record<st
   if (check.uniformityRating !== undefined) scores.uniformity = ratingScore(check.uniformityRating);
   if (check.photo) {
     scores.cover = clamp(check.photo.greenCoverPct, 0, 100);
-    if (check.photo.dgci !== null) scores.dgci = clamp(((check.photo.dgci - DGCI_SPAN.low) / (DGCI_SPAN.high - DGCI_SPAN.low)) * 100, 0, 100);
+    if (check.photo.dgci !== null)
+      scores.dgci = clamp(
+        ((check.photo.dgci - DGCI_SPAN.low) / (DGCI_SPAN.high - DGCI_SPAN.low)) * 100,
+        0,
+        100,
+      );
   }
   let weightSum = 0;
   let weighted = 0;
@@ -35,11 +40,23 @@ export function swardIndex(check: IndexInput): { index: number; parts: Record<st
     weighted += INDEX_WEIGHTS[key] * score;
   }
   const base = weighted / weightSum;
-  const barePenalty = Math.min(INDEX_PENALTIES.maxBare, INDEX_PENALTIES.perBarePct * clamp(check.bareSoilPct ?? 0, 0, 100));
-  const weedPenalty = Math.min(INDEX_PENALTIES.maxWeeds, INDEX_PENALTIES.perWeedPct * clamp(check.weedPct ?? 0, 0, 100));
-  const symptomPenalty = Math.min(INDEX_PENALTIES.maxSymptoms, (check.symptoms ?? []).reduce((s, x) => s + INDEX_PENALTIES.symptomBySeverity[x.severity], 0));
+  const barePenalty = Math.min(
+    INDEX_PENALTIES.maxBare,
+    INDEX_PENALTIES.perBarePct * clamp(check.bareSoilPct ?? 0, 0, 100),
+  );
+  const weedPenalty = Math.min(
+    INDEX_PENALTIES.maxWeeds,
+    INDEX_PENALTIES.perWeedPct * clamp(check.weedPct ?? 0, 0, 100),
+  );
+  const symptomPenalty = Math.min(
+    INDEX_PENALTIES.maxSymptoms,
+    (check.symptoms ?? []).reduce((s, x) => s + INDEX_PENALTIES.symptomBySeverity[x.severity], 0),
+  );
   const index = clamp(base - barePenalty - weedPenalty - symptomPenalty, 0, 100);
-  return { index: Math.round(index * 10) / 10, parts: { ...scores, base, barePenalty, weedPenalty, symptomPenalty } };
+  return {
+    index: Math.round(index * 10) / 10,
+    parts: { ...scores, base, barePenalty, weedPenalty, symptomPenalty },
+  };
 }
 
 /** Property index: the area-weighted mean of the zones checked at a visit. */

@@ -1,5 +1,6 @@
 // Scoring figures in plain words (pure): the sentences under the charts and in the tables.
 import { formatDate } from "@/lib/dates";
+
 import type { SeasonChange, Trend } from "./history";
 import { TREND_THRESHOLD_PER_30_DAYS } from "./weights";
 
@@ -16,13 +17,17 @@ export function correlationStrength(r: number): "no" | "a weak" | "a moderate" |
   return "a strong";
 }
 
-export function correlationSentence(what: string, c: { pearson: number; spearman: number; n: number }): string {
+export function correlationSentence(
+  what: string,
+  c: { pearson: number; spearman: number; n: number },
+): string {
   const phrase = patternPhrase(c.pearson);
   return `${phrase[0]!.toUpperCase()}${phrase.slice(1)} with ${what}: Pearson r ${coefficient(c.pearson)}, Spearman ρ ${coefficient(c.spearman)} (n ${c.n}).`;
 }
 
 export function trendSentence(trend: Trend | null): string {
-  if (!trend || trend.word === null) return "Not enough rated checks for a trend yet (at least 3 in 120 days).";
+  if (!trend || trend.word === null)
+    return "Not enough rated checks for a trend yet (at least 3 in 120 days).";
   const word = trend.word[0]!.toUpperCase() + trend.word.slice(1);
   return `${word}: ${signed(trend.slopePer30Days)} points per 30 days over the last 120 days (r² ${trend.r2.toFixed(2)}, n ${trend.n}; steady is within ±${TREND_THRESHOLD_PER_30_DAYS}).`;
 }
@@ -35,5 +40,7 @@ export function seasonSentence(season: SeasonChange | null): string {
 /** "a strong positive pattern", "no pattern"… */
 export function patternPhrase(r: number): string {
   const strength = correlationStrength(r);
-  return strength === "no" ? "no pattern" : `${strength} ${r > 0 ? "positive" : "negative"} pattern`;
+  return strength === "no"
+    ? "no pattern"
+    : `${strength} ${r > 0 ? "positive" : "negative"} pattern`;
 }

@@ -23,7 +23,9 @@ export function smtpMailer(url: string): Mailer {
     port: Number(u.port || 25),
     secure: u.protocol === "smtps:",
     ignoreTLS: u.protocol === "smtp:" && (u.hostname === "127.0.0.1" || u.hostname === "localhost"),
-    auth: u.username ? { user: decodeURIComponent(u.username), pass: decodeURIComponent(u.password) } : undefined,
+    auth: u.username
+      ? { user: decodeURIComponent(u.username), pass: decodeURIComponent(u.password) }
+      : undefined,
     connectionTimeout: 5000,
     greetingTimeout: 5000,
     socketTimeout: 10000,

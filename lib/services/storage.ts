@@ -1,9 +1,15 @@
 // Object storage for photo derivatives behind one small interface, with two drivers:
 // the local disk (default; a git-ignored folder) and S3 (any S3-compatible service).
-import { mkdir, open, readFile, rename } from "node:fs/promises";
 import { randomUUID } from "node:crypto";
+import { mkdir, open, readFile, rename } from "node:fs/promises";
 import path from "node:path";
-import { GetObjectCommand, HeadObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import {
+  GetObjectCommand,
+  HeadObjectCommand,
+  NoSuchKey,
+  PutObjectCommand,
+  S3Client,
+} from "@aws-sdk/client-s3";
 
 export interface PhotoStorage {
   /** Stores bytes under a key; storing the same key again is harmless (keys are content hashes). */
@@ -68,17 +74,34 @@ export function localDiskStorage(root: string): PhotoStorage {
   };
 }
 
-export function s3Storage(options: { bucket: string; region: string; endpoint?: string; accessKeyId?: string; secretAccessKey?: string; forcePathStyle?: boolean }): PhotoStorage {
+export function s3Storage(options: {
+  bucket: string;
+  region: string;
+  endpoint?: string;
+  accessKeyId?: string;
+  secretAccessKey?: string;
+  forcePathStyle?: boolean;
+}): PhotoStorage {
   const client = new S3Client({
     region: options.region,
     endpoint: options.endpoint,
     forcePathStyle: options.forcePathStyle ?? Boolean(options.endpoint),
-    credentials: options.accessKeyId && options.secretAccessKey ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey } : undefined,
+    credentials:
+      options.accessKeyId && options.secretAccessKey
+        ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey }
+        : undefined,
   });
   return {
     async put(key, body, contentType) {
       assertKey(key);
-      await client.send(new PutObjectCommand({ Bucket: options.bucket, Key: key, Body: body, ContentType: contentType }));
+      await client.send(
+        new PutObjectCommand({
+          Bucket: options.bucket,
+          Key: key,
+          Body: body,
+          ContentType: contentType,
+        }),
+      );
     },
     async get(key) {
       assertKey(key);
@@ -86,7 +109,8 @@ export function s3Storage(options: { bucket: string; region: string; endpoint?: 
         const out = await client.send(new GetObjectCommand({ Bucket: options.bucket, Key: key }));
         return out.Body ? Buffer.from(await out.Body.transformToByteArray()) : null;
       } catch (err) {
-        if (err instanceof NoSuchKey || (err as { name?: string }).name === "NoSuchKey") return null;
+        if (err instanceof NoSuchKey || (err as { name?: string }).name === "NoSuchKey")
+          return null;
         throw err;
       }
     },
@@ -96,7 +120,8 @@ export function s3Storage(options: { bucket: string; region: string; endpoint?: 
         await client.send(new HeadObjectCommand({ Bucket: options.bucket, Key: key }));
         return true;
       } catch (err) {
-        if ((err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return false;
+        if ((err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404)
+          return false;
         throw err;
       }
     },

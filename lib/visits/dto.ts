@@ -3,6 +3,7 @@ import type { PlannedService, VisitStatus } from "@/db/schema";
 import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
+
 import type { ZoneCheckInput } from "./schemas";
 
 export type ZoneCheckValues = Omit<ZoneCheckInput, "baseVersion">;
@@ -38,7 +39,19 @@ export interface VisitDetailDto extends VisitSummaryDto {
   timeZone: string;
   ruleSetId: string | null;
   /** The visit day's weather as kept with the visit, or null before it starts. */
-  weather: { status: "ok"; tmaxF: number; tminF: number; rhMinPct: number | null; rhMaxPct: number | null; windMph: number | null; precipIn: number; isForecast: boolean } | { status: "unavailable"; message: string } | null;
+  weather:
+    | {
+        status: "ok";
+        tmaxF: number;
+        tminF: number;
+        rhMinPct: number | null;
+        rhMaxPct: number | null;
+        windMph: number | null;
+        precipIn: number;
+        isForecast: boolean;
+      }
+    | { status: "unavailable"; message: string }
+    | null;
   version: number;
   completedBy: string | null;
   zones: ZoneDto[];

@@ -2,6 +2,7 @@
 import type { ZoneCheck } from "@/db/schema";
 import { findSymptom } from "@/fixtures/symptoms";
 import { RATING_FIELDS, RATING_SCALE } from "@/fixtures/visit-options";
+
 import type { ZoneCheckDto, ZoneCheckValues } from "./dto";
 import type { ZoneCheckInput } from "./schemas";
 
@@ -17,7 +18,10 @@ export function toZoneCheckDto(row: ZoneCheck, updatedBy: string | null = null):
   };
 }
 
-export function valuesOf(row: Omit<ZoneCheck, "sward_index" | "index_parts"> & Partial<Pick<ZoneCheck, "sward_index" | "index_parts">>): ZoneCheckValues {
+export function valuesOf(
+  row: Omit<ZoneCheck, "sward_index" | "index_parts"> &
+    Partial<Pick<ZoneCheck, "sward_index" | "index_parts">>,
+): ZoneCheckValues {
   return {
     zoneId: row.zone_id,
     status: row.status,
@@ -71,10 +75,14 @@ export function toColumns(input: ZoneCheckInput) {
 }
 
 /** Field-by-field differences, for conflict checks and the audit trail. */
-export function diffValues(before: ZoneCheckValues, after: ZoneCheckValues): Record<string, { from: unknown; to: unknown }> {
+export function diffValues(
+  before: ZoneCheckValues,
+  after: ZoneCheckValues,
+): Record<string, { from: unknown; to: unknown }> {
   const changes: Record<string, { from: unknown; to: unknown }> = {};
   for (const key of Object.keys(after) as (keyof ZoneCheckValues)[]) {
-    if (JSON.stringify(before[key]) !== JSON.stringify(after[key])) changes[key] = { from: before[key], to: after[key] };
+    if (JSON.stringify(before[key]) !== JSON.stringify(after[key]))
+      changes[key] = { from: before[key], to: after[key] };
   }
   return changes;
 }
@@ -85,12 +93,18 @@ const SEVERITY_WORD = { 1: "light", 2: "moderate", 3: "severe" } as const;
 export function concernsOf(zoneName: string, v: ZoneCheckValues): string[] {
   const out: string[] = [];
   if (v.status === "skipped") return [`${zoneName}: skipped last time`];
-  for (const [field, label] of Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]) {
+  for (const [field, label] of Object.entries(RATING_FIELDS) as [
+    keyof typeof RATING_FIELDS,
+    string,
+  ][]) {
     const value = v[field];
-    if (value !== null && value < RATING_SCALE.acceptable) out.push(`${zoneName}: ${label.toLowerCase()} ${value} of 9 (below acceptable)`);
+    if (value !== null && value < RATING_SCALE.acceptable)
+      out.push(`${zoneName}: ${label.toLowerCase()} ${value} of 9 (below acceptable)`);
   }
   for (const s of v.symptoms) {
-    out.push(`${zoneName}: ${findSymptom(s.key)?.name ?? s.key} (${SEVERITY_WORD[s.severity]}, ${s.extentPct} % of zone)`);
+    out.push(
+      `${zoneName}: ${findSymptom(s.key)?.name ?? s.key} (${SEVERITY_WORD[s.severity]}, ${s.extentPct} % of zone)`,
+    );
   }
   if (v.isMatted) out.push(`${zoneName}: matted canopy`);
   if (v.isScalped) out.push(`${zoneName}: scalping`);

@@ -1,30 +1,38 @@
 // Visit writes: schedule, start, save a zone check (idempotent, versioned), finish, cancel.
 // Every write re-checks scope inside its transaction; out of scope = not found.
 import "server-only";
+
 import { randomUUID } from "node:crypto";
-import { type Transaction, sql } from "kysely";
+import { sql, type Transaction } from "kysely";
+
 import { db } from "@/db";
 import type { Database, ZoneCheck } from "@/db/schema";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
+import { refreshPropertySummary } from "@/lib/book/summary";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
+import { enqueueVisitReportMail } from "@/lib/reports/mutations";
+import { evaluateAfterVisit } from "@/lib/risk/mutations";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import { fillVisitWeather } from "@/lib/weather/mutations";
-import { evaluateAfterVisit } from "@/lib/risk/mutations";
-import { enqueueVisitReportMail } from "@/lib/reports/mutations";
-import { refreshPropertySummary } from "@/lib/book/summary";
 
-/** Keeps the book's summary of a visit's property current. */
-async function refreshVisitProperty(actor: Actor, visitId: string): Promise<void> {
-  const visit = await db().selectFrom("visits").select("property_id").where("company_id", "=", actor.companyId).where("id", "=", visitId).executeTakeFirst();
-  if (visit) await refreshPropertySummary(db(), actor.companyId, visit.property_id);
-}
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
 import type { ScheduleVisitInput, ZoneCheckInput } from "./schemas";
 import { visitInScope } from "./scope";
+
+/** Keeps the book's summary of a visit's property current. */
+async function refreshVisitProperty(actor: Actor, visitId: string): Promise<void> {
+  const visit = await db()
+    .selectFrom("visits")
+    .select("property_id")
+    .where("company_id", "=", actor.companyId)
+    .where("id", "=", visitId)
+    .executeTakeFirst();
+  if (visit) await refreshPropertySummary(db(), actor.companyId, visit.property_id);
+}
 
 async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: string) {
   const visit = await trx
@@ -39,12 +47,19 @@ async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: stri
 }
 
 function assertEditable(actor: Actor, visit: { status: string }) {
-  if (visit.status === "cancelled") throw new AppError("conflict", "This visit was cancelled; it can no longer be changed.");
+  if (visit.status === "cancelled")
+    throw new AppError("conflict", "This visit was cancelled; it can no longer be changed.");
   if (visit.status === "completed" && actor.role !== "manager")
-    throw new AppError("forbidden", "This visit is finished and locked. Ask your manager to correct it.");
+    throw new AppError(
+      "forbidden",
+      "This visit is finished and locked. Ask your manager to correct it.",
+    );
 }
 
-export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Promise<VisitDetailDto> {
+export async function scheduleVisit(
+  actor: Actor,
+  input: ScheduleVisitInput,
+): Promise<VisitDetailDto> {
   const id = input.id ?? randomUUID();
   await db()
     .transaction()
@@ -55,8 +70,14 @@ export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Pr
         .where(propertyInScope(actor))
         .where("properties.id", "=", input.propertyId)
         .executeTakeFirst();
-      if (!property) throw new AppError("invalid_input", "Some values need attention.", { propertyId: ["Choose a property of your book."] });
-      if (property.archived_at) throw new AppError("invalid_input", "Some values need attention.", { propertyId: ["That property is archived."] });
+      if (!property)
+        throw new AppError("invalid_input", "Some values need attention.", {
+          propertyId: ["Choose a property of your book."],
+        });
+      if (property.archived_at)
+        throw new AppError("invalid_input", "Some values need attention.", {
+          propertyId: ["That property is archived."],
+        });
       if (input.technicianId) {
         const tech = await trx
           .selectFrom("memberships")
@@ -67,7 +88,10 @@ export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Pr
           .where("users.disabled_at", "is", null)
           .where("users.id", "=", input.technicianId)
           .executeTakeFirst();
-        if (!tech) throw new AppError("invalid_input", "Some values need attention.", { technicianId: ["Choose one of your technicians."] });
+        if (!tech)
+          throw new AppError("invalid_input", "Some values need attention.", {
+            technicianId: ["Choose one of your technicians."],
+          });
       }
       const inserted = await trx
         .insertInto("visits")
@@ -89,8 +113,17 @@ export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Pr
         .executeTakeFirst();
       if (!inserted) {
         // A retry of the same request: fine if it is the same visit, a conflict otherwise.
-        const existing = await trx.selectFrom("visits").select(["company_id", "property_id", "scheduled_for"]).where("id", "=", id).executeTakeFirst();
-        if (!existing || existing.company_id !== actor.companyId || existing.property_id !== input.propertyId || existing.scheduled_for !== input.scheduledFor)
+        const existing = await trx
+          .selectFrom("visits")
+          .select(["company_id", "property_id", "scheduled_for"])
+          .where("id", "=", id)
+          .executeTakeFirst();
+        if (
+          !existing ||
+          existing.company_id !== actor.companyId ||
+          existing.property_id !== input.propertyId ||
+          existing.scheduled_for !== input.scheduledFor
+        )
           throw new AppError("conflict", "A different visit already uses that id.");
       }
     });
@@ -98,7 +131,11 @@ export async function scheduleVisit(actor: Actor, input: ScheduleVisitInput): Pr
   return getVisit(actor, id);
 }
 
-export async function startVisit(actor: Actor, visitId: string, location: { latitude: number | null; longitude: number | null }): Promise<VisitDetailDto> {
+export async function startVisit(
+  actor: Actor,
+  visitId: string,
+  location: { latitude: number | null; longitude: number | null },
+): Promise<VisitDetailDto> {
   await db()
     .transaction()
     .execute(async (trx) => {
@@ -127,7 +164,11 @@ export async function startVisit(actor: Actor, visitId: string, location: { lati
 
 function sameValues(row: ZoneCheck, input: ZoneCheckInput): boolean {
   const { baseVersion: _ignored, ...submitted } = input;
-  const normalised = { ...submitted, skipReason: submitted.status === "skipped" ? submitted.skipReason : null, skipNote: submitted.status === "skipped" ? submitted.skipNote : "" };
+  const normalised = {
+    ...submitted,
+    skipReason: submitted.status === "skipped" ? submitted.skipReason : null,
+    skipNote: submitted.status === "skipped" ? submitted.skipNote : "",
+  };
   return Object.keys(diffValues(valuesOf(row), normalised)).length === 0;
 }
 
@@ -145,7 +186,12 @@ function conflict(current: ZoneCheck, who: string | null): AppError {
  * its edit is based on, so a double tap or a retry leaves one row, and an edit based on an old
  * version is refused with the server's copy instead of overwriting it.
  */
-export async function saveZoneCheck(actor: Actor, visitId: string, zoneCheckId: string, input: ZoneCheckInput): Promise<ZoneCheckDto> {
+export async function saveZoneCheck(
+  actor: Actor,
+  visitId: string,
+  zoneCheckId: string,
+  input: ZoneCheckInput,
+): Promise<ZoneCheckDto> {
   return db()
     .transaction()
     .execute(async (trx) => {
@@ -158,22 +204,50 @@ export async function saveZoneCheck(actor: Actor, visitId: string, zoneCheckId: 
         .where("property_id", "=", visit.property_id)
         .where("id", "=", input.zoneId)
         .executeTakeFirst();
-      if (!zone) throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["That zone is not part of this property."] });
+      if (!zone)
+        throw new AppError("invalid_input", "Some values need attention.", {
+          zoneId: ["That zone is not part of this property."],
+        });
 
       const nameOf = async (userId: string | null) =>
-        userId ? ((await trx.selectFrom("users").select("name").where("id", "=", userId).executeTakeFirst())?.name ?? null) : null;
+        userId
+          ? ((
+              await trx
+                .selectFrom("users")
+                .select("name")
+                .where("id", "=", userId)
+                .executeTakeFirst()
+            )?.name ?? null)
+          : null;
 
-      const existing = await trx.selectFrom("zone_checks").selectAll().where("id", "=", zoneCheckId).forUpdate().executeTakeFirst();
-      if (existing && (existing.company_id !== actor.companyId || existing.visit_id !== visitId)) throw notFound("That zone check");
+      const existing = await trx
+        .selectFrom("zone_checks")
+        .selectAll()
+        .where("id", "=", zoneCheckId)
+        .forUpdate()
+        .executeTakeFirst();
+      if (existing && (existing.company_id !== actor.companyId || existing.visit_id !== visitId))
+        throw notFound("That zone check");
       if (existing && existing.zone_id !== input.zoneId)
-        throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["A zone check cannot move to another zone."] });
+        throw new AppError("invalid_input", "Some values need attention.", {
+          zoneId: ["A zone check cannot move to another zone."],
+        });
 
       let saved: ZoneCheck;
       if (!existing) {
-        if (zone.archived_at) throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["That zone is archived."] });
+        if (zone.archived_at)
+          throw new AppError("invalid_input", "Some values need attention.", {
+            zoneId: ["That zone is archived."],
+          });
         const inserted = await trx
           .insertInto("zone_checks")
-          .values({ id: zoneCheckId, company_id: actor.companyId, visit_id: visitId, updated_by: actor.userId, ...toColumns(input) })
+          .values({
+            id: zoneCheckId,
+            company_id: actor.companyId,
+            visit_id: visitId,
+            updated_by: actor.userId,
+            ...toColumns(input),
+          })
           .onConflict((oc) => oc.doNothing())
           .returningAll()
           .executeTakeFirst();
@@ -183,31 +257,57 @@ export async function saveZoneCheck(actor: Actor, visitId: string, zoneCheckId: 
           const other = await trx
             .selectFrom("zone_checks")
             .selectAll()
-            .where((eb) => eb.or([eb("id", "=", zoneCheckId), eb.and([eb("visit_id", "=", visitId), eb("zone_id", "=", input.zoneId)])]))
+            .where((eb) =>
+              eb.or([
+                eb("id", "=", zoneCheckId),
+                eb.and([eb("visit_id", "=", visitId), eb("zone_id", "=", input.zoneId)]),
+              ]),
+            )
             .executeTakeFirstOrThrow();
-          if (other.id === zoneCheckId && sameValues(other, input)) return toZoneCheckDto(other, await nameOf(other.updated_by));
+          if (other.id === zoneCheckId && sameValues(other, input))
+            return toZoneCheckDto(other, await nameOf(other.updated_by));
           throw conflict(other, await nameOf(other.updated_by));
         }
       } else if (existing.version !== input.baseVersion) {
-        if (sameValues(existing, input)) return toZoneCheckDto(existing, await nameOf(existing.updated_by));
+        if (sameValues(existing, input))
+          return toZoneCheckDto(existing, await nameOf(existing.updated_by));
         throw conflict(existing, await nameOf(existing.updated_by));
       } else {
-        if (sameValues(existing, input)) return toZoneCheckDto(existing, await nameOf(existing.updated_by));
+        if (sameValues(existing, input))
+          return toZoneCheckDto(existing, await nameOf(existing.updated_by));
         saved = await trx
           .updateTable("zone_checks")
-          .set({ ...toColumns(input), version: sql<number>`version + 1`, updated_at: sql<Date>`now()`, updated_by: actor.userId })
+          .set({
+            ...toColumns(input),
+            version: sql<number>`version + 1`,
+            updated_at: sql<Date>`now()`,
+            updated_by: actor.userId,
+          })
           .where("id", "=", zoneCheckId)
           .returningAll()
           .executeTakeFirstOrThrow();
         if (visit.status === "completed") {
-          await recordAudit(trx, actor, { entity: "zone_check", entityId: zoneCheckId, action: "edit_after_finish", changes: diffValues(valuesOf(existing), valuesOf(saved)) });
+          await recordAudit(trx, actor, {
+            entity: "zone_check",
+            entityId: zoneCheckId,
+            action: "edit_after_finish",
+            changes: diffValues(valuesOf(existing), valuesOf(saved)),
+          });
         }
       }
       await refreshCheckIndex(trx, [zoneCheckId]);
-      saved = (await trx.selectFrom("zone_checks").selectAll().where("id", "=", zoneCheckId).executeTakeFirstOrThrow()) as ZoneCheck;
+      saved = (await trx
+        .selectFrom("zone_checks")
+        .selectAll()
+        .where("id", "=", zoneCheckId)
+        .executeTakeFirstOrThrow()) as ZoneCheck;
       if (visit.status === "scheduled") {
         // Saving a check starts the visit if the technician did not tap "Start".
-        await trx.updateTable("visits").set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId }).where("id", "=", visitId).execute();
+        await trx
+          .updateTable("visits")
+          .set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId })
+          .where("id", "=", visitId)
+          .execute();
       }
       return toZoneCheckDto(saved, actor.name);
     });
@@ -223,25 +323,46 @@ export async function finishVisit(actor: Actor, visitId: string): Promise<VisitD
       assertEditable(actor, visit);
       const open = await trx
         .selectFrom("zones")
-        .leftJoin("zone_checks", (j) => j.onRef("zone_checks.zone_id", "=", "zones.id").on("zone_checks.visit_id", "=", visitId))
+        .leftJoin("zone_checks", (j) =>
+          j.onRef("zone_checks.zone_id", "=", "zones.id").on("zone_checks.visit_id", "=", visitId),
+        )
         .select(["zones.name", "zone_checks.status"])
         .where("zones.company_id", "=", actor.companyId)
         .where("zones.property_id", "=", visit.property_id)
         .where("zones.archived_at", "is", null)
-        .where((eb) => eb.or([eb("zone_checks.status", "is", null), eb("zone_checks.status", "=", "draft")]))
+        .where((eb) =>
+          eb.or([eb("zone_checks.status", "is", null), eb("zone_checks.status", "=", "draft")]),
+        )
         .orderBy("zones.sort_order")
         .execute();
       if (open.length) {
-        throw new AppError("invalid_input", `Finish or skip every zone first: ${open.map((z) => z.name).join(", ")}.`, {
-          zones: open.map((z) => `${z.name} is ${z.status === "draft" ? "not marked done" : "not checked"}.`),
-        });
+        throw new AppError(
+          "invalid_input",
+          `Finish or skip every zone first: ${open.map((z) => z.name).join(", ")}.`,
+          {
+            zones: open.map(
+              (z) => `${z.name} is ${z.status === "draft" ? "not marked done" : "not checked"}.`,
+            ),
+          },
+        );
       }
       await trx
         .updateTable("visits")
-        .set({ status: "completed", completed_at: sql<Date>`now()`, completed_by: actor.userId, version: sql<number>`version + 1`, updated_at: sql<Date>`now()` })
+        .set({
+          status: "completed",
+          completed_at: sql<Date>`now()`,
+          completed_by: actor.userId,
+          version: sql<number>`version + 1`,
+          updated_at: sql<Date>`now()`,
+        })
         .where("id", "=", visitId)
         .execute();
-      await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "finish", changes: { status: { from: visit.status, to: "completed" } } });
+      await recordAudit(trx, actor, {
+        entity: "visit",
+        entityId: visitId,
+        action: "finish",
+        changes: { status: { from: visit.status, to: "completed" } },
+      });
     });
   // Alerts for the property now, so the technician sees them on the summary before leaving;
   // then the homeowners' report e-mail (its care notes include those alerts).
@@ -256,9 +377,23 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
     .execute(async (trx) => {
       const visit = await lockVisit(trx, actor, visitId);
       if (visit.status === "cancelled") return;
-      if (visit.status === "completed") throw new AppError("conflict", "A finished visit cannot be cancelled.");
-      await trx.updateTable("visits").set({ status: "cancelled", version: sql<number>`version + 1`, updated_at: sql<Date>`now()` }).where("id", "=", visitId).execute();
-      await recordAudit(trx, actor, { entity: "visit", entityId: visitId, action: "cancel", changes: { status: { from: visit.status, to: "cancelled" } } });
+      if (visit.status === "completed")
+        throw new AppError("conflict", "A finished visit cannot be cancelled.");
+      await trx
+        .updateTable("visits")
+        .set({
+          status: "cancelled",
+          version: sql<number>`version + 1`,
+          updated_at: sql<Date>`now()`,
+        })
+        .where("id", "=", visitId)
+        .execute();
+      await recordAudit(trx, actor, {
+        entity: "visit",
+        entityId: visitId,
+        action: "cancel",
+        changes: { status: { from: visit.status, to: "cancelled" } },
+      });
     });
   await refreshVisitProperty(actor, visitId);
   return getVisit(actor, visitId);

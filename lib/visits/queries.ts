@@ -1,14 +1,23 @@
 // Visit reads, scoped to the actor (lib/visits/scope.ts). Out of scope = not found.
 import "server-only";
-import { findZoneInScope } from "@/lib/properties/queries";
+
+import type { z } from "zod";
+
 import { db } from "@/db";
+import { listVisitApplications } from "@/lib/applications/queries";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
-import { listVisitApplications } from "@/lib/applications/queries";
 import { listVisitPhotos } from "@/lib/photos/queries";
-import { ZONE_COLUMNS, toZoneDto } from "@/lib/properties/map";
-import type { AuditEventDto, TodayStopDto, VisitDetailDto, VisitSummaryDto, ZoneHistoryEntryDto } from "./dto";
-import type { z } from "zod";
+import { toZoneDto, ZONE_COLUMNS } from "@/lib/properties/map";
+import { findZoneInScope } from "@/lib/properties/queries";
+
+import type {
+  AuditEventDto,
+  TodayStopDto,
+  VisitDetailDto,
+  VisitSummaryDto,
+  ZoneHistoryEntryDto,
+} from "./dto";
 import { concernsOf, toZoneCheckDto, valuesOf } from "./map";
 import type { listVisitsQuery } from "./schemas";
 import { visitInScope } from "./scope";
@@ -16,7 +25,11 @@ import { visitInScope } from "./scope";
 function visitSummaries() {
   return db()
     .selectFrom("visits")
-    .innerJoin("properties", (j) => j.onRef("properties.id", "=", "visits.property_id").onRef("properties.company_id", "=", "visits.company_id"))
+    .innerJoin("properties", (j) =>
+      j
+        .onRef("properties.id", "=", "visits.property_id")
+        .onRef("properties.company_id", "=", "visits.company_id"),
+    )
     .leftJoin("users as tech", "tech.id", "visits.technician_id")
     .select((eb) => [
       "visits.id",
@@ -73,7 +86,10 @@ function toSummary(r: SummaryRow): VisitSummaryDto {
   };
 }
 
-export async function listVisits(actor: Actor, query: z.infer<typeof listVisitsQuery>): Promise<VisitSummaryDto[]> {
+export async function listVisits(
+  actor: Actor,
+  query: z.infer<typeof listVisitsQuery>,
+): Promise<VisitSummaryDto[]> {
   let q = visitSummaries().where(visitInScope(actor));
   if (query.date) q = q.where("visits.scheduled_for", "=", query.date);
   if (query.from) q = q.where("visits.scheduled_for", ">=", query.from);
@@ -81,7 +97,12 @@ export async function listVisits(actor: Actor, query: z.infer<typeof listVisitsQ
   if (query.technicianId) q = q.where("visits.technician_id", "=", query.technicianId);
   if (query.propertyId) q = q.where("visits.property_id", "=", query.propertyId);
   if (query.status) q = q.where("visits.status", "=", query.status);
-  const rows = await q.orderBy("visits.scheduled_for", "desc").orderBy("visits.stop_order").orderBy("visits.id").limit(500).execute();
+  const rows = await q
+    .orderBy("visits.scheduled_for", "desc")
+    .orderBy("visits.stop_order")
+    .orderBy("visits.id")
+    .limit(500)
+    .execute();
   return rows.map(toSummary);
 }
 
@@ -110,7 +131,11 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     .select([...ZONE_COLUMNS])
     .where("company_id", "=", actor.companyId)
     .where("property_id", "=", row.property_id)
-    .where((eb) => (checkedZoneIds.length ? eb.or([eb("archived_at", "is", null), eb("id", "in", checkedZoneIds)]) : eb("archived_at", "is", null)))
+    .where((eb) =>
+      checkedZoneIds.length
+        ? eb.or([eb("archived_at", "is", null), eb("id", "in", checkedZoneIds)])
+        : eb("archived_at", "is", null),
+    )
     .orderBy("sort_order")
     .orderBy("name")
     .execute();
@@ -127,14 +152,23 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     checks: checks.map((c) => toZoneCheckDto(c, c.updated_by_name)),
     photos: await listVisitPhotos(actor, visitId),
     applications: await listVisitApplications(actor, visitId),
-    canEdit: actor.role === "manager" || (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
+    canEdit:
+      actor.role === "manager" ||
+      (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
   };
 }
 
 /** A technician's stops on a date, in order, with the last visit and what it found. */
-export async function listTodayStops(actor: Actor, date: string, technicianId?: string): Promise<TodayStopDto[]> {
+export async function listTodayStops(
+  actor: Actor,
+  date: string,
+  technicianId?: string,
+): Promise<TodayStopDto[]> {
   const techId = actor.role === "technician" ? actor.userId : technicianId;
-  let q = visitSummaries().where(visitInScope(actor)).where("visits.scheduled_for", "=", date).where("visits.status", "!=", "cancelled");
+  let q = visitSummaries()
+    .where(visitInScope(actor))
+    .where("visits.scheduled_for", "=", date)
+    .where("visits.status", "!=", "cancelled");
   if (techId) q = q.where("visits.technician_id", "=", techId);
   const rows = await q.orderBy("visits.stop_order").orderBy("properties.name").execute();
   if (rows.length === 0) return [];
@@ -145,7 +179,11 @@ export async function listTodayStops(actor: Actor, date: string, technicianId?: 
     .select(["visits.id", "visits.property_id", "visits.scheduled_for"])
     .distinctOn("visits.property_id")
     .where("visits.company_id", "=", actor.companyId)
-    .where("visits.property_id", "in", rows.map((r) => r.property_id))
+    .where(
+      "visits.property_id",
+      "in",
+      rows.map((r) => r.property_id),
+    )
     .where("visits.status", "=", "completed")
     .where("visits.scheduled_for", "<", date)
     .orderBy("visits.property_id")
@@ -158,20 +196,31 @@ export async function listTodayStops(actor: Actor, date: string, technicianId?: 
         .selectAll("zone_checks")
         .select(["zones.name as zone_name", "zones.sort_order"])
         .where("zone_checks.company_id", "=", actor.companyId)
-        .where("zone_checks.visit_id", "in", previous.map((p) => p.id))
+        .where(
+          "zone_checks.visit_id",
+          "in",
+          previous.map((p) => p.id),
+        )
         .orderBy("zones.sort_order")
         .execute()
     : [];
 
   return rows.map((r) => {
     const last = previous.find((p) => p.property_id === r.property_id);
-    const concerns = last ? checks.filter((c) => c.visit_id === last.id).flatMap((c) => concernsOf(c.zone_name, valuesOf(c))) : [];
+    const concerns = last
+      ? checks
+          .filter((c) => c.visit_id === last.id)
+          .flatMap((c) => concernsOf(c.zone_name, valuesOf(c)))
+      : [];
     return { ...toSummary(r), lastVisitOn: last?.scheduled_for ?? null, concerns };
   });
 }
 
 /** Every check of a zone, newest first. The zone must be within the actor's property scope. */
-export async function getZoneHistory(actor: Actor, zoneId: string): Promise<{ zoneName: string; propertyId: string; entries: ZoneHistoryEntryDto[] }> {
+export async function getZoneHistory(
+  actor: Actor,
+  zoneId: string,
+): Promise<{ zoneName: string; propertyId: string; entries: ZoneHistoryEntryDto[] }> {
   const zone = await findZoneInScope(actor, zoneId);
 
   const rows = await db()
@@ -216,14 +265,29 @@ export async function listVisitAudit(actor: Actor, visitId: string): Promise<Aud
   const rows = await db()
     .selectFrom("audit_events")
     .leftJoin("users", "users.id", "audit_events.actor_id")
-    .select(["audit_events.id", "audit_events.created_at", "users.name", "audit_events.entity", "audit_events.entity_id", "audit_events.action", "audit_events.changes"])
+    .select([
+      "audit_events.id",
+      "audit_events.created_at",
+      "users.name",
+      "audit_events.entity",
+      "audit_events.entity_id",
+      "audit_events.action",
+      "audit_events.changes",
+    ])
     .where("audit_events.company_id", "=", actor.companyId)
     .where((eb) =>
       eb.or([
-        eb.and([eb("audit_events.entity", "=", "visit"), eb("audit_events.entity_id", "=", visitId)]),
+        eb.and([
+          eb("audit_events.entity", "=", "visit"),
+          eb("audit_events.entity_id", "=", visitId),
+        ]),
         eb.and([
           eb("audit_events.entity", "=", "zone_check"),
-          eb("audit_events.entity_id", "in", eb.selectFrom("zone_checks").select("id").where("visit_id", "=", visitId)),
+          eb(
+            "audit_events.entity_id",
+            "in",
+            eb.selectFrom("zone_checks").select("id").where("visit_id", "=", visitId),
+          ),
         ]),
       ]),
     )

@@ -1,12 +1,19 @@
 // Input schemas for visits and zone checks, shared by the route handlers and the forms.
 import { z } from "zod";
+
 import { symptomKeys } from "@/fixtures/symptoms";
 import { isIsoDate } from "@/lib/dates";
+
 import { zoneCheckCompleteness } from "./zone-check-rules";
 
 export { emptyZoneCheck } from "./zone-check-rules";
 
-const rating = z.number().int("Whole numbers only.").min(1, "1 is the lowest rating.").max(9, "9 is the highest rating.").nullable();
+const rating = z
+  .number()
+  .int("Whole numbers only.")
+  .min(1, "1 is the lowest rating.")
+  .max(9, "9 is the highest rating.")
+  .nullable();
 const percentBy5 = z
   .number()
   .int()
@@ -60,13 +67,21 @@ export const startVisitSchema = z
     longitude: z.number().min(-180).max(180).nullable().default(null),
   })
   .strict()
-  .refine((v) => (v.latitude === null) === (v.longitude === null), { message: "Send both latitude and longitude, or neither.", path: ["latitude"] });
+  .refine((v) => (v.latitude === null) === (v.longitude === null), {
+    message: "Send both latitude and longitude, or neither.",
+    path: ["latitude"],
+  });
 
 export const observedSymptomSchema = z
   .object({
     key: z.enum(symptomKeys, "Pick a symptom from the catalogue."),
     severity: z.union([z.literal(1), z.literal(2), z.literal(3)], "Severity is 1, 2 or 3."),
-    extentPct: z.number().int().min(0).max(100).refine((v) => v % 5 === 0, "Use steps of 5 %."),
+    extentPct: z
+      .number()
+      .int()
+      .min(0)
+      .max(100)
+      .refine((v) => v % 5 === 0, "Use steps of 5 %."),
   })
   .strict();
 
@@ -82,10 +97,20 @@ export const zoneCheckFields = z
     uniformity: rating,
     barePct: percentBy5,
     weedsPct: percentBy5,
-    thatchIn: z.number().min(0, "Thatch cannot be negative.").max(6, "More than 6 in of thatch? Check the reading.").multipleOf(0.05).nullable(),
+    thatchIn: z
+      .number()
+      .min(0, "Thatch cannot be negative.")
+      .max(6, "More than 6 in of thatch? Check the reading.")
+      .multipleOf(0.05)
+      .nullable(),
     soilMoisture: z.enum(["dry", "moist", "wet"]).nullable(),
     soilMoisturePct: z.number().min(0).max(100).nullable(),
-    heightOfCutIn: z.number().min(0).max(12, "Height of cut above 12 in? Check the reading.").multipleOf(0.05).nullable(),
+    heightOfCutIn: z
+      .number()
+      .min(0)
+      .max(12, "Height of cut above 12 in? Check the reading.")
+      .multipleOf(0.05)
+      .nullable(),
     mowingDirection: z.enum(["same", "changed", "unknown"]).nullable(),
     isMatted: z.boolean(),
     isScalped: z.boolean(),
@@ -102,9 +127,9 @@ export const zoneCheckFields = z
   .strict();
 
 export const zoneCheckSchema = zoneCheckFields.superRefine((check, ctx) => {
-  for (const [field, message] of Object.entries(zoneCheckCompleteness(check))) ctx.addIssue({ code: "custom", path: [field], message });
+  for (const [field, message] of Object.entries(zoneCheckCompleteness(check)))
+    ctx.addIssue({ code: "custom", path: [field], message });
 });
 export type ZoneCheckInput = z.infer<typeof zoneCheckSchema>;
 
 export const finishVisitSchema = z.object({ notes: z.string().max(4000).optional() }).strict();
-

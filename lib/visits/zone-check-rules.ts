@@ -4,7 +4,12 @@
 import type { ZoneCheckInput } from "./schemas";
 
 /** The fields still missing, with the message for each ({} when the check may be saved as it is). */
-export function zoneCheckCompleteness(check: Pick<ZoneCheckInput, "status" | "quality" | "color" | "density" | "uniformity" | "skipReason" | "skipNote">): Record<string, string> {
+export function zoneCheckCompleteness(
+  check: Pick<
+    ZoneCheckInput,
+    "status" | "quality" | "color" | "density" | "uniformity" | "skipReason" | "skipNote"
+  >,
+): Record<string, string> {
   const missing: Record<string, string> = {};
   if (check.status === "done") {
     for (const field of ["quality", "color", "density", "uniformity"] as const) {
@@ -13,7 +18,8 @@ export function zoneCheckCompleteness(check: Pick<ZoneCheckInput, "status" | "qu
   }
   if (check.status === "skipped") {
     if (!check.skipReason) missing.skipReason = "Say why the zone was skipped.";
-    if (check.skipReason === "other" && !check.skipNote.trim()) missing.skipNote = "Describe the reason.";
+    if (check.skipReason === "other" && !check.skipNote.trim())
+      missing.skipNote = "Describe the reason.";
   }
   return missing;
 }

@@ -1,22 +1,46 @@
 // Logging a watering (staff, and homeowners for their own lawn). Idempotent by id.
 import "server-only";
+
 import { db } from "@/db";
 import { wateringDepthIn } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
+
 import { listWaterings } from "./queries";
 import type { WateringDto, WateringInput } from "./schemas";
 
-export async function logWatering(actor: Actor, propertyId: string, input: WateringInput): Promise<WateringDto> {
-  const property = await db().selectFrom("properties").select("properties.id").where(propertyInScope(actor)).where("properties.id", "=", propertyId).executeTakeFirst();
+export async function logWatering(
+  actor: Actor,
+  propertyId: string,
+  input: WateringInput,
+): Promise<WateringDto> {
+  const property = await db()
+    .selectFrom("properties")
+    .select("properties.id")
+    .where(propertyInScope(actor))
+    .where("properties.id", "=", propertyId)
+    .executeTakeFirst();
   if (!property) throw notFound("That property");
   if (input.zoneId) {
-    const zone = await db().selectFrom("zones").select("id").where("company_id", "=", actor.companyId).where("property_id", "=", propertyId).where("id", "=", input.zoneId).executeTakeFirst();
-    if (!zone) throw new AppError("invalid_input", "Some values need attention.", { zoneId: ["That zone is not part of this property."] });
+    const zone = await db()
+      .selectFrom("zones")
+      .select("id")
+      .where("company_id", "=", actor.companyId)
+      .where("property_id", "=", propertyId)
+      .where("id", "=", input.zoneId)
+      .executeTakeFirst();
+    if (!zone)
+      throw new AppError("invalid_input", "Some values need attention.", {
+        zoneId: ["That zone is not part of this property."],
+      });
   }
-  const depth = input.depthIn ?? wateringDepthIn(input.runMinutes!, input.precipitationRateInPerHour!);
-  if (depth > 10) throw new AppError("invalid_input", "Some values need attention.", { runMinutes: ["That run time and rate make more than 10 in of water. Check both."] });
+  const depth =
+    input.depthIn ?? wateringDepthIn(input.runMinutes!, input.precipitationRateInPerHour!);
+  if (depth > 10)
+    throw new AppError("invalid_input", "Some values need attention.", {
+      runMinutes: ["That run time and rate make more than 10 in of water. Check both."],
+    });
   await db()
     .insertInto("waterings")
     .values({
@@ -34,7 +58,9 @@ export async function logWatering(actor: Actor, propertyId: string, input: Water
     })
     .onConflict((oc) => oc.column("id").doNothing())
     .execute();
-  const saved = (await listWaterings(actor, propertyId, { limit: 500 })).find((w) => w.id === input.id);
+  const saved = (await listWaterings(actor, propertyId, { limit: 500 })).find(
+    (w) => w.id === input.id,
+  );
   if (!saved) throw new AppError("conflict", "A different watering already uses that id.");
   return saved;
 }

@@ -1,12 +1,18 @@
 // Watering log reads, within the actor's property scope.
 import "server-only";
+
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { assertPropertyInScope } from "@/lib/properties/queries";
 import { propertyInScope } from "@/lib/properties/scope";
+
 import type { WateringDto } from "./schemas";
 
-export async function listWaterings(actor: Actor, propertyId: string, options: { from?: string; limit?: number } = {}): Promise<WateringDto[]> {
+export async function listWaterings(
+  actor: Actor,
+  propertyId: string,
+  options: { from?: string; limit?: number } = {},
+): Promise<WateringDto[]> {
   await assertPropertyInScope(actor, propertyId); // an unknown or foreign property is 404, as the property itself is
   const rows = await db()
     .selectFrom("waterings")
@@ -30,7 +36,8 @@ export async function listWaterings(actor: Actor, propertyId: string, options: {
     wateredOn: r.watered_on,
     depthIn: Number(r.depth_in),
     runMinutes: r.run_minutes === null ? null : Number(r.run_minutes),
-    precipitationRateInPerHour: r.precipitation_rate_in_per_h === null ? null : Number(r.precipitation_rate_in_per_h),
+    precipitationRateInPerHour:
+      r.precipitation_rate_in_per_h === null ? null : Number(r.precipitation_rate_in_per_h),
     enteredBy: r.user_name,
     enteredByRole: r.entered_by_role,
     notes: r.notes,

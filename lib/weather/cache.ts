@@ -2,6 +2,7 @@
 // service never blocks anything — the cache answers, marked as such. Takes the database handle
 // from its caller (the web app's pool, or the background worker's).
 import type { Kysely } from "kysely";
+
 import type { Database, WeatherDay } from "@/db/schema";
 import { addDays } from "@/lib/dates";
 import { log } from "@/lib/log";
@@ -49,16 +50,41 @@ export interface WeatherResult {
 }
 
 /** Days [from, to] for a location: from the cache, fetching what is missing or out of date. */
-export async function weatherFromCache(executor: Kysely<Database>, provider: WeatherProvider | null, lat: number, lon: number, from: string, to: string, today: string): Promise<WeatherResult> {
+export async function weatherFromCache(
+  executor: Kysely<Database>,
+  provider: WeatherProvider | null,
+  lat: number,
+  lon: number,
+  from: string,
+  to: string,
+  today: string,
+): Promise<WeatherResult> {
   const cell = cellOf(lat, lon);
-  const cached = await executor.selectFrom("weather_days").selectAll().where("cell", "=", cell).where("day", ">=", from).where("day", "<=", to).orderBy("day").execute();
+  const cached = await executor
+    .selectFrom("weather_days")
+    .selectAll()
+    .where("cell", "=", cell)
+    .where("day", ">=", from)
+    .where("day", "<=", to)
+    .orderBy("day")
+    .execute();
   const staleAfter = Date.now() - 6 * 3600_000;
   const wanted = Math.round((Date.parse(to) - Date.parse(from)) / 86_400_000) + 1;
   // Past days are final two days after the fact; recent days and forecasts are refreshed every 6 h.
   const needsFetch =
-    cached.length < wanted || cached.some((r) => (r.is_forecast || r.day >= addDays(today, -2)) && new Date(r.fetched_at).getTime() < staleAfter);
+    cached.length < wanted ||
+    cached.some(
+      (r) =>
+        (r.is_forecast || r.day >= addDays(today, -2)) &&
+        new Date(r.fetched_at).getTime() < staleAfter,
+    );
   if (!needsFetch) return { days: cached.map(toInput), status: "ok", message: null };
-  if (!provider) return { days: cached.map(toInput), status: cached.length ? "cached" : "unavailable", message: "No weather service is configured." };
+  if (!provider)
+    return {
+      days: cached.map(toInput),
+      status: cached.length ? "cached" : "unavailable",
+      message: "No weather service is configured.",
+    };
   try {
     const days = await provider.daily(lat, lon, from, to);
     if (days.length) {
@@ -85,9 +111,11 @@ export async function weatherFromCache(executor: Kysely<Database>, provider: Wea
     }
     return { days, status: "ok", message: null };
   } catch (err) {
-    const message = err instanceof WeatherUnavailable ? `Weather unavailable: ${err.message}.` : "Weather unavailable.";
+    const message =
+      err instanceof WeatherUnavailable
+        ? `Weather unavailable: ${err.message}.`
+        : "Weather unavailable.";
     log.warn({ err, cell }, "weather fetch failed");
     return { days: cached.map(toInput), status: cached.length ? "cached" : "unavailable", message };
   }
 }
-

@@ -31,10 +31,21 @@ export interface DerivedDay {
 
 const cToF = (c: number) => (c * 9) / 5 + 32;
 
-export function deriveDays(days: WeatherDayInput[], options: { latitudeDeg: number; elevationM?: number; kc: number; wateringInByDate: Record<string, number> }): DerivedDay[] {
+export function deriveDays(
+  days: WeatherDayInput[],
+  options: {
+    latitudeDeg: number;
+    elevationM?: number;
+    kc: number;
+    wateringInByDate: Record<string, number>;
+  },
+): DerivedDay[] {
   const sorted = [...days].sort((a, b) => a.date.localeCompare(b.date));
   const et0 = sorted.map((d) => {
-    const complete = d.windMs !== null && (d.rhMaxPct !== null && d.rhMinPct !== null ? true : d.rhMeanPct !== null) && (d.sunshineH !== null || d.solarMJ !== null);
+    const complete =
+      d.windMs !== null &&
+      (d.rhMaxPct !== null && d.rhMinPct !== null ? true : d.rhMeanPct !== null) &&
+      (d.sunshineH !== null || d.solarMJ !== null);
     if (complete) {
       return {
         mm: penmanMonteithEt0({
@@ -54,17 +65,35 @@ export function deriveDays(days: WeatherDayInput[], options: { latitudeDeg: numb
         method: "penman-monteith" as const,
       };
     }
-    return { mm: hargreavesEt0({ date: d.date, latitudeDeg: options.latitudeDeg, tmaxC: d.tmaxC, tminC: d.tminC }), method: "hargreaves" as const };
+    return {
+      mm: hargreavesEt0({
+        date: d.date,
+        latitudeDeg: options.latitudeDeg,
+        tmaxC: d.tmaxC,
+        tminC: d.tminC,
+      }),
+      method: "hargreaves" as const,
+    };
   });
   const tmeanF = sorted.map((d) => cToF((d.tmaxC + d.tminC) / 2));
-  const rhMean = sorted.map((d) => d.rhMeanPct ?? (d.rhMaxPct !== null && d.rhMinPct !== null ? (d.rhMaxPct + d.rhMinPct) / 2 : null));
+  const rhMean = sorted.map(
+    (d) =>
+      d.rhMeanPct ??
+      (d.rhMaxPct !== null && d.rhMinPct !== null ? (d.rhMaxPct + d.rhMinPct) / 2 : null),
+  );
   const t5 = movingMean(tmeanF, 5);
-  const net = sorted.map((d, i) => mmToIn(d.precipMm) + (options.wateringInByDate[d.date] ?? 0) - options.kc * mmToIn(et0[i]!.mm));
+  const net = sorted.map(
+    (d, i) =>
+      mmToIn(d.precipMm) +
+      (options.wateringInByDate[d.date] ?? 0) -
+      options.kc * mmToIn(et0[i]!.mm),
+  );
   let gddTotal = 0;
   return sorted.map((d, i) => {
     const gdd = growingDegreeDays(cToF(d.tmaxC), cToF(d.tminC), 50);
     gddTotal += gdd;
-    const window = (n: number) => net.slice(Math.max(0, i - n + 1), i + 1).reduce((a, b) => a + b, 0);
+    const window = (n: number) =>
+      net.slice(Math.max(0, i - n + 1), i + 1).reduce((a, b) => a + b, 0);
     const rhWindow = rhMean.slice(Math.max(0, i - 4), i + 1).filter((x): x is number => x !== null);
     return {
       date: d.date,

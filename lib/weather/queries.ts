@@ -2,6 +2,7 @@
 // or failing service never blocks anything: the cache answers, marked as such); the property
 // weather panel; the weather snapshot of a visit.
 import "server-only";
+
 import { db } from "@/db";
 import { lawnKc } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
@@ -9,21 +10,33 @@ import { addDays, todayIn } from "@/lib/dates";
 import { notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
 import { weatherProvider } from "@/lib/services/weather/instance";
-import { type DerivedDay, deriveDays } from "./derived";
-import { type WeatherResult, weatherFromCache } from "./cache";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
+
+import { weatherFromCache, type WeatherResult } from "./cache";
+import { deriveDays, type DerivedDay } from "./derived";
 
 export { cellOf, weatherDayRow, type WeatherResult } from "./cache";
 
 /** Days [from, to] for a location: from the cache, fetching what is missing or out of date. */
-export const weatherForLocation = (provider: WeatherProvider | null, lat: number, lon: number, from: string, to: string, today: string): Promise<WeatherResult> =>
-  weatherFromCache(db(), provider, lat, lon, from, to, today);
+export const weatherForLocation = (
+  provider: WeatherProvider | null,
+  lat: number,
+  lon: number,
+  from: string,
+  to: string,
+  today: string,
+): Promise<WeatherResult> => weatherFromCache(db(), provider, lat, lon, from, to, today);
 
 /** Where a property is (and its time zone), within the actor's scope; not found otherwise. */
 export async function propertyLocation(actor: Actor, propertyId: string) {
   const property = await db()
     .selectFrom("properties")
-    .select(["properties.id", "properties.latitude", "properties.longitude", "properties.time_zone"])
+    .select([
+      "properties.id",
+      "properties.latitude",
+      "properties.longitude",
+      "properties.time_zone",
+    ])
     .where(propertyInScope(actor))
     .where("properties.id", "=", propertyId)
     .executeTakeFirst();
@@ -44,9 +57,22 @@ export async function propertyWeather(actor: Actor, propertyId: string): Promise
   const property = await propertyLocation(actor, propertyId);
   const today = todayIn(property.time_zone);
   const jan1 = `${today.slice(0, 4)}-01-01`;
-  const result = await weatherForLocation(weatherProvider(), property.latitude, property.longitude, jan1, addDays(today, 7), today);
+  const result = await weatherForLocation(
+    weatherProvider(),
+    property.latitude,
+    property.longitude,
+    jan1,
+    addDays(today, 7),
+    today,
+  );
 
-  const zones = await db().selectFrom("zones").select(["grass_species", "area_ft2"]).where("company_id", "=", actor.companyId).where("property_id", "=", propertyId).where("archived_at", "is", null).execute();
+  const zones = await db()
+    .selectFrom("zones")
+    .select(["grass_species", "area_ft2"])
+    .where("company_id", "=", actor.companyId)
+    .where("property_id", "=", propertyId)
+    .where("archived_at", "is", null)
+    .execute();
   const totalArea = zones.reduce((s, z) => s + Number(z.area_ft2), 0) || 1;
   const kc = lawnKc(zones);
 
@@ -61,7 +87,10 @@ export async function propertyWeather(actor: Actor, propertyId: string): Promise
     .execute();
   // Area-weighted: a zone's watering counts for its share of the lawn.
   const wateringInByDate: Record<string, number> = {};
-  for (const w of waterings) wateringInByDate[w.watered_on] = (wateringInByDate[w.watered_on] ?? 0) + Number(w.depth_in) * (w.zone_id ? Number(w.area_ft2) / totalArea : 1);
+  for (const w of waterings)
+    wateringInByDate[w.watered_on] =
+      (wateringInByDate[w.watered_on] ?? 0) +
+      Number(w.depth_in) * (w.zone_id ? Number(w.area_ft2) / totalArea : 1);
 
   const derived = deriveDays(result.days, { latitudeDeg: property.latitude, kc, wateringInByDate });
   const past = derived.filter((d) => d.date <= today);
@@ -71,16 +100,27 @@ export async function propertyWeather(actor: Actor, propertyId: string): Promise
     today,
     kc,
     days: derived.filter((d) => d.date > addDays(today, -14)),
-    gddSinceJan1F: past.length && past[0]!.date === jan1 ? past[past.length - 1]!.gddSinceStartF : null,
+    gddSinceJan1F:
+      past.length && past[0]!.date === jan1 ? past[past.length - 1]!.gddSinceStartF : null,
   };
 }
 
 /** The weather of a day at a place, for a visit snapshot: never throws, never waits long. */
-export async function weatherSnapshot(lat: number, lon: number, date: string, today: string): Promise<Record<string, unknown>> {
+export async function weatherSnapshot(
+  lat: number,
+  lon: number,
+  date: string,
+  today: string,
+): Promise<Record<string, unknown>> {
   try {
     const result = await weatherForLocation(weatherProvider("quick"), lat, lon, date, date, today);
     const d = result.days.find((x) => x.date === date);
-    if (!d) return { status: "unavailable", message: result.message ?? "Weather unavailable.", at: new Date().toISOString() };
+    if (!d)
+      return {
+        status: "unavailable",
+        message: result.message ?? "Weather unavailable.",
+        at: new Date().toISOString(),
+      };
     return {
       status: "ok",
       date,
@@ -97,4 +137,3 @@ export async function weatherSnapshot(lat: number, lon: number, date: string, to
     return { status: "unavailable", message: "Weather unavailable.", at: new Date().toISOString() };
   }
 }
-

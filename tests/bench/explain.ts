@@ -11,14 +11,37 @@ const manager = await db
   .selectFrom("users")
   .innerJoin("memberships", "memberships.user_id", "users.id")
   .innerJoin("companies", "companies.id", "memberships.company_id")
-  .select(["users.id", "users.email", "users.name", "memberships.company_id", "companies.name as company_name", "companies.time_zone"])
+  .select([
+    "users.id",
+    "users.email",
+    "users.name",
+    "memberships.company_id",
+    "companies.name as company_name",
+    "companies.time_zone",
+  ])
   .where("users.email", "=", process.argv[2]!)
   .executeTakeFirstOrThrow();
-const actor: Actor = { userId: manager.id, companyId: manager.company_id, companyName: manager.company_name, companyTimeZone: manager.time_zone, role: "manager", email: manager.email, name: manager.name, sessionId: "bench" };
+const actor: Actor = {
+  userId: manager.id,
+  companyId: manager.company_id,
+  companyName: manager.company_name,
+  companyTimeZone: manager.time_zone,
+  role: "manager",
+  email: manager.email,
+  name: manager.name,
+  sessionId: "bench",
+};
 const plans: Record<string, string> = {};
-for (const [name, q] of [["first page", {}], ["declining + high", { trend: "declining", severity: "high" }], ["text search", { q: "Cinder" }]] as const) {
+for (const [name, q] of [
+  ["first page", {}],
+  ["declining + high", { trend: "declining", severity: "high" }],
+  ["text search", { q: "Cinder" }],
+] as const) {
   const compiled = bookPageQuery(actor, bookQuery.parse({ limit: 20, ...q })).compile();
-  const explained = await db.executeQuery<{ "QUERY PLAN": string }>({ ...compiled, sql: `explain (analyze, buffers) ${compiled.sql}` });
+  const explained = await db.executeQuery<{ "QUERY PLAN": string }>({
+    ...compiled,
+    sql: `explain (analyze, buffers) ${compiled.sql}`,
+  });
   plans[name] = explained.rows.map((r) => r["QUERY PLAN"]).join("\n");
 }
 await db.destroy();

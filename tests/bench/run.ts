@@ -3,14 +3,16 @@
 // tests/.artifacts/bench/): API latencies under autocannon, a zone-check save, the daily risk
 // sweep, compressed JavaScript per page measured in Chromium, Lighthouse scores, and EXPLAIN of
 // the book query. Budgets are printed beside each figure; this is a benchmark, not a test.
-import { type ChildProcess, spawn, spawnSync } from "node:child_process";
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { randomBytes, randomUUID } from "node:crypto";
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import autocannon from "autocannon";
 import { sql } from "kysely";
+
 import { createDb } from "@/db/client";
 import { todayIn } from "@/lib/dates";
+
 import { launchBrowser } from "../helpers/browser";
 import { passwordSignIn } from "../helpers/password-sign-in";
 import { waitForUrl } from "../helpers/processes";
@@ -28,7 +30,9 @@ const rows: Row[] = [];
 const json: Record<string, unknown> = { at: new Date().toISOString(), durationSeconds: DURATION };
 const record = (measure: string, figure: string, budget = "", ok: boolean | null = null) => {
   rows.push({ measure, figure, budget, ok });
-  console.log(`  ${ok === null ? "·" : ok ? "✓" : "✗"} ${measure}: ${figure}${budget ? `  (budget ${budget})` : ""}`);
+  console.log(
+    `  ${ok === null ? "·" : ok ? "✓" : "✗"} ${measure}: ${figure}${budget ? `  (budget ${budget})` : ""}`,
+  );
 };
 
 function must(cmd: string, args: string[], env: Record<string, string> = {}) {
@@ -39,7 +43,8 @@ function must(cmd: string, args: string[], env: Record<string, string> = {}) {
 /** Signs in through Auth.js's credentials callback, as the form does, and returns the cookie header. */
 async function signIn(email: string): Promise<string> {
   const result = await passwordSignIn(BASE, email, PASSWORD);
-  if (!result.sessionToken) throw new Error(`bench: could not sign in as ${email} (status ${result.status})`);
+  if (!result.sessionToken)
+    throw new Error(`bench: could not sign in as ${email} (status ${result.status})`);
   return result.cookie;
 }
 
@@ -51,9 +56,28 @@ interface Cannon {
   timeouts: number;
 }
 
-async function cannon(name: string, url: string, cookie: string, options: Record<string, unknown> = {}): Promise<Cannon> {
-  const result = (await autocannon({ url, connections: 10, duration: DURATION, headers: { cookie }, ...options })) as Cannon;
-  json[name] = { p50: result.latency.p50, p90: result.latency.p90, p97_5: result.latency.p97_5, p99: result.latency.p99, requestsPerSecond: result.requests.average, errors: result.errors + result.timeouts, non2xx: result.non2xx };
+async function cannon(
+  name: string,
+  url: string,
+  cookie: string,
+  options: Record<string, unknown> = {},
+): Promise<Cannon> {
+  const result = (await autocannon({
+    url,
+    connections: 10,
+    duration: DURATION,
+    headers: { cookie },
+    ...options,
+  })) as Cannon;
+  json[name] = {
+    p50: result.latency.p50,
+    p90: result.latency.p90,
+    p97_5: result.latency.p97_5,
+    p99: result.latency.p99,
+    requestsPerSecond: result.requests.average,
+    errors: result.errors + result.timeouts,
+    non2xx: result.non2xx,
+  };
   return result;
 }
 
@@ -61,19 +85,44 @@ const ms = (v: number) => `${v.toFixed(v < 10 ? 1 : 0)} ms`;
 
 async function main() {
   const db = createDb(benchDatabaseUrl(), { max: 2 });
-  const company = await db.selectFrom("companies").select(["id", "time_zone"]).where("slug", "=", "bench-fieldstone").executeTakeFirst();
+  const company = await db
+    .selectFrom("companies")
+    .select(["id", "time_zone"])
+    .where("slug", "=", "bench-fieldstone")
+    .executeTakeFirst();
   if (!company) {
     console.error("bench: no benchmark book yet. Run `npm run bench:seed` first.");
     process.exit(1);
   }
-  const counts = await sql<{ properties: string; checks: string }>`select (select count(*) from properties) properties, (select count(*) from zone_checks) checks`.execute(db);
-  console.log(`bench: book of ${counts.rows[0]!.properties} properties, ${Number(counts.rows[0]!.checks).toLocaleString("en-US")} zone checks`);
+  const counts = await sql<{
+    properties: string;
+    checks: string;
+  }>`select (select count(*) from properties) properties, (select count(*) from zone_checks) checks`.execute(
+    db,
+  );
+  console.log(
+    `bench: book of ${counts.rows[0]!.properties} properties, ${Number(counts.rows[0]!.checks).toLocaleString("en-US")} zone checks`,
+  );
 
-  if (!process.argv.includes("--no-build")) must("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
-  const server: ChildProcess = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
-    stdio: ["ignore", "ignore", "inherit"],
-    env: { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: benchDatabaseUrl(), AUTH_SECRET: randomBytes(32).toString("base64url"), AUTH_URL: BASE, LOG_LEVEL: "warn", PHOTO_DIR: "tests/.artifacts/photos-bench" },
-  });
+  if (!process.argv.includes("--no-build"))
+    must("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
+  const server: ChildProcess = spawn(
+    "node",
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
+    {
+      stdio: ["ignore", "ignore", "inherit"],
+      env: {
+        ...process.env,
+        NODE_ENV: "production",
+        NEXT_TELEMETRY_DISABLED: "1",
+        DATABASE_URL: benchDatabaseUrl(),
+        AUTH_SECRET: randomBytes(32).toString("base64url"),
+        AUTH_URL: BASE,
+        LOG_LEVEL: "warn",
+        PHOTO_DIR: "tests/.artifacts/photos-bench",
+      },
+    },
+  );
   const stop = () => server.exitCode === null && server.kill("SIGTERM");
   process.on("exit", stop);
   try {
@@ -82,61 +131,137 @@ async function main() {
     const tech = await signIn(benchTechnician(0));
     const owner = await signIn(benchHomeowner(0));
     // Warm up: compile nothing at runtime, but fill pools and caches as a running server has them.
-    for (let i = 0; i < 20; i++) await fetch(`${BASE}/api/v1/book`, { headers: { cookie: manager } });
+    for (let i = 0; i < 20; i++)
+      await fetch(`${BASE}/api/v1/book`, { headers: { cookie: manager } });
 
     console.log("\nBook API (10 connections, %d s each)", DURATION);
     let after: string | null = null;
     for (let page = 1; page < 100; page++) {
-      const body = (await (await fetch(`${BASE}/api/v1/book?limit=20${after ? `&after=${after}` : ""}`, { headers: { cookie: manager } })).json()) as { nextCursor: string | null };
+      const body = (await (
+        await fetch(`${BASE}/api/v1/book?limit=20${after ? `&after=${after}` : ""}`, {
+          headers: { cookie: manager },
+        })
+      ).json()) as { nextCursor: string | null };
       after = body.nextCursor;
       if (!after) throw new Error(`bench: the book ended at page ${page}; seed 2,000 properties`);
     }
     const views: [string, string][] = [
       ["book: first page", "/api/v1/book?limit=20"],
       ["book: page 100 (keyset)", `/api/v1/book?limit=20&after=${after}`],
-      ["book: filtered (declining, high alerts)", "/api/v1/book?limit=20&trend=declining&severity=high"],
+      [
+        "book: filtered (declining, high alerts)",
+        "/api/v1/book?limit=20&trend=declining&severity=high",
+      ],
       ["book: text search", "/api/v1/book?limit=20&q=Cinder"],
     ];
     const book: Record<string, Cannon> = {};
     for (const [name, url] of views) {
       const r = (book[name] = await cannon(name, `${BASE}${url}`, manager));
-      const ok = r.latency.p50 < 50 && r.latency.p97_5 < 200 && r.errors + r.timeouts === 0 && r.non2xx === 0;
-      record(name, `p50 ${ms(r.latency.p50)}, p90 ${ms(r.latency.p90)}, p97.5 ${ms(r.latency.p97_5)}, p99 ${ms(r.latency.p99)}, ${r.requests.average.toFixed(0)} req/s, errors ${r.errors + r.timeouts}, non-2xx ${r.non2xx}`, "p50 < 50 ms, p97.5 < 200 ms, 0 errors", ok);
+      const ok =
+        r.latency.p50 < 50 &&
+        r.latency.p97_5 < 200 &&
+        r.errors + r.timeouts === 0 &&
+        r.non2xx === 0;
+      record(
+        name,
+        `p50 ${ms(r.latency.p50)}, p90 ${ms(r.latency.p90)}, p97.5 ${ms(r.latency.p97_5)}, p99 ${ms(r.latency.p99)}, ${r.requests.average.toFixed(0)} req/s, errors ${r.errors + r.timeouts}, non-2xx ${r.non2xx}`,
+        "p50 < 50 ms, p97.5 < 200 ms, 0 errors",
+        ok,
+      );
     }
-    const ratio = book["book: page 100 (keyset)"]!.latency.p50 / book["book: first page"]!.latency.p50;
+    const ratio =
+      book["book: page 100 (keyset)"]!.latency.p50 / book["book: first page"]!.latency.p50;
     json["page100ToPage1"] = ratio;
     record("book: page 100 ÷ page 1 (p50)", `${ratio.toFixed(2)}×`, "≤ 2×", ratio <= 2);
 
-    const property = await db.selectFrom("properties").select("id").where("technician_id", "=", db.selectFrom("users").select("id").where("email", "=", benchTechnician(0))).orderBy("id").executeTakeFirstOrThrow();
-    const zone = await db.selectFrom("zones").select("id").where("property_id", "=", property.id).orderBy("sort_order").executeTakeFirstOrThrow();
+    const property = await db
+      .selectFrom("properties")
+      .select("id")
+      .where(
+        "technician_id",
+        "=",
+        db.selectFrom("users").select("id").where("email", "=", benchTechnician(0)),
+      )
+      .orderBy("id")
+      .executeTakeFirstOrThrow();
+    const zone = await db
+      .selectFrom("zones")
+      .select("id")
+      .where("property_id", "=", property.id)
+      .orderBy("sort_order")
+      .executeTakeFirstOrThrow();
     console.log("\nProperty and zone APIs");
-    for (const [name, url] of [["property API", `/api/v1/properties/${property.id}`], ["zone history API", `/api/v1/zones/${zone.id}/checks`]] as const) {
+    for (const [name, url] of [
+      ["property API", `/api/v1/properties/${property.id}`],
+      ["zone history API", `/api/v1/zones/${zone.id}/checks`],
+    ] as const) {
       const r = await cannon(name, `${BASE}${url}`, manager);
-      record(name, `p50 ${ms(r.latency.p50)}, p97.5 ${ms(r.latency.p97_5)}, p99 ${ms(r.latency.p99)}, ${r.requests.average.toFixed(0)} req/s, errors ${r.errors + r.timeouts}, non-2xx ${r.non2xx}`);
+      record(
+        name,
+        `p50 ${ms(r.latency.p50)}, p97.5 ${ms(r.latency.p97_5)}, p99 ${ms(r.latency.p99)}, ${r.requests.average.toFixed(0)} req/s, errors ${r.errors + r.timeouts}, non-2xx ${r.non2xx}`,
+      );
     }
 
     // Saving zone checks: tech01's stops of today, each zone saved new, then saved again changed.
     console.log("\nSaving zone checks");
     const today = todayIn(company.time_zone);
-    const techId = (await db.selectFrom("users").select("id").where("email", "=", benchTechnician(0)).executeTakeFirstOrThrow()).id;
-    const stops = await db.selectFrom("visits").select(["id", "property_id", "status"]).where("technician_id", "=", techId).where("scheduled_for", "=", today).execute();
+    const techId = (
+      await db
+        .selectFrom("users")
+        .select("id")
+        .where("email", "=", benchTechnician(0))
+        .executeTakeFirstOrThrow()
+    ).id;
+    const stops = await db
+      .selectFrom("visits")
+      .select(["id", "property_id", "status"])
+      .where("technician_id", "=", techId)
+      .where("scheduled_for", "=", today)
+      .execute();
     // A second run starts from the same place: the checks an earlier run saved on these stops go.
-    await db.deleteFrom("zone_checks").where("visit_id", "in", stops.map((s) => s.id)).execute();
+    await db
+      .deleteFrom("zone_checks")
+      .where(
+        "visit_id",
+        "in",
+        stops.map((s) => s.id),
+      )
+      .execute();
     for (const s of stops.filter((v) => v.status === "scheduled")) {
-      const res = await fetch(`${BASE}/api/v1/visits/${s.id}/start`, { method: "POST", headers: { cookie: tech, "content-type": "application/json", origin: BASE }, body: JSON.stringify({ latitude: null, longitude: null }) });
-      if (!res.ok) throw new Error(`bench: could not start visit ${s.id}: ${res.status} ${await res.text()}`);
+      const res = await fetch(`${BASE}/api/v1/visits/${s.id}/start`, {
+        method: "POST",
+        headers: { cookie: tech, "content-type": "application/json", origin: BASE },
+        body: JSON.stringify({ latitude: null, longitude: null }),
+      });
+      if (!res.ok)
+        throw new Error(`bench: could not start visit ${s.id}: ${res.status} ${await res.text()}`);
     }
-    const stopZones = await db.selectFrom("zones").select(["id", "property_id"]).where("property_id", "in", stops.map((s) => s.property_id)).execute();
+    const stopZones = await db
+      .selectFrom("zones")
+      .select(["id", "property_id"])
+      .where(
+        "property_id",
+        "in",
+        stops.map((s) => s.property_id),
+      )
+      .execute();
     const saves = stopZones.flatMap((z) => {
       const visitId = stops.find((s) => s.property_id === z.property_id)!.id;
       const id = randomUUID();
       return [
         { visitId, id, body: doneCheck(z.id, { baseVersion: 0, quality: 6 }) },
-        { visitId, id, body: doneCheck(z.id, { baseVersion: 1, quality: 7, notes: "Second save, changed." }) },
+        {
+          visitId,
+          id,
+          body: doneCheck(z.id, { baseVersion: 1, quality: 7, notes: "Second save, changed." }),
+        },
       ];
     });
     // First all new checks, then all second saves (each on the version the first one made).
-    const ordered = [...saves.filter((_, i) => i % 2 === 0), ...saves.filter((_, i) => i % 2 === 1)];
+    const ordered = [
+      ...saves.filter((_, i) => i % 2 === 0),
+      ...saves.filter((_, i) => i % 2 === 1),
+    ];
     let next = 0;
     const save = (await autocannon({
       url: BASE,
@@ -148,29 +273,73 @@ async function main() {
           method: "PUT",
           setupRequest: (req: Record<string, unknown>) => {
             const s = ordered[next++ % ordered.length]!;
-            return { ...req, path: `/api/v1/visits/${s.visitId}/zone-checks/${s.id}`, body: JSON.stringify(s.body) };
+            return {
+              ...req,
+              path: `/api/v1/visits/${s.visitId}/zone-checks/${s.id}`,
+              body: JSON.stringify(s.body),
+            };
           },
         },
       ],
     })) as Cannon;
-    json["zone check save"] = { saves: ordered.length, p50: save.latency.p50, p97_5: save.latency.p97_5, p99: save.latency.p99, errors: save.errors + save.timeouts, non2xx: save.non2xx };
-    record(`zone-check save (${ordered.length} saves, 4 connections)`, `p50 ${ms(save.latency.p50)}, p97.5 ${ms(save.latency.p97_5)}, errors ${save.errors + save.timeouts}, non-2xx ${save.non2xx}`, "p97.5 < 150 ms", save.latency.p97_5 < 150 && save.non2xx === 0);
+    json["zone check save"] = {
+      saves: ordered.length,
+      p50: save.latency.p50,
+      p97_5: save.latency.p97_5,
+      p99: save.latency.p99,
+      errors: save.errors + save.timeouts,
+      non2xx: save.non2xx,
+    };
+    record(
+      `zone-check save (${ordered.length} saves, 4 connections)`,
+      `p50 ${ms(save.latency.p50)}, p97.5 ${ms(save.latency.p97_5)}, errors ${save.errors + save.timeouts}, non-2xx ${save.non2xx}`,
+      "p97.5 < 150 ms",
+      save.latency.p97_5 < 150 && save.non2xx === 0,
+    );
 
     // The daily risk sweep over the whole book, in a worker process of its own.
     console.log("\nDaily risk sweep");
-    const sweepRun = spawnSync("node_modules/.bin/tsx", ["tests/bench/sweep.ts"], { env: { ...process.env, DATABASE_URL: benchDatabaseUrl() }, encoding: "utf8" });
+    const sweepRun = spawnSync("node_modules/.bin/tsx", ["tests/bench/sweep.ts"], {
+      env: { ...process.env, DATABASE_URL: benchDatabaseUrl() },
+      encoding: "utf8",
+    });
     if (sweepRun.status !== 0) throw new Error(`bench: sweep failed: ${sweepRun.stderr}`);
-    const sweep = JSON.parse(sweepRun.stdout.trim().split("\n").at(-1)!) as { ms: number; properties: number; maxRssMb: number };
+    const sweep = JSON.parse(sweepRun.stdout.trim().split("\n").at(-1)!) as {
+      ms: number;
+      properties: number;
+      maxRssMb: number;
+    };
     json["risk sweep"] = sweep;
-    record(`risk sweep (${sweep.properties} properties)`, `${(sweep.ms / 1000).toFixed(1)} s, peak memory ${sweep.maxRssMb.toFixed(0)} MB`, "< 60 s", sweep.ms < 60_000);
+    record(
+      `risk sweep (${sweep.properties} properties)`,
+      `${(sweep.ms / 1000).toFixed(1)} s, peak memory ${sweep.maxRssMb.toFixed(0)} MB`,
+      "< 60 s",
+      sweep.ms < 60_000,
+    );
 
     // Compressed JavaScript on a cold load, as Chromium received it.
     console.log("\nJavaScript transferred (cold load, compressed)");
-    const ownerProperty = await db.selectFrom("property_homeowners").innerJoin("users", "users.id", "property_homeowners.user_id").select("property_id").where("users.email", "=", benchHomeowner(0)).executeTakeFirstOrThrow();
-    const report = await db.selectFrom("visits").select("id").where("property_id", "=", ownerProperty.property_id).where("status", "=", "completed").orderBy("scheduled_for", "desc").executeTakeFirstOrThrow();
+    const ownerProperty = await db
+      .selectFrom("property_homeowners")
+      .innerJoin("users", "users.id", "property_homeowners.user_id")
+      .select("property_id")
+      .where("users.email", "=", benchHomeowner(0))
+      .executeTakeFirstOrThrow();
+    const report = await db
+      .selectFrom("visits")
+      .select("id")
+      .where("property_id", "=", ownerProperty.property_id)
+      .where("status", "=", "completed")
+      .orderBy("scheduled_for", "desc")
+      .executeTakeFirstOrThrow();
     const pages: { name: string; path: string; cookie: string; budget?: number }[] = [
       { name: "sign-in", path: "/sign-in", cookie: "" },
-      { name: "technician's visit page", path: `/visits/${stops[0]!.id}`, cookie: tech, budget: 130 },
+      {
+        name: "technician's visit page",
+        path: `/visits/${stops[0]!.id}`,
+        cookie: tech,
+        budget: 130,
+      },
       { name: "the book", path: "/properties", cookie: manager },
       { name: "homeowner report", path: `/my-lawn/visits/${report.id}`, cookie: owner },
     ];
@@ -178,7 +347,14 @@ async function main() {
     const jsKb: Record<string, number> = {};
     for (const p of pages) {
       const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
-      if (p.cookie) await context.addCookies(p.cookie.split("; ").map((c) => ({ name: c.split("=")[0]!, value: c.slice(c.indexOf("=") + 1), url: BASE })));
+      if (p.cookie)
+        await context.addCookies(
+          p.cookie.split("; ").map((c) => ({
+            name: c.split("=")[0]!,
+            value: c.slice(c.indexOf("=") + 1),
+            url: BASE,
+          })),
+        );
       const page = await context.newPage();
       const cdp = await context.newCDPSession(page);
       await cdp.send("Network.enable");
@@ -196,8 +372,18 @@ async function main() {
       await page.goto(`${BASE}${p.path}`, { waitUntil: "networkidle" });
       const kb = [...scripts.values()].reduce((a, b) => a + b, 0) / 1024;
       jsKb[p.name] = kb;
-      json[`javascriptFiles: ${p.name}`] = Object.fromEntries([...scripts].map(([id, bytes]) => [urls.get(id)?.replace(BASE, "") ?? id, Math.round(bytes / 102.4) / 10]));
-      record(`JS: ${p.name}`, `${kb.toFixed(1)} kB in ${scripts.size} files`, p.budget ? `< ${p.budget} kB` : "", p.budget ? kb < p.budget : null);
+      json[`javascriptFiles: ${p.name}`] = Object.fromEntries(
+        [...scripts].map(([id, bytes]) => [
+          urls.get(id)?.replace(BASE, "") ?? id,
+          Math.round(bytes / 102.4) / 10,
+        ]),
+      );
+      record(
+        `JS: ${p.name}`,
+        `${kb.toFixed(1)} kB in ${scripts.size} files`,
+        p.budget ? `< ${p.budget} kB` : "",
+        p.budget ? kb < p.budget : null,
+      );
       await context.close();
     }
     await browser.close();
@@ -209,26 +395,61 @@ async function main() {
     for (const p of pages.filter((pp) => pp.name !== "the book")) {
       const runs: { performance: number; accessibility: number }[] = [];
       for (let i = 0; i < 3; i++) {
-        const r = spawnSync("node", ["tests/bench/lighthouse.mjs", `${BASE}${p.path}`, p.cookie], { encoding: "utf8", env: { ...process.env, CHROME_PATH: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium" }, maxBuffer: 64 * 1024 * 1024 });
-        if (r.status !== 0) throw new Error(`bench: lighthouse failed on ${p.path}: ${r.stderr.slice(-2000)}`);
+        const r = spawnSync("node", ["tests/bench/lighthouse.mjs", `${BASE}${p.path}`, p.cookie], {
+          encoding: "utf8",
+          env: { ...process.env, CHROME_PATH: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium" },
+          maxBuffer: 64 * 1024 * 1024,
+        });
+        if (r.status !== 0)
+          throw new Error(`bench: lighthouse failed on ${p.path}: ${r.stderr.slice(-2000)}`);
         runs.push(JSON.parse(r.stdout.trim().split("\n").at(-1)!));
       }
-      const median = (k: "performance" | "accessibility") => runs.map((r) => r[k]).sort((a, b) => a - b)[1]!;
-      lighthouseScores[p.name] = { performance: median("performance"), accessibility: median("accessibility") };
-      record(`Lighthouse: ${p.name}`, `performance ${median("performance")}, accessibility ${median("accessibility")}`, "≥ 90 and ≥ 95", median("performance") >= 90 && median("accessibility") >= 95);
+      const median = (k: "performance" | "accessibility") =>
+        runs.map((r) => r[k]).sort((a, b) => a - b)[1]!;
+      lighthouseScores[p.name] = {
+        performance: median("performance"),
+        accessibility: median("accessibility"),
+      };
+      record(
+        `Lighthouse: ${p.name}`,
+        `performance ${median("performance")}, accessibility ${median("accessibility")}`,
+        "≥ 90 and ≥ 95",
+        median("performance") >= 90 && median("accessibility") >= 95,
+      );
     }
     json["lighthouse"] = lighthouseScores;
 
     // EXPLAIN of the book query as the manager runs it.
     console.log("\nEXPLAIN (ANALYZE, BUFFERS) of the book query");
-    const explainRun = spawnSync("node_modules/.bin/tsx", ["--conditions=react-server", "tests/bench/explain.ts", BENCH_MANAGER], { env: { ...process.env, DATABASE_URL: benchDatabaseUrl(), AUTH_SECRET: "bench-explain-only-secret-0123456789abcdef" }, encoding: "utf8" });
+    const explainRun = spawnSync(
+      "node_modules/.bin/tsx",
+      ["--conditions=react-server", "tests/bench/explain.ts", BENCH_MANAGER],
+      {
+        env: {
+          ...process.env,
+          DATABASE_URL: benchDatabaseUrl(),
+          AUTH_SECRET: "bench-explain-only-secret-0123456789abcdef",
+        },
+        encoding: "utf8",
+      },
+    );
     if (explainRun.status !== 0) throw new Error(`bench: explain failed: ${explainRun.stderr}`);
-    const plans = JSON.parse(explainRun.stdout.trim().split("\n").at(-1)!) as Record<string, string>;
+    const plans = JSON.parse(explainRun.stdout.trim().split("\n").at(-1)!) as Record<
+      string,
+      string
+    >;
     const all = Object.values(plans).join("\n");
     const seqOnChecks = /Seq Scan on zone_checks/.test(all);
     const time = (p: string) => Number(/Execution Time: ([\d.]+) ms/.exec(p)?.[1] ?? NaN);
     json["explain"] = plans;
-    record("book query plan", `${Object.entries(plans).map(([k, p]) => `${k} ${time(p).toFixed(2)} ms`).join(", ")}; sequential scan on zone_checks: ${seqOnChecks ? "yes" : "no"}`, "no seq scan on zone_checks", !seqOnChecks);
+    record(
+      "book query plan",
+      `${Object.entries(plans)
+        .map(([k, p]) => `${k} ${time(p).toFixed(2)} ms`)
+        .join(", ")}; sequential scan on zone_checks: ${seqOnChecks ? "yes" : "no"}`,
+      "no seq scan on zone_checks",
+      !seqOnChecks,
+    );
     console.log(plans["first page"]!.replace(/^/gm, "    "));
     await db.destroy();
   } finally {
@@ -240,7 +461,10 @@ async function main() {
   writeFileSync(file, JSON.stringify({ ...json, rows }, null, 2));
   writeFileSync(path.join(OUT_DIR, "latest.json"), JSON.stringify({ ...json, rows }, null, 2));
   console.log("\n| measure | figure | budget | met |\n| --- | --- | --- | --- |");
-  for (const r of rows) console.log(`| ${r.measure} | ${r.figure} | ${r.budget} | ${r.ok === null ? "" : r.ok ? "yes" : "**no**"} |`);
+  for (const r of rows)
+    console.log(
+      `| ${r.measure} | ${r.figure} | ${r.budget} | ${r.ok === null ? "" : r.ok ? "yes" : "**no**"} |`,
+    );
   console.log(`\nwritten: ${file}`);
 }
 

@@ -19,19 +19,24 @@ export class Client {
 
   static async signIn(base: string, email: string, password: string): Promise<Client> {
     const result = await passwordSignIn(base, email, password);
-    if (!result.sessionToken) throw new Error(`crash: could not sign in as ${email} (status ${result.status})`);
+    if (!result.sessionToken)
+      throw new Error(`crash: could not sign in as ${email} (status ${result.status})`);
     return new Client(base, result.cookie);
   }
-
 
   /** One attempt, no retry (setup steps before the crashes start). */
   async once<T>(method: string, path: string, body?: unknown): Promise<T> {
     const res = await fetch(`${this.base}${path}`, {
       method,
-      headers: { cookie: this.cookie, origin: this.base, ...(body === undefined ? {} : { "content-type": "application/json" }) },
+      headers: {
+        cookie: this.cookie,
+        origin: this.base,
+        ...(body === undefined ? {} : { "content-type": "application/json" }),
+      },
       body: body === undefined ? undefined : JSON.stringify(body),
     });
-    if (!res.ok) throw new Error(`crash: ${method} ${path} answered ${res.status}: ${await res.text()}`);
+    if (!res.ok)
+      throw new Error(`crash: ${method} ${path} answered ${res.status}: ${await res.text()}`);
     return (await res.json()) as T;
   }
 
@@ -40,7 +45,13 @@ export class Client {
    * Returns the final status (0 when it gave up) and body, how many attempts it took and when the
    * last one was sent.
    */
-  async deliver(method: string, path: string, body: Buffer | string, contentType: string, giveUpAfterMs = 120_000): Promise<{ status: number; body: unknown; attempts: number; lastSentAt: number }> {
+  async deliver(
+    method: string,
+    path: string,
+    body: Buffer | string,
+    contentType: string,
+    giveUpAfterMs = 120_000,
+  ): Promise<{ status: number; body: unknown; attempts: number; lastSentAt: number }> {
     const started = Date.now();
     for (let attempt = 1; ; attempt++) {
       let status = 0;
@@ -62,10 +73,12 @@ export class Client {
       } finally {
         this.inFlight--;
       }
-      if (status !== 0 && status < 500) return { status, body: answer, attempts: attempt, lastSentAt: sentAt };
+      if (status !== 0 && status < 500)
+        return { status, body: answer, attempts: attempt, lastSentAt: sentAt };
       if (status === 0) this.networkRetries++;
       else this.serverErrorRetries++;
-      if (this.stopped || Date.now() - started > giveUpAfterMs) return { status: 0, body: answer, attempts: attempt, lastSentAt: sentAt };
+      if (this.stopped || Date.now() - started > giveUpAfterMs)
+        return { status: 0, body: answer, attempts: attempt, lastSentAt: sentAt };
       // 100 ms, 200 ms, 400 ms … up to 1.6 s, with jitter so retries do not arrive together.
       const delay = Math.min(1600, 100 * 2 ** Math.min(attempt - 1, 4)) * (0.5 + Math.random() / 2);
       await new Promise((r) => setTimeout(r, delay));

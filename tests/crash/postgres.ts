@@ -20,20 +20,39 @@ export function crashCluster(port: string, preferred: string): Cluster {
   let data = path.resolve(preferred);
   if (process.getuid?.() === 0) {
     mkdirSync(path.dirname(data), { recursive: true });
-    if (spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", path.dirname(data)]).status !== 0) data = `/tmp/sward-crash-pg-${port}`;
+    if (
+      spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", path.dirname(data)]).status !== 0
+    )
+      data = `/tmp/sward-crash-pg-${port}`;
   }
-  return { port, data, env: { SWARD_PG_PORT: port, SWARD_PG_DATA: data }, url: (database) => `postgres://postgres@127.0.0.1:${port}/${database}` };
+  return {
+    port,
+    data,
+    env: { SWARD_PG_PORT: port, SWARD_PG_DATA: data },
+    url: (database) => `postgres://postgres@127.0.0.1:${port}/${database}`,
+  };
 }
 
 /** Runs a command with its output captured; rejects with that output when it fails. */
-export function capture(command: string, args: string[], env: Record<string, string> = {}): Promise<string> {
+export function capture(
+  command: string,
+  args: string[],
+  env: Record<string, string> = {},
+): Promise<string> {
   return new Promise((resolve, reject) => {
-    const child = spawn(command, args, { stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, ...env } });
+    const child = spawn(command, args, {
+      stdio: ["ignore", "pipe", "pipe"],
+      env: { ...process.env, ...env },
+    });
     let out = "";
     child.stdout.on("data", (d) => (out += d));
     child.stderr.on("data", (d) => (out += d));
     child.on("error", reject);
-    child.on("exit", (code) => (code === 0 ? resolve(out) : reject(new Error(`${command} ${args.join(" ")} exited with ${code}:\n${out}`))));
+    child.on("exit", (code) =>
+      code === 0
+        ? resolve(out)
+        : reject(new Error(`${command} ${args.join(" ")} exited with ${code}:\n${out}`)),
+    );
   });
 }
 
@@ -46,7 +65,9 @@ function lock(c: Cluster): { pid: number; shmId: number | null } | null {
   const lines = readFileSync(lockFile(c), "utf8").split("\n");
   const pid = Number(lines[0]);
   const shm = lines[6]?.trim().split(/\s+/);
-  return Number.isInteger(pid) && pid > 0 ? { pid, shmId: shm?.length === 2 ? Number(shm[1]) : null } : null;
+  return Number.isInteger(pid) && pid > 0
+    ? { pid, shmId: shm?.length === 2 ? Number(shm[1]) : null }
+    : null;
 }
 
 export const postmasterPid = (c: Cluster): number | null => lock(c)?.pid ?? null;
@@ -55,7 +76,9 @@ export const postmasterPid = (c: Cluster): number | null => lock(c)?.pid ?? null
 export function processState(pid: number): "alive" | "zombie" | "gone" {
   try {
     const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
-    return stat.slice(stat.lastIndexOf(")") + 2, stat.lastIndexOf(")") + 3) === "Z" ? "zombie" : "alive";
+    return stat.slice(stat.lastIndexOf(")") + 2, stat.lastIndexOf(")") + 3) === "Z"
+      ? "zombie"
+      : "alive";
   } catch {
     return "gone";
   }
@@ -97,7 +120,10 @@ export function isListening(port: number): Promise<boolean> {
 export async function freshCluster(c: Cluster): Promise<void> {
   await stopCluster(c);
   // cluster.sh reuses whatever answers on the port: that must not be somebody else's server.
-  if (await isListening(Number(c.port))) throw new Error(`crash: port ${c.port} is taken by a server this suite did not start; set SWARD_CRASH_PG_PORT`);
+  if (await isListening(Number(c.port)))
+    throw new Error(
+      `crash: port ${c.port} is taken by a server this suite did not start; set SWARD_CRASH_PG_PORT`,
+    );
   rmSync(c.data, { recursive: true, force: true });
   await startCluster(c);
 }
@@ -109,7 +135,8 @@ export async function freshCluster(c: Cluster): Promise<void> {
  */
 export async function kill9(c: Cluster): Promise<{ pid: number; settledMs: number }> {
   const held = lock(c);
-  if (!held || processState(held.pid) !== "alive") throw new Error("crash: the PostgreSQL postmaster is not running");
+  if (!held || processState(held.pid) !== "alive")
+    throw new Error("crash: the PostgreSQL postmaster is not running");
   process.kill(held.pid, "SIGKILL");
   const started = Date.now();
   for (;;) {
@@ -125,7 +152,10 @@ export async function kill9(c: Cluster): Promise<{ pid: number; settledMs: numbe
       }
       return { pid: held.pid, settledMs: Date.now() - started };
     }
-    if (Date.now() - started > 30_000) throw new Error(`crash: processes of the killed PostgreSQL server (postmaster ${held.pid}) are still running after 30 s`);
+    if (Date.now() - started > 30_000)
+      throw new Error(
+        `crash: processes of the killed PostgreSQL server (postmaster ${held.pid}) are still running after 30 s`,
+      );
     await new Promise((r) => setTimeout(r, 25));
   }
 }
@@ -137,5 +167,7 @@ export async function restartAfterCrash(c: Cluster): Promise<string> {
   const log = readFileSync(serverLog(c)).subarray(from).toString("utf8");
   const redo = /redo done at ([0-9A-F]+\/[0-9A-F]+)/.exec(log);
   const wasCrash = /not properly shut down|was interrupted/.test(log);
-  return wasCrash ? `crash recovery${redo ? `, redo done at ${redo[1]}` : " (no WAL to replay)"}` : "no crash recovery in the log";
+  return wasCrash
+    ? `crash recovery${redo ? `, redo done at ${redo[1]}` : " (no WAL to replay)"}`
+    : "no crash recovery in the log";
 }

@@ -12,24 +12,36 @@
 // Environment: CRASH_SEED (repeat a run's crash points), CRASH_SUBMISSIONS (default 1000),
 // SWARD_CRASH_PORT (3300), SWARD_CRASH_PG_PORT (54339).
 import { randomBytes, randomUUID } from "node:crypto";
-import { mkdirSync, readFileSync, readdirSync, rmSync } from "node:fs";
+import { mkdirSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { sql } from "kysely";
+
 import { createDb } from "@/db/client";
-import { DEMO_PASSWORD } from "@/fixtures/demo-scenario";
 import { lawnImage } from "@/fixtures/demo-photos";
+import { DEMO_PASSWORD } from "@/fixtures/demo-scenario";
 import { symptomKeys } from "@/fixtures/symptoms";
 import { todayIn } from "@/lib/dates";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
 import type { VisitDetailDto, VisitSummaryDto } from "@/lib/visits/dto";
 import type { ZoneCheckInput } from "@/lib/visits/schemas";
+
 import { isBuildStale } from "../helpers/build";
-import { TSX, run } from "../helpers/processes";
+import { run, TSX } from "../helpers/processes";
 import { seededRandom } from "../helpers/seeded-random";
 import { doneCheck } from "../helpers/zone-checks";
 import { Client } from "./client";
-import { type Cluster, crashCluster, freshCluster, isListening, kill9 as killPostgres, postmasterPid, processState, restartAfterCrash, stopCluster } from "./postgres";
-import { type Submission, verify } from "./verify";
+import {
+  crashCluster,
+  freshCluster,
+  isListening,
+  kill9 as killPostgres,
+  postmasterPid,
+  processState,
+  restartAfterCrash,
+  stopCluster,
+  type Cluster,
+} from "./postgres";
+import { verify, type Submission } from "./verify";
 import { WebServer } from "./web";
 
 const PORT = Number(process.env.SWARD_CRASH_PORT ?? 3300);
@@ -52,11 +64,15 @@ const between = (lo: number, hi: number) => lo + Math.floor(random() * (hi - lo 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 const startedAt = Date.now();
-const say = (line: string) => console.log(`crash [${seconds(Date.now() - startedAt).padStart(7)}] ${line}`);
+const say = (line: string) =>
+  console.log(`crash [${seconds(Date.now() - startedAt).padStart(7)}] ${line}`);
 
 /** Varied values a technician could send, valid for the zone-check schema. */
 function checkValues(zoneId: string, n: number): ZoneCheckInput {
-  const symptoms = [...symptomKeys].sort(() => random() - 0.5).slice(0, between(0, 2)).map((key) => ({ key, severity: pick([1, 2, 3] as const), extentPct: 5 * between(0, 8) }));
+  const symptoms = [...symptomKeys]
+    .sort(() => random() - 0.5)
+    .slice(0, between(0, 2))
+    .map((key) => ({ key, severity: pick([1, 2, 3] as const), extentPct: 5 * between(0, 8) }));
   return doneCheck(zoneId, {
     baseVersion: 0,
     quality: between(1, 9),
@@ -77,17 +93,44 @@ function checkValues(zoneId: string, n: number): ZoneCheckInput {
 }
 
 /** Visits of the technician with zones not yet checked; the manager schedules more (and the technician starts them) until there are enough. */
-async function planSlots(tech: Client, manager: Client, needed: number): Promise<{ slots: { visitId: string; zoneId: string }[]; visitIds: string[]; preexisting: Set<string> }> {
+async function planSlots(
+  tech: Client,
+  manager: Client,
+  needed: number,
+): Promise<{
+  slots: { visitId: string; zoneId: string }[];
+  visitIds: string[];
+  preexisting: Set<string>;
+}> {
   const me = await tech.once<{ id: string }>("GET", "/api/v1/me");
   const mine = [
-    ...(await tech.once<{ items: VisitSummaryDto[] }>("GET", `/api/v1/visits?technicianId=${me.id}&status=in_progress`)).items,
-    ...(await tech.once<{ items: VisitSummaryDto[] }>("GET", `/api/v1/visits?technicianId=${me.id}&status=scheduled`)).items,
+    ...(
+      await tech.once<{ items: VisitSummaryDto[] }>(
+        "GET",
+        `/api/v1/visits?technicianId=${me.id}&status=in_progress`,
+      )
+    ).items,
+    ...(
+      await tech.once<{ items: VisitSummaryDto[] }>(
+        "GET",
+        `/api/v1/visits?technicianId=${me.id}&status=scheduled`,
+      )
+    ).items,
   ];
-  const all = (await tech.once<{ items: VisitSummaryDto[] }>("GET", `/api/v1/visits?technicianId=${me.id}`)).items;
+  const all = (
+    await tech.once<{ items: VisitSummaryDto[] }>("GET", `/api/v1/visits?technicianId=${me.id}`)
+  ).items;
   const propertyIds = [...new Set(all.map((v) => v.propertyId))];
-  if (!propertyIds.length) throw new Error(`crash: ${TECHNICIAN} has no visits in the seeded scenario`);
+  if (!propertyIds.length)
+    throw new Error(`crash: ${TECHNICIAN} has no visits in the seeded scenario`);
   const zones = new Map<string, string[]>();
-  for (const id of propertyIds) zones.set(id, (await tech.once<PropertyDetailDto>("GET", `/api/v1/properties/${id}`)).zones.map((z) => z.id));
+  for (const id of propertyIds)
+    zones.set(
+      id,
+      (await tech.once<PropertyDetailDto>("GET", `/api/v1/properties/${id}`)).zones.map(
+        (z) => z.id,
+      ),
+    );
 
   const slots: { visitId: string; zoneId: string }[] = [];
   const visitIds: string[] = [];
@@ -99,7 +142,9 @@ async function planSlots(tech: Client, manager: Client, needed: number): Promise
     timeZone = detail.timeZone;
     visitIds.push(v.id);
     for (const c of detail.checks) preexisting.add(c.id);
-    for (const z of detail.zones) if (!detail.checks.some((c) => c.zoneId === z.id)) slots.push({ visitId: v.id, zoneId: z.id });
+    for (const z of detail.zones)
+      if (!detail.checks.some((c) => c.zoneId === z.id))
+        slots.push({ visitId: v.id, zoneId: z.id });
     if (v.status === "scheduled") toStart.push(v.id);
   }
   // More stops of the day at the technician's properties, as the manager schedules them.
@@ -115,29 +160,54 @@ async function planSlots(tech: Client, manager: Client, needed: number): Promise
   }
   const inParallel = async <T>(items: T[], work: (item: T) => Promise<unknown>) => {
     let next = 0;
-    await Promise.all(Array.from({ length: LANES }, async () => {
-      while (next < items.length) await work(items[next++]!);
-    }));
+    await Promise.all(
+      Array.from({ length: LANES }, async () => {
+        while (next < items.length) await work(items[next++]!);
+      }),
+    );
   };
-  await inParallel(extra, (v) => manager.once("POST", "/api/v1/visits", { id: v.id, propertyId: v.propertyId, scheduledFor: today, technicianId: me.id, plannedService: "inspection", stopOrder: 10, notes: "" }));
-  await inParallel(toStart, (id) => tech.once("POST", `/api/v1/visits/${id}/start`, { latitude: null, longitude: null }));
+  await inParallel(extra, (v) =>
+    manager.once("POST", "/api/v1/visits", {
+      id: v.id,
+      propertyId: v.propertyId,
+      scheduledFor: today,
+      technicianId: me.id,
+      plannedService: "inspection",
+      stopOrder: 10,
+      notes: "",
+    }),
+  );
+  await inParallel(toStart, (id) =>
+    tech.once("POST", `/api/v1/visits/${id}/start`, { latitude: null, longitude: null }),
+  );
   // Shuffled, so requests in flight at the same time fall on different visits.
-  const shuffled = slots.map((s) => ({ s, k: random() })).sort((a, b) => a.k - b.k).map((x) => x.s).slice(0, needed);
+  const shuffled = slots
+    .map((s) => ({ s, k: random() }))
+    .sort((a, b) => a.k - b.k)
+    .map((x) => x.s)
+    .slice(0, needed);
   return { slots: shuffled, visitIds, preexisting };
 }
 
 async function main(): Promise<number> {
-  const cluster: Cluster = crashCluster(process.env.SWARD_CRASH_PG_PORT ?? "54339", "tests/.artifacts/crash-pg");
+  const cluster: Cluster = crashCluster(
+    process.env.SWARD_CRASH_PG_PORT ?? "54339",
+    "tests/.artifacts/crash-pg",
+  );
   const databaseUrl = cluster.url(DATABASE);
-  const web = new WebServer(PORT, {
-    NODE_ENV: "production",
-    NEXT_TELEMETRY_DISABLED: "1",
-    DATABASE_URL: databaseUrl,
-    AUTH_SECRET: randomBytes(32).toString("base64url"), // one per run, the same across restarts
-    AUTH_URL: BASE,
-    LOG_LEVEL: "warn",
-    PHOTO_DIR,
-  }, path.join(ARTIFACTS, "server.log"));
+  const web = new WebServer(
+    PORT,
+    {
+      NODE_ENV: "production",
+      NEXT_TELEMETRY_DISABLED: "1",
+      DATABASE_URL: databaseUrl,
+      AUTH_SECRET: randomBytes(32).toString("base64url"), // one per run, the same across restarts
+      AUTH_URL: BASE,
+      LOG_LEVEL: "warn",
+      PHOTO_DIR,
+    },
+    path.join(ARTIFACTS, "server.log"),
+  );
 
   let cleanedUp = false;
   const cleanup = async () => {
@@ -147,7 +217,8 @@ async function main(): Promise<number> {
     await web.stop().catch((err) => console.error("crash: stopping the web server:", err));
     await stopCluster(cluster).catch((err) => console.error("crash: stopping PostgreSQL:", err));
   };
-  const onSignal = (signal: NodeJS.Signals) => void cleanup().finally(() => process.exit(signal === "SIGINT" ? 130 : 143));
+  const onSignal = (signal: NodeJS.Signals) =>
+    void cleanup().finally(() => process.exit(signal === "SIGINT" ? 130 : 143));
   process.once("SIGINT", onSignal);
   process.once("SIGTERM", onSignal);
   process.once("exit", () => web.killNow());
@@ -162,48 +233,93 @@ async function main(): Promise<number> {
     await run(TSX, ["db/seed.ts"], { ...cluster.env, DATABASE_URL: databaseUrl, PHOTO_DIR });
     const db = createDb(databaseUrl, { max: 2 });
     try {
-      const settings = await sql<{ name: string; setting: string }>`select name, setting from pg_settings where name in ('fsync', 'synchronous_commit', 'full_page_writes', 'wal_sync_method') order by name`.execute(db);
+      const settings = await sql<{
+        name: string;
+        setting: string;
+      }>`select name, setting from pg_settings where name in ('fsync', 'synchronous_commit', 'full_page_writes', 'wal_sync_method') order by name`.execute(
+        db,
+      );
       const s = Object.fromEntries(settings.rows.map((r) => [r.name, r.setting]));
-      say(`PostgreSQL on 127.0.0.1:${cluster.port} (data ${cluster.data}): fsync ${s.fsync}, synchronous_commit ${s.synchronous_commit}, full_page_writes ${s.full_page_writes}, wal_sync_method ${s.wal_sync_method}`);
-      if (s.fsync !== "on" || s.synchronous_commit !== "on") throw new Error("crash: durability settings are not the defaults; the test would prove nothing");
+      say(
+        `PostgreSQL on 127.0.0.1:${cluster.port} (data ${cluster.data}): fsync ${s.fsync}, synchronous_commit ${s.synchronous_commit}, full_page_writes ${s.full_page_writes}, wal_sync_method ${s.wal_sync_method}`,
+      );
+      if (s.fsync !== "on" || s.synchronous_commit !== "on")
+        throw new Error(
+          "crash: durability settings are not the defaults; the test would prove nothing",
+        );
     } finally {
       await db.destroy();
     }
-    if (isBuildStale()) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
-    if (await isListening(PORT)) throw new Error(`crash: port ${PORT} is taken by a server this suite did not start; set SWARD_CRASH_PORT`);
+    if (isBuildStale())
+      await run("node", ["node_modules/next/dist/bin/next", "build"], {
+        NEXT_TELEMETRY_DISABLED: "1",
+      });
+    if (await isListening(PORT))
+      throw new Error(
+        `crash: port ${PORT} is taken by a server this suite did not start; set SWARD_CRASH_PORT`,
+      );
     await web.start();
     web.keepAlive = true;
-    say(`serving ${BASE} (PID ${web.pid}; log ${path.relative(process.cwd(), path.join(ARTIFACTS, "server.log"))})`);
+    say(
+      `serving ${BASE} (PID ${web.pid}; log ${path.relative(process.cwd(), path.join(ARTIFACTS, "server.log"))})`,
+    );
 
     const tech = await Client.signIn(BASE, TECHNICIAN, DEMO_PASSWORD);
     const manager = await Client.signIn(BASE, MANAGER, DEMO_PASSWORD);
     const { slots, visitIds, preexisting } = await planSlots(tech, manager, SUBMISSIONS);
-    const submissions: Submission[] = slots.map((slot, i) => ({ n: i + 1, visitId: slot.visitId, zoneCheckId: randomUUID(), body: checkValues(slot.zoneId, i + 1) }));
-    for (const s of submissions.filter((x) => x.n % PHOTO_EVERY === 0)) s.photo = { bytes: await lawnImage(640, 480, 0.05 + random() * 0.4, "jpeg", 1000 + s.n) };
-    say(`${submissions.length} zone checks on ${new Set(slots.map((s) => s.visitId)).size} started visits, ${submissions.filter((s) => s.photo).length} photos; ${LANES} requests in flight`);
+    const submissions: Submission[] = slots.map((slot, i) => ({
+      n: i + 1,
+      visitId: slot.visitId,
+      zoneCheckId: randomUUID(),
+      body: checkValues(slot.zoneId, i + 1),
+    }));
+    for (const s of submissions.filter((x) => x.n % PHOTO_EVERY === 0))
+      s.photo = { bytes: await lawnImage(640, 480, 0.05 + random() * 0.4, "jpeg", 1000 + s.n) };
+    say(
+      `${submissions.length} zone checks on ${new Set(slots.map((s) => s.visitId)).size} started visits, ${submissions.filter((s) => s.photo).length} photos; ${LANES} requests in flight`,
+    );
 
     // The client: LANES requests at a time; a photo goes up right after its check was acknowledged.
     let acknowledged = 0;
     let finished = false;
     const sendAll = async () => {
       let next = 0;
-      await Promise.all(Array.from({ length: LANES }, async () => {
-        while (next < submissions.length && !tech.stopped) {
-          const s = submissions[next++]!;
-          const r = await tech.deliver("PUT", `/api/v1/visits/${s.visitId}/zone-checks/${s.zoneCheckId}`, JSON.stringify(s.body), "application/json");
-          Object.assign(s, { status: r.status, attempts: r.attempts, lastSentAt: r.lastSentAt });
-          if (r.status < 200 || r.status >= 300) continue;
-          acknowledged++;
-          if (!s.photo) continue;
-          const p = await tech.deliver("POST", `/api/v1/visits/${s.visitId}/zone-checks/${s.zoneCheckId}/photos`, s.photo.bytes, "image/jpeg");
-          Object.assign(s.photo, { status: p.status, attempts: p.attempts, photoId: (p.body as { id?: string } | null)?.id });
-        }
-      })).finally(() => (finished = true));
+      await Promise.all(
+        Array.from({ length: LANES }, async () => {
+          while (next < submissions.length && !tech.stopped) {
+            const s = submissions[next++]!;
+            const r = await tech.deliver(
+              "PUT",
+              `/api/v1/visits/${s.visitId}/zone-checks/${s.zoneCheckId}`,
+              JSON.stringify(s.body),
+              "application/json",
+            );
+            Object.assign(s, { status: r.status, attempts: r.attempts, lastSentAt: r.lastSentAt });
+            if (r.status < 200 || r.status >= 300) continue;
+            acknowledged++;
+            if (!s.photo) continue;
+            const p = await tech.deliver(
+              "POST",
+              `/api/v1/visits/${s.visitId}/zone-checks/${s.zoneCheckId}/photos`,
+              s.photo.bytes,
+              "image/jpeg",
+            );
+            Object.assign(s.photo, {
+              status: p.status,
+              attempts: p.attempts,
+              photoId: (p.body as { id?: string } | null)?.id,
+            });
+          }
+        }),
+      ).finally(() => (finished = true));
     };
 
     // The crashes: one at a random point of each tenth of the run (between 4 % and 90 % of the
     // acknowledgements), PostgreSQL or the web server in a random order, each restarted at once.
-    const kinds = [...Array<"postgres">(CRASHES.postgres).fill("postgres"), ...Array<"web">(CRASHES.web).fill("web")].sort(() => random() - 0.5);
+    const kinds = [
+      ...Array<"postgres">(CRASHES.postgres).fill("postgres"),
+      ...Array<"web">(CRASHES.web).fill("web"),
+    ].sort(() => random() - 0.5);
     const from = Math.floor(SUBMISSIONS * 0.04);
     const span = (SUBMISSIONS * 0.9 - from) / kinds.length;
     const points = kinds.map((_, i) => Math.floor(from + span * i + random() * span));
@@ -211,7 +327,8 @@ async function main(): Promise<number> {
     const crashAll = async () => {
       for (const [i, kind] of kinds.entries()) {
         while (acknowledged < points[i]! && !finished) await sleep(5);
-        if (finished) throw new Error(`crash: the submissions ended before crash ${i + 1} of ${kinds.length}`);
+        if (finished)
+          throw new Error(`crash: the submissions ended before crash ${i + 1} of ${kinds.length}`);
         await sleep(random() * 40); // somewhere between two acknowledgements
         const at = `${acknowledged} acknowledged, ${tech.inFlight} requests in flight`;
         const t0 = Date.now();
@@ -244,14 +361,22 @@ async function main(): Promise<number> {
     const refused = answered.filter((s) => s.status !== 0 && (s.status! < 200 || s.status! >= 300));
     const gaveUp = answered.filter((s) => s.status === 0);
     const retried = submissions.filter((s) => (s.attempts ?? 0) > 1).length;
-    say(`${submissions.length} submissions in ${seconds(submitMs)}; ${retried} needed more than one attempt (${tech.networkRetries} retries after network errors, ${tech.serverErrorRetries} after 5xx); refused ${refused.length}, gave up ${gaveUp.length}`);
+    say(
+      `${submissions.length} submissions in ${seconds(submitMs)}; ${retried} needed more than one attempt (${tech.networkRetries} retries after network errors, ${tech.serverErrorRetries} after 5xx); refused ${refused.length}, gave up ${gaveUp.length}`,
+    );
     for (const s of refused.slice(0, 5)) console.log(`  refused #${s.n}: ${s.status}`);
 
     const check = createDb(databaseUrl, { max: 2 });
-    const found = await verify(check, submissions, visitIds, preexisting, PHOTO_DIR).finally(() => check.destroy());
-    const leftovers = readdirSync(PHOTO_DIR, { recursive: true, encoding: "utf8" }).filter((f) => f.endsWith(".tmp")).length;
+    const found = await verify(check, submissions, visitIds, preexisting, PHOTO_DIR).finally(() =>
+      check.destroy(),
+    );
+    const leftovers = readdirSync(PHOTO_DIR, { recursive: true, encoding: "utf8" }).filter((f) =>
+      f.endsWith(".tmp"),
+    ).length;
     // Next logs and survives an uncaught exception; a plain Node process (the worker) would die of it.
-    const uncaught = readFileSync(path.join(ARTIFACTS, "server.log"), "utf8").split("\n").filter((l) => l.includes("uncaughtException"));
+    const uncaught = readFileSync(path.join(ARTIFACTS, "server.log"), "utf8")
+      .split("\n")
+      .filter((l) => l.includes("uncaughtException"));
 
     const problems = [
       ...found.lost,
@@ -263,19 +388,36 @@ async function main(): Promise<number> {
       ...refused.map((s) => `#${s.n} refused with ${s.status}`),
       ...gaveUp.map((s) => `#${s.n} never acknowledged`),
       ...web.unexpectedExits.map((e) => `the web server exited by itself (${e})`),
-      ...uncaught.slice(0, 3).map((l) => `the server log has an uncaught exception: ${l.slice(0, 200)}`),
-      ...(cycles.length === kinds.length ? [] : [`only ${cycles.length} of ${kinds.length} crash cycles ran`]),
+      ...uncaught
+        .slice(0, 3)
+        .map((l) => `the server log has an uncaught exception: ${l.slice(0, 200)}`),
+      ...(cycles.length === kinds.length
+        ? []
+        : [`only ${cycles.length} of ${kinds.length} crash cycles ran`]),
     ];
     console.log("");
-    console.log(`acknowledged ${found.acknowledged}, lost ${found.lost.length}, duplicated ${found.duplicated.length}`);
-    console.log(`photos acknowledged ${found.photosAcknowledged}, rows pointing to missing files ${found.photoRowsMissingFiles.length}`);
-    console.log(`  acknowledged after a retry ${found.ackedAfterRetry}, of which answered from the row an earlier attempt had committed (its answer lost in a crash) ${found.answeredFromStoredRow}`);
-    console.log(`  stored differently from what was sent ${found.storedDifferently.length}; Sward Index out of date ${found.indexOutOfDate.length}; photo rows checked ${found.photoRowsChecked} (seed included); acknowledged photos without a row ${found.photosLost.length}; unfinished temporary photo files ${leftovers}`);
-    console.log(`  crash cycles ${cycles.length} (PostgreSQL ${CRASHES.postgres}, web server ${CRASHES.web}); web server exits nobody caused ${web.unexpectedExits.length}; uncaught exceptions in the server log ${uncaught.length}`);
+    console.log(
+      `acknowledged ${found.acknowledged}, lost ${found.lost.length}, duplicated ${found.duplicated.length}`,
+    );
+    console.log(
+      `photos acknowledged ${found.photosAcknowledged}, rows pointing to missing files ${found.photoRowsMissingFiles.length}`,
+    );
+    console.log(
+      `  acknowledged after a retry ${found.ackedAfterRetry}, of which answered from the row an earlier attempt had committed (its answer lost in a crash) ${found.answeredFromStoredRow}`,
+    );
+    console.log(
+      `  stored differently from what was sent ${found.storedDifferently.length}; Sward Index out of date ${found.indexOutOfDate.length}; photo rows checked ${found.photoRowsChecked} (seed included); acknowledged photos without a row ${found.photosLost.length}; unfinished temporary photo files ${leftovers}`,
+    );
+    console.log(
+      `  crash cycles ${cycles.length} (PostgreSQL ${CRASHES.postgres}, web server ${CRASHES.web}); web server exits nobody caused ${web.unexpectedExits.length}; uncaught exceptions in the server log ${uncaught.length}`,
+    );
     if (problems.length) {
       console.error(`\ncrash: FAILED (${problems.length}):`);
       for (const p of problems.slice(0, 30)) console.error(`  ${p}`);
-      const log = readFileSync(path.join(ARTIFACTS, "server.log"), "utf8").trim().split("\n").slice(-15);
+      const log = readFileSync(path.join(ARTIFACTS, "server.log"), "utf8")
+        .trim()
+        .split("\n")
+        .slice(-15);
       console.error(`\nlast lines of the server log:\n${log.join("\n")}`);
       return 1;
     }
@@ -284,8 +426,14 @@ async function main(): Promise<number> {
   } finally {
     await cleanup();
     const pg = postmasterPid(cluster);
-    const left = [web.pid, pg !== null && processState(pg) === "alive" ? pg : undefined].filter(Boolean);
-    console.log(left.length ? `crash: still running: ${left.join(", ")}` : "crash: web server and PostgreSQL stopped");
+    const left = [web.pid, pg !== null && processState(pg) === "alive" ? pg : undefined].filter(
+      Boolean,
+    );
+    console.log(
+      left.length
+        ? `crash: still running: ${left.join(", ")}`
+        : "crash: web server and PostgreSQL stopped",
+    );
   }
 }
 

@@ -8,6 +8,7 @@
 import { closeSync, openSync, readSync, statSync } from "node:fs";
 import path from "node:path";
 import type { Kysely } from "kysely";
+
 import type { Database } from "@/db/schema";
 import { indexInputOf } from "@/lib/scoring/from-check";
 import { swardIndex } from "@/lib/scoring/sward-index";
@@ -58,8 +59,18 @@ function isWebpFile(file: string): boolean {
   }
 }
 
-export async function verify(db: Kysely<Database>, submissions: Submission[], visitIds: string[], preexisting: Set<string>, photoDir: string): Promise<Findings> {
-  const rows = await db.selectFrom("zone_checks").selectAll().where("visit_id", "in", visitIds).execute();
+export async function verify(
+  db: Kysely<Database>,
+  submissions: Submission[],
+  visitIds: string[],
+  preexisting: Set<string>,
+  photoDir: string,
+): Promise<Findings> {
+  const rows = await db
+    .selectFrom("zone_checks")
+    .selectAll()
+    .where("visit_id", "in", visitIds)
+    .execute();
   const byId = new Map<string, typeof rows>();
   for (const r of rows) byId.set(r.id, [...(byId.get(r.id) ?? []), r]);
   const sent = new Map(submissions.map((s) => [s.zoneCheckId, s]));
@@ -76,11 +87,15 @@ export async function verify(db: Kysely<Database>, submissions: Submission[], vi
     }
     if (found.length > 1) duplicated.push(`#${s.n} ${s.zoneCheckId}: ${found.length} rows`);
     const row = found[0]!;
-    if (row.version !== 1) duplicated.push(`#${s.n} ${s.zoneCheckId}: applied ${row.version} times (version ${row.version})`);
+    if (row.version !== 1)
+      duplicated.push(
+        `#${s.n} ${s.zoneCheckId}: applied ${row.version} times (version ${row.version})`,
+      );
     const { baseVersion: _base, ...values } = s.body;
     const diff = diffValues(valuesOf(row), values);
     if (row.visit_id !== s.visitId) diff.visitId = { from: s.visitId, to: row.visit_id };
-    if (Object.keys(diff).length) storedDifferently.push(`#${s.n} ${s.zoneCheckId}: ${JSON.stringify(diff)}`);
+    if (Object.keys(diff).length)
+      storedDifferently.push(`#${s.n} ${s.zoneCheckId}: ${JSON.stringify(diff)}`);
   }
   // A row created before the last attempt was sent was written by an earlier attempt: the last one
   // was a replay, answered from the stored row (the idempotent path of PUT).
@@ -92,24 +107,45 @@ export async function verify(db: Kysely<Database>, submissions: Submission[], vi
 
   // The same zone twice on one visit, or a row that no submission sent.
   const perZone = new Map<string, number>();
-  for (const r of rows) perZone.set(`${r.visit_id}/${r.zone_id}`, (perZone.get(`${r.visit_id}/${r.zone_id}`) ?? 0) + 1);
-  for (const [key, count] of perZone) if (count > 1) duplicated.push(`zone ${key}: ${count} checks on one visit`);
-  for (const r of rows) if (!sent.has(r.id) && !preexisting.has(r.id)) duplicated.push(`${r.id}: a row no submission sent`);
+  for (const r of rows)
+    perZone.set(`${r.visit_id}/${r.zone_id}`, (perZone.get(`${r.visit_id}/${r.zone_id}`) ?? 0) + 1);
+  for (const [key, count] of perZone)
+    if (count > 1) duplicated.push(`zone ${key}: ${count} checks on one visit`);
+  for (const r of rows)
+    if (!sent.has(r.id) && !preexisting.has(r.id))
+      duplicated.push(`${r.id}: a row no submission sent`);
 
   // Photos: every acknowledged upload has its row; every row in the database has its files.
-  const photos = await db.selectFrom("photos").select(["id", "zone_check_id", "content_hash", "display_key", "thumb_key", "green_cover_pct", "dgci"]).execute();
+  const photos = await db
+    .selectFrom("photos")
+    .select([
+      "id",
+      "zone_check_id",
+      "content_hash",
+      "display_key",
+      "thumb_key",
+      "green_cover_pct",
+      "dgci",
+    ])
+    .execute();
   const photoById = new Map(photos.map((p) => [p.id, p]));
   const photosAcked = submissions.filter((s) => ok(s.photo?.status));
   const photosLost: string[] = [];
   for (const s of photosAcked) {
     const row = s.photo?.photoId ? photoById.get(s.photo.photoId) : undefined;
-    if (!row || row.zone_check_id !== s.zoneCheckId) photosLost.push(`#${s.n} photo ${s.photo?.photoId}: acknowledged with ${s.photo?.status}, no such row on ${s.zoneCheckId}`);
+    if (!row || row.zone_check_id !== s.zoneCheckId)
+      photosLost.push(
+        `#${s.n} photo ${s.photo?.photoId}: acknowledged with ${s.photo?.status}, no such row on ${s.zoneCheckId}`,
+      );
     const onCheck = photos.filter((p) => p.zone_check_id === s.zoneCheckId).length;
-    if (onCheck > 1) duplicated.push(`#${s.n} ${s.zoneCheckId}: ${onCheck} photo rows for one upload`);
+    if (onCheck > 1)
+      duplicated.push(`#${s.n} ${s.zoneCheckId}: ${onCheck} photo rows for one upload`);
   }
   const photoRowsMissingFiles: string[] = [];
   for (const p of photos) {
-    for (const key of [p.display_key, p.thumb_key]) if (!isWebpFile(path.join(photoDir, key))) photoRowsMissingFiles.push(`photo ${p.id}: ${key}`);
+    for (const key of [p.display_key, p.thumb_key])
+      if (!isWebpFile(path.join(photoDir, key)))
+        photoRowsMissingFiles.push(`photo ${p.id}: ${key}`);
   }
 
   // The stored Index is what the stored values and photos give (a photo counts once it is stored).
@@ -117,11 +153,31 @@ export async function verify(db: Kysely<Database>, submissions: Submission[], vi
   for (const s of acked) {
     const row = byId.get(s.zoneCheckId)?.[0];
     if (!row) continue;
-    const own = photos.filter((p) => p.zone_check_id === row.id).map((p) => ({ greenCoverPct: p.green_cover_pct, dgci: p.dgci }));
+    const own = photos
+      .filter((p) => p.zone_check_id === row.id)
+      .map((p) => ({ greenCoverPct: p.green_cover_pct, dgci: p.dgci }));
     const input = indexInputOf(valuesOf(row), own);
     const expected = input ? swardIndex(input).index : null;
-    if ((row.sward_index === null) !== (expected === null) || Math.abs((row.sward_index ?? 0) - (expected ?? 0)) > 0.051) indexOutOfDate.push(`#${s.n} ${row.id}: stored ${row.sward_index}, its values give ${expected}${own.length ? " (with its photo)" : ""}`);
+    if (
+      (row.sward_index === null) !== (expected === null) ||
+      Math.abs((row.sward_index ?? 0) - (expected ?? 0)) > 0.051
+    )
+      indexOutOfDate.push(
+        `#${s.n} ${row.id}: stored ${row.sward_index}, its values give ${expected}${own.length ? " (with its photo)" : ""}`,
+      );
   }
 
-  return { acknowledged: acked.length, ackedAfterRetry: retried.length, answeredFromStoredRow, lost, duplicated, storedDifferently, photosAcknowledged: photosAcked.length, photosLost, photoRowsChecked: photos.length, photoRowsMissingFiles, indexOutOfDate };
+  return {
+    acknowledged: acked.length,
+    ackedAfterRetry: retried.length,
+    answeredFromStoredRow,
+    lost,
+    duplicated,
+    storedDifferently,
+    photosAcknowledged: photosAcked.length,
+    photosLost,
+    photoRowsChecked: photos.length,
+    photoRowsMissingFiles,
+    indexOutOfDate,
+  };
 }

@@ -1,8 +1,9 @@
 // The production server (`next start`) for the crash suite, as a direct child of this process so
 // the PID it holds is the server's own. kill9() is a SIGKILL to that PID; an exit nobody asked for
 // (a crash of its own) is recorded, and the suite fails on it.
-import { type ChildProcess, spawn } from "node:child_process";
+import { spawn, type ChildProcess } from "node:child_process";
 import { closeSync, openSync } from "node:fs";
+
 import { waitForUrl } from "../helpers/processes";
 
 export class WebServer {
@@ -20,22 +21,31 @@ export class WebServer {
   ) {}
 
   get pid(): number | undefined {
-    return this.child?.exitCode === null && this.child.signalCode === null ? this.child.pid : undefined;
+    return this.child?.exitCode === null && this.child.signalCode === null
+      ? this.child.pid
+      : undefined;
   }
 
   async start(): Promise<void> {
     const log = openSync(this.logFile, "a");
-    const child = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(this.port)], {
-      stdio: ["ignore", log, log],
-      env: { ...process.env, ...this.env },
-    });
+    const child = spawn(
+      "node",
+      ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(this.port)],
+      {
+        stdio: ["ignore", log, log],
+        env: { ...process.env, ...this.env },
+      },
+    );
     closeSync(log);
     this.child = child;
     this.exitExpected = false;
     child.on("exit", (code, signal) => {
       if (this.exitExpected || this.child !== child) return;
       this.unexpectedExits.push(signal ? `signal ${signal}` : `code ${code}`);
-      if (this.keepAlive) this.start().catch((err) => this.unexpectedExits.push(`could not start again: ${String(err)}`));
+      if (this.keepAlive)
+        this.start().catch((err) =>
+          this.unexpectedExits.push(`could not start again: ${String(err)}`),
+        );
     });
     const gone = this.exited(child).then(() => {
       throw new Error(`crash: the web server exited while starting (see ${this.logFile})`);
@@ -45,13 +55,16 @@ export class WebServer {
   }
 
   private exited(child: ChildProcess): Promise<void> {
-    return child.exitCode !== null || child.signalCode !== null ? Promise.resolve() : new Promise((r) => child.once("exit", () => r()));
+    return child.exitCode !== null || child.signalCode !== null
+      ? Promise.resolve()
+      : new Promise((r) => child.once("exit", () => r()));
   }
 
   /** SIGKILL by PID; resolves once the process is gone (reaped by us: no zombie). */
   async kill9(): Promise<number> {
     const child = this.child;
-    if (!child?.pid || this.pid === undefined) throw new Error("crash: the web server is not running");
+    if (!child?.pid || this.pid === undefined)
+      throw new Error("crash: the web server is not running");
     this.exitExpected = true;
     process.kill(child.pid, "SIGKILL");
     await this.exited(child);

@@ -3,10 +3,12 @@
 // records it with an override reason.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+
 import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
 import { isInWindow } from "@/lib/agronomy/rules";
 import { todayIn } from "@/lib/dates";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -44,16 +46,28 @@ describe("applications", () => {
     const maths = page.getByRole("table", { name: "Nutrients delivered" });
     await maths.waitFor();
     expect(await maths.innerText()).toMatch(/N\s+0\.72 lb\s+1\.30 lb/); // 3 lb × 24 % = 0.72 lb N / 1,000 ft²; 1,800 ft² → 1.30 lb
-    expect(await page.getByRole("complementary", { name: "Safety cautions" }).innerText()).toContain("the label is the law");
+    expect(
+      await page.getByRole("complementary", { name: "Safety cautions" }).innerText(),
+    ).toContain("the label is the law");
     await snap(page, "application-01-maths");
     await page.getByRole("button", { name: "Record application" }).click();
     if (isBlackoutToday) {
-      await page.getByText(/may not be applied between 12-01 and 03-01/).first().waitFor();
+      await page
+        .getByText(/may not be applied between 12-01 and 03-01/)
+        .first()
+        .waitFor();
     } else {
-      await page.getByRole("list", { name: "Applications on this zone" }).getByText("Larkmoor Steadyfeed").waitFor();
+      await page
+        .getByRole("list", { name: "Applications on this zone" })
+        .getByText("Larkmoor Steadyfeed")
+        .waitFor();
     }
 
-    await page.getByRole("button", { name: "Cancel" }).last().click().catch(() => undefined);
+    await page
+      .getByRole("button", { name: "Cancel" })
+      .last()
+      .click()
+      .catch(() => undefined);
     await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
     await page.getByLabel("Rate", { exact: true }).fill("4");
     await page.getByRole("button", { name: "Record application" }).click();
@@ -74,7 +88,9 @@ describe("applications", () => {
     await page.goto(zoneUrl);
     await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
     await page.getByLabel("Rate", { exact: true }).fill("4");
-    await page.getByLabel(/Override reason/).fill("Sod repair after irrigation work; agronomist's written recommendation on file.");
+    await page
+      .getByLabel(/Override reason/)
+      .fill("Sod repair after irrigation work; agronomist's written recommendation on file.");
     await page.getByRole("button", { name: "Record with override" }).click();
     const recorded = page.getByRole("list", { name: "Applications on this zone" });
     await recorded.getByText(/Legal limit overridden by Dana Whitcombe/).waitFor();

@@ -9,15 +9,24 @@
 // Outcomes: "allow" — the request gets past authorisation (not 401/403/404, never 5xx) and, where
 // a marker is named, shows it; "deny" — 401/403/404 for APIs, a redirect or 404 for pages, and no
 // trace of the property; "hidden" — a list answered with the person's own data and no trace of it.
-import { readFileSync, readdirSync } from "node:fs";
-import path from "node:path";
 import { randomUUID } from "node:crypto";
+import { readdirSync, readFileSync } from "node:fs";
+import path from "node:path";
 import { beforeAll, describe, expect, inject, it } from "vitest";
+
 import { mintSessionCookie, useE2eDatabase } from "../helpers/e2e-db";
 import { doneCheck } from "../helpers/zone-checks";
 
 const BASE = inject("baseUrl");
-const PERSONAS = ["anonymous", "owner", "otherOwner", "assignedTech", "otherTech", "manager", "otherManager"] as const;
+const PERSONAS = [
+  "anonymous",
+  "owner",
+  "otherOwner",
+  "assignedTech",
+  "otherTech",
+  "manager",
+  "otherManager",
+] as const;
 type Persona = (typeof PERSONAS)[number];
 const SIGNED_IN: Persona[] = PERSONAS.filter((p) => p !== "anonymous");
 
@@ -76,68 +85,429 @@ const CELLS: Cell[] = [
   { key: "PAGE /", path: () => "/", allow: PERSONAS, isPublic: true },
   { key: "PAGE /sign-in", path: () => "/sign-in", allow: PERSONAS, isPublic: true },
   { key: "PAGE /sign-in/link", path: () => "/sign-in/link", allow: PERSONAS, isPublic: true },
-  { key: "GET /api/auth/[...nextauth]", path: () => "/api/auth/csrf", allow: PERSONAS, isPublic: true },
-  { key: "POST /api/auth/[...nextauth]", case: "Auth.js's own sign-in-link endpoint is closed", path: () => "/api/auth/signin/nodemailer", method: "POST", body: () => ({ email: "owner1@demo.sward.test" }), allow: [] },
+  {
+    key: "GET /api/auth/[...nextauth]",
+    path: () => "/api/auth/csrf",
+    allow: PERSONAS,
+    isPublic: true,
+  },
+  {
+    key: "POST /api/auth/[...nextauth]",
+    case: "Auth.js's own sign-in-link endpoint is closed",
+    path: () => "/api/auth/signin/nodemailer",
+    method: "POST",
+    body: () => ({ email: "owner1@demo.sward.test" }),
+    allow: [],
+  },
 
   // Pages.
-  { key: "PAGE /my-lawn", path: () => "/my-lawn", allow: ["owner"], hidden: ["otherOwner"], marker: (t) => t.propertyName },
-  { key: "PAGE /my-lawn/visits/[visitId]", path: (t) => `/my-lawn/visits/${t.completedVisitId}`, allow: ["owner"], marker: (t) => t.propertyName },
-  { key: "PAGE /alerts", path: () => "/alerts", allow: ["assignedTech", "manager"], hidden: ["otherTech", "otherManager"], marker: (t) => t.propertyName },
-  { key: "PAGE /dev/mail", path: () => "/dev/mail", allow: ["manager", "otherManager"], marker: () => "Development inbox" },
-  { key: "PAGE /products", path: () => "/products", allow: ["manager"], hidden: ["otherManager"], marker: (t) => t.productName, leak: (t) => [t.productId] },
-  { key: "PAGE /properties/[propertyId]/edit", path: (t) => `/properties/${t.propertyId}/edit`, allow: ["manager"], marker: (t) => t.street },
-  { key: "PAGE /properties/[propertyId]", path: (t) => `/properties/${t.propertyId}`, allow: ["assignedTech", "manager"], marker: (t) => t.street },
-  { key: "PAGE /properties/[propertyId]/zones/[zoneId]", path: (t) => `/properties/${t.propertyId}/zones/${t.zoneId}`, allow: ["assignedTech", "manager"], marker: (t) => t.zoneName },
-  { key: "PAGE /properties/new", path: () => "/properties/new", allow: ["manager", "otherManager"], marker: () => "New property" },
-  { key: "PAGE /properties", path: () => "/properties", allow: ["assignedTech", "manager"], hidden: ["otherTech", "otherManager"], marker: (t) => t.propertyName },
-  { key: "PAGE /records", path: () => "/records", allow: ["manager"], hidden: ["otherManager"], marker: () => "Application records" },
-  { key: "PAGE /rule-sets", path: () => "/rule-sets", allow: ["manager"], hidden: ["otherManager"], marker: (t) => t.ruleSetName, leak: (t) => [t.ruleSetId] },
-  { key: "PAGE /today", path: () => "/today", allow: ["assignedTech"], hidden: ["otherTech"], marker: (t) => t.propertyName },
-  { key: "PAGE /visits/[visitId]", path: (t) => `/visits/${t.visitId}`, allow: ["assignedTech", "manager"], marker: (t) => t.propertyName },
-  { key: "PAGE /visits", path: () => "/visits", allow: ["manager"], hidden: ["otherManager"], marker: (t) => t.propertyName },
+  {
+    key: "PAGE /my-lawn",
+    path: () => "/my-lawn",
+    allow: ["owner"],
+    hidden: ["otherOwner"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "PAGE /my-lawn/visits/[visitId]",
+    path: (t) => `/my-lawn/visits/${t.completedVisitId}`,
+    allow: ["owner"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "PAGE /alerts",
+    path: () => "/alerts",
+    allow: ["assignedTech", "manager"],
+    hidden: ["otherTech", "otherManager"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "PAGE /dev/mail",
+    path: () => "/dev/mail",
+    allow: ["manager", "otherManager"],
+    marker: () => "Development inbox",
+  },
+  {
+    key: "PAGE /products",
+    path: () => "/products",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.productName,
+    leak: (t) => [t.productId],
+  },
+  {
+    key: "PAGE /properties/[propertyId]/edit",
+    path: (t) => `/properties/${t.propertyId}/edit`,
+    allow: ["manager"],
+    marker: (t) => t.street,
+  },
+  {
+    key: "PAGE /properties/[propertyId]",
+    path: (t) => `/properties/${t.propertyId}`,
+    allow: ["assignedTech", "manager"],
+    marker: (t) => t.street,
+  },
+  {
+    key: "PAGE /properties/[propertyId]/zones/[zoneId]",
+    path: (t) => `/properties/${t.propertyId}/zones/${t.zoneId}`,
+    allow: ["assignedTech", "manager"],
+    marker: (t) => t.zoneName,
+  },
+  {
+    key: "PAGE /properties/new",
+    path: () => "/properties/new",
+    allow: ["manager", "otherManager"],
+    marker: () => "New property",
+  },
+  {
+    key: "PAGE /properties",
+    path: () => "/properties",
+    allow: ["assignedTech", "manager"],
+    hidden: ["otherTech", "otherManager"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "PAGE /records",
+    path: () => "/records",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: () => "Application records",
+  },
+  {
+    key: "PAGE /rule-sets",
+    path: () => "/rule-sets",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.ruleSetName,
+    leak: (t) => [t.ruleSetId],
+  },
+  {
+    key: "PAGE /today",
+    path: () => "/today",
+    allow: ["assignedTech"],
+    hidden: ["otherTech"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "PAGE /visits/[visitId]",
+    path: (t) => `/visits/${t.visitId}`,
+    allow: ["assignedTech", "manager"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "PAGE /visits",
+    path: () => "/visits",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.propertyName,
+  },
 
   // Reads.
   { key: "GET /api/v1/me", path: () => "/api/v1/me", allow: SIGNED_IN, leak: () => [] },
-  { key: "GET /api/v1/people", path: () => "/api/v1/people", allow: ["assignedTech", "otherTech", "manager"], hidden: ["otherManager"], marker: (t) => t.ownerEmail, leak: (t) => [t.ownerEmail] },
-  { key: "GET /api/v1/properties", path: () => "/api/v1/properties", allow: ownerSide, hidden: ["otherOwner", "otherTech", "otherManager"], marker: (t) => t.propertyId },
-  { key: "GET /api/v1/properties/[propertyId]", path: (t) => `/api/v1/properties/${t.propertyId}`, allow: ownerSide, marker: (t) => t.street },
-  { key: "GET /api/v1/properties/[propertyId]/waterings", path: (t) => `/api/v1/properties/${t.propertyId}/waterings`, allow: ownerSide },
-  { key: "GET /api/v1/zones/[zoneId]/checks", path: (t) => `/api/v1/zones/${t.zoneId}/checks`, allow: ["assignedTech", "manager"] },
-  { key: "GET /api/v1/zones/[zoneId]/photos", path: (t) => `/api/v1/zones/${t.zoneId}/photos`, allow: ownerSide },
-  { key: "GET /api/v1/visits", path: () => "/api/v1/visits", allow: ["assignedTech", "manager"], hidden: ["otherTech", "otherManager"], marker: (t) => t.visitId },
-  { key: "GET /api/v1/visits/[visitId]", path: (t) => `/api/v1/visits/${t.visitId}`, allow: ["assignedTech", "manager"], marker: (t) => t.visitId },
-  { key: "GET /api/v1/visits/[visitId]/audit", path: (t) => `/api/v1/visits/${t.visitId}/audit`, allow: ["manager"] },
-  { key: "GET /api/v1/today", path: () => "/api/v1/today", allow: ["assignedTech", "manager"], hidden: ["otherTech", "otherManager"], marker: (t) => t.propertyId },
-  { key: "GET /api/v1/alerts", path: () => "/api/v1/alerts", allow: ["assignedTech", "manager"], hidden: ["otherTech", "otherManager"], marker: (t) => t.alertId, leak: (t) => [t.alertId, t.propertyId] },
-  { key: "GET /api/v1/book", path: () => "/api/v1/book", allow: ["manager"], hidden: ["otherManager"], marker: (t) => t.propertyId },
-  { key: "GET /api/v1/book/export", path: () => "/api/v1/book/export", allow: ["manager"], hidden: ["otherManager"], marker: (t) => t.propertyName },
-  { key: "GET /api/v1/records/applications", path: (t) => `/api/v1/records/applications?from=${t.today.slice(0, 4)}-01-01&to=${t.today}`, allow: ["manager"], hidden: ["otherManager"], marker: (t) => t.propertyName },
-  { key: "GET /api/v1/products", path: () => "/api/v1/products", allow: ["assignedTech", "otherTech", "manager"], hidden: ["otherManager"], marker: (t) => t.productId, leak: (t) => [t.productId] },
-  { key: "GET /api/v1/rule-sets", path: () => "/api/v1/rule-sets", allow: ["assignedTech", "otherTech", "manager"], hidden: ["otherManager"], marker: (t) => t.ruleSetId, leak: (t) => [t.ruleSetId] },
+  {
+    key: "GET /api/v1/people",
+    path: () => "/api/v1/people",
+    allow: ["assignedTech", "otherTech", "manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.ownerEmail,
+    leak: (t) => [t.ownerEmail],
+  },
+  {
+    key: "GET /api/v1/properties",
+    path: () => "/api/v1/properties",
+    allow: ownerSide,
+    hidden: ["otherOwner", "otherTech", "otherManager"],
+    marker: (t) => t.propertyId,
+  },
+  {
+    key: "GET /api/v1/properties/[propertyId]",
+    path: (t) => `/api/v1/properties/${t.propertyId}`,
+    allow: ownerSide,
+    marker: (t) => t.street,
+  },
+  {
+    key: "GET /api/v1/properties/[propertyId]/waterings",
+    path: (t) => `/api/v1/properties/${t.propertyId}/waterings`,
+    allow: ownerSide,
+  },
+  {
+    key: "GET /api/v1/zones/[zoneId]/checks",
+    path: (t) => `/api/v1/zones/${t.zoneId}/checks`,
+    allow: ["assignedTech", "manager"],
+  },
+  {
+    key: "GET /api/v1/zones/[zoneId]/photos",
+    path: (t) => `/api/v1/zones/${t.zoneId}/photos`,
+    allow: ownerSide,
+  },
+  {
+    key: "GET /api/v1/visits",
+    path: () => "/api/v1/visits",
+    allow: ["assignedTech", "manager"],
+    hidden: ["otherTech", "otherManager"],
+    marker: (t) => t.visitId,
+  },
+  {
+    key: "GET /api/v1/visits/[visitId]",
+    path: (t) => `/api/v1/visits/${t.visitId}`,
+    allow: ["assignedTech", "manager"],
+    marker: (t) => t.visitId,
+  },
+  {
+    key: "GET /api/v1/visits/[visitId]/audit",
+    path: (t) => `/api/v1/visits/${t.visitId}/audit`,
+    allow: ["manager"],
+  },
+  {
+    key: "GET /api/v1/today",
+    path: () => "/api/v1/today",
+    allow: ["assignedTech", "manager"],
+    hidden: ["otherTech", "otherManager"],
+    marker: (t) => t.propertyId,
+  },
+  {
+    key: "GET /api/v1/alerts",
+    path: () => "/api/v1/alerts",
+    allow: ["assignedTech", "manager"],
+    hidden: ["otherTech", "otherManager"],
+    marker: (t) => t.alertId,
+    leak: (t) => [t.alertId, t.propertyId],
+  },
+  {
+    key: "GET /api/v1/book",
+    path: () => "/api/v1/book",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.propertyId,
+  },
+  {
+    key: "GET /api/v1/book/export",
+    path: () => "/api/v1/book/export",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "GET /api/v1/records/applications",
+    path: (t) => `/api/v1/records/applications?from=${t.today.slice(0, 4)}-01-01&to=${t.today}`,
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "GET /api/v1/products",
+    path: () => "/api/v1/products",
+    allow: ["assignedTech", "otherTech", "manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.productId,
+    leak: (t) => [t.productId],
+  },
+  {
+    key: "GET /api/v1/rule-sets",
+    path: () => "/api/v1/rule-sets",
+    allow: ["assignedTech", "otherTech", "manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.ruleSetId,
+    leak: (t) => [t.ruleSetId],
+  },
 
   // Writes on the company's records (valid bodies: what a denied person sends would have worked for someone allowed).
-  { key: "POST /api/v1/products", path: () => "/api/v1/products", method: "POST", body: () => ({ name: `Matrix blend ${randomUUID().slice(0, 6)}`, form: "granular", nPct: 20, p2o5Pct: 0, k2oPct: 5, slowReleasePctOfN: 0, densityLbPerGal: null, isPesticide: false, registrationNumber: "", labelCautions: "", reentryGuidance: "" }), allow: ["manager", "otherManager"], leak: () => [] },
-  { key: "PUT /api/v1/products/[productId]", path: (t) => `/api/v1/products/${t.productId}`, method: "PUT", body: () => ({ name: "Matrix feed 24-0-6", form: "granular", nPct: 24, p2o5Pct: 0, k2oPct: 6, slowReleasePctOfN: 30, densityLbPerGal: null, isPesticide: false, registrationNumber: "", labelCautions: "", reentryGuidance: "" }), allow: ["manager"], leak: (t) => [t.productId] },
-  { key: "POST /api/v1/products/[productId]/archive", path: (t) => `/api/v1/products/${t.productId}/archive`, method: "POST", body: () => ({ archived: false }), allow: ["manager"], leak: (t) => [t.productId] },
-  { key: "POST /api/v1/rule-sets", path: () => "/api/v1/rule-sets", method: "POST", body: () => ruleSetBody(`Matrix rules ${randomUUID().slice(0, 6)}`), allow: ["manager", "otherManager"], leak: () => [] },
-  { key: "PUT /api/v1/rule-sets/[ruleSetId]", path: (t) => `/api/v1/rule-sets/${t.ruleSetId}`, method: "PUT", body: () => ruleSetBody("Matrix rules (edited)"), allow: ["manager"], leak: (t) => [t.ruleSetId] },
-  { key: "POST /api/v1/properties", path: () => "/api/v1/properties", method: "POST", body: (t) => ({ ...t.propertyBody, name: `Matrix lot ${randomUUID().slice(0, 6)}`, street: "2 Matrix Row", technicianId: null, ruleSetId: null }), allow: ["manager", "otherManager"], leak: () => [] },
-  { key: "PUT /api/v1/properties/[propertyId]", path: (t) => `/api/v1/properties/${t.propertyId}`, method: "PUT", body: (t) => t.propertyBody, allow: ["manager"] },
-  { key: "POST /api/v1/properties/[propertyId]/archive", path: (t) => `/api/v1/properties/${t.propertyId}/archive`, method: "POST", body: () => ({ archived: false }), allow: ["manager"] },
-  { key: "POST /api/v1/properties/[propertyId]/zones", path: (t) => `/api/v1/properties/${t.propertyId}/zones`, method: "POST", body: (t) => ({ ...t.zoneBody, name: `Matrix strip ${randomUUID().slice(0, 4)}` }), allow: ["manager"] },
-  { key: "PUT /api/v1/zones/[zoneId]", path: (t) => `/api/v1/zones/${t.zoneId}`, method: "PUT", body: (t) => t.zoneBody, allow: ["manager"] },
-  { key: "POST /api/v1/zones/[zoneId]/archive", path: (t) => `/api/v1/zones/${t.zoneId}/archive`, method: "POST", body: () => ({ archived: false }), allow: ["manager"] },
-  { key: "POST /api/v1/properties/[propertyId]/homeowners", path: (t) => `/api/v1/properties/${t.propertyId}/homeowners`, method: "POST", body: () => ({ email: `matrix-${randomUUID().slice(0, 8)}@test.sward.test`, name: "Matrix Neighbour" }), allow: ["manager"] },
-  { key: "DELETE /api/v1/properties/[propertyId]/homeowners/[userId]", path: (t) => `/api/v1/properties/${t.propertyId}/homeowners/${t.extraOwnerId}`, method: "DELETE", allow: ["manager"] },
-  { key: "POST /api/v1/properties/[propertyId]/waterings", path: (t) => `/api/v1/properties/${t.propertyId}/waterings`, method: "POST", body: (t) => ({ id: randomUUID(), zoneId: null, wateredOn: t.today, depthIn: 0.5, runMinutes: null, precipitationRateInPerHour: null, notes: "" }), allow: ownerSide },
-  { key: "POST /api/v1/visits", path: () => "/api/v1/visits", method: "POST", body: (t) => ({ propertyId: t.propertyId, scheduledFor: t.today, technicianId: null, plannedService: "inspection" }), allow: ["manager"], refusedAs: [422] },
-  { key: "POST /api/v1/visits/[visitId]/cancel", path: (t) => `/api/v1/visits/${t.cancelVisitId}/cancel`, method: "POST", body: () => ({}), allow: ["manager"] },
-  { key: "POST /api/v1/alerts/[alertId]/acknowledge", path: (t) => `/api/v1/alerts/${t.alertId}/acknowledge`, method: "POST", body: () => ({ note: "Seen on the matrix walk" }), allow: ["assignedTech", "manager"] },
-  { key: "POST /api/v1/alerts/[alertId]/resolve", path: (t) => `/api/v1/alerts/${t.alertId}/resolve`, method: "POST", body: () => ({ note: "Resolved on the matrix walk" }), allow: ["manager"] },
+  {
+    key: "POST /api/v1/products",
+    path: () => "/api/v1/products",
+    method: "POST",
+    body: () => ({
+      name: `Matrix blend ${randomUUID().slice(0, 6)}`,
+      form: "granular",
+      nPct: 20,
+      p2o5Pct: 0,
+      k2oPct: 5,
+      slowReleasePctOfN: 0,
+      densityLbPerGal: null,
+      isPesticide: false,
+      registrationNumber: "",
+      labelCautions: "",
+      reentryGuidance: "",
+    }),
+    allow: ["manager", "otherManager"],
+    leak: () => [],
+  },
+  {
+    key: "PUT /api/v1/products/[productId]",
+    path: (t) => `/api/v1/products/${t.productId}`,
+    method: "PUT",
+    body: () => ({
+      name: "Matrix feed 24-0-6",
+      form: "granular",
+      nPct: 24,
+      p2o5Pct: 0,
+      k2oPct: 6,
+      slowReleasePctOfN: 30,
+      densityLbPerGal: null,
+      isPesticide: false,
+      registrationNumber: "",
+      labelCautions: "",
+      reentryGuidance: "",
+    }),
+    allow: ["manager"],
+    leak: (t) => [t.productId],
+  },
+  {
+    key: "POST /api/v1/products/[productId]/archive",
+    path: (t) => `/api/v1/products/${t.productId}/archive`,
+    method: "POST",
+    body: () => ({ archived: false }),
+    allow: ["manager"],
+    leak: (t) => [t.productId],
+  },
+  {
+    key: "POST /api/v1/rule-sets",
+    path: () => "/api/v1/rule-sets",
+    method: "POST",
+    body: () => ruleSetBody(`Matrix rules ${randomUUID().slice(0, 6)}`),
+    allow: ["manager", "otherManager"],
+    leak: () => [],
+  },
+  {
+    key: "PUT /api/v1/rule-sets/[ruleSetId]",
+    path: (t) => `/api/v1/rule-sets/${t.ruleSetId}`,
+    method: "PUT",
+    body: () => ruleSetBody("Matrix rules (edited)"),
+    allow: ["manager"],
+    leak: (t) => [t.ruleSetId],
+  },
+  {
+    key: "POST /api/v1/properties",
+    path: () => "/api/v1/properties",
+    method: "POST",
+    body: (t) => ({
+      ...t.propertyBody,
+      name: `Matrix lot ${randomUUID().slice(0, 6)}`,
+      street: "2 Matrix Row",
+      technicianId: null,
+      ruleSetId: null,
+    }),
+    allow: ["manager", "otherManager"],
+    leak: () => [],
+  },
+  {
+    key: "PUT /api/v1/properties/[propertyId]",
+    path: (t) => `/api/v1/properties/${t.propertyId}`,
+    method: "PUT",
+    body: (t) => t.propertyBody,
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/archive",
+    path: (t) => `/api/v1/properties/${t.propertyId}/archive`,
+    method: "POST",
+    body: () => ({ archived: false }),
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/zones",
+    path: (t) => `/api/v1/properties/${t.propertyId}/zones`,
+    method: "POST",
+    body: (t) => ({ ...t.zoneBody, name: `Matrix strip ${randomUUID().slice(0, 4)}` }),
+    allow: ["manager"],
+  },
+  {
+    key: "PUT /api/v1/zones/[zoneId]",
+    path: (t) => `/api/v1/zones/${t.zoneId}`,
+    method: "PUT",
+    body: (t) => t.zoneBody,
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/zones/[zoneId]/archive",
+    path: (t) => `/api/v1/zones/${t.zoneId}/archive`,
+    method: "POST",
+    body: () => ({ archived: false }),
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/homeowners",
+    path: (t) => `/api/v1/properties/${t.propertyId}/homeowners`,
+    method: "POST",
+    body: () => ({
+      email: `matrix-${randomUUID().slice(0, 8)}@test.sward.test`,
+      name: "Matrix Neighbour",
+    }),
+    allow: ["manager"],
+  },
+  {
+    key: "DELETE /api/v1/properties/[propertyId]/homeowners/[userId]",
+    path: (t) => `/api/v1/properties/${t.propertyId}/homeowners/${t.extraOwnerId}`,
+    method: "DELETE",
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/waterings",
+    path: (t) => `/api/v1/properties/${t.propertyId}/waterings`,
+    method: "POST",
+    body: (t) => ({
+      id: randomUUID(),
+      zoneId: null,
+      wateredOn: t.today,
+      depthIn: 0.5,
+      runMinutes: null,
+      precipitationRateInPerHour: null,
+      notes: "",
+    }),
+    allow: ownerSide,
+  },
+  {
+    key: "POST /api/v1/visits",
+    path: () => "/api/v1/visits",
+    method: "POST",
+    body: (t) => ({
+      propertyId: t.propertyId,
+      scheduledFor: t.today,
+      technicianId: null,
+      plannedService: "inspection",
+    }),
+    allow: ["manager"],
+    refusedAs: [422],
+  },
+  {
+    key: "POST /api/v1/visits/[visitId]/cancel",
+    path: (t) => `/api/v1/visits/${t.cancelVisitId}/cancel`,
+    method: "POST",
+    body: () => ({}),
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/alerts/[alertId]/acknowledge",
+    path: (t) => `/api/v1/alerts/${t.alertId}/acknowledge`,
+    method: "POST",
+    body: () => ({ note: "Seen on the matrix walk" }),
+    allow: ["assignedTech", "manager"],
+  },
+  {
+    key: "POST /api/v1/alerts/[alertId]/resolve",
+    path: (t) => `/api/v1/alerts/${t.alertId}/resolve`,
+    method: "POST",
+    body: () => ({ note: "Resolved on the matrix walk" }),
+    allow: ["manager"],
+  },
 
   // The field visit, in the order a technician works.
-  { key: "POST /api/v1/visits/[visitId]/start", path: (t) => `/api/v1/visits/${t.visitId}/start`, method: "POST", body: () => ({ latitude: null, longitude: null }), allow: ["assignedTech", "manager"], mustSucceed: true },
-  { key: "PUT /api/v1/visits/[visitId]/zone-checks/[zoneCheckId]", path: (t) => `/api/v1/visits/${t.visitId}/zone-checks/${t.zoneCheckId}`, method: "PUT", body: (t) => doneCheck(t.zoneId), allow: ["assignedTech", "manager"], mustSucceed: true },
+  {
+    key: "POST /api/v1/visits/[visitId]/start",
+    path: (t) => `/api/v1/visits/${t.visitId}/start`,
+    method: "POST",
+    body: () => ({ latitude: null, longitude: null }),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "PUT /api/v1/visits/[visitId]/zone-checks/[zoneCheckId]",
+    path: (t) => `/api/v1/visits/${t.visitId}/zone-checks/${t.zoneCheckId}`,
+    method: "PUT",
+    body: (t) => doneCheck(t.zoneId),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+  },
   {
     key: "POST /api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/photos",
     path: (t) => `/api/v1/visits/${t.visitId}/zone-checks/${t.zoneCheckId}/photos`,
@@ -149,36 +519,114 @@ const CELLS: Cell[] = [
       t.photoId = (JSON.parse(body) as { id: string }).id;
     },
   },
-  { key: "GET /api/v1/photos/[photoId]/[variant]", case: "a photo of a visit still in progress", path: (t) => `/api/v1/photos/${t.photoId}/thumb`, allow: ["assignedTech", "manager"] },
-  { key: "POST /api/v1/visits/[visitId]/applications", path: (t) => `/api/v1/visits/${t.visitId}/applications`, method: "POST", body: (t) => ({ id: randomUUID(), zoneId: t.zoneId, productId: t.productId, rateAmount: 1, rateUnit: "lb/1000ft2", windMph: null, temperatureF: null, isEstablishing: false, applicatorName: "", applicatorLicence: "", overrideReason: null }), allow: ["assignedTech", "manager"] },
-  { key: "POST /api/v1/visits/[visitId]/finish", path: (t) => `/api/v1/visits/${t.visitId}/finish`, method: "POST", body: () => ({ notes: "Finished on the matrix walk." }), allow: ["assignedTech", "manager"], mustSucceed: true, before: (x) => checkEveryZone(x) },
-  { key: "GET /api/v1/photos/[photoId]/[variant]", case: "the same photo once the visit is finished (its report is the homeowner's)", path: (t) => `/api/v1/photos/${t.photoId}/display`, allow: ownerSide },
+  {
+    key: "GET /api/v1/photos/[photoId]/[variant]",
+    case: "a photo of a visit still in progress",
+    path: (t) => `/api/v1/photos/${t.photoId}/thumb`,
+    allow: ["assignedTech", "manager"],
+  },
+  {
+    key: "POST /api/v1/visits/[visitId]/applications",
+    path: (t) => `/api/v1/visits/${t.visitId}/applications`,
+    method: "POST",
+    body: (t) => ({
+      id: randomUUID(),
+      zoneId: t.zoneId,
+      productId: t.productId,
+      rateAmount: 1,
+      rateUnit: "lb/1000ft2",
+      windMph: null,
+      temperatureF: null,
+      isEstablishing: false,
+      applicatorName: "",
+      applicatorLicence: "",
+      overrideReason: null,
+    }),
+    allow: ["assignedTech", "manager"],
+  },
+  {
+    key: "POST /api/v1/visits/[visitId]/finish",
+    path: (t) => `/api/v1/visits/${t.visitId}/finish`,
+    method: "POST",
+    body: () => ({ notes: "Finished on the matrix walk." }),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+    before: (x) => checkEveryZone(x),
+  },
+  {
+    key: "GET /api/v1/photos/[photoId]/[variant]",
+    case: "the same photo once the visit is finished (its report is the homeowner's)",
+    path: (t) => `/api/v1/photos/${t.photoId}/display`,
+    allow: ownerSide,
+  },
 
   // Server actions: public by nature (signing in and out); each is also an HTTP endpoint, posted to below.
-  { key: "ACTION lib/auth/actions.ts#signInAction", path: () => "/sign-in", allow: PERSONAS, isPublic: true },
-  { key: "ACTION lib/auth/actions.ts#requestSignInLinkAction", path: () => "/sign-in", allow: PERSONAS, isPublic: true },
-  { key: "ACTION lib/auth/actions.ts#signOutAction", path: () => "/properties", allow: PERSONAS, isPublic: true },
+  {
+    key: "ACTION lib/auth/actions.ts#signInAction",
+    path: () => "/sign-in",
+    allow: PERSONAS,
+    isPublic: true,
+  },
+  {
+    key: "ACTION lib/auth/actions.ts#requestSignInLinkAction",
+    path: () => "/sign-in",
+    allow: PERSONAS,
+    isPublic: true,
+  },
+  {
+    key: "ACTION lib/auth/actions.ts#signOutAction",
+    path: () => "/properties",
+    allow: PERSONAS,
+    isPublic: true,
+  },
 ];
 
 function ruleSetBody(name: string) {
-  return { name, citation: "", limitsAreLaw: false, maxNLbPer1000: 1, maxWsnLbPer1000: null, minSlowReleasePct: null, proBlackout: null, homeownerBlackout: null, phosphorusRule: "allowed", soilTestMaxAgeYears: null, recordRetentionYears: 3, recordRequiredFields: [], recordFieldsApplyTo: "pesticides" };
+  return {
+    name,
+    citation: "",
+    limitsAreLaw: false,
+    maxNLbPer1000: 1,
+    maxWsnLbPer1000: null,
+    minSlowReleasePct: null,
+    proBlackout: null,
+    homeownerBlackout: null,
+    phosphorusRule: "allowed",
+    soilTestMaxAgeYears: null,
+    recordRetentionYears: 3,
+    recordRequiredFields: [],
+    recordFieldsApplyTo: "pesticides",
+  };
 }
-
 
 /** Every endpoint the app has, read from the file system: route handlers' methods, pages, and exported server actions. */
 function endpointsOfTheApp(): string[] {
   const keys: string[] = [];
-  const walk = (dir: string): string[] => readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? walk(path.join(dir, e.name)) : [path.join(dir, e.name)]));
-  const urlOf = (file: string) => "/" + path.dirname(path.relative("app", file)).split(path.sep).filter((s) => s !== "." && !/^\(.*\)$/.test(s)).join("/");
+  const walk = (dir: string): string[] =>
+    readdirSync(dir, { withFileTypes: true }).flatMap((e) =>
+      e.isDirectory() ? walk(path.join(dir, e.name)) : [path.join(dir, e.name)],
+    );
+  const urlOf = (file: string) =>
+    "/" +
+    path
+      .dirname(path.relative("app", file))
+      .split(path.sep)
+      .filter((s) => s !== "." && !/^\(.*\)$/.test(s))
+      .join("/");
   for (const file of walk("app")) {
     const src = readFileSync(file, "utf8");
-    if (file.endsWith("route.ts")) for (const m of src.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)) keys.push(`${m[1]} ${urlOf(file)}`);
+    if (file.endsWith("route.ts"))
+      for (const m of src.matchAll(
+        /export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g,
+      ))
+        keys.push(`${m[1]} ${urlOf(file)}`);
     if (file.endsWith("page.tsx")) keys.push(`PAGE ${urlOf(file).replace(/^\/$/, "/")}`);
   }
   for (const file of [...walk("app"), ...walk("lib")].filter((f) => /\.tsx?$/.test(f))) {
     const src = readFileSync(file, "utf8");
     if (!/^\s*["']use server["']/m.test(src)) continue;
-    for (const m of src.matchAll(/export async function (\w+)/g)) keys.push(`ACTION ${file}#${m[1]}`);
+    for (const m of src.matchAll(/export async function (\w+)/g))
+      keys.push(`ACTION ${file}#${m[1]}`);
   }
   return [...new Set(keys)].sort();
 }
@@ -188,7 +636,14 @@ const cookies = new Map<Persona, string>();
 
 beforeAll(async () => {
   useE2eDatabase();
-  const [{ createTestCompany, testDb }, { otherCompany }, { evaluateProperty }, { scheduleVisit }, { linkHomeowner }, { todayIn }] = await Promise.all([
+  const [
+    { createTestCompany, testDb },
+    { otherCompany },
+    { evaluateProperty },
+    { scheduleVisit },
+    { linkHomeowner },
+    { todayIn },
+  ] = await Promise.all([
     import("../helpers/factories"),
     import("@/fixtures/demo-scenario"),
     import("@/lib/risk/evaluate"),
@@ -201,19 +656,65 @@ beforeAll(async () => {
   const propertyId = c.propertyIds["oyelaran"]!;
   await evaluateProperty(db, c.companyId, propertyId, { provider: null });
   const manager = await c.actor("manager");
-  const property = await db.selectFrom("properties").selectAll().where("id", "=", propertyId).executeTakeFirstOrThrow();
-  const zone = await db.selectFrom("zones").selectAll().where("property_id", "=", propertyId).orderBy("sort_order").executeTakeFirstOrThrow();
-  const visit = await db.selectFrom("visits").select("id").where("property_id", "=", propertyId).where("status", "=", "scheduled").executeTakeFirstOrThrow();
-  const completed = await db.selectFrom("visits").select("id").where("property_id", "=", propertyId).where("status", "=", "completed").orderBy("scheduled_for", "desc").executeTakeFirstOrThrow();
-  const alert = await db.selectFrom("risk_alerts").select("id").where("property_id", "=", propertyId).where("status", "=", "open").executeTakeFirstOrThrow();
-  const product = await db.selectFrom("products").select(["id", "name"]).where("company_id", "=", c.companyId).orderBy("name").executeTakeFirstOrThrow();
-  const ruleSet = await db.selectFrom("rule_sets").select(["id", "name"]).where("company_id", "=", c.companyId).executeTakeFirstOrThrow();
+  const property = await db
+    .selectFrom("properties")
+    .selectAll()
+    .where("id", "=", propertyId)
+    .executeTakeFirstOrThrow();
+  const zone = await db
+    .selectFrom("zones")
+    .selectAll()
+    .where("property_id", "=", propertyId)
+    .orderBy("sort_order")
+    .executeTakeFirstOrThrow();
+  const visit = await db
+    .selectFrom("visits")
+    .select("id")
+    .where("property_id", "=", propertyId)
+    .where("status", "=", "scheduled")
+    .executeTakeFirstOrThrow();
+  const completed = await db
+    .selectFrom("visits")
+    .select("id")
+    .where("property_id", "=", propertyId)
+    .where("status", "=", "completed")
+    .orderBy("scheduled_for", "desc")
+    .executeTakeFirstOrThrow();
+  const alert = await db
+    .selectFrom("risk_alerts")
+    .select("id")
+    .where("property_id", "=", propertyId)
+    .where("status", "=", "open")
+    .executeTakeFirstOrThrow();
+  const product = await db
+    .selectFrom("products")
+    .select(["id", "name"])
+    .where("company_id", "=", c.companyId)
+    .orderBy("name")
+    .executeTakeFirstOrThrow();
+  const ruleSet = await db
+    .selectFrom("rule_sets")
+    .select(["id", "name"])
+    .where("company_id", "=", c.companyId)
+    .executeTakeFirstOrThrow();
   const today = todayIn(property.time_zone);
   const cancelVisitId = randomUUID();
-  await scheduleVisit(manager, { id: cancelVisitId, propertyId, scheduledFor: today, technicianId: c.userIds["tech1"]!, plannedService: "inspection", stopOrder: 0, notes: "" });
+  await scheduleVisit(manager, {
+    id: cancelVisitId,
+    propertyId,
+    scheduledFor: today,
+    technicianId: c.userIds["tech1"]!,
+    plannedService: "inspection",
+    stopOrder: 0,
+    notes: "",
+  });
   const extraEmail = `matrix-extra-${randomUUID().slice(0, 8)}@test.sward.test`;
   await linkHomeowner(manager, propertyId, { email: extraEmail, name: "Matrix Extra" });
-  const extra = await db.selectFrom("users").select("id").where("email", "=", extraEmail).executeTakeFirstOrThrow();
+  const extra = await db
+    .selectFrom("users")
+    .select("id")
+    .where("email", "=", extraEmail)
+    .executeTakeFirstOrThrow();
   t = {
     propertyId,
     propertyName: property.name,
@@ -232,40 +733,122 @@ beforeAll(async () => {
     zoneCheckId: randomUUID(),
     photoId: randomUUID(),
     ownerEmail: c.emails["owner1"]!,
-    propertyBody: { name: property.name, street: property.street, city: property.city, region: property.region, postalCode: property.postal_code, latitude: property.latitude, longitude: property.longitude, timeZone: property.time_zone, ruleSetId: property.rule_set_id, technicianId: property.technician_id, notes: property.notes },
-    zoneBody: { name: zone.name, area: zone.area_ft2, areaUnit: "ft2", grassSpecies: zone.grass_species, sunExposure: zone.sun_exposure, isIrrigated: zone.is_irrigated, slope: zone.slope },
+    propertyBody: {
+      name: property.name,
+      street: property.street,
+      city: property.city,
+      region: property.region,
+      postalCode: property.postal_code,
+      latitude: property.latitude,
+      longitude: property.longitude,
+      timeZone: property.time_zone,
+      ruleSetId: property.rule_set_id,
+      technicianId: property.technician_id,
+      notes: property.notes,
+    },
+    zoneBody: {
+      name: zone.name,
+      area: zone.area_ft2,
+      areaUnit: "ft2",
+      grassSpecies: zone.grass_species,
+      sunExposure: zone.sun_exposure,
+      isIrrigated: zone.is_irrigated,
+      slope: zone.slope,
+    },
     today,
   };
   const { saveZoneCheck } = await import("@/lib/visits/mutations");
   checkEveryZone = async (targets) => {
     const tech = await c.actor("tech1");
-    const open = await db.selectFrom("zones").select("id").where("property_id", "=", targets.propertyId).where("archived_at", "is", null).where((eb) => eb.not(eb.exists(eb.selectFrom("zone_checks").select("zone_checks.id").whereRef("zone_checks.zone_id", "=", "zones.id").where("zone_checks.visit_id", "=", targets.visitId)))).execute();
+    const open = await db
+      .selectFrom("zones")
+      .select("id")
+      .where("property_id", "=", targets.propertyId)
+      .where("archived_at", "is", null)
+      .where((eb) =>
+        eb.not(
+          eb.exists(
+            eb
+              .selectFrom("zone_checks")
+              .select("zone_checks.id")
+              .whereRef("zone_checks.zone_id", "=", "zones.id")
+              .where("zone_checks.visit_id", "=", targets.visitId),
+          ),
+        ),
+      )
+      .execute();
     for (const z of open) await saveZoneCheck(tech, targets.visitId, randomUUID(), doneCheck(z.id));
   };
   // Session cookies as sign-in issues them (a session row, its id in the encrypted JWT).
-  const people: Record<Exclude<Persona, "anonymous">, string> = { owner: c.userIds["owner1"]!, otherOwner: c.userIds["owner2"]!, assignedTech: c.userIds["tech1"]!, otherTech: c.userIds["tech2"]!, manager: c.userIds["manager"]!, otherManager: other.userIds["manager"]! };
-  for (const [persona, userId] of Object.entries(people) as [Persona, string][]) cookies.set(persona, await mintSessionCookie(userId));
+  const people: Record<Exclude<Persona, "anonymous">, string> = {
+    owner: c.userIds["owner1"]!,
+    otherOwner: c.userIds["owner2"]!,
+    assignedTech: c.userIds["tech1"]!,
+    otherTech: c.userIds["tech2"]!,
+    manager: c.userIds["manager"]!,
+    otherManager: other.userIds["manager"]!,
+  };
+  for (const [persona, userId] of Object.entries(people) as [Persona, string][])
+    cookies.set(persona, await mintSessionCookie(userId));
   // The unassigned technician must have no open visit at the property (that would put it in their scope).
-  expect(await db.selectFrom("visits").select("id").where("property_id", "=", propertyId).where("technician_id", "=", c.userIds["tech2"]!).where("status", "in", ["scheduled", "in_progress"]).execute()).toEqual([]);
+  expect(
+    await db
+      .selectFrom("visits")
+      .select("id")
+      .where("property_id", "=", propertyId)
+      .where("technician_id", "=", c.userIds["tech2"]!)
+      .where("status", "in", ["scheduled", "in_progress"])
+      .execute(),
+  ).toEqual([]);
 }, 120_000);
 
 /** The action ids of the build, by exported name (Next's server-reference manifest). */
 function actionIds(): Map<string, string> {
-  const manifest = JSON.parse(readFileSync(".next/server/server-reference-manifest.json", "utf8")) as { node: Record<string, { exportedName?: string; filename?: string }> };
-  return new Map(Object.entries(manifest.node).map(([id, entry]) => [`${entry.filename ?? ""}#${entry.exportedName ?? ""}`, id]));
+  const manifest = JSON.parse(
+    readFileSync(".next/server/server-reference-manifest.json", "utf8"),
+  ) as { node: Record<string, { exportedName?: string; filename?: string }> };
+  return new Map(
+    Object.entries(manifest.node).map(([id, entry]) => [
+      `${entry.filename ?? ""}#${entry.exportedName ?? ""}`,
+      id,
+    ]),
+  );
 }
 
 type Variant = { name: string; url: (p: string) => string; headers: Record<string, string> };
 const VARIANTS: Variant[] = [
   { name: "plain", url: (p) => p, headers: {} },
-  { name: "forged x-middleware-subrequest", url: (p) => p, headers: { "x-middleware-subrequest": "middleware:middleware:middleware:middleware:middleware" } },
-  { name: "RSC request", url: (p) => `${p}${p.includes("?") ? "&" : "?"}_rsc=m4tr1x`, headers: { RSC: "1" } },
-  { name: "RSC prefetch", url: (p) => `${p}${p.includes("?") ? "&" : "?"}_rsc=m4tr1x`, headers: { RSC: "1", "Next-Router-Prefetch": "1" } },
-  { name: ".rsc URL", url: (p) => (p.includes("?") ? p.replace("?", ".rsc?") : `${p}.rsc`), headers: { RSC: "1" } },
+  {
+    name: "forged x-middleware-subrequest",
+    url: (p) => p,
+    headers: {
+      "x-middleware-subrequest": "middleware:middleware:middleware:middleware:middleware",
+    },
+  },
+  {
+    name: "RSC request",
+    url: (p) => `${p}${p.includes("?") ? "&" : "?"}_rsc=m4tr1x`,
+    headers: { RSC: "1" },
+  },
+  {
+    name: "RSC prefetch",
+    url: (p) => `${p}${p.includes("?") ? "&" : "?"}_rsc=m4tr1x`,
+    headers: { RSC: "1", "Next-Router-Prefetch": "1" },
+  },
+  {
+    name: ".rsc URL",
+    url: (p) => (p.includes("?") ? p.replace("?", ".rsc?") : `${p}.rsc`),
+    headers: { RSC: "1" },
+  },
 ];
 
 /** One request of a cell as a person, in one variant; an RSC request whose `_rsc` key Next corrects is followed once. */
-async function send(cell: Cell, persona: Persona, variant: Variant, actions: Map<string, string>): Promise<{ status: number; text: string }> {
+async function send(
+  cell: Cell,
+  persona: Persona,
+  variant: Variant,
+  actions: Map<string, string>,
+): Promise<{ status: number; text: string }> {
   const headers: Record<string, string> = { ...variant.headers };
   const cookie = cookies.get(persona);
   if (cookie) headers.cookie = cookie;
@@ -292,7 +875,12 @@ async function send(cell: Cell, persona: Persona, variant: Variant, actions: Map
     body = JSON.stringify(cell.body(t));
   }
   if (method !== "GET") headers.origin = BASE; // as a browser sends it on every same-site write
-  let res = await fetch(`${BASE}${variant.url(cell.path(t))}`, { method, headers, body, redirect: "manual" });
+  let res = await fetch(`${BASE}${variant.url(cell.path(t))}`, {
+    method,
+    headers,
+    body,
+    redirect: "manual",
+  });
   const location = res.headers.get("location");
   if (headers.RSC && res.status === 307 && location?.includes("_rsc=")) {
     await res.arrayBuffer();
@@ -304,7 +892,10 @@ async function send(cell: Cell, persona: Persona, variant: Variant, actions: Map
 describe("the authorisation matrix", () => {
   it("lists every route handler, page and server action of the app", () => {
     const inMatrix = [...new Set(CELLS.map((c) => c.key))].sort();
-    expect(endpointsOfTheApp(), "an endpoint missing from the matrix (or a matrix row for one that is gone)").toEqual(inMatrix);
+    expect(
+      endpointsOfTheApp(),
+      "an endpoint missing from the matrix (or a matrix row for one that is gone)",
+    ).toEqual(inMatrix);
   });
 
   it("walks every cell: 0 unexpected allows, 0 unexpected denies", async () => {
@@ -315,45 +906,77 @@ describe("the authorisation matrix", () => {
     const actions = actionIds();
     for (const cell of CELLS) {
       const isPage = cell.key.startsWith("PAGE ");
-      const expected = (p: Persona) => (cell.allow.includes(p) ? "allow" : cell.hidden?.includes(p) ? "hidden" : "deny");
+      const expected = (p: Persona) =>
+        cell.allow.includes(p) ? "allow" : cell.hidden?.includes(p) ? "hidden" : "deny";
       // Denied and hidden people first, so an allowed write cannot change what they would see.
-      const order = [...PERSONAS].sort((a, b) => Number(expected(a) === "allow") - Number(expected(b) === "allow"));
+      const order = [...PERSONAS].sort(
+        (a, b) => Number(expected(a) === "allow") - Number(expected(b) === "allow"),
+      );
       await cell.before?.(t);
       let succeeded = false;
       for (const persona of order) {
         const want = expected(persona);
-        const variants = want === "allow" ? VARIANTS.slice(0, 1) : isPage ? VARIANTS : cell.method && cell.method !== "GET" ? VARIANTS.slice(0, 2) : VARIANTS.slice(0, 3);
+        const variants =
+          want === "allow"
+            ? VARIANTS.slice(0, 1)
+            : isPage
+              ? VARIANTS
+              : cell.method && cell.method !== "GET"
+                ? VARIANTS.slice(0, 2)
+                : VARIANTS.slice(0, 3);
         for (const variant of variants) {
           const { status, text } = await send(cell, persona, variant, actions);
           checked++;
           // Pages echo their URL (ids included) in the payload, so a page's trace is the property's name and street.
-          const leaks = (cell.leak ?? ((x: Targets) => (isPage ? [x.propertyName, x.street] : [x.propertyName, x.street, x.propertyId])))(t).filter((m) => m && text.includes(m));
+          const leaks = (
+            cell.leak ??
+            ((x: Targets) =>
+              isPage ? [x.propertyName, x.street] : [x.propertyName, x.street, x.propertyId])
+          )(t).filter((m) => m && text.includes(m));
           const marker = cell.marker?.(t);
           const isRsc = variant.headers.RSC === "1";
           const refused = isPage
-            ? (status >= 300 && status < 400) || status === 404 || (isRsc && status === 200 && /NEXT_REDIRECT|NEXT_HTTP_ERROR_FALLBACK|NEXT_NOT_FOUND/.test(text))
-            : [401, 403, 404, ...(cell.refusedAs ?? [])].includes(status) || (isRsc && status === 307 && text === ""); // Next answers an RSC request to a route handler with an empty redirect
+            ? (status >= 300 && status < 400) ||
+              status === 404 ||
+              (isRsc &&
+                status === 200 &&
+                /NEXT_REDIRECT|NEXT_HTTP_ERROR_FALLBACK|NEXT_NOT_FOUND/.test(text))
+            : [401, 403, 404, ...(cell.refusedAs ?? [])].includes(status) ||
+              (isRsc && status === 307 && text === ""); // Next answers an RSC request to a route handler with an empty redirect
           let ok: boolean;
           if (status >= 500) ok = false;
           else if (cell.isPublic) ok = true;
           else if (want === "allow") ok = !refused && (!marker || text.includes(marker));
           // An RSC or prefetch answer may be 200 with only the route tree: it must show neither the page's marker nor the property.
-          else if (isRsc) ok = (refused || status === 200) && leaks.length === 0 && !(marker && text.includes(marker));
+          else if (isRsc)
+            ok =
+              (refused || status === 200) &&
+              leaks.length === 0 &&
+              !(marker && text.includes(marker));
           else if (want === "hidden") ok = status >= 200 && status < 300 && leaks.length === 0;
-          else ok = refused && leaks.length === 0 && (persona !== "anonymous" || isPage || status === 401 || status === 404);
+          else
+            ok =
+              refused &&
+              leaks.length === 0 &&
+              (persona !== "anonymous" || isPage || status === 401 || status === 404);
           if (!ok) {
             if (want === "allow" && !cell.isPublic) unexpectedDenies++;
             else unexpectedAllows++;
-            unexpected.push(`${cell.key}${cell.case ? ` (${cell.case})` : ""} × ${persona} [${variant.name}]: expected ${want}, got ${status}${leaks.length ? ` showing ${leaks.join(", ")}` : ""}${marker && want === "allow" && !text.includes(marker) ? " without its marker" : ""} — ${text.slice(0, 160).replace(/\s+/g, " ")}`);
+            unexpected.push(
+              `${cell.key}${cell.case ? ` (${cell.case})` : ""} × ${persona} [${variant.name}]: expected ${want}, got ${status}${leaks.length ? ` showing ${leaks.join(", ")}` : ""}${marker && want === "allow" && !text.includes(marker) ? " without its marker" : ""} — ${text.slice(0, 160).replace(/\s+/g, " ")}`,
+            );
           } else if (want === "allow") {
             if (status >= 200 && status < 300) succeeded = true;
             cell.after?.(t, persona, text);
           }
         }
       }
-      if (cell.mustSucceed && !succeeded) unexpected.push(`${cell.key}: no allowed person's request succeeded`);
+      if (cell.mustSucceed && !succeeded)
+        unexpected.push(`${cell.key}: no allowed person's request succeeded`);
     }
-    console.log(`authorisation matrix: ${CELLS.length} rows × ${PERSONAS.length} people; cells checked ${checked}, unexpected allows ${unexpectedAllows}, unexpected denies ${unexpectedDenies}`);
+    console.log(
+      `authorisation matrix: ${CELLS.length} rows × ${PERSONAS.length} people; cells checked ${checked}, unexpected allows ${unexpectedAllows}, unexpected denies ${unexpectedDenies}`,
+    );
     expect(unexpected).toEqual([]);
   }, 240_000);
 });

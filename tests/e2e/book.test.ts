@@ -2,7 +2,8 @@
 // URL, sorting by a column, and the CSV of the same view; at phone and desktop size.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -15,9 +16,16 @@ afterAll(async () => {
 });
 
 describe("the book", () => {
-  for (const [size, viewport] of [["phone", PHONE], ["desktop", DESKTOP]] as const) {
+  for (const [size, viewport] of [
+    ["phone", PHONE],
+    ["desktop", DESKTOP],
+  ] as const) {
     it(`finds the problem properties and exports them at ${size} size`, async () => {
-      const context = await browser.newContext({ viewport, baseURL: baseUrl, acceptDownloads: true });
+      const context = await browser.newContext({
+        viewport,
+        baseURL: baseUrl,
+        acceptDownloads: true,
+      });
       const page = await context.newPage();
       await signIn(page, baseUrl, "manager@demo.sward.test");
       await page.waitForURL("**/properties");
@@ -27,12 +35,17 @@ describe("the book", () => {
       expect(await rows.first().innerText()).toMatch(/Declining \d+\.\d points \/ 30 days/);
       await snap(page, `book-${size}`);
 
-      await page.getByRole("form", { name: "Filter the book" }).getByLabel("Trend").selectOption("declining");
+      await page
+        .getByRole("form", { name: "Filter the book" })
+        .getByLabel("Trend")
+        .selectOption("declining");
       await page.getByRole("button", { name: "Show" }).click();
       await page.waitForURL(/trend=declining/);
       // Only declining properties remain (the Haddad lawn among them; a visit finished today by
       // another test may add one).
-      await expect.poll(async () => (await rows.allInnerTexts()).every((t) => t.includes("Declining"))).toBe(true);
+      await expect
+        .poll(async () => (await rows.allInnerTexts()).every((t) => t.includes("Declining")))
+        .toBe(true);
       const shown = await rows.count();
       expect(await rows.first().getAttribute("data-property")).toBe("Haddad residence");
       const download = page.waitForEvent("download");

@@ -4,7 +4,8 @@
 import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { lawnImage } from "../helpers/images";
 import { snap } from "../helpers/screenshots";
 
@@ -21,25 +22,40 @@ afterAll(async () => {
 
 async function rate(page: Page, label: string, value: number) {
   const group = value >= 6 ? `${label}, acceptable` : `${label}, below acceptable`;
-  await page.getByRole("radiogroup", { name: group, exact: true }).getByRole("radio", { name: String(value), exact: true }).click();
+  await page
+    .getByRole("radiogroup", { name: group, exact: true })
+    .getByRole("radio", { name: String(value), exact: true })
+    .click();
 }
 
 async function waitSaved(page: Page) {
-  await page.getByRole("status").filter({ hasText: /^Saved/ }).waitFor({ timeout: 10_000 });
+  await page
+    .getByRole("status")
+    .filter({ hasText: /^Saved/ })
+    .waitFor({ timeout: 10_000 });
 }
 
 async function seriousViolations(page: Page) {
   const result = await new AxeBuilder({ page }).analyze();
-  return result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help} (${v.nodes.length})`);
+  return result.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id}: ${v.help} (${v.nodes.length})`);
 }
 
 describe("a technician runs a visit on a phone", () => {
   it("today → start → two zones checked, one skipped, reload keeps the draft → finish; the manager sees it", async () => {
-    const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl, permissions: ["geolocation"], geolocation: { latitude: 40.3511, longitude: -74.7026 } });
+    const context = await browser.newContext({
+      viewport: PHONE,
+      baseURL: baseUrl,
+      permissions: ["geolocation"],
+      geolocation: { latitude: 40.3511, longitude: -74.7026 },
+    });
     const page = await context.newPage();
     await signIn(page, baseUrl, "tech1@demo.sward.test");
     await page.waitForURL("**/today");
-    await expect(page.getByText("Open concerns from last visit").first().isVisible()).resolves.toBe(true);
+    await expect(page.getByText("Open concerns from last visit").first().isVisible()).resolves.toBe(
+      true,
+    );
     await snap(page, "visit-01-today");
     expect(await seriousViolations(page)).toEqual([]);
 
@@ -59,18 +75,37 @@ describe("a technician runs a visit on a phone", () => {
     await rate(page, "Uniformity", 6);
     await page.getByRole("button", { name: "Weeds: more" }).click();
     await page.getByRole("button", { name: "Weeds: more" }).click();
-    await page.getByRole("radiogroup", { name: "Soil moisture" }).getByRole("radio", { name: "Moist" }).click();
+    await page
+      .getByRole("radiogroup", { name: "Soil moisture" })
+      .getByRole("radio", { name: "Moist" })
+      .click();
     await page.getByRole("button", { name: "Height of cut: more" }).click(); // first tap sets 3.00 in
     await page.getByRole("button", { name: "Height of cut: more" }).click(); // 3.25 in
-    await page.getByRole("radiogroup", { name: "Mowing direction" }).getByRole("radio", { name: "Changed" }).click();
+    await page
+      .getByRole("radiogroup", { name: "Mowing direction" })
+      .getByRole("radio", { name: "Changed" })
+      .click();
     // Two photos at once from the library, and one file that is not a photo.
     await page.getByLabel("Choose photos from the library").setInputFiles([
       { name: "front-1.jpg", mimeType: "image/jpeg", buffer: await lawnImage(2400, 1800, 0.3) },
       { name: "front-2.jpg", mimeType: "image/jpeg", buffer: await lawnImage(1600, 1200, 0.1) },
-      { name: "notes.jpg", mimeType: "image/jpeg", buffer: Buffer.from("a text file with a photo's name") },
+      {
+        name: "notes.jpg",
+        mimeType: "image/jpeg",
+        buffer: Buffer.from("a text file with a photo's name"),
+      },
     ]);
     const photos = page.getByRole("list", { name: "Photos of this zone check" });
-    await expect.poll(async () => (await photos.getByRole("listitem").count().catch(() => 0)), { timeout: 20_000 }).toBe(2);
+    await expect
+      .poll(
+        async () =>
+          await photos
+            .getByRole("listitem")
+            .count()
+            .catch(() => 0),
+        { timeout: 20_000 },
+      )
+      .toBe(2);
     expect(await photos.innerText()).toMatch(/\d+\.\d % green cover · DGCI 0\.\d{3}/);
     await page.getByRole("alert").filter({ hasText: "not a photo Sward can read" }).waitFor();
     await snap(page, "visit-03a-photos");
@@ -86,16 +121,28 @@ describe("a technician runs a visit on a phone", () => {
     await rate(page, "Density", 4);
     await page.getByRole("button", { name: "Add a symptom" }).click();
     await page.getByRole("button", { name: "Shade thinning", exact: true }).click();
-    await page.getByRole("radiogroup", { name: "Severity" }).getByRole("radio", { name: "2 moderate" }).click();
-    await page.getByPlaceholder("What stood out in this zone").fill("Thin under the two oaks; suggest shade-tolerant fine fescue overseeding.");
+    await page
+      .getByRole("radiogroup", { name: "Severity" })
+      .getByRole("radio", { name: "2 moderate" })
+      .click();
+    await page
+      .getByPlaceholder("What stood out in this zone")
+      .fill("Thin under the two oaks; suggest shade-tolerant fine fescue overseeding.");
     // Reload at once: the last keystrokes may not have reached the server; the phone kept them.
     await page.reload();
     await page.getByRole("heading", { name: "Under the oaks" }).waitFor();
     // The form opens once this phone's copy has been read (its fields are disabled until then).
     const notes = page.getByPlaceholder("What stood out in this zone");
     await expect.poll(() => notes.isEnabled(), { timeout: 10_000 }).toBe(true);
-    expect(await notes.inputValue()).toBe("Thin under the two oaks; suggest shade-tolerant fine fescue overseeding.");
-    await expect(page.getByRole("radiogroup", { name: "Density, below acceptable" }).getByRole("radio", { name: "4", exact: true }).getAttribute("aria-checked")).resolves.toBe("true");
+    expect(await notes.inputValue()).toBe(
+      "Thin under the two oaks; suggest shade-tolerant fine fescue overseeding.",
+    );
+    await expect(
+      page
+        .getByRole("radiogroup", { name: "Density, below acceptable" })
+        .getByRole("radio", { name: "4", exact: true })
+        .getAttribute("aria-checked"),
+    ).resolves.toBe("true");
     await expect(page.getByText("Shade thinning", { exact: true }).isVisible()).resolves.toBe(true);
     await snap(page, "visit-04-after-reload");
     await rate(page, "Colour", 6);
@@ -107,14 +154,18 @@ describe("a technician runs a visit on a phone", () => {
     await page.getByRole("button", { name: /Next: Back yard/ }).click();
     await page.getByRole("heading", { name: "Back yard" }).waitFor();
     await page.getByRole("button", { name: "Skip this zone" }).click();
-    await page.getByRole("radiogroup", { name: "Why was the zone skipped?" }).getByRole("radio", { name: "Dog in yard" }).click();
+    await page
+      .getByRole("radiogroup", { name: "Why was the zone skipped?" })
+      .getByRole("radio", { name: "Dog in yard" })
+      .click();
     await waitSaved(page);
     await snap(page, "visit-05-skipped");
 
     // Zone 4: Pool surround.
     await page.getByRole("button", { name: /Next: Pool surround/ }).click();
     await page.getByRole("heading", { name: "Pool surround" }).waitFor();
-    for (const label of ["Overall quality", "Colour", "Density", "Uniformity"]) await rate(page, label, 8);
+    for (const label of ["Overall quality", "Colour", "Density", "Uniformity"])
+      await rate(page, label, 8);
     await page.getByRole("button", { name: "Mark zone done" }).click();
     await waitSaved(page);
 
@@ -139,8 +190,13 @@ describe("a technician runs a visit on a phone", () => {
     await signIn(page, baseUrl, "manager@demo.sward.test");
     await page.waitForURL("**/properties");
     await page.goto("/visits");
-    await page.getByRole("link", { name: /Kowalczyk residence/ }).first().waitFor();
-    expect(await page.getByRole("link", { name: /Kowalczyk residence.*4 of 4 zones/ }).count()).toBe(1);
+    await page
+      .getByRole("link", { name: /Kowalczyk residence/ })
+      .first()
+      .waitFor();
+    expect(
+      await page.getByRole("link", { name: /Kowalczyk residence.*4 of 4 zones/ }).count(),
+    ).toBe(1);
     await page.goto(visitUrl);
     const checks = page.getByRole("list", { name: "Zone checks" });
     await checks.waitFor();
@@ -149,8 +205,12 @@ describe("a technician runs a visit on a phone", () => {
     expect(text).toContain("Shade thinning (moderate, 5 %)");
     expect(text).toContain("Skipped: Dog in yard");
     expect(text).toContain("3.25 in");
-    expect(await page.getByRole("list", { name: "Photos of Front lawn" }).getByRole("listitem").count()).toBe(2);
-    await expect(page.getByText("Finished", { exact: true }).first().isVisible()).resolves.toBe(true);
+    expect(
+      await page.getByRole("list", { name: "Photos of Front lawn" }).getByRole("listitem").count(),
+    ).toBe(2);
+    await expect(page.getByText("Finished", { exact: true }).first().isVisible()).resolves.toBe(
+      true,
+    );
     await snap(page, "visit-08-manager-view", true);
     expect(await seriousViolations(page)).toEqual([]);
     await context.close();

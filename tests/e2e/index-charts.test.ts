@@ -4,7 +4,8 @@
 // and the homeowner's simple chart. Each chart has a table alternative. Screenshots are kept.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -19,7 +20,10 @@ afterAll(async () => {
 const chart = (page: Page, id: string) => page.locator(`[data-chart="${id}"] svg[aria-label]`);
 
 describe("Index charts", () => {
-  for (const [size, viewport] of [["phone", PHONE], ["desktop", DESKTOP]] as const) {
+  for (const [size, viewport] of [
+    ["phone", PHONE],
+    ["desktop", DESKTOP],
+  ] as const) {
     it(`manager: property, weather strip and zone charts with markers at ${size} size`, async () => {
       const context = await browser.newContext({ viewport, baseURL: baseUrl });
       const page = await context.newPage();
@@ -29,10 +33,15 @@ describe("Index charts", () => {
       // The book: distribution of property indexes and the share of zones following N.
       await page.getByRole("heading", { name: "Across the book" }).waitFor();
       await chart(page, "book-distribution").first().waitFor();
-      await expect(page.getByText(/of 17 zones with at least 6 checks/).textContent()).resolves.toMatch(/^\d+ of 17 zones/);
+      await expect(
+        page.getByText(/of 17 zones with at least 6 checks/).textContent(),
+      ).resolves.toMatch(/^\d+ of 17 zones/);
       expect(await page.getByText("Declining: Haddad residence.").count()).toBe(1);
 
-      await page.getByRole("link", { name: /Haddad residence/ }).first().click();
+      await page
+        .getByRole("link", { name: /Haddad residence/ })
+        .first()
+        .click();
       await page.waitForURL(/\/properties\/[0-9a-f-]+$/);
       const property = chart(page, "property-index");
       await property.first().waitFor();
@@ -41,22 +50,42 @@ describe("Index charts", () => {
       expect(feedLabels.filter((t) => /^0\.\d\d( lb N)?$/.test(t))).toHaveLength(5);
       expect(feedLabels).toEqual(expect.arrayContaining(["before", "after"]));
       // One point per visit: seven past visits.
-      expect(await page.locator('[data-chart="property-index"] circle').count()).toBeGreaterThanOrEqual(7);
+      expect(
+        await page.locator('[data-chart="property-index"] circle').count(),
+      ).toBeGreaterThanOrEqual(7);
       expect(await page.getByText(/^Latest \d+ on/).count()).toBeGreaterThan(0);
       await chart(page, "weather-strip").first().waitFor();
       expect(await chart(page, "weather-strip").count()).toBe(2); // rain + ET, and GDD
       // The table alternative opens and lists the visits.
-      await page.locator("#property-index-title").locator("xpath=ancestor::figure").getByText("Show as a table").click();
-      expect(await page.getByRole("table", { name: "Property index per visit" }).locator("tbody tr").count()).toBe(7);
+      await page
+        .locator("#property-index-title")
+        .locator("xpath=ancestor::figure")
+        .getByText("Show as a table")
+        .click();
+      expect(
+        await page
+          .getByRole("table", { name: "Property index per visit" })
+          .locator("tbody tr")
+          .count(),
+      ).toBe(7);
       await page.locator("section[aria-labelledby=index-title]").scrollIntoViewIfNeeded();
       await snap(page, `index-property-${size}`, true);
 
-      await page.getByRole("list", { name: "Zone index" }).getByRole("link", { name: "Back yard" }).click();
+      await page
+        .getByRole("list", { name: "Zone index" })
+        .getByRole("link", { name: "Back yard" })
+        .click();
       await page.waitForURL(/\/zones\//);
       await chart(page, "zone-index").first().waitFor();
       expect(await chart(page, "zone-index").count()).toBe(2); // Index, and the watering bars below
       expect(await chart(page, "zone-index").nth(1).locator("rect").count()).toBeGreaterThan(20);
-      expect(await page.getByText(/negative pattern with the nitrogen available in the 45 days before each check/).count()).toBe(1);
+      expect(
+        await page
+          .getByText(
+            /negative pattern with the nitrogen available in the 45 days before each check/,
+          )
+          .count(),
+      ).toBe(1);
       expect(await page.getByText("Correlation is not cause.").count()).toBe(1);
       await snap(page, `index-zone-${size}`, true);
       await context.close();
@@ -69,9 +98,13 @@ describe("Index charts", () => {
       await page.waitForURL("**/my-lawn");
       await page.getByRole("heading", { name: "Lawn health score" }).waitFor();
       await page.locator('[data-chart^="lawn-score-"] svg').first().waitFor();
-      expect(await page.getByText(/Your lawn is (getting healthier|holding steady)/).count()).toBe(1);
+      expect(await page.getByText(/Your lawn is (getting healthier|holding steady)/).count()).toBe(
+        1,
+      );
       // No feeding markers or product names on the homeowner's chart.
-      expect(await page.locator('[data-chart^="lawn-score-"] text').filter({ hasText: "lb N" }).count()).toBe(0);
+      expect(
+        await page.locator('[data-chart^="lawn-score-"] text').filter({ hasText: "lb N" }).count(),
+      ).toBe(0);
       await snap(page, `index-homeowner-${size}`, true);
       await context.close();
     });

@@ -4,7 +4,8 @@
 import AxeBuilder from "@axe-core/playwright";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -17,7 +18,10 @@ afterAll(async () => {
 });
 
 describe("manager pages", () => {
-  for (const [size, viewport] of [["phone", PHONE], ["desktop", DESKTOP]] as const) {
+  for (const [size, viewport] of [
+    ["phone", PHONE],
+    ["desktop", DESKTOP],
+  ] as const) {
     it(`render and pass axe at ${size} size`, async () => {
       const context = await browser.newContext({ viewport, baseURL: baseUrl });
       const page = await context.newPage();
@@ -46,7 +50,9 @@ describe("manager pages", () => {
         await page.goto(path);
         await page.getByRole("heading", { level: 1, name: heading }).waitFor();
         const result = await new AxeBuilder({ page }).analyze();
-        const serious = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${path}: ${v.id} (${v.nodes.length})`);
+        const serious = result.violations
+          .filter((v) => v.impact === "serious" || v.impact === "critical")
+          .map((v) => `${path}: ${v.id} (${v.nodes.length})`);
         expect(serious).toEqual([]);
       }
       await context.close();

@@ -7,12 +7,14 @@
 // A used, an expired and a tampered link are refused with a clear message.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+
 import { createDb } from "@/db/client";
 import { demoCompany } from "@/fixtures/demo-scenario";
 import { addDays, todayIn } from "@/lib/dates";
-import { cellOf, weatherDayRow } from "@/lib/weather/cache";
 import { readInbox } from "@/lib/mail/inbox-folder";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+import { cellOf, weatherDayRow } from "@/lib/weather/cache";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { lawnImage } from "../helpers/images";
 import { snap } from "../helpers/screenshots";
 
@@ -26,10 +28,18 @@ const OWNER = "owner1@demo.sward.test";
 async function waitForMail(to: string, subject: RegExp, since: number) {
   let found: Awaited<ReturnType<typeof readInbox>>[number] | undefined;
   await expect
-    .poll(async () => {
-      found = (await readInbox(mailDir)).filter((m) => m.to.includes(to) && subject.test(m.subject) && Date.parse(m.receivedAt) >= since).at(-1);
-      return Boolean(found);
-    }, { timeout: 20_000, interval: 250 })
+    .poll(
+      async () => {
+        found = (await readInbox(mailDir))
+          .filter(
+            (m) =>
+              m.to.includes(to) && subject.test(m.subject) && Date.parse(m.receivedAt) >= since,
+          )
+          .at(-1);
+        return Boolean(found);
+      },
+      { timeout: 20_000, interval: 250 },
+    )
     .toBe(true);
   return found!;
 }
@@ -42,10 +52,38 @@ beforeAll(async () => {
   const cell = cellOf(oyelaran.latitude, oyelaran.longitude);
   // A warm, humid spell: highs 29 °C, lows 21 °C, humidity 65–95 % (mean 80 %), no rain.
   const rows = Array.from({ length: 31 }, (_, i) => addDays(today, i - 25)).map((date) => ({
-    ...weatherDayRow(cell, { date, tmaxC: 29, tminC: 21, rhMaxPct: 95, rhMinPct: 65, rhMeanPct: 80, windMs: 2, windHeightM: 10, sunshineH: 7, solarMJ: null, precipMm: 0, isForecast: date > today }),
+    ...weatherDayRow(cell, {
+      date,
+      tmaxC: 29,
+      tminC: 21,
+      rhMaxPct: 95,
+      rhMinPct: 65,
+      rhMeanPct: 80,
+      windMs: 2,
+      windHeightM: 10,
+      sunshineH: 7,
+      solarMJ: null,
+      precipMm: 0,
+      isForecast: date > today,
+    }),
     fetched_at: new Date(),
   }));
-  await db.insertInto("weather_days").values(rows).onConflict((oc) => oc.columns(["cell", "day"]).doUpdateSet((eb) => ({ tmax_c: eb.ref("excluded.tmax_c"), tmin_c: eb.ref("excluded.tmin_c"), rh_max_pct: eb.ref("excluded.rh_max_pct"), rh_min_pct: eb.ref("excluded.rh_min_pct"), rh_mean_pct: eb.ref("excluded.rh_mean_pct"), precip_mm: eb.ref("excluded.precip_mm"), is_forecast: eb.ref("excluded.is_forecast"), fetched_at: eb.ref("excluded.fetched_at") }))).execute();
+  await db
+    .insertInto("weather_days")
+    .values(rows)
+    .onConflict((oc) =>
+      oc.columns(["cell", "day"]).doUpdateSet((eb) => ({
+        tmax_c: eb.ref("excluded.tmax_c"),
+        tmin_c: eb.ref("excluded.tmin_c"),
+        rh_max_pct: eb.ref("excluded.rh_max_pct"),
+        rh_min_pct: eb.ref("excluded.rh_min_pct"),
+        rh_mean_pct: eb.ref("excluded.rh_mean_pct"),
+        precip_mm: eb.ref("excluded.precip_mm"),
+        is_forecast: eb.ref("excluded.is_forecast"),
+        fetched_at: eb.ref("excluded.fetched_at"),
+      })),
+    )
+    .execute();
 });
 afterAll(async () => {
   await browser?.close();
@@ -53,7 +91,13 @@ afterAll(async () => {
 });
 
 async function rate(page: Page, label: string, value: number) {
-  await page.getByRole("radiogroup", { name: `${label}, ${value >= 6 ? "acceptable" : "below acceptable"}`, exact: true }).getByRole("radio", { name: String(value), exact: true }).click();
+  await page
+    .getByRole("radiogroup", {
+      name: `${label}, ${value >= 6 ? "acceptable" : "below acceptable"}`,
+      exact: true,
+    })
+    .getByRole("radio", { name: String(value), exact: true })
+    .click();
 }
 
 let finishedAt = 0;
@@ -68,19 +112,46 @@ describe("matted canopy alert", () => {
     await page.waitForURL(/\/visits\/[0-9a-f-]+$/);
     await page.getByRole("button", { name: "Start visit" }).click();
     await page.getByRole("heading", { name: "Front lawn" }).waitFor();
-    for (const label of ["Overall quality", "Colour", "Density", "Uniformity"]) await rate(page, label, 7);
-    await page.getByRole("radiogroup", { name: "Mowing direction" }).getByRole("radio", { name: "Same as last check" }).click();
+    for (const label of ["Overall quality", "Colour", "Density", "Uniformity"])
+      await rate(page, label, 7);
+    await page
+      .getByRole("radiogroup", { name: "Mowing direction" })
+      .getByRole("radio", { name: "Same as last check" })
+      .click();
     await page.getByRole("button", { name: "Lay-over / matting" }).click();
-    await page.getByLabel("Choose photos from the library").setInputFiles([{ name: "matted.jpg", mimeType: "image/jpeg", buffer: await lawnImage(1600, 1200, 0.05) }]);
-    await expect.poll(async () => page.getByRole("list", { name: "Photos of this zone check" }).getByRole("listitem").count().catch(() => 0), { timeout: 20_000 }).toBe(1);
+    await page
+      .getByLabel("Choose photos from the library")
+      .setInputFiles([
+        { name: "matted.jpg", mimeType: "image/jpeg", buffer: await lawnImage(1600, 1200, 0.05) },
+      ]);
+    await expect
+      .poll(
+        async () =>
+          page
+            .getByRole("list", { name: "Photos of this zone check" })
+            .getByRole("listitem")
+            .count()
+            .catch(() => 0),
+        { timeout: 20_000 },
+      )
+      .toBe(1);
     await page.getByRole("button", { name: "Mark zone done" }).click();
-    await page.getByRole("status").filter({ hasText: /^Saved/ }).waitFor({ timeout: 10_000 });
+    await page
+      .getByRole("status")
+      .filter({ hasText: /^Saved/ })
+      .waitFor({ timeout: 10_000 });
     for (const zone of ["Back yard", "Side strip"]) {
       await page.getByRole("button", { name: new RegExp(`Next: ${zone}`) }).click();
       await page.getByRole("heading", { name: zone }).waitFor();
       await page.getByRole("button", { name: "Skip this zone" }).click();
-      await page.getByRole("radiogroup", { name: "Why was the zone skipped?" }).getByRole("radio", { name: "No access" }).click();
-      await page.getByRole("status").filter({ hasText: /^Saved/ }).waitFor({ timeout: 10_000 });
+      await page
+        .getByRole("radiogroup", { name: "Why was the zone skipped?" })
+        .getByRole("radio", { name: "No access" })
+        .click();
+      await page
+        .getByRole("status")
+        .filter({ hasText: /^Saved/ })
+        .waitFor({ timeout: 10_000 });
     }
     await page.getByRole("button", { name: "Review and finish" }).click();
     finishedAt = Date.now() - 1000;
@@ -90,7 +161,9 @@ describe("matted canopy alert", () => {
     const matted = alerts.getByRole("listitem").filter({ hasText: "Matted canopy: fungus risk" });
     await matted.waitFor({ timeout: 15_000 });
     expect(await matted.innerText()).toMatch(/Front lawn/);
-    expect(await matted.innerText()).toMatch(/Matted, laid-over grass seen while the weather is warm and humid \(25 °C, 80 % RH over 5 days\)/);
+    expect(await matted.innerText()).toMatch(
+      /Matted, laid-over grass seen while the weather is warm and humid \(25 °C, 80 % RH over 5 days\)/,
+    );
     await matted.getByText("Evidence and source").click();
     const evidence = await matted.innerText();
     expect(evidence).toMatch(/Matting seen\s*yes/);
@@ -107,7 +180,10 @@ describe("matted canopy alert", () => {
     await signIn(page, baseUrl, "manager@demo.sward.test");
     await page.waitForURL("**/properties");
     await page.goto("/alerts?kind=matted_canopy");
-    const card = page.getByRole("list", { name: "Alerts" }).getByRole("listitem").filter({ hasText: "Oyelaran residence" });
+    const card = page
+      .getByRole("list", { name: "Alerts" })
+      .getByRole("listitem")
+      .filter({ hasText: "Oyelaran residence" });
     await card.waitFor();
     await snap(page, "alert-02-alerts-page");
     await card.getByRole("button", { name: "Acknowledge" }).click();
@@ -117,12 +193,17 @@ describe("matted canopy alert", () => {
     await card.getByRole("button", { name: "Resolve" }).click();
     await card.getByRole("button", { name: "Resolve" }).click(); // without a note
     await card.getByRole("alert").filter({ hasText: "Say how it was resolved." }).waitFor();
-    await card.getByLabel("How was it resolved?").fill("Direction changed at the next two mowings; canopy upright again.");
+    await card
+      .getByLabel("How was it resolved?")
+      .fill("Direction changed at the next two mowings; canopy upright again.");
     await card.getByRole("button", { name: "Resolve" }).click();
     // Resolved alerts leave the default (live) view; the resolved view keeps the history.
     await expect.poll(() => card.count(), { timeout: 10_000 }).toBe(0);
     await page.goto("/alerts?kind=matted_canopy&status=resolved");
-    const resolved = page.getByRole("list", { name: "Alerts" }).getByRole("listitem").filter({ hasText: "Oyelaran residence" });
+    const resolved = page
+      .getByRole("list", { name: "Alerts" })
+      .getByRole("listitem")
+      .filter({ hasText: "Oyelaran residence" });
     await resolved.getByText("Evidence and source").click();
     const text = await resolved.innerText();
     expect(text).toMatch(/Acknowledged.*Dana Whitcombe[\s\S]*Told the mowing crew/);
@@ -148,7 +229,11 @@ describe("the homeowner's report e-mail and sign-in link", () => {
   }
 
   it("the report e-mail arrives; its link and an e-mailed sign-in link land owner1 on the report, with the care note and the photo", async () => {
-    const report = await waitForMail(OWNER, /^Your lawn visit report — Oyelaran residence, /, finishedAt);
+    const report = await waitForMail(
+      OWNER,
+      /^Your lawn visit report — Oyelaran residence, /,
+      finishedAt,
+    );
     expect(report.text).toMatch(/Change the mowing direction every few mowings/);
     expect(report.text).toMatch(/Front lawn: https?:\/\/\S+\/api\/v1\/photos\//); // photos as links
     expect(report.html).toContain("Read your visit report");
@@ -170,12 +255,16 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     await page.getByRole("button", { name: "Continue to my lawn" }).click();
     await page.waitForURL(`**${reportPath}`);
     await page.getByRole("heading", { level: 1, name: /Oyelaran residence/ }).waitFor();
-    const note = page.getByRole("listitem").filter({ has: page.getByRole("heading", { name: "Change the mowing direction every few mowings" }) });
+    const note = page.getByRole("listitem").filter({
+      has: page.getByRole("heading", { name: "Change the mowing direction every few mowings" }),
+    });
     await note.waitFor();
     expect(await note.innerText()).toMatch(/Mower safety/);
     const photo = page.locator('ul[aria-label="Photos of Front lawn"] img').first();
     await photo.waitFor();
-    expect(await photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+    expect(
+      await photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0),
+    ).toBe(true);
     await snap(page, "mail-04-report-after-link", true);
 
     // The same link a second time: refused, in words, and nobody is signed in by it.
@@ -184,7 +273,10 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     await page2.goto(link);
     await page2.getByRole("button", { name: "Continue to my lawn" }).click();
     await page2.waitForURL(/\/sign-in\?.*error=Verification/);
-    await page2.getByRole("alert").filter({ hasText: "That sign-in link has expired or has already been used." }).waitFor();
+    await page2
+      .getByRole("alert")
+      .filter({ hasText: "That sign-in link has expired or has already been used." })
+      .waitFor();
     await snap(page2, "mail-05-link-used");
     expect((await page2.request.get(reportPath, { maxRedirects: 0 })).status()).toBe(307);
     await again.close();
@@ -208,17 +300,27 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     // Sixteen minutes later (the token's expiry moved back, as the clock would).
     await page.goto("/sign-in");
     const expired = await askForLink(page);
-    await db.updateTable("verification_tokens").set({ expires: new Date(Date.now() - 60_000) }).where("identifier", "=", OWNER).execute();
+    await db
+      .updateTable("verification_tokens")
+      .set({ expires: new Date(Date.now() - 60_000) })
+      .where("identifier", "=", OWNER)
+      .execute();
     await page.goto(expired);
     await page.getByRole("button", { name: "Continue to my lawn" }).click();
     await page.waitForURL(/\/sign-in\?.*error=Verification/);
-    await page.getByRole("alert").filter({ hasText: "A link works once, within 15 minutes" }).waitFor();
+    await page
+      .getByRole("alert")
+      .filter({ hasText: "A link works once, within 15 minutes" })
+      .waitFor();
     expect((await page.request.get("/my-lawn", { maxRedirects: 0 })).status()).toBe(307);
 
     // That was the third link for this address in 15 minutes: a fourth is refused, in words.
     await page.getByLabel("Your e-mail address").fill(OWNER);
     await page.getByRole("button", { name: "E-mail me a sign-in link" }).click();
-    await page.getByRole("alert").filter({ hasText: "Too many sign-in links were asked for" }).waitFor();
+    await page
+      .getByRole("alert")
+      .filter({ hasText: "Too many sign-in links were asked for" })
+      .waitFor();
     await snap(page, "mail-06-link-throttled");
     await context.close();
   });
@@ -240,8 +342,12 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     await page.goto("/dev/mail");
     const list = page.getByRole("list", { name: "Messages, newest first" });
     await list.getByRole("link", { name: /Your lawn visit report — Oyelaran residence/ }).click();
-    await page.getByRole("heading", { level: 2, name: /Your lawn visit report — Oyelaran residence/ }).waitFor();
-    expect(await page.locator("pre").innerText()).toMatch(/Change the mowing direction every few mowings/);
+    await page
+      .getByRole("heading", { level: 2, name: /Your lawn visit report — Oyelaran residence/ })
+      .waitFor();
+    expect(await page.locator("pre").innerText()).toMatch(
+      /Change the mowing direction every few mowings/,
+    );
     expect(await list.getByRole("link", { name: /Your sign-in link for/ }).count()).toBe(3);
     await snap(page, "mail-07-development-inbox");
     await context.close();

@@ -3,8 +3,10 @@
 import AxeBuilder from "@axe-core/playwright";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+
 import { demoCompany, otherCompany } from "@/fixtures/demo-scenario";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -26,18 +28,68 @@ const namesFor = (pred: (p: (typeof demoCompany.properties)[number]) => boolean)
 
 async function seriousViolations(page: Page) {
   const result = await new AxeBuilder({ page }).analyze();
-  return result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help}`);
+  return result.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id}: ${v.help}`);
 }
 
 describe("landing pages by role", () => {
   const cases = [
-    { email: "manager@demo.sward.test", path: "/properties", heading: "Properties", expected: namesFor(() => true), viewport: DESKTOP },
-    { email: "tech1@demo.sward.test", path: "/today", heading: "Today", expected: demoCompany.schedule!.today.tech1!.map((k) => demoCompany.properties.find((p) => p.key === k)!.name), api: namesFor((p) => p.technician === "tech1"), viewport: PHONE },
-    { email: "tech2@demo.sward.test", path: "/today", heading: "Today", expected: demoCompany.schedule!.today.tech2!.map((k) => demoCompany.properties.find((p) => p.key === k)!.name), api: namesFor((p) => p.technician === "tech2"), viewport: DESKTOP },
-    { email: "owner1@demo.sward.test", path: "/my-lawn", heading: "My lawn", expected: namesFor((p) => p.homeowners.includes("owner1")), viewport: PHONE },
-    { email: "owner2@demo.sward.test", path: "/my-lawn", heading: "My lawn", expected: namesFor((p) => p.homeowners.includes("owner2")), viewport: PHONE },
-    { email: "owner3@demo.sward.test", path: "/my-lawn", heading: "My lawn", expected: namesFor((p) => p.homeowners.includes("owner3")), viewport: DESKTOP },
-    { email: "manager@other.sward.test", path: "/properties", heading: "Properties", expected: otherCompany.properties.map((p) => p.name), viewport: DESKTOP },
+    {
+      email: "manager@demo.sward.test",
+      path: "/properties",
+      heading: "Properties",
+      expected: namesFor(() => true),
+      viewport: DESKTOP,
+    },
+    {
+      email: "tech1@demo.sward.test",
+      path: "/today",
+      heading: "Today",
+      expected: demoCompany.schedule!.today.tech1!.map(
+        (k) => demoCompany.properties.find((p) => p.key === k)!.name,
+      ),
+      api: namesFor((p) => p.technician === "tech1"),
+      viewport: PHONE,
+    },
+    {
+      email: "tech2@demo.sward.test",
+      path: "/today",
+      heading: "Today",
+      expected: demoCompany.schedule!.today.tech2!.map(
+        (k) => demoCompany.properties.find((p) => p.key === k)!.name,
+      ),
+      api: namesFor((p) => p.technician === "tech2"),
+      viewport: DESKTOP,
+    },
+    {
+      email: "owner1@demo.sward.test",
+      path: "/my-lawn",
+      heading: "My lawn",
+      expected: namesFor((p) => p.homeowners.includes("owner1")),
+      viewport: PHONE,
+    },
+    {
+      email: "owner2@demo.sward.test",
+      path: "/my-lawn",
+      heading: "My lawn",
+      expected: namesFor((p) => p.homeowners.includes("owner2")),
+      viewport: PHONE,
+    },
+    {
+      email: "owner3@demo.sward.test",
+      path: "/my-lawn",
+      heading: "My lawn",
+      expected: namesFor((p) => p.homeowners.includes("owner3")),
+      viewport: DESKTOP,
+    },
+    {
+      email: "manager@other.sward.test",
+      path: "/properties",
+      heading: "Properties",
+      expected: otherCompany.properties.map((p) => p.name),
+      viewport: DESKTOP,
+    },
   ];
 
   for (const c of cases) {
@@ -45,16 +97,26 @@ describe("landing pages by role", () => {
       const { context, page } = await freshPage(c.viewport);
       await signIn(page, baseUrl, c.email);
       await page.waitForURL(`**${c.path}`);
-      await expect(page.getByRole("heading", { level: 1, name: c.heading, exact: true }).isVisible()).resolves.toBe(true);
+      await expect(
+        page.getByRole("heading", { level: 1, name: c.heading, exact: true }).isVisible(),
+      ).resolves.toBe(true);
       const api = await page.request.get("/api/v1/properties");
       expect(api.status()).toBe(200);
-      const names = ((await api.json()) as { items: { name: string }[] }).items.map((p) => p.name).sort();
+      const names = ((await api.json()) as { items: { name: string }[] }).items
+        .map((p) => p.name)
+        .sort();
       expect(names).toEqual([...("api" in c && c.api ? c.api : c.expected)].sort());
       // Visible on the page (the book summary also names properties in a table that starts closed).
-      for (const name of c.expected) await expect(page.getByText(name, { exact: true }).filter({ visible: true }).first().isVisible()).resolves.toBe(true);
+      for (const name of c.expected)
+        await expect(
+          page.getByText(name, { exact: true }).filter({ visible: true }).first().isVisible(),
+        ).resolves.toBe(true);
       const visible = "api" in c && c.api ? c.api : c.expected;
-      const others = demoCompany.properties.concat(otherCompany.properties).filter((p) => !visible.includes(p.name));
-      for (const p of others) await expect(page.getByText(p.name, { exact: true }).count()).resolves.toBe(0);
+      const others = demoCompany.properties
+        .concat(otherCompany.properties)
+        .filter((p) => !visible.includes(p.name));
+      for (const p of others)
+        await expect(page.getByText(p.name, { exact: true }).count()).resolves.toBe(0);
       expect(await seriousViolations(page)).toEqual([]);
       await context.close();
     });
@@ -68,7 +130,9 @@ describe("sign-in errors and sign-out", () => {
     const alert = page.locator("form").getByRole("alert");
     await alert.waitFor();
     expect(await alert.innerText()).toContain("do not match an account");
-    expect(await page.getByLabel("E-mail", { exact: true }).inputValue()).toBe("tech2@demo.sward.test");
+    expect(await page.getByLabel("E-mail", { exact: true }).inputValue()).toBe(
+      "tech2@demo.sward.test",
+    );
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     expect(await seriousViolations(page)).toEqual([]);
     await context.close();
@@ -107,7 +171,9 @@ describe("sign-in errors and sign-out", () => {
     await replay.addCookies(oldCookies);
     const response = await replay.request.get("/api/v1/properties");
     expect(response.status()).toBe(401);
-    expect(await response.json()).toEqual({ error: { code: "unauthenticated", message: "Sign in to continue." } });
+    expect(await response.json()).toEqual({
+      error: { code: "unauthenticated", message: "Sign in to continue." },
+    });
     await replay.close();
     await context.close();
   });
@@ -118,7 +184,11 @@ describe("tenancy and scope through the API", () => {
     const { context, page } = await freshPage();
     await signIn(page, baseUrl, email);
     await page.waitForURL((url) => url.pathname !== "/sign-in");
-    const items = ((await (await page.request.get("/api/v1/properties")).json()) as { items: { id: string; name: string }[] }).items;
+    const items = (
+      (await (await page.request.get("/api/v1/properties")).json()) as {
+        items: { id: string; name: string }[];
+      }
+    ).items;
     await context.close();
     return Object.fromEntries(items.map((p) => [p.name, p.id]));
   }
@@ -149,13 +219,20 @@ describe("tenancy and scope through the API", () => {
       const html = await page.goto(`/properties/${id}`);
       expect(html?.status()).toBe(404);
     }
-    const me = (await (await page.request.get("/api/v1/me")).json()) as { email: string; role: string };
+    const me = (await (await page.request.get("/api/v1/me")).json()) as {
+      email: string;
+      role: string;
+    };
     expect(me).toMatchObject({ email: "manager@other.sward.test", role: "manager" });
     await context.close();
   });
 
   it("anonymous API calls get 401 JSON, never a page or a stack trace", async () => {
-    for (const path of ["/api/v1/me", "/api/v1/properties", "/api/v1/properties/00000000-0000-4000-8000-000000000000"]) {
+    for (const path of [
+      "/api/v1/me",
+      "/api/v1/properties",
+      "/api/v1/properties/00000000-0000-4000-8000-000000000000",
+    ]) {
       const response = await fetch(`${baseUrl}${path}`);
       expect(response.status).toBe(401);
       expect(response.headers.get("content-type")).toContain("application/json");

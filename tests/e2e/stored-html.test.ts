@@ -6,9 +6,11 @@
 import { randomUUID } from "node:crypto";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+
 import { readInbox } from "@/lib/mail/inbox-folder";
+
 import { DESKTOP, launchBrowser } from "../helpers/browser";
-import { SESSION_COOKIE, mintSessionCookie, useE2eDatabase } from "../helpers/e2e-db";
+import { mintSessionCookie, SESSION_COOKIE, useE2eDatabase } from "../helpers/e2e-db";
 import { doneCheck } from "../helpers/zone-checks";
 
 const BASE = inject("baseUrl");
@@ -29,28 +31,122 @@ beforeAll(async () => {
   t.propertyId = c.propertyIds["oyelaran"]!;
   t.ownerEmail = c.emails["owner1"]!;
   await evaluateProperty(db, c.companyId, t.propertyId, { provider: null });
-  const zones = await db.selectFrom("zones").select("id").where("property_id", "=", t.propertyId).orderBy("sort_order").execute();
+  const zones = await db
+    .selectFrom("zones")
+    .select("id")
+    .where("property_id", "=", t.propertyId)
+    .orderBy("sort_order")
+    .execute();
   t.zoneId = zones[0]!.id;
-  t.visitId = (await db.selectFrom("visits").select("id").where("property_id", "=", t.propertyId).where("status", "=", "scheduled").executeTakeFirstOrThrow()).id;
+  t.visitId = (
+    await db
+      .selectFrom("visits")
+      .select("id")
+      .where("property_id", "=", t.propertyId)
+      .where("status", "=", "scheduled")
+      .executeTakeFirstOrThrow()
+  ).id;
   // Markup in every kind of stored text a page or an e-mail shows.
-  await db.updateTable("properties").set({ name: tagged("Oyelaran"), street: tagged("14 Quillwort Lane"), notes: tagged("Gate code") }).where("id", "=", t.propertyId).execute();
-  await db.updateTable("zones").set({ name: tagged("Front") }).where("id", "=", t.zoneId).execute();
-  await db.updateTable("users").set({ name: tagged("Margaret") }).where("id", "=", c.userIds["owner1"]!).execute();
-  await db.updateTable("users").set({ name: tagged("Luis") }).where("id", "=", c.userIds["tech1"]!).execute();
-  const product = await db.selectFrom("products").select("id").where("company_id", "=", c.companyId).orderBy("name").executeTakeFirstOrThrow();
-  await db.updateTable("products").set({ name: tagged("Feed") }).where("id", "=", product.id).execute();
-  const ruleSet = await db.selectFrom("rule_sets").select("id").where("company_id", "=", c.companyId).orderBy("name").executeTakeFirstOrThrow();
-  await db.updateTable("rule_sets").set({ name: tagged("Rules") }).where("id", "=", ruleSet.id).execute();
+  await db
+    .updateTable("properties")
+    .set({
+      name: tagged("Oyelaran"),
+      street: tagged("14 Quillwort Lane"),
+      notes: tagged("Gate code"),
+    })
+    .where("id", "=", t.propertyId)
+    .execute();
+  await db
+    .updateTable("zones")
+    .set({ name: tagged("Front") })
+    .where("id", "=", t.zoneId)
+    .execute();
+  await db
+    .updateTable("users")
+    .set({ name: tagged("Margaret") })
+    .where("id", "=", c.userIds["owner1"]!)
+    .execute();
+  await db
+    .updateTable("users")
+    .set({ name: tagged("Luis") })
+    .where("id", "=", c.userIds["tech1"]!)
+    .execute();
+  const product = await db
+    .selectFrom("products")
+    .select("id")
+    .where("company_id", "=", c.companyId)
+    .orderBy("name")
+    .executeTakeFirstOrThrow();
+  await db
+    .updateTable("products")
+    .set({ name: tagged("Feed") })
+    .where("id", "=", product.id)
+    .execute();
+  const ruleSet = await db
+    .selectFrom("rule_sets")
+    .select("id")
+    .where("company_id", "=", c.companyId)
+    .orderBy("name")
+    .executeTakeFirstOrThrow();
+  await db
+    .updateTable("rule_sets")
+    .set({ name: tagged("Rules") })
+    .where("id", "=", ruleSet.id)
+    .execute();
   cookies.manager = await mintSessionCookie(c.userIds["manager"]!);
   cookies.tech = await mintSessionCookie(c.userIds["tech1"]!);
   cookies.owner = await mintSessionCookie(c.userIds["owner1"]!);
-  const api = (cookie: string, method: string, path: string, body: unknown) => fetch(`${BASE}${path}`, { method, headers: { cookie, origin: BASE, "content-type": "application/json" }, body: JSON.stringify(body) });
-  const alert = await db.selectFrom("risk_alerts").select("id").where("property_id", "=", t.propertyId).where("status", "=", "open").executeTakeFirstOrThrow();
-  expect((await api(cookies.tech, "POST", `/api/v1/alerts/${alert.id}/acknowledge`, { note: tagged("Seen") })).status).toBe(200);
-  expect((await api(cookies.tech, "POST", `/api/v1/properties/${t.propertyId}/waterings`, { id: randomUUID(), zoneId: null, wateredOn: "2026-11-20", depthIn: 0.5, runMinutes: null, precipitationRateInPerHour: null, notes: tagged("Hose") })).status).toBe(201);
+  const api = (cookie: string, method: string, path: string, body: unknown) =>
+    fetch(`${BASE}${path}`, {
+      method,
+      headers: { cookie, origin: BASE, "content-type": "application/json" },
+      body: JSON.stringify(body),
+    });
+  const alert = await db
+    .selectFrom("risk_alerts")
+    .select("id")
+    .where("property_id", "=", t.propertyId)
+    .where("status", "=", "open")
+    .executeTakeFirstOrThrow();
+  expect(
+    (
+      await api(cookies.tech, "POST", `/api/v1/alerts/${alert.id}/acknowledge`, {
+        note: tagged("Seen"),
+      })
+    ).status,
+  ).toBe(200);
+  expect(
+    (
+      await api(cookies.tech, "POST", `/api/v1/properties/${t.propertyId}/waterings`, {
+        id: randomUUID(),
+        zoneId: null,
+        wateredOn: "2026-11-20",
+        depthIn: 0.5,
+        runMinutes: null,
+        precipitationRateInPerHour: null,
+        notes: tagged("Hose"),
+      })
+    ).status,
+  ).toBe(201);
   // The visit: every zone checked with markup in its notes, then finished — the report e-mail goes to owner1.
-  for (const z of zones) expect((await api(cookies.tech, "PUT", `/api/v1/visits/${t.visitId}/zone-checks/${randomUUID()}`, doneCheck(z.id, { notes: tagged("Notes") }))).status).toBe(200);
-  expect((await api(cookies.tech, "POST", `/api/v1/visits/${t.visitId}/finish`, { notes: tagged("Visit") })).status).toBe(200);
+  for (const z of zones)
+    expect(
+      (
+        await api(
+          cookies.tech,
+          "PUT",
+          `/api/v1/visits/${t.visitId}/zone-checks/${randomUUID()}`,
+          doneCheck(z.id, { notes: tagged("Notes") }),
+        )
+      ).status,
+    ).toBe(200);
+  expect(
+    (
+      await api(cookies.tech, "POST", `/api/v1/visits/${t.visitId}/finish`, {
+        notes: tagged("Visit"),
+      })
+    ).status,
+  ).toBe(200);
   browser = await launchBrowser();
 }, 120_000);
 
@@ -83,7 +179,9 @@ describe("stored HTML", () => {
     let showingText = 0;
     for (const [who, path] of pages) {
       const context = await browser.newContext({ viewport: DESKTOP });
-      await context.addCookies([{ name: SESSION_COOKIE, value: cookies[who].split("=").slice(1).join("="), url: BASE }]);
+      await context.addCookies([
+        { name: SESSION_COOKIE, value: cookies[who].split("=").slice(1).join("="), url: BASE },
+      ]);
       const page = await context.newPage();
       let dialogs = 0;
       page.on("dialog", (d) => {
@@ -95,14 +193,30 @@ describe("stored HTML", () => {
         pwned: (window as unknown as { __pwned?: number }).__pwned ?? null,
         images: document.querySelectorAll('img[src="x"]').length,
         svgs: document.querySelectorAll("svg[onload]").length,
-        scripts: [...document.querySelectorAll("script")].filter((s) => (s.textContent ?? "").includes("window.__pwned=") && !(s.textContent ?? "").startsWith("self.__next_f")).length,
+        scripts: [...document.querySelectorAll("script")].filter(
+          (s) =>
+            (s.textContent ?? "").includes("window.__pwned=") &&
+            !(s.textContent ?? "").startsWith("self.__next_f"),
+        ).length,
         text: document.body.innerText.includes("<img src=x"),
       }));
       if (found.text) showingText++;
-      if (!res?.ok() || found.pwned !== null || found.images || found.svgs || found.scripts || dialogs) problems.push(`${who} ${path}: status ${res?.status()}, ${JSON.stringify(found)}, dialogs ${dialogs}`);
+      if (
+        !res?.ok() ||
+        found.pwned !== null ||
+        found.images ||
+        found.svgs ||
+        found.scripts ||
+        dialogs
+      )
+        problems.push(
+          `${who} ${path}: status ${res?.status()}, ${JSON.stringify(found)}, dialogs ${dialogs}`,
+        );
       await context.close();
     }
-    console.log(`stored HTML: ${pages.length} pages loaded as their readers, ${showingText} show the markup as text; ran or became elements on ${problems.length} pages`);
+    console.log(
+      `stored HTML: ${pages.length} pages loaded as their readers, ${showingText} show the markup as text; ran or became elements on ${problems.length} pages`,
+    );
     expect(problems).toEqual([]);
     expect(showingText).toBeGreaterThanOrEqual(12);
   }, 180_000);
@@ -110,13 +224,19 @@ describe("stored HTML", () => {
   it("is escaped in the visit-report e-mail, and plain in its text part", async () => {
     let mail: Awaited<ReturnType<typeof readInbox>>[number] | undefined;
     for (let i = 0; i < 100 && !mail; i++) {
-      mail = (await readInbox(MAIL_DIR)).find((m) => m.to.includes(t.ownerEmail) && /visit report/i.test(m.subject));
+      mail = (await readInbox(MAIL_DIR)).find(
+        (m) => m.to.includes(t.ownerEmail) && /visit report/i.test(m.subject),
+      );
       if (!mail) await new Promise((r) => setTimeout(r, 200));
     }
     expect(mail, "the report e-mail arrives").toBeDefined();
     const html = mail!.html;
-    const raw = [/<img[^>]*src=["']?x/i, /<script>window/i, /<svg[^>]*onload/i].filter((re) => re.test(html));
-    console.log(`stored HTML: report e-mail — raw markup found ${raw.length}, escaped copies ${(html.match(/&lt;img/g) ?? []).length}; subject ${JSON.stringify(mail!.subject.slice(0, 60))}…`);
+    const raw = [/<img[^>]*src=["']?x/i, /<script>window/i, /<svg[^>]*onload/i].filter((re) =>
+      re.test(html),
+    );
+    console.log(
+      `stored HTML: report e-mail — raw markup found ${raw.length}, escaped copies ${(html.match(/&lt;img/g) ?? []).length}; subject ${JSON.stringify(mail!.subject.slice(0, 60))}…`,
+    );
     expect(raw).toEqual([]);
     expect(html).toContain("&lt;img");
     expect(mail!.text).toContain("<img src=x"); // the text part shows what was typed, as text

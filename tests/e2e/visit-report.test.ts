@@ -2,7 +2,8 @@
 // photos, the matching care notes with their safety cautions; nothing of another lawn.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DESKTOP, PHONE, launchBrowser, signIn } from "../helpers/browser";
+
+import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -23,8 +24,16 @@ describe("visit report", () => {
     await page.getByRole("list", { name: "Visit reports" }).getByRole("link").first().click();
     await page.waitForURL(/\/my-lawn\/visits\//);
     await page.getByRole("heading", { level: 1, name: /Haddad residence/ }).waitFor();
-    expect(await page.getByText(/Mowing: cut at 2\.5 in, mowed the same way as last time, grass matted and laid over\./).count()).toBe(1);
-    const note = page.getByRole("listitem").filter({ has: page.getByRole("heading", { name: "Change the mowing direction every few mowings" }) });
+    expect(
+      await page
+        .getByText(
+          /Mowing: cut at 2\.5 in, mowed the same way as last time, grass matted and laid over\./,
+        )
+        .count(),
+    ).toBe(1);
+    const note = page.getByRole("listitem").filter({
+      has: page.getByRole("heading", { name: "Change the mowing direction every few mowings" }),
+    });
     await note.waitFor();
     expect(await note.innerText()).toMatch(/Mower safety/);
     expect(await page.locator('ul[aria-label^="Photos of"] img').count()).toBeGreaterThan(0);

@@ -6,12 +6,21 @@ export function ensureChromium(path = process.env.CHROMIUM_PATH ?? "/usr/bin/chr
   if (existsSync(path)) return path;
   const isRoot = process.getuid?.() === 0;
   if (!isRoot) {
-    throw new Error(`Chromium not found at ${path}. Install it with: sudo apt-get install chromium (or set CHROMIUM_PATH).`);
+    throw new Error(
+      `Chromium not found at ${path}. Install it with: sudo apt-get install chromium (or set CHROMIUM_PATH).`,
+    );
   }
   console.log("setup: installing Debian's chromium package (apt-get)…");
-  execFileSync("sh", ["-c", "apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null"], {
-    stdio: "inherit",
-  });
+  execFileSync(
+    "sh",
+    [
+      "-c",
+      "apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null",
+    ],
+    {
+      stdio: "inherit",
+    },
+  );
   if (!existsSync(path)) throw new Error(`apt-get finished but ${path} is still missing.`);
   return path;
 }

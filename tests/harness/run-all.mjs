@@ -3,6 +3,7 @@
 // it again afterwards. Prints a summary with timings and a closing "N passed, N failed" line.
 import { spawnSync } from "node:child_process";
 import { mkdirSync, readFileSync, rmSync } from "node:fs";
+
 import { ensureChromium } from "./chromium.mjs";
 
 process.chdir(new URL("../..", import.meta.url).pathname);
@@ -24,7 +25,11 @@ function step(name, command, args, { parse } = {}) {
 function vitestCounts(file) {
   try {
     const report = JSON.parse(readFileSync(file, "utf8"));
-    return { passed: report.numPassedTests, failed: report.numFailedTests, skipped: report.numPendingTests + report.numTodoTests };
+    return {
+      passed: report.numPassedTests,
+      failed: report.numFailedTests,
+      skipped: report.numPendingTests + report.numTodoTests,
+    };
   } catch {
     return undefined;
   }
@@ -33,16 +38,31 @@ function vitestCounts(file) {
 function vitest(project) {
   const output = `${artifacts}/vitest-${project}.json`;
   rmSync(output, { force: true });
-  return step(project, "node_modules/.bin/vitest", ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${output}`], {
-    parse: () => vitestCounts(output),
-  });
+  return step(
+    project,
+    "node_modules/.bin/vitest",
+    [
+      "run",
+      "--project",
+      project,
+      "--reporter=default",
+      "--reporter=json",
+      `--outputFile.json=${output}`,
+    ],
+    {
+      parse: () => vitestCounts(output),
+    },
+  );
 }
 
 ensureChromium();
 const wasRunning = spawnSync("sh", ["db/cluster.sh", "status"], { stdio: "ignore" }).status === 0;
 let ok = step("database", "sh", ["db/cluster.sh", "start"]);
 try {
-  ok &&= step("typecheck", "sh", ["-c", "node_modules/.bin/next typegen >/dev/null && node_modules/.bin/tsc --noEmit"]);
+  ok &&= step("typecheck", "sh", [
+    "-c",
+    "node_modules/.bin/next typegen >/dev/null && node_modules/.bin/tsc --noEmit",
+  ]);
   ok &&= step("lint", "node_modules/.bin/eslint", ["--max-warnings", "0", "."]);
   ok &&= vitest("unit");
   ok &&= vitest("integration");
@@ -57,7 +77,9 @@ let passed = 0;
 let failed = 0;
 for (const s of steps) {
   const counts = s.counts ? `  ${s.counts.passed} passed, ${s.counts.failed} failed` : "";
-  console.log(`${s.ok ? "✓" : "✗"} ${s.name.padEnd(12)} ${s.seconds.toFixed(1).padStart(6)} s${counts}`);
+  console.log(
+    `${s.ok ? "✓" : "✗"} ${s.name.padEnd(12)} ${s.seconds.toFixed(1).padStart(6)} s${counts}`,
+  );
   if (s.counts) {
     passed += s.counts.passed;
     failed += s.counts.failed;

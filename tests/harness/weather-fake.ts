@@ -1,6 +1,7 @@
 // The local fake weather service (demo and tests): serves lib/services/weather/contract.ts on
 // 127.0.0.1 from deterministic data. `tsx tests/harness/weather-fake.ts [port]`.
 import http from "node:http";
+
 import { addDays, todayIn } from "@/lib/dates";
 import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 
@@ -17,10 +18,18 @@ export function startFakeWeather(port: number): Promise<http.Server> {
     const lon = Number(url.searchParams.get("lon"));
     const start = url.searchParams.get("start") ?? "";
     const end = url.searchParams.get("end") ?? "";
-    if (!Number.isFinite(lat) || !Number.isFinite(lon) || !/^\d{4}-\d{2}-\d{2}$/.test(start) || !/^\d{4}-\d{2}-\d{2}$/.test(end) || end < start) return send(422, { error: "bad query" });
+    if (
+      !Number.isFinite(lat) ||
+      !Number.isFinite(lon) ||
+      !/^\d{4}-\d{2}-\d{2}$/.test(start) ||
+      !/^\d{4}-\d{2}-\d{2}$/.test(end) ||
+      end < start
+    )
+      return send(422, { error: "bad query" });
     const today = todayIn("UTC");
     const days = [];
-    for (let d = start; d <= end && days.length < 800; d = addDays(d, 1)) days.push(fakeWeatherDay(lat, lon, d, today));
+    for (let d = start; d <= end && days.length < 800; d = addDays(d, 1))
+      days.push(fakeWeatherDay(lat, lon, d, today));
     send(200, { location: { lat, lon }, days });
   });
   return new Promise((resolve) => server.listen(port, "127.0.0.1", () => resolve(server)));

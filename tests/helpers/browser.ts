@@ -1,5 +1,6 @@
 // Chromium for e2e tests: Debian's /usr/bin/chromium driven by playwright-core.
-import { type Browser, type Page, chromium } from "playwright-core";
+import { chromium, type Browser, type Page } from "playwright-core";
+
 import { DEMO_PASSWORD } from "@/fixtures/demo-scenario";
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -23,7 +24,12 @@ export function launchBrowser(): Promise<Browser> {
 export const PHONE = { width: 390, height: 844 };
 export const DESKTOP = { width: 1280, height: 900 };
 
-export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
+export async function signIn(
+  page: Page,
+  baseUrl: string,
+  email: string,
+  password = DEMO_PASSWORD,
+): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel("E-mail", { exact: true }).fill(email);
   await page.getByLabel("Password", { exact: true }).fill(password);

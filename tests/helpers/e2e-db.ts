@@ -13,7 +13,10 @@ export function useE2eDatabase(): void {
 
 /** A `cookie` header value holding a fresh session of this user. */
 export async function mintSessionCookie(userId: string, maxAgeSeconds = 3600): Promise<string> {
-  const [{ createAuthSession }, { encode }] = await Promise.all([import("@/lib/auth/queries"), import("next-auth/jwt")]);
+  const [{ createAuthSession }, { encode }] = await Promise.all([
+    import("@/lib/auth/queries"),
+    import("next-auth/jwt"),
+  ]);
   const sid = await createAuthSession(userId, maxAgeSeconds);
   return `${SESSION_COOKIE}=${await encode({ token: { sid }, secret: process.env.AUTH_SECRET!, salt: SESSION_COOKIE, maxAge: maxAgeSeconds })}`;
 }

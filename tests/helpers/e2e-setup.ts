@@ -1,13 +1,14 @@
 // E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
 // on 127.0.0.1, with the local fake weather and SMTP services beside it. Builds first when no build
 // exists or a source changed. Stops what it started afterwards (the server by its PID).
-import { type ChildProcess, spawn } from "node:child_process";
+import { spawn, type ChildProcess } from "node:child_process";
 import { openSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
+
 import { startSmtpFake } from "../harness/smtp-fake";
 import { isBuildStale } from "./build";
-import { TSX, run, waitForUrl } from "./processes";
+import { run, TSX, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 const MAIL_DIR = path.resolve("tests/.artifacts/mail-e2e");
@@ -23,32 +24,41 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await run(TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
   await run(TSX, ["db/migrate.ts"], { DATABASE_URL: databaseUrl });
   await run(TSX, ["db/seed.ts"], { DATABASE_URL: databaseUrl, PHOTO_DIR });
-  if (isBuildStale()) await run("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
+  if (isBuildStale())
+    await run("node", ["node_modules/next/dist/bin/next", "build"], {
+      NEXT_TELEMETRY_DISABLED: "1",
+    });
 
   const baseUrl = `http://localhost:${PORT}`;
   const weatherPort = PORT + 1;
-  weather = spawn(TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], { stdio: ["ignore", "ignore", "inherit"] });
+  weather = spawn(TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], {
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
   rmSync(MAIL_DIR, { recursive: true, force: true });
   const smtp = await startSmtpFake(0, MAIL_DIR);
   // The server's JSON log lines go to a file the log test reads (tests/e2e/security-logs.test.ts).
   const logFile = openSync(SERVER_LOG, "w");
-  server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)], {
-    stdio: ["ignore", logFile, "inherit"],
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      NEXT_TELEMETRY_DISABLED: "1",
-      DATABASE_URL: databaseUrl,
-      AUTH_SECRET,
-      AUTH_URL: baseUrl,
-      LOG_LEVEL: "info",
-      PHOTO_DIR,
-      WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
-      SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
-      MAIL_INBOX_DIR: MAIL_DIR,
+  server = spawn(
+    "node",
+    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
+    {
+      stdio: ["ignore", logFile, "inherit"],
+      env: {
+        ...process.env,
+        NODE_ENV: "production",
+        NEXT_TELEMETRY_DISABLED: "1",
+        DATABASE_URL: databaseUrl,
+        AUTH_SECRET,
+        AUTH_URL: baseUrl,
+        LOG_LEVEL: "info",
+        PHOTO_DIR,
+        WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
+        SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
+        MAIL_INBOX_DIR: MAIL_DIR,
+      },
     },
-  });
+  );
   await waitForUrl(`${baseUrl}/sign-in`, 30_000);
   project.provide("baseUrl", baseUrl);
   project.provide("mailDir", MAIL_DIR);

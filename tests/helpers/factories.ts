@@ -2,10 +2,11 @@
 // demo scenario's shape, through the same seed function the demo uses.
 import { randomUUID } from "node:crypto";
 import type { Kysely } from "kysely";
+
 import { createDb } from "@/db/client";
 import type { Database } from "@/db/schema";
-import { type SeededCompany, seedCompany } from "@/db/seed-scenario";
-import { type ScenarioCompany, demoCompany } from "@/fixtures/demo-scenario";
+import { seedCompany, type SeededCompany } from "@/db/seed-scenario";
+import { demoCompany, type ScenarioCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { createAuthSession, findActorBySession } from "@/lib/auth/queries";
 

@@ -5,7 +5,14 @@ import sharp from "sharp";
 export { lawnImage } from "@/fixtures/demo-photos";
 
 /** RGB image whose first `greenFraction` of rows are `green` and the rest `soil`. */
-export async function stripedImage(width: number, height: number, greenFraction: number, green: [number, number, number], soil: [number, number, number], format: "png" | "jpeg" = "png"): Promise<Buffer> {
+export async function stripedImage(
+  width: number,
+  height: number,
+  greenFraction: number,
+  green: [number, number, number],
+  soil: [number, number, number],
+  format: "png" | "jpeg" = "png",
+): Promise<Buffer> {
   const data = Buffer.alloc(width * height * 3);
   const greenRows = Math.round(height * greenFraction);
   for (let y = 0; y < height; y++) {
@@ -22,16 +29,32 @@ export async function stripedImage(width: number, height: number, greenFraction:
 }
 
 export async function uniformImage(rgb: [number, number, number], size = 64): Promise<Buffer> {
-  return sharp({ create: { width: size, height: size, channels: 3, background: { r: rgb[0], g: rgb[1], b: rgb[2] } } }).png().toBuffer();
+  return sharp({
+    create: {
+      width: size,
+      height: size,
+      channels: 3,
+      background: { r: rgb[0], g: rgb[1], b: rgb[2] },
+    },
+  })
+    .png()
+    .toBuffer();
 }
 
 /** A JPEG carrying camera EXIF: capture time and GPS (a point in the demo's region). */
 export async function jpegWithGps(): Promise<Buffer> {
-  return sharp({ create: { width: 640, height: 480, channels: 3, background: { r: 60, g: 125, b: 45 } } })
+  return sharp({
+    create: { width: 640, height: 480, channels: 3, background: { r: 60, g: 125, b: 45 } },
+  })
     .withExif({
       IFD0: { Make: "Testcam", Model: "Field 1" },
       IFD2: { DateTimeOriginal: "2026:06:14 09:31:05" },
-      IFD3: { GPSLatitudeRef: "N", GPSLatitude: "40/1 20/1 300/100", GPSLongitudeRef: "W", GPSLongitude: "74/1 44/1 2000/100" },
+      IFD3: {
+        GPSLatitudeRef: "N",
+        GPSLatitude: "40/1 20/1 300/100",
+        GPSLongitudeRef: "W",
+        GPSLongitude: "74/1 44/1 2000/100",
+      },
     })
     .jpeg()
     .toBuffer();
@@ -67,5 +90,10 @@ export function pixelFloodPng(width: number, height: number): Buffer {
   // Only the first rows are real; the image is cut short, which is enough for a header check
   // and for a decoder that would try to allocate the whole canvas.
   const idat = deflateSync(rows);
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", ihdr), chunk("IDAT", idat), chunk("IEND", Buffer.alloc(0))]);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", ihdr),
+    chunk("IDAT", idat),
+    chunk("IEND", Buffer.alloc(0)),
+  ]);
 }

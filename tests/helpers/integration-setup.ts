@@ -1,5 +1,5 @@
 // Integration suite: a freshly created and migrated database (sward_test) on the local cluster.
-import { TSX, run } from "./processes";
+import { run, TSX } from "./processes";
 
 export default async function setup(): Promise<void> {
   await run("sh", ["db/cluster.sh", "start"]);

@@ -10,7 +10,11 @@ export interface PasswordSignIn {
   csrfToken: string;
 }
 
-export async function passwordSignIn(base: string, email: string, password: string): Promise<PasswordSignIn> {
+export async function passwordSignIn(
+  base: string,
+  email: string,
+  password: string,
+): Promise<PasswordSignIn> {
   const jar = new Map<string, string>();
   const keep = (res: Response) => {
     for (const c of res.headers.getSetCookie()) {
@@ -26,11 +30,16 @@ export async function passwordSignIn(base: string, email: string, password: stri
   const res = await fetch(`${base}/api/auth/callback/credentials`, {
     method: "POST",
     redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: header(), origin: base },
+    headers: {
+      "content-type": "application/x-www-form-urlencoded",
+      cookie: header(),
+      origin: base,
+    },
     body: new URLSearchParams({ csrfToken, email, password, callbackUrl: "/" }),
   });
   keep(res);
   await res.arrayBuffer();
-  const sessionToken = jar.get("authjs.session-token") ?? jar.get("__Secure-authjs.session-token") ?? "";
+  const sessionToken =
+    jar.get("authjs.session-token") ?? jar.get("__Secure-authjs.session-token") ?? "";
   return { status: res.status, cookie: header(), sessionToken, csrfToken };
 }

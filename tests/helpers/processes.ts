@@ -1,11 +1,22 @@
 // Small process helpers for test setup: run a command to completion, wait for a URL.
 import { spawn } from "node:child_process";
 
-export function run(command: string, args: string[], env: Record<string, string> = {}): Promise<void> {
+export function run(
+  command: string,
+  args: string[],
+  env: Record<string, string> = {},
+): Promise<void> {
   return new Promise((resolve, reject) => {
-    const child = spawn(command, args, { stdio: ["ignore", "inherit", "inherit"], env: { ...process.env, ...env } });
+    const child = spawn(command, args, {
+      stdio: ["ignore", "inherit", "inherit"],
+      env: { ...process.env, ...env },
+    });
     child.on("error", reject);
-    child.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${command} ${args.join(" ")} exited with ${code}`))));
+    child.on("exit", (code) =>
+      code === 0
+        ? resolve()
+        : reject(new Error(`${command} ${args.join(" ")} exited with ${code}`)),
+    );
   });
 }
 

@@ -5,7 +5,7 @@
 // columns; indexes, constraints, triggers, row-level policies, sequences, views, functions, types)
 // and the database's extensions. Kysely's own bookkeeping tables are left out; objects that belong
 // to an extension are listed under the extension, not one by one.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export type SchemaFingerprint = Record<string, string>;
 
@@ -102,7 +102,14 @@ export async function schemaFingerprint(db: Kysely<unknown>): Promise<SchemaFing
  * compared as it is.
  */
 export function withoutCheckParentheses(print: SchemaFingerprint): SchemaFingerprint {
-  return Object.fromEntries(Object.entries(print).map(([key, def]) => [key, key.startsWith("constraint ") && def.startsWith("c CHECK") ? def.replace(/[()\s]+/g, " ") : def]));
+  return Object.fromEntries(
+    Object.entries(print).map(([key, def]) => [
+      key,
+      key.startsWith("constraint ") && def.startsWith("c CHECK")
+        ? def.replace(/[()\s]+/g, " ")
+        : def,
+    ]),
+  );
 }
 
 /** The entries that differ, as readable lines ("- key: def" was, "+ key: def" is). */
@@ -120,6 +127,7 @@ export function fingerprintDiff(before: SchemaFingerprint, after: SchemaFingerpr
 export function tablesOf(key: string): string[] {
   const [kind, name = ""] = key.split(" ", 2);
   if (kind === "relation" || kind === "view") return [name];
-  if (["column", "index", "constraint", "trigger", "policy"].includes(kind ?? "")) return [name.split(".")[0] ?? ""];
+  if (["column", "index", "constraint", "trigger", "policy"].includes(kind ?? ""))
+    return [name.split(".")[0] ?? ""];
   return [];
 }

@@ -1,7 +1,7 @@
 // Per-table row counts and content checksums of every table in the public schema, for tests that
 // must prove data survived (a migration's round trip, a backup and its restore). The checksum is
 // the md5 of every row as text in a stable order, so equal checksums mean equal contents.
-import { type Kysely, sql } from "kysely";
+import { sql, type Kysely } from "kysely";
 
 export type TableData = Record<string, { rows: number; checksum: string }>;
 
@@ -26,16 +26,32 @@ export async function tableData(db: Kysely<unknown>): Promise<TableData> {
  */
 export async function fillEmptyTables(db: Kysely<unknown>): Promise<void> {
   await sql`insert into audit_events (company_id, entity, entity_id, action, changes)
-            select id, 'company', id, 'checked', ${JSON.stringify({ note: 'a "quoted" value' })}::jsonb from companies`.execute(db);
+            select id, 'company', id, 'checked', ${JSON.stringify({ note: 'a "quoted" value' })}::jsonb from companies`.execute(
+    db,
+  );
   await sql`insert into mail_outbox (company_id, kind, dedupe_key, to_address, subject, text_body, html_body)
-            select id, 'check', 'check:' || id, 'check@example.test', 'Check', 'text', '<p>html</p>' from companies`.execute(db);
-  await sql`insert into sign_in_attempts (email_key, address, succeeded) values ('check@example.test', '127.0.0.1', false)`.execute(db);
-  await sql`insert into sign_in_link_requests (email_key, address) values ('check@example.test', '127.0.0.1')`.execute(db);
-  await sql`insert into auth_sessions (id, user_id, expires_at) select 'check-' || id, id, now() + interval '1 day' from users`.execute(db);
-  await sql`insert into auth_accounts (user_id, type, provider, provider_account_id) select id, 'email', 'check', id::text from users order by email limit 1`.execute(db);
-  await sql`insert into verification_tokens (identifier, token, expires) values ('check@example.test', 'check-token', now() + interval '15 minutes')`.execute(db);
-  await sql`insert into weather_days (cell, day, tmax_c, tmin_c, precip_mm) values ('40.7:-74.0', date '2026-06-01', 27.5, 16.0, 3.2)`.execute(db);
-  await sql`update properties set notes = ${"Gate code \"4471\"; dog's name: Ôscar\tback\\slash\nsecond line — 🌱"}
+            select id, 'check', 'check:' || id, 'check@example.test', 'Check', 'text', '<p>html</p>' from companies`.execute(
+    db,
+  );
+  await sql`insert into sign_in_attempts (email_key, address, succeeded) values ('check@example.test', '127.0.0.1', false)`.execute(
+    db,
+  );
+  await sql`insert into sign_in_link_requests (email_key, address) values ('check@example.test', '127.0.0.1')`.execute(
+    db,
+  );
+  await sql`insert into auth_sessions (id, user_id, expires_at) select 'check-' || id, id, now() + interval '1 day' from users`.execute(
+    db,
+  );
+  await sql`insert into auth_accounts (user_id, type, provider, provider_account_id) select id, 'email', 'check', id::text from users order by email limit 1`.execute(
+    db,
+  );
+  await sql`insert into verification_tokens (identifier, token, expires) values ('check@example.test', 'check-token', now() + interval '15 minutes')`.execute(
+    db,
+  );
+  await sql`insert into weather_days (cell, day, tmax_c, tmin_c, precip_mm) values ('40.7:-74.0', date '2026-06-01', 27.5, 16.0, 3.2)`.execute(
+    db,
+  );
+  await sql`update properties set notes = ${'Gate code "4471"; dog\'s name: Ôscar\tback\\slash\nsecond line — 🌱'}
              where id = (select id from properties order by name limit 1)`.execute(db);
 }
 
@@ -43,6 +59,8 @@ export async function fillEmptyTables(db: Kysely<unknown>): Promise<void> {
  *  bring these back too, or the next insert collides with a restored row. */
 export async function sequenceValues(db: Kysely<unknown>): Promise<Record<string, string>> {
   const { rows } = await sql<{ name: string; value: string | null }>`
-    select sequencename as name, last_value::text as value from pg_sequences where schemaname = 'public' order by 1`.execute(db);
+    select sequencename as name, last_value::text as value from pg_sequences where schemaname = 'public' order by 1`.execute(
+    db,
+  );
   return Object.fromEntries(rows.map((r) => [r.name, r.value ?? "never used"]));
 }

@@ -1,6 +1,7 @@
 // Builders for zone-check payloads in tests.
 import { randomUUID } from "node:crypto";
-import { type ZoneCheckInput, emptyZoneCheck } from "@/lib/visits/schemas";
+
+import { emptyZoneCheck, type ZoneCheckInput } from "@/lib/visits/schemas";
 
 export function doneCheck(zoneId: string, overrides: Partial<ZoneCheckInput> = {}): ZoneCheckInput {
   return {

@@ -6,11 +6,13 @@ import { mkdtemp } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { sendHighAlertDigests } from "@/lib/risk/digest";
 import { evaluateProperty } from "@/lib/risk/evaluate";
 import { smtpMailer } from "@/lib/services/mail";
+
 import { readInbox, startSmtpFake } from "../harness/smtp-fake";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let c: TestCompany;
 let dir = "";
@@ -19,7 +21,8 @@ const ours = async () => (await readInbox(dir)).filter((m) => m.to.includes(c.em
 
 beforeAll(async () => {
   c = await createTestCompany();
-  for (const id of Object.values(c.propertyIds)) await evaluateProperty(testDb(), c.companyId, id, { provider: null });
+  for (const id of Object.values(c.propertyIds))
+    await evaluateProperty(testDb(), c.companyId, id, { provider: null });
   dir = await mkdtemp(path.join(tmpdir(), "sward-mail-"));
   smtp = await startSmtpFake(0, dir);
 });
@@ -35,7 +38,9 @@ describe("high-severity alert digest", () => {
     expect(mails).toHaveLength(1);
     expect(mails[0]!.subject).toMatch(/^2 new high-severity alerts in Larkmoor Lawn Care/);
     expect(mails[0]!.text).toMatch(/Declining Index — Haddad residence, Larkfield \(Back yard\)/);
-    expect(mails[0]!.text).toMatch(/Declining Index — Kowalczyk residence, Cedar Ford \(Under the oaks\)/);
+    expect(mails[0]!.text).toMatch(
+      /Declining Index — Kowalczyk residence, Cedar Ford \(Under the oaks\)/,
+    );
     expect(mails[0]!.text).not.toMatch(/Torn tips/); // low severity: not in the digest
     expect(mails[0]!.html).toContain('href="http://localhost:3000/alerts?severity=high"');
     await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
@@ -43,13 +48,32 @@ describe("high-severity alert digest", () => {
   });
 
   it("SMTP down: the digest fails and keeps the alert pending; back up: exactly one copy", async () => {
-    const alert = await testDb().selectFrom("risk_alerts").select("id").where("company_id", "=", c.companyId).where("severity", "=", "high").executeTakeFirstOrThrow();
-    await testDb().updateTable("risk_alerts").set({ notified_at: null }).where("id", "=", alert.id).execute(); // as if newly raised
+    const alert = await testDb()
+      .selectFrom("risk_alerts")
+      .select("id")
+      .where("company_id", "=", c.companyId)
+      .where("severity", "=", "high")
+      .executeTakeFirstOrThrow();
+    await testDb()
+      .updateTable("risk_alerts")
+      .set({ notified_at: null })
+      .where("id", "=", alert.id)
+      .execute(); // as if newly raised
     const port = smtp.port;
     await smtp.close();
     const mailer = smtpMailer(`smtp://127.0.0.1:${port}`);
-    await expect(sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" })).rejects.toThrow();
-    expect((await testDb().selectFrom("risk_alerts").select("notified_at").where("id", "=", alert.id).executeTakeFirstOrThrow()).notified_at).toBeNull();
+    await expect(
+      sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" }),
+    ).rejects.toThrow();
+    expect(
+      (
+        await testDb()
+          .selectFrom("risk_alerts")
+          .select("notified_at")
+          .where("id", "=", alert.id)
+          .executeTakeFirstOrThrow()
+      ).notified_at,
+    ).toBeNull();
     smtp = await startSmtpFake(port, dir);
     await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
     await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });

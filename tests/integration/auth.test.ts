@@ -3,9 +3,11 @@
 // the database on every request (disable, role change and sign-out apply at once).
 import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
+
 import { checkCredentials } from "@/lib/auth/credentials";
 import { createAuthSession, deleteAuthSession, findActorBySession } from "@/lib/auth/queries";
-import { type TestCompany, TEST_PASSWORD, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, TEST_PASSWORD, testDb, type TestCompany } from "../helpers/factories";
 
 let company: TestCompany;
 let address = 0;
@@ -18,21 +20,43 @@ beforeAll(async () => {
 
 describe("checkCredentials", () => {
   it("accepts the right password, case-insensitive e-mail", async () => {
-    const result = await checkCredentials({ email: company.emails.tech1!.toUpperCase(), password: TEST_PASSWORD, address: nextAddress() });
+    const result = await checkCredentials({
+      email: company.emails.tech1!.toUpperCase(),
+      password: TEST_PASSWORD,
+      address: nextAddress(),
+    });
     expect(result).toEqual({ ok: true, userId: company.userIds.tech1 });
   });
 
   it("answers a wrong password and an unknown e-mail identically", async () => {
-    const wrong = await checkCredentials({ email: company.emails.tech2!, password: "nope-nope-nope", address: nextAddress() });
-    const unknown = await checkCredentials({ email: "ghost@test.sward.test", password: TEST_PASSWORD, address: nextAddress() });
+    const wrong = await checkCredentials({
+      email: company.emails.tech2!,
+      password: "nope-nope-nope",
+      address: nextAddress(),
+    });
+    const unknown = await checkCredentials({
+      email: "ghost@test.sward.test",
+      password: TEST_PASSWORD,
+      address: nextAddress(),
+    });
     expect(wrong).toEqual({ ok: false, reason: "invalid" });
     expect(unknown).toEqual(wrong);
   });
 
   it("refuses a disabled account with the same answer", async () => {
     const c = await createTestCompany();
-    await testDb().updateTable("users").set({ disabled_at: new Date() }).where("id", "=", c.userIds.owner2!).execute();
-    expect(await checkCredentials({ email: c.emails.owner2!, password: TEST_PASSWORD, address: nextAddress() })).toEqual({ ok: false, reason: "invalid" });
+    await testDb()
+      .updateTable("users")
+      .set({ disabled_at: new Date() })
+      .where("id", "=", c.userIds.owner2!)
+      .execute();
+    expect(
+      await checkCredentials({
+        email: c.emails.owner2!,
+        password: TEST_PASSWORD,
+        address: nextAddress(),
+      }),
+    ).toEqual({ ok: false, reason: "invalid" });
   });
 
   it("100 wrong passwords for one account: throttled after 5, even the right password then, and says so", async () => {
@@ -40,21 +64,33 @@ describe("checkCredentials", () => {
     const email = c.emails.owner3!;
     const outcomes: string[] = [];
     for (let i = 0; i < 100; i++) {
-      const r = await checkCredentials({ email, password: "wrong-guess-" + i, address: nextAddress() });
+      const r = await checkCredentials({
+        email,
+        password: "wrong-guess-" + i,
+        address: nextAddress(),
+      });
       outcomes.push(r.ok ? "ok" : r.reason);
     }
     const throttledFrom = outcomes.indexOf("throttled");
     expect(throttledFrom).toBe(5); // SIGN_IN_MAX_PER_ACCOUNT in vitest.config.ts
     expect(outcomes.slice(throttledFrom).every((o) => o === "throttled")).toBe(true);
     expect(outcomes).not.toContain("ok");
-    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() })).toEqual({ ok: false, reason: "throttled" });
-    console.log(`throttle: 100 wrong passwords for one account (each from a new address): refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled, 0 accepted`);
+    expect(
+      await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
+    ).toEqual({ ok: false, reason: "throttled" });
+    console.log(
+      `throttle: 100 wrong passwords for one account (each from a new address): refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled, 0 accepted`,
+    );
   });
 
   it("throttles an unknown e-mail the same way (no hint that it does not exist)", async () => {
     const outcomes: string[] = [];
     for (let i = 0; i < 6; i++) {
-      const r = await checkCredentials({ email: "nobody-here@test.sward.test", password: "x-" + i, address: nextAddress() });
+      const r = await checkCredentials({
+        email: "nobody-here@test.sward.test",
+        password: "x-" + i,
+        address: nextAddress(),
+      });
       outcomes.push(r.ok ? "ok" : r.reason);
     }
     expect(outcomes.at(-1)).toBe("throttled");
@@ -65,25 +101,52 @@ describe("checkCredentials", () => {
     const from = nextAddress();
     const outcomes: string[] = [];
     for (let i = 0; i < 100; i++) {
-      const r = await checkCredentials({ email: `spray-${i}@test.sward.test`, password: "x", address: from });
+      const r = await checkCredentials({
+        email: `spray-${i}@test.sward.test`,
+        password: "x",
+        address: from,
+      });
       outcomes.push(r.ok ? "ok" : r.reason);
     }
     const throttledFrom = outcomes.indexOf("throttled");
     expect(throttledFrom).toBe(20); // SIGN_IN_MAX_PER_ADDRESS in vitest.config.ts
     expect(outcomes.slice(throttledFrom).every((o) => o === "throttled")).toBe(true);
     // The right password from that address is refused too; another address is unaffected.
-    expect(await checkCredentials({ email: company.emails.manager!, password: TEST_PASSWORD, address: from })).toEqual({ ok: false, reason: "throttled" });
-    expect(await checkCredentials({ email: company.emails.manager!, password: TEST_PASSWORD, address: nextAddress() })).toMatchObject({ ok: true });
-    console.log(`throttle: 100 wrong passwords from one address across 100 e-mails: refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled`);
+    expect(
+      await checkCredentials({
+        email: company.emails.manager!,
+        password: TEST_PASSWORD,
+        address: from,
+      }),
+    ).toEqual({ ok: false, reason: "throttled" });
+    expect(
+      await checkCredentials({
+        email: company.emails.manager!,
+        password: TEST_PASSWORD,
+        address: nextAddress(),
+      }),
+    ).toMatchObject({ ok: true });
+    console.log(
+      `throttle: 100 wrong passwords from one address across 100 e-mails: refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled`,
+    );
   });
 
   it("failures older than the window no longer count", async () => {
     const c = await createTestCompany();
     const email = c.emails.tech2!;
-    for (let i = 0; i < 5; i++) await checkCredentials({ email, password: "bad", address: nextAddress() });
-    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() })).toEqual({ ok: false, reason: "throttled" });
-    await testDb().updateTable("sign_in_attempts").set({ attempted_at: sql<Date>`now() - interval '16 minutes'` }).where("email_key", "=", email).execute();
-    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() })).toMatchObject({ ok: true });
+    for (let i = 0; i < 5; i++)
+      await checkCredentials({ email, password: "bad", address: nextAddress() });
+    expect(
+      await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
+    ).toEqual({ ok: false, reason: "throttled" });
+    await testDb()
+      .updateTable("sign_in_attempts")
+      .set({ attempted_at: sql<Date>`now() - interval '16 minutes'` })
+      .where("email_key", "=", email)
+      .execute();
+    expect(
+      await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
+    ).toMatchObject({ ok: true });
   });
 
   it("timing does not reveal whether an e-mail exists", async () => {
@@ -101,7 +164,9 @@ describe("checkCredentials", () => {
     }
     const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
     const gap = Math.abs(median(known) - median(unknown));
-    console.log(`timing: wrong password for an existing e-mail, median ${median(known).toFixed(1)} ms; for an unknown e-mail ${median(unknown).toFixed(1)} ms; median gap ${gap.toFixed(1)} ms (16 each)`);
+    console.log(
+      `timing: wrong password for an existing e-mail, median ${median(known).toFixed(1)} ms; for an unknown e-mail ${median(unknown).toFixed(1)} ms; median gap ${gap.toFixed(1)} ms (16 each)`,
+    );
     // Both paths run one Argon2id verification (~tens of ms); a missing account must not be a fast path.
     expect(median(unknown)).toBeGreaterThan(median(known) * 0.5);
   });
@@ -110,21 +175,34 @@ describe("checkCredentials", () => {
 describe("sessions and the actor", () => {
   it("resolves the actor with company and role from the database", async () => {
     const actor = await findActorBySession(await createAuthSession(company.userIds.tech1!, 60));
-    expect(actor).toMatchObject({ userId: company.userIds.tech1, companyId: company.companyId, role: "technician", companyName: company.scenario.name });
+    expect(actor).toMatchObject({
+      userId: company.userIds.tech1,
+      companyId: company.companyId,
+      role: "technician",
+      companyName: company.scenario.name,
+    });
   });
 
   it("a changed role applies on the next lookup", async () => {
     const c = await createTestCompany();
     const sid = await createAuthSession(c.userIds.tech2!, 60);
     expect((await findActorBySession(sid))?.role).toBe("technician");
-    await testDb().updateTable("memberships").set({ role: "homeowner" }).where("user_id", "=", c.userIds.tech2!).execute();
+    await testDb()
+      .updateTable("memberships")
+      .set({ role: "homeowner" })
+      .where("user_id", "=", c.userIds.tech2!)
+      .execute();
     expect((await findActorBySession(sid))?.role).toBe("homeowner");
   });
 
   it("a disabled user, a deleted (signed-out) session and an expired session resolve to nobody", async () => {
     const c = await createTestCompany();
     const disabledSid = await createAuthSession(c.userIds.owner1!, 60);
-    await testDb().updateTable("users").set({ disabled_at: new Date() }).where("id", "=", c.userIds.owner1!).execute();
+    await testDb()
+      .updateTable("users")
+      .set({ disabled_at: new Date() })
+      .where("id", "=", c.userIds.owner1!)
+      .execute();
     expect(await findActorBySession(disabledSid)).toBeUndefined();
 
     const signedOut = await createAuthSession(c.userIds.manager!, 60);
@@ -132,13 +210,21 @@ describe("sessions and the actor", () => {
     expect(await findActorBySession(signedOut)).toBeUndefined();
 
     const expired = await createAuthSession(c.userIds.tech1!, 60);
-    await testDb().updateTable("auth_sessions").set({ expires_at: new Date(Date.now() - 1000) }).where("id", "=", expired).execute();
+    await testDb()
+      .updateTable("auth_sessions")
+      .set({ expires_at: new Date(Date.now() - 1000) })
+      .where("id", "=", expired)
+      .execute();
     expect(await findActorBySession(expired)).toBeUndefined();
   });
 
   it("stores Argon2id hashes at or above the OWASP minimum (19 MiB, t=2, p=1)", async () => {
     // Source: OWASP Password Storage Cheat Sheet, Argon2id minimum configuration.
-    const row = await testDb().selectFrom("users").select("password_hash").where("id", "=", company.userIds.manager!).executeTakeFirstOrThrow();
+    const row = await testDb()
+      .selectFrom("users")
+      .select("password_hash")
+      .where("id", "=", company.userIds.manager!)
+      .executeTakeFirstOrThrow();
     const match = /^\$argon2id\$v=19\$m=(\d+),t=(\d+),p=(\d+)\$/.exec(row.password_hash ?? "");
     expect(match).not.toBeNull();
     const [, m, t, p] = match!.map(Number);

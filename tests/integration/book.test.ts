@@ -4,18 +4,20 @@
 import { randomUUID } from "node:crypto";
 import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it, vi } from "vitest";
+
 import { otherCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { listBook, teamActivity } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 import { refreshPropertySummary } from "@/lib/book/summary";
+import { addDays, todayIn } from "@/lib/dates";
 import { createProperty, setPropertyArchived } from "@/lib/properties/mutations";
-import { todayIn, addDays } from "@/lib/dates";
 import { evaluateProperty } from "@/lib/risk/evaluate";
 import { resolveAlert } from "@/lib/risk/mutations";
 import { propertyScoreHistory } from "@/lib/scoring/queries";
 import { scheduleVisit } from "@/lib/visits/mutations";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
@@ -27,7 +29,8 @@ const today = todayIn("America/New_York");
 
 beforeAll(async () => {
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
-  for (const id of Object.values(c.propertyIds)) await evaluateProperty(testDb(), c.companyId, id, { provider: null });
+  for (const id of Object.values(c.propertyIds))
+    await evaluateProperty(testDb(), c.companyId, id, { provider: null });
 });
 
 describe("the book", () => {
@@ -35,7 +38,12 @@ describe("the book", () => {
     const { rows, total } = await listBook(await c.actor("manager"), q());
     expect(total).toBe(6);
     expect(rows[0]!.name).toBe("Haddad residence");
-    expect(rows[0]!.reasons).toEqual(expect.arrayContaining([expect.stringMatching(/^Declining \d+\.\d points \/ 30 days$/), "1 high alert"]));
+    expect(rows[0]!.reasons).toEqual(
+      expect.arrayContaining([
+        expect.stringMatching(/^Declining \d+\.\d points \/ 30 days$/),
+        "1 high alert",
+      ]),
+    );
     const scores = rows.map((r) => r.attentionScore);
     expect(scores).toEqual([...scores].sort((a, b) => b - a));
     expect(rows.find((r) => r.name === "Oyelaran residence")!.nYtdLb).toBeCloseTo(3.9, 2); // five feedings in the demo season
@@ -46,7 +54,8 @@ describe("the book", () => {
     const expected: string[] = [];
     for (const [key, id] of Object.entries(c.propertyIds)) {
       const h = await propertyScoreHistory(manager, id, { weather: false });
-      if (h.trend?.word === "declining") expected.push(c.scenario.properties.find((p) => p.key === key)!.name);
+      if (h.trend?.word === "declining")
+        expected.push(c.scenario.properties.find((p) => p.key === key)!.name);
     }
     const { rows } = await listBook(manager, q({ trend: "declining", limit: 100 }));
     expect(rows.map((r) => r.name).sort()).toEqual(expected.sort());
@@ -55,20 +64,46 @@ describe("the book", () => {
 
   it("filters by technician, alert kind and severity, text, and refuses other roles", async () => {
     const manager = await c.actor("manager");
-    expect((await listBook(manager, q({ technician: c.userIds["tech2"] }))).rows.map((r) => r.name).sort()).toEqual(["Brandvold residence", "Hollis Mill Commons (HOA green)", "Okafor residence"]);
-    expect((await listBook(manager, q({ kind: "torn_tips" }))).rows.map((r) => r.name)).toEqual(["Oyelaran residence"]);
-    expect((await listBook(manager, q({ severity: "high" }))).rows.map((r) => r.name).sort()).toEqual(["Haddad residence", "Kowalczyk residence"]);
-    expect((await listBook(manager, q({ q: "sedgefield" }))).rows.map((r) => r.name)).toEqual(["Haddad residence"]);
+    expect(
+      (await listBook(manager, q({ technician: c.userIds["tech2"] }))).rows
+        .map((r) => r.name)
+        .sort(),
+    ).toEqual(["Brandvold residence", "Hollis Mill Commons (HOA green)", "Okafor residence"]);
+    expect((await listBook(manager, q({ kind: "torn_tips" }))).rows.map((r) => r.name)).toEqual([
+      "Oyelaran residence",
+    ]);
+    expect(
+      (await listBook(manager, q({ severity: "high" }))).rows.map((r) => r.name).sort(),
+    ).toEqual(["Haddad residence", "Kowalczyk residence"]);
+    expect((await listBook(manager, q({ q: "sedgefield" }))).rows.map((r) => r.name)).toEqual([
+      "Haddad residence",
+    ]);
     expect((await listBook(manager, q({ q: "%" }))).rows).toEqual([]);
-    await expect(listBook(await c.actor("tech1"), q())).rejects.toMatchObject({ code: "forbidden" });
-    expect((await listBook(await other.actor("manager"), q())).rows.map((r) => r.name)).toEqual(["Aaland residence"]);
+    await expect(listBook(await c.actor("tech1"), q())).rejects.toMatchObject({
+      code: "forbidden",
+    });
+    expect((await listBook(await other.actor("manager"), q())).rows.map((r) => r.name)).toEqual([
+      "Aaland residence",
+    ]);
   });
 
   it("shows a property from the moment it is created, finds it by postal code or any case, and drops it when archived", async () => {
     const manager = await c.actor("manager");
     const before = (await listBook(manager, q())).total;
     // No visit, no refresh: the summary row comes with the property (a database trigger).
-    const created = await createProperty(manager, { name: "Quillfeather Cottage", street: "9 Brackenridge Row", city: "Larkfield", region: "NJ", postalCode: "08599", latitude: 40.3, longitude: -74.7, timeZone: "America/New_York", ruleSetId: null, technicianId: null, notes: "" });
+    const created = await createProperty(manager, {
+      name: "Quillfeather Cottage",
+      street: "9 Brackenridge Row",
+      city: "Larkfield",
+      region: "NJ",
+      postalCode: "08599",
+      latitude: 40.3,
+      longitude: -74.7,
+      timeZone: "America/New_York",
+      ruleSetId: null,
+      technicianId: null,
+      notes: "",
+    });
     expect((await listBook(manager, q())).total).toBe(before + 1);
     for (const text of ["QUILLFEATHER", "brackenridge", "08599"]) {
       const found = await listBook(manager, q({ q: text }));
@@ -76,7 +111,13 @@ describe("the book", () => {
       expect(found.total).toBe(1);
     }
     const row = (await listBook(manager, q({ q: "Quillfeather" }))).rows[0]!;
-    expect(row).toMatchObject({ lastVisitOn: null, latestIndex: null, trendWord: null, attentionScore: 0, alerts: { high: 0, moderate: 0, low: 0 } });
+    expect(row).toMatchObject({
+      lastVisitOn: null,
+      latestIndex: null,
+      trendWord: null,
+      attentionScore: 0,
+      alerts: { high: 0, moderate: 0, low: 0 },
+    });
     // The count of a view filtered on the summary agrees with its rows.
     const none = await listBook(manager, q({ trend: "none", limit: 100 }));
     expect(none.total).toBe(none.rows.length);
@@ -89,18 +130,37 @@ describe("the book", () => {
   it("keeps the summary current: a visit scheduled, an alert resolved", async () => {
     const manager = await c.actor("manager");
     const okafor = c.propertyIds["okafor"]!;
-    await scheduleVisit(manager, { id: randomUUID(), propertyId: okafor, scheduledFor: addDays(today, 9), technicianId: c.userIds["tech2"]!, plannedService: "inspection", stopOrder: 0, notes: "" });
+    await scheduleVisit(manager, {
+      id: randomUUID(),
+      propertyId: okafor,
+      scheduledFor: addDays(today, 9),
+      technicianId: c.userIds["tech2"]!,
+      plannedService: "inspection",
+      stopOrder: 0,
+      notes: "",
+    });
     const row = (await listBook(manager, q({ q: "Okafor" }))).rows[0]!;
     expect(row.nextVisitOn).toBe(addDays(today, 9));
-    const high = await testDb().selectFrom("risk_alerts").select("id").where("property_id", "=", c.propertyIds["kowalczyk"]!).where("severity", "=", "high").executeTakeFirstOrThrow();
-    await resolveAlert(manager, high.id, "Overseeded with shade-tolerant fescue; pruning the oaks.");
+    const high = await testDb()
+      .selectFrom("risk_alerts")
+      .select("id")
+      .where("property_id", "=", c.propertyIds["kowalczyk"]!)
+      .where("severity", "=", "high")
+      .executeTakeFirstOrThrow();
+    await resolveAlert(
+      manager,
+      high.id,
+      "Overseeded with shade-tolerant fescue; pruning the oaks.",
+    );
     expect((await listBook(manager, q({ q: "Kowalczyk" }))).rows[0]!.alerts.high).toBe(0);
   });
 
   it("keyset pages neither skip nor repeat rows while rows are added between pages", async () => {
     const manager = await c.actor("manager");
     for (const sort of ["attention", "name", "index", "next"] as const) {
-      const before = (await listBook(manager, q({ sort, limit: 100 }))).rows.map((r) => r.propertyId);
+      const before = (await listBook(manager, q({ sort, limit: 100 }))).rows.map(
+        (r) => r.propertyId,
+      );
       const seen: string[] = [];
       let after: string | undefined;
       let added = 0;
@@ -112,7 +172,17 @@ describe("the book", () => {
         // A property added between two pages (it may sort before or after the cursor).
         const { id } = await testDb()
           .insertInto("properties")
-          .values({ company_id: c.companyId, name: `${["Aardvark", "Mid", "Zephyr"][added % 3]} lot ${sort} ${added}`, street: "1 New Lane", city: "Larkfield", region: "NJ", postal_code: "08561", latitude: 40.33, longitude: -74.74, time_zone: "America/New_York" })
+          .values({
+            company_id: c.companyId,
+            name: `${["Aardvark", "Mid", "Zephyr"][added % 3]} lot ${sort} ${added}`,
+            street: "1 New Lane",
+            city: "Larkfield",
+            region: "NJ",
+            postal_code: "08561",
+            latitude: 40.33,
+            longitude: -74.74,
+            time_zone: "America/New_York",
+          })
           .returning("id")
           .executeTakeFirstOrThrow();
         await refreshPropertySummary(testDb(), c.companyId, id);
@@ -135,25 +205,57 @@ describe("the book", () => {
         table.push(...page.rows.map((r) => r.name));
         after = page.nextCursor ?? undefined;
       } while (after);
-      const res = await route.GET(new Request(`http://localhost/api/v1/book/export?${new URLSearchParams(view as Record<string, string>)}`));
+      const res = await route.GET(
+        new Request(
+          `http://localhost/api/v1/book/export?${new URLSearchParams(view as Record<string, string>)}`,
+        ),
+      );
       expect(res.status).toBe(200);
       expect(res.headers.get("content-type")).toContain("text/csv");
       const bytes = new Uint8Array(await res.arrayBuffer());
       expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]); // UTF-8 byte-order mark
-      const records = parse(new TextDecoder().decode(bytes), { columns: true }) as { property: string; last_visit: string }[];
+      const records = parse(new TextDecoder().decode(bytes), { columns: true }) as {
+        property: string;
+        last_visit: string;
+      }[];
       expect(records.map((r) => r.property)).toEqual(table);
-      for (const r of records) if (r.last_visit) expect(r.last_visit).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+      for (const r of records)
+        if (r.last_visit) expect(r.last_visit).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     }
   });
 
   it("neutralises formula-like cells in the CSV", async () => {
     current = await c.actor("manager");
-    const { id } = await testDb().insertInto("properties").values({ company_id: c.companyId, name: "=HYPERLINK(\"x\")", street: "+1 Plus Way", city: "-Minus", region: "NJ", postal_code: "08561", latitude: 40.33, longitude: -74.74, time_zone: "America/New_York" }).returning("id").executeTakeFirstOrThrow();
+    const { id } = await testDb()
+      .insertInto("properties")
+      .values({
+        company_id: c.companyId,
+        name: '=HYPERLINK("x")',
+        street: "+1 Plus Way",
+        city: "-Minus",
+        region: "NJ",
+        postal_code: "08561",
+        latitude: 40.33,
+        longitude: -74.74,
+        time_zone: "America/New_York",
+      })
+      .returning("id")
+      .executeTakeFirstOrThrow();
     await refreshPropertySummary(testDb(), c.companyId, id);
     const route = await import("@/app/api/v1/book/export/route");
-    const text = await (await route.GET(new Request("http://localhost/api/v1/book/export?q=HYPERLINK"))).text();
-    const [row] = parse(text, { columns: true }) as { property: string; street: string; city: string }[];
-    expect(row).toMatchObject({ property: "'=HYPERLINK(\"x\")", street: "'+1 Plus Way", city: "'-Minus" });
+    const text = await (
+      await route.GET(new Request("http://localhost/api/v1/book/export?q=HYPERLINK"))
+    ).text();
+    const [row] = parse(text, { columns: true }) as {
+      property: string;
+      street: string;
+      city: string;
+    }[];
+    expect(row).toMatchObject({
+      property: '\'=HYPERLINK("x")',
+      street: "'+1 Plus Way",
+      city: "'-Minus",
+    });
   });
 
   it("shows each technician's last eight weeks (managers only)", async () => {

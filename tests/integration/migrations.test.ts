@@ -6,11 +6,17 @@
 //   does not touch are kept;
 // - a migration made to fail changes nothing: not the schema, not the data, not the migration log.
 import { spawnSync } from "node:child_process";
-import { type Kysely, type Migration, type MigrationProvider, sql } from "kysely";
+import { sql, type Kysely, type Migration, type MigrationProvider } from "kysely";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { createDb, localDatabaseUrl } from "@/db/client";
 import { folderMigrations, runMigrations } from "@/db/migrator";
-import { type SchemaFingerprint, fingerprintDiff, schemaFingerprint, tablesOf } from "@/tests/helpers/schema-fingerprint";
+import {
+  fingerprintDiff,
+  schemaFingerprint,
+  tablesOf,
+  type SchemaFingerprint,
+} from "@/tests/helpers/schema-fingerprint";
 import { fillEmptyTables, tableData } from "@/tests/helpers/table-data";
 
 const SCRATCH = "sward_mig_check";
@@ -22,14 +28,19 @@ const tsx = (args: string[], env: Record<string, string> = {}) =>
 
 async function tables(): Promise<string[]> {
   const db = createDb(url, { max: 1 });
-  const { rows } = await sql<{ table_name: string }>`select table_name from information_schema.tables where table_schema = 'public' and table_name not like 'kysely_%' order by 1`.execute(db);
+  const { rows } = await sql<{
+    table_name: string;
+  }>`select table_name from information_schema.tables where table_schema = 'public' and table_name not like 'kysely_%' order by 1`.execute(
+    db,
+  );
   await db.destroy();
   return rows.map((r) => r.table_name);
 }
 
 async function dropDatabases(): Promise<void> {
   const admin = createDb(localDatabaseUrl("postgres"), { max: 1 });
-  for (const name of [SCRATCH, POPULATED]) await sql.raw(`drop database if exists ${name} with (force)`).execute(admin);
+  for (const name of [SCRATCH, POPULATED])
+    await sql.raw(`drop database if exists ${name} with (force)`).execute(admin);
   await admin.destroy();
 }
 
@@ -44,7 +55,16 @@ describe("db/migrate.ts", () => {
     const up = tsx(["db/migrate.ts"], { DATABASE_URL: url });
     expect(up.status, up.stderr).toBe(0);
     expect(up.stdout).toContain("applied");
-    expect(await tables()).toEqual(expect.arrayContaining(["companies", "users", "memberships", "verification_tokens", "properties", "zones"]));
+    expect(await tables()).toEqual(
+      expect.arrayContaining([
+        "companies",
+        "users",
+        "memberships",
+        "verification_tokens",
+        "properties",
+        "zones",
+      ]),
+    );
 
     const again = tsx(["db/migrate.ts"], { DATABASE_URL: url });
     expect(again.stdout).toContain("already up to date");
@@ -55,7 +75,9 @@ describe("db/migrate.ts", () => {
 
     const step = tsx(["db/migrate.ts", "up"], { DATABASE_URL: url });
     expect(step.status, step.stderr).toBe(0);
-    expect(step.stdout.trim().split("\n")).toEqual([expect.stringMatching(/^migrate: applied .*-foundation$/)]);
+    expect(step.stdout.trim().split("\n")).toEqual([
+      expect.stringMatching(/^migrate: applied .*-foundation$/),
+    ]);
 
     expect(tsx(["db/migrate.ts"], { DATABASE_URL: url }).status).toBe(0);
   }, 60_000);
@@ -77,7 +99,8 @@ describe("migrations on a populated database", () => {
   /** fingerprints[k]: the schema with the first k migrations applied, built up one step at a time. */
   const fingerprints: SchemaFingerprint[] = [];
 
-  const noExtensions = (print: SchemaFingerprint) => Object.fromEntries(Object.entries(print).filter(([key]) => !key.startsWith("extension ")));
+  const noExtensions = (print: SchemaFingerprint) =>
+    Object.fromEntries(Object.entries(print).filter(([key]) => !key.startsWith("extension ")));
   const step = async (direction: "up" | "down", provider?: MigrationProvider) => {
     const run = await runMigrations(db, direction, provider);
     expect(run.ok, run.lines.join("\n")).toBe(true);
@@ -93,7 +116,10 @@ describe("migrations on a populated database", () => {
       await step("up");
       fingerprints.push(await schemaFingerprint(db));
     }
-    const seed = tsx(["db/seed.ts"], { DATABASE_URL: populatedUrl, PHOTO_DIR: "tests/.artifacts/photos-migrations" });
+    const seed = tsx(["db/seed.ts"], {
+      DATABASE_URL: populatedUrl,
+      PHOTO_DIR: "tests/.artifacts/photos-migrations",
+    });
     expect(seed.status, seed.stderr).toBe(0);
     await fillEmptyTables(db);
   }, 240_000);
@@ -103,9 +129,13 @@ describe("migrations on a populated database", () => {
 
   it("reverts and re-applies every migration one step at a time, newest first, without changing the schema", async () => {
     const top = await schemaFingerprint(db);
-    expect(fingerprintDiff(fingerprints[names.length]!, top), "the seed changed the schema").toEqual([]);
+    expect(
+      fingerprintDiff(fingerprints[names.length]!, top),
+      "the seed changed the schema",
+    ).toEqual([]);
     const seeded = await tableData(db);
-    for (const [table, { rows }] of Object.entries(seeded)) expect(rows, `rows in ${table}`).toBeGreaterThan(0);
+    for (const [table, { rows }] of Object.entries(seeded))
+      expect(rows, `rows in ${table}`).toBeGreaterThan(0);
 
     let schemaDifferences = 0;
     const extensionsLeft: string[] = [];
@@ -121,7 +151,13 @@ describe("migrations on a populated database", () => {
       // the migrations create "if not exists" and leave in place (database-wide, maybe shared).
       const notInverse = fingerprintDiff(noExtensions(fingerprints[k - 1]!), noExtensions(down));
       expect(notInverse, `${name}: down() does not restore the schema before up()`).toEqual([]);
-      for (const key of Object.keys(down)) if (key.startsWith("extension ") && !(key in fingerprints[k - 1]!) && key in fingerprints[k]!) extensionsLeft.push(`${key.slice(10)} (${name})`);
+      for (const key of Object.keys(down))
+        if (
+          key.startsWith("extension ") &&
+          !(key in fingerprints[k - 1]!) &&
+          key in fingerprints[k]!
+        )
+          extensionsLeft.push(`${key.slice(10)} (${name})`);
 
       await step("up");
       const after = await schemaFingerprint(db);
@@ -133,7 +169,11 @@ describe("migrations on a populated database", () => {
       // the step keep their rows (a column the step adds comes back with its default); tables the
       // step creates come back empty.
       const [previous, current] = [fingerprints[k - 1]!, fingerprints[k]!];
-      const touched = new Set([...new Set([...Object.keys(previous), ...Object.keys(current)])].filter((key) => previous[key] !== current[key]).flatMap(tablesOf));
+      const touched = new Set(
+        [...new Set([...Object.keys(previous), ...Object.keys(current)])]
+          .filter((key) => previous[key] !== current[key])
+          .flatMap(tablesOf),
+      );
       const dataAfter = await tableData(db);
       let unchanged = 0;
       let rowsKept = 0;
@@ -148,11 +188,16 @@ describe("migrations on a populated database", () => {
         }
         expect(now!.rows, `${name}: rows of ${table}`).toBe(was.rows);
         if (!touched.has(table)) {
-          expect(now!.checksum, `${name}: contents of ${table}, which the step does not touch`).toBe(was.checksum);
+          expect(
+            now!.checksum,
+            `${name}: contents of ${table}, which the step does not touch`,
+          ).toBe(was.checksum);
           unchanged++;
         } else rowsKept++;
       }
-      if (k >= 2) for (const table of ["companies", "users", "properties"]) expect(dataAfter[table]?.rows, `${name}: ${table}`).toBe(seeded[table]?.rows);
+      if (k >= 2)
+        for (const table of ["companies", "users", "properties"])
+          expect(dataAfter[table]?.rows, `${name}: ${table}`).toBe(seeded[table]?.rows);
       console.log(
         `  ${name}: schema equal after down + up; tables unchanged ${unchanged}, touched but every row kept ${rowsKept}` +
           (created.length ? `, created by the step (rows not kept): ${created.join(", ")}` : ""),
@@ -178,7 +223,9 @@ describe("migrations on a populated database", () => {
         await sql`insert into deliberately_failing values (1)`.execute(trx);
         await sql`alter table companies add column never_kept text`.execute(trx);
         await sql`update companies set name = name || ' (changed)'`.execute(trx);
-        await sql`do $$ begin raise exception 'this migration fails on purpose'; end $$`.execute(trx);
+        await sql`do $$ begin raise exception 'this migration fails on purpose'; end $$`.execute(
+          trx,
+        );
       },
       async down(trx) {
         await sql`drop table if exists deliberately_failing`.execute(trx);
@@ -186,10 +233,16 @@ describe("migrations on a populated database", () => {
     };
     const withFailing: MigrationProvider = {
       async getMigrations() {
-        return { ...(await folderMigrations().getMigrations()), "9999-12-31T2359-deliberately-failing": failing };
+        return {
+          ...(await folderMigrations().getMigrations()),
+          "9999-12-31T2359-deliberately-failing": failing,
+        };
       },
     };
-    const log = async () => (await sql<{ name: string }>`select name from kysely_migration order by name`.execute(db)).rows.map((r) => r.name);
+    const log = async () =>
+      (
+        await sql<{ name: string }>`select name from kysely_migration order by name`.execute(db)
+      ).rows.map((r) => r.name);
 
     // 1. Only the failing migration is pending.
     const before = await schemaFingerprint(db);
@@ -198,7 +251,9 @@ describe("migrations on a populated database", () => {
     const run = await runMigrations(db, "latest", withFailing);
     expect(run.ok).toBe(false);
     expect(String(run.error)).toMatch(/this migration fails on purpose/);
-    expect(run.results).toEqual([{ migrationName: "9999-12-31T2359-deliberately-failing", direction: "Up", status: "Error" }]);
+    expect(run.results).toEqual([
+      { migrationName: "9999-12-31T2359-deliberately-failing", direction: "Up", status: "Error" },
+    ]);
     expect(run.lines).toContain("migrate: FAILED 9999-12-31T2359-deliberately-failing (up)");
     expect(fingerprintDiff(before, await schemaFingerprint(db))).toEqual([]);
     expect(await tableData(db)).toEqual(dataBefore);
@@ -208,18 +263,27 @@ describe("migrations on a populated database", () => {
     await step("down");
     const last = names[names.length - 1]!;
     const beforeBoth = await schemaFingerprint(db);
-    expect(fingerprintDiff(noExtensions(fingerprints[names.length - 1]!), noExtensions(beforeBoth))).toEqual([]);
+    expect(
+      fingerprintDiff(noExtensions(fingerprints[names.length - 1]!), noExtensions(beforeBoth)),
+    ).toEqual([]);
     const dataBeforeBoth = await tableData(db);
     const both = await runMigrations(db, "latest", withFailing);
     expect(both.ok).toBe(false);
-    expect(both.results.map((r) => `${r.migrationName} ${r.status}`)).toEqual([`${last} Success`, "9999-12-31T2359-deliberately-failing Error"]);
-    expect(both.lines).toContain(`migrate: rolled back ${last} (applied, then undone with the failed run)`);
+    expect(both.results.map((r) => `${r.migrationName} ${r.status}`)).toEqual([
+      `${last} Success`,
+      "9999-12-31T2359-deliberately-failing Error",
+    ]);
+    expect(both.lines).toContain(
+      `migrate: rolled back ${last} (applied, then undone with the failed run)`,
+    );
     expect(fingerprintDiff(beforeBoth, await schemaFingerprint(db))).toEqual([]);
     expect(await tableData(db)).toEqual(dataBeforeBoth);
     expect(await log()).not.toContain(last);
 
     expect((await runMigrations(db, "latest")).ok).toBe(true);
     expect(fingerprintDiff(fingerprints[names.length]!, await schemaFingerprint(db))).toEqual([]);
-    console.log(`failing migration: rolled back (alone, and with ${last} in the same run); schema differences 0`);
+    console.log(
+      `failing migration: rolled back (alone, and with ${last} in the same run); schema differences 0`,
+    );
   }, 120_000);
 });

@@ -6,14 +6,21 @@ import path from "node:path";
 // @ts-expect-error s3rver ships no type declarations
 import S3rver from "s3rver";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type PhotoStorage, localDiskStorage, s3Storage } from "@/lib/services/storage";
+
+import { localDiskStorage, s3Storage, type PhotoStorage } from "@/lib/services/storage";
 
 const dir = mkdtempSync(path.join(os.tmpdir(), "sward-s3-"));
 let server: { run(): Promise<{ port: number }>; close(): Promise<void> };
 let endpoint = "";
 
 beforeAll(async () => {
-  server = new S3rver({ port: 0, address: "127.0.0.1", silent: true, directory: path.join(dir, "s3"), configureBuckets: [{ name: "sward-test" }] });
+  server = new S3rver({
+    port: 0,
+    address: "127.0.0.1",
+    silent: true,
+    directory: path.join(dir, "s3"),
+    configureBuckets: [{ name: "sward-test" }],
+  });
   const { port } = await server.run();
   endpoint = `http://127.0.0.1:${port}`;
 });
@@ -24,7 +31,17 @@ afterAll(async () => {
 
 const drivers: [string, () => PhotoStorage][] = [
   ["local disk", () => localDiskStorage(path.join(dir, "disk"))],
-  ["S3 (s3rver)", () => s3Storage({ bucket: "sward-test", region: "us-east-1", endpoint, accessKeyId: "S3RVER", secretAccessKey: "S3RVER" })],
+  [
+    "S3 (s3rver)",
+    () =>
+      s3Storage({
+        bucket: "sward-test",
+        region: "us-east-1",
+        endpoint,
+        accessKeyId: "S3RVER",
+        secretAccessKey: "S3RVER",
+      }),
+  ],
 ];
 
 describe.each(drivers)("%s", (_name, make) => {
@@ -42,6 +59,9 @@ describe.each(drivers)("%s", (_name, make) => {
 
   it("refuses keys that could escape the store", async () => {
     const storage = make();
-    for (const key of ["../etc/passwd", "/abs/path", "a/../../b", "UPPER/x.webp", "nokey"]) await expect(storage.put(key, Buffer.from([1]), "image/webp")).rejects.toThrow(/unsafe storage key/);
+    for (const key of ["../etc/passwd", "/abs/path", "a/../../b", "UPPER/x.webp", "nokey"])
+      await expect(storage.put(key, Buffer.from([1]), "image/webp")).rejects.toThrow(
+        /unsafe storage key/,
+      );
   });
 });

@@ -6,13 +6,15 @@ import path from "node:path";
 import exifr from "exifr";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
 import { otherCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { PHOTO_LIMITS } from "@/lib/photos/process";
 import { finishVisit, saveZoneCheck } from "@/lib/visits/mutations";
 import { emptyZoneCheck } from "@/lib/visits/schemas";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 import { jpegWithGps, lawnImage, pixelFloodPng } from "../helpers/images";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
@@ -30,7 +32,9 @@ const checkIds: string[] = [];
 
 function filesIn(dir: string): string[] {
   try {
-    return readdirSync(dir, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).map((e) => path.join(e.parentPath, e.name));
+    return readdirSync(dir, { recursive: true, withFileTypes: true })
+      .filter((e) => e.isFile())
+      .map((e) => path.join(e.parentPath, e.name));
   } catch {
     return [];
   }
@@ -38,7 +42,11 @@ function filesIn(dir: string): string[] {
 
 async function post(body: Buffer | Uint8Array, checkIndex = 0, type = "image/jpeg") {
   return upload.POST(
-    new Request("http://localhost/api/x", { method: "POST", body: new Uint8Array(body), headers: { origin: "http://localhost", host: "localhost", "content-type": type } }),
+    new Request("http://localhost/api/x", {
+      method: "POST",
+      body: new Uint8Array(body),
+      headers: { origin: "http://localhost", host: "localhost", "content-type": type },
+    }),
     { params: Promise.resolve({ visitId, zoneCheckId: checkIds[checkIndex]! }) },
   );
 }
@@ -46,7 +54,7 @@ async function post(body: Buffer | Uint8Array, checkIndex = 0, type = "image/jpe
 /** A real JPEG with its SOF frame header changed to claim 60,000 × 60,000 pixels. */
 async function jpegClaiming60k(): Promise<Buffer> {
   const jpeg = Buffer.from(await lawnImage(64, 48, 0.2));
-  for (let i = 2; i < jpeg.length - 9; ) {
+  for (let i = 2; i < jpeg.length - 9;) {
     if (jpeg[i] !== 0xff) break;
     const marker = jpeg[i + 1]!;
     const length = jpeg.readUInt16BE(i + 2);
@@ -64,28 +72,93 @@ beforeAll(async () => {
   rmSync(STORE, { recursive: true, force: true });
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
   const tech1 = await c.actor("tech1");
-  const visit = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
+  const visit = await testDb()
+    .selectFrom("visits")
+    .select("id")
+    .where("property_id", "=", c.propertyIds["haddad"]!)
+    .where("status", "=", "scheduled")
+    .executeTakeFirstOrThrow();
   visitId = visit.id;
-  zoneIds = (await testDb().selectFrom("zones").select("id").where("property_id", "=", c.propertyIds["haddad"]!).orderBy("sort_order").execute()).map((z) => z.id);
-  for (const zoneId of zoneIds) checkIds.push((await saveZoneCheck(tech1, visitId, newId(), emptyZoneCheck(zoneId))).id);
+  zoneIds = (
+    await testDb()
+      .selectFrom("zones")
+      .select("id")
+      .where("property_id", "=", c.propertyIds["haddad"]!)
+      .orderBy("sort_order")
+      .execute()
+  ).map((z) => z.id);
+  for (const zoneId of zoneIds)
+    checkIds.push((await saveZoneCheck(tech1, visitId, newId(), emptyZoneCheck(zoneId))).id);
   current = tech1;
 });
 
 describe("the attack set", () => {
   const truncatedJpeg = async () => (await lawnImage(800, 600, 0.2)).subarray(0, 4000);
   const cases: [string, () => Promise<Buffer> | Buffer, number, RegExp][] = [
-    ["a text file named .jpg", () => Buffer.from("This is a note about the lawn, not a picture.\n".repeat(20)), 415, /not a photo Sward can read/],
+    [
+      "a text file named .jpg",
+      () => Buffer.from("This is a note about the lawn, not a picture.\n".repeat(20)),
+      415,
+      /not a photo Sward can read/,
+    ],
     ["a truncated JPEG", truncatedJpeg, 422, /damaged or cut short/],
-    ["a 20,000 × 20,000 PNG", () => pixelFloodPng(20_000, 20_000), 422, /20000 × 20000 pixels, above the 50 megapixel limit/],
-    ["a file over the size limit", () => Buffer.alloc(PHOTO_LIMITS.maxBytes + 1, 0xff), 413, /larger than 25 MB/],
-    ["an SVG", () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100"><rect width="100" height="100" fill="green"/></svg>'), 415, /SVG files are not accepted/],
+    [
+      "a 20,000 × 20,000 PNG",
+      () => pixelFloodPng(20_000, 20_000),
+      422,
+      /20000 × 20000 pixels, above the 50 megapixel limit/,
+    ],
+    [
+      "a file over the size limit",
+      () => Buffer.alloc(PHOTO_LIMITS.maxBytes + 1, 0xff),
+      413,
+      /larger than 25 MB/,
+    ],
+    [
+      "an SVG",
+      () =>
+        Buffer.from(
+          '<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100"><rect width="100" height="100" fill="green"/></svg>',
+        ),
+      415,
+      /SVG files are not accepted/,
+    ],
     ["a zero-byte file", () => Buffer.alloc(0), 422, /file is empty/],
     // Polyglots: JPEG magic bytes in front of another format (an HTML page, a ZIP archive).
-    ["a JPEG/HTML polyglot", () => Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.from("<html><script>alert(document.cookie)</script></html>".repeat(40))]), 415, /not a photo Sward can read/],
-    ["a JPEG/ZIP polyglot", () => Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xdb]), Buffer.from("PK\u0003\u0004", "latin1"), Buffer.alloc(3000, 0x41)]), 415, /not a photo Sward can read/],
+    [
+      "a JPEG/HTML polyglot",
+      () =>
+        Buffer.concat([
+          Buffer.from([0xff, 0xd8, 0xff, 0xe0]),
+          Buffer.from("<html><script>alert(document.cookie)</script></html>".repeat(40)),
+        ]),
+      415,
+      /not a photo Sward can read/,
+    ],
+    [
+      "a JPEG/ZIP polyglot",
+      () =>
+        Buffer.concat([
+          Buffer.from([0xff, 0xd8, 0xff, 0xdb]),
+          Buffer.from("PK\u0003\u0004", "latin1"),
+          Buffer.alloc(3000, 0x41),
+        ]),
+      415,
+      /not a photo Sward can read/,
+    ],
     // Decompression bombs: a few kilobytes that would decode to gigabytes.
-    ["a PNG bomb (60,000 × 60,000, 1-bit, deflated)", () => pixelFloodPng(60_000, 60_000), 422, /60000 × 60000 pixels, above the 50 megapixel limit/],
-    ["a JPEG whose frame header claims 60,000 × 60,000", jpegClaiming60k, 422, /60000 × 60000 pixels, above the 50 megapixel limit/],
+    [
+      "a PNG bomb (60,000 × 60,000, 1-bit, deflated)",
+      () => pixelFloodPng(60_000, 60_000),
+      422,
+      /60000 × 60000 pixels, above the 50 megapixel limit/,
+    ],
+    [
+      "a JPEG whose frame header claims 60,000 × 60,000",
+      jpegClaiming60k,
+      422,
+      /60000 × 60000 pixels, above the 50 megapixel limit/,
+    ],
   ];
 
   // The route runs in this process: its peak memory while refusing the set is the server's.
@@ -98,19 +171,27 @@ describe("the attack set", () => {
   });
   afterAll(() => {
     clearInterval(sampler);
-    console.log(`uploads: attack set of ${cases.length} files — accepted 0, refused ${refused}; peak memory of the server process ${(peakRss / 2 ** 20).toFixed(0)} MB (${((peakRss - startRss) / 2 ** 20).toFixed(0)} MB above the start)`);
+    console.log(
+      `uploads: attack set of ${cases.length} files — accepted 0, refused ${refused}; peak memory of the server process ${(peakRss / 2 ** 20).toFixed(0)} MB (${((peakRss - startRss) / 2 ** 20).toFixed(0)} MB above the start)`,
+    );
   });
 
-  it.each(cases)("%s is refused with a clear message and nothing is stored", async (_name, make, status, message) => {
-    const before = { files: filesIn(STORE).length, rows: (await testDb().selectFrom("photos").select("id").execute()).length };
-    const res = await post(await make());
-    if (res.status >= 400 && res.status < 500) refused++;
-    expect(res.status).toBe(status);
-    const body = (await res.json()) as { error: { message: string } };
-    expect(body.error.message).toMatch(message);
-    expect(filesIn(STORE).length).toBe(before.files);
-    expect((await testDb().selectFrom("photos").select("id").execute()).length).toBe(before.rows);
-  });
+  it.each(cases)(
+    "%s is refused with a clear message and nothing is stored",
+    async (_name, make, status, message) => {
+      const before = {
+        files: filesIn(STORE).length,
+        rows: (await testDb().selectFrom("photos").select("id").execute()).length,
+      };
+      const res = await post(await make());
+      if (res.status >= 400 && res.status < 500) refused++;
+      expect(res.status).toBe(status);
+      const body = (await res.json()) as { error: { message: string } };
+      expect(body.error.message).toMatch(message);
+      expect(filesIn(STORE).length).toBe(before.files);
+      expect((await testDb().selectFrom("photos").select("id").execute()).length).toBe(before.rows);
+    },
+  );
 });
 
 describe("accepted photos", () => {
@@ -134,7 +215,11 @@ describe("accepted photos", () => {
       expect(meta.exif).toBeUndefined();
       expect(meta.xmp).toBeUndefined();
     }
-    console.log(`uploads: ${filesIn(STORE).length} stored files, ${filesIn(STORE).map((f) => statSync(f).size).join(" + ")} bytes, 0 with EXIF`);
+    console.log(
+      `uploads: ${filesIn(STORE).length} stored files, ${filesIn(STORE)
+        .map((f) => statSync(f).size)
+        .join(" + ")} bytes, 0 with EXIF`,
+    );
   });
 
   it("the same photo uploaded twice to the check is one row and one set of files; on another check it reuses the files", async () => {
@@ -146,7 +231,10 @@ describe("accepted photos", () => {
     const onOtherCheck = await post(jpeg, 1);
     expect(onOtherCheck.status).toBe(201);
     expect(filesIn(STORE).length).toBe(filesBefore);
-    expect((await testDb().selectFrom("photos").select("id").where("visit_id", "=", visitId).execute()).length).toBe(2);
+    expect(
+      (await testDb().selectFrom("photos").select("id").where("visit_id", "=", visitId).execute())
+        .length,
+    ).toBe(2);
   });
 
   it("derivatives have the promised sizes and are served as WebP with the right headers", async () => {
@@ -154,8 +242,13 @@ describe("accepted photos", () => {
     expect(big.status).toBe(201);
     const dto = (await big.json()) as PhotoDto;
     expect(dto.width).toBe(4000);
-    for (const [variant, longSide] of [["display", 1600], ["thumb", 320]] as const) {
-      const res = await download.GET(new Request(`http://localhost${dto.displayUrl}`), { params: Promise.resolve({ photoId: dto.id, variant }) });
+    for (const [variant, longSide] of [
+      ["display", 1600],
+      ["thumb", 320],
+    ] as const) {
+      const res = await download.GET(new Request(`http://localhost${dto.displayUrl}`), {
+        params: Promise.resolve({ photoId: dto.id, variant }),
+      });
       expect(res.status).toBe(200);
       expect(res.headers.get("content-type")).toBe("image/webp");
       expect(res.headers.get("content-disposition")).toMatch(/^inline; filename=".+\.webp"$/);
@@ -166,7 +259,10 @@ describe("accepted photos", () => {
   });
 
   it("photo URLs are 404 for another company's manager and another property's homeowner; the own homeowner only after the visit is finished", async () => {
-    const get = () => download.GET(new Request("http://localhost/x"), { params: Promise.resolve({ photoId: photo.id, variant: "thumb" }) });
+    const get = () =>
+      download.GET(new Request("http://localhost/x"), {
+        params: Promise.resolve({ photoId: photo.id, variant: "thumb" }),
+      });
     current = await other.actor("manager");
     expect((await get()).status).toBe(404);
     current = await c.actor("owner1"); // Oyelaran, not Haddad
@@ -177,14 +273,19 @@ describe("accepted photos", () => {
     expect((await get()).status).toBe(200);
 
     const tech1 = await c.actor("tech1");
-    for (const [i, zoneId] of zoneIds.entries()) await saveZoneCheck(tech1, visitId, checkIds[i]!, { ...doneCheck(zoneId), baseVersion: 1 });
+    for (const [i, zoneId] of zoneIds.entries())
+      await saveZoneCheck(tech1, visitId, checkIds[i]!, { ...doneCheck(zoneId), baseVersion: 1 });
     await finishVisit(tech1, visitId);
     current = await c.actor("owner2");
     const res = await get();
     expect(res.status).toBe(200);
     // Homeowners never receive the GPS evidence.
     const { listVisitPhotos } = await import("@/lib/photos/queries");
-    expect((await listVisitPhotos(current, visitId)).every((p) => p.gps === null && p.capturedLocal === null)).toBe(true);
+    expect(
+      (await listVisitPhotos(current, visitId)).every(
+        (p) => p.gps === null && p.capturedLocal === null,
+      ),
+    ).toBe(true);
   });
 
   it("a technician cannot add photos to a finished visit", async () => {
@@ -201,7 +302,11 @@ describe("what is stored", () => {
     current = await c.actor("manager");
     const jpeg = Buffer.from(await lawnImage(320, 240, 0.1, "jpeg", 11));
     const comment = Buffer.from("<script>alert(document.cookie)</script>");
-    const segment = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from([(comment.length + 2) >> 8, (comment.length + 2) & 0xff]), comment]);
+    const segment = Buffer.concat([
+      Buffer.from([0xff, 0xfe]),
+      Buffer.from([(comment.length + 2) >> 8, (comment.length + 2) & 0xff]),
+      comment,
+    ]);
     const res = await post(Buffer.concat([jpeg.subarray(0, 2), segment, jpeg.subarray(2)]), 1);
     expect(res.status).toBe(201);
     const files = filesIn(STORE);
@@ -210,10 +315,13 @@ describe("what is stored", () => {
     for (const file of files) {
       const bytes = (await import("node:fs")).readFileSync(file);
       const meta = await sharp(bytes).metadata();
-      if (meta.exif || meta.xmp || (await exifr.parse(bytes).catch(() => undefined)) !== undefined) withExif++;
+      if (meta.exif || meta.xmp || (await exifr.parse(bytes).catch(() => undefined)) !== undefined)
+        withExif++;
       if (bytes.includes("<script")) withScript++;
     }
-    console.log(`uploads: ${files.length} stored files, ${withExif} with EXIF/XMP, ${withScript} holding an uploaded script`);
+    console.log(
+      `uploads: ${files.length} stored files, ${withExif} with EXIF/XMP, ${withScript} holding an uploaded script`,
+    );
     expect(withExif).toBe(0);
     expect(withScript).toBe(0);
   });

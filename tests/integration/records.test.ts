@@ -2,10 +2,12 @@
 // ISO dates, formula-like cells neutralised, required record fields enforced per rule set.
 import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it, vi } from "vitest";
-import type { Actor } from "@/lib/auth/actor";
+
 import { recordApplication } from "@/lib/applications/mutations";
+import type { Actor } from "@/lib/auth/actor";
 import { listProducts } from "@/lib/products/queries";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 import { newId } from "../helpers/zone-checks";
 
 let current: Actor | null = null;
@@ -19,16 +21,57 @@ let zoneId: string;
 beforeAll(async () => {
   c = await createTestCompany();
   const manager = await c.actor("manager");
-  visitId = (await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["oyelaran"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow()).id;
-  zoneId = (await testDb().selectFrom("zones").select("id").where("property_id", "=", c.propertyIds["oyelaran"]!).orderBy("sort_order").executeTakeFirstOrThrow()).id;
+  visitId = (
+    await testDb()
+      .selectFrom("visits")
+      .select("id")
+      .where("property_id", "=", c.propertyIds["oyelaran"]!)
+      .where("status", "=", "scheduled")
+      .executeTakeFirstOrThrow()
+  ).id;
+  zoneId = (
+    await testDb()
+      .selectFrom("zones")
+      .select("id")
+      .where("property_id", "=", c.propertyIds["oyelaran"]!)
+      .orderBy("sort_order")
+      .executeTakeFirstOrThrow()
+  ).id;
   const products = await listProducts(manager);
   const grub = products.find((p) => p.isPesticide)!;
   const feed = products.find((p) => p.name.startsWith("Larkmoor"))!;
-  await recordApplication(manager, visitId, { id: newId(), zoneId, productId: feed.id, rateAmount: 3, rateUnit: "lb/1000ft2", appliedAt: "2026-05-12T09:15:00-04:00", windMph: 3, temperatureF: 66, isEstablishing: false, applicatorName: "", applicatorLicence: "", overrideReason: null });
-  await recordApplication(manager, visitId, { id: newId(), zoneId, productId: grub.id, rateAmount: 2, rateUnit: "lb/1000ft2", appliedAt: "2026-05-12T10:40:00-04:00", windMph: 4, temperatureF: 70, isEstablishing: false, applicatorName: "=HYPERLINK(\"x\")", applicatorLicence: "NJ-DEMO-1", overrideReason: null });
+  await recordApplication(manager, visitId, {
+    id: newId(),
+    zoneId,
+    productId: feed.id,
+    rateAmount: 3,
+    rateUnit: "lb/1000ft2",
+    appliedAt: "2026-05-12T09:15:00-04:00",
+    windMph: 3,
+    temperatureF: 66,
+    isEstablishing: false,
+    applicatorName: "",
+    applicatorLicence: "",
+    overrideReason: null,
+  });
+  await recordApplication(manager, visitId, {
+    id: newId(),
+    zoneId,
+    productId: grub.id,
+    rateAmount: 2,
+    rateUnit: "lb/1000ft2",
+    appliedAt: "2026-05-12T10:40:00-04:00",
+    windMph: 4,
+    temperatureF: 70,
+    isEstablishing: false,
+    applicatorName: '=HYPERLINK("x")',
+    applicatorLicence: "NJ-DEMO-1",
+    overrideReason: null,
+  });
 });
 
-const get = (q: string) => route.GET(new Request(`http://localhost/api/v1/records/applications?${q}`));
+const get = (q: string) =>
+  route.GET(new Request(`http://localhost/api/v1/records/applications?${q}`));
 
 describe("GET /api/v1/records/applications", () => {
   it("exports the range as CSV with a BOM, ISO dates and neutralised formula cells", async () => {
@@ -36,13 +79,26 @@ describe("GET /api/v1/records/applications", () => {
     const res = await get("from=2026-05-01&to=2026-05-31");
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("text/csv; charset=utf-8");
-    expect(res.headers.get("content-disposition")).toContain("application-records-2026-05-01-to-2026-05-31.csv");
+    expect(res.headers.get("content-disposition")).toContain(
+      "application-records-2026-05-01-to-2026-05-31.csv",
+    );
     const bytes = new Uint8Array(await res.arrayBuffer());
     expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
-    const rows = parse(new TextDecoder().decode(bytes), { columns: true }) as Record<string, string>[];
+    const rows = parse(new TextDecoder().decode(bytes), { columns: true }) as Record<
+      string,
+      string
+    >[];
     expect(rows).toHaveLength(2);
-    expect(rows[0]).toMatchObject({ applied_on: "2026-05-12", applied_at_local: "2026-05-12 09:15", zone: "Front lawn", area_ft2: "2400", n_lb_per_1000ft2: "0.72", wind_mph: "3", keep_until: "2028-05-12" });
-    expect(rows[1]!.applicator).toBe("'=HYPERLINK(\"x\")");
+    expect(rows[0]).toMatchObject({
+      applied_on: "2026-05-12",
+      applied_at_local: "2026-05-12 09:15",
+      zone: "Front lawn",
+      area_ft2: "2400",
+      n_lb_per_1000ft2: "0.72",
+      wind_mph: "3",
+      keep_until: "2028-05-12",
+    });
+    expect(rows[1]!.applicator).toBe('\'=HYPERLINK("x")');
     expect(rows[1]!.registration_number).toBe("DEMO-0000-1");
   });
 
@@ -58,11 +114,35 @@ describe("GET /api/v1/records/applications", () => {
 describe("required record fields per rule set", () => {
   it("Pennsylvania's rule asks for wind and temperature on pesticide applications", async () => {
     const manager = await c.actor("manager");
-    const pa = await testDb().selectFrom("rule_sets").select("id").where("company_id", "=", c.companyId).where("name", "=", "Pennsylvania applicator records").executeTakeFirstOrThrow();
-    await testDb().updateTable("properties").set({ rule_set_id: pa.id }).where("id", "=", c.propertyIds["oyelaran"]!).execute();
+    const pa = await testDb()
+      .selectFrom("rule_sets")
+      .select("id")
+      .where("company_id", "=", c.companyId)
+      .where("name", "=", "Pennsylvania applicator records")
+      .executeTakeFirstOrThrow();
+    await testDb()
+      .updateTable("properties")
+      .set({ rule_set_id: pa.id })
+      .where("id", "=", c.propertyIds["oyelaran"]!)
+      .execute();
     const grub = (await listProducts(manager)).find((p) => p.isPesticide)!;
     await expect(
-      recordApplication(manager, visitId, { id: newId(), zoneId, productId: grub.id, rateAmount: 2, rateUnit: "lb/1000ft2", appliedAt: "2026-05-13T10:00:00-04:00", windMph: null, temperatureF: null, isEstablishing: false, applicatorName: "Luis Arroyo", applicatorLicence: "PA-DEMO-9", overrideReason: null }),
-    ).rejects.toMatchObject({ fieldErrors: { windMph: expect.any(Array), temperatureF: expect.any(Array) } });
+      recordApplication(manager, visitId, {
+        id: newId(),
+        zoneId,
+        productId: grub.id,
+        rateAmount: 2,
+        rateUnit: "lb/1000ft2",
+        appliedAt: "2026-05-13T10:00:00-04:00",
+        windMph: null,
+        temperatureF: null,
+        isEstablishing: false,
+        applicatorName: "Luis Arroyo",
+        applicatorLicence: "PA-DEMO-9",
+        overrideReason: null,
+      }),
+    ).rejects.toMatchObject({
+      fieldErrors: { windMph: expect.any(Array), temperatureF: expect.any(Array) },
+    });
   });
 });

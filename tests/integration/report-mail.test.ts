@@ -5,18 +5,21 @@ import { mkdtemp } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { deliverPendingMail } from "@/lib/mail/outbox";
 import { smtpMailer } from "@/lib/services/mail";
 import { finishVisit, saveZoneCheck, startVisit } from "@/lib/visits/mutations";
+
 import { readInbox, startSmtpFake } from "../harness/smtp-fake";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
 let c: TestCompany;
 let dir = "";
 let smtp: Awaited<ReturnType<typeof startSmtpFake>>;
 const ours = async () => (await readInbox(dir)).filter((m) => m.to.includes(c.emails["owner2"]!));
-const outbox = () => testDb().selectFrom("mail_outbox").selectAll().where("company_id", "=", c.companyId).execute();
+const outbox = () =>
+  testDb().selectFrom("mail_outbox").selectAll().where("company_id", "=", c.companyId).execute();
 
 beforeAll(async () => {
   c = await createTestCompany();
@@ -30,16 +33,35 @@ afterAll(async () => {
 describe("the visit report e-mail", () => {
   it("SMTP down during completion: the e-mail waits in the outbox and is sent once the service returns — exactly one copy", async () => {
     const tech1 = await c.actor("tech1");
-    const visit = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
+    const visit = await testDb()
+      .selectFrom("visits")
+      .select("id")
+      .where("property_id", "=", c.propertyIds["haddad"]!)
+      .where("status", "=", "scheduled")
+      .executeTakeFirstOrThrow();
     await startVisit(tech1, visit.id, { latitude: null, longitude: null });
-    const zones = await testDb().selectFrom("zones").select(["id", "name"]).where("property_id", "=", c.propertyIds["haddad"]!).execute();
-    for (const z of zones) await saveZoneCheck(tech1, visit.id, newId(), doneCheck(z.id, { mowingDirection: "same", isMatted: z.name === "Front slope" }));
+    const zones = await testDb()
+      .selectFrom("zones")
+      .select(["id", "name"])
+      .where("property_id", "=", c.propertyIds["haddad"]!)
+      .execute();
+    for (const z of zones)
+      await saveZoneCheck(
+        tech1,
+        visit.id,
+        newId(),
+        doneCheck(z.id, { mowingDirection: "same", isMatted: z.name === "Front slope" }),
+      );
     await finishVisit(tech1, visit.id);
     await finishVisit(tech1, visit.id); // finishing twice queues nothing more
 
     const queued = await outbox();
     expect(queued).toHaveLength(1);
-    expect(queued[0]).toMatchObject({ kind: "visit_report", to_address: c.emails["owner2"], status: "pending" });
+    expect(queued[0]).toMatchObject({
+      kind: "visit_report",
+      to_address: c.emails["owner2"],
+      status: "pending",
+    });
     expect(queued[0]!.subject).toMatch(/^Your lawn visit report — Haddad residence, /);
     expect(queued[0]!.text_body).toMatch(/Change the mowing direction every few mowings/);
     expect(queued[0]!.html_body).toContain(`/my-lawn/visits/${visit.id}`);

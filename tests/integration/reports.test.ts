@@ -1,16 +1,23 @@
 // Visit reports for homeowners: plain words per zone, what was applied with its cautions, the care
 // notes that match what was seen; only the homeowner's own completed visits.
 import { beforeAll, describe, expect, it } from "vitest";
+
 import { otherCompany } from "@/fixtures/demo-scenario";
 import { addDays, todayIn } from "@/lib/dates";
 import { getVisitReport, listReports } from "@/lib/reports/queries";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let c: TestCompany;
 let other: TestCompany;
 const today = todayIn("America/New_York");
 const visitOn = (propertyKey: string, daysAgo: number) =>
-  testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds[propertyKey]!).where("scheduled_for", "=", addDays(today, -daysAgo)).executeTakeFirstOrThrow();
+  testDb()
+    .selectFrom("visits")
+    .select("id")
+    .where("property_id", "=", c.propertyIds[propertyKey]!)
+    .where("scheduled_for", "=", addDays(today, -daysAgo))
+    .executeTakeFirstOrThrow();
 
 beforeAll(async () => {
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
@@ -27,32 +34,54 @@ describe("visit reports", () => {
     const latest = await visitOn("haddad", 21);
     const report = await getVisitReport(await c.actor("owner2"), latest.id);
     const slope = report.zones.find((z) => z.name === "Front slope")!;
-    expect(slope.sentences.join(" ")).toMatch(/Mowing: cut at 2\.5 in, mowed the same way as last time, grass matted and laid over\./);
+    expect(slope.sentences.join(" ")).toMatch(
+      /Mowing: cut at 2\.5 in, mowed the same way as last time, grass matted and laid over\./,
+    );
     const back = report.zones.find((z) => z.name === "Back yard")!;
     expect(back.sentences.join(" ")).toMatch(/Overall fair \(5 of 9\)/);
-    expect(back.sentences.join(" ")).toMatch(/Signs of dollar spot \(moderate, about 10 % of the zone\)/);
+    expect(back.sentences.join(" ")).toMatch(
+      /Signs of dollar spot \(moderate, about 10 % of the zone\)/,
+    );
     const keys = report.careNotes.map((n) => n.note.key);
     expect(keys).toEqual(expect.arrayContaining(["vary_mowing_direction", "disease_weather"]));
-    expect(report.careNotes.find((n) => n.note.key === "vary_mowing_direction")!.because).toContain("Front slope: grass matted and laid over");
+    expect(report.careNotes.find((n) => n.note.key === "vary_mowing_direction")!.because).toContain(
+      "Front slope: grass matted and laid over",
+    );
     expect(report.applications).toEqual([]); // weed control visit: nothing recorded
   });
 
   it("a feeding visit lists the product with its keep-off guidance and the after-feeding note", async () => {
     const fall = await visitOn("haddad", 42);
     const report = await getVisitReport(await c.actor("owner2"), fall.id);
-    expect(report.applications.map((a) => a.productName)).toEqual(["Autumn Anchor 20-0-10", "Autumn Anchor 20-0-10"]);
+    expect(report.applications.map((a) => a.productName)).toEqual([
+      "Autumn Anchor 20-0-10",
+      "Autumn Anchor 20-0-10",
+    ]);
     expect(report.applications[0]!.reentryGuidance).toMatch(/Keep off until watered in/);
     const notes = report.careNotes.map((n) => n.note.key);
     expect(notes).toEqual(expect.arrayContaining(["after_fertiliser", "late_season_results"]));
-    expect(report.careNotes.find((n) => n.note.key === "after_fertiliser")!.note.cautions!.join(" ")).toMatch(/Keep children and pets off/);
+    expect(
+      report.careNotes.find((n) => n.note.key === "after_fertiliser")!.note.cautions!.join(" "),
+    ).toMatch(/Keep children and pets off/);
   });
 
   it("is scoped: another homeowner, another company and unfinished visits are not found", async () => {
     const latest = await visitOn("haddad", 21);
-    await expect(getVisitReport(await c.actor("owner1"), latest.id)).rejects.toMatchObject({ code: "not_found" });
-    await expect(getVisitReport(await other.actor("manager"), latest.id)).rejects.toMatchObject({ code: "not_found" });
-    const todays = await testDb().selectFrom("visits").select("id").where("property_id", "=", c.propertyIds["haddad"]!).where("status", "=", "scheduled").executeTakeFirstOrThrow();
-    await expect(getVisitReport(await c.actor("owner2"), todays.id)).rejects.toMatchObject({ code: "not_found" });
+    await expect(getVisitReport(await c.actor("owner1"), latest.id)).rejects.toMatchObject({
+      code: "not_found",
+    });
+    await expect(getVisitReport(await other.actor("manager"), latest.id)).rejects.toMatchObject({
+      code: "not_found",
+    });
+    const todays = await testDb()
+      .selectFrom("visits")
+      .select("id")
+      .where("property_id", "=", c.propertyIds["haddad"]!)
+      .where("status", "=", "scheduled")
+      .executeTakeFirstOrThrow();
+    await expect(getVisitReport(await c.actor("owner2"), todays.id)).rejects.toMatchObject({
+      code: "not_found",
+    });
     expect(await listReports(await c.actor("owner1"), c.propertyIds["haddad"]!)).toEqual([]);
   });
 });

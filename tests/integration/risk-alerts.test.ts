@@ -4,15 +4,17 @@
 // recurrence as a new episode); scope; and the pg-boss queue retrying a failed sweep.
 import PgBoss from "pg-boss";
 import { beforeAll, describe, expect, it, vi } from "vitest";
-import type { Actor } from "@/lib/auth/actor";
+
 import { otherCompany } from "@/fixtures/demo-scenario";
+import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { evaluateProperty } from "@/lib/risk/evaluate";
-import { SWEEP_QUEUE, registerRiskSweep } from "@/lib/risk/jobs";
+import { registerRiskSweep, SWEEP_QUEUE } from "@/lib/risk/jobs";
 import { AUTO_RESOLVE_AFTER_DAYS } from "@/lib/risk/lifecycle";
 import { acknowledgeAlert, resolveAlert } from "@/lib/risk/mutations";
 import { listAlerts, propertyAlerts } from "@/lib/risk/queries";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
@@ -21,9 +23,18 @@ let c: TestCompany;
 let other: TestCompany;
 const today = todayIn("America/New_York");
 const evaluateAll = async (at?: string) => {
-  for (const id of Object.values(c.propertyIds)) await evaluateProperty(testDb(), c.companyId, id, { provider: null, at });
+  for (const id of Object.values(c.propertyIds))
+    await evaluateProperty(testDb(), c.companyId, id, { provider: null, at });
 };
-const liveAlerts = () => testDb().selectFrom("risk_alerts").selectAll().where("company_id", "=", c.companyId).where("status", "!=", "resolved").orderBy("kind").orderBy("zone_id").execute();
+const liveAlerts = () =>
+  testDb()
+    .selectFrom("risk_alerts")
+    .selectAll()
+    .where("company_id", "=", c.companyId)
+    .where("status", "!=", "resolved")
+    .orderBy("kind")
+    .orderBy("zone_id")
+    .execute();
 
 beforeAll(async () => {
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
@@ -33,7 +44,11 @@ beforeAll(async () => {
 describe("evaluation of the demo season", () => {
   it("raises what the story explains: the three declining zones, the dull blade, the shaded zone's N", async () => {
     const alerts = await listAlerts(await c.actor("manager"), {});
-    const names = alerts.map((a) => `${a.property.name.split(" ")[0]}/${a.zone?.name ?? "-"}: ${a.kind}/${a.severity}`).sort();
+    const names = alerts
+      .map(
+        (a) => `${a.property.name.split(" ")[0]}/${a.zone?.name ?? "-"}: ${a.kind}/${a.severity}`,
+      )
+      .sort();
     expect(names).toEqual([
       "Haddad/Back yard: declining_index/high",
       "Kowalczyk/Under the oaks: declining_index/high",
@@ -53,7 +68,11 @@ describe("evaluation of the demo season", () => {
     await evaluateAll();
     const after = await liveAlerts();
     expect(after.map((a) => a.id)).toEqual(before.map((a) => a.id));
-    const events = await testDb().selectFrom("risk_alert_events").select("action").where("company_id", "=", c.companyId).execute();
+    const events = await testDb()
+      .selectFrom("risk_alert_events")
+      .select("action")
+      .where("company_id", "=", c.companyId)
+      .execute();
     expect(events.filter((e) => e.action === "raised")).toHaveLength(before.length);
   });
 
@@ -63,15 +82,23 @@ describe("evaluation of the demo season", () => {
     expect(await listAlerts(await c.actor("owner1"), {})).toEqual([]);
     expect(await listAlerts(await other.actor("manager"), {})).toEqual([]);
     const someAlert = (await liveAlerts())[0]!;
-    await expect(acknowledgeAlert(await other.actor("manager"), someAlert.id, "")).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      acknowledgeAlert(await other.actor("manager"), someAlert.id, ""),
+    ).rejects.toMatchObject({ code: "not_found" });
   });
 
   it("filters by kind, severity, technician and area", async () => {
     const manager = await c.actor("manager");
     expect((await listAlerts(manager, { kind: "declining_index" })).length).toBe(3);
-    expect((await listAlerts(manager, { severity: "high" })).every((a) => a.severity === "high")).toBe(true);
-    expect((await listAlerts(manager, { technician: c.userIds["tech2"] })).map((a) => a.property.name)).toEqual(["Okafor residence"]);
-    expect((await listAlerts(manager, { area: "Cedar" })).every((a) => a.property.city === "Cedar Ford")).toBe(true);
+    expect(
+      (await listAlerts(manager, { severity: "high" })).every((a) => a.severity === "high"),
+    ).toBe(true);
+    expect(
+      (await listAlerts(manager, { technician: c.userIds["tech2"] })).map((a) => a.property.name),
+    ).toEqual(["Okafor residence"]);
+    expect(
+      (await listAlerts(manager, { area: "Cedar" })).every((a) => a.property.city === "Cedar Ford"),
+    ).toBe(true);
     expect(await listAlerts(manager, { area: "100%_" })).toEqual([]); // LIKE wildcards are text
   });
 });
@@ -80,13 +107,23 @@ describe("lifecycle", () => {
   it("acknowledge (technician, with a note) → resolve (manager only, with a note) → recurs as a new linked episode", async () => {
     const tech1 = await c.actor("tech1");
     const manager = await c.actor("manager");
-    const torn = (await propertyAlerts(tech1, c.propertyIds["oyelaran"]!)).find((a) => a.kind === "torn_tips")!;
+    const torn = (await propertyAlerts(tech1, c.propertyIds["oyelaran"]!)).find(
+      (a) => a.kind === "torn_tips",
+    )!;
     const acked = await acknowledgeAlert(tech1, torn.id, "Blade sharpened at the shop today.");
     expect(acked.status).toBe("acknowledged");
     expect(acked.acknowledgedBy).toBe("Luis Arroyo");
     await expect(resolveAlert(tech1, torn.id, "done")).rejects.toMatchObject({ code: "forbidden" });
-    const resolved = await resolveAlert(manager, torn.id, "Blade replaced; tips clean at the next mowing.");
-    expect(resolved).toMatchObject({ status: "resolved", resolution: "manual", resolvedBy: "Dana Whitcombe" });
+    const resolved = await resolveAlert(
+      manager,
+      torn.id,
+      "Blade replaced; tips clean at the next mowing.",
+    );
+    expect(resolved).toMatchObject({
+      status: "resolved",
+      resolution: "manual",
+      resolvedBy: "Dana Whitcombe",
+    });
     expect(resolved.events.map((e) => [e.action, e.note])).toEqual([
       ["raised", ""],
       ["acknowledged", "Blade sharpened at the shop today."],
@@ -95,7 +132,9 @@ describe("lifecycle", () => {
     await expect(acknowledgeAlert(tech1, torn.id, "")).rejects.toMatchObject({ code: "conflict" });
     // The latest check still shows torn tips, so the next evaluation opens a new episode.
     await evaluateProperty(testDb(), c.companyId, c.propertyIds["oyelaran"]!, { provider: null });
-    const again = (await propertyAlerts(manager, c.propertyIds["oyelaran"]!)).filter((a) => a.kind === "torn_tips");
+    const again = (await propertyAlerts(manager, c.propertyIds["oyelaran"]!)).filter(
+      (a) => a.kind === "torn_tips",
+    );
     expect(again.map((a) => a.status).sort()).toEqual(["open", "resolved"]);
     const episode = again.find((a) => a.status === "open")!;
     expect(episode.previousAlertId).toBe(torn.id);
@@ -106,14 +145,33 @@ describe("lifecycle", () => {
     const manager = await c.actor("manager");
     const oyelaran = c.propertyIds["oyelaran"]!;
     // The blade was sharpened: the latest check no longer shows torn tips.
-    const front = await testDb().selectFrom("zones").select("id").where("property_id", "=", oyelaran).where("name", "=", "Front lawn").executeTakeFirstOrThrow();
-    await testDb().updateTable("zone_checks").set({ has_torn_tips: false }).where("zone_id", "=", front.id).execute();
+    const front = await testDb()
+      .selectFrom("zones")
+      .select("id")
+      .where("property_id", "=", oyelaran)
+      .where("name", "=", "Front lawn")
+      .executeTakeFirstOrThrow();
+    await testDb()
+      .updateTable("zone_checks")
+      .set({ has_torn_tips: false })
+      .where("zone_id", "=", front.id)
+      .execute();
     await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null });
-    let torn = (await propertyAlerts(manager, oyelaran)).find((a) => a.kind === "torn_tips" && a.status !== "resolved")!;
+    let torn = (await propertyAlerts(manager, oyelaran)).find(
+      (a) => a.kind === "torn_tips" && a.status !== "resolved",
+    )!;
     expect(torn.clearSince).toBe(today);
-    await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null, at: addDays(today, AUTO_RESOLVE_AFTER_DAYS - 1) });
-    expect((await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!.status).toBe("open");
-    await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null, at: addDays(today, AUTO_RESOLVE_AFTER_DAYS) });
+    await evaluateProperty(testDb(), c.companyId, oyelaran, {
+      provider: null,
+      at: addDays(today, AUTO_RESOLVE_AFTER_DAYS - 1),
+    });
+    expect((await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!.status).toBe(
+      "open",
+    );
+    await evaluateProperty(testDb(), c.companyId, oyelaran, {
+      provider: null,
+      at: addDays(today, AUTO_RESOLVE_AFTER_DAYS),
+    });
     torn = (await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!;
     expect(torn).toMatchObject({ status: "resolved", resolution: "auto", resolvedBy: null });
     expect(torn.events.map((e) => e.action)).toEqual(["reopened", "cleared", "auto_resolved"]);
@@ -122,7 +180,11 @@ describe("lifecycle", () => {
 
 describe("the sweep as a pg-boss job", () => {
   it("a failing sweep is retried and completes; a second sweep changes no alert", async () => {
-    const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: "pgboss_test", max: 2 });
+    const boss = new PgBoss({
+      connectionString: process.env.DATABASE_URL!,
+      schema: "pgboss_test",
+      max: 2,
+    });
     await boss.start();
     let calls = 0;
     const { sweepBook } = await import("@/lib/risk/sweep");
@@ -153,30 +215,61 @@ describe("the alert routes", () => {
   const list = () => import("@/app/api/v1/alerts/route");
   const resolveRoute = () => import("@/app/api/v1/alerts/[alertId]/resolve/route");
   const ackRoute = () => import("@/app/api/v1/alerts/[alertId]/acknowledge/route");
-  const post = (body: unknown) => new Request("http://localhost/api", { method: "POST", body: JSON.stringify(body), headers: { origin: "http://localhost", host: "localhost", "content-type": "application/json" } });
+  const post = (body: unknown) =>
+    new Request("http://localhost/api", {
+      method: "POST",
+      body: JSON.stringify(body),
+      headers: {
+        origin: "http://localhost",
+        host: "localhost",
+        "content-type": "application/json",
+      },
+    });
 
   it("lists with filters from the query string; homeowners are refused", async () => {
     current = await c.actor("manager");
-    const res = await (await list()).GET(new Request("http://localhost/api/v1/alerts?kind=declining_index&severity=high"));
+    const res = await (
+      await list()
+    ).GET(new Request("http://localhost/api/v1/alerts?kind=declining_index&severity=high"));
     expect(res.status).toBe(200);
     const { items } = (await res.json()) as { items: { kind: string; severity: string }[] };
-    expect(items.map((a) => `${a.kind}/${a.severity}`)).toEqual(["declining_index/high", "declining_index/high"]);
+    expect(items.map((a) => `${a.kind}/${a.severity}`)).toEqual([
+      "declining_index/high",
+      "declining_index/high",
+    ]);
     current = await c.actor("owner1");
-    expect((await (await list()).GET(new Request("http://localhost/api/v1/alerts"))).status).toBe(403);
+    expect((await (await list()).GET(new Request("http://localhost/api/v1/alerts"))).status).toBe(
+      403,
+    );
   });
 
   it("a technician may acknowledge but not resolve; a missing resolution note is a clear 422", async () => {
-    const alert = (await liveAlerts()).find((a) => a.kind === "declining_index" && a.property_id === c.propertyIds["haddad"])!;
+    const alert = (await liveAlerts()).find(
+      (a) => a.kind === "declining_index" && a.property_id === c.propertyIds["haddad"],
+    )!;
     current = await c.actor("tech1");
-    const refused = await (await resolveRoute()).POST(post({ note: "done" }), { params: Promise.resolve({ alertId: alert.id }) });
+    const refused = await (
+      await resolveRoute()
+    ).POST(post({ note: "done" }), { params: Promise.resolve({ alertId: alert.id }) });
     expect(refused.status).toBe(403);
     current = await c.actor("manager");
-    const noNote = await (await resolveRoute()).POST(post({ note: "  " }), { params: Promise.resolve({ alertId: alert.id }) });
+    const noNote = await (
+      await resolveRoute()
+    ).POST(post({ note: "  " }), { params: Promise.resolve({ alertId: alert.id }) });
     expect(noNote.status).toBe(422);
-    expect(await noNote.json()).toMatchObject({ error: { fieldErrors: { note: ["Say how it was resolved."] } } });
+    expect(await noNote.json()).toMatchObject({
+      error: { fieldErrors: { note: ["Say how it was resolved."] } },
+    });
     current = await c.actor("tech1");
-    const ack = await (await ackRoute()).POST(post({ note: "Will check the fungicide timing." }), { params: Promise.resolve({ alertId: alert.id }) });
+    const ack = await (
+      await ackRoute()
+    ).POST(post({ note: "Will check the fungicide timing." }), {
+      params: Promise.resolve({ alertId: alert.id }),
+    });
     expect(ack.status).toBe(200);
-    expect(await ack.json()).toMatchObject({ status: "acknowledged", acknowledgedBy: "Luis Arroyo" });
+    expect(await ack.json()).toMatchObject({
+      status: "acknowledged",
+      acknowledgedBy: "Luis Arroyo",
+    });
   });
 });

@@ -2,12 +2,14 @@
 // irrigation) gives every zone a trend and correlations; the property index is area-weighted per
 // visit; scope holds (homeowners their own lawn only, other companies nothing); the book figures.
 import { beforeAll, describe, expect, it } from "vitest";
+
 import { demoCompany, otherCompany } from "@/fixtures/demo-scenario";
 import { addDays, todayIn } from "@/lib/dates";
-import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 import { bookScoring, propertyScoreHistory } from "@/lib/scoring/queries";
+import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 import { cellOf, weatherDayRow } from "@/lib/weather/queries";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let c: TestCompany;
 let other: TestCompany;
@@ -16,13 +18,27 @@ const today = todayIn("America/New_York");
 beforeAll(async () => {
   // The Haddad lawn moved to a weather cell of its own, so this file's cache rows never meet
   // the weather tests' (which expect an empty cache for the demo's cells).
-  const scenario = { ...demoCompany, properties: demoCompany.properties.map((p) => (p.key === "haddad" ? { ...p, latitude: 41.0123, longitude: -75.0123 } : p)) };
+  const scenario = {
+    ...demoCompany,
+    properties: demoCompany.properties.map((p) =>
+      p.key === "haddad" ? { ...p, latitude: 41.0123, longitude: -75.0123 } : p,
+    ),
+  };
   [c, other] = await Promise.all([createTestCompany(scenario), createTestCompany(otherCompany)]);
   // The weather cache for the Haddad lawn's cell (no weather service in these tests).
   const haddad = c.scenario.properties.find((p) => p.key === "haddad")!;
   const cell = cellOf(haddad.latitude, haddad.longitude);
-  const rows = Array.from({ length: 200 }, (_, i) => weatherDayRow(cell, { ...fakeWeatherDay(haddad.latitude, haddad.longitude, addDays(today, -i), today), isForecast: false }));
-  await testDb().insertInto("weather_days").values(rows).onConflict((oc) => oc.columns(["cell", "day"]).doNothing()).execute();
+  const rows = Array.from({ length: 200 }, (_, i) =>
+    weatherDayRow(cell, {
+      ...fakeWeatherDay(haddad.latitude, haddad.longitude, addDays(today, -i), today),
+      isForecast: false,
+    }),
+  );
+  await testDb()
+    .insertInto("weather_days")
+    .values(rows)
+    .onConflict((oc) => oc.columns(["cell", "day"]).doNothing())
+    .execute();
 });
 
 describe("propertyScoreHistory", () => {
@@ -33,7 +49,9 @@ describe("propertyScoreHistory", () => {
     expect(h.zones.map((z) => z.name)).toEqual(["Front slope", "Back yard"]);
     // Area-weighted: Front slope 1,800 ft², Back yard 5,200 ft².
     for (const v of h.visits) {
-      const [slope, back] = h.zones.map((z) => z.points.find((p) => p.visitId === v.visitId)!.index);
+      const [slope, back] = h.zones.map(
+        (z) => z.points.find((p) => p.visitId === v.visitId)!.index,
+      );
       expect(v.index).toBeCloseTo((slope! * 1800 + back! * 5200) / 7000, 1);
     }
     const back = h.zones.find((z) => z.name === "Back yard")!;
@@ -57,18 +75,30 @@ describe("propertyScoreHistory", () => {
   });
 
   it("is scoped: the homeowner of the lawn reads it, another homeowner and another company do not", async () => {
-    const h = await propertyScoreHistory(await c.actor("owner2"), c.propertyIds["haddad"]!, { weather: false });
+    const h = await propertyScoreHistory(await c.actor("owner2"), c.propertyIds["haddad"]!, {
+      weather: false,
+    });
     expect(h.visits).toHaveLength(7);
     expect(h.weather.days).toEqual([]);
-    await expect(propertyScoreHistory(await c.actor("owner1"), c.propertyIds["haddad"]!)).rejects.toMatchObject({ code: "not_found" });
-    await expect(propertyScoreHistory(await other.actor("manager"), c.propertyIds["haddad"]!)).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      propertyScoreHistory(await c.actor("owner1"), c.propertyIds["haddad"]!),
+    ).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      propertyScoreHistory(await other.actor("manager"), c.propertyIds["haddad"]!),
+    ).rejects.toMatchObject({ code: "not_found" });
   });
 
   it("a property without checks has an empty history, not an error", async () => {
-    const h = await propertyScoreHistory(await other.actor("manager"), other.propertyIds["aaland"]!, { weather: false });
+    const h = await propertyScoreHistory(
+      await other.actor("manager"),
+      other.propertyIds["aaland"]!,
+      { weather: false },
+    );
     expect(h.visits).toEqual([]);
     expect(h.trend).toBeNull();
-    expect(h.zones.every((z) => z.correlations.n === 0 && z.correlations.nitrogen === null)).toBe(true);
+    expect(h.zones.every((z) => z.correlations.n === 0 && z.correlations.nitrogen === null)).toBe(
+      true,
+    );
   });
 });
 

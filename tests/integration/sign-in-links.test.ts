@@ -6,11 +6,19 @@ import { mkdtemp } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { confirmationUrl, countRecentLinkRequests, queueSignInLink, recordLinkRequest, signInLinkAdapter } from "@/lib/auth/sign-in-link";
+
+import {
+  confirmationUrl,
+  countRecentLinkRequests,
+  queueSignInLink,
+  recordLinkRequest,
+  signInLinkAdapter,
+} from "@/lib/auth/sign-in-link";
 import { deliverPendingMail } from "@/lib/mail/outbox";
 import { smtpMailer } from "@/lib/services/mail";
+
 import { readInbox, startSmtpFake } from "../harness/smtp-fake";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let c: TestCompany;
 let dir = "";
@@ -36,11 +44,17 @@ describe("who can get a sign-in link", () => {
     expect(await adapter.getUserByEmail(c.emails["manager"]!)).toBeNull();
     expect(await adapter.getUserByEmail("nobody@nowhere.sward.test")).toBeNull();
     const other = await createTestCompany();
-    await testDb().updateTable("users").set({ disabled_at: new Date() }).where("id", "=", other.userIds["owner3"]!).execute();
+    await testDb()
+      .updateTable("users")
+      .set({ disabled_at: new Date() })
+      .where("id", "=", other.userIds["owner3"]!)
+      .execute();
     expect(await adapter.getUserByEmail(other.emails["owner3"]!)).toBeNull();
   });
   it("never creates an account", async () => {
-    await expect(adapter.createUser({ id: "x", email: "new@sward.test", emailVerified: null })).rejects.toThrow(/does not create accounts/);
+    await expect(
+      adapter.createUser({ id: "x", email: "new@sward.test", emailVerified: null }),
+    ).rejects.toThrow(/does not create accounts/);
   });
 });
 
@@ -48,17 +62,35 @@ describe("a link's token", () => {
   const identifier = () => c.emails["owner1"]!;
   it("works once: the second use — even at the same moment — finds nothing", async () => {
     const token = `hash-${Date.now()}-a`;
-    await adapter.createVerificationToken({ identifier: identifier(), token, expires: new Date(Date.now() + 15 * 60_000) });
-    const uses = await Promise.all(Array.from({ length: 5 }, () => adapter.useVerificationToken({ identifier: identifier(), token })));
+    await adapter.createVerificationToken({
+      identifier: identifier(),
+      token,
+      expires: new Date(Date.now() + 15 * 60_000),
+    });
+    const uses = await Promise.all(
+      Array.from({ length: 5 }, () =>
+        adapter.useVerificationToken({ identifier: identifier(), token }),
+      ),
+    );
     expect(uses.filter(Boolean)).toHaveLength(1);
     expect(await adapter.useVerificationToken({ identifier: identifier(), token })).toBeNull();
-    console.log(`sign-in links: 5 uses of one link at the same moment → ${uses.filter(Boolean).length} sign-in; a later use finds nothing`);
+    console.log(
+      `sign-in links: 5 uses of one link at the same moment → ${uses.filter(Boolean).length} sign-in; a later use finds nothing`,
+    );
   });
   it("used with another e-mail address it finds nothing and stays usable by its owner", async () => {
     const token = `hash-${Date.now()}-b`;
-    await adapter.createVerificationToken({ identifier: identifier(), token, expires: new Date(Date.now() + 15 * 60_000) });
-    expect(await adapter.useVerificationToken({ identifier: c.emails["owner2"]!, token })).toBeNull();
-    expect(await adapter.useVerificationToken({ identifier: identifier(), token })).toMatchObject({ identifier: identifier() });
+    await adapter.createVerificationToken({
+      identifier: identifier(),
+      token,
+      expires: new Date(Date.now() + 15 * 60_000),
+    });
+    expect(
+      await adapter.useVerificationToken({ identifier: c.emails["owner2"]!, token }),
+    ).toBeNull();
+    expect(await adapter.useVerificationToken({ identifier: identifier(), token })).toMatchObject({
+      identifier: identifier(),
+    });
   });
   it("comes back with its expiry, so Auth.js can refuse an expired one", async () => {
     const token = `hash-${Date.now()}-c`;
@@ -75,22 +107,46 @@ describe("throttling link requests", () => {
     await recordLinkRequest(email, "203.0.113.7");
     await recordLinkRequest(email, "203.0.113.8");
     await recordLinkRequest(`other-${email}`, "203.0.113.7");
-    expect(await countRecentLinkRequests(email, "203.0.113.7", 15)).toEqual({ forEmail: 2, fromAddress: 2 });
-    await testDb().updateTable("sign_in_link_requests").set({ requested_at: new Date(Date.now() - 20 * 60_000) }).where("email_key", "=", email).execute();
-    expect(await countRecentLinkRequests(email, "203.0.113.7", 15)).toEqual({ forEmail: 0, fromAddress: 1 });
+    expect(await countRecentLinkRequests(email, "203.0.113.7", 15)).toEqual({
+      forEmail: 2,
+      fromAddress: 2,
+    });
+    await testDb()
+      .updateTable("sign_in_link_requests")
+      .set({ requested_at: new Date(Date.now() - 20 * 60_000) })
+      .where("email_key", "=", email)
+      .execute();
+    expect(await countRecentLinkRequests(email, "203.0.113.7", 15)).toEqual({
+      forEmail: 0,
+      fromAddress: 1,
+    });
   });
 });
 
 describe("the link e-mail", () => {
   it("links to the confirmation page (not straight to the token check) and is delivered once with two deliverers racing", async () => {
-    const callback = "http://localhost:3000/api/auth/callback/nodemailer?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test";
-    expect(confirmationUrl(callback)).toBe("http://localhost:3000/sign-in/link?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test");
+    const callback =
+      "http://localhost:3000/api/auth/callback/nodemailer?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test";
+    expect(confirmationUrl(callback)).toBe(
+      "http://localhost:3000/sign-in/link?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test",
+    );
 
     const to = c.emails["owner2"]!;
-    await queueSignInLink({ identifier: to, url: callback.replace("owner%40x.test", encodeURIComponent(to)), token: `tok-${Date.now()}` });
-    await queueSignInLink({ identifier: "stranger@sward.test", url: callback, token: `tok-${Date.now()}-s` }); // no account: nothing queued
+    await queueSignInLink({
+      identifier: to,
+      url: callback.replace("owner%40x.test", encodeURIComponent(to)),
+      token: `tok-${Date.now()}`,
+    });
+    await queueSignInLink({
+      identifier: "stranger@sward.test",
+      url: callback,
+      token: `tok-${Date.now()}-s`,
+    }); // no account: nothing queued
     const mailer = smtpMailer(`smtp://127.0.0.1:${smtp.port}`);
-    await Promise.all([deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" }), deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" })]);
+    await Promise.all([
+      deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" }),
+      deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" }),
+    ]);
     const mails = (await readInbox(dir)).filter((m) => m.to.includes(to));
     expect(mails).toHaveLength(1);
     expect(mails[0]!.subject).toMatch(/^Your sign-in link for /);

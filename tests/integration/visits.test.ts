@@ -1,14 +1,22 @@
 // Visits and zone checks against the real database: scope of every read and write, the
 // technician's day, idempotent and versioned saves, finishing, locking and the audit trail.
 import { beforeAll, describe, expect, it } from "vitest";
+
 import { otherCompany } from "@/fixtures/demo-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { todayIn } from "@/lib/dates";
 import { getProperty, listProperties } from "@/lib/properties/queries";
 import { finishVisit, saveZoneCheck, scheduleVisit, startVisit } from "@/lib/visits/mutations";
-import { getVisit, getZoneHistory, listTodayStops, listVisitAudit, listVisits } from "@/lib/visits/queries";
+import {
+  getVisit,
+  getZoneHistory,
+  listTodayStops,
+  listVisitAudit,
+  listVisits,
+} from "@/lib/visits/queries";
 import { emptyZoneCheck } from "@/lib/visits/schemas";
-import { type TestCompany, createTestCompany, testDb } from "../helpers/factories";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
 let c: TestCompany;
@@ -21,7 +29,12 @@ const today = todayIn("America/New_York");
 
 beforeAll(async () => {
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
-  [manager, tech1, tech2, owner1] = await Promise.all([c.actor("manager"), c.actor("tech1"), c.actor("tech2"), c.actor("owner1")]);
+  [manager, tech1, tech2, owner1] = await Promise.all([
+    c.actor("manager"),
+    c.actor("tech1"),
+    c.actor("tech2"),
+    c.actor("owner1"),
+  ]);
 });
 
 async function todayVisitOf(actor: Actor, propertyKey: string) {
@@ -45,11 +58,19 @@ async function freshVisit(propertyKey = "haddad", technician = tech1) {
 describe("the technician's day", () => {
   it("lists tech1's stops in order, with the last visit and what it found", async () => {
     const stops = await listTodayStops(tech1, today);
-    expect(stops.map((s) => s.propertyName)).toEqual(["Oyelaran residence", "Haddad residence", "Kowalczyk residence"]);
+    expect(stops.map((s) => s.propertyName)).toEqual([
+      "Oyelaran residence",
+      "Haddad residence",
+      "Kowalczyk residence",
+    ]);
     const haddad = stops[1]!;
     expect(haddad.lastVisitOn).not.toBeNull();
     expect(haddad.concerns).toEqual(
-      expect.arrayContaining(["Back yard: overall quality 5 of 9 (below acceptable)", "Back yard: Dollar spot (moderate, 10 % of zone)", "Front slope: matted canopy"]),
+      expect.arrayContaining([
+        "Back yard: overall quality 5 of 9 (below acceptable)",
+        "Back yard: Dollar spot (moderate, 10 % of zone)",
+        "Front slope: matted canopy",
+      ]),
     );
     expect(stops.every((s) => s.status === "scheduled")).toBe(true);
   });
@@ -69,15 +90,22 @@ describe("scope of visits", () => {
     const zoneId = visit.zones[0]!.id;
     for (const actor of [tech2, await other.actor("manager")]) {
       await expect(getVisit(actor, visit.id)).rejects.toMatchObject({ code: "not_found" });
-      await expect(startVisit(actor, visit.id, { latitude: null, longitude: null })).rejects.toMatchObject({ code: "not_found" });
-      await expect(saveZoneCheck(actor, visit.id, newId(), doneCheck(zoneId))).rejects.toMatchObject({ code: "not_found" });
+      await expect(
+        startVisit(actor, visit.id, { latitude: null, longitude: null }),
+      ).rejects.toMatchObject({ code: "not_found" });
+      await expect(
+        saveZoneCheck(actor, visit.id, newId(), doneCheck(zoneId)),
+      ).rejects.toMatchObject({ code: "not_found" });
       await expect(finishVisit(actor, visit.id)).rejects.toMatchObject({ code: "not_found" });
     }
   });
 
   it("a homeowner sees no visits and no drafts", async () => {
     const visit = await todayVisitOf(tech1, "oyelaran");
-    await saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(visit.zones[1]!.id), quality: 6 });
+    await saveZoneCheck(tech1, visit.id, newId(), {
+      ...emptyZoneCheck(visit.zones[1]!.id),
+      quality: 6,
+    });
     expect(await listVisits(owner1, {})).toEqual([]);
     await expect(getVisit(owner1, visit.id)).rejects.toMatchObject({ code: "not_found" });
   });
@@ -88,14 +116,20 @@ describe("scope of visits", () => {
     const visit = await freshVisit("okafor", tech1);
     expect((await getProperty(tech1, okafor)).name).toBe("Okafor residence");
     expect((await listProperties(tech1)).map((p) => p.id)).toContain(okafor);
-    await testDb().updateTable("visits").set({ status: "cancelled" }).where("id", "=", visit.id).execute();
+    await testDb()
+      .updateTable("visits")
+      .set({ status: "cancelled" })
+      .where("id", "=", visit.id)
+      .execute();
     await expect(getProperty(tech1, okafor)).rejects.toMatchObject({ code: "not_found" });
   });
 
   it("a zone of another property cannot be checked on this visit", async () => {
     const visit = await freshVisit("haddad");
     const foreignZone = (await getProperty(manager, c.propertyIds["oyelaran"]!)).zones[0]!.id;
-    await expect(saveZoneCheck(tech1, visit.id, newId(), doneCheck(foreignZone))).rejects.toMatchObject({ code: "invalid_input", fieldErrors: { zoneId: expect.any(Array) } });
+    await expect(
+      saveZoneCheck(tech1, visit.id, newId(), doneCheck(foreignZone)),
+    ).rejects.toMatchObject({ code: "invalid_input", fieldErrors: { zoneId: expect.any(Array) } });
   });
 });
 
@@ -104,9 +138,15 @@ describe("saving zone checks", () => {
     const visit = await freshVisit();
     const id = newId();
     const check = doneCheck(visit.zones[0]!.id);
-    const results = await Promise.all([1, 2, 3].map(() => saveZoneCheck(tech1, visit.id, id, check)));
+    const results = await Promise.all(
+      [1, 2, 3].map(() => saveZoneCheck(tech1, visit.id, id, check)),
+    );
     expect(new Set(results.map((r) => r.id))).toEqual(new Set([id]));
-    const rows = await testDb().selectFrom("zone_checks").select("id").where("visit_id", "=", visit.id).execute();
+    const rows = await testDb()
+      .selectFrom("zone_checks")
+      .select("id")
+      .where("visit_id", "=", visit.id)
+      .execute();
     expect(rows).toHaveLength(1);
     expect(results.every((r) => r.version === 1)).toBe(true);
   });
@@ -116,12 +156,30 @@ describe("saving zone checks", () => {
     const zoneId = visit.zones[1]!.id;
     const id = newId();
     const v1 = await saveZoneCheck(tech1, visit.id, id, { ...emptyZoneCheck(zoneId), quality: 6 });
-    const v2 = await saveZoneCheck(tech1, visit.id, id, { ...emptyZoneCheck(zoneId), quality: 7, baseVersion: v1.version });
+    const v2 = await saveZoneCheck(tech1, visit.id, id, {
+      ...emptyZoneCheck(zoneId),
+      quality: 7,
+      baseVersion: v1.version,
+    });
     expect([v1.version, v2.version]).toEqual([1, 2]);
     // The phone retries the second save after a timeout: same content, old base → accepted, no new version.
-    expect((await saveZoneCheck(tech1, visit.id, id, { ...emptyZoneCheck(zoneId), quality: 7, baseVersion: 1 })).version).toBe(2);
+    expect(
+      (
+        await saveZoneCheck(tech1, visit.id, id, {
+          ...emptyZoneCheck(zoneId),
+          quality: 7,
+          baseVersion: 1,
+        })
+      ).version,
+    ).toBe(2);
     // Another device edits from version 1 with different content → conflict carrying version 2.
-    await expect(saveZoneCheck(manager, visit.id, id, { ...emptyZoneCheck(zoneId), quality: 3, baseVersion: 1 })).rejects.toMatchObject({
+    await expect(
+      saveZoneCheck(manager, visit.id, id, {
+        ...emptyZoneCheck(zoneId),
+        quality: 3,
+        baseVersion: 1,
+      }),
+    ).rejects.toMatchObject({
       code: "conflict",
       details: { current: { version: 2, quality: 7 } },
     });
@@ -131,7 +189,9 @@ describe("saving zone checks", () => {
     const visit = await freshVisit();
     const zoneId = visit.zones[0]!.id;
     await saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(zoneId), color: 8 });
-    await expect(saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(zoneId), color: 4 })).rejects.toMatchObject({ code: "conflict" });
+    await expect(
+      saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(zoneId), color: 4 }),
+    ).rejects.toMatchObject({ code: "conflict" });
   });
 
   it("saving a check starts a scheduled visit", async () => {
@@ -149,8 +209,16 @@ describe("saving zone checks", () => {
     const again = await startVisit(tech1, visit.id, { latitude: 1, longitude: 1 });
     expect(started.startedAt).not.toBeNull();
     expect(again.startedAt).toBe(started.startedAt);
-    const row = await testDb().selectFrom("visits").select(["start_latitude", "start_longitude", "started_by"]).where("id", "=", visit.id).executeTakeFirstOrThrow();
-    expect(row).toEqual({ start_latitude: 40.33, start_longitude: -74.74, started_by: tech1.userId });
+    const row = await testDb()
+      .selectFrom("visits")
+      .select(["start_latitude", "start_longitude", "started_by"])
+      .where("id", "=", visit.id)
+      .executeTakeFirstOrThrow();
+    expect(row).toEqual({
+      start_latitude: 40.33,
+      start_longitude: -74.74,
+      started_by: tech1.userId,
+    });
   });
 });
 
@@ -158,7 +226,10 @@ describe("finishing, locking and the audit trail", () => {
   it("refuses to finish while a zone is unchecked, naming it", async () => {
     const visit = await freshVisit();
     await saveZoneCheck(tech1, visit.id, newId(), doneCheck(visit.zones[0]!.id));
-    await expect(finishVisit(tech1, visit.id)).rejects.toMatchObject({ code: "invalid_input", message: expect.stringContaining(visit.zones[1]!.name) });
+    await expect(finishVisit(tech1, visit.id)).rejects.toMatchObject({
+      code: "invalid_input",
+      message: expect.stringContaining(visit.zones[1]!.name),
+    });
   });
 
   it("a finished visit is locked for the technician; a manager's later edit is audited old → new", async () => {
@@ -166,18 +237,37 @@ describe("finishing, locking and the audit trail", () => {
     const [front, back] = visit.zones;
     const checkId = newId();
     const saved = await saveZoneCheck(tech1, visit.id, checkId, doneCheck(front!.id));
-    await saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(back!.id), status: "skipped", skipReason: "dog_in_yard" });
+    await saveZoneCheck(tech1, visit.id, newId(), {
+      ...emptyZoneCheck(back!.id),
+      status: "skipped",
+      skipReason: "dog_in_yard",
+    });
     const finished = await finishVisit(tech1, visit.id);
     expect(finished.status).toBe("completed");
     expect(finished.canEdit).toBe(false); // technicians cannot edit a finished visit
 
-    await expect(saveZoneCheck(tech1, visit.id, checkId, { ...doneCheck(front!.id), quality: 9, baseVersion: saved.version })).rejects.toMatchObject({ code: "forbidden" });
+    await expect(
+      saveZoneCheck(tech1, visit.id, checkId, {
+        ...doneCheck(front!.id),
+        quality: 9,
+        baseVersion: saved.version,
+      }),
+    ).rejects.toMatchObject({ code: "forbidden" });
 
-    const edited = await saveZoneCheck(manager, visit.id, checkId, { ...doneCheck(front!.id), quality: 5, baseVersion: saved.version });
+    const edited = await saveZoneCheck(manager, visit.id, checkId, {
+      ...doneCheck(front!.id),
+      quality: 5,
+      baseVersion: saved.version,
+    });
     expect(edited.quality).toBe(5);
     const audit = await listVisitAudit(manager, visit.id);
     const edit = audit.find((a) => a.action === "edit_after_finish");
-    expect(edit).toMatchObject({ actor: manager.name, entity: "zone_check", entityId: checkId, changes: { quality: { from: 7, to: 5 } } });
+    expect(edit).toMatchObject({
+      actor: manager.name,
+      entity: "zone_check",
+      entityId: checkId,
+      changes: { quality: { from: 7, to: 5 } },
+    });
     expect(audit.find((a) => a.action === "finish")).toMatchObject({ actor: tech1.name });
     expect(await listVisitAudit(tech1, visit.id)).toEqual([]);
   });
@@ -185,14 +275,18 @@ describe("finishing, locking and the audit trail", () => {
 
 describe("zone history", () => {
   it("lists every check of a zone, newest first", async () => {
-    const zoneId = (await getProperty(manager, c.propertyIds["kowalczyk"]!)).zones.find((z) => z.name === "Under the oaks")!.id;
+    const zoneId = (await getProperty(manager, c.propertyIds["kowalczyk"]!)).zones.find(
+      (z) => z.name === "Under the oaks",
+    )!.id;
     const history = await getZoneHistory(manager, zoneId);
     expect(history.zoneName).toBe("Under the oaks");
     expect(history.entries.length).toBeGreaterThanOrEqual(2);
     const dates = history.entries.map((e) => e.visitedOn);
     expect([...dates].sort().reverse()).toEqual(dates);
     expect(history.entries[0]).toMatchObject({ density: 4, barePct: 25 });
-    await expect(getZoneHistory(await other.actor("manager"), zoneId)).rejects.toMatchObject({ code: "not_found" });
+    await expect(getZoneHistory(await other.actor("manager"), zoneId)).rejects.toMatchObject({
+      code: "not_found",
+    });
     await expect(getZoneHistory(owner1, zoneId)).rejects.toMatchObject({ code: "not_found" });
   });
 });
@@ -201,12 +295,32 @@ describe("the stored Sward Index", () => {
   it("is computed when a check is saved, null for drafts without ratings, and photos move it", async () => {
     const visit = await freshVisit();
     const [front, back] = visit.zones;
-    const rated = await saveZoneCheck(tech1, visit.id, newId(), doneCheck(front!.id, { symptoms: [] , barePct: 0, weedsPct: 0 }));
+    const rated = await saveZoneCheck(
+      tech1,
+      visit.id,
+      newId(),
+      doneCheck(front!.id, { symptoms: [], barePct: 0, weedsPct: 0 }),
+    );
     const { swardIndex } = await import("@/lib/scoring/sward-index");
-    expect(rated.swardIndex).toBe(swardIndex({ qualityRating: 7, colorRating: 7, densityRating: 6, uniformityRating: 7, bareSoilPct: 0, weedPct: 0, symptoms: [] }).index);
-    const draft = await saveZoneCheck(tech1, visit.id, newId(), { ...emptyZoneCheck(back!.id), quality: 6 });
+    expect(rated.swardIndex).toBe(
+      swardIndex({
+        qualityRating: 7,
+        colorRating: 7,
+        densityRating: 6,
+        uniformityRating: 7,
+        bareSoilPct: 0,
+        weedPct: 0,
+        symptoms: [],
+      }).index,
+    );
+    const draft = await saveZoneCheck(tech1, visit.id, newId(), {
+      ...emptyZoneCheck(back!.id),
+      quality: 6,
+    });
     expect(draft.swardIndex).toBeNull();
     const history = await getZoneHistory(manager, front!.id);
-    expect(history.entries.find((e) => e.zoneCheckId === rated.id)?.swardIndex).toBe(rated.swardIndex);
+    expect(history.entries.find((e) => e.zoneCheckId === rated.id)?.swardIndex).toBe(
+      rated.swardIndex,
+    );
   });
 });

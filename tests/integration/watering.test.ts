@@ -1,11 +1,13 @@
 // The watering log: depth given or computed from run time × precipitation rate, idempotent by
 // id, scoped to the actor's properties.
 import { beforeAll, describe, expect, it } from "vitest";
+
 import { otherCompany } from "@/fixtures/demo-scenario";
 import { logWatering } from "@/lib/watering/mutations";
 import { listWaterings } from "@/lib/watering/queries";
 import type { WateringInput } from "@/lib/watering/schemas";
-import { type TestCompany, createTestCompany } from "../helpers/factories";
+
+import { createTestCompany, type TestCompany } from "../helpers/factories";
 import { newId } from "../helpers/zone-checks";
 
 let c: TestCompany;
@@ -13,17 +15,32 @@ let other: TestCompany;
 beforeAll(async () => {
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
 });
-const entry = (o: Partial<WateringInput>): WateringInput => ({ id: newId(), zoneId: null, wateredOn: "2026-07-02", depthIn: 0.5, runMinutes: null, precipitationRateInPerHour: null, notes: "", ...o });
+const entry = (o: Partial<WateringInput>): WateringInput => ({
+  id: newId(),
+  zoneId: null,
+  wateredOn: "2026-07-02",
+  depthIn: 0.5,
+  runMinutes: null,
+  precipitationRateInPerHour: null,
+  notes: "",
+  ...o,
+});
 
 describe("logWatering", () => {
   it("stores a depth, or run time × rate (30 min at 1.5 in/h = 0.75 in), newest first", async () => {
     const tech1 = await c.actor("tech1");
     const haddad = c.propertyIds["haddad"]!;
     const first = await logWatering(tech1, haddad, entry({ wateredOn: "2026-07-01" }));
-    const byRun = await logWatering(tech1, haddad, entry({ depthIn: null, runMinutes: 30, precipitationRateInPerHour: 1.5 }));
+    const byRun = await logWatering(
+      tech1,
+      haddad,
+      entry({ depthIn: null, runMinutes: 30, precipitationRateInPerHour: 1.5 }),
+    );
     expect(byRun.depthIn).toBe(0.75);
     // Newest first, among the demo's own irrigation log.
-    const ours = (await listWaterings(tech1, haddad, { limit: 500 })).filter((w) => w.id === first.id || w.id === byRun.id);
+    const ours = (await listWaterings(tech1, haddad, { limit: 500 })).filter(
+      (w) => w.id === first.id || w.id === byRun.id,
+    );
     expect(ours.map((w) => w.wateredOn)).toEqual(["2026-07-02", "2026-07-01"]);
   });
 
@@ -32,19 +49,37 @@ describe("logWatering", () => {
     const e = entry({});
     await logWatering(tech1, c.propertyIds["oyelaran"]!, e);
     await logWatering(tech1, c.propertyIds["oyelaran"]!, e);
-    expect((await listWaterings(tech1, c.propertyIds["oyelaran"]!)).filter((w) => w.id === e.id)).toHaveLength(1);
+    expect(
+      (await listWaterings(tech1, c.propertyIds["oyelaran"]!)).filter((w) => w.id === e.id),
+    ).toHaveLength(1);
   });
 
   it("is scoped: another technician's property and another company are not found; homeowners read their own", async () => {
-    await expect(logWatering(await c.actor("tech2"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
-    await expect(logWatering(await other.actor("manager"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
-    expect((await listWaterings(await c.actor("owner2"), c.propertyIds["haddad"]!)).length).toBeGreaterThan(0);
+    await expect(
+      logWatering(await c.actor("tech2"), c.propertyIds["haddad"]!, entry({})),
+    ).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      logWatering(await other.actor("manager"), c.propertyIds["haddad"]!, entry({})),
+    ).rejects.toMatchObject({ code: "not_found" });
+    expect(
+      (await listWaterings(await c.actor("owner2"), c.propertyIds["haddad"]!)).length,
+    ).toBeGreaterThan(0);
     // Another homeowner's lawn is not found (as the property itself is), not an empty list.
-    await expect(listWaterings(await c.actor("owner1"), c.propertyIds["haddad"]!)).rejects.toMatchObject({ code: "not_found" });
-    await expect(listWaterings(await other.actor("manager"), c.propertyIds["haddad"]!)).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      listWaterings(await c.actor("owner1"), c.propertyIds["haddad"]!),
+    ).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      listWaterings(await other.actor("manager"), c.propertyIds["haddad"]!),
+    ).rejects.toMatchObject({ code: "not_found" });
     // Homeowners log their own watering, and only on their own lawn.
-    const own = await logWatering(await c.actor("owner2"), c.propertyIds["haddad"]!, entry({ depthIn: 0.4 }));
+    const own = await logWatering(
+      await c.actor("owner2"),
+      c.propertyIds["haddad"]!,
+      entry({ depthIn: 0.4 }),
+    );
     expect(own.enteredByRole).toBe("homeowner");
-    await expect(logWatering(await c.actor("owner1"), c.propertyIds["haddad"]!, entry({}))).rejects.toMatchObject({ code: "not_found" });
+    await expect(
+      logWatering(await c.actor("owner1"), c.propertyIds["haddad"]!, entry({})),
+    ).rejects.toMatchObject({ code: "not_found" });
   });
 });

@@ -3,10 +3,12 @@
 // gets it filled on the next sync.
 import type { Server } from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+
 import { addDays, todayIn } from "@/lib/dates";
 import { jsonWeatherProvider, WeatherUnavailable } from "@/lib/services/weather/provider";
-import { weatherForLocation } from "@/lib/weather/queries";
 import { deriveDays } from "@/lib/weather/derived";
+import { weatherForLocation } from "@/lib/weather/queries";
+
 import { startFakeWeather } from "../harness/weather-fake";
 import { createTestCompany, testDb } from "../helpers/factories";
 
@@ -34,16 +36,32 @@ describe("weather", () => {
     const winter = await provider.daily(40.33, -74.74, "2026-01-10", "2026-01-16");
     expect(winter.reduce((s, d) => s + d.tmaxC, 0) / 7).toBeLessThan(10);
     const derived = deriveDays(a, { latitudeDeg: 40.33, kc: 0.8, wateringInByDate: {} });
-    expect(derived.every((d) => d.et0Method === "penman-monteith" && d.et0In > 0 && d.et0In < 0.4)).toBe(true);
+    expect(
+      derived.every((d) => d.et0Method === "penman-monteith" && d.et0In > 0 && d.et0In < 0.4),
+    ).toBe(true);
   });
 
   it("a service that is down gives WeatherUnavailable after retries; the cache still answers", async () => {
-    const down = jsonWeatherProvider({ baseUrl: "http://127.0.0.1:9", timeoutMs: 300, retries: 1, backoffMs: 10 });
-    await expect(down.daily(40, -74, "2026-07-01", "2026-07-02")).rejects.toBeInstanceOf(WeatherUnavailable);
+    const down = jsonWeatherProvider({
+      baseUrl: "http://127.0.0.1:9",
+      timeoutMs: 300,
+      retries: 1,
+      backoffMs: 10,
+    });
+    await expect(down.daily(40, -74, "2026-07-01", "2026-07-02")).rejects.toBeInstanceOf(
+      WeatherUnavailable,
+    );
     const up = jsonWeatherProvider({ baseUrl: base });
     const filled = await weatherForLocation(up, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
     expect(filled.status).toBe("ok");
-    const fromCache = await weatherForLocation(down, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
+    const fromCache = await weatherForLocation(
+      down,
+      40.31,
+      -74.71,
+      "2026-06-01",
+      "2026-06-10",
+      today,
+    );
     expect(fromCache.status).toBe("ok"); // past, complete and cached: no fetch needed
     expect(fromCache.days).toHaveLength(10);
     const partly = await weatherForLocation(down, 40.31, -74.71, "2026-06-01", "2026-06-20", today);
@@ -54,15 +72,33 @@ describe("weather", () => {
   it("a visit starts with the weather service down; the snapshot says unavailable; the next sync fills it", async () => {
     const c = await createTestCompany();
     const tech1 = await c.actor("tech1");
-    const visit = await testDb().selectFrom("visits").select("id").where("company_id", "=", c.companyId).where("scheduled_for", "=", today).where("technician_id", "=", tech1.userId).executeTakeFirstOrThrow();
+    const visit = await testDb()
+      .selectFrom("visits")
+      .select("id")
+      .where("company_id", "=", c.companyId)
+      .where("scheduled_for", "=", today)
+      .where("technician_id", "=", tech1.userId)
+      .executeTakeFirstOrThrow();
     const { startVisit } = await import("@/lib/visits/mutations");
     const started = await startVisit(tech1, visit.id, { latitude: null, longitude: null }); // no WEATHER_BASE_URL in this suite: service unavailable
     expect(started.status).toBe("in_progress");
     expect(started.weather).toMatchObject({ status: "unavailable" });
 
     // The service comes back: fill the snapshot the way the next sync does.
-    const property = await testDb().selectFrom("visits").innerJoin("properties", "properties.id", "visits.property_id").select(["latitude", "longitude"]).where("visits.id", "=", visit.id).executeTakeFirstOrThrow();
-    await weatherForLocation(jsonWeatherProvider({ baseUrl: base }), property.latitude, property.longitude, addDays(today, -1), today, today);
+    const property = await testDb()
+      .selectFrom("visits")
+      .innerJoin("properties", "properties.id", "visits.property_id")
+      .select(["latitude", "longitude"])
+      .where("visits.id", "=", visit.id)
+      .executeTakeFirstOrThrow();
+    await weatherForLocation(
+      jsonWeatherProvider({ baseUrl: base }),
+      property.latitude,
+      property.longitude,
+      addDays(today, -1),
+      today,
+      today,
+    );
     const { fillVisitWeather } = await import("@/lib/weather/mutations");
     await fillVisitWeather(tech1, visit.id);
     const { getVisit } = await import("@/lib/visits/queries");

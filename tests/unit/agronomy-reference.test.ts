@@ -2,6 +2,7 @@
 import convert from "convert-units";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+
 import {
   actualVapourPressure,
   atmosphericPressure,
@@ -15,8 +16,21 @@ import {
   windAt2m,
 } from "@/lib/agronomy/et0";
 import { growingDegreeDays } from "@/lib/agronomy/gdd";
-import { NutrientInputError, nutrientsPer1000, productForArea, rateForNitrogen, type RateUnit } from "@/lib/agronomy/nutrients";
-import { G_M2_PER_LB_1000FT2, GAL_PER_INCH_1000FT2, KG_HA_PER_LB_1000FT2, K_PER_K2O, LB_ACRE_PER_LB_1000FT2, P_PER_P2O5 } from "@/lib/agronomy/units";
+import {
+  NutrientInputError,
+  nutrientsPer1000,
+  productForArea,
+  rateForNitrogen,
+  type RateUnit,
+} from "@/lib/agronomy/nutrients";
+import {
+  G_M2_PER_LB_1000FT2,
+  GAL_PER_INCH_1000FT2,
+  K_PER_K2O,
+  KG_HA_PER_LB_1000FT2,
+  LB_ACRE_PER_LB_1000FT2,
+  P_PER_P2O5,
+} from "@/lib/agronomy/units";
 import { movingMean, turfWaterUse, waterBalance, wateringDepthIn } from "@/lib/agronomy/water";
 
 // Source: Allen et al. (1998), FAO Irrigation and Drainage Paper 56, worked examples.
@@ -28,7 +42,10 @@ describe("FAO-56 worked examples", () => {
   });
 
   it("example 3: es for Tmax 24.5 °C and Tmin 15 °C = 2.39 kPa", () => {
-    expect((saturationVapourPressure(24.5) + saturationVapourPressure(15)) / 2).toBeCloseTo(2.39, 2);
+    expect((saturationVapourPressure(24.5) + saturationVapourPressure(15)) / 2).toBeCloseTo(
+      2.39,
+      2,
+    );
   });
 
   it("example 5: ea from e°(Tmin) 2.064, e°(Tmax) 3.168, RHmax 82 %, RHmin 54 % = 1.70 kPa", () => {
@@ -42,7 +59,18 @@ describe("FAO-56 worked examples", () => {
   });
 
   describe("example 18: Brussels, 6 July, 50°48′N, 100 m", () => {
-    const day = { date: "2026-07-06", latitudeDeg: 50 + 48 / 60, elevationM: 100, tmaxC: 21.5, tminC: 12.3, rhMaxPct: 84, rhMinPct: 63, windSpeedMs: 10 / 3.6, windHeightM: 10, sunshineHours: 9.25 };
+    const day = {
+      date: "2026-07-06",
+      latitudeDeg: 50 + 48 / 60,
+      elevationM: 100,
+      tmaxC: 21.5,
+      tminC: 12.3,
+      rhMaxPct: 84,
+      rhMinPct: 63,
+      windSpeedMs: 10 / 3.6,
+      windHeightM: 10,
+      sunshineHours: 9.25,
+    };
     const s = penmanMonteithSteps(day);
 
     it("day of year 187", () => expect(s.doy).toBe(187));
@@ -62,7 +90,9 @@ describe("FAO-56 worked examples", () => {
       ["Rn", 13.28, 2],
     ])("%s = %s (to the printed digits)", (key, printed, digits) => {
       // The paper rounds its intermediates; a half-unit of the last printed digit is allowed.
-      expect(Math.abs((s[key] as number) - printed)).toBeLessThanOrEqual(0.5 * 10 ** -digits + 1e-9);
+      expect(Math.abs((s[key] as number) - printed)).toBeLessThanOrEqual(
+        0.5 * 10 ** -digits + 1e-9,
+      );
     });
     it("ETo = 3.9 mm/day (3.88 unrounded) ± 0.05", () => {
       expect(Math.abs(penmanMonteithEt0(day) - 3.88)).toBeLessThanOrEqual(0.05);
@@ -88,12 +118,36 @@ describe("ETo properties (fast-check)", () => {
   it("is never negative and rises with Tmax, all else equal", () => {
     fc.assert(
       fc.property(temperateSummer, fc.double({ min: 0.5, max: 6, noNaN: true }), (d, extra) => {
-        const base = { date: dateOf(d.doy), latitudeDeg: d.lat, elevationM: 50, tminC: d.tmin, rhMaxPct: 90, rhMinPct: d.rhMin, windSpeedMs: d.wind, windHeightM: 2, solarRadiationMJ: 22 };
+        const base = {
+          date: dateOf(d.doy),
+          latitudeDeg: d.lat,
+          elevationM: 50,
+          tminC: d.tmin,
+          rhMaxPct: 90,
+          rhMinPct: d.rhMin,
+          windSpeedMs: d.wind,
+          windHeightM: 2,
+          solarRadiationMJ: 22,
+        };
         const a = penmanMonteithEt0({ ...base, tmaxC: d.tmin + d.range });
         const b = penmanMonteithEt0({ ...base, tmaxC: d.tmin + d.range + extra });
         expect(a).toBeGreaterThanOrEqual(0);
         expect(b).toBeGreaterThan(a);
-        expect(hargreavesEt0({ date: base.date, latitudeDeg: d.lat, tmaxC: d.tmin + d.range + extra, tminC: d.tmin })).toBeGreaterThan(hargreavesEt0({ date: base.date, latitudeDeg: d.lat, tmaxC: d.tmin + d.range, tminC: d.tmin }));
+        expect(
+          hargreavesEt0({
+            date: base.date,
+            latitudeDeg: d.lat,
+            tmaxC: d.tmin + d.range + extra,
+            tminC: d.tmin,
+          }),
+        ).toBeGreaterThan(
+          hargreavesEt0({
+            date: base.date,
+            latitudeDeg: d.lat,
+            tmaxC: d.tmin + d.range,
+            tminC: d.tmin,
+          }),
+        );
       }),
     );
   });
@@ -104,8 +158,23 @@ describe("ETo properties (fast-check)", () => {
     fc.assert(
       fc.property(temperateSummer, (d) => {
         const date = dateOf(d.doy);
-        const pm = penmanMonteithEt0({ date, latitudeDeg: d.lat, elevationM: 100, tmaxC: d.tmin + d.range, tminC: d.tmin, rhMaxPct: 90, rhMinPct: d.rhMin, windSpeedMs: d.wind, windHeightM: 2 });
-        const hg = hargreavesEt0({ date, latitudeDeg: d.lat, tmaxC: d.tmin + d.range, tminC: d.tmin });
+        const pm = penmanMonteithEt0({
+          date,
+          latitudeDeg: d.lat,
+          elevationM: 100,
+          tmaxC: d.tmin + d.range,
+          tminC: d.tmin,
+          rhMaxPct: 90,
+          rhMinPct: d.rhMin,
+          windSpeedMs: d.wind,
+          windHeightM: 2,
+        });
+        const hg = hargreavesEt0({
+          date,
+          latitudeDeg: d.lat,
+          tmaxC: d.tmin + d.range,
+          tminC: d.tmin,
+        });
         expect(hg / pm).toBeGreaterThan(0.55);
         expect(hg / pm).toBeLessThan(1.8);
       }),
@@ -121,11 +190,15 @@ describe("growing degree days", () => {
   });
   it("°F·days are 9/5 of °C·days for the same day (base 50 °F = 10 °C)", () => {
     fc.assert(
-      fc.property(fc.double({ min: -10, max: 40, noNaN: true }), fc.double({ min: 0, max: 15, noNaN: true }), (tmin, range) => {
-        const c = growingDegreeDays(tmin + range, tmin, 10);
-        const f = growingDegreeDays(((tmin + range) * 9) / 5 + 32, (tmin * 9) / 5 + 32, 50);
-        expect(f).toBeCloseTo((c * 9) / 5, 9);
-      }),
+      fc.property(
+        fc.double({ min: -10, max: 40, noNaN: true }),
+        fc.double({ min: 0, max: 15, noNaN: true }),
+        (tmin, range) => {
+          const c = growingDegreeDays(tmin + range, tmin, 10);
+          const f = growingDegreeDays(((tmin + range) * 9) / 5 + 32, (tmin * 9) / 5 + 32, 50);
+          expect(f).toBeCloseTo((c * 9) / 5, 9);
+        },
+      ),
     );
   });
 });
@@ -134,35 +207,60 @@ describe("nutrient arithmetic", () => {
   const p28 = { nPct: 28, p2o5Pct: 3, k2oPct: 6, form: "granular" as const };
 
   it("extension arithmetic: 1 lb N from 10-10-10 needs 10 lb product per 1,000 ft²", () => {
-    expect(rateForNitrogen({ nPct: 10, p2o5Pct: 10, k2oPct: 10, form: "granular" }, 1)).toEqual({ amount: 10, unit: "lb/1000ft2" });
+    expect(rateForNitrogen({ nPct: 10, p2o5Pct: 10, k2oPct: 10, form: "granular" }, 1)).toEqual({
+      amount: 10,
+      unit: "lb/1000ft2",
+    });
   });
 
   it("University of Nebraska–Lincoln: 28-3-6 at 1 lb N → 3.57 lb per 1,000 ft²; 6,000 ft² → 21.4 lb", () => {
     const rate = rateForNitrogen(p28, 1);
     expect(rate.amount).toBeCloseTo(3.57, 2);
     expect(productForArea(p28, rate, 6000).lb).toBeCloseTo(21.4, 1);
-    expect(nutrientsPer1000(p28, rate)).toMatchObject({ nLb: expect.closeTo(1, 9), p2o5Lb: expect.closeTo(0.107, 3), k2oLb: expect.closeTo(0.214, 3) });
+    expect(nutrientsPer1000(p28, rate)).toMatchObject({
+      nLb: expect.closeTo(1, 9),
+      p2o5Lb: expect.closeTo(0.107, 3),
+      k2oLb: expect.closeTo(0.214, 3),
+    });
   });
 
   it("liquids: lb N = fl oz × (lb/gal ÷ 128) × %N/100", () => {
-    const liquid = { nPct: 20, p2o5Pct: 0, k2oPct: 0, form: "liquid" as const, densityLbPerGal: 11.6 };
-    expect(nutrientsPer1000(liquid, { amount: 18, unit: "floz/1000ft2" }).nLb).toBeCloseTo(18 * (11.6 / 128) * 0.2, 12);
+    const liquid = {
+      nPct: 20,
+      p2o5Pct: 0,
+      k2oPct: 0,
+      form: "liquid" as const,
+      densityLbPerGal: 11.6,
+    };
+    expect(nutrientsPer1000(liquid, { amount: 18, unit: "floz/1000ft2" }).nLb).toBeCloseTo(
+      18 * (11.6 / 128) * 0.2,
+      12,
+    );
   });
 
   // Plausibility checks from practitioners' figures (common practice, not brand data).
   it("common practice: 7 lb of a granular a little under 7 % N supplies slightly less than 0.5 lb N", () => {
-    const n = nutrientsPer1000({ nPct: 6.8, p2o5Pct: 0, k2oPct: 2, form: "granular" }, { amount: 7, unit: "lb/1000ft2" }).nLb;
+    const n = nutrientsPer1000(
+      { nPct: 6.8, p2o5Pct: 0, k2oPct: 2, form: "granular" },
+      { amount: 7, unit: "lb/1000ft2" },
+    ).nLb;
     expect(n).toBeLessThan(0.5);
     expect(n).toBeGreaterThan(0.45);
   });
   it("common practice: a 20 % N liquid at 11.6 lb/gal and 18 fl oz supplies slightly less than 1/3 lb N", () => {
-    const n = nutrientsPer1000({ nPct: 20, p2o5Pct: 0, k2oPct: 0, form: "liquid", densityLbPerGal: 11.6 }, { amount: 18, unit: "floz/1000ft2" }).nLb;
+    const n = nutrientsPer1000(
+      { nPct: 20, p2o5Pct: 0, k2oPct: 0, form: "liquid", densityLbPerGal: 11.6 },
+      { amount: 18, unit: "floz/1000ft2" },
+    ).nLb;
     expect(n).toBeLessThan(1 / 3);
     expect(n).toBeGreaterThan(0.3);
   });
 
   it("water-soluble N is the part of N that is not slow-release", () => {
-    expect(nutrientsPer1000({ ...p28, slowReleaseNPctOfN: 25 }, { amount: 3.5, unit: "lb/1000ft2" }).wsnLb).toBeCloseTo(3.5 * 0.28 * 0.75, 12);
+    expect(
+      nutrientsPer1000({ ...p28, slowReleaseNPctOfN: 25 }, { amount: 3.5, unit: "lb/1000ft2" })
+        .wsnLb,
+    ).toBeCloseTo(3.5 * 0.28 * 0.75, 12);
   });
 
   it("New Jersey P.L.2010, c.112: 0.9 lb total N and 0.7 lb water-soluble N per application", () => {
@@ -174,20 +272,47 @@ describe("nutrient arithmetic", () => {
   });
 
   it("refuses a volume rate without density, negative amounts, and an analysis over 100 %", () => {
-    expect(() => nutrientsPer1000(p28, { amount: 2, unit: "floz/1000ft2" })).toThrow(NutrientInputError);
+    expect(() => nutrientsPer1000(p28, { amount: 2, unit: "floz/1000ft2" })).toThrow(
+      NutrientInputError,
+    );
     expect(() => nutrientsPer1000(p28, { amount: -1, unit: "lb/1000ft2" })).toThrow(/negative/);
-    expect(() => nutrientsPer1000({ nPct: 46, p2o5Pct: 46, k2oPct: 10, form: "soluble" }, { amount: 1, unit: "lb/1000ft2" })).toThrow(/more than 100/);
+    expect(() =>
+      nutrientsPer1000(
+        { nPct: 46, p2o5Pct: 46, k2oPct: 10, form: "soluble" },
+        { amount: 1, unit: "lb/1000ft2" },
+      ),
+    ).toThrow(/more than 100/);
   });
 
   it("N delivered is linear in the rate, whatever the unit", () => {
-    const units: RateUnit[] = ["lb/1000ft2", "oz/1000ft2", "floz/1000ft2", "gal/1000ft2", "kg/ha", "g/m2", "lb/acre", "L/ha"];
+    const units: RateUnit[] = [
+      "lb/1000ft2",
+      "oz/1000ft2",
+      "floz/1000ft2",
+      "gal/1000ft2",
+      "kg/ha",
+      "g/m2",
+      "lb/acre",
+      "L/ha",
+    ];
     fc.assert(
-      fc.property(fc.constantFrom(...units), fc.double({ min: 0.01, max: 500, noNaN: true }), fc.double({ min: 0.1, max: 10, noNaN: true }), (unit, amount, k) => {
-        const product = { nPct: 18, p2o5Pct: 3, k2oPct: 5, form: "liquid" as const, densityLbPerGal: 10.5 };
-        const a = nutrientsPer1000(product, { amount, unit }).nLb;
-        const b = nutrientsPer1000(product, { amount: amount * k, unit }).nLb;
-        expect(b).toBeCloseTo(a * k, 9);
-      }),
+      fc.property(
+        fc.constantFrom(...units),
+        fc.double({ min: 0.01, max: 500, noNaN: true }),
+        fc.double({ min: 0.1, max: 10, noNaN: true }),
+        (unit, amount, k) => {
+          const product = {
+            nPct: 18,
+            p2o5Pct: 3,
+            k2oPct: 5,
+            form: "liquid" as const,
+            densityLbPerGal: 10.5,
+          };
+          const a = nutrientsPer1000(product, { amount, unit }).nLb;
+          const b = nutrientsPer1000(product, { amount: amount * k, unit }).nLb;
+          expect(b).toBeCloseTo(a * k, 9);
+        },
+      ),
     );
   });
 });
@@ -198,12 +323,15 @@ describe("units", () => {
     expect(G_M2_PER_LB_1000FT2).toBeCloseTo(4.8824, 4);
     expect(KG_HA_PER_LB_1000FT2).toBeCloseTo(48.824, 3);
     expect(LB_ACRE_PER_LB_1000FT2).toBe(43.56);
-    const viaLibrary = (convert(1).from("lb").to("g") as number) / (convert(1000).from("ft2").to("m2") as number);
+    const viaLibrary =
+      (convert(1).from("lb").to("g") as number) / (convert(1000).from("ft2").to("m2") as number);
     expect(G_M2_PER_LB_1000FT2).toBeCloseTo(viaLibrary, 4);
   });
   it("1 inch of water over 1,000 ft² = 623.4 US gal", () => {
     expect(GAL_PER_INCH_1000FT2).toBeCloseTo(623.4, 1);
-    const viaLibrary = (convert(1000 * 144).from("in3").to("gal") as number);
+    const viaLibrary = convert(1000 * 144)
+      .from("in3")
+      .to("gal") as number;
     expect(GAL_PER_INCH_1000FT2).toBeCloseTo(viaLibrary, 1);
   });
   it("P₂O₅ → P × 0.4364, K₂O → K × 0.8301", () => {
@@ -217,9 +345,17 @@ describe("units", () => {
       fc.property(fc.double({ min: 0.01, max: 1000, noNaN: true }), (lb) => {
         const kgHa = lb * KG_HA_PER_LB_1000FT2;
         expect(nutrientsPer1000(product, { amount: kgHa, unit: "kg/ha" }).nLb).toBeCloseTo(lb, 9);
-        expect(nutrientsPer1000(product, { amount: lb * G_M2_PER_LB_1000FT2, unit: "g/m2" }).nLb).toBeCloseTo(lb, 9);
-        expect(nutrientsPer1000(product, { amount: lb * 43.56, unit: "lb/acre" }).nLb).toBeCloseTo(lb, 9);
-        expect(nutrientsPer1000(product, { amount: lb * 16, unit: "oz/1000ft2" }).nLb).toBeCloseTo(lb, 9);
+        expect(
+          nutrientsPer1000(product, { amount: lb * G_M2_PER_LB_1000FT2, unit: "g/m2" }).nLb,
+        ).toBeCloseTo(lb, 9);
+        expect(nutrientsPer1000(product, { amount: lb * 43.56, unit: "lb/acre" }).nLb).toBeCloseTo(
+          lb,
+          9,
+        );
+        expect(nutrientsPer1000(product, { amount: lb * 16, unit: "oz/1000ft2" }).nLb).toBeCloseTo(
+          lb,
+          9,
+        );
       }),
     );
   });
@@ -229,7 +365,12 @@ describe("water", () => {
   it("turf use is Kc × ETo; run time × precipitation rate gives depth; balance sums the window", () => {
     expect(turfWaterUse(5, 0.8)).toBe(4);
     expect(wateringDepthIn(30, 1.5)).toBe(0.75);
-    expect(waterBalance([{ rain: 0.2, watering: 0.5, use: 0.2 }, { rain: 0, watering: 0, use: 0.25 }])).toBeCloseTo(0.25, 12);
+    expect(
+      waterBalance([
+        { rain: 0.2, watering: 0.5, use: 0.2 },
+        { rain: 0, watering: 0, use: 0.25 },
+      ]),
+    ).toBeCloseTo(0.25, 12);
     expect(movingMean([1, 2, 3, 4, 5, 6], 5)).toEqual([1, 1.5, 2, 2.5, 3, 4]);
   });
   it("dayOfYear handles leap years", () => {

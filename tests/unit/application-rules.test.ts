@@ -3,12 +3,23 @@
 // consumers, phosphorus only with a soil test or when establishing) and Minnesota Statutes
 // 18C.60 (phosphorus only with a soil test within 3 years, or establishment).
 import { describe, expect, it } from "vitest";
+
 import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
-import { type ApplicationFacts, type RuleSetLimits, checkApplication, isInWindow, isRefused } from "@/lib/agronomy/rules";
+import {
+  checkApplication,
+  isInWindow,
+  isRefused,
+  type ApplicationFacts,
+  type RuleSetLimits,
+} from "@/lib/agronomy/rules";
 
 const byName = (name: string): RuleSetLimits => {
   const r = SHIPPED_RULE_SETS.find((x) => x.name === name)!;
-  return { ...r, proBlackout: r.proBlackout ? [...r.proBlackout] : null, homeownerBlackout: r.homeownerBlackout ? [...r.homeownerBlackout] : null };
+  return {
+    ...r,
+    proBlackout: r.proBlackout ? [...r.proBlackout] : null,
+    homeownerBlackout: r.homeownerBlackout ? [...r.homeownerBlackout] : null,
+  };
 };
 const NJ = byName("New Jersey turf fertiliser law");
 const MN = byName("Minnesota phosphorus law");
@@ -27,7 +38,8 @@ const base: ApplicationFacts = {
   yearToDateNLb: 1,
   annualNRange: { min: 2, max: 4 },
 };
-const keys = (r: RuleSetLimits, a: Partial<ApplicationFacts>) => checkApplication(r, { ...base, ...a }).map((f) => `${f.key}:${f.severity}`);
+const keys = (r: RuleSetLimits, a: Partial<ApplicationFacts>) =>
+  checkApplication(r, { ...base, ...a }).map((f) => `${f.key}:${f.severity}`);
 
 describe("New Jersey", () => {
   it("an application within every limit passes", () => expect(keys(NJ, {})).toEqual([]));
@@ -35,7 +47,11 @@ describe("New Jersey", () => {
     expect(keys(NJ, { nLb: 0.9, wsnLb: 0.63 })).toEqual([]);
     expect(keys(NJ, { nLb: 0.91, wsnLb: 0.63 })).toEqual(["max_n:refusal"]);
   });
-  it("water-soluble N above 0.7 lb is refused", () => expect(keys(NJ, { nLb: 0.8, wsnLb: 0.8, slowReleasePctOfN: 0 })).toEqual(["max_wsn:refusal", "min_slow_release:refusal"]));
+  it("water-soluble N above 0.7 lb is refused", () =>
+    expect(keys(NJ, { nLb: 0.8, wsnLb: 0.8, slowReleasePctOfN: 0 })).toEqual([
+      "max_wsn:refusal",
+      "min_slow_release:refusal",
+    ]));
   it("less than 20 % slow-release N is refused (only for products with N)", () => {
     expect(keys(NJ, { slowReleasePctOfN: 10 })).toEqual(["min_slow_release:refusal"]);
     expect(keys(NJ, { nPct: 0, nLb: 0, wsnLb: 0, slowReleasePctOfN: 0 })).toEqual([]);
@@ -44,7 +60,9 @@ describe("New Jersey", () => {
     expect(keys(NJ, { appliedOn: "2026-12-01" })).toEqual(["blackout:refusal"]);
     expect(keys(NJ, { appliedOn: "2027-03-01" })).toEqual(["blackout:refusal"]);
     expect(keys(NJ, { appliedOn: "2026-11-20" })).toEqual([]);
-    expect(keys(NJ, { appliedOn: "2026-11-20", byProfessional: false })).toEqual(["blackout:refusal"]);
+    expect(keys(NJ, { appliedOn: "2026-11-20", byProfessional: false })).toEqual([
+      "blackout:refusal",
+    ]);
     expect(keys(NJ, { appliedOn: "2027-03-02" })).toEqual([]);
   });
   it("phosphorus only with a soil test or when establishing", () => {
@@ -65,7 +83,8 @@ describe("Minnesota", () => {
     expect(keys(MN, { p2o5Lb: 0.3, soilTestOn: "2022-06-01" })).toEqual(["phosphorus:refusal"]);
     expect(keys(MN, { p2o5Lb: 0.3, soilTestOn: "2027-01-01" })).toEqual(["phosphorus:refusal"]); // a test after the date does not count
   });
-  it("has no nitrogen limits or blackout", () => expect(keys(MN, { nLb: 1.5, wsnLb: 1.5, appliedOn: "2026-12-15" })).toEqual([]));
+  it("has no nitrogen limits or blackout", () =>
+    expect(keys(MN, { nLb: 1.5, wsnLb: 1.5, appliedOn: "2026-12-15" })).toEqual([]));
 });
 
 describe("company default and the species range", () => {

@@ -3,6 +3,7 @@
 // #767676-on-white = 4.54:1 (WCAG's own example of the lightest grey passing AA on white).
 import Color from "colorjs.io";
 import { describe, expect, it } from "vitest";
+
 import { palette } from "@/tailwind.config";
 
 const contrast = (a: string, b: string) => new Color(a).contrast(new Color(b), "WCAG21");

@@ -3,11 +3,21 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
+
 import type { Actor } from "@/lib/auth/actor";
 import { createGuards } from "@/lib/auth/guard";
 import { AppError } from "@/lib/http/app-error";
 
-const manager: Actor = { userId: "u1", companyId: "c1", companyName: "Co", companyTimeZone: "America/New_York", role: "manager", email: "m@x.test", name: "M", sessionId: "s" };
+const manager: Actor = {
+  userId: "u1",
+  companyId: "c1",
+  companyName: "Co",
+  companyTimeZone: "America/New_York",
+  role: "manager",
+  email: "m@x.test",
+  name: "M",
+  sessionId: "s",
+};
 const homeowner: Actor = { ...manager, userId: "u2", role: "homeowner" };
 
 function guardsFor(actor: Actor | null) {
@@ -20,28 +30,51 @@ describe("route()", () => {
   it("401 without an actor, 403 for a role not allowed, 200 otherwise", async () => {
     const spec = { access: ["manager"] as const };
     expect((await guardsFor(null).route(spec, ok)(new Request("http://h/x"))).status).toBe(401);
-    expect((await guardsFor(homeowner).route(spec, ok)(new Request("http://h/x"))).status).toBe(403);
+    expect((await guardsFor(homeowner).route(spec, ok)(new Request("http://h/x"))).status).toBe(
+      403,
+    );
     const res = await guardsFor(manager).route(spec, ok)(new Request("http://h/x"));
     expect(res.status).toBe(200);
     expect(await res.json()).toEqual({ fine: true });
   });
 
   it("a malformed path parameter is 404, like any record out of scope", async () => {
-    const handler = guardsFor(manager).route({ access: ["manager"], params: z.object({ id: z.uuid() }), resource: "That zone" }, ok);
-    const res = await handler(new Request("http://h/x"), { params: Promise.resolve({ id: "1; drop table users" }) });
+    const handler = guardsFor(manager).route(
+      { access: ["manager"], params: z.object({ id: z.uuid() }), resource: "That zone" },
+      ok,
+    );
+    const res = await handler(new Request("http://h/x"), {
+      params: Promise.resolve({ id: "1; drop table users" }),
+    });
     expect(res.status).toBe(404);
-    expect(await res.json()).toEqual({ error: { code: "not_found", message: "That zone was not found." } });
+    expect(await res.json()).toEqual({
+      error: { code: "not_found", message: "That zone was not found." },
+    });
   });
 
   it("422 with field errors for a bad query or body; 422 for a body that is not JSON", async () => {
     const g = guardsFor(manager);
-    const byQuery = g.route({ access: ["manager"], query: z.object({ page: z.coerce.number().int().min(1) }) }, ok);
+    const byQuery = g.route(
+      { access: ["manager"], query: z.object({ page: z.coerce.number().int().min(1) }) },
+      ok,
+    );
     const q = await byQuery(new Request("http://h/x?page=zero"));
     expect(q.status).toBe(422);
-    expect(((await q.json()) as { error: { fieldErrors: Record<string, string[]> } }).error.fieldErrors.page).toBeDefined();
+    expect(
+      ((await q.json()) as { error: { fieldErrors: Record<string, string[]> } }).error.fieldErrors
+        .page,
+    ).toBeDefined();
 
-    const byBody = g.route({ access: ["manager"], body: z.object({ name: z.string().min(1) }) }, ok);
-    const post = (body: string) => new Request("http://h/x", { method: "POST", body, headers: { origin: "http://h", host: "h" } });
+    const byBody = g.route(
+      { access: ["manager"], body: z.object({ name: z.string().min(1) }) },
+      ok,
+    );
+    const post = (body: string) =>
+      new Request("http://h/x", {
+        method: "POST",
+        body,
+        headers: { origin: "http://h", host: "h" },
+      });
     expect((await byBody(post('{"name":""}'))).status).toBe(422);
     expect((await byBody(post("{not json"))).status).toBe(422);
     expect((await byBody(post('{"name":"Front lawn"}'))).status).toBe(200);
@@ -49,13 +82,19 @@ describe("route()", () => {
 
   it("refuses cross-site and origin-less mutations", async () => {
     const handler = guardsFor(manager).route({ access: ["manager"] }, ok);
-    const post = (headers: Record<string, string>) => handler(new Request("http://h/x", { method: "POST", headers }));
+    const post = (headers: Record<string, string>) =>
+      handler(new Request("http://h/x", { method: "POST", headers }));
     expect((await post({ origin: "https://elsewhere.test", host: "h" })).status).toBe(403);
     expect((await post({ host: "h" })).status).toBe(403);
     // Origin "null" (sandboxed frames, some redirects) and unparsable origins are refused, not a 500.
-    for (const origin of ["null", "::not a url", "http://", "file://"]) expect((await post({ origin, host: "h" })).status).toBe(403);
-    expect((await post({ origin: "http://h", host: "h", "sec-fetch-site": "cross-site" })).status).toBe(403);
-    expect((await post({ origin: "http://h", host: "h", "sec-fetch-site": "same-origin" })).status).toBe(200);
+    for (const origin of ["null", "::not a url", "http://", "file://"])
+      expect((await post({ origin, host: "h" })).status).toBe(403);
+    expect(
+      (await post({ origin: "http://h", host: "h", "sec-fetch-site": "cross-site" })).status,
+    ).toBe(403);
+    expect(
+      (await post({ origin: "http://h", host: "h", "sec-fetch-site": "same-origin" })).status,
+    ).toBe(200);
   });
 
   it("an unexpected failure is a 500 with a plain message: no stack, no SQL, whatever was thrown", async () => {
@@ -99,27 +138,39 @@ describe("action()", () => {
 
   it("parses FormData and plain objects, and returns typed failures", async () => {
     const g = guardsFor(manager);
-    const act = g.action({ access: ["manager"], input: schema }, async ({ input }) => input.name.toUpperCase());
+    const act = g.action({ access: ["manager"], input: schema }, async ({ input }) =>
+      input.name.toUpperCase(),
+    );
     const form = new FormData();
     form.set("name", " back yard ");
     expect(await act(form)).toEqual({ ok: true, data: "BACK YARD" });
     expect(await act({ name: "" })).toEqual({
       ok: false,
-      error: { code: "invalid_input", message: "Some values need attention.", fieldErrors: { name: ["Name the zone."] } },
+      error: {
+        code: "invalid_input",
+        message: "Some values need attention.",
+        fieldErrors: { name: ["Name the zone."] },
+      },
     });
   });
 
   it("checks the role before running the body", async () => {
     let ran = false;
-    const act = guardsFor(homeowner).action({ access: ["manager", "technician"], input: schema }, async () => {
-      ran = true;
-    });
+    const act = guardsFor(homeowner).action(
+      { access: ["manager", "technician"], input: schema },
+      async () => {
+        ran = true;
+      },
+    );
     expect(await act({ name: "x" })).toMatchObject({ ok: false, error: { code: "forbidden" } });
     expect(ran).toBe(false);
   });
 
   it("public actions run without an actor", async () => {
-    const act = guardsFor(null).action({ access: "public", input: schema }, async ({ actor }) => actor);
+    const act = guardsFor(null).action(
+      { access: "public", input: schema },
+      async ({ actor }) => actor,
+    );
     expect(await act({ name: "x" })).toEqual({ ok: true, data: null });
   });
 });

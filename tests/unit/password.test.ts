@@ -1,6 +1,7 @@
 // Argon2id parameters against the OWASP Password Storage Cheat Sheet minimum
 // (Argon2id, m = 19 MiB, t = 2, p = 1), read back from the PHC string the library writes.
 import { describe, expect, it } from "vitest";
+
 import { ARGON2_PARAMS, hashPassword, verifyPassword } from "@/lib/auth/password";
 
 describe("hashPassword", () => {

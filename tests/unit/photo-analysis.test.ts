@@ -7,13 +7,17 @@
 import Color from "colorjs.io";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+
 import { analyzeTurfPhoto } from "@/lib/photos/analyze";
-import { GREEN_WINDOW, dgciOf, rgbToHsb } from "@/lib/photos/color";
+import { dgciOf, GREEN_WINDOW, rgbToHsb } from "@/lib/photos/color";
+
 import { lawnImage, stripedImage, uniformImage } from "../helpers/images";
 
 /** HSB (= HSV) from colorjs.io: h in degrees, s and v in 0–100. */
 function referenceHsb(rgb: [number, number, number]) {
-  const [h, s, v] = new Color("srgb", rgb.map((c) => c / 255) as [number, number, number]).to("hsv").coords;
+  const [h, s, v] = new Color("srgb", rgb.map((c) => c / 255) as [number, number, number]).to(
+    "hsv",
+  ).coords;
   return { h: Number.isNaN(h) ? 0 : (h as number), s: (s as number) / 100, v: (v as number) / 100 };
 }
 
@@ -40,12 +44,15 @@ describe("analyzeTurfPhoto", () => {
   const TURF: [number, number, number] = [58, 122, 44]; // a mid turf green
   const SOIL: [number, number, number] = [121, 85, 58]; // dry soil brown
 
-  it.each([0, 0.25, 0.5, 1])("an image %s green measures that cover within ±1.5 points", async (fraction) => {
-    const result = await analyzeTurfPhoto(await stripedImage(1200, 800, fraction, TURF, SOIL));
-    expect(Math.abs(result.greenCoverPct - fraction * 100)).toBeLessThanOrEqual(1.5);
-    expect(result).toMatchObject({ width: 1200, height: 800 });
-    if (fraction === 0) expect(result.dgci).toBeNull();
-  });
+  it.each([0, 0.25, 0.5, 1])(
+    "an image %s green measures that cover within ±1.5 points",
+    async (fraction) => {
+      const result = await analyzeTurfPhoto(await stripedImage(1200, 800, fraction, TURF, SOIL));
+      expect(Math.abs(result.greenCoverPct - fraction * 100)).toBeLessThanOrEqual(1.5);
+      expect(result).toMatchObject({ width: 1200, height: 800 });
+      if (fraction === 0) expect(result.dgci).toBeNull();
+    },
+  );
 
   it("a mottled lawn photo (JPEG) with 30 % soil patches measures about 70 % cover", async () => {
     const result = await analyzeTurfPhoto(await lawnImage(1600, 1200, 0.3));
@@ -72,9 +79,17 @@ describe("analyzeTurfPhoto", () => {
   });
 
   it("a uniform colour outside the window is not green: soil, straw, grey, black, blue", async () => {
-    for (const rgb of [SOIL, [190, 170, 90], [200, 200, 200], [20, 20, 20], [40, 60, 200]] as [number, number, number][]) {
+    for (const rgb of [SOIL, [190, 170, 90], [200, 200, 200], [20, 20, 20], [40, 60, 200]] as [
+      number,
+      number,
+      number,
+    ][]) {
       const hsb = referenceHsb(rgb);
-      const inWindow = hsb.h >= GREEN_WINDOW.hueMin && hsb.h <= GREEN_WINDOW.hueMax && hsb.s >= GREEN_WINDOW.minSaturation && hsb.v >= GREEN_WINDOW.minBrightness;
+      const inWindow =
+        hsb.h >= GREEN_WINDOW.hueMin &&
+        hsb.h <= GREEN_WINDOW.hueMax &&
+        hsb.s >= GREEN_WINDOW.minSaturation &&
+        hsb.v >= GREEN_WINDOW.minBrightness;
       expect(inWindow).toBe(false);
       expect((await analyzeTurfPhoto(await uniformImage(rgb))).greenCoverPct).toBe(0);
     }
@@ -82,7 +97,10 @@ describe("analyzeTurfPhoto", () => {
 
   it("reports the size after orientation (EXIF orientation 6 = rotated 90°)", async () => {
     const { default: sharp } = await import("sharp");
-    const rotated = await sharp(await stripedImage(400, 300, 0.5, TURF, SOIL, "jpeg")).withMetadata({ orientation: 6 }).jpeg().toBuffer();
+    const rotated = await sharp(await stripedImage(400, 300, 0.5, TURF, SOIL, "jpeg"))
+      .withMetadata({ orientation: 6 })
+      .jpeg()
+      .toBuffer();
     expect(await analyzeTurfPhoto(rotated)).toMatchObject({ width: 300, height: 400 });
   });
 

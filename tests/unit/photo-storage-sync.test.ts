@@ -44,11 +44,22 @@ describe("local photo storage", () => {
     expect(syncTemp).toMatch(new RegExp(`^sync ${target}\\.\\d+\\.[0-9a-f-]{36}\\.tmp$`));
     expect(renamed).toBe(`rename ${syncTemp!.slice(5)} -> ${target}`);
     // The company folder and the store's root were both created here: their parents' entries changed too.
-    expect(folders).toEqual([`sync ${path.dirname(target)}`, `sync ${path.join(root, "photos")}`, `sync ${root}`]);
+    expect(folders).toEqual([
+      `sync ${path.dirname(target)}`,
+      `sync ${path.join(root, "photos")}`,
+      `sync ${root}`,
+    ]);
     expect(readFileSync(target, "utf8")).toBe("RIFF0000WEBP");
 
     calls.length = 0;
-    await store.put("c0ffee00-0000-4000-8000-000000000000/def456-thumb.webp", Buffer.from("RIFF0000WEBP"), "image/webp");
-    expect(calls.slice(1)).toEqual([expect.stringMatching(/^rename /), `sync ${path.dirname(target)}`]); // the folder existed: only its own entry changed
+    await store.put(
+      "c0ffee00-0000-4000-8000-000000000000/def456-thumb.webp",
+      Buffer.from("RIFF0000WEBP"),
+      "image/webp",
+    );
+    expect(calls.slice(1)).toEqual([
+      expect.stringMatching(/^rename /),
+      `sync ${path.dirname(target)}`,
+    ]); // the folder existed: only its own entry changed
   });
 });

@@ -1,6 +1,7 @@
 // The grass-species reference table against its published sources, and the demo scenario's
 // own consistency (invented data, .test e-mails, the sizes the demo promises).
 import { describe, expect, it } from "vitest";
+
 import { demoCompany, demoScenario, otherCompany } from "@/fixtures/demo-scenario";
 import { findGrassSpecies, grassSpecies } from "@/fixtures/grass-species";
 
@@ -34,11 +35,31 @@ describe("grass species: annual nitrogen (lb N / 1,000 ft² / yr)", () => {
 
   // Source: UF/IFAS, north / central / south Florida.
   const florida: Record<string, [[number, number], [number, number], [number, number]]> = {
-    bahiagrass: [[2, 3], [2, 4], [2, 4]],
-    bermudagrass: [[3, 5], [4, 6], [5, 7]],
-    centipedegrass: [[1, 2], [2, 3], [2, 3]],
-    st_augustinegrass: [[2, 4], [2, 5], [4, 6]],
-    zoysiagrass: [[3, 5], [3, 6], [4, 6]],
+    bahiagrass: [
+      [2, 3],
+      [2, 4],
+      [2, 4],
+    ],
+    bermudagrass: [
+      [3, 5],
+      [4, 6],
+      [5, 7],
+    ],
+    centipedegrass: [
+      [1, 2],
+      [2, 3],
+      [2, 3],
+    ],
+    st_augustinegrass: [
+      [2, 4],
+      [2, 5],
+      [4, 6],
+    ],
+    zoysiagrass: [
+      [3, 5],
+      [3, 6],
+      [4, 6],
+    ],
   };
   it.each(Object.entries(florida))("%s (UF/IFAS by region)", (key, [north, central, south]) => {
     const s = findGrassSpecies(key)!;
@@ -79,7 +100,8 @@ describe("demo scenario", () => {
       const lons = company.properties.map((p) => p.longitude);
       expect(Math.max(...lats) - Math.min(...lats)).toBeLessThan(0.5);
       expect(Math.max(...lons) - Math.min(...lons)).toBeLessThan(0.5);
-      for (const p of company.properties) for (const z of p.zones) expect(findGrassSpecies(z.grassSpecies)).toBeDefined();
+      for (const p of company.properties)
+        for (const z of p.zones) expect(findGrassSpecies(z.grassSpecies)).toBeDefined();
     }
   });
 });

@@ -1,6 +1,7 @@
 // The report e-mail: one button to the report, keep-off guidance, care-note titles, and stored
 // text rendered inert in the HTML.
 import { describe, expect, it } from "vitest";
+
 import { CARE_NOTES } from "@/fixtures/care-notes";
 import { reportEmail } from "@/lib/mail/report-email";
 
@@ -11,21 +12,67 @@ const report = {
   companyName: "Larkmoor Lawn Care",
   technicianName: "Luis Arroyo",
   propertyIndex: 78.4,
-  zones: [{ zoneId: "z", name: "Front lawn", skipped: null, sentences: [], index: 80, photos: [{ id: "p", visitId: "v", zoneId: "z", zoneCheckId: "c", visitedOn: "2026-10-20", greenCoverPct: 80, dgci: 0.5, width: 1600, height: 1200, displayUrl: "/api/v1/photos/p/display", thumbUrl: "/api/v1/photos/p/thumb", capturedLocal: null, gps: null }] }],
-  applications: [{ zoneName: "Front lawn", productName: "Autumn Anchor 20-0-10", isPesticide: false, registrationNumber: "", nLb: 0.9, p2o5Lb: 0, k2oLb: 0.45, labelCautions: "", reentryGuidance: "Keep off until watered in and the turf has dried." }],
-  careNotes: [{ note: CARE_NOTES.find((n) => n.key === "after_fertiliser")!, because: ["Front lawn: fed today"] }],
+  zones: [
+    {
+      zoneId: "z",
+      name: "Front lawn",
+      skipped: null,
+      sentences: [],
+      index: 80,
+      photos: [
+        {
+          id: "p",
+          visitId: "v",
+          zoneId: "z",
+          zoneCheckId: "c",
+          visitedOn: "2026-10-20",
+          greenCoverPct: 80,
+          dgci: 0.5,
+          width: 1600,
+          height: 1200,
+          displayUrl: "/api/v1/photos/p/display",
+          thumbUrl: "/api/v1/photos/p/thumb",
+          capturedLocal: null,
+          gps: null,
+        },
+      ],
+    },
+  ],
+  applications: [
+    {
+      zoneName: "Front lawn",
+      productName: "Autumn Anchor 20-0-10",
+      isPesticide: false,
+      registrationNumber: "",
+      nLb: 0.9,
+      p2o5Lb: 0,
+      k2oLb: 0.45,
+      labelCautions: "",
+      reentryGuidance: "Keep off until watered in and the turf has dried.",
+    },
+  ],
+  careNotes: [
+    {
+      note: CARE_NOTES.find((n) => n.key === "after_fertiliser")!,
+      because: ["Front lawn: fed today"],
+    },
+  ],
 };
 
 describe("report e-mail", () => {
   it("has the summary, keep-off guidance, care notes, photo links and one button to the report", () => {
     const m = reportEmail(report, "http://localhost:3000/", "Samir Haddad");
-    expect(m.subject).toBe("Your lawn visit report — <script>alert(1)</script> residence, Tue, 20 Oct 2026");
+    expect(m.subject).toBe(
+      "Your lawn visit report — <script>alert(1)</script> residence, Tue, 20 Oct 2026",
+    );
     expect(m.text).toMatch(/Your lawn's health score: 78 out of 100/);
     expect(m.text).toMatch(/Safety: Keep off until watered in and the turf has dried\./);
     expect(m.text).toMatch(/• After today's feeding/);
     expect(m.text).toContain("http://localhost:3000/api/v1/photos/p/display");
     expect(m.html.match(/Read your visit report/g)).toHaveLength(1);
-    expect(m.html).toContain('href="http://localhost:3000/my-lawn/visits/11111111-1111-4111-8111-111111111111"');
+    expect(m.html).toContain(
+      'href="http://localhost:3000/my-lawn/visits/11111111-1111-4111-8111-111111111111"',
+    );
     expect(m.html).not.toContain("<script>");
     expect(m.html).toContain("&lt;script&gt;");
   });

@@ -7,7 +7,14 @@
 // - Pythium blight: Nutter, Cole & Schein (1983), Plant Disease 67:1126: Tmax > 30 °C, then
 //   ≥ 14 h of RH > 90 % with Tmin > 20 °C.
 import { describe, expect, it } from "vitest";
-import { brownPatchIndex, DOLLAR_SPOT_THRESHOLD, dollarSpotProbability, estimateHoursRhAbove90, pythiumWeatherRisk } from "@/lib/risk/models";
+
+import {
+  brownPatchIndex,
+  DOLLAR_SPOT_THRESHOLD,
+  dollarSpotProbability,
+  estimateHoursRhAbove90,
+  pythiumWeatherRisk,
+} from "@/lib/risk/models";
 
 describe("dollar spot (Smith et al. 2018)", () => {
   it("reproduces the worked example: RH5 80 %, T5 20 °C → 40.4 %", () => {

@@ -6,11 +6,25 @@
 // Statistical Power Analysis for the Behavioral Sciences (1988): r .1 small, .3 medium, .5 large.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+
+import { technicianActivity, weekStart } from "@/lib/book/team";
 import { addDays } from "@/lib/dates";
-import type { DerivedDay } from "@/lib/weather/derived";
-import { indexDistribution, propertyIndexByVisit, propertyNitrogenEvents, recentTrend, seasonChange, zoneCorrelations } from "@/lib/scoring/history";
+import {
+  indexDistribution,
+  propertyIndexByVisit,
+  propertyNitrogenEvents,
+  recentTrend,
+  seasonChange,
+  zoneCorrelations,
+} from "@/lib/scoring/history";
 import { correlate } from "@/lib/scoring/trend";
-import { correlationStrength, patternPhrase, seasonSentence, trendSentence } from "@/lib/scoring/words";
+import {
+  correlationStrength,
+  patternPhrase,
+  seasonSentence,
+  trendSentence,
+} from "@/lib/scoring/words";
+import type { DerivedDay } from "@/lib/weather/derived";
 
 describe("Spearman's ρ (Wikipedia worked example)", () => {
   it("IQ vs hours of TV per week: ρ = −29/165", () => {
@@ -64,13 +78,30 @@ describe("propertyIndexByVisit", () => {
   it("each visit's index lies between its zones' lowest and highest (fast-check)", () => {
     // Stored Indexes are rounded to 0.1, and so is the property index.
     fc.assert(
-      fc.property(fc.array(fc.record({ visit: fc.constantFrom("a", "b", "c"), index: fc.integer({ min: 0, max: 1000 }).map((x) => x / 10), areaFt2: fc.double({ min: 1, max: 50_000, noNaN: true }) }), { minLength: 1, maxLength: 20 }), (rows) => {
-        for (const v of propertyIndexByVisit(rows.map((r) => ({ visitId: r.visit, date: "2026-06-01", index: r.index, areaFt2: r.areaFt2 })))) {
-          const own = rows.filter((r) => r.visit === v.visitId).map((r) => r.index);
-          expect(v.index).toBeGreaterThanOrEqual(Math.min(...own) - 1e-9);
-          expect(v.index).toBeLessThanOrEqual(Math.max(...own) + 1e-9);
-        }
-      }),
+      fc.property(
+        fc.array(
+          fc.record({
+            visit: fc.constantFrom("a", "b", "c"),
+            index: fc.integer({ min: 0, max: 1000 }).map((x) => x / 10),
+            areaFt2: fc.double({ min: 1, max: 50_000, noNaN: true }),
+          }),
+          { minLength: 1, maxLength: 20 },
+        ),
+        (rows) => {
+          for (const v of propertyIndexByVisit(
+            rows.map((r) => ({
+              visitId: r.visit,
+              date: "2026-06-01",
+              index: r.index,
+              areaFt2: r.areaFt2,
+            })),
+          )) {
+            const own = rows.filter((r) => r.visit === v.visitId).map((r) => r.index);
+            expect(v.index).toBeGreaterThanOrEqual(Math.min(...own) - 1e-9);
+            expect(v.index).toBeLessThanOrEqual(Math.max(...own) + 1e-9);
+          }
+        },
+      ),
     );
   });
   it("property N per feeding date is averaged over the whole lawn", () => {
@@ -93,21 +124,38 @@ describe("zoneCorrelations", () => {
   // 50 days apart, so a feeding 20 days before one check is outside the 45-day window of the next.
   const dates = [0, 1, 2, 3, 4, 5].map((k) => addDays("2026-01-05", 50 * k));
   it("below 6 checks: nothing (not enough visits yet)", () => {
-    const c = zoneCorrelations(dates.slice(0, 5).map((date, i) => ({ date, index: 60 + i })), [], []);
+    const c = zoneCorrelations(
+      dates.slice(0, 5).map((date, i) => ({ date, index: 60 + i })),
+      [],
+      [],
+    );
     expect(c.n).toBe(5);
     expect(c.nitrogen).toBeNull();
     expect(c.respondsToNitrogen).toBeNull();
   });
   it("N is what was available before the check: a feeding at the same visit is not counted", () => {
-    const c = zoneCorrelations([{ date: "2026-06-01", index: 70 }], [{ date: "2026-06-01", nLb: 0.8, wsnLb: 0.5, productName: "x" }], []);
+    const c = zoneCorrelations(
+      [{ date: "2026-06-01", index: 70 }],
+      [{ date: "2026-06-01", nLb: 0.8, wsnLb: 0.5, productName: "x" }],
+      [],
+    );
     expect(c.pairs[0]!.availableNLb).toBe(0);
     // 28 days later: all 0.5 WSN (inside 45 days) + 0.3 slow-release × 27/56 released by the day before.
-    const later = zoneCorrelations([{ date: "2026-06-29", index: 70 }], [{ date: "2026-06-01", nLb: 0.8, wsnLb: 0.5, productName: "x" }], []);
+    const later = zoneCorrelations(
+      [{ date: "2026-06-29", index: 70 }],
+      [{ date: "2026-06-01", nLb: 0.8, wsnLb: 0.5, productName: "x" }],
+      [],
+    );
     expect(later.pairs[0]!.availableNLb).toBeCloseTo(0.5 + (0.3 * 27) / 56, 9);
   });
   it("a zone whose Index rises with its feeding responds; water balance is read the day before", () => {
     // A feeding of 0.6 lb WSN 20 days before every other check.
-    const apps = [dates[1]!, dates[3]!, dates[5]!].map((d) => ({ date: addDays(d, -20), nLb: 0.6, wsnLb: 0.6, productName: "x" }));
+    const apps = [dates[1]!, dates[3]!, dates[5]!].map((d) => ({
+      date: addDays(d, -20),
+      nLb: 0.6,
+      wsnLb: 0.6,
+      productName: "x",
+    }));
     const checks = dates.map((date, i) => ({ date, index: i % 2 ? 82 : 70 }));
     const days = dates.map((d, i) => day(addDays(d, -1), i * 0.1));
     const c = zoneCorrelations(checks, apps, days);
@@ -118,7 +166,11 @@ describe("zoneCorrelations", () => {
     expect(c.pairs.map((p) => p.balance14In)).toEqual([0, 0.1, 0.2, 0.30000000000000004, 0.4, 0.5]);
   });
   it("without weather days the water correlation is absent, not invented", () => {
-    const c = zoneCorrelations(dates.map((date, i) => ({ date, index: 60 + i })), [], []);
+    const c = zoneCorrelations(
+      dates.map((date, i) => ({ date, index: 60 + i })),
+      [],
+      [],
+    );
     expect(c.water).toBeNull();
     expect(c.pairs.every((p) => p.balance14In === null)).toBe(true);
   });
@@ -142,8 +194,6 @@ describe("book figures and words", () => {
     expect(patternPhrase(0.02)).toBe("no pattern");
   });
 });
-
-import { technicianActivity, weekStart } from "@/lib/book/team";
 
 describe("technician activity", () => {
   it("weeks start on Monday; visits per week, checks per visit and photos per check", () => {

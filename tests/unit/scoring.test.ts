@@ -5,9 +5,10 @@
 import fc from "fast-check";
 import { mean } from "simple-statistics";
 import { describe, expect, it } from "vitest";
+
 import { GOLDEN_CASES } from "@/fixtures/scoring/golden";
 import { availableNitrogen } from "@/lib/scoring/available-nitrogen";
-import { type IndexInput, propertyIndex, swardIndex } from "@/lib/scoring/sward-index";
+import { propertyIndex, swardIndex, type IndexInput } from "@/lib/scoring/sward-index";
 import { correlate, indexTrend, linearFit, trendWord } from "@/lib/scoring/trend";
 
 const X = [10, 8, 13, 9, 11, 14, 6, 4, 12, 7, 5];
@@ -15,20 +16,26 @@ const ANSCOMBE: [number[], number[]][] = [
   [X, [8.04, 6.95, 7.58, 8.81, 8.33, 9.96, 7.24, 4.26, 10.84, 4.82, 5.68]],
   [X, [9.14, 8.14, 8.74, 8.77, 9.26, 8.1, 6.13, 3.1, 9.13, 7.26, 4.74]],
   [X, [7.46, 6.77, 12.74, 7.11, 7.81, 8.84, 6.08, 5.39, 8.15, 6.42, 5.73]],
-  [[8, 8, 8, 8, 8, 8, 8, 19, 8, 8, 8], [6.58, 5.76, 7.71, 8.84, 8.47, 7.04, 5.25, 12.5, 5.56, 7.91, 6.89]],
+  [
+    [8, 8, 8, 8, 8, 8, 8, 19, 8, 8, 8],
+    [6.58, 5.76, 7.71, 8.84, 8.47, 7.04, 5.25, 12.5, 5.56, 7.91, 6.89],
+  ],
 ];
 
 describe("Anscombe's quartet", () => {
-  it.each(ANSCOMBE.map((set, i) => [i + 1, set] as const))("set %i: mean x 9, mean y 7.50, y = 3.00 + 0.500x, r = 0.816", (_i, [xs, ys]) => {
-    expect(mean(xs)).toBe(9);
-    expect(mean(ys)).toBeCloseTo(7.5, 2);
-    const fit = linearFit(xs, ys);
-    expect(fit.intercept).toBeCloseTo(3.0, 2);
-    expect(fit.slope).toBeCloseTo(0.5, 3);
-    const r = correlate(xs, ys)!;
-    expect(Math.abs(r.pearson - 0.816)).toBeLessThan(0.0015);
-    expect(r.n).toBe(11);
-  });
+  it.each(ANSCOMBE.map((set, i) => [i + 1, set] as const))(
+    "set %i: mean x 9, mean y 7.50, y = 3.00 + 0.500x, r = 0.816",
+    (_i, [xs, ys]) => {
+      expect(mean(xs)).toBe(9);
+      expect(mean(ys)).toBeCloseTo(7.5, 2);
+      const fit = linearFit(xs, ys);
+      expect(fit.intercept).toBeCloseTo(3.0, 2);
+      expect(fit.slope).toBeCloseTo(0.5, 3);
+      const r = correlate(xs, ys)!;
+      expect(Math.abs(r.pearson - 0.816)).toBeLessThan(0.0015);
+      expect(r.n).toBe(11);
+    },
+  );
 });
 
 const rating = fc.integer({ min: 1, max: 9 });
@@ -39,41 +46,86 @@ const input = fc.record({
   uniformityRating: fc.option(rating, { nil: undefined }),
   bareSoilPct: fc.option(fc.integer({ min: 0, max: 100 }), { nil: undefined }),
   weedPct: fc.option(fc.integer({ min: 0, max: 100 }), { nil: undefined }),
-  symptoms: fc.array(fc.record({ severity: fc.constantFrom(1 as const, 2 as const, 3 as const) }), { maxLength: 4 }),
-  photo: fc.option(fc.record({ greenCoverPct: fc.double({ min: 0, max: 100, noNaN: true }), dgci: fc.option(fc.double({ min: 0, max: 1, noNaN: true }), { nil: null }) }), { nil: undefined }),
+  symptoms: fc.array(fc.record({ severity: fc.constantFrom(1 as const, 2 as const, 3 as const) }), {
+    maxLength: 4,
+  }),
+  photo: fc.option(
+    fc.record({
+      greenCoverPct: fc.double({ min: 0, max: 100, noNaN: true }),
+      dgci: fc.option(fc.double({ min: 0, max: 1, noNaN: true }), { nil: null }),
+    }),
+    { nil: undefined },
+  ),
 }) as fc.Arbitrary<IndexInput>;
 
 describe("swardIndex properties", () => {
   it("is bounded 0–100", () => {
-    fc.assert(fc.property(input, (c) => {
-      const { index } = swardIndex(c);
-      expect(index).toBeGreaterThanOrEqual(0);
-      expect(index).toBeLessThanOrEqual(100);
-    }));
+    fc.assert(
+      fc.property(input, (c) => {
+        const { index } = swardIndex(c);
+        expect(index).toBeGreaterThanOrEqual(0);
+        expect(index).toBeLessThanOrEqual(100);
+      }),
+    );
   });
 
   it("never drops when a rating rises", () => {
-    fc.assert(fc.property(input, fc.constantFrom("qualityRating", "colorRating", "densityRating", "uniformityRating") as fc.Arbitrary<"qualityRating" | "colorRating" | "densityRating" | "uniformityRating">, (c, key) => {
-      const current = c[key];
-      if (current === undefined || current >= 9) return;
-      expect(swardIndex({ ...c, [key]: current + 1 }).index).toBeGreaterThanOrEqual(swardIndex(c).index);
-    }));
+    fc.assert(
+      fc.property(
+        input,
+        fc.constantFrom(
+          "qualityRating",
+          "colorRating",
+          "densityRating",
+          "uniformityRating",
+        ) as fc.Arbitrary<"qualityRating" | "colorRating" | "densityRating" | "uniformityRating">,
+        (c, key) => {
+          const current = c[key];
+          if (current === undefined || current >= 9) return;
+          expect(swardIndex({ ...c, [key]: current + 1 }).index).toBeGreaterThanOrEqual(
+            swardIndex(c).index,
+          );
+        },
+      ),
+    );
   });
 
   it("never rises when bare ground or a symptom is added", () => {
-    fc.assert(fc.property(input, fc.integer({ min: 1, max: 50 }), fc.constantFrom(1 as const, 2 as const, 3 as const), (c, more, severity) => {
-      const before = swardIndex(c).index;
-      expect(swardIndex({ ...c, bareSoilPct: Math.min(100, (c.bareSoilPct ?? 0) + more) }).index).toBeLessThanOrEqual(before);
-      expect(swardIndex({ ...c, symptoms: [...(c.symptoms ?? []), { severity }] }).index).toBeLessThanOrEqual(before);
-    }));
+    fc.assert(
+      fc.property(
+        input,
+        fc.integer({ min: 1, max: 50 }),
+        fc.constantFrom(1 as const, 2 as const, 3 as const),
+        (c, more, severity) => {
+          const before = swardIndex(c).index;
+          expect(
+            swardIndex({ ...c, bareSoilPct: Math.min(100, (c.bareSoilPct ?? 0) + more) }).index,
+          ).toBeLessThanOrEqual(before);
+          expect(
+            swardIndex({ ...c, symptoms: [...(c.symptoms ?? []), { severity }] }).index,
+          ).toBeLessThanOrEqual(before);
+        },
+      ),
+    );
   });
 
   it("a property's index lies between its zones' lowest and highest", () => {
-    fc.assert(fc.property(fc.array(fc.record({ index: fc.double({ min: 0, max: 100, noNaN: true }), areaFt2: fc.double({ min: 1, max: 20000, noNaN: true }) }), { minLength: 1, maxLength: 6 }), (zones) => {
-      const p = propertyIndex(zones)!;
-      expect(p).toBeGreaterThanOrEqual(Math.min(...zones.map((z) => z.index)) - 0.05);
-      expect(p).toBeLessThanOrEqual(Math.max(...zones.map((z) => z.index)) + 0.05);
-    }));
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.record({
+            index: fc.double({ min: 0, max: 100, noNaN: true }),
+            areaFt2: fc.double({ min: 1, max: 20000, noNaN: true }),
+          }),
+          { minLength: 1, maxLength: 6 },
+        ),
+        (zones) => {
+          const p = propertyIndex(zones)!;
+          expect(p).toBeGreaterThanOrEqual(Math.min(...zones.map((z) => z.index)) - 0.05);
+          expect(p).toBeLessThanOrEqual(Math.max(...zones.map((z) => z.index)) + 0.05);
+        },
+      ),
+    );
   });
 });
 
@@ -86,7 +138,9 @@ describe("golden cases", () => {
   it("has at least 12 cases, and a thin, yellowing, diseased zone scores below a dense dark one", () => {
     expect(GOLDEN_CASES.length).toBeGreaterThanOrEqual(12);
     const by = (n: string) => GOLDEN_CASES.find((g) => g.name === n)!.expected;
-    expect(by("thin yellowing lawn with dollar spot")).toBeLessThan(by("healthy dense dark lawn with photo"));
+    expect(by("thin yellowing lawn with dollar spot")).toBeLessThan(
+      by("healthy dense dark lawn with photo"),
+    );
     expect(by("acceptable")).toBeGreaterThan(50);
     expect(by("good ratings but severe grubs")).toBeLessThan(by("acceptable"));
   });

@@ -1,6 +1,7 @@
 // Sign-in throttling policy and the sign-in input schema.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+
 import { signInSchema } from "@/lib/auth/schemas";
 import { isThrottled, normaliseEmail } from "@/lib/auth/throttle";
 
@@ -38,14 +39,21 @@ describe("normaliseEmail", () => {
 
 describe("signInSchema", () => {
   it("accepts an e-mail and password, trimming the e-mail", () => {
-    expect(signInSchema.parse({ email: " tech1@demo.sward.test ", password: "x" })).toEqual({ email: "tech1@demo.sward.test", password: "x" });
+    expect(signInSchema.parse({ email: " tech1@demo.sward.test ", password: "x" })).toEqual({
+      email: "tech1@demo.sward.test",
+      password: "x",
+    });
   });
 
   it("rejects missing, malformed and oversized values with a message per field", () => {
     const r = signInSchema.safeParse({ email: "not-an-email", password: "" });
     expect(r.success).toBe(false);
-    expect(signInSchema.safeParse({ email: "a@b.test", password: "x".repeat(1025) }).success).toBe(false);
-    expect(signInSchema.safeParse({ email: ["a@b.test"], password: { $gt: "" } }).success).toBe(false);
+    expect(signInSchema.safeParse({ email: "a@b.test", password: "x".repeat(1025) }).success).toBe(
+      false,
+    );
+    expect(signInSchema.safeParse({ email: ["a@b.test"], password: { $gt: "" } }).success).toBe(
+      false,
+    );
   });
 
   it("never throws on arbitrary input", () => {

@@ -3,7 +3,8 @@
 import convert from "convert-units";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { M2_PER_FT2, areaInFt2 } from "@/lib/properties/schemas";
+
+import { areaInFt2, M2_PER_FT2 } from "@/lib/properties/schemas";
 import { emptyZoneCheck, zoneCheckSchema } from "@/lib/visits/schemas";
 
 const ZONE = "11111111-1111-4111-8111-111111111111";
@@ -20,7 +21,9 @@ describe("areaInFt2", () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 100_000, noNaN: true }), (m2) => {
         const reference = convert(m2).from("m2").to("ft2");
-        expect(Math.abs(areaInFt2(m2, "m2") - reference)).toBeLessThanOrEqual(0.05 + 2e-6 * reference);
+        expect(Math.abs(areaInFt2(m2, "m2") - reference)).toBeLessThanOrEqual(
+          0.05 + 2e-6 * reference,
+        );
       }),
     );
   });
@@ -33,16 +36,35 @@ describe("zoneCheckSchema", () => {
     expect(zoneCheckSchema.safeParse({ ...base, quality: 7 }).success).toBe(true);
     const done = zoneCheckSchema.safeParse({ ...base, status: "done", quality: 7 });
     expect(done.success).toBe(false);
-    expect(done.error?.issues.map((i) => i.path[0]).sort()).toEqual(["color", "density", "uniformity"]);
+    expect(done.error?.issues.map((i) => i.path[0]).sort()).toEqual([
+      "color",
+      "density",
+      "uniformity",
+    ]);
     expect(zoneCheckSchema.safeParse({ ...base, status: "skipped" }).success).toBe(false);
-    expect(zoneCheckSchema.safeParse({ ...base, status: "skipped", skipReason: "other", skipNote: "" }).success).toBe(false);
-    expect(zoneCheckSchema.safeParse({ ...base, status: "skipped", skipReason: "other", skipNote: "Gate locked" }).success).toBe(true);
+    expect(
+      zoneCheckSchema.safeParse({ ...base, status: "skipped", skipReason: "other", skipNote: "" })
+        .success,
+    ).toBe(false);
+    expect(
+      zoneCheckSchema.safeParse({
+        ...base,
+        status: "skipped",
+        skipReason: "other",
+        skipNote: "Gate locked",
+      }).success,
+    ).toBe(true);
   });
 
   it("ratings are whole numbers 1–9; percentages in steps of 5; readings to 0.05 in", () => {
-    for (const quality of [0, 10, 6.5, -1]) expect(zoneCheckSchema.safeParse({ ...base, quality }).success).toBe(false);
-    for (const barePct of [3, 101, -5]) expect(zoneCheckSchema.safeParse({ ...base, barePct }).success).toBe(false);
-    expect(zoneCheckSchema.safeParse({ ...base, barePct: 35, heightOfCutIn: 3.25, thatchIn: 0.75 }).success).toBe(true);
+    for (const quality of [0, 10, 6.5, -1])
+      expect(zoneCheckSchema.safeParse({ ...base, quality }).success).toBe(false);
+    for (const barePct of [3, 101, -5])
+      expect(zoneCheckSchema.safeParse({ ...base, barePct }).success).toBe(false);
+    expect(
+      zoneCheckSchema.safeParse({ ...base, barePct: 35, heightOfCutIn: 3.25, thatchIn: 0.75 })
+        .success,
+    ).toBe(true);
     expect(zoneCheckSchema.safeParse({ ...base, heightOfCutIn: 3.33 }).success).toBe(false);
   });
 
@@ -50,7 +72,11 @@ describe("zoneCheckSchema", () => {
     const s = { key: "dollar_spot", severity: 2, extentPct: 10 };
     expect(zoneCheckSchema.safeParse({ ...base, symptoms: [s] }).success).toBe(true);
     expect(zoneCheckSchema.safeParse({ ...base, symptoms: [s, s] }).success).toBe(false);
-    expect(zoneCheckSchema.safeParse({ ...base, symptoms: [{ ...s, key: "made_up" }] }).success).toBe(false);
-    expect(zoneCheckSchema.safeParse({ ...base, symptoms: [{ ...s, severity: 4 }] }).success).toBe(false);
+    expect(
+      zoneCheckSchema.safeParse({ ...base, symptoms: [{ ...s, key: "made_up" }] }).success,
+    ).toBe(false);
+    expect(zoneCheckSchema.safeParse({ ...base, symptoms: [{ ...s, severity: 4 }] }).success).toBe(
+      false,
+    );
   });
 });

@@ -1,14 +1,22 @@
 // The autosave store behind the zone-check form: nothing typed is dropped, saves are debounced,
 // failures retried with back-off, stale versions become conflicts, drafts survive a reload.
 import { describe, expect, it } from "vitest";
+
 import type { DeviceDraft } from "@/components/visits/draft-store";
-import { type AutosaveDeps, DEBOUNCE_MS, ZoneCheckAutosave } from "@/components/visits/zone-check-autosave";
-import type { ZoneCheckDto } from "@/lib/visits/dto";
+import {
+  DEBOUNCE_MS,
+  ZoneCheckAutosave,
+  type AutosaveDeps,
+} from "@/components/visits/zone-check-autosave";
 import type { SendResult } from "@/lib/query-client";
+import type { ZoneCheckDto } from "@/lib/visits/dto";
 
 const ZONE = "11111111-1111-4111-8111-111111111111";
 
-function harness(responses: ((body: Record<string, unknown>) => SendResult<ZoneCheckDto>)[], stored: DeviceDraft | null = null) {
+function harness(
+  responses: ((body: Record<string, unknown>) => SendResult<ZoneCheckDto>)[],
+  stored: DeviceDraft | null = null,
+) {
   const timers: { fn: () => void; ms: number }[] = [];
   const sent: Record<string, unknown>[] = [];
   let storage = stored;
@@ -29,7 +37,18 @@ function harness(responses: ((body: Record<string, unknown>) => SendResult<ZoneC
   function ok(body: Record<string, unknown>): SendResult<ZoneCheckDto> {
     version++;
     const { baseVersion: _b, ...values } = body;
-    return { ok: true, status: 200, data: { ...(values as object), id: "22222222-2222-4222-8222-222222222222", visitId: "v", version, updatedAt: "2026-06-01T10:00:00Z", updatedBy: "Luis" } as ZoneCheckDto };
+    return {
+      ok: true,
+      status: 200,
+      data: {
+        ...(values as object),
+        id: "22222222-2222-4222-8222-222222222222",
+        visitId: "v",
+        version,
+        updatedAt: "2026-06-01T10:00:00Z",
+        updatedBy: "Luis",
+      } as ZoneCheckDto,
+    };
   }
   const runTimers = async () => {
     while (timers.length) {
@@ -62,18 +81,37 @@ describe("ZoneCheckAutosave", () => {
   it("a page rendered from older server data than the phone's last acknowledged save shows the phone's copy", () => {
     const acknowledged: DeviceDraft = {
       id: "22222222-2222-4222-8222-222222222222",
-      values: { zoneId: ZONE, status: "draft", quality: 6, notes: "saved while reloading" } as DeviceDraft["values"],
+      values: {
+        zoneId: ZONE,
+        status: "draft",
+        quality: 6,
+        notes: "saved while reloading",
+      } as DeviceDraft["values"],
       baseVersion: 3,
       isDirty: false,
       savedLocallyAt: "x",
     };
-    const stale = { id: acknowledged.id, visitId: "v", version: 2, updatedAt: "x", updatedBy: null, zoneId: ZONE, status: "draft", quality: 6, notes: "" } as unknown as ZoneCheckDto;
+    const stale = {
+      id: acknowledged.id,
+      visitId: "v",
+      version: 2,
+      updatedAt: "x",
+      updatedBy: null,
+      zoneId: ZONE,
+      status: "draft",
+      quality: 6,
+      notes: "",
+    } as unknown as ZoneCheckDto;
     const h = harness([], acknowledged);
     const store = new ZoneCheckAutosave("v", ZONE, stale, true, h.deps);
     store.start();
     expect(store.getSnapshot().values.notes).toBe("saved while reloading");
     store.update((v) => ({ ...v, quality: 7 }));
-    return h.runTimers().then(() => expect(h.sent[0]).toMatchObject({ baseVersion: 3, notes: "saved while reloading" }));
+    return h
+      .runTimers()
+      .then(() =>
+        expect(h.sent[0]).toMatchObject({ baseVersion: 3, notes: "saved while reloading" }),
+      );
   });
 
   it("what is typed while a save is in flight is sent next, with the new base version", async () => {
@@ -94,7 +132,11 @@ describe("ZoneCheckAutosave", () => {
   });
 
   it("a failed save is visible, kept on the device, and retried with back-off", async () => {
-    const offline = (): SendResult<ZoneCheckDto> => ({ ok: false, status: 0, error: { code: "offline", message: "No connection to Sward right now." } });
+    const offline = (): SendResult<ZoneCheckDto> => ({
+      ok: false,
+      status: 0,
+      error: { code: "offline", message: "No connection to Sward right now." },
+    });
     const h = harness([offline, offline]);
     const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
     store.start();
@@ -106,7 +148,11 @@ describe("ZoneCheckAutosave", () => {
   });
 
   it("back-off waits grow: 2 s, then 5 s", async () => {
-    const fail = (): SendResult<ZoneCheckDto> => ({ ok: false, status: 503, error: { code: "internal", message: "Busy" } });
+    const fail = (): SendResult<ZoneCheckDto> => ({
+      ok: false,
+      status: 503,
+      error: { code: "internal", message: "Busy" },
+    });
     const h = harness([fail, fail, fail]);
     const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
     store.start();
@@ -121,8 +167,26 @@ describe("ZoneCheckAutosave", () => {
   });
 
   it("a conflict stops autosave and offers both versions", async () => {
-    const theirs = { id: "22222222-2222-4222-8222-222222222222", visitId: "v", version: 3, updatedAt: "x", updatedBy: "Dana", zoneId: ZONE, quality: 4 } as unknown as ZoneCheckDto;
-    const h = harness([() => ({ ok: false, status: 409, error: { code: "conflict", message: "Changed on another device", details: { current: theirs } } })]);
+    const theirs = {
+      id: "22222222-2222-4222-8222-222222222222",
+      visitId: "v",
+      version: 3,
+      updatedAt: "x",
+      updatedBy: "Dana",
+      zoneId: ZONE,
+      quality: 4,
+    } as unknown as ZoneCheckDto;
+    const h = harness([
+      () => ({
+        ok: false,
+        status: 409,
+        error: {
+          code: "conflict",
+          message: "Changed on another device",
+          details: { current: theirs },
+        },
+      }),
+    ]);
     const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
     store.start();
     store.update((v) => ({ ...v, quality: 8 }));
@@ -139,7 +203,12 @@ describe("ZoneCheckAutosave", () => {
   it("after a reload, unsaved device changes are restored and sent", async () => {
     const stored: DeviceDraft = {
       id: "22222222-2222-4222-8222-222222222222",
-      values: { zoneId: ZONE, status: "draft", quality: 6, notes: "before the reload" } as DeviceDraft["values"],
+      values: {
+        zoneId: ZONE,
+        status: "draft",
+        quality: 6,
+        notes: "before the reload",
+      } as DeviceDraft["values"],
       baseVersion: 0,
       isDirty: true,
       savedLocallyAt: "x",
@@ -147,18 +216,30 @@ describe("ZoneCheckAutosave", () => {
     const h = harness([], stored);
     const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
     store.start();
-    expect(store.getSnapshot()).toMatchObject({ isRestored: true, values: { notes: "before the reload" } });
+    expect(store.getSnapshot()).toMatchObject({
+      isRestored: true,
+      values: { notes: "before the reload" },
+    });
     await new Promise((r) => setTimeout(r, 0));
     expect(h.sent[0]).toMatchObject({ notes: "before the reload", baseVersion: 0 });
   });
 
   it("a locked visit stops saving and says why", async () => {
-    const h = harness([() => ({ ok: false, status: 403, error: { code: "forbidden", message: "This visit is finished and locked." } })]);
+    const h = harness([
+      () => ({
+        ok: false,
+        status: 403,
+        error: { code: "forbidden", message: "This visit is finished and locked." },
+      }),
+    ]);
     const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
     store.start();
     store.update((v) => ({ ...v, quality: 2 }));
     await h.runTimers();
-    expect(store.getSnapshot().saveState).toEqual({ kind: "locked", message: "This visit is finished and locked." });
+    expect(store.getSnapshot().saveState).toEqual({
+      kind: "locked",
+      message: "This visit is finished and locked.",
+    });
     expect(h.storage()?.values.quality).toBe(2); // still on the device
   });
 });

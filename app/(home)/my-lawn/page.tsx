@@ -1,28 +1,35 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
-import { requireActor } from "@/lib/auth/require";
-import { getProperty, listProperties } from "@/lib/properties/queries";
 import { LawnScore } from "@/components/scoring/lawn-score";
-import { propertyScoreHistory } from "@/lib/scoring/queries";
-import Link from "next/link";
-import { formatDate } from "@/lib/dates";
-import { listReports } from "@/lib/reports/queries";
 import { WateringLog } from "@/components/watering/watering-log";
+import { requireActor } from "@/lib/auth/require";
+import { formatDate, todayIn } from "@/lib/dates";
+import { getProperty, listProperties } from "@/lib/properties/queries";
+import { listReports } from "@/lib/reports/queries";
+import { propertyScoreHistory } from "@/lib/scoring/queries";
 import { listWaterings } from "@/lib/watering/queries";
-import { todayIn } from "@/lib/dates";
 
 export const metadata: Metadata = { title: "My lawn" };
 
 export default async function MyLawnPage() {
   const actor = await requireActor(["homeowner"], "/my-lawn");
   const summaries = await listProperties(actor);
-  const properties = await Promise.all(summaries.map(async (p) => ({ ...(await getProperty(actor, p.id)), scores: await propertyScoreHistory(actor, p.id, { weather: false }), reports: await listReports(actor, p.id), waterings: await listWaterings(actor, p.id, { limit: 30 }) })));
+  const properties = await Promise.all(
+    summaries.map(async (p) => ({
+      ...(await getProperty(actor, p.id)),
+      scores: await propertyScoreHistory(actor, p.id, { weather: false }),
+      reports: await listReports(actor, p.id),
+      waterings: await listWaterings(actor, p.id, { limit: 30 }),
+    })),
+  );
 
   return (
     <>
       <h1 className="text-3xl font-bold">My lawn</h1>
-      <p className="mb-6 mt-1 text-muted">
+      <p className="mt-1 mb-6 text-muted">
         Cared for by {actor.companyName}. Visit reports and care notes appear here after each visit.
       </p>
       {properties.length === 0 ? (
@@ -39,20 +46,38 @@ export default async function MyLawnPage() {
               <ul className="mb-6 space-y-2" aria-label="Visit reports">
                 {property.reports.map((r, i) => (
                   <li key={r.visitId}>
-                    <Link href={`/my-lawn/visits/${r.visitId}`} className="flex min-h-tap items-center justify-between rounded-xl border border-line bg-card p-3 font-semibold text-sward no-underline hover:border-sward">
+                    <Link
+                      href={`/my-lawn/visits/${r.visitId}`}
+                      className="flex min-h-tap items-center justify-between rounded-xl border border-line bg-card p-3 font-semibold text-sward no-underline hover:border-sward"
+                    >
                       <span>Visit of {formatDate(r.date)}</span>
-                      {i === 0 ? <span className="rounded-full bg-sward-tint px-2.5 py-1 text-sm text-sward-deep">Latest</span> : null}
+                      {i === 0 ? (
+                        <span className="rounded-full bg-sward-tint px-2.5 py-1 text-sm text-sward-deep">
+                          Latest
+                        </span>
+                      ) : null}
                     </Link>
                   </li>
                 ))}
               </ul>
             ) : (
-              <p className="mb-6 rounded-lg border border-line bg-card p-4">Your first report appears here after the first visit.</p>
+              <p className="mb-6 rounded-lg border border-line bg-card p-4">
+                Your first report appears here after the first visit.
+              </p>
             )}
             <h3 className="mb-1 text-xl font-bold">Your watering</h3>
-            <p className="mb-3 text-muted">Tell us when you water: it goes into the water balance we watch for drought and disease.</p>
+            <p className="mb-3 text-muted">
+              Tell us when you water: it goes into the water balance we watch for drought and
+              disease.
+            </p>
             <div className="mb-8">
-              <WateringLog propertyId={property.id} zones={property.zones} today={todayIn(property.timeZone)} waterings={property.waterings} canAdd />
+              <WateringLog
+                propertyId={property.id}
+                zones={property.zones}
+                today={todayIn(property.timeZone)}
+                waterings={property.waterings}
+                canAdd
+              />
             </div>
             <h3 className="mb-3 text-xl font-bold">Your lawn&apos;s zones</h3>
             <ZoneList zones={property.zones} />

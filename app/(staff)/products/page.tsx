@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+
 import { ProductList } from "@/components/products/product-list";
 import { requireActor } from "@/lib/auth/require";
 import { listProducts } from "@/lib/products/queries";
@@ -11,7 +12,10 @@ export default async function ProductsPage() {
   return (
     <>
       <h1 className="text-3xl font-bold">Products</h1>
-      <p className="mb-6 mt-1 text-muted">The catalogue technicians choose from. Analyses come from each product&apos;s label (guaranteed analysis, % by weight).</p>
+      <p className="mt-1 mb-6 text-muted">
+        The catalogue technicians choose from. Analyses come from each product&apos;s label
+        (guaranteed analysis, % by weight).
+      </p>
       <ProductList products={products} />
     </>
   );

@@ -1,34 +1,43 @@
-import { HydrationBoundary, dehydrate } from "@tanstack/react-query";
+import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import { Plus } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
-import { buttonClass } from "@/components/ui/button";
+
+import { BookView } from "@/components/book/book-view";
 import { PropertyList } from "@/components/properties/property-list";
+import { BookSummary } from "@/components/scoring/book-summary";
+import { buttonClass } from "@/components/ui/button";
+import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
+import { listBook } from "@/lib/book/queries";
+import { bookQuery } from "@/lib/book/schemas";
+import { AppError } from "@/lib/http/app-error";
+import { listPeople } from "@/lib/people/queries";
 import { listProperties } from "@/lib/properties/queries";
 import { propertyKeys } from "@/lib/properties/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
-import { BookSummary } from "@/components/scoring/book-summary";
 import { bookScoring } from "@/lib/scoring/queries";
-import { BookView } from "@/components/book/book-view";
-import { listBook } from "@/lib/book/queries";
-import { bookQuery } from "@/lib/book/schemas";
-import { listPeople } from "@/lib/people/queries";
-import type { Actor } from "@/lib/auth/actor";
-import { AppError } from "@/lib/http/app-error";
 
 export const metadata: Metadata = { title: "Properties" };
 
-export default async function PropertiesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function PropertiesPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const actor = await requireActor(["manager", "technician"]);
-  if (actor.role === "manager") return <ManagerBook actor={actor} searchParams={await searchParams} />;
+  if (actor.role === "manager")
+    return <ManagerBook actor={actor} searchParams={await searchParams} />;
   const queryClient = makeQueryClient();
-  await queryClient.prefetchQuery({ queryKey: propertyKeys.list(), queryFn: () => listProperties(actor) });
+  await queryClient.prefetchQuery({
+    queryKey: propertyKeys.list(),
+    queryFn: () => listProperties(actor),
+  });
 
   return (
     <>
       <h1 className="text-3xl font-bold">My properties</h1>
-      <p className="mb-6 mt-1 text-muted">The properties assigned to you.</p>
+      <p className="mt-1 mb-6 text-muted">The properties assigned to you.</p>
       <HydrationBoundary state={dehydrate(queryClient)}>
         <PropertyList showTechnician={false} />
       </HydrationBoundary>
@@ -36,12 +45,21 @@ export default async function PropertiesPage({ searchParams }: { searchParams: P
   );
 }
 
-async function ManagerBook({ actor, searchParams }: { actor: Actor; searchParams: Record<string, string | string[] | undefined> }) {
+async function ManagerBook({
+  actor,
+  searchParams,
+}: {
+  actor: Actor;
+  searchParams: Record<string, string | string[] | undefined>;
+}) {
   const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v) || undefined;
-  const query = bookQuery.parse(Object.fromEntries(Object.keys(bookQuery.shape).map((k) => [k, first(searchParams[k])])));
+  const query = bookQuery.parse(
+    Object.fromEntries(Object.keys(bookQuery.shape).map((k) => [k, first(searchParams[k])])),
+  );
   const [page, technicians, book] = await Promise.all([
     listBook(actor, query).catch((err: unknown) => {
-      if (err instanceof AppError && err.code === "invalid_input") return listBook(actor, { ...query, after: undefined });
+      if (err instanceof AppError && err.code === "invalid_input")
+        return listBook(actor, { ...query, after: undefined });
       throw err;
     }),
     listPeople(actor, "technician"),
@@ -56,8 +74,14 @@ async function ManagerBook({ actor, searchParams }: { actor: Actor; searchParams
           Add property
         </Link>
       </div>
-      <p className="mb-6 mt-1 text-muted">Every property {actor.companyName} serves.</p>
-      <BookView query={query} rows={page.rows} nextCursor={page.nextCursor} total={page.total} technicians={technicians.map((t) => ({ id: t.id, name: t.name }))} />
+      <p className="mt-1 mb-6 text-muted">Every property {actor.companyName} serves.</p>
+      <BookView
+        query={query}
+        rows={page.rows}
+        nextCursor={page.nextCursor}
+        total={page.total}
+        technicians={technicians.map((t) => ({ id: t.id, name: t.name }))}
+      />
       <div className="mt-10">
         <BookSummary book={book} />
       </div>

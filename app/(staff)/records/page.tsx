@@ -1,5 +1,6 @@
 import { Download } from "lucide-react";
 import type { Metadata } from "next";
+
 import { buttonClass } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import { requireActor } from "@/lib/auth/require";
@@ -7,7 +8,11 @@ import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 
 export const metadata: Metadata = { title: "Application records" };
 
-export default async function RecordsPage({ searchParams }: { searchParams: Promise<{ from?: string; to?: string }> }) {
+export default async function RecordsPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ from?: string; to?: string }>;
+}) {
   const actor = await requireActor(["manager"]);
   const today = todayIn(actor.companyTimeZone);
   const q = await searchParams;
@@ -16,10 +21,15 @@ export default async function RecordsPage({ searchParams }: { searchParams: Prom
   return (
     <>
       <h1 className="text-3xl font-bold">Application records</h1>
-      <p className="mb-6 mt-1 max-w-2xl text-muted">
-        Every application with what record-keeping rules ask for: customer and address, zone and area treated, date and time, product and registration number, rate and total amount, applicator and certification number, weather. Each rule set says how long records are kept.
+      <p className="mt-1 mb-6 max-w-2xl text-muted">
+        Every application with what record-keeping rules ask for: customer and address, zone and
+        area treated, date and time, product and registration number, rate and total amount,
+        applicator and certification number, weather. Each rule set says how long records are kept.
       </p>
-      <form method="get" className="flex max-w-2xl flex-wrap items-end gap-3 rounded-xl border border-line bg-card p-4">
+      <form
+        method="get"
+        className="flex max-w-2xl flex-wrap items-end gap-3 rounded-xl border border-line bg-card p-4"
+      >
         <Field id="from" label="From">
           <input id="from" name="from" type="date" defaultValue={from} className={inputClass} />
         </Field>
@@ -29,7 +39,11 @@ export default async function RecordsPage({ searchParams }: { searchParams: Prom
         <button type="submit" className={buttonClass("secondary")}>
           Set range
         </button>
-        <a href={`/api/v1/records/applications?from=${from}&to=${to}`} className={buttonClass("primary", "no-underline")} download>
+        <a
+          href={`/api/v1/records/applications?from=${from}&to=${to}`}
+          className={buttonClass("primary", "no-underline")}
+          download
+        >
           <Download className="size-5" aria-hidden="true" />
           Download CSV ({from} to {to})
         </a>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+
 import { RuleSetList } from "@/components/rule-sets/rule-set-list";
 import { requireActor } from "@/lib/auth/require";
 import { listRuleSets } from "@/lib/rule-sets/queries";
@@ -10,8 +11,9 @@ export default async function RuleSetsPage() {
   return (
     <>
       <h1 className="text-3xl font-bold">Rule sets</h1>
-      <p className="mb-6 mt-1 text-muted">
-        Fertiliser rules each property is checked against. Sward&apos;s checks help; local ordinances, applicator licensing and the product label take precedence.
+      <p className="mt-1 mb-6 text-muted">
+        Fertiliser rules each property is checked against. Sward&apos;s checks help; local
+        ordinances, applicator licensing and the product label take precedence.
       </p>
       <RuleSetList ruleSets={await listRuleSets(actor)} />
     </>

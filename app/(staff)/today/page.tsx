@@ -1,5 +1,6 @@
-import { HydrationBoundary, dehydrate } from "@tanstack/react-query";
+import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import type { Metadata } from "next";
+
 import { TodayList } from "@/components/visits/today-list";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, isIsoDate, todayIn } from "@/lib/dates";
@@ -9,17 +10,24 @@ import { visitKeys } from "@/lib/visits/query-keys";
 
 export const metadata: Metadata = { title: "Today" };
 
-export default async function TodayPage({ searchParams }: { searchParams: Promise<{ date?: string }> }) {
+export default async function TodayPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ date?: string }>;
+}) {
   const actor = await requireActor(["technician"]);
   const { date: asked } = await searchParams;
   const date = asked && isIsoDate(asked) ? asked : todayIn(actor.companyTimeZone);
   const queryClient = makeQueryClient();
-  await queryClient.prefetchQuery({ queryKey: visitKeys.today(date), queryFn: () => listTodayStops(actor, date) });
+  await queryClient.prefetchQuery({
+    queryKey: visitKeys.today(date),
+    queryFn: () => listTodayStops(actor, date),
+  });
 
   return (
     <>
       <h1 className="text-3xl font-bold">Today</h1>
-      <p className="mb-4 mt-1 text-muted">{formatDate(date)}</p>
+      <p className="mt-1 mb-4 text-muted">{formatDate(date)}</p>
       <HydrationBoundary state={dehydrate(queryClient)}>
         <TodayList date={date} />
       </HydrationBoundary>

@@ -1,6 +1,7 @@
 // Application records for export: every field record-keeping rules ask for, one row each,
 // streamed page by page (keyset on applied_at, id) so a long range never sits in memory.
 import "server-only";
+
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/http/app-error";
@@ -32,8 +33,13 @@ export const RECORD_COLUMNS = [
   "keep_until",
 ] as const;
 
-export async function* applicationRecords(actor: Actor, from: string, to: string): AsyncGenerator<(string | number | null)[]> {
-  if (actor.role !== "manager") throw new AppError("forbidden", "Only a manager can export application records.");
+export async function* applicationRecords(
+  actor: Actor,
+  from: string,
+  to: string,
+): AsyncGenerator<(string | number | null)[]> {
+  if (actor.role !== "manager")
+    throw new AppError("forbidden", "Only a manager can export application records.");
   const page = (cursor: { at: Date; id: string } | null) =>
     db()
       .selectFrom("applications as a")
@@ -79,7 +85,14 @@ export async function* applicationRecords(actor: Actor, from: string, to: string
       .where("a.company_id", "=", actor.companyId)
       .where("a.applied_on", ">=", from)
       .where("a.applied_on", "<=", to)
-      .$if(cursor !== null, (q) => q.where((eb) => eb.or([eb("a.applied_at", ">", cursor!.at), eb.and([eb("a.applied_at", "=", cursor!.at), eb("a.id", ">", cursor!.id)])])))
+      .$if(cursor !== null, (q) =>
+        q.where((eb) =>
+          eb.or([
+            eb("a.applied_at", ">", cursor!.at),
+            eb.and([eb("a.applied_at", "=", cursor!.at), eb("a.id", ">", cursor!.id)]),
+          ]),
+        ),
+      )
       .orderBy("a.applied_at")
       .orderBy("a.id")
       .limit(500)
@@ -93,7 +106,11 @@ export async function* applicationRecords(actor: Actor, from: string, to: string
       const keepYears = r.record_retention_years ?? 2;
       yield [
         r.applied_on,
-        new Intl.DateTimeFormat("sv-SE", { timeZone: r.time_zone, dateStyle: "short", timeStyle: "short" }).format(at),
+        new Intl.DateTimeFormat("sv-SE", {
+          timeZone: r.time_zone,
+          dateStyle: "short",
+          timeStyle: "short",
+        }).format(at),
         r.owner_name ? `${r.owner_name} (${r.property_name})` : r.property_name,
         `${r.street}, ${r.city}, ${r.region} ${r.postal_code}`,
         r.zone_name,
@@ -113,7 +130,9 @@ export async function* applicationRecords(actor: Actor, from: string, to: string
         r.wind_mph === null ? null : Number(r.wind_mph),
         r.temperature_f === null ? null : Number(r.temperature_f),
         r.rule_set_name,
-        (r.findings as { key: string; severity: string }[]).map((f) => `${f.key} (${f.severity})`).join("; ") || null,
+        (r.findings as { key: string; severity: string }[])
+          .map((f) => `${f.key} (${f.severity})`)
+          .join("; ") || null,
         r.override_reason,
         `${Number(r.applied_on.slice(0, 4)) + keepYears}${r.applied_on.slice(4)}`,
       ];

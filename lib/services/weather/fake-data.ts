@@ -2,6 +2,7 @@
 // temperature curve by latitude, rain spells, heat spells, humidity that follows the rain, wind
 // and sunshine. Invented numbers; nothing here is a forecast of anything.
 import { daylightHours, dayOfYear } from "@/lib/agronomy/et0";
+
 import type { WeatherDayInput } from "./contract";
 
 function hash(text: string): number {
@@ -16,7 +17,12 @@ function hash(text: string): number {
   return (h >>> 0) / 2 ** 32;
 }
 
-export function fakeWeatherDay(lat: number, lon: number, date: string, today: string): WeatherDayInput {
+export function fakeWeatherDay(
+  lat: number,
+  lon: number,
+  date: string,
+  today: string,
+): WeatherDayInput {
   const doy = dayOfYear(date);
   const cell = `${lat.toFixed(1)}:${lon.toFixed(1)}`;
   const absLat = Math.abs(lat);
@@ -32,10 +38,14 @@ export function fakeWeatherDay(lat: number, lon: number, date: string, today: st
   const range = (isRain ? 5 : 10) + hash(`${cell}:range:${date}`) * 4;
   const tmax = mean + range / 2;
   const tmin = mean - range / 2;
-  const rhMin = Math.min(95, (isRain ? 70 : 38) + hash(`${cell}:rh:${date}`) * 22 + (isHeatSpell ? 8 : 0));
+  const rhMin = Math.min(
+    95,
+    (isRain ? 70 : 38) + hash(`${cell}:rh:${date}`) * 22 + (isHeatSpell ? 8 : 0),
+  );
   const rhMax = Math.min(100, rhMin + 25 + hash(`${cell}:rhx:${date}`) * 12);
   const N = daylightHours(lat, doy);
-  const sunshine = N * (isRain ? 0.1 + 0.25 * hash(`${cell}:s:${date}`) : 0.45 + 0.45 * hash(`${cell}:s:${date}`));
+  const sunshine =
+    N * (isRain ? 0.1 + 0.25 * hash(`${cell}:s:${date}`) : 0.45 + 0.45 * hash(`${cell}:s:${date}`));
   const round = (x: number, d = 1) => Math.round(x * 10 ** d) / 10 ** d;
   return {
     date,

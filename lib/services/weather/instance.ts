@@ -1,7 +1,8 @@
 // The configured weather provider, or null when WEATHER_BASE_URL is not set. The "quick" one is
 // for moments a person is waiting (starting a visit): one try, short timeout.
 import { serverEnv } from "@/lib/env";
-import { type WeatherProvider, jsonWeatherProvider } from "./provider";
+
+import { jsonWeatherProvider, type WeatherProvider } from "./provider";
 
 const cache = new Map<string, WeatherProvider | null>();
 
@@ -11,7 +12,11 @@ export function weatherProvider(kind: "normal" | "quick" = "normal"): WeatherPro
     cache.set(
       kind,
       env.WEATHER_BASE_URL
-        ? jsonWeatherProvider({ baseUrl: env.WEATHER_BASE_URL, apiKey: env.WEATHER_API_KEY, ...(kind === "quick" ? { timeoutMs: 1500, retries: 0 } : {}) })
+        ? jsonWeatherProvider({
+            baseUrl: env.WEATHER_BASE_URL,
+            apiKey: env.WEATHER_API_KEY,
+            ...(kind === "quick" ? { timeoutMs: 1500, retries: 0 } : {}),
+          })
         : null,
     );
   }

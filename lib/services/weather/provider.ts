@@ -1,6 +1,6 @@
 // The weather client: plain fetch to the JSON contract, with a timeout, retries with back-off,
 // and zod validation. Anything unexpected becomes a WeatherUnavailable error, never a crash.
-import { type WeatherDayInput, weatherResponseSchema } from "./contract";
+import { weatherResponseSchema, type WeatherDayInput } from "./contract";
 
 export class WeatherUnavailable extends Error {
   constructor(message: string) {
@@ -13,7 +13,13 @@ export interface WeatherProvider {
   daily(lat: number, lon: number, start: string, end: string): Promise<WeatherDayInput[]>;
 }
 
-export function jsonWeatherProvider(options: { baseUrl: string; apiKey?: string; timeoutMs?: number; retries?: number; backoffMs?: number }): WeatherProvider {
+export function jsonWeatherProvider(options: {
+  baseUrl: string;
+  apiKey?: string;
+  timeoutMs?: number;
+  retries?: number;
+  backoffMs?: number;
+}): WeatherProvider {
   const { baseUrl, apiKey, timeoutMs = 4000, retries = 2, backoffMs = 300 } = options;
   return {
     async daily(lat, lon, start, end) {
@@ -22,18 +28,29 @@ export function jsonWeatherProvider(options: { baseUrl: string; apiKey?: string;
       for (let attempt = 0; attempt <= retries; attempt++) {
         if (attempt > 0) await new Promise((r) => setTimeout(r, backoffMs * 3 ** (attempt - 1)));
         try {
-          const response = await fetch(url, { headers: { Accept: "application/json", ...(apiKey ? { Authorization: `Bearer ${apiKey}` } : {}) }, signal: AbortSignal.timeout(timeoutMs) });
+          const response = await fetch(url, {
+            headers: {
+              Accept: "application/json",
+              ...(apiKey ? { Authorization: `Bearer ${apiKey}` } : {}),
+            },
+            signal: AbortSignal.timeout(timeoutMs),
+          });
           if (response.status >= 500 || response.status === 429) {
             lastError = `the weather service answered ${response.status}`;
             continue;
           }
-          if (!response.ok) throw new WeatherUnavailable(`the weather service answered ${response.status}`);
+          if (!response.ok)
+            throw new WeatherUnavailable(`the weather service answered ${response.status}`);
           const parsed = weatherResponseSchema.safeParse(await response.json());
-          if (!parsed.success) throw new WeatherUnavailable("the weather service sent data Sward could not read");
+          if (!parsed.success)
+            throw new WeatherUnavailable("the weather service sent data Sward could not read");
           return parsed.data.days;
         } catch (err) {
           if (err instanceof WeatherUnavailable) throw err;
-          lastError = err instanceof Error && err.name === "TimeoutError" ? "the weather service did not answer in time" : "the weather service could not be reached";
+          lastError =
+            err instanceof Error && err.name === "TimeoutError"
+              ? "the weather service did not answer in time"
+              : "the weather service could not be reached";
         }
       }
       throw new WeatherUnavailable(lastError);

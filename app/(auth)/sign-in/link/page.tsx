@@ -1,16 +1,22 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { SwardMark } from "@/components/ui/sward-mark";
+
 import { buttonClass } from "@/components/ui/button";
+import { SwardMark } from "@/components/ui/sward-mark";
 import { SIGN_IN_LINK_PROVIDER } from "@/lib/auth/sign-in-link";
 
 export const metadata: Metadata = { title: "Sign in", referrer: "no-referrer" };
 
 // Where the e-mailed link lands: one tap goes on to Auth.js, which checks and uses up the token.
 // Opening this page (as mail scanners do) uses nothing up.
-export default async function SignInLinkPage({ searchParams }: { searchParams: Promise<{ token?: string; email?: string; callbackUrl?: string }> }) {
+export default async function SignInLinkPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ token?: string; email?: string; callbackUrl?: string }>;
+}) {
   const { token, email, callbackUrl } = await searchParams;
-  const isComplete = typeof token === "string" && token.length > 0 && typeof email === "string" && email.length > 0;
+  const isComplete =
+    typeof token === "string" && token.length > 0 && typeof email === "string" && email.length > 0;
 
   return (
     <div className="w-full max-w-md">
@@ -18,12 +24,19 @@ export default async function SignInLinkPage({ searchParams }: { searchParams: P
         <SwardMark size={44} />
         <p className="text-2xl font-bold tracking-tight">Sward</p>
       </div>
-      <section className="rounded-2xl border border-line bg-card p-6 shadow-sm sm:p-8" aria-labelledby="link-title">
+      <section
+        className="rounded-2xl border border-line bg-card p-6 shadow-sm sm:p-8"
+        aria-labelledby="link-title"
+      >
         <h1 id="link-title" className="mb-3 text-2xl font-bold">
           {isComplete ? "Finish signing in" : "This sign-in link is incomplete"}
         </h1>
         {isComplete ? (
-          <form method="get" action={`/api/auth/callback/${SIGN_IN_LINK_PROVIDER}`} className="space-y-5">
+          <form
+            method="get"
+            action={`/api/auth/callback/${SIGN_IN_LINK_PROVIDER}`}
+            className="space-y-5"
+          >
             <p>
               You are signing in as <strong className="break-words">{email}</strong>.
             </p>

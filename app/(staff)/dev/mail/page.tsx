@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { Fragment } from "react";
+
 import { requireActor } from "@/lib/auth/require";
 import { formatDateTime } from "@/lib/dates";
 import { serverEnv } from "@/lib/env";
@@ -27,30 +28,50 @@ function Linkified({ text }: { text: string }) {
 
 // Development only: what the local fake SMTP service received, for this company's people. The page
 // exists only where MAIL_INBOX_DIR is set (the demo sets it); production never sets it.
-export default async function DevMailPage({ searchParams }: { searchParams: Promise<{ id?: string }> }) {
+export default async function DevMailPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ id?: string }>;
+}) {
   const actor = await requireActor(["manager"]);
   const dir = serverEnv().MAIL_INBOX_DIR;
   if (!dir) notFound();
   const ours = await companyEmailAddresses(actor);
-  const mails = (await readInbox(dir)).filter((m) => m.to.some((t) => ours.has(t.toLowerCase()))).reverse().slice(0, 100);
+  const mails = (await readInbox(dir))
+    .filter((m) => m.to.some((t) => ours.has(t.toLowerCase())))
+    .reverse()
+    .slice(0, 100);
   const { id } = await searchParams;
   const open = mails.find((m) => m.id === id) ?? mails[0];
 
   return (
     <>
       <h1 className="text-3xl font-bold">Development inbox</h1>
-      <p className="mb-6 mt-1 max-w-2xl text-muted">
-        Mail Sward sent to your company&apos;s people, as the local fake SMTP service received it — sign-in links, visit reports and alert digests. This page exists only in development (MAIL_INBOX_DIR is set); a real deployment sends through a real mail service.
+      <p className="mt-1 mb-6 max-w-2xl text-muted">
+        Mail Sward sent to your company&apos;s people, as the local fake SMTP service received it —
+        sign-in links, visit reports and alert digests. This page exists only in development
+        (MAIL_INBOX_DIR is set); a real deployment sends through a real mail service.
       </p>
       {mails.length === 0 ? (
-        <p className="rounded-xl border border-line bg-card p-4">No mail yet. Finish a visit, or ask for a sign-in link as a homeowner.</p>
+        <p className="rounded-xl border border-line bg-card p-4">
+          No mail yet. Finish a visit, or ask for a sign-in link as a homeowner.
+        </p>
       ) : (
         <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
-          <ol aria-label="Messages, newest first" className="self-start divide-y divide-line overflow-hidden rounded-xl border border-line bg-card">
+          <ol
+            aria-label="Messages, newest first"
+            className="divide-y divide-line self-start overflow-hidden rounded-xl border border-line bg-card"
+          >
             {mails.map((m) => (
               <li key={m.id}>
-                <Link href={`/dev/mail?id=${encodeURIComponent(m.id)}`} aria-current={m.id === open?.id ? "true" : undefined} className={`block p-3 no-underline hover:bg-sward-tint ${m.id === open?.id ? "bg-sward-tint" : ""}`}>
-                  <span className="block font-semibold text-ink">{m.subject || "(no subject)"}</span>
+                <Link
+                  href={`/dev/mail?id=${encodeURIComponent(m.id)}`}
+                  aria-current={m.id === open?.id ? "true" : undefined}
+                  className={`block p-3 no-underline hover:bg-sward-tint ${m.id === open?.id ? "bg-sward-tint" : ""}`}
+                >
+                  <span className="block font-semibold text-ink">
+                    {m.subject || "(no subject)"}
+                  </span>
                   <span className="block text-sm text-muted">
                     to {m.to.join(", ")} · {formatDateTime(m.receivedAt, actor.companyTimeZone)}
                   </span>
@@ -59,11 +80,14 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
             ))}
           </ol>
           {open ? (
-            <article aria-labelledby="mail-subject" className="min-w-0 rounded-xl border border-line bg-card p-4">
+            <article
+              aria-labelledby="mail-subject"
+              className="min-w-0 rounded-xl border border-line bg-card p-4"
+            >
               <h2 id="mail-subject" className="text-xl font-bold">
                 {open.subject}
               </h2>
-              <dl className="mb-4 mt-2 grid grid-cols-[auto_1fr] gap-x-3 text-sm">
+              <dl className="mt-2 mb-4 grid grid-cols-[auto_1fr] gap-x-3 text-sm">
                 <dt className="text-muted">From</dt>
                 <dd>{open.from}</dd>
                 <dt className="text-muted">To</dt>
@@ -72,13 +96,18 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
                 <dd>{formatDateTime(open.receivedAt, actor.companyTimeZone)}</dd>
               </dl>
               <h3 className="font-semibold">Plain text</h3>
-              <pre className="mt-1 whitespace-pre-wrap break-words rounded-lg bg-paper p-3 font-sans text-base">
+              <pre className="mt-1 rounded-lg bg-paper p-3 font-sans text-base break-words whitespace-pre-wrap">
                 <Linkified text={open.text} />
               </pre>
               {open.html ? (
                 <>
                   <h3 className="mt-4 font-semibold">As HTML (scripts and forms disabled)</h3>
-                  <iframe title={`HTML of “${open.subject}”`} sandbox="allow-popups allow-popups-to-escape-sandbox" srcDoc={open.html} className="mt-1 h-[32rem] w-full rounded-lg border border-line bg-white" />
+                  <iframe
+                    title={`HTML of “${open.subject}”`}
+                    sandbox="allow-popups allow-popups-to-escape-sandbox"
+                    srcDoc={open.html}
+                    className="mt-1 h-[32rem] w-full rounded-lg border border-line bg-white"
+                  />
                 </>
               ) : null}
             </article>

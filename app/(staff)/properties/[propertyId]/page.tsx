@@ -2,36 +2,45 @@ import { ArrowLeft, PencilLine } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { AddZone, ArchiveProperty, HomeownerAdmin, ZoneActions } from "@/components/properties/property-admin";
-import { PropertyHeader } from "@/components/properties/property-header";
-import { ZoneList } from "@/components/properties/zone-list";
-import { buttonClass } from "@/components/ui/button";
+
+import { AlertList } from "@/components/alerts/alert-list";
+import { PropertyApplications } from "@/components/applications/property-applications";
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { NitrogenToDate } from "@/components/properties/nitrogen-to-date";
-import { listPropertyApplications, propertyNitrogenByZone } from "@/lib/applications/queries";
-import { PropertyApplications } from "@/components/applications/property-applications";
+import {
+  AddZone,
+  ArchiveProperty,
+  HomeownerAdmin,
+  ZoneActions,
+} from "@/components/properties/property-admin";
+import { PropertyHeader } from "@/components/properties/property-header";
+import { ZoneList } from "@/components/properties/zone-list";
+import { PropertyIndexSection } from "@/components/scoring/property-index-section";
+import { buttonClass } from "@/components/ui/button";
+import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { WateringLog } from "@/components/watering/watering-log";
 import { WeatherPanel } from "@/components/weather/weather-panel";
-import { propertyWeather } from "@/lib/weather/queries";
-import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { PLANNED_SERVICES } from "@/fixtures/visit-options";
+import { listPropertyApplications, propertyNitrogenByZone } from "@/lib/applications/queries";
 import { requireActor } from "@/lib/auth/require";
-import { formatDate } from "@/lib/dates";
+import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
+import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
-import { listLatestPhotoPerZone } from "@/lib/photos/queries";
-import { listWaterings } from "@/lib/watering/queries";
-import { todayIn } from "@/lib/dates";
-import { listVisits } from "@/lib/visits/queries";
-import { PropertyIndexSection } from "@/components/scoring/property-index-section";
-import { propertyScoreHistory } from "@/lib/scoring/queries";
-import { AlertList } from "@/components/alerts/alert-list";
 import { propertyAlerts } from "@/lib/risk/queries";
+import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { listVisits } from "@/lib/visits/queries";
+import { listWaterings } from "@/lib/watering/queries";
+import { propertyWeather } from "@/lib/weather/queries";
 
 export const metadata: Metadata = { title: "Property" };
 
-export default async function PropertyPage({ params }: { params: Promise<{ propertyId: string }> }) {
+export default async function PropertyPage({
+  params,
+}: {
+  params: Promise<{ propertyId: string }>;
+}) {
   const actor = await requireActor(["manager", "technician"]);
   const parsed = propertyIdParams.safeParse(await params);
   if (!parsed.success) notFound();
@@ -48,20 +57,33 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
     propertyAlerts(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
-  const [nitrogen, applications] = await Promise.all([propertyNitrogenByZone(actor, property.id, year), listPropertyApplications(actor, property.id, year)]);
+  const [nitrogen, applications] = await Promise.all([
+    propertyNitrogenByZone(actor, property.id, year),
+    listPropertyApplications(actor, property.id, year),
+  ]);
   const isManager = actor.role === "manager";
 
   return (
     <>
-      <Link href="/properties" className="mb-4 inline-flex min-h-tap items-center gap-1 font-semibold text-sward">
+      <Link
+        href="/properties"
+        className="mb-4 inline-flex min-h-tap items-center gap-1 font-semibold text-sward"
+      >
         <ArrowLeft className="size-5" aria-hidden="true" />
         All properties
       </Link>
-      {property.isArchived ? <p className="mb-4 rounded-lg bg-sun-tint p-3 font-semibold">Archived: this property is out of the book. Its history is kept.</p> : null}
+      {property.isArchived ? (
+        <p className="mb-4 rounded-lg bg-sun-tint p-3 font-semibold">
+          Archived: this property is out of the book. Its history is kept.
+        </p>
+      ) : null}
       <PropertyHeader property={property} />
       {isManager ? (
         <div className="mb-6 flex flex-wrap gap-2">
-          <Link href={`/properties/${property.id}/edit`} className={buttonClass("secondary", "no-underline")}>
+          <Link
+            href={`/properties/${property.id}/edit`}
+            className={buttonClass("secondary", "no-underline")}
+          >
             <PencilLine className="size-5" aria-hidden="true" />
             Edit property
           </Link>
@@ -90,7 +112,12 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
         <h2 id="alerts-title" className="mb-3 text-2xl font-bold">
           Alerts
         </h2>
-        <AlertList alerts={alerts} canResolve={isManager} timeZone={property.timeZone} empty="No open alerts for this property." />
+        <AlertList
+          alerts={alerts}
+          canResolve={isManager}
+          timeZone={property.timeZone}
+          empty="No open alerts for this property."
+        />
       </section>
 
       <h2 className="mb-3 text-2xl font-bold">Zones</h2>
@@ -98,8 +125,16 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
         zones={property.zones}
         actions={(zone) => (
           <>
-            <NitrogenToDate nLb={nitrogen[zone.id] ?? 0} speciesKey={zone.grassSpecies.key} year={year} />
-            <ZoneActions propertyId={property.id} zone={zone} canManage={isManager && !property.isArchived} />
+            <NitrogenToDate
+              nLb={nitrogen[zone.id] ?? 0}
+              speciesKey={zone.grassSpecies.key}
+              year={year}
+            />
+            <ZoneActions
+              propertyId={property.id}
+              zone={zone}
+              canManage={isManager && !property.isArchived}
+            />
           </>
         )}
       />
@@ -110,16 +145,21 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
       ) : null}
 
       <div className="mt-10">
-        <PropertyIndexSection history={scores} zoneHref={(zoneId) => `/properties/${property.id}/zones/${zoneId}`} />
+        <PropertyIndexSection
+          history={scores}
+          zoneHref={(zoneId) => `/properties/${property.id}/zones/${zoneId}`}
+        />
       </div>
 
       {latestPhotos.length ? (
         <>
-          <h2 className="mb-3 mt-10 text-2xl font-bold">Latest photo of each zone</h2>
+          <h2 className="mt-10 mb-3 text-2xl font-bold">Latest photo of each zone</h2>
           <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4" aria-label="Latest photos">
             {latestPhotos.map((photo) => (
               <li key={photo.id}>
-                <p className="mb-1 font-semibold">{property.zones.find((z) => z.id === photo.zoneId)?.name ?? "Archived zone"}</p>
+                <p className="mb-1 font-semibold">
+                  {property.zones.find((z) => z.id === photo.zoneId)?.name ?? "Archived zone"}
+                </p>
                 <PhotoFigure photo={photo} showDate />
               </li>
             ))}
@@ -127,16 +167,20 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
         </>
       ) : null}
 
-      <h2 className="mb-3 mt-10 text-2xl font-bold">Visits</h2>
+      <h2 className="mt-10 mb-3 text-2xl font-bold">Visits</h2>
       {visits.length === 0 ? (
         <p className="rounded-lg border border-line bg-card p-4">No visits yet.</p>
       ) : (
         <ul className="space-y-2" aria-label="Visits">
           {visits.map((v) => (
             <li key={v.id}>
-              <Link href={`/visits/${v.id}`} className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-card p-3 no-underline hover:border-sward">
+              <Link
+                href={`/visits/${v.id}`}
+                className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-card p-3 no-underline hover:border-sward"
+              >
                 <span className="text-ink">
-                  <span className="font-bold">{formatDate(v.scheduledFor)}</span> · {PLANNED_SERVICES[v.plannedService]} · {v.technician?.name ?? "no technician"}
+                  <span className="font-bold">{formatDate(v.scheduledFor)}</span> ·{" "}
+                  {PLANNED_SERVICES[v.plannedService]} · {v.technician?.name ?? "no technician"}
                 </span>
                 <VisitStatusBadge status={v.status} />
               </Link>
@@ -149,20 +193,28 @@ export default async function PropertyPage({ params }: { params: Promise<{ prope
         <WeatherPanel weather={weather} />
       </div>
 
-      <h2 className="mb-3 mt-10 text-2xl font-bold">Applications in {year}</h2>
+      <h2 className="mt-10 mb-3 text-2xl font-bold">Applications in {year}</h2>
       <PropertyApplications rows={applications} year={year} />
 
-      <h2 className="mb-3 mt-10 text-2xl font-bold">Watering log</h2>
-      <WateringLog propertyId={property.id} zones={property.zones} today={todayIn(property.timeZone)} waterings={waterings} canAdd={!property.isArchived} />
+      <h2 className="mt-10 mb-3 text-2xl font-bold">Watering log</h2>
+      <WateringLog
+        propertyId={property.id}
+        zones={property.zones}
+        today={todayIn(property.timeZone)}
+        waterings={waterings}
+        canAdd={!property.isArchived}
+      />
 
       {isManager ? (
         <>
-          <h2 className="mb-3 mt-10 text-2xl font-bold">Homeowner sign-ins</h2>
+          <h2 className="mt-10 mb-3 text-2xl font-bold">Homeowner sign-ins</h2>
           <HomeownerAdmin property={property} />
           {property.notes ? (
             <>
-              <h2 className="mb-2 mt-10 text-xl font-bold">Office notes</h2>
-              <p className="whitespace-pre-wrap rounded-lg border border-line bg-card p-4">{property.notes}</p>
+              <h2 className="mt-10 mb-2 text-xl font-bold">Office notes</h2>
+              <p className="rounded-lg border border-line bg-card p-4 whitespace-pre-wrap">
+                {property.notes}
+              </p>
             </>
           ) : null}
         </>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+
 import { PropertyForm } from "@/components/properties/property-form";
 import { requireActor } from "@/lib/auth/require";
 import { listPeople } from "@/lib/people/queries";
@@ -9,11 +10,18 @@ export const metadata: Metadata = { title: "New property" };
 
 export default async function NewPropertyPage() {
   const actor = await requireActor(["manager"]);
-  const [technicians, ruleSets] = await Promise.all([listPeople(actor, "technician"), listRuleSets(actor)]);
+  const [technicians, ruleSets] = await Promise.all([
+    listPeople(actor, "technician"),
+    listRuleSets(actor),
+  ]);
   return (
     <>
       <h1 className="mb-6 text-3xl font-bold">New property</h1>
-      <PropertyForm technicians={technicians.filter((t) => !t.isDisabled)} ruleSets={ruleSets} timeZones={timeZoneChoices()} />
+      <PropertyForm
+        technicians={technicians.filter((t) => !t.isDisabled)}
+        ruleSets={ruleSets}
+        timeZones={timeZoneChoices()}
+      />
     </>
   );
 }

@@ -1,17 +1,18 @@
-import { HydrationBoundary, dehydrate } from "@tanstack/react-query";
+import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
+
+import { AlertList } from "@/components/alerts/alert-list";
 import { VisitRunner } from "@/components/visits/visit-runner";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
 import { makeQueryClient } from "@/lib/query-client";
+import { propertyAlerts } from "@/lib/risk/queries";
 import { getVisit } from "@/lib/visits/queries";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { visitIdParams } from "@/lib/visits/schemas";
 import { fillVisitWeather } from "@/lib/weather/mutations";
-import { AlertList } from "@/components/alerts/alert-list";
-import { propertyAlerts } from "@/lib/risk/queries";
 
 export const metadata: Metadata = { title: "Visit" };
 
@@ -24,7 +25,9 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const alerts = (await propertyAlerts(actor, visit.propertyId)).filter((a) => a.status !== "resolved");
+  const alerts = (await propertyAlerts(actor, visit.propertyId)).filter(
+    (a) => a.status !== "resolved",
+  );
   const queryClient = makeQueryClient();
   queryClient.setQueryData(visitKeys.detail(visit.id), visit);
 
@@ -39,7 +42,12 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
               <h2 id="visit-alerts-title" className="mb-2 text-xl font-bold">
                 Alerts for this property
               </h2>
-              <AlertList alerts={alerts} canResolve={actor.role === "manager"} timeZone={visit.timeZone} empty="Nothing raised: no open alerts for this property." />
+              <AlertList
+                alerts={alerts}
+                canResolve={actor.role === "manager"}
+                timeZone={visit.timeZone}
+                empty="Nothing raised: no open alerts for this property."
+              />
             </section>
           }
         />

@@ -6,10 +6,15 @@ import { SIGN_IN_LINK_PROVIDER } from "@/lib/auth/sign-in-link";
 
 export const GET = handlers.GET;
 
-export async function POST(request: Request & Parameters<typeof handlers.POST>[0]): Promise<Response> {
+export async function POST(
+  request: Request & Parameters<typeof handlers.POST>[0],
+): Promise<Response> {
   const { pathname } = new URL(request.url);
   if (pathname.endsWith(`/signin/${SIGN_IN_LINK_PROVIDER}`)) {
-    return Response.json({ error: { code: "not_found", message: "Ask for a sign-in link on the sign-in page." } }, { status: 404 });
+    return Response.json(
+      { error: { code: "not_found", message: "Ask for a sign-in link on the sign-in page." } },
+      { status: 404 },
+    );
   }
   return handlers.POST(request);
 }

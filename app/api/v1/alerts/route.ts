@@ -3,4 +3,7 @@ import { route } from "@/lib/auth/guards";
 import { listAlerts } from "@/lib/risk/queries";
 import { alertFilters } from "@/lib/risk/schemas";
 
-export const GET = route({ access: ["manager", "technician"], query: alertFilters }, async ({ actor, query }) => ({ items: await listAlerts(actor, query) }));
+export const GET = route(
+  { access: ["manager", "technician"], query: alertFilters },
+  async ({ actor, query }) => ({ items: await listAlerts(actor, query) }),
+);

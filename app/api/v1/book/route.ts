@@ -4,4 +4,6 @@ import { route } from "@/lib/auth/guards";
 import { listBook } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 
-export const GET = route({ access: ["manager"], query: bookQuery }, async ({ actor, query }) => listBook(actor, query));
+export const GET = route({ access: ["manager"], query: bookQuery }, async ({ actor, query }) =>
+  listBook(actor, query),
+);

@@ -5,6 +5,12 @@ import { scheduleVisit } from "@/lib/visits/mutations";
 import { listVisits } from "@/lib/visits/queries";
 import { listVisitsQuery, scheduleVisitSchema } from "@/lib/visits/schemas";
 
-export const GET = route({ access: ["manager", "technician"], query: listVisitsQuery }, async ({ actor, query }) => ({ items: await listVisits(actor, query) }));
+export const GET = route(
+  { access: ["manager", "technician"], query: listVisitsQuery },
+  async ({ actor, query }) => ({ items: await listVisits(actor, query) }),
+);
 
-export const POST = route({ access: ["manager"], body: scheduleVisitSchema }, async ({ actor, body }) => scheduleVisit(actor, body));
+export const POST = route(
+  { access: ["manager"], body: scheduleVisitSchema },
+  async ({ actor, body }) => scheduleVisit(actor, body),
+);

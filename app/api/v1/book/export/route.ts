@@ -6,7 +6,25 @@ import { bookQuery } from "@/lib/book/schemas";
 import { csvResponse } from "@/lib/http/csv";
 import { alertKindLabel } from "@/lib/risk/labels";
 
-const COLUMNS = ["property", "street", "city", "technician", "last_visit", "next_visit", "overdue", "property_index", "trend", "slope_per_30_days", "alerts_high", "alerts_moderate", "alerts_low", "alert_kinds", "n_ytd_lb_per_1000", "n_top_of_range_lb", "needs_attention"] as const;
+const COLUMNS = [
+  "property",
+  "street",
+  "city",
+  "technician",
+  "last_visit",
+  "next_visit",
+  "overdue",
+  "property_index",
+  "trend",
+  "slope_per_30_days",
+  "alerts_high",
+  "alerts_moderate",
+  "alerts_low",
+  "alert_kinds",
+  "n_ytd_lb_per_1000",
+  "n_top_of_range_lb",
+  "needs_attention",
+] as const;
 
 export const GET = route({ access: ["manager"], query: bookQuery }, async ({ actor, query }) => {
   async function* rows() {

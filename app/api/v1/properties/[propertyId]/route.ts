@@ -6,10 +6,17 @@ import { updateProperty } from "@/lib/properties/mutations";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams, propertySchema } from "@/lib/properties/schemas";
 
-export const GET = route({ access: ROLES, params: propertyIdParams, resource: "That property" }, async ({ actor, params }) =>
-  getProperty(actor, params.propertyId),
+export const GET = route(
+  { access: ROLES, params: propertyIdParams, resource: "That property" },
+  async ({ actor, params }) => getProperty(actor, params.propertyId),
 );
 
-export const PUT = route({ access: ["manager"], params: propertyIdParams, body: propertySchema, resource: "That property" }, async ({ actor, params, body }) =>
-  updateProperty(actor, params.propertyId, body),
+export const PUT = route(
+  {
+    access: ["manager"],
+    params: propertyIdParams,
+    body: propertySchema,
+    resource: "That property",
+  },
+  async ({ actor, params, body }) => updateProperty(actor, params.propertyId, body),
 );

@@ -1,7 +1,8 @@
 // GET /api/v1/records/applications?from=YYYY-MM-DD&to=YYYY-MM-DD — the application records of a
 // date range as CSV (UTF-8 with BOM, ISO dates, formula-like cells neutralised), streamed (manager).
 import { z } from "zod";
-import { RECORD_COLUMNS, applicationRecords } from "@/lib/applications/records/queries";
+
+import { applicationRecords, RECORD_COLUMNS } from "@/lib/applications/records/queries";
 import { route } from "@/lib/auth/guards";
 import { isIsoDate } from "@/lib/dates";
 import { csvResponse } from "@/lib/http/csv";
@@ -13,5 +14,9 @@ const query = z
   .refine((q) => q.from <= q.to, { message: "The start must not be after the end.", path: ["to"] });
 
 export const GET = route({ access: ["manager"], query }, async ({ actor, query }) =>
-  csvResponse(RECORD_COLUMNS, applicationRecords(actor, query.from, query.to), `application-records-${query.from}-to-${query.to}.csv`),
+  csvResponse(
+    RECORD_COLUMNS,
+    applicationRecords(actor, query.from, query.to),
+    `application-records-${query.from}-to-${query.to}.csv`,
+  ),
 );

@@ -3,6 +3,7 @@ import { route } from "@/lib/auth/guards";
 import { getVisit } from "@/lib/visits/queries";
 import { visitIdParams } from "@/lib/visits/schemas";
 
-export const GET = route({ access: ["manager", "technician"], params: visitIdParams, resource: "That visit" }, async ({ actor, params }) =>
-  getVisit(actor, params.visitId),
+export const GET = route(
+  { access: ["manager", "technician"], params: visitIdParams, resource: "That visit" },
+  async ({ actor, params }) => getVisit(actor, params.visitId),
 );

@@ -2,25 +2,37 @@ import { ArrowLeft } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+
 import { BeforeAfter } from "@/components/photos/before-after";
+import { ZoneIndexSection } from "@/components/scoring/zone-index-section";
 import { ZoneStatusBadge } from "@/components/visits/status-badge";
 import { findSymptom } from "@/fixtures/symptoms";
 import { RATING_SCALE, SKIP_REASONS } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
-import { zoneIdParams } from "@/lib/properties/schemas";
 import { listZonePhotos } from "@/lib/photos/queries";
-import { getZoneHistory } from "@/lib/visits/queries";
-import { ZoneIndexSection } from "@/components/scoring/zone-index-section";
+import { zoneIdParams } from "@/lib/properties/schemas";
 import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { getZoneHistory } from "@/lib/visits/queries";
 
 export const metadata: Metadata = { title: "Zone history" };
 
 const Rating = ({ value }: { value: number | null }) =>
-  value === null ? <span className="text-muted">—</span> : <span className={value < RATING_SCALE.acceptable ? "font-bold text-clay" : "font-bold"}>{value}{value < RATING_SCALE.acceptable ? " ▼" : ""}</span>;
+  value === null ? (
+    <span className="text-muted">—</span>
+  ) : (
+    <span className={value < RATING_SCALE.acceptable ? "font-bold text-clay" : "font-bold"}>
+      {value}
+      {value < RATING_SCALE.acceptable ? " ▼" : ""}
+    </span>
+  );
 
-export default async function ZoneHistoryPage({ params }: { params: Promise<{ propertyId: string; zoneId: string }> }) {
+export default async function ZoneHistoryPage({
+  params,
+}: {
+  params: Promise<{ propertyId: string; zoneId: string }>;
+}) {
   const actor = await requireActor(["manager", "technician"]);
   const raw = await params;
   const parsed = zoneIdParams.safeParse({ zoneId: raw.zoneId });
@@ -30,12 +42,18 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
     throw err;
   });
   if (history.propertyId !== raw.propertyId) notFound();
-  const [photos, scores] = await Promise.all([listZonePhotos(actor, parsed.data.zoneId), propertyScoreHistory(actor, history.propertyId)]);
+  const [photos, scores] = await Promise.all([
+    listZonePhotos(actor, parsed.data.zoneId),
+    propertyScoreHistory(actor, history.propertyId),
+  ]);
   const zoneScores = scores.zones.find((z) => z.zoneId === parsed.data.zoneId);
 
   return (
     <>
-      <Link href={`/properties/${history.propertyId}`} className="mb-4 inline-flex min-h-tap items-center gap-1 font-semibold text-sward">
+      <Link
+        href={`/properties/${history.propertyId}`}
+        className="mb-4 inline-flex min-h-tap items-center gap-1 font-semibold text-sward"
+      >
         <ArrowLeft className="size-5" aria-hidden="true" />
         Back to the property
       </Link>
@@ -45,29 +63,59 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
           <ZoneIndexSection zone={zoneScores} from={scores.from} to={scores.today} />
         </div>
       ) : (
-        <p className="mt-3 rounded-lg border border-line bg-card p-3">This zone is archived: its checks are below; it no longer has a chart.</p>
+        <p className="mt-3 rounded-lg border border-line bg-card p-3">
+          This zone is archived: its checks are below; it no longer has a chart.
+        </p>
       )}
-      <h2 className="mb-3 mt-6 text-2xl font-bold">Before and after</h2>
+      <h2 className="mt-6 mb-3 text-2xl font-bold">Before and after</h2>
       <BeforeAfter photos={photos} zoneName={history.zoneName} />
-      <h2 className="mb-1 mt-8 text-2xl font-bold">Checks</h2>
-      <p className="mb-6 mt-1 text-muted">Every check of this zone, newest first. Ratings 1–9 (9 ideal, 6 lowest acceptable; ▼ below acceptable).</p>
+      <h2 className="mt-8 mb-1 text-2xl font-bold">Checks</h2>
+      <p className="mt-1 mb-6 text-muted">
+        Every check of this zone, newest first. Ratings 1–9 (9 ideal, 6 lowest acceptable; ▼ below
+        acceptable).
+      </p>
       {history.entries.length === 0 ? (
-        <p className="rounded-lg border border-line bg-card p-4">This zone has not been checked yet.</p>
+        <p className="rounded-lg border border-line bg-card p-4">
+          This zone has not been checked yet.
+        </p>
       ) : (
-        <div className="overflow-x-auto rounded-xl border border-line bg-card" role="region" aria-label={`Checks of ${history.zoneName} (scrolls sideways)`} tabIndex={0}>
+        <div
+          className="overflow-x-auto rounded-xl border border-line bg-card"
+          role="region"
+          aria-label={`Checks of ${history.zoneName} (scrolls sideways)`}
+          tabIndex={0}
+        >
           <table className="w-full min-w-[46rem] text-left">
             <caption className="sr-only">Checks of {history.zoneName}</caption>
             <thead className="border-b border-line bg-paper text-sm">
               <tr>
-                <th scope="col" className="p-3">Date</th>
-                <th scope="col" className="p-3">Sward Index</th>
-                <th scope="col" className="p-3">Quality</th>
-                <th scope="col" className="p-3">Colour</th>
-                <th scope="col" className="p-3">Density</th>
-                <th scope="col" className="p-3">Uniformity</th>
-                <th scope="col" className="p-3">Bare / weeds</th>
-                <th scope="col" className="p-3">Cut</th>
-                <th scope="col" className="p-3">Symptoms</th>
+                <th scope="col" className="p-3">
+                  Date
+                </th>
+                <th scope="col" className="p-3">
+                  Sward Index
+                </th>
+                <th scope="col" className="p-3">
+                  Quality
+                </th>
+                <th scope="col" className="p-3">
+                  Colour
+                </th>
+                <th scope="col" className="p-3">
+                  Density
+                </th>
+                <th scope="col" className="p-3">
+                  Uniformity
+                </th>
+                <th scope="col" className="p-3">
+                  Bare / weeds
+                </th>
+                <th scope="col" className="p-3">
+                  Cut
+                </th>
+                <th scope="col" className="p-3">
+                  Symptoms
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -87,14 +135,32 @@ export default async function ZoneHistoryPage({ params }: { params: Promise<{ pr
                     </td>
                   ) : (
                     <>
-                      <td className="p-3 text-lg font-bold">{e.swardIndex === null ? "—" : Math.round(e.swardIndex)}</td>
-                      <td className="p-3"><Rating value={e.quality} /></td>
-                      <td className="p-3"><Rating value={e.color} /></td>
-                      <td className="p-3"><Rating value={e.density} /></td>
-                      <td className="p-3"><Rating value={e.uniformity} /></td>
-                      <td className="p-3">{e.barePct ?? "—"} % / {e.weedsPct ?? "—"} %</td>
-                      <td className="p-3">{e.heightOfCutIn === null ? "—" : `${e.heightOfCutIn.toFixed(2)} in`}</td>
-                      <td className="p-3 text-sm">{e.symptoms.length ? e.symptoms.map((s) => findSymptom(s.key)?.name ?? s.key).join(", ") : "none"}</td>
+                      <td className="p-3 text-lg font-bold">
+                        {e.swardIndex === null ? "—" : Math.round(e.swardIndex)}
+                      </td>
+                      <td className="p-3">
+                        <Rating value={e.quality} />
+                      </td>
+                      <td className="p-3">
+                        <Rating value={e.color} />
+                      </td>
+                      <td className="p-3">
+                        <Rating value={e.density} />
+                      </td>
+                      <td className="p-3">
+                        <Rating value={e.uniformity} />
+                      </td>
+                      <td className="p-3">
+                        {e.barePct ?? "—"} % / {e.weedsPct ?? "—"} %
+                      </td>
+                      <td className="p-3">
+                        {e.heightOfCutIn === null ? "—" : `${e.heightOfCutIn.toFixed(2)} in`}
+                      </td>
+                      <td className="p-3 text-sm">
+                        {e.symptoms.length
+                          ? e.symptoms.map((s) => findSymptom(s.key)?.name ?? s.key).join(", ")
+                          : "none"}
+                      </td>
                     </>
                   )}
                 </tr>

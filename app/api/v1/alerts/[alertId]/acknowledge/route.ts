@@ -3,6 +3,12 @@ import { route } from "@/lib/auth/guards";
 import { acknowledgeAlert } from "@/lib/risk/mutations";
 import { acknowledgeSchema, alertIdParams } from "@/lib/risk/schemas";
 
-export const POST = route({ access: ["manager", "technician"], params: alertIdParams, body: acknowledgeSchema, resource: "That alert" }, async ({ actor, params, body }) =>
-  acknowledgeAlert(actor, params.alertId, body.note),
+export const POST = route(
+  {
+    access: ["manager", "technician"],
+    params: alertIdParams,
+    body: acknowledgeSchema,
+    resource: "That alert",
+  },
+  async ({ actor, params, body }) => acknowledgeAlert(actor, params.alertId, body.note),
 );

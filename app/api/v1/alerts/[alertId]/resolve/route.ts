@@ -3,4 +3,7 @@ import { route } from "@/lib/auth/guards";
 import { resolveAlert } from "@/lib/risk/mutations";
 import { alertIdParams, resolveSchema } from "@/lib/risk/schemas";
 
-export const POST = route({ access: ["manager"], params: alertIdParams, body: resolveSchema, resource: "That alert" }, async ({ actor, params, body }) => resolveAlert(actor, params.alertId, body.note));
+export const POST = route(
+  { access: ["manager"], params: alertIdParams, body: resolveSchema, resource: "That alert" },
+  async ({ actor, params, body }) => resolveAlert(actor, params.alertId, body.note),
+);

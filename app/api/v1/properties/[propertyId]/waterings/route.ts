@@ -7,8 +7,18 @@ import { logWatering } from "@/lib/watering/mutations";
 import { listWaterings } from "@/lib/watering/queries";
 import { wateringSchema } from "@/lib/watering/schemas";
 
-export const GET = route({ access: ROLES, params: propertyIdParams, resource: "That property" }, async ({ actor, params }) => ({ items: await listWaterings(actor, params.propertyId) }));
+export const GET = route(
+  { access: ROLES, params: propertyIdParams, resource: "That property" },
+  async ({ actor, params }) => ({ items: await listWaterings(actor, params.propertyId) }),
+);
 
-export const POST = route({ access: ["manager", "technician", "homeowner"], params: propertyIdParams, body: wateringSchema, resource: "That property" }, async ({ actor, params, body }) =>
-  Response.json(await logWatering(actor, params.propertyId, body), { status: 201 }),
+export const POST = route(
+  {
+    access: ["manager", "technician", "homeowner"],
+    params: propertyIdParams,
+    body: wateringSchema,
+    resource: "That property",
+  },
+  async ({ actor, params, body }) =>
+    Response.json(await logWatering(actor, params.propertyId, body), { status: 201 }),
 );

@@ -3,7 +3,10 @@ import { route } from "@/lib/auth/guards";
 import { getVisit, listVisitAudit } from "@/lib/visits/queries";
 import { visitIdParams } from "@/lib/visits/schemas";
 
-export const GET = route({ access: ["manager"], params: visitIdParams, resource: "That visit" }, async ({ actor, params }) => {
-  await getVisit(actor, params.visitId); // 404 when out of scope
-  return { items: await listVisitAudit(actor, params.visitId) };
-});
+export const GET = route(
+  { access: ["manager"], params: visitIdParams, resource: "That visit" },
+  async ({ actor, params }) => {
+    await getVisit(actor, params.visitId); // 404 when out of scope
+    return { items: await listVisitAudit(actor, params.visitId) };
+  },
+);

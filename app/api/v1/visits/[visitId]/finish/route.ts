@@ -5,8 +5,16 @@ import { deliverMailAfterResponse } from "@/lib/mail/mutations";
 import { finishVisit } from "@/lib/visits/mutations";
 import { finishVisitSchema, visitIdParams } from "@/lib/visits/schemas";
 
-export const POST = route({ access: ["manager", "technician"], params: visitIdParams, body: finishVisitSchema, resource: "That visit" }, async ({ actor, params }) => {
-  const visit = await finishVisit(actor, params.visitId);
-  deliverMailAfterResponse("visit_report");
-  return visit;
-});
+export const POST = route(
+  {
+    access: ["manager", "technician"],
+    params: visitIdParams,
+    body: finishVisitSchema,
+    resource: "That visit",
+  },
+  async ({ actor, params }) => {
+    const visit = await finishVisit(actor, params.visitId);
+    deliverMailAfterResponse("visit_report");
+    return visit;
+  },
+);

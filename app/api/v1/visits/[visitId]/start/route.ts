@@ -3,6 +3,12 @@ import { route } from "@/lib/auth/guards";
 import { startVisit } from "@/lib/visits/mutations";
 import { startVisitSchema, visitIdParams } from "@/lib/visits/schemas";
 
-export const POST = route({ access: ["manager", "technician"], params: visitIdParams, body: startVisitSchema, resource: "That visit" }, async ({ actor, params, body }) =>
-  startVisit(actor, params.visitId, body),
+export const POST = route(
+  {
+    access: ["manager", "technician"],
+    params: visitIdParams,
+    body: startVisitSchema,
+    resource: "That visit",
+  },
+  async ({ actor, params, body }) => startVisit(actor, params.visitId, body),
 );

@@ -3,6 +3,7 @@ import { route } from "@/lib/auth/guards";
 import { zoneIdParams } from "@/lib/properties/schemas";
 import { getZoneHistory } from "@/lib/visits/queries";
 
-export const GET = route({ access: ["manager", "technician"], params: zoneIdParams, resource: "That zone" }, async ({ actor, params }) =>
-  getZoneHistory(actor, params.zoneId),
+export const GET = route(
+  { access: ["manager", "technician"], params: zoneIdParams, resource: "That zone" },
+  async ({ actor, params }) => getZoneHistory(actor, params.zoneId),
 );

@@ -4,4 +4,7 @@ import { route } from "@/lib/auth/guards";
 import { listZonePhotos } from "@/lib/photos/queries";
 import { zoneIdParams } from "@/lib/properties/schemas";
 
-export const GET = route({ access: ROLES, params: zoneIdParams, resource: "That zone" }, async ({ actor, params }) => ({ items: await listZonePhotos(actor, params.zoneId) }));
+export const GET = route(
+  { access: ROLES, params: zoneIdParams, resource: "That zone" },
+  async ({ actor, params }) => ({ items: await listZonePhotos(actor, params.zoneId) }),
+);

@@ -4,6 +4,12 @@ import { route } from "@/lib/auth/guards";
 import { saveZoneCheck } from "@/lib/visits/mutations";
 import { zoneCheckParams, zoneCheckSchema } from "@/lib/visits/schemas";
 
-export const PUT = route({ access: ["manager", "technician"], params: zoneCheckParams, body: zoneCheckSchema, resource: "That visit" }, async ({ actor, params, body }) =>
-  saveZoneCheck(actor, params.visitId, params.zoneCheckId, body),
+export const PUT = route(
+  {
+    access: ["manager", "technician"],
+    params: zoneCheckParams,
+    body: zoneCheckSchema,
+    resource: "That visit",
+  },
+  async ({ actor, params, body }) => saveZoneCheck(actor, params.visitId, params.zoneCheckId, body),
 );

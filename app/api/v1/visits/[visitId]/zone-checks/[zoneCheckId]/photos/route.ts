@@ -9,10 +9,22 @@ import { PHOTO_LIMITS, processPhoto } from "@/lib/photos/process";
 import { photoStorage } from "@/lib/services/photo-storage";
 import { zoneCheckParams } from "@/lib/visits/schemas";
 
-export const POST = route({ access: ["manager", "technician"], params: zoneCheckParams, resource: "That zone check" }, async ({ actor, params, request }) => {
-  await assertCanAddPhoto(actor, params.visitId, params.zoneCheckId); // before reading or decoding anything
-  const bytes = await readBodyLimited(request, PHOTO_LIMITS.maxBytes);
-  const processed = await limitPhotoWork(() => processPhoto(bytes));
-  const { photo, isNew } = await addPhoto(actor, params.visitId, params.zoneCheckId, processed, photoStorage());
-  return Response.json(photo, { status: isNew ? 201 : 200, headers: { "Cache-Control": "no-store" } });
-});
+export const POST = route(
+  { access: ["manager", "technician"], params: zoneCheckParams, resource: "That zone check" },
+  async ({ actor, params, request }) => {
+    await assertCanAddPhoto(actor, params.visitId, params.zoneCheckId); // before reading or decoding anything
+    const bytes = await readBodyLimited(request, PHOTO_LIMITS.maxBytes);
+    const processed = await limitPhotoWork(() => processPhoto(bytes));
+    const { photo, isNew } = await addPhoto(
+      actor,
+      params.visitId,
+      params.zoneCheckId,
+      processed,
+      photoStorage(),
+    );
+    return Response.json(photo, {
+      status: isNew ? 201 : 200,
+      headers: { "Cache-Control": "no-store" },
+    });
+  },
+);
