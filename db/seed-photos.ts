@@ -4,7 +4,7 @@
 import path from "node:path";
 import type { Kysely } from "kysely";
 
-import { lawnImage } from "@/fixtures/demo-photos";
+import { lawnImage } from "@/fixtures/demo/photos";
 import { addDays, todayIn } from "@/lib/dates";
 import { processPhoto } from "@/lib/photos/process";
 import { localDiskStorage } from "@/lib/services/storage";

@@ -1,12 +1,11 @@
-// Loads a scenario (fixtures/demo-scenario.ts) into a database. Shared by the demo seed and the
+// Loads a scenario (fixtures/demo/scenario.ts) into a database. Shared by the demo seed and the
 // tests, which call it with their own scenario or the demo one.
 import { randomUUID } from "node:crypto";
 import type { Kysely, Transaction } from "kysely";
 
-import { DEMO_PRODUCTS } from "@/fixtures/demo-products";
-import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo-scenario";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
+import { DEMO_PRODUCTS } from "@/fixtures/demo/products";
+import type { ScenarioCompany, ScenarioFinding } from "@/fixtures/demo/scenario";
+import { fakeWeatherDay } from "@/fixtures/demo/weather-days";
 import { nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
 import { checkApplication, isRefused } from "@/lib/agronomy/rules";
 import { zoneWateringByDate } from "@/lib/agronomy/water";
@@ -14,10 +13,11 @@ import { hashPassword } from "@/lib/auth/password";
 import { refreshPropertySummary } from "@/lib/book/summary";
 import { addDays, todayIn } from "@/lib/dates";
 import { productColumns } from "@/lib/products/columns";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
+import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
 import { ruleSetColumns } from "@/lib/rule-sets/columns";
 import { availableNitrogen } from "@/lib/scoring/available-nitrogen";
 import { refreshCheckIndex } from "@/lib/scoring/store-index";
-import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 import { deriveDays } from "@/lib/weather/derived";
 
 import type { Database, NewZoneCheck } from "./schema";

@@ -1,6 +1,6 @@
 // Seeds the demo scenario: `tsx db/seed.ts [--reset]`. Without --reset a company that already
 // exists is left as it is, so running the demo again keeps what you entered.
-import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo-scenario";
+import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo/scenario";
 import { evaluateProperty } from "@/lib/risk/evaluate";
 import { recomputeAllIndexes } from "@/lib/scoring/store-index";
 

@@ -1,5 +1,5 @@
 // Nitrogen applied to a zone this year against its species' annual range, in words and a bar.
-import { findGrassSpecies } from "@/fixtures/grass-species";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 
 export function NitrogenToDate({
   nLb,

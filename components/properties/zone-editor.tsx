@@ -9,10 +9,10 @@ import type { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
-import { grassSpecies } from "@/fixtures/grass-species";
 import { SLOPE_LABEL, SUN_EXPOSURE_LABEL, type ZoneDto } from "@/lib/properties/dto";
 import { zoneSchema } from "@/lib/properties/schemas";
 import { sendJson } from "@/lib/query-client";
+import { grassSpecies } from "@/lib/reference/grass-species";
 
 type FormIn = z.input<typeof zoneSchema>;
 type FormOut = z.output<typeof zoneSchema>;

@@ -7,8 +7,8 @@ import { useState } from "react";
 
 import { Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
-import { RECORD_FIELDS, type RecordField } from "@/fixtures/record-fields";
 import { sendJson } from "@/lib/query-client";
+import { RECORD_FIELDS, type RecordField } from "@/lib/reference/record-fields";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 

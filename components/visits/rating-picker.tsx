@@ -2,7 +2,7 @@
 
 // A 1–9 visual rating: 1–5 on the first row (below acceptable), 6–9 on the second (acceptable).
 import { ChoiceGroup } from "@/components/ui/choice-group";
-import { RATING_SCALE } from "@/fixtures/visit-options";
+import { RATING_SCALE } from "@/lib/reference/visit-options";
 
 const LOW = [1, 2, 3, 4, 5].map((n) => ({ value: n, label: String(n), tone: "low" as const }));
 const OK = [6, 7, 8, 9].map((n) => ({ value: n, label: String(n), tone: "ok" as const }));

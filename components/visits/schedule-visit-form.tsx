@@ -11,10 +11,10 @@ import type { z } from "zod";
 
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
-import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertySummaryDto } from "@/lib/properties/dto";
 import { sendJson } from "@/lib/query-client";
+import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { scheduleVisitSchema } from "@/lib/visits/schemas";

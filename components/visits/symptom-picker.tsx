@@ -7,7 +7,12 @@ import { useState } from "react";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Stepper } from "@/components/ui/stepper";
 import type { ObservedSymptom } from "@/db/schema";
-import { findSymptom, SYMPTOM_KIND_LABEL, symptoms, type SymptomKind } from "@/fixtures/symptoms";
+import {
+  findSymptom,
+  SYMPTOM_KIND_LABEL,
+  symptoms,
+  type SymptomKind,
+} from "@/lib/reference/symptoms";
 
 const SEVERITY = [
   { value: 1, label: "1 light" },

@@ -5,9 +5,9 @@ import { useQuery } from "@tanstack/react-query";
 import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
 
-import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { formatDate } from "@/lib/dates";
 import { fetchJson } from "@/lib/query-client";
+import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { TodayStopDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 

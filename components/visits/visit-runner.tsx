@@ -9,10 +9,10 @@ import { useState, type ReactNode } from "react";
 
 import { Button } from "@/components/ui/button";
 import { formatAreaFt2 } from "@/components/ui/format";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { formatDate } from "@/lib/dates";
 import { sendJson } from "@/lib/query-client";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
+import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 

@@ -7,15 +7,15 @@ import { History, PencilLine } from "lucide-react";
 
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { Button } from "@/components/ui/button";
-import { findSymptom } from "@/fixtures/symptoms";
+import { formatTime } from "@/lib/dates";
+import { fetchJson } from "@/lib/query-client";
+import { findSymptom } from "@/lib/reference/symptoms";
 import {
   MOWING_DIRECTION,
   RATING_FIELDS,
   SKIP_REASONS,
   SOIL_MOISTURE,
-} from "@/fixtures/visit-options";
-import { formatTime } from "@/lib/dates";
-import { fetchJson } from "@/lib/query-client";
+} from "@/lib/reference/visit-options";
 import type { AuditEventDto, VisitDetailDto, ZoneCheckDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 

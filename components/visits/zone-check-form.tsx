@@ -11,16 +11,16 @@ import { Button } from "@/components/ui/button";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Stepper } from "@/components/ui/stepper";
 import { ToggleChip } from "@/components/ui/toggle-chip";
-import { findGrassSpecies } from "@/fixtures/grass-species";
+import type { ApplicationDto } from "@/lib/applications/dto";
+import type { PhotoDto } from "@/lib/photos/dto";
+import type { ZoneDto } from "@/lib/properties/dto";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 import {
   MOWING_DIRECTION,
   RATING_FIELDS,
   SKIP_REASONS,
   SOIL_MOISTURE,
-} from "@/fixtures/visit-options";
-import type { ApplicationDto } from "@/lib/applications/dto";
-import type { PhotoDto } from "@/lib/photos/dto";
-import type { ZoneDto } from "@/lib/properties/dto";
+} from "@/lib/reference/visit-options";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
 import { zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
 

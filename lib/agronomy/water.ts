@@ -1,7 +1,7 @@
 // Turf water use and water balance. Crop coefficients for turf against FAO-56 reference ET:
 // about 0.8 for cool-season and 0.6 for warm-season turf (University of California guidance
 // following Meyer, Gibeault & Youngner 1985 — from memory, the primary text was not read).
-import { findGrassSpecies, type GrassSeason } from "@/fixtures/grass-species";
+import { findGrassSpecies, type GrassSeason } from "@/lib/reference/grass-species";
 
 import { IN_IN_MM } from "./units";
 

@@ -6,7 +6,6 @@ import "server-only";
 import { sql } from "kysely";
 
 import { db } from "@/db";
-import { findGrassSpecies } from "@/fixtures/grass-species";
 import { NutrientInputError, nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
 import { checkApplication, isRefused, type RuleFinding } from "@/lib/agronomy/rules";
 import { recordAudit } from "@/lib/audit/record";
@@ -16,6 +15,7 @@ import { todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { analysisOf } from "@/lib/products/dto";
 import { toProductDto } from "@/lib/products/queries";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { toRuleSetDto } from "@/lib/rule-sets/queries";
 import { visitInScope } from "@/lib/visits/scope";
 

@@ -10,8 +10,8 @@
 import type { Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
-import { findGrassSpecies } from "@/fixtures/grass-species";
 import { addDays, daysBetween, todayIn } from "@/lib/dates";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 import {
   MIN_CHECKS_FOR_CORRELATION,
   NITROGEN_WINDOW_DAYS,

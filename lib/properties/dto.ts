@@ -1,6 +1,6 @@
 // What property data leaves the server: camelCase, no internal columns.
 import type { Slope, SunExposure } from "@/db/schema";
-import type { GrassSeason } from "@/fixtures/grass-species";
+import type { GrassSeason } from "@/lib/reference/grass-species";
 
 export interface PropertySummaryDto {
   id: string;

@@ -1,6 +1,6 @@
 // Row → DTO mapping for zones, shared by property and visit reads.
 import type { Zone } from "@/db/schema";
-import { findGrassSpecies } from "@/fixtures/grass-species";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 
 import type { ZoneDto } from "./dto";
 

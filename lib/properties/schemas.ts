@@ -1,8 +1,8 @@
 // Input schemas for properties and zones, shared by the route handlers and the manager's forms.
 import { z } from "zod";
 
-import { grassSpeciesKeys } from "@/fixtures/grass-species";
 import { isValidTimeZone } from "@/lib/dates";
+import { grassSpeciesKeys } from "@/lib/reference/grass-species";
 
 export const propertyIdParams = z.object({ propertyId: z.uuid() });
 export const zoneIdParams = z.object({ zoneId: z.uuid() });

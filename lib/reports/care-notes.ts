@@ -3,7 +3,7 @@
 // Readings: a "short cut" is below the species' range or below 2.5 in on cool-season turf
 // (home lawns are best kept at the top of the range; common practice); thick thatch is more than
 // 0.5 in; bare ground or weeds count from 10 % of the zone.
-import { CARE_NOTES, type CareNote, type CareTrigger } from "@/fixtures/care-notes";
+import { CARE_NOTES, type CareNote, type CareTrigger } from "@/lib/reference/care-notes";
 import { alertKindLabel } from "@/lib/risk/labels";
 
 export const HOME_LAWN_MIN_CUT_IN = 2.5;

@@ -3,14 +3,14 @@
 import "server-only";
 
 import { db } from "@/db";
-import { findGrassSpecies } from "@/fixtures/grass-species";
-import { findSymptom } from "@/fixtures/symptoms";
-import { SKIP_REASONS } from "@/fixtures/visit-options";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { propertyInScope } from "@/lib/properties/scope";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
+import { findSymptom } from "@/lib/reference/symptoms";
+import { SKIP_REASONS } from "@/lib/reference/visit-options";
 import { propertyIndex } from "@/lib/scoring/sward-index";
 import { valuesOf } from "@/lib/visits/map";
 

@@ -5,10 +5,10 @@
 import type { Kysely, Transaction } from "kysely";
 
 import type { Database } from "@/db/schema";
-import { findGrassSpecies } from "@/fixtures/grass-species";
 import { TURF_KC, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
 import { refreshPropertySummary } from "@/lib/book/summary";
 import { addDays, todayIn } from "@/lib/dates";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { recentTrend } from "@/lib/scoring/history";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
 import { weatherFromCache } from "@/lib/weather/cache";

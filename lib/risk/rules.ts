@@ -20,7 +20,7 @@
 //   120 days, n ≥ 3; lib/scoring/weights.ts); −6 or worse is high.
 // - Late-season feeding: cool-season turf, from 1 September to the start of the rule set's
 //   blackout (else 30 November), with no N since 1 September — a reminder (low).
-import { findSymptom } from "@/fixtures/symptoms";
+import { findSymptom } from "@/lib/reference/symptoms";
 
 import {
   BROWN_PATCH_THRESHOLD,

@@ -1,6 +1,6 @@
 // A fertiliser rule set as screens show it (and as lib/agronomy/rules.ts checks it).
-import type { RecordField } from "@/fixtures/record-fields";
 import type { RuleSetLimits } from "@/lib/agronomy/rules";
+import type { RecordField } from "@/lib/reference/record-fields";
 
 export interface RuleSetDto extends RuleSetLimits {
   id: string;

@@ -1,7 +1,7 @@
 // Rule-set input (managers), shared by the route and the form.
 import { z } from "zod";
 
-import { RECORD_FIELD_KEYS } from "@/fixtures/record-fields";
+import { RECORD_FIELD_KEYS } from "@/lib/reference/record-fields";
 
 const monthDay = z
   .string()

@@ -1,7 +1,7 @@
 // Row ↔ DTO mapping for zone checks, and the plain-words summary of what a check found.
 import type { ZoneCheck } from "@/db/schema";
-import { findSymptom } from "@/fixtures/symptoms";
-import { RATING_FIELDS, RATING_SCALE } from "@/fixtures/visit-options";
+import { findSymptom } from "@/lib/reference/symptoms";
+import { RATING_FIELDS, RATING_SCALE } from "@/lib/reference/visit-options";
 
 import type { ZoneCheckDto, ZoneCheckValues } from "./dto";
 import type { ZoneCheckInput } from "./schemas";

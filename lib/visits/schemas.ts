@@ -1,8 +1,8 @@
 // Input schemas for visits and zone checks, shared by the route handlers and the forms.
 import { z } from "zod";
 
-import { symptomKeys } from "@/fixtures/symptoms";
 import { isIsoDate } from "@/lib/dates";
+import { symptomKeys } from "@/lib/reference/symptoms";
 
 import { zoneCheckCompleteness } from "./zone-check-rules";
 

@@ -17,11 +17,11 @@ import path from "node:path";
 import { sql } from "kysely";
 
 import { createDb } from "@/db/client";
-import { lawnImage } from "@/fixtures/demo-photos";
-import { DEMO_PASSWORD } from "@/fixtures/demo-scenario";
-import { symptomKeys } from "@/fixtures/symptoms";
+import { lawnImage } from "@/fixtures/demo/photos";
+import { DEMO_PASSWORD } from "@/fixtures/demo/scenario";
 import { todayIn } from "@/lib/dates";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
+import { symptomKeys } from "@/lib/reference/symptoms";
 import type { VisitDetailDto, VisitSummaryDto } from "@/lib/visits/dto";
 import type { ZoneCheckInput } from "@/lib/visits/schemas";
 

@@ -4,9 +4,9 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
-import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
 import { isInWindow } from "@/lib/agronomy/rules";
 import { todayIn } from "@/lib/dates";
+import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
 
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";

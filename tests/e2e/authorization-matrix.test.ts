@@ -512,7 +512,7 @@ const CELLS: Cell[] = [
     key: "POST /api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/photos",
     path: (t) => `/api/v1/visits/${t.visitId}/zone-checks/${t.zoneCheckId}/photos`,
     method: "POST",
-    bytes: async () => (await import("@/fixtures/demo-photos")).lawnImage(320, 240, 0.15),
+    bytes: async () => (await import("@/fixtures/demo/photos")).lawnImage(320, 240, 0.15),
     allow: ["assignedTech", "manager"],
     mustSucceed: true,
     after: (t, _persona, body) => {
@@ -645,7 +645,7 @@ beforeAll(async () => {
     { todayIn },
   ] = await Promise.all([
     import("../helpers/factories"),
-    import("@/fixtures/demo-scenario"),
+    import("@/fixtures/demo/scenario"),
     import("@/lib/risk/evaluate"),
     import("@/lib/visits/mutations"),
     import("@/lib/properties/mutations"),

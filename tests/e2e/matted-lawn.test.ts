@@ -9,7 +9,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
 import { createDb } from "@/db/client";
-import { demoCompany } from "@/fixtures/demo-scenario";
+import { demoCompany } from "@/fixtures/demo/scenario";
 import { addDays, todayIn } from "@/lib/dates";
 import { readInbox } from "@/lib/mail/inbox-folder";
 import { cellOf, weatherDayRow } from "@/lib/weather/cache";

@@ -4,7 +4,7 @@ import AxeBuilder from "@axe-core/playwright";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
-import { demoCompany, otherCompany } from "@/fixtures/demo-scenario";
+import { demoCompany, otherCompany } from "@/fixtures/demo/scenario";
 
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 

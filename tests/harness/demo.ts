@@ -5,7 +5,7 @@ import { randomBytes } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import net from "node:net";
 
-import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo-scenario";
+import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo/scenario";
 
 process.chdir(new URL("../..", import.meta.url).pathname);
 const PORT = Number(process.env.PORT ?? 3000);

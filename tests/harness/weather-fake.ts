@@ -2,8 +2,8 @@
 // 127.0.0.1 from deterministic data. `tsx tests/harness/weather-fake.ts [port]`.
 import http from "node:http";
 
+import { fakeWeatherDay } from "@/fixtures/demo/weather-days";
 import { addDays, todayIn } from "@/lib/dates";
-import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 
 export function startFakeWeather(port: number): Promise<http.Server> {
   const server = http.createServer((req, res) => {

@@ -1,7 +1,7 @@
 // Chromium for e2e tests: Debian's /usr/bin/chromium driven by playwright-core.
 import { chromium, type Browser, type Page } from "playwright-core";
 
-import { DEMO_PASSWORD } from "@/fixtures/demo-scenario";
+import { DEMO_PASSWORD } from "@/fixtures/demo/scenario";
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 

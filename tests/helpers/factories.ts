@@ -6,7 +6,7 @@ import type { Kysely } from "kysely";
 import { createDb } from "@/db/client";
 import type { Database } from "@/db/schema";
 import { seedCompany, type SeededCompany } from "@/db/seed-scenario";
-import { demoCompany, type ScenarioCompany } from "@/fixtures/demo-scenario";
+import { demoCompany, type ScenarioCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { createAuthSession, findActorBySession } from "@/lib/auth/queries";
 

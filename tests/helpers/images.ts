@@ -2,7 +2,7 @@
 import { deflateSync } from "node:zlib";
 import sharp from "sharp";
 
-export { lawnImage } from "@/fixtures/demo-photos";
+export { lawnImage } from "@/fixtures/demo/photos";
 
 /** RGB image whose first `greenFraction` of rows are `green` and the rest `soil`. */
 export async function stripedImage(

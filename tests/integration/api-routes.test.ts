@@ -2,7 +2,7 @@
 // real actor from the database: status codes, error shape, and scope.
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 
 import { createTestCompany, type TestCompany } from "../helpers/factories";

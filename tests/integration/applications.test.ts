@@ -3,7 +3,7 @@
 // with an audit row, pesticide record fields, idempotency and scope.
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import { recordApplication } from "@/lib/applications/mutations";
 import { listPropertyApplications } from "@/lib/applications/queries";
 import type { ApplicationInput } from "@/lib/applications/schemas";

@@ -5,7 +5,7 @@ import { randomUUID } from "node:crypto";
 import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { listBook, teamActivity } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";

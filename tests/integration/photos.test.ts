@@ -7,7 +7,7 @@ import exifr from "exifr";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { PHOTO_LIMITS } from "@/lib/photos/process";

@@ -2,7 +2,7 @@
 // actor's company and role; anything outside is "not found".
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import { AppError } from "@/lib/http/app-error";
 import { getProperty, listProperties } from "@/lib/properties/queries";
 

@@ -2,7 +2,7 @@
 // notes that match what was seen; only the homeowner's own completed visits.
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import { addDays, todayIn } from "@/lib/dates";
 import { getVisitReport, listReports } from "@/lib/reports/queries";
 

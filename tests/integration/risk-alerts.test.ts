@@ -5,7 +5,7 @@
 import PgBoss from "pg-boss";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { evaluateProperty } from "@/lib/risk/evaluate";

@@ -3,10 +3,10 @@
 // visit; scope holds (homeowners their own lawn only, other companies nothing); the book figures.
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { demoCompany, otherCompany } from "@/fixtures/demo-scenario";
+import { demoCompany, otherCompany } from "@/fixtures/demo/scenario";
+import { fakeWeatherDay } from "@/fixtures/demo/weather-days";
 import { addDays, todayIn } from "@/lib/dates";
 import { bookScoring, propertyScoreHistory } from "@/lib/scoring/queries";
-import { fakeWeatherDay } from "@/lib/services/weather/fake-data";
 import { cellOf, weatherDayRow } from "@/lib/weather/queries";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";

@@ -2,7 +2,7 @@
 // technician's day, idempotent and versioned saves, finishing, locking and the audit trail.
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { todayIn } from "@/lib/dates";
 import { getProperty, listProperties } from "@/lib/properties/queries";

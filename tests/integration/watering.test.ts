@@ -2,7 +2,7 @@
 // id, scoped to the actor's properties.
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo-scenario";
+import { otherCompany } from "@/fixtures/demo/scenario";
 import { logWatering } from "@/lib/watering/mutations";
 import { listWaterings } from "@/lib/watering/queries";
 import type { WateringInput } from "@/lib/watering/schemas";

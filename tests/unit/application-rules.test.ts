@@ -4,7 +4,6 @@
 // 18C.60 (phosphorus only with a soil test within 3 years, or establishment).
 import { describe, expect, it } from "vitest";
 
-import { SHIPPED_RULE_SETS } from "@/fixtures/rule-sets";
 import {
   checkApplication,
   isInWindow,
@@ -12,6 +11,7 @@ import {
   type ApplicationFacts,
   type RuleSetLimits,
 } from "@/lib/agronomy/rules";
+import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
 
 const byName = (name: string): RuleSetLimits => {
   const r = SHIPPED_RULE_SETS.find((x) => x.name === name)!;

@@ -1,7 +1,7 @@
 // Care notes match what was observed and applied, say why, and carry their safety cautions.
 import { describe, expect, it } from "vitest";
 
-import { CARE_NOTES } from "@/fixtures/care-notes";
+import { CARE_NOTES } from "@/lib/reference/care-notes";
 import { matchCareNotes, type ObservedZone } from "@/lib/reports/care-notes";
 
 const zone = (o: Partial<ObservedZone> = {}): ObservedZone => ({

@@ -2,8 +2,8 @@
 // own consistency (invented data, .test e-mails, the sizes the demo promises).
 import { describe, expect, it } from "vitest";
 
-import { demoCompany, demoScenario, otherCompany } from "@/fixtures/demo-scenario";
-import { findGrassSpecies, grassSpecies } from "@/fixtures/grass-species";
+import { demoCompany, demoScenario, otherCompany } from "@/fixtures/demo/scenario";
+import { findGrassSpecies, grassSpecies } from "@/lib/reference/grass-species";
 
 describe("grass species: height of cut (in)", () => {
   // Source: University of Tennessee height-of-cut table, via trade press.

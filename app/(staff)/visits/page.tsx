@@ -5,12 +5,12 @@ import { TeamActivity } from "@/components/book/team-activity";
 import { buttonClass } from "@/components/ui/button";
 import { ScheduleVisitForm } from "@/components/visits/schedule-visit-form";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
-import { PLANNED_SERVICES } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
 import { teamActivity } from "@/lib/book/queries";
 import { addDays, formatDate, isIsoDate, todayIn } from "@/lib/dates";
 import { listPeople } from "@/lib/people/queries";
 import { listProperties } from "@/lib/properties/queries";
+import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import { listVisits } from "@/lib/visits/queries";
 
 export const metadata: Metadata = { title: "Visits" };

@@ -6,13 +6,13 @@ import { notFound } from "next/navigation";
 import { BeforeAfter } from "@/components/photos/before-after";
 import { ZoneIndexSection } from "@/components/scoring/zone-index-section";
 import { ZoneStatusBadge } from "@/components/visits/status-badge";
-import { findSymptom } from "@/fixtures/symptoms";
-import { RATING_SCALE, SKIP_REASONS } from "@/fixtures/visit-options";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { listZonePhotos } from "@/lib/photos/queries";
 import { zoneIdParams } from "@/lib/properties/schemas";
+import { findSymptom } from "@/lib/reference/symptoms";
+import { RATING_SCALE, SKIP_REASONS } from "@/lib/reference/visit-options";
 import { propertyScoreHistory } from "@/lib/scoring/queries";
 import { getZoneHistory } from "@/lib/visits/queries";
 
