@@ -22,7 +22,7 @@ describe("manager pages", () => {
     ["phone", PHONE],
     ["desktop", DESKTOP],
   ] as const) {
-    it(`render and pass axe at ${size} size`, async () => {
+    it(`render and pass axe at ${size} size`, { timeout: 90_000 }, async () => {
       const context = await browser.newContext({ viewport, baseURL: baseUrl });
       const page = await context.newPage();
       await signIn(page, baseUrl, "manager@demo.sward.test");
