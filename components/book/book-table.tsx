@@ -8,7 +8,7 @@ import Link from "next/link";
 
 import { SeverityBadge } from "@/components/alerts/severity-badge";
 import { TrendBadge } from "@/components/scoring/trend-badge";
-import type { BookRow } from "@/lib/book/queries";
+import type { BookRow } from "@/lib/book/dto";
 import type { BookSort } from "@/lib/book/schemas";
 import { formatDate } from "@/lib/dates";
 

@@ -6,7 +6,7 @@ import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { FilterSelect } from "@/components/ui/filter-select";
-import type { BookRow } from "@/lib/book/queries";
+import type { BookRow } from "@/lib/book/dto";
 import { BOOK_SORTS, type BookQuery } from "@/lib/book/schemas";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
 

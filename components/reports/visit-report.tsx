@@ -4,7 +4,7 @@ import { ShieldAlert } from "lucide-react";
 
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { formatDate } from "@/lib/dates";
-import type { VisitReport } from "@/lib/reports/queries";
+import type { VisitReport } from "@/lib/reports/dto";
 
 import { PrintButton } from "./print-button";
 

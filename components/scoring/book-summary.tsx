@@ -3,8 +3,8 @@
 import Link from "next/link";
 
 import { DistributionChart } from "@/components/charts/distribution-chart";
+import type { BookScoring } from "@/lib/scoring/dto";
 import { MIN_CHECKS_FOR_CORRELATION, RESPONDS_TO_N_R } from "@/lib/scoring/history";
-import type { BookScoring } from "@/lib/scoring/queries";
 
 import { ChartFigure, Td, Th } from "./chart-figure";
 

@@ -1,7 +1,7 @@
 // The homeowner's view of the Index: one number, the direction in plain words, a simple chart.
 import { SimpleTrendChart } from "@/components/charts/simple-trend-chart";
 import { formatDate } from "@/lib/dates";
-import type { PropertyScoreHistory } from "@/lib/scoring/queries";
+import type { PropertyScoreHistory } from "@/lib/scoring/dto";
 
 import { ChartFigure, Td, Th } from "./chart-figure";
 

@@ -5,8 +5,8 @@ import Link from "next/link";
 import { IndexChart } from "@/components/charts/index-chart";
 import { WeatherStrip } from "@/components/charts/weather-strip";
 import { formatDate } from "@/lib/dates";
+import type { PropertyScoreHistory } from "@/lib/scoring/dto";
 import { MIN_CHECKS_FOR_CORRELATION } from "@/lib/scoring/history";
-import type { PropertyScoreHistory } from "@/lib/scoring/queries";
 import { coefficient, patternPhrase, seasonSentence, trendSentence } from "@/lib/scoring/words";
 
 import { ChartFigure, Td, Th } from "./chart-figure";

@@ -2,12 +2,12 @@
 // moved with the nitrogen and water before each check — with the caution that goes with it.
 import { IndexChart } from "@/components/charts/index-chart";
 import { formatDate } from "@/lib/dates";
+import type { ZoneScoreHistory } from "@/lib/scoring/dto";
 import {
   MIN_CHECKS_FOR_CORRELATION,
   NITROGEN_WINDOW_DAYS,
   RESPONDS_TO_N_R,
 } from "@/lib/scoring/history";
-import type { ZoneScoreHistory } from "@/lib/scoring/queries";
 import { correlationSentence, seasonSentence, trendSentence } from "@/lib/scoring/words";
 
 import { ChartFigure, Td, Th } from "./chart-figure";

@@ -13,7 +13,8 @@ import { wateringDepthIn } from "@/lib/agronomy/water";
 import { formatDate } from "@/lib/dates";
 import type { ZoneDto } from "@/lib/properties/dto";
 import { sendJson } from "@/lib/query-client";
-import { wateringSchema, type WateringDto } from "@/lib/watering/schemas";
+import type { WateringDto } from "@/lib/watering/dto";
+import { wateringSchema } from "@/lib/watering/schemas";
 
 const num = (s: string) => (s.trim() === "" ? null : Number(s));
 

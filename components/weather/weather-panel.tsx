@@ -3,7 +3,7 @@
 import { CloudOff } from "lucide-react";
 
 import { formatDate } from "@/lib/dates";
-import type { PropertyWeather } from "@/lib/weather/queries";
+import type { PropertyWeather } from "@/lib/weather/dto";
 
 const f = (x: number, d = 2) => x.toFixed(d);
 

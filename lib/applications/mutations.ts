@@ -14,9 +14,9 @@ import { refreshPropertySummary } from "@/lib/book/summary";
 import { todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { analysisOf } from "@/lib/products/dto";
-import { toProductDto } from "@/lib/products/queries";
+import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
-import { toRuleSetDto } from "@/lib/rule-sets/queries";
+import { toRuleSetDto } from "@/lib/rule-sets/map";
 import { visitInScope } from "@/lib/visits/scope";
 
 import type { ApplicationDto } from "./dto";

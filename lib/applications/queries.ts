@@ -85,7 +85,7 @@ export async function zoneNitrogenYearToDate(
 }
 
 /** lb N per 1,000 ft² applied to each zone of a property in a calendar year (zone id → lb). */
-export async function propertyNitrogenByZone(
+export async function getNitrogenByZone(
   actor: Actor,
   propertyId: string,
   year: string,

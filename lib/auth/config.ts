@@ -11,7 +11,7 @@ import { log } from "@/lib/log";
 import { MAIL_FROM } from "@/lib/services/mail";
 
 import { checkCredentials } from "./credentials";
-import { createAuthSession, deleteAuthSession } from "./queries";
+import { createAuthSession, deleteAuthSession } from "./mutations";
 import { signInSchema } from "./schemas";
 import {
   findHomeowner,

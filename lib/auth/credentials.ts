@@ -5,8 +5,9 @@ import "server-only";
 import { serverEnv } from "@/lib/env";
 import { log, maskEmail } from "@/lib/log";
 
+import { recordSignInAttempt } from "./mutations";
 import { decoyPasswordHash, verifyPassword } from "./password";
-import { countRecentFailures, findSignInCandidate, recordSignInAttempt } from "./queries";
+import { countRecentFailures, findSignInCandidate } from "./queries";
 import { isThrottled, normaliseEmail } from "./throttle";
 
 export type CredentialCheck =

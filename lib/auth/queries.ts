@@ -1,21 +1,14 @@
-// Data access for sign-in and sessions: the only auth code that touches the database.
+// Reads for sign-in and sessions (writes in mutations.ts): with mutations.ts, the only auth code
+// that touches the database.
 import "server-only";
 
-import { randomBytes } from "node:crypto";
 import { sql } from "kysely";
 
 import { db } from "@/db";
-import type { Role } from "@/db/schema";
 
 import type { Actor } from "./actor";
+import type { Homeowner, LinkUser, SignInCandidate } from "./dto";
 import type { RecentFailures } from "./throttle";
-
-export interface SignInCandidate {
-  userId: string;
-  passwordHash: string | null;
-  isDisabled: boolean;
-  role: Role | null;
-}
 
 export async function findSignInCandidate(email: string): Promise<SignInCandidate | undefined> {
   const row = await db()
@@ -60,38 +53,6 @@ export async function countRecentFailures(
   return { forAccount: Number(row.for_account ?? 0), fromAddress: Number(row.from_address ?? 0) };
 }
 
-export async function recordSignInAttempt(
-  emailKey: string,
-  address: string,
-  succeeded: boolean,
-): Promise<void> {
-  await db()
-    .insertInto("sign_in_attempts")
-    .values({ email_key: emailKey, address, succeeded })
-    .execute();
-  if (succeeded) {
-    // A successful sign-in clears that account's failure count.
-    await db()
-      .deleteFrom("sign_in_attempts")
-      .where("email_key", "=", emailKey)
-      .where("succeeded", "=", false)
-      .execute();
-  }
-}
-
-export async function createAuthSession(userId: string, maxAgeSeconds: number): Promise<string> {
-  const id = randomBytes(32).toString("base64url");
-  await db()
-    .insertInto("auth_sessions")
-    .values({ id, user_id: userId, expires_at: new Date(Date.now() + maxAgeSeconds * 1000) })
-    .execute();
-  return id;
-}
-
-export async function deleteAuthSession(sessionId: string): Promise<void> {
-  await db().deleteFrom("auth_sessions").where("id", "=", sessionId).execute();
-}
-
 /** The actor behind a session id, or undefined when the session, user or membership is gone or disabled. */
 export async function findActorBySession(sessionId: string): Promise<Actor | undefined> {
   const row = await db()
@@ -128,15 +89,6 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
 
 // ── Sign-in links (lib/auth/sign-in-link.ts) ──────────────────────────────────────────────────
 
-export interface Homeowner {
-  userId: string;
-  email: string;
-  name: string;
-  emailVerified: Date | null;
-  companyId: string;
-  companyName: string;
-}
-
 /** An active homeowner account with this (normalised) e-mail, or undefined (staff, disabled, unknown). */
 export async function findHomeowner(emailKey: string): Promise<Homeowner | undefined> {
   const row = await db()
@@ -167,13 +119,6 @@ export async function findHomeowner(emailKey: string): Promise<Homeowner | undef
   );
 }
 
-export interface LinkUser {
-  id: string;
-  email: string;
-  name: string;
-  emailVerified: Date | null;
-}
-
 export async function findUserById(id: string): Promise<LinkUser | undefined> {
   const row = await db()
     .selectFrom("users")
@@ -181,44 +126,6 @@ export async function findUserById(id: string): Promise<LinkUser | undefined> {
     .where("id", "=", id)
     .executeTakeFirst();
   return row && { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
-}
-
-export async function markEmailVerified(
-  id: string,
-  at: Date | null | undefined,
-): Promise<LinkUser> {
-  const row = await db()
-    .updateTable("users")
-    .set({ email_verified: at ?? undefined })
-    .where("id", "=", id)
-    .returning(["id", "email", "name", "email_verified"])
-    .executeTakeFirstOrThrow();
-  return { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
-}
-
-export async function storeVerificationToken(token: {
-  identifier: string;
-  token: string;
-  expires: Date;
-}): Promise<void> {
-  await db()
-    .deleteFrom("verification_tokens")
-    .where("expires", "<", sql<Date>`now() - interval '1 day'`)
-    .execute();
-  await db().insertInto("verification_tokens").values(token).execute();
-}
-
-/** Deleting as it is read makes a link single-use, even when opened twice at once. */
-export async function takeVerificationToken(
-  identifier: string,
-  token: string,
-): Promise<{ identifier: string; token: string; expires: Date } | undefined> {
-  return db()
-    .deleteFrom("verification_tokens")
-    .where("identifier", "=", identifier)
-    .where("token", "=", token)
-    .returningAll()
-    .executeTakeFirst();
 }
 
 export async function countRecentLinkRequests(
@@ -244,11 +151,4 @@ export async function countRecentLinkRequests(
     ])
     .executeTakeFirstOrThrow();
   return { forEmail: Number(row.for_email ?? 0), fromAddress: Number(row.from_address ?? 0) };
-}
-
-export async function recordLinkRequest(emailKey: string, address: string): Promise<void> {
-  await db()
-    .insertInto("sign_in_link_requests")
-    .values({ email_key: emailKey, address: address.slice(0, 100) })
-    .execute();
 }

@@ -10,17 +10,13 @@ import type { Adapter, AdapterUser } from "next-auth/adapters";
 import { queueMail } from "@/lib/mail/mutations";
 import { signInLinkEmail } from "@/lib/mail/sign-in-email";
 
-import {
-  findHomeowner as findHomeownerByKey,
-  findUserById,
-  markEmailVerified,
-  storeVerificationToken,
-  takeVerificationToken,
-  type Homeowner,
-} from "./queries";
+import type { Homeowner } from "./dto";
+import { markEmailVerified, storeVerificationToken, takeVerificationToken } from "./mutations";
+import { findHomeowner as findHomeownerByKey, findUserById } from "./queries";
 import { normaliseEmail } from "./throttle";
 
-export { countRecentLinkRequests, recordLinkRequest } from "./queries";
+export { recordLinkRequest } from "./mutations";
+export { countRecentLinkRequests } from "./queries";
 
 export const SIGN_IN_LINK_MINUTES = 15;
 export const SIGN_IN_LINK_PROVIDER = "nodemailer";

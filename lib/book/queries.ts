@@ -12,31 +12,10 @@ import { AppError } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
 import { escapeLike } from "@/lib/text";
 
+import type { BookRow } from "./dto";
+import { toBookRow } from "./map";
 import type { BookQuery, BookSort } from "./schemas";
 import { technicianActivity } from "./team";
-
-export interface BookRow {
-  propertyId: string;
-  name: string;
-  street: string;
-  city: string;
-  technician: { id: string; name: string } | null;
-  lastVisitOn: string | null;
-  nextVisitOn: string | null;
-  missedVisitOn: string | null;
-  isOverdue: boolean;
-  latestIndex: number | null;
-  latestIndexOn: string | null;
-  trendWord: "improving" | "steady" | "declining" | null;
-  trendSlope: number | null;
-  trendN: number;
-  alerts: { high: number; moderate: number; low: number };
-  alertKinds: string[];
-  nYtdLb: number;
-  nMaxLb: number | null;
-  attentionScore: number;
-  reasons: string[];
-}
 
 /**
  * Sort keys: an expression without nulls (so row comparison works), its SQL type, the natural
@@ -211,31 +190,7 @@ function toPage(rows: PageRow[], q: BookQuery): { rows: BookRow[]; nextCursor: s
   const page = rows.slice(0, q.limit);
   const last = page.at(-1);
   return {
-    rows: page.map((r) => ({
-      propertyId: r.id,
-      name: r.name,
-      street: r.street,
-      city: r.city,
-      technician:
-        r.technician_id && r.technician_name
-          ? { id: r.technician_id, name: r.technician_name }
-          : null,
-      lastVisitOn: r.last_visit_on,
-      nextVisitOn: r.next_visit_on,
-      missedVisitOn: r.missed_visit_on,
-      isOverdue: r.is_overdue,
-      latestIndex: r.latest_index,
-      latestIndexOn: r.latest_index_on,
-      trendWord: r.trend_word,
-      trendSlope: r.trend_slope,
-      trendN: r.trend_n,
-      alerts: { high: r.alerts_high, moderate: r.alerts_moderate, low: r.alerts_low },
-      alertKinds: r.alert_kinds,
-      nYtdLb: r.n_ytd_lb,
-      nMaxLb: r.n_max_lb,
-      attentionScore: r.attention_score,
-      reasons: r.attention_reasons,
-    })),
+    rows: page.map(toBookRow),
     nextCursor:
       rows.length > q.limit && last ? encodeCursor(normalise(last.sort_value), last.id) : null,
   };
@@ -246,7 +201,7 @@ const normalise = (v: unknown): string | number =>
   typeof v === "number" ? v : v instanceof Date ? v.toISOString().slice(0, 10) : String(v);
 
 /** Every row of the filtered book in its order, a page at a time (for the CSV export). */
-export async function* bookRows(actor: Actor, q: BookQuery): AsyncGenerator<BookRow> {
+export async function* listBookRows(actor: Actor, q: BookQuery): AsyncGenerator<BookRow> {
   let after: string | undefined;
   for (;;) {
     const pageQuery = { ...q, after, limit: 100 };
@@ -258,7 +213,7 @@ export async function* bookRows(actor: Actor, q: BookQuery): AsyncGenerator<Book
 }
 
 /** Each technician's last eight weeks (managers). */
-export async function teamActivity(actor: Actor) {
+export async function getTeamActivity(actor: Actor) {
   if (actor.role !== "manager") throw new AppError("forbidden", "The team view is for managers.");
   const today = todayIn(actor.companyTimeZone);
   const since = addDays(today, -7 * 8 - 7);

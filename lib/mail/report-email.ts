@@ -1,7 +1,7 @@
 // The visit report e-mail to a homeowner (pure): a short summary, the care-note titles, the
 // keep-off guidance of anything applied, photos as links, and one button to the report.
 import { formatDate } from "@/lib/dates";
-import type { VisitReport } from "@/lib/reports/queries";
+import type { VisitReport } from "@/lib/reports/dto";
 import { escapeHtml } from "@/lib/text";
 
 export function reportEmail(

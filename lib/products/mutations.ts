@@ -5,8 +5,8 @@ import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 
-import { productColumns as columns } from "./columns";
 import type { ProductDto } from "./dto";
+import { productColumns as columns } from "./map";
 import { getProduct } from "./queries";
 import type { ProductInput } from "./schemas";
 

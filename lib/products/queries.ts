@@ -2,29 +2,11 @@
 import "server-only";
 
 import { db } from "@/db";
-import type { Product } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
 
 import type { ProductDto } from "./dto";
-
-export function toProductDto(p: Product): ProductDto {
-  return {
-    id: p.id,
-    name: p.name,
-    form: p.form,
-    nPct: Number(p.n_pct),
-    p2o5Pct: Number(p.p2o5_pct),
-    k2oPct: Number(p.k2o_pct),
-    slowReleasePctOfN: Number(p.slow_release_pct_of_n),
-    densityLbPerGal: p.density_lb_per_gal === null ? null : Number(p.density_lb_per_gal),
-    isPesticide: p.is_pesticide,
-    registrationNumber: p.registration_number,
-    labelCautions: p.label_cautions,
-    reentryGuidance: p.reentry_guidance,
-    isArchived: p.archived_at !== null,
-  };
-}
+import { toProductDto } from "./map";
 
 export async function listProducts(
   actor: Actor,

@@ -10,7 +10,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
 
 import type { PropertyDetailDto, PropertySummaryDto } from "./dto";
-import { toZoneDto } from "./map";
+import { toPropertySummaryDto, toZoneDto } from "./map";
 import { propertyInScope } from "./scope";
 
 type PropertyQuery<O> = SelectQueryBuilder<Database, "properties", O>;
@@ -50,30 +50,6 @@ function selectSummary<O>(query: PropertyQuery<O>) {
     ]);
 }
 
-type SummaryRow = Awaited<ReturnType<ReturnType<typeof selectSummary>["execute"]>>[number];
-
-function toSummary(row: SummaryRow): PropertySummaryDto {
-  return {
-    id: row.id,
-    name: row.name,
-    address: {
-      street: row.street,
-      city: row.city,
-      region: row.region,
-      postalCode: row.postal_code,
-    },
-    location: { latitude: row.latitude, longitude: row.longitude },
-    timeZone: row.time_zone,
-    technician: row.technician_id
-      ? { id: row.technician_id, name: row.technician_name ?? "" }
-      : null,
-    ruleSet: row.rule_set_id ? { id: row.rule_set_id, name: row.rule_set_name ?? "" } : null,
-    zoneCount: Number(row.zone_count ?? 0),
-    lawnAreaFt2: Number(row.lawn_area_ft2 ?? 0),
-    isArchived: row.archived_at !== null,
-  };
-}
-
 export async function listProperties(
   actor: Actor,
   options: { includeArchived?: boolean } = {},
@@ -85,7 +61,7 @@ export async function listProperties(
     .orderBy("properties.name")
     .orderBy("properties.id")
     .execute();
-  return rows.map(toSummary);
+  return rows.map(toPropertySummaryDto);
 }
 
 /** 404 "That property" unless the property is within the actor's scope (lists under a property answer as the property does). */
@@ -147,7 +123,7 @@ export async function getProperty(actor: Actor, propertyId: string): Promise<Pro
           .execute();
 
   return {
-    ...toSummary(row),
+    ...toPropertySummaryDto(row),
     zones: zones.map(toZoneDto),
     homeowners,
     notes: actor.role === "homeowner" ? "" : row.notes,

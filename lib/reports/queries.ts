@@ -5,7 +5,6 @@ import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { notFound } from "@/lib/http/app-error";
-import type { PhotoDto } from "@/lib/photos/dto";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { propertyInScope } from "@/lib/properties/scope";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
@@ -14,40 +13,9 @@ import { SKIP_REASONS } from "@/lib/reference/visit-options";
 import { propertyIndex } from "@/lib/scoring/sward-index";
 import { valuesOf } from "@/lib/visits/map";
 
-import { matchCareNotes, type MatchedNote } from "./care-notes";
+import { matchCareNotes } from "./care-notes";
+import type { VisitReport } from "./dto";
 import { zoneSentences } from "./words";
-
-export interface VisitReport {
-  visitId: string;
-  date: string;
-  propertyId: string;
-  propertyName: string;
-  address: string;
-  companyName: string;
-  technicianName: string | null;
-  weather: { tmaxF: number; tminF: number; precipIn: number } | null;
-  propertyIndex: number | null;
-  zones: {
-    zoneId: string;
-    name: string;
-    skipped: string | null;
-    sentences: string[];
-    index: number | null;
-    photos: PhotoDto[];
-  }[];
-  applications: {
-    zoneName: string;
-    productName: string;
-    isPesticide: boolean;
-    registrationNumber: string;
-    nLb: number;
-    p2o5Lb: number;
-    k2oLb: number;
-    labelCautions: string;
-    reentryGuidance: string;
-  }[];
-  careNotes: MatchedNote[];
-}
 
 const symptomName = (k: string) => findSymptom(k)?.name ?? k;
 

@@ -8,9 +8,8 @@ import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 
-import { ruleSetColumns as columns } from "./columns";
 import type { RuleSetDto } from "./dto";
-import { toRuleSetDto } from "./queries";
+import { ruleSetColumns as columns, toRuleSetDto } from "./map";
 import type { RuleSetInput } from "./schemas";
 
 export async function saveRuleSet(

@@ -1,6 +1,7 @@
 // Index history reads: a zone's, a property's and the book's. Rows come from here; every figure
 // is computed by the pure functions of lib/scoring/history.ts. Stored Indexes only (never
-// recomputed at read time); weather through the shared cache of lib/weather/queries.ts.
+// recomputed at read time); weather read from the shared cache
+// (pages refresh it first with lib/weather/mutations.ts).
 import "server-only";
 
 import { db } from "@/db";
@@ -8,10 +9,10 @@ import { lawnKc, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { propertyInScope } from "@/lib/properties/scope";
-import { weatherProvider } from "@/lib/services/weather/instance";
-import { deriveDays, type DerivedDay } from "@/lib/weather/derived";
-import { propertyLocation, weatherForLocation } from "@/lib/weather/queries";
+import { deriveDays } from "@/lib/weather/derived";
+import { getCachedWeather, getPropertyLocation } from "@/lib/weather/queries";
 
+import type { BookScoring, PropertyScoreHistory, ZoneScoreHistory } from "./dto";
 import {
   indexDistribution,
   propertyIndexByVisit,
@@ -21,51 +22,18 @@ import {
   zoneCorrelations,
   type CheckPoint,
   type NitrogenEvent,
-  type PropertyVisitIndex,
-  type SeasonChange,
-  type Trend,
-  type ZoneCorrelations,
 } from "./history";
 
 /** How far back histories reach: one year of checks (charts start at the first of them). */
 export const HISTORY_DAYS = 365;
 
-export interface DailyWater {
-  date: string;
-  wateringIn: number;
-}
-
-export interface ZoneScoreHistory {
-  zoneId: string;
-  name: string;
-  areaFt2: number;
-  points: CheckPoint[];
-  applications: NitrogenEvent[];
-  waterings: DailyWater[];
-  trend: Trend | null;
-  season: SeasonChange | null;
-  correlations: ZoneCorrelations;
-}
-
-export interface PropertyScoreHistory {
-  propertyId: string;
-  today: string;
-  from: string;
-  weather: { status: "ok" | "cached" | "unavailable"; message: string | null; days: DerivedDay[] };
-  visits: (PropertyVisitIndex & { hasPhoto: boolean })[];
-  applications: NitrogenEvent[];
-  trend: Trend | null;
-  season: SeasonChange | null;
-  zones: ZoneScoreHistory[];
-}
-
 /** Everything the Index charts of a property need: per visit, per zone, with weather. */
-export async function propertyScoreHistory(
+export async function getPropertyScoreHistory(
   actor: Actor,
   propertyId: string,
   options: { weather?: boolean } = {},
 ): Promise<PropertyScoreHistory> {
-  const property = await propertyLocation(actor, propertyId);
+  const property = await getPropertyLocation(actor, propertyId);
   const today = todayIn(property.time_zone);
   const since = addDays(today, -HISTORY_DAYS);
   const companyId = actor.companyId;
@@ -141,8 +109,7 @@ export async function propertyScoreHistory(
   const weather =
     options.weather === false
       ? { days: [], status: "unavailable" as const, message: null }
-      : await weatherForLocation(
-          weatherProvider(),
+      : await getCachedWeather(
           property.latitude,
           property.longitude,
           addDays(first, -15),
@@ -238,19 +205,6 @@ export async function propertyScoreHistory(
   };
 }
 
-export interface BookScoring {
-  /** Properties in the book, and how many have an Index. */
-  total: number;
-  scored: number;
-  median: number | null;
-  distribution: { from: number; to: number; count: number }[];
-  /** Declining properties, steepest first. */
-  declining: { propertyId: string; name: string; slopePer30Days: number }[];
-  zonesWithEnoughChecks: number;
-  zonesRespondingToN: number;
-  zonesTotal: number;
-}
-
 /**
  * Across the book (managers): how the latest property indexes are spread, which properties are
  * declining, and the share of zones whose Index follows the nitrogen available to them — all read
@@ -258,7 +212,7 @@ export interface BookScoring {
  * the cost does not grow with the zone checks. Water balance is left out here: it needs the
  * weather of every place, and N is the question the book view answers.
  */
-export async function bookScoring(actor: Actor): Promise<BookScoring> {
+export async function getBookScoring(actor: Actor): Promise<BookScoring> {
   const rows = await db()
     .selectFrom("properties")
     .leftJoin("property_summaries as ps", "ps.property_id", "properties.id")

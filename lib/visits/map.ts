@@ -1,9 +1,9 @@
 // Row ↔ DTO mapping for zone checks, and the plain-words summary of what a check found.
-import type { ZoneCheck } from "@/db/schema";
+import type { Property, Visit, ZoneCheck } from "@/db/schema";
 import { findSymptom } from "@/lib/reference/symptoms";
 import { RATING_FIELDS, RATING_SCALE } from "@/lib/reference/visit-options";
 
-import type { ZoneCheckDto, ZoneCheckValues } from "./dto";
+import type { VisitSummaryDto, ZoneCheckDto, ZoneCheckValues } from "./dto";
 import type { ZoneCheckInput } from "./schemas";
 
 export function toZoneCheckDto(row: ZoneCheck, updatedBy: string | null = null): ZoneCheckDto {
@@ -110,4 +110,42 @@ export function concernsOf(zoneName: string, v: ZoneCheckValues): string[] {
   if (v.isScalped) out.push(`${zoneName}: scalping`);
   if (v.hasTornTips) out.push(`${zoneName}: torn leaf tips`);
   return out;
+}
+
+/** A visit with its property's name and address and its progress (lib/visits/queries.ts). */
+export type VisitSummaryRow = Pick<
+  Visit,
+  | "id"
+  | "property_id"
+  | "scheduled_for"
+  | "stop_order"
+  | "planned_service"
+  | "status"
+  | "technician_id"
+  | "started_at"
+  | "completed_at"
+> &
+  Pick<Property, "street" | "city"> & {
+    property_name: string;
+    technician_name: string | null;
+    checked_zones: number | string | null;
+    zone_count: number | string | null;
+  };
+
+export function toVisitSummaryDto(r: VisitSummaryRow): VisitSummaryDto {
+  return {
+    id: r.id,
+    propertyId: r.property_id,
+    propertyName: r.property_name,
+    address: `${r.street}, ${r.city}`,
+    scheduledFor: r.scheduled_for,
+    stopOrder: r.stop_order,
+    plannedService: r.planned_service,
+    status: r.status,
+    technician: r.technician_id ? { id: r.technician_id, name: r.technician_name ?? "" } : null,
+    startedAt: r.started_at ? new Date(r.started_at).toISOString() : null,
+    completedAt: r.completed_at ? new Date(r.completed_at).toISOString() : null,
+    checkedZones: Number(r.checked_zones ?? 0),
+    zoneCount: Number(r.zone_count ?? 0),
+  };
 }

@@ -18,7 +18,7 @@ import type {
   VisitSummaryDto,
   ZoneHistoryEntryDto,
 } from "./dto";
-import { concernsOf, toZoneCheckDto, valuesOf } from "./map";
+import { concernsOf, toVisitSummaryDto, toZoneCheckDto, valuesOf } from "./map";
 import type { listVisitsQuery } from "./schemas";
 import { visitInScope } from "./scope";
 
@@ -66,26 +66,6 @@ function visitSummaries() {
     ]);
 }
 
-type SummaryRow = Awaited<ReturnType<ReturnType<typeof visitSummaries>["execute"]>>[number];
-
-function toSummary(r: SummaryRow): VisitSummaryDto {
-  return {
-    id: r.id,
-    propertyId: r.property_id,
-    propertyName: r.property_name,
-    address: `${r.street}, ${r.city}`,
-    scheduledFor: r.scheduled_for,
-    stopOrder: r.stop_order,
-    plannedService: r.planned_service,
-    status: r.status,
-    technician: r.technician_id ? { id: r.technician_id, name: r.technician_name ?? "" } : null,
-    startedAt: r.started_at ? new Date(r.started_at).toISOString() : null,
-    completedAt: r.completed_at ? new Date(r.completed_at).toISOString() : null,
-    checkedZones: Number(r.checked_zones ?? 0),
-    zoneCount: Number(r.zone_count ?? 0),
-  };
-}
-
 export async function listVisits(
   actor: Actor,
   query: z.infer<typeof listVisitsQuery>,
@@ -103,7 +83,7 @@ export async function listVisits(
     .orderBy("visits.id")
     .limit(500)
     .execute();
-  return rows.map(toSummary);
+  return rows.map(toVisitSummaryDto);
 }
 
 export async function getVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
@@ -141,7 +121,7 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     .execute();
 
   return {
-    ...toSummary(row),
+    ...toVisitSummaryDto(row),
     notes: row.notes,
     timeZone: row.time_zone,
     ruleSetId: row.rule_set_id,
@@ -212,7 +192,7 @@ export async function listTodayStops(
           .filter((c) => c.visit_id === last.id)
           .flatMap((c) => concernsOf(c.zone_name, valuesOf(c)))
       : [];
-    return { ...toSummary(r), lastVisitOn: last?.scheduled_for ?? null, concerns };
+    return { ...toVisitSummaryDto(r), lastVisitOn: last?.scheduled_for ?? null, concerns };
   });
 }
 

@@ -7,8 +7,9 @@ import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
 
+import type { WateringDto } from "./dto";
 import { listWaterings } from "./queries";
-import type { WateringDto, WateringInput } from "./schemas";
+import type { WateringInput } from "./schemas";
 
 export async function logWatering(
   actor: Actor,

@@ -6,7 +6,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { assertPropertyInScope } from "@/lib/properties/queries";
 import { propertyInScope } from "@/lib/properties/scope";
 
-import type { WateringDto } from "./schemas";
+import type { WateringDto } from "./dto";
 
 export async function listWaterings(
   actor: Actor,

@@ -38,16 +38,3 @@ export const wateringSchema = z
       });
   });
 export type WateringInput = z.infer<typeof wateringSchema>;
-
-export interface WateringDto {
-  id: string;
-  zoneId: string | null;
-  zoneName: string | null;
-  wateredOn: string;
-  depthIn: number;
-  runMinutes: number | null;
-  precipitationRateInPerHour: number | null;
-  enteredBy: string | null;
-  enteredByRole: "manager" | "technician" | "homeowner";
-  notes: string;
-}

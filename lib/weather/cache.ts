@@ -1,55 +1,67 @@
 // The weather cache per location cell (PostgreSQL) in front of the provider: a slow or failing
 // service never blocks anything — the cache answers, marked as such. Takes the database handle
-// from its caller (the web app's pool, or the background worker's).
+// from its caller (the web app's pool, or the background worker's). `readWeatherDays` only
+// reads; `weatherFromCache` is the refresh (it fetches what is missing or out of date and writes
+// it), called by mutations and the risk evaluation, never by a query.
 import type { Kysely } from "kysely";
 
-import type { Database, WeatherDay } from "@/db/schema";
+import type { Database } from "@/db/schema";
 import { addDays } from "@/lib/dates";
 import { log } from "@/lib/log";
-import type { WeatherDayInput } from "@/lib/services/weather/contract";
 import { WeatherUnavailable, type WeatherProvider } from "@/lib/services/weather/provider";
 
-export const cellOf = (lat: number, lon: number) => `${lat.toFixed(1)}:${lon.toFixed(1)}`;
+import type { CachedWeather, WeatherResult } from "./dto";
+import { cellOf, toWeatherDay, weatherDayRow } from "./map";
 
-const toInput = (r: WeatherDay): WeatherDayInput => ({
-  date: r.day,
-  tmaxC: r.tmax_c,
-  tminC: r.tmin_c,
-  rhMaxPct: r.rh_max_pct,
-  rhMinPct: r.rh_min_pct,
-  rhMeanPct: r.rh_mean_pct,
-  windMs: r.wind_ms,
-  windHeightM: r.wind_height_m,
-  sunshineH: r.sunshine_h,
-  solarMJ: r.solar_mj,
-  precipMm: r.precip_mm,
-  isForecast: r.is_forecast,
-});
+/** Recent days and forecasts are fetched again after this long. */
+const STALE_AFTER_MS = 6 * 3600_000;
 
-/** A provider's day as a row of the cache. */
-export const weatherDayRow = (cell: string, d: WeatherDayInput) => ({
-  cell,
-  day: d.date,
-  tmax_c: d.tmaxC,
-  tmin_c: Math.min(d.tminC, d.tmaxC),
-  rh_max_pct: d.rhMaxPct,
-  rh_min_pct: d.rhMinPct,
-  rh_mean_pct: d.rhMeanPct,
-  wind_ms: d.windMs,
-  wind_height_m: d.windHeightM,
-  sunshine_h: d.sunshineH,
-  solar_mj: d.solarMJ,
-  precip_mm: d.precipMm,
-  is_forecast: d.isForecast,
-});
-
-export interface WeatherResult {
-  days: WeatherDayInput[];
-  status: "ok" | "cached" | "unavailable";
-  message: string | null;
+/** Days [from, to] for a location as the cache holds them, and whether they are complete and fresh. */
+export async function readWeatherDays(
+  executor: Kysely<Database>,
+  lat: number,
+  lon: number,
+  from: string,
+  to: string,
+  today: string,
+): Promise<CachedWeather> {
+  const cached = await executor
+    .selectFrom("weather_days")
+    .selectAll()
+    .where("cell", "=", cellOf(lat, lon))
+    .where("day", ">=", from)
+    .where("day", "<=", to)
+    .orderBy("day")
+    .execute();
+  const staleAfter = Date.now() - STALE_AFTER_MS;
+  const wanted = Math.round((Date.parse(to) - Date.parse(from)) / 86_400_000) + 1;
+  // Past days are final two days after the fact; recent days and forecasts are refreshed every 6 h.
+  const isFresh =
+    cached.length >= wanted &&
+    !cached.some(
+      (r) =>
+        (r.is_forecast || r.day >= addDays(today, -2)) &&
+        new Date(r.fetched_at).getTime() < staleAfter,
+    );
+  return { days: cached.map(toWeatherDay), isFresh };
 }
 
-/** Days [from, to] for a location: from the cache, fetching what is missing or out of date. */
+/** What a read of the cache says to its reader: fresh is "ok"; otherwise the last values Sward has. */
+export function cachedWeatherResult(cached: CachedWeather, hasProvider: boolean): WeatherResult {
+  if (cached.isFresh) return { days: cached.days, status: "ok", message: null };
+  return {
+    days: cached.days,
+    status: cached.days.length ? "cached" : "unavailable",
+    message: hasProvider
+      ? "Weather unavailable: the weather service did not answer."
+      : "No weather service is configured.",
+  };
+}
+
+/**
+ * Refreshes days [from, to] for a location — fetches what is missing or out of date and writes
+ * it to the cache — and answers them (from the cache when the service fails).
+ */
 export async function weatherFromCache(
   executor: Kysely<Database>,
   provider: WeatherProvider | null,
@@ -60,31 +72,8 @@ export async function weatherFromCache(
   today: string,
 ): Promise<WeatherResult> {
   const cell = cellOf(lat, lon);
-  const cached = await executor
-    .selectFrom("weather_days")
-    .selectAll()
-    .where("cell", "=", cell)
-    .where("day", ">=", from)
-    .where("day", "<=", to)
-    .orderBy("day")
-    .execute();
-  const staleAfter = Date.now() - 6 * 3600_000;
-  const wanted = Math.round((Date.parse(to) - Date.parse(from)) / 86_400_000) + 1;
-  // Past days are final two days after the fact; recent days and forecasts are refreshed every 6 h.
-  const needsFetch =
-    cached.length < wanted ||
-    cached.some(
-      (r) =>
-        (r.is_forecast || r.day >= addDays(today, -2)) &&
-        new Date(r.fetched_at).getTime() < staleAfter,
-    );
-  if (!needsFetch) return { days: cached.map(toInput), status: "ok", message: null };
-  if (!provider)
-    return {
-      days: cached.map(toInput),
-      status: cached.length ? "cached" : "unavailable",
-      message: "No weather service is configured.",
-    };
+  const cached = await readWeatherDays(executor, lat, lon, from, to, today);
+  if (cached.isFresh || !provider) return cachedWeatherResult(cached, provider !== null);
   try {
     const days = await provider.daily(lat, lon, from, to);
     if (days.length) {
@@ -116,6 +105,10 @@ export async function weatherFromCache(
         ? `Weather unavailable: ${err.message}.`
         : "Weather unavailable.";
     log.warn({ err, cell }, "weather fetch failed");
-    return { days: cached.map(toInput), status: cached.length ? "cached" : "unavailable", message };
+    return {
+      days: cached.days,
+      status: cached.days.length ? "cached" : "unavailable",
+      message,
+    };
   }
 }

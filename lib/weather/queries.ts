@@ -1,6 +1,6 @@
-// Daily weather per location cell, cached in PostgreSQL and refreshed from the provider (a slow
-// or failing service never blocks anything: the cache answers, marked as such); the property
-// weather panel; the weather snapshot of a visit.
+// Weather reads: days from the cache per location cell (never fetched here — the refresh is a
+// mutation, lib/weather/mutations.ts, which pages that show weather call first), the property
+// weather panel, where a property is.
 import "server-only";
 
 import { db } from "@/db";
@@ -10,25 +10,25 @@ import { addDays, todayIn } from "@/lib/dates";
 import { notFound } from "@/lib/http/app-error";
 import { propertyInScope } from "@/lib/properties/scope";
 import { weatherProvider } from "@/lib/services/weather/instance";
-import type { WeatherProvider } from "@/lib/services/weather/provider";
 
-import { weatherFromCache, type WeatherResult } from "./cache";
-import { deriveDays, type DerivedDay } from "./derived";
+import { cachedWeatherResult, readWeatherDays } from "./cache";
+import { deriveDays } from "./derived";
+import type { PropertyWeather, WeatherResult } from "./dto";
 
-export { cellOf, weatherDayRow, type WeatherResult } from "./cache";
-
-/** Days [from, to] for a location: from the cache, fetching what is missing or out of date. */
-export const weatherForLocation = (
-  provider: WeatherProvider | null,
+/** Days [from, to] for a location as the cache holds them: "ok" when complete and fresh. */
+export async function getCachedWeather(
   lat: number,
   lon: number,
   from: string,
   to: string,
   today: string,
-): Promise<WeatherResult> => weatherFromCache(db(), provider, lat, lon, from, to, today);
+): Promise<WeatherResult> {
+  const cached = await readWeatherDays(db(), lat, lon, from, to, today);
+  return cachedWeatherResult(cached, weatherProvider() !== null);
+}
 
 /** Where a property is (and its time zone), within the actor's scope; not found otherwise. */
-export async function propertyLocation(actor: Actor, propertyId: string) {
+export async function getPropertyLocation(actor: Actor, propertyId: string) {
   const property = await db()
     .selectFrom("properties")
     .select([
@@ -44,21 +44,15 @@ export async function propertyLocation(actor: Actor, propertyId: string) {
   return property;
 }
 
-export interface PropertyWeather {
-  status: "ok" | "cached" | "unavailable";
-  message: string | null;
-  today: string;
-  kc: number;
-  days: DerivedDay[]; // the last 14 days and the forecast
-  gddSinceJan1F: number | null;
-}
-
-export async function propertyWeather(actor: Actor, propertyId: string): Promise<PropertyWeather> {
-  const property = await propertyLocation(actor, propertyId);
+/** The property's weather panel: the last 14 days and the forecast, from the cache. */
+export async function getPropertyWeather(
+  actor: Actor,
+  propertyId: string,
+): Promise<PropertyWeather> {
+  const property = await getPropertyLocation(actor, propertyId);
   const today = todayIn(property.time_zone);
   const jan1 = `${today.slice(0, 4)}-01-01`;
-  const result = await weatherForLocation(
-    weatherProvider(),
+  const result = await getCachedWeather(
     property.latitude,
     property.longitude,
     jan1,
@@ -103,37 +97,4 @@ export async function propertyWeather(actor: Actor, propertyId: string): Promise
     gddSinceJan1F:
       past.length && past[0]!.date === jan1 ? past[past.length - 1]!.gddSinceStartF : null,
   };
-}
-
-/** The weather of a day at a place, for a visit snapshot: never throws, never waits long. */
-export async function weatherSnapshot(
-  lat: number,
-  lon: number,
-  date: string,
-  today: string,
-): Promise<Record<string, unknown>> {
-  try {
-    const result = await weatherForLocation(weatherProvider("quick"), lat, lon, date, date, today);
-    const d = result.days.find((x) => x.date === date);
-    if (!d)
-      return {
-        status: "unavailable",
-        message: result.message ?? "Weather unavailable.",
-        at: new Date().toISOString(),
-      };
-    return {
-      status: "ok",
-      date,
-      tmaxF: Math.round(((d.tmaxC * 9) / 5 + 32) * 10) / 10,
-      tminF: Math.round(((d.tminC * 9) / 5 + 32) * 10) / 10,
-      rhMinPct: d.rhMinPct,
-      rhMaxPct: d.rhMaxPct,
-      windMph: d.windMs === null ? null : Math.round(d.windMs * 2.236936 * 10) / 10,
-      precipIn: Math.round((d.precipMm / 25.4) * 100) / 100,
-      isForecast: d.isForecast,
-      at: new Date().toISOString(),
-    };
-  } catch {
-    return { status: "unavailable", message: "Weather unavailable.", at: new Date().toISOString() };
-  }
 }

@@ -17,7 +17,7 @@ import { addDays, todayIn } from "@/lib/dates";
 import { sweepBook } from "@/lib/risk/sweep";
 import { indexInputOf } from "@/lib/scoring/from-check";
 import { swardIndex } from "@/lib/scoring/sward-index";
-import { cellOf } from "@/lib/weather/cache";
+import { cellOf } from "@/lib/weather/map";
 
 import { seededRandom } from "../helpers/seeded-random";
 

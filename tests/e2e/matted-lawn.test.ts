@@ -12,7 +12,7 @@ import { createDb } from "@/db/client";
 import { demoCompany } from "@/fixtures/demo/scenario";
 import { addDays, todayIn } from "@/lib/dates";
 import { readInbox } from "@/lib/mail/inbox-folder";
-import { cellOf, weatherDayRow } from "@/lib/weather/cache";
+import { cellOf, weatherDayRow } from "@/lib/weather/map";
 
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { lawnImage } from "../helpers/images";

@@ -14,7 +14,7 @@ export function useE2eDatabase(): void {
 /** A `cookie` header value holding a fresh session of this user. */
 export async function mintSessionCookie(userId: string, maxAgeSeconds = 3600): Promise<string> {
   const [{ createAuthSession }, { encode }] = await Promise.all([
-    import("@/lib/auth/queries"),
+    import("@/lib/auth/mutations"),
     import("next-auth/jwt"),
   ]);
   const sid = await createAuthSession(userId, maxAgeSeconds);

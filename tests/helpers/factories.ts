@@ -8,7 +8,8 @@ import type { Database } from "@/db/schema";
 import { seedCompany, type SeededCompany } from "@/db/seed-scenario";
 import { demoCompany, type ScenarioCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
-import { createAuthSession, findActorBySession } from "@/lib/auth/queries";
+import { createAuthSession } from "@/lib/auth/mutations";
+import { findActorBySession } from "@/lib/auth/queries";
 
 export const TEST_PASSWORD = "test-password-2026";
 

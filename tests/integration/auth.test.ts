@@ -5,7 +5,8 @@ import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
 
 import { checkCredentials } from "@/lib/auth/credentials";
-import { createAuthSession, deleteAuthSession, findActorBySession } from "@/lib/auth/queries";
+import { createAuthSession, deleteAuthSession } from "@/lib/auth/mutations";
+import { findActorBySession } from "@/lib/auth/queries";
 
 import { createTestCompany, TEST_PASSWORD, testDb, type TestCompany } from "../helpers/factories";
 

@@ -7,14 +7,14 @@ import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
-import { listBook, teamActivity } from "@/lib/book/queries";
+import { getTeamActivity, listBook } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 import { refreshPropertySummary } from "@/lib/book/summary";
 import { addDays, todayIn } from "@/lib/dates";
 import { createProperty, setPropertyArchived } from "@/lib/properties/mutations";
 import { evaluateProperty } from "@/lib/risk/evaluate";
 import { resolveAlert } from "@/lib/risk/mutations";
-import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { scheduleVisit } from "@/lib/visits/mutations";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
@@ -53,7 +53,7 @@ describe("the book", () => {
     const manager = await c.actor("manager");
     const expected: string[] = [];
     for (const [key, id] of Object.entries(c.propertyIds)) {
-      const h = await propertyScoreHistory(manager, id, { weather: false });
+      const h = await getPropertyScoreHistory(manager, id, { weather: false });
       if (h.trend?.word === "declining")
         expected.push(c.scenario.properties.find((p) => p.key === key)!.name);
     }
@@ -259,11 +259,13 @@ describe("the book", () => {
   });
 
   it("shows each technician's last eight weeks (managers only)", async () => {
-    const { technicians } = await teamActivity(await c.actor("manager"));
+    const { technicians } = await getTeamActivity(await c.actor("manager"));
     const luis = technicians.find((t) => t.name === "Luis Arroyo")!;
     expect(luis.visits).toBe(6); // the demo visits 42 and 21 days ago at his three properties
     expect(luis.checksPerVisit).toBeCloseTo(3, 9); // (3 + 2 + 4 zones) / 3 properties
     expect(luis.weeks.reduce((s, w) => s + w.visits, 0)).toBe(6);
-    await expect(teamActivity(await c.actor("tech1"))).rejects.toMatchObject({ code: "forbidden" });
+    await expect(getTeamActivity(await c.actor("tech1"))).rejects.toMatchObject({
+      code: "forbidden",
+    });
   });
 });

@@ -6,8 +6,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { demoCompany, otherCompany } from "@/fixtures/demo/scenario";
 import { fakeWeatherDay } from "@/fixtures/demo/weather-days";
 import { addDays, todayIn } from "@/lib/dates";
-import { bookScoring, propertyScoreHistory } from "@/lib/scoring/queries";
-import { cellOf, weatherDayRow } from "@/lib/weather/queries";
+import { getBookScoring, getPropertyScoreHistory } from "@/lib/scoring/queries";
+import { cellOf, weatherDayRow } from "@/lib/weather/map";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
@@ -41,10 +41,10 @@ beforeAll(async () => {
     .execute();
 });
 
-describe("propertyScoreHistory", () => {
+describe("getPropertyScoreHistory", () => {
   it("gives each visit an area-weighted property index and each zone its season", async () => {
     const manager = await c.actor("manager");
-    const h = await propertyScoreHistory(manager, c.propertyIds["haddad"]!);
+    const h = await getPropertyScoreHistory(manager, c.propertyIds["haddad"]!);
     expect(h.visits).toHaveLength(7);
     expect(h.zones.map((z) => z.name)).toEqual(["Front slope", "Back yard"]);
     // Area-weighted: Front slope 1,800 ft², Back yard 5,200 ft².
@@ -75,21 +75,21 @@ describe("propertyScoreHistory", () => {
   });
 
   it("is scoped: the homeowner of the lawn reads it, another homeowner and another company do not", async () => {
-    const h = await propertyScoreHistory(await c.actor("owner2"), c.propertyIds["haddad"]!, {
+    const h = await getPropertyScoreHistory(await c.actor("owner2"), c.propertyIds["haddad"]!, {
       weather: false,
     });
     expect(h.visits).toHaveLength(7);
     expect(h.weather.days).toEqual([]);
     await expect(
-      propertyScoreHistory(await c.actor("owner1"), c.propertyIds["haddad"]!),
+      getPropertyScoreHistory(await c.actor("owner1"), c.propertyIds["haddad"]!),
     ).rejects.toMatchObject({ code: "not_found" });
     await expect(
-      propertyScoreHistory(await other.actor("manager"), c.propertyIds["haddad"]!),
+      getPropertyScoreHistory(await other.actor("manager"), c.propertyIds["haddad"]!),
     ).rejects.toMatchObject({ code: "not_found" });
   });
 
   it("a property without checks has an empty history, not an error", async () => {
-    const h = await propertyScoreHistory(
+    const h = await getPropertyScoreHistory(
       await other.actor("manager"),
       other.propertyIds["aaland"]!,
       { weather: false },
@@ -102,9 +102,9 @@ describe("propertyScoreHistory", () => {
   });
 });
 
-describe("bookScoring", () => {
+describe("getBookScoring", () => {
   it("spreads the latest property indexes and counts the zones that follow nitrogen", async () => {
-    const book = await bookScoring(await c.actor("manager"));
+    const book = await getBookScoring(await c.actor("manager"));
     expect(book.total).toBe(6);
     expect(book.scored).toBe(6);
     expect(book.distribution.reduce((s, b) => s + b.count, 0)).toBe(6);
@@ -113,7 +113,7 @@ describe("bookScoring", () => {
     // The demo story: the dollar-spot back yard, the shaded zone and the grub-damaged back yard do not follow the feeding.
     expect(book.zonesRespondingToN).toBe(14);
     expect(book.declining.map((p) => p.name)).toEqual(["Haddad residence"]);
-    const theirs = await bookScoring(await other.actor("manager"));
+    const theirs = await getBookScoring(await other.actor("manager"));
     expect(theirs.total).toBe(1);
     expect(theirs.zonesWithEnoughChecks).toBe(0);
   });

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { addDays, todayIn } from "@/lib/dates";
 import { jsonWeatherProvider, WeatherUnavailable } from "@/lib/services/weather/provider";
 import { deriveDays } from "@/lib/weather/derived";
-import { weatherForLocation } from "@/lib/weather/queries";
+import { refreshWeather } from "@/lib/weather/mutations";
 
 import { startFakeWeather } from "../harness/weather-fake";
 import { createTestCompany, testDb } from "../helpers/factories";
@@ -52,19 +52,12 @@ describe("weather", () => {
       WeatherUnavailable,
     );
     const up = jsonWeatherProvider({ baseUrl: base });
-    const filled = await weatherForLocation(up, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
+    const filled = await refreshWeather(up, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
     expect(filled.status).toBe("ok");
-    const fromCache = await weatherForLocation(
-      down,
-      40.31,
-      -74.71,
-      "2026-06-01",
-      "2026-06-10",
-      today,
-    );
+    const fromCache = await refreshWeather(down, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
     expect(fromCache.status).toBe("ok"); // past, complete and cached: no fetch needed
     expect(fromCache.days).toHaveLength(10);
-    const partly = await weatherForLocation(down, 40.31, -74.71, "2026-06-01", "2026-06-20", today);
+    const partly = await refreshWeather(down, 40.31, -74.71, "2026-06-01", "2026-06-20", today);
     expect(partly.status).toBe("cached");
     expect(partly.message).toMatch(/Weather unavailable: the weather service could not be reached/);
   });
@@ -91,7 +84,7 @@ describe("weather", () => {
       .select(["latitude", "longitude"])
       .where("visits.id", "=", visit.id)
       .executeTakeFirstOrThrow();
-    await weatherForLocation(
+    await refreshWeather(
       jsonWeatherProvider({ baseUrl: base }),
       property.latitude,
       property.longitude,

@@ -9,7 +9,7 @@ import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { getProperty, listProperties } from "@/lib/properties/queries";
 import { listReports } from "@/lib/reports/queries";
-import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { listWaterings } from "@/lib/watering/queries";
 
 export const metadata: Metadata = { title: "My lawn" };
@@ -20,7 +20,7 @@ export default async function MyLawnPage() {
   const properties = await Promise.all(
     summaries.map(async (p) => ({
       ...(await getProperty(actor, p.id)),
-      scores: await propertyScoreHistory(actor, p.id, { weather: false }),
+      scores: await getPropertyScoreHistory(actor, p.id, { weather: false }),
       reports: await listReports(actor, p.id),
       waterings: await listWaterings(actor, p.id, { limit: 30 }),
     })),

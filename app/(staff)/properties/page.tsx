@@ -16,7 +16,7 @@ import { listPeople } from "@/lib/people/queries";
 import { listProperties } from "@/lib/properties/queries";
 import { propertyKeys } from "@/lib/properties/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
-import { bookScoring } from "@/lib/scoring/queries";
+import { getBookScoring } from "@/lib/scoring/queries";
 
 export const metadata: Metadata = { title: "Properties" };
 
@@ -63,7 +63,7 @@ async function ManagerBook({
       throw err;
     }),
     listPeople(actor, "technician"),
-    bookScoring(actor),
+    getBookScoring(actor),
   ]);
   return (
     <>

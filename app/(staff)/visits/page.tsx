@@ -6,7 +6,7 @@ import { buttonClass } from "@/components/ui/button";
 import { ScheduleVisitForm } from "@/components/visits/schedule-visit-form";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { requireActor } from "@/lib/auth/require";
-import { teamActivity } from "@/lib/book/queries";
+import { getTeamActivity } from "@/lib/book/queries";
 import { addDays, formatDate, isIsoDate, todayIn } from "@/lib/dates";
 import { listPeople } from "@/lib/people/queries";
 import { listProperties } from "@/lib/properties/queries";
@@ -27,7 +27,7 @@ export default async function VisitsPage({
     listVisits(actor, { date }),
     listProperties(actor),
     listPeople(actor, "technician"),
-    teamActivity(actor),
+    getTeamActivity(actor),
   ]);
   const byTech = new Map<string, typeof visits>();
   for (const v of visits) {

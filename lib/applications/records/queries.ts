@@ -33,7 +33,7 @@ export const RECORD_COLUMNS = [
   "keep_until",
 ] as const;
 
-export async function* applicationRecords(
+export async function* listApplicationRecords(
   actor: Actor,
   from: string,
   to: string,

@@ -20,7 +20,7 @@ import { buttonClass } from "@/components/ui/button";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { WateringLog } from "@/components/watering/watering-log";
 import { WeatherPanel } from "@/components/weather/weather-panel";
-import { listPropertyApplications, propertyNitrogenByZone } from "@/lib/applications/queries";
+import { getNitrogenByZone, listPropertyApplications } from "@/lib/applications/queries";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
@@ -29,10 +29,11 @@ import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import { propertyAlerts } from "@/lib/risk/queries";
-import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { listVisits } from "@/lib/visits/queries";
 import { listWaterings } from "@/lib/watering/queries";
-import { propertyWeather } from "@/lib/weather/queries";
+import { refreshPropertyWeather } from "@/lib/weather/mutations";
+import { getPropertyWeather } from "@/lib/weather/queries";
 
 export const metadata: Metadata = { title: "Property" };
 
@@ -48,17 +49,22 @@ export default async function PropertyPage({
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const [visits, latestPhotos, waterings, weather, scores, alerts] = await Promise.all([
+  // The weather reads come from the cache: bring it up to date first (the other reads meanwhile).
+  const [visits, latestPhotos, waterings, [weather, scores], alerts] = await Promise.all([
     listVisits(actor, { propertyId: property.id }),
     listLatestPhotoPerZone(actor, property.id),
     listWaterings(actor, property.id),
-    propertyWeather(actor, property.id),
-    propertyScoreHistory(actor, property.id),
+    refreshPropertyWeather(actor, property.id).then(() =>
+      Promise.all([
+        getPropertyWeather(actor, property.id),
+        getPropertyScoreHistory(actor, property.id),
+      ]),
+    ),
     propertyAlerts(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
   const [nitrogen, applications] = await Promise.all([
-    propertyNitrogenByZone(actor, property.id, year),
+    getNitrogenByZone(actor, property.id, year),
     listPropertyApplications(actor, property.id, year),
   ]);
   const isManager = actor.role === "manager";

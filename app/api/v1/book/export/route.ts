@@ -1,7 +1,7 @@
 // GET /api/v1/book/export?… — the book's current filtered view (same query as the page) as CSV
 // (UTF-8 with BOM, ISO dates, formula-like cells neutralised), streamed (manager).
 import { route } from "@/lib/auth/guards";
-import { bookRows } from "@/lib/book/queries";
+import { listBookRows } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 import { csvResponse } from "@/lib/http/csv";
 import { alertKindLabel } from "@/lib/risk/labels";
@@ -28,7 +28,7 @@ const COLUMNS = [
 
 export const GET = route({ access: ["manager"], query: bookQuery }, async ({ actor, query }) => {
   async function* rows() {
-    for await (const r of bookRows(actor, { ...query, after: undefined })) {
+    for await (const r of listBookRows(actor, { ...query, after: undefined })) {
       yield [
         r.name,
         r.street,

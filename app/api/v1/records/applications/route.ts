@@ -2,7 +2,7 @@
 // date range as CSV (UTF-8 with BOM, ISO dates, formula-like cells neutralised), streamed (manager).
 import { z } from "zod";
 
-import { applicationRecords, RECORD_COLUMNS } from "@/lib/applications/records/queries";
+import { listApplicationRecords, RECORD_COLUMNS } from "@/lib/applications/records/queries";
 import { route } from "@/lib/auth/guards";
 import { isIsoDate } from "@/lib/dates";
 import { csvResponse } from "@/lib/http/csv";
@@ -16,7 +16,7 @@ const query = z
 export const GET = route({ access: ["manager"], query }, async ({ actor, query }) =>
   csvResponse(
     RECORD_COLUMNS,
-    applicationRecords(actor, query.from, query.to),
+    listApplicationRecords(actor, query.from, query.to),
     `application-records-${query.from}-to-${query.to}.csv`,
   ),
 );

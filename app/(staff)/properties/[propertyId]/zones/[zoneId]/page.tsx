@@ -13,8 +13,9 @@ import { listZonePhotos } from "@/lib/photos/queries";
 import { zoneIdParams } from "@/lib/properties/schemas";
 import { findSymptom } from "@/lib/reference/symptoms";
 import { RATING_SCALE, SKIP_REASONS } from "@/lib/reference/visit-options";
-import { propertyScoreHistory } from "@/lib/scoring/queries";
+import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { getZoneHistory } from "@/lib/visits/queries";
+import { refreshPropertyWeather } from "@/lib/weather/mutations";
 
 export const metadata: Metadata = { title: "Zone history" };
 
@@ -44,7 +45,10 @@ export default async function ZoneHistoryPage({
   if (history.propertyId !== raw.propertyId) notFound();
   const [photos, scores] = await Promise.all([
     listZonePhotos(actor, parsed.data.zoneId),
-    propertyScoreHistory(actor, history.propertyId),
+    // The Index history reads weather from the cache: bring it up to date first.
+    refreshPropertyWeather(actor, history.propertyId).then(() =>
+      getPropertyScoreHistory(actor, history.propertyId),
+    ),
   ]);
   const zoneScores = scores.zones.find((z) => z.zoneId === parsed.data.zoneId);
 

@@ -1,0 +1,25 @@
+// What the sign-in and sign-in-link reads return.
+import type { Role } from "@/db/schema";
+
+export interface SignInCandidate {
+  userId: string;
+  passwordHash: string | null;
+  isDisabled: boolean;
+  role: Role | null;
+}
+
+export interface Homeowner {
+  userId: string;
+  email: string;
+  name: string;
+  emailVerified: Date | null;
+  companyId: string;
+  companyName: string;
+}
+
+export interface LinkUser {
+  id: string;
+  email: string;
+  name: string;
+  emailVerified: Date | null;
+}

@@ -1,0 +1,29 @@
+// Photo row → DTO: staff see capture time and GPS; homeowners never do.
+import type { Photo } from "@/db/schema";
+import type { Actor } from "@/lib/auth/actor";
+
+import type { PhotoDto } from "./dto";
+
+export type PhotoRow = Photo & { scheduled_for: string };
+
+export function toPhotoDto(row: PhotoRow, actor: Actor): PhotoDto {
+  const isStaff = actor.role !== "homeowner";
+  return {
+    id: row.id,
+    visitId: row.visit_id,
+    zoneId: row.zone_id,
+    zoneCheckId: row.zone_check_id,
+    visitedOn: row.scheduled_for,
+    greenCoverPct: Math.round(row.green_cover_pct * 10) / 10,
+    dgci: row.dgci === null ? null : Math.round(row.dgci * 1000) / 1000,
+    width: row.width,
+    height: row.height,
+    displayUrl: `/api/v1/photos/${row.id}/display`,
+    thumbUrl: `/api/v1/photos/${row.id}/thumb`,
+    capturedLocal: isStaff ? row.captured_local : null,
+    gps:
+      isStaff && row.gps_latitude !== null && row.gps_longitude !== null
+        ? { latitude: row.gps_latitude, longitude: row.gps_longitude }
+        : null,
+  };
+}

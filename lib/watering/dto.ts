@@ -1,0 +1,13 @@
+// What the watering log reads return.
+export interface WateringDto {
+  id: string;
+  zoneId: string | null;
+  zoneName: string | null;
+  wateredOn: string;
+  depthIn: number;
+  runMinutes: number | null;
+  precipitationRateInPerHour: number | null;
+  enteredBy: string | null;
+  enteredByRole: "manager" | "technician" | "homeowner";
+  notes: string;
+}
