@@ -1,5 +1,5 @@
 // Stores the Sward Index of zone checks: on every save, when a photo is added, and in bulk when
-// the weights change (db/recompute-index.ts). Never computed at read time.
+// the weights change (jobs/recompute-index.ts). Never computed at read time.
 // It takes the database handle from its caller (a transaction, the seed, the recompute job).
 import type { Kysely, Transaction } from "kysely";
 

@@ -11,8 +11,8 @@ import { sql, type Kysely } from "kysely";
 
 import { createDb } from "@/db/client";
 import type { Database } from "@/db/schema";
-import { seedCompany } from "@/db/seed-scenario";
 import { DEMO_PASSWORD, type ScenarioCompany } from "@/fixtures/demo/scenario";
+import { seedCompany } from "@/fixtures/demo/seed-scenario";
 import { addDays, todayIn } from "@/lib/dates";
 import { sweepBook } from "@/lib/risk/sweep";
 import { indexInputOf } from "@/lib/scoring/from-check";

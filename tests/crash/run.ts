@@ -230,7 +230,11 @@ async function main(): Promise<number> {
     await freshCluster(cluster);
     await run(TSX, ["db/ensure-database.ts", DATABASE, "--fresh"], cluster.env);
     await run(TSX, ["db/migrate.ts"], { ...cluster.env, DATABASE_URL: databaseUrl });
-    await run(TSX, ["db/seed.ts"], { ...cluster.env, DATABASE_URL: databaseUrl, PHOTO_DIR });
+    await run(TSX, ["fixtures/demo/seed.ts"], {
+      ...cluster.env,
+      DATABASE_URL: databaseUrl,
+      PHOTO_DIR,
+    });
     const db = createDb(databaseUrl, { max: 2 });
     try {
       const settings = await sql<{

@@ -42,7 +42,7 @@ const wasRunning = spawnSync("sh", ["db/cluster.sh", "status"], { stdio: "ignore
 must("sh", ["db/cluster.sh", "start"]);
 must("node_modules/.bin/tsx", ["db/ensure-database.ts", "sward"]);
 must("node_modules/.bin/tsx", ["db/migrate.ts"], { DATABASE_URL });
-must("node_modules/.bin/tsx", ["db/seed.ts"], { DATABASE_URL });
+must("node_modules/.bin/tsx", ["fixtures/demo/seed.ts"], { DATABASE_URL });
 
 // A random session secret, made once and kept in the git-ignored .env.local (also used by `npm run dev`).
 const local = readEnvLocal();

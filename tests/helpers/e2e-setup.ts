@@ -23,7 +23,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await run("sh", ["db/cluster.sh", "start"]);
   await run(TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
   await run(TSX, ["db/migrate.ts"], { DATABASE_URL: databaseUrl });
-  await run(TSX, ["db/seed.ts"], { DATABASE_URL: databaseUrl, PHOTO_DIR });
+  await run(TSX, ["fixtures/demo/seed.ts"], { DATABASE_URL: databaseUrl, PHOTO_DIR });
   if (isBuildStale())
     await run("node", ["node_modules/next/dist/bin/next", "build"], {
       NEXT_TELEMETRY_DISABLED: "1",

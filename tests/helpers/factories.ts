@@ -5,8 +5,8 @@ import type { Kysely } from "kysely";
 
 import { createDb } from "@/db/client";
 import type { Database } from "@/db/schema";
-import { seedCompany, type SeededCompany } from "@/db/seed-scenario";
 import { demoCompany, type ScenarioCompany } from "@/fixtures/demo/scenario";
+import { seedCompany, type SeededCompany } from "@/fixtures/demo/seed-scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { createAuthSession } from "@/lib/auth/mutations";
 import { findActorBySession } from "@/lib/auth/queries";

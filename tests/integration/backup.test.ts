@@ -84,7 +84,7 @@ beforeAll(async () => {
   expect(tsx(["db/ensure-database.ts", SRC]).status).toBe(0);
   const migrate = tsx(["db/migrate.ts"], { DATABASE_URL: srcUrl });
   expect(migrate.status, migrate.stderr).toBe(0);
-  const seed = tsx(["db/seed.ts"], {
+  const seed = tsx(["fixtures/demo/seed.ts"], {
     DATABASE_URL: srcUrl,
     PHOTO_DIR: "tests/.artifacts/photos-backup",
   });

@@ -116,7 +116,7 @@ describe("migrations on a populated database", () => {
       await step("up");
       fingerprints.push(await schemaFingerprint(db));
     }
-    const seed = tsx(["db/seed.ts"], {
+    const seed = tsx(["fixtures/demo/seed.ts"], {
       DATABASE_URL: populatedUrl,
       PHOTO_DIR: "tests/.artifacts/photos-migrations",
     });

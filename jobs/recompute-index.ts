@@ -1,8 +1,8 @@
 // The recompute job: stores the Sward Index of every zone check again (run after changing the
-// weights in lib/scoring/weights.ts): `npm run db:recompute-index`.
+// weights in lib/scoring/weights.ts): `npm run db:recompute-index`. A script of the app, beside the
+// worker: db/ holds only the pool, the schema, migrations and database tools.
+import { createDb, localDatabaseUrl } from "@/db/client";
 import { recomputeAllIndexes } from "@/lib/scoring/store-index";
-
-import { createDb, localDatabaseUrl } from "./client";
 
 const db = createDb(process.env.DATABASE_URL ?? localDatabaseUrl("sward"), { max: 2 });
 const started = Date.now();
