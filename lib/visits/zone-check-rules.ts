@@ -1,7 +1,7 @@
 // What a zone check needs before it can be marked done or skipped, and an empty check as a form
 // starts it. Free of zod, so the technician's page can check a zone without loading it; the
 // server's schema (schemas.ts) applies the same rules.
-import type { ZoneCheckInput } from "./schemas";
+import type { ZoneCheckInput } from "./zone-check-fields";
 
 /** The fields still missing, with the message for each ({} when the check may be saved as it is). */
 export function zoneCheckCompleteness(
