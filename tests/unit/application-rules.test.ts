@@ -12,6 +12,7 @@ import {
   type RuleSetLimits,
 } from "@/lib/agronomy/rules";
 import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
+import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 
 const byName = (name: string): RuleSetLimits => {
   const r = SHIPPED_RULE_SETS.find((x) => x.name === name)!;
@@ -105,5 +106,14 @@ describe("isInWindow", () => {
     expect(isInWindow("07-01", ["06-01", "06-30"])).toBe(false);
     expect(isInWindow("01-15", ["12-01", "03-01"])).toBe(true);
     expect(isInWindow("11-30", ["12-01", "03-01"])).toBe(false);
+  });
+});
+
+describe("shipped rule sets", () => {
+  // The reference table writes the rule-set shape out (it imports no feature); each set must be
+  // exactly what the managers' form would accept, as the seed stores it.
+  it("each passes the managers' rule-set schema unchanged", () => {
+    expect(SHIPPED_RULE_SETS.length).toBeGreaterThan(0);
+    for (const r of SHIPPED_RULE_SETS) expect(ruleSetSchema.parse(r)).toEqual(r);
   });
 });
