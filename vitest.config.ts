@@ -1,5 +1,5 @@
 // Three test projects: unit (pure code), integration (real PostgreSQL, freshly migrated), and
-// e2e (Chromium against a production build). `npm test` runs them all through tests/harness/run-all.mjs.
+// e2e (Chromium against a production build). `npm test` runs them all through tests/harness/run-all.ts.
 import path from "node:path";
 import { defineConfig } from "vitest/config";
 

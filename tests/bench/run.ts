@@ -3,7 +3,8 @@
 // tests/.artifacts/bench/): API latencies under autocannon, a zone-check save, the daily risk
 // sweep, compressed JavaScript per page measured in Chromium, Lighthouse scores, and EXPLAIN of
 // the book query. Budgets are printed beside each figure; this is a benchmark, not a test.
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+// Everything it starts (PostgreSQL when it was not running, the build, the server, the sweep and
+// Lighthouse runs) stops on Ctrl-C, SIGTERM, a failure or the end of npm (tests/harness/supervisor.ts).
 import { randomBytes, randomUUID } from "node:crypto";
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
@@ -13,6 +14,7 @@ import { sql } from "kysely";
 import { createDb } from "@/db/client";
 import { todayIn } from "@/lib/dates";
 
+import { StepFailed, Supervisor } from "../harness/supervisor";
 import { launchBrowser } from "../helpers/browser";
 import { passwordSignIn } from "../helpers/password-sign-in";
 import { waitForUrl } from "../helpers/processes";
@@ -35,9 +37,17 @@ const record = (measure: string, figure: string, budget = "", ok: boolean | null
   );
 };
 
-function must(cmd: string, args: string[], env: Record<string, string> = {}) {
-  const r = spawnSync(cmd, args, { stdio: "inherit", env: { ...process.env, ...env } });
-  if (r.status !== 0) throw new Error(`${cmd} ${args.join(" ")} exited with ${r.status}`);
+const sup = new Supervisor("bench");
+
+/** A helper script's last line of output, as JSON (its messages are shown when it fails). */
+async function lastJsonLine<T>(name: string, args: string[], env: Record<string, string>) {
+  const r = await sup.run(name, args[0]!, args.slice(1), {
+    env,
+    stdio: ["ignore", "pipe", "pipe"],
+  });
+  if (r.code !== 0)
+    throw new StepFailed(`bench: ${name} failed (exit ${r.code}): ${r.stderr.slice(-2000)}`);
+  return JSON.parse(r.stdout.trim().split("\n").at(-1)!) as T;
 }
 
 /** Signs in through Auth.js's credentials callback, as the form does, and returns the cookie header. */
@@ -83,7 +93,8 @@ async function cannon(
 
 const ms = (v: number) => `${v.toFixed(v < 10 ? 1 : 0)} ms`;
 
-async function main() {
+async function main(): Promise<number> {
+  await sup.cluster(); // stopped again at the end when this run started it
   const db = createDb(benchDatabaseUrl(), { max: 2 });
   const company = await db
     .selectFrom("companies")
@@ -92,7 +103,8 @@ async function main() {
     .executeTakeFirst();
   if (!company) {
     console.error("bench: no benchmark book yet. Run `npm run bench:seed` first.");
-    process.exit(1);
+    await db.destroy();
+    return 1;
   }
   const counts = await sql<{
     properties: string;
@@ -105,14 +117,16 @@ async function main() {
   );
 
   if (!process.argv.includes("--no-build"))
-    must("node", ["node_modules/next/dist/bin/next", "build"], { NEXT_TELEMETRY_DISABLED: "1" });
-  const server: ChildProcess = spawn(
+    await sup.step("build", "node", ["node_modules/next/dist/bin/next", "build"], {
+      env: { NEXT_TELEMETRY_DISABLED: "1" },
+    });
+  sup.start(
+    "server",
     "node",
     ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
     {
       stdio: ["ignore", "ignore", "inherit"],
       env: {
-        ...process.env,
         NODE_ENV: "production",
         NEXT_TELEMETRY_DISABLED: "1",
         DATABASE_URL: benchDatabaseUrl(),
@@ -123,8 +137,6 @@ async function main() {
       },
     },
   );
-  const stop = () => server.exitCode === null && server.kill("SIGTERM");
-  process.on("exit", stop);
   try {
     await waitForUrl(`${BASE}/sign-in`, 60_000);
     const manager = await signIn(BENCH_MANAGER);
@@ -299,16 +311,11 @@ async function main() {
 
     // The daily risk sweep over the whole book, in a worker process of its own.
     console.log("\nDaily risk sweep");
-    const sweepRun = spawnSync("node_modules/.bin/tsx", ["tests/bench/sweep.ts"], {
-      env: { ...process.env, DATABASE_URL: benchDatabaseUrl() },
-      encoding: "utf8",
-    });
-    if (sweepRun.status !== 0) throw new Error(`bench: sweep failed: ${sweepRun.stderr}`);
-    const sweep = JSON.parse(sweepRun.stdout.trim().split("\n").at(-1)!) as {
-      ms: number;
-      properties: number;
-      maxRssMb: number;
-    };
+    const sweep = await lastJsonLine<{ ms: number; properties: number; maxRssMb: number }>(
+      "sweep",
+      ["node_modules/.bin/tsx", "tests/bench/sweep.ts"],
+      { DATABASE_URL: benchDatabaseUrl() },
+    );
     json["risk sweep"] = sweep;
     record(
       `risk sweep (${sweep.properties} properties)`,
@@ -395,14 +402,13 @@ async function main() {
     for (const p of pages.filter((pp) => pp.name !== "the book")) {
       const runs: { performance: number; accessibility: number }[] = [];
       for (let i = 0; i < 3; i++) {
-        const r = spawnSync("node", ["tests/bench/lighthouse.mjs", `${BASE}${p.path}`, p.cookie], {
-          encoding: "utf8",
-          env: { ...process.env, CHROME_PATH: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium" },
-          maxBuffer: 64 * 1024 * 1024,
-        });
-        if (r.status !== 0)
-          throw new Error(`bench: lighthouse failed on ${p.path}: ${r.stderr.slice(-2000)}`);
-        runs.push(JSON.parse(r.stdout.trim().split("\n").at(-1)!));
+        runs.push(
+          await lastJsonLine<{ performance: number; accessibility: number }>(
+            `lighthouse ${p.path}`,
+            ["node", "tests/bench/lighthouse.mjs", `${BASE}${p.path}`, p.cookie],
+            { CHROME_PATH: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium" },
+          ),
+        );
       }
       const median = (k: "performance" | "accessibility") =>
         runs.map((r) => r[k]).sort((a, b) => a - b)[1]!;
@@ -421,23 +427,19 @@ async function main() {
 
     // EXPLAIN of the book query as the manager runs it.
     console.log("\nEXPLAIN (ANALYZE, BUFFERS) of the book query");
-    const explainRun = spawnSync(
-      "node_modules/.bin/tsx",
-      ["--conditions=react-server", "tests/bench/explain.ts", BENCH_MANAGER],
+    const plans = await lastJsonLine<Record<string, string>>(
+      "explain",
+      [
+        "node_modules/.bin/tsx",
+        "--conditions=react-server",
+        "tests/bench/explain.ts",
+        BENCH_MANAGER,
+      ],
       {
-        env: {
-          ...process.env,
-          DATABASE_URL: benchDatabaseUrl(),
-          AUTH_SECRET: "bench-explain-only-secret-0123456789abcdef",
-        },
-        encoding: "utf8",
+        DATABASE_URL: benchDatabaseUrl(),
+        AUTH_SECRET: "bench-explain-only-secret-0123456789abcdef",
       },
     );
-    if (explainRun.status !== 0) throw new Error(`bench: explain failed: ${explainRun.stderr}`);
-    const plans = JSON.parse(explainRun.stdout.trim().split("\n").at(-1)!) as Record<
-      string,
-      string
-    >;
     const all = Object.values(plans).join("\n");
     const seqOnChecks = /Seq Scan on zone_checks/.test(all);
     const time = (p: string) => Number(/Execution Time: ([\d.]+) ms/.exec(p)?.[1] ?? NaN);
@@ -453,7 +455,7 @@ async function main() {
     console.log(plans["first page"]!.replace(/^/gm, "    "));
     await db.destroy();
   } finally {
-    stop();
+    await sup.stop(); // the server (and PostgreSQL when this run started it)
   }
 
   mkdirSync(OUT_DIR, { recursive: true });
@@ -466,6 +468,7 @@ async function main() {
       `| ${r.measure} | ${r.figure} | ${r.budget} | ${r.ok === null ? "" : r.ok ? "yes" : "**no**"} |`,
     );
   console.log(`\nwritten: ${file}`);
+  return 0;
 }
 
-await main();
+await sup.main(main);

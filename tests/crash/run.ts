@@ -7,7 +7,8 @@
 // 5xx. Meanwhile the PostgreSQL postmaster is killed with SIGKILL 5 times and the web server 5
 // times, at random points of the run, each restarted at once. Then the database must hold every
 // acknowledged (2xx) zone check exactly once with the values sent, no duplicates, and no photo row
-// may name a missing file. Exit 1 otherwise. Everything it started is stopped in `finally`.
+// may name a missing file. Exit 1 otherwise. Everything it started is stopped in `finally`, and on
+// Ctrl-C, SIGTERM or the end of npm by tests/harness/supervisor.ts.
 //
 // Environment: CRASH_SEED (repeat a run's crash points), CRASH_SUBMISSIONS (default 1000),
 // SWARD_CRASH_PORT (3300), SWARD_CRASH_PG_PORT (54339).
@@ -25,8 +26,9 @@ import { symptomKeys } from "@/lib/reference/symptoms";
 import type { VisitDetailDto, VisitSummaryDto } from "@/lib/visits/dto";
 import type { ZoneCheckInput } from "@/lib/visits/schemas";
 
+import { Supervisor } from "../harness/supervisor";
 import { isBuildStale } from "../helpers/build";
-import { run, TSX } from "../helpers/processes";
+import { TSX } from "../helpers/processes";
 import { seededRandom } from "../helpers/seeded-random";
 import { doneCheck } from "../helpers/zone-checks";
 import { Client } from "./client";
@@ -66,6 +68,7 @@ const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 const startedAt = Date.now();
 const say = (line: string) =>
   console.log(`crash [${seconds(Date.now() - startedAt).padStart(7)}] ${line}`);
+const sup = new Supervisor("crash suite");
 
 /** Varied values a technician could send, valid for the zone-check schema. */
 function checkValues(zoneId: string, n: number): ZoneCheckInput {
@@ -196,6 +199,7 @@ async function main(): Promise<number> {
   );
   const databaseUrl = cluster.url(DATABASE);
   const web = new WebServer(
+    sup,
     PORT,
     {
       NODE_ENV: "production",
@@ -217,23 +221,25 @@ async function main(): Promise<number> {
     await web.stop().catch((err) => console.error("crash: stopping the web server:", err));
     await stopCluster(cluster).catch((err) => console.error("crash: stopping PostgreSQL:", err));
   };
-  const onSignal = (signal: NodeJS.Signals) =>
-    void cleanup().finally(() => process.exit(signal === "SIGINT" ? 130 : 143));
-  process.once("SIGINT", onSignal);
-  process.once("SIGTERM", onSignal);
-  process.once("exit", () => web.killNow());
+  // On a signal, the supervisor stops the running step and the web server, then runs this.
+  sup.defer("stop the web server and PostgreSQL", cleanup, {
+    argv: ["sh", "db/cluster.sh", "stop"],
+    env: cluster.env,
+  });
 
   try {
     say(`seed ${seed} (CRASH_SEED=${seed} repeats the crash points and values)`);
     rmSync(ARTIFACTS, { recursive: true, force: true });
     mkdirSync(PHOTO_DIR, { recursive: true });
     await freshCluster(cluster);
-    await run(TSX, ["db/ensure-database.ts", DATABASE, "--fresh"], cluster.env);
-    await run(TSX, ["db/migrate.ts"], { ...cluster.env, DATABASE_URL: databaseUrl });
-    await run(TSX, ["fixtures/demo/seed.ts"], {
-      ...cluster.env,
-      DATABASE_URL: databaseUrl,
-      PHOTO_DIR,
+    await sup.step("database", TSX, ["db/ensure-database.ts", DATABASE, "--fresh"], {
+      env: cluster.env,
+    });
+    await sup.step("migrate", TSX, ["db/migrate.ts"], {
+      env: { ...cluster.env, DATABASE_URL: databaseUrl },
+    });
+    await sup.step("seed", TSX, ["fixtures/demo/seed.ts"], {
+      env: { ...cluster.env, DATABASE_URL: databaseUrl, PHOTO_DIR },
     });
     const db = createDb(databaseUrl, { max: 2 });
     try {
@@ -255,8 +261,8 @@ async function main(): Promise<number> {
       await db.destroy();
     }
     if (isBuildStale())
-      await run("node", ["node_modules/next/dist/bin/next", "build"], {
-        NEXT_TELEMETRY_DISABLED: "1",
+      await sup.step("build", "node", ["node_modules/next/dist/bin/next", "build"], {
+        env: { NEXT_TELEMETRY_DISABLED: "1" },
       });
     if (await isListening(PORT))
       throw new Error(
@@ -441,8 +447,5 @@ async function main(): Promise<number> {
   }
 }
 
-const code = await main().catch((err) => {
-  console.error(err instanceof Error ? err.message : err);
-  return 1;
-});
-process.exit(code); // nothing of this run may keep the process alive
+// Exits with main's code once everything is stopped: nothing of this run may keep the process alive.
+await sup.main(main);

@@ -1,9 +1,11 @@
 // The production server (`next start`) for the crash suite, as a direct child of this process so
-// the PID it holds is the server's own. kill9() is a SIGKILL to that PID; an exit nobody asked for
-// (a crash of its own) is recorded, and the suite fails on it.
-import { spawn, type ChildProcess } from "node:child_process";
+// the PID it holds is the server's own (in a process group of its own, started through the
+// suite's supervisor, which stops it on every exit path). kill9() is a SIGKILL to that PID; an
+// exit nobody asked for (a crash of its own) is recorded, and the suite fails on it.
+import type { ChildProcess } from "node:child_process";
 import { closeSync, openSync } from "node:fs";
 
+import type { Supervisor } from "../harness/supervisor";
 import { waitForUrl } from "../helpers/processes";
 
 export class WebServer {
@@ -15,6 +17,7 @@ export class WebServer {
   keepAlive = false;
 
   constructor(
+    private readonly sup: Supervisor,
     private readonly port: number,
     private readonly env: Record<string, string>,
     private readonly logFile: string,
@@ -28,13 +31,11 @@ export class WebServer {
 
   async start(): Promise<void> {
     const log = openSync(this.logFile, "a");
-    const child = spawn(
+    const { child } = this.sup.start(
+      "web server",
       "node",
       ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(this.port)],
-      {
-        stdio: ["ignore", log, log],
-        env: { ...process.env, ...this.env },
-      },
+      { stdio: ["ignore", log, log], env: this.env },
     );
     closeSync(log);
     this.child = child;
@@ -80,13 +81,5 @@ export class WebServer {
     const timer = setTimeout(() => child.kill("SIGKILL"), 5_000);
     await this.exited(child);
     clearTimeout(timer);
-  }
-
-  /** Synchronous last resort (process "exit" handler). */
-  killNow(): void {
-    if (this.child?.pid && this.pid !== undefined) {
-      this.exitExpected = true;
-      this.child.kill("SIGKILL");
-    }
   }
 }

@@ -1,37 +1,56 @@
 // E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
 // on 127.0.0.1, with the local fake weather and SMTP services beside it. Builds first when no build
-// exists or a source changed. Stops what it started afterwards (the server by its PID).
-import { spawn, type ChildProcess } from "node:child_process";
-import { openSync, rmSync } from "node:fs";
+// exists or a source changed. Stops what it started afterwards, PostgreSQL too when it was not
+// running; the watchdog of tests/harness/supervisor.ts does so if vitest ends without a teardown.
+import { closeSync, openSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 
 import { startSmtpFake } from "../harness/smtp-fake";
+import { Supervisor } from "../harness/supervisor";
 import { isBuildStale } from "./build";
-import { run, TSX, waitForUrl } from "./processes";
+import { TSX, waitForUrl } from "./processes";
 
 const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 const MAIL_DIR = path.resolve("tests/.artifacts/mail-e2e");
 const AUTH_SECRET = "e2e-tests-only-secret-0123456789abcdefghijkl";
 const PHOTO_DIR = "tests/.artifacts/photos-e2e";
 const SERVER_LOG = path.resolve("tests/.artifacts/e2e-server.log");
-let server: ChildProcess | undefined;
-let weather: ChildProcess | undefined;
-
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  const sup = new Supervisor("e2e setup", false);
+  let smtp: Awaited<ReturnType<typeof startSmtpFake>> | undefined;
+  const teardown = async () => {
+    await smtp?.close();
+    await sup.stop();
+  };
+  try {
+    smtp = await start(project, sup);
+  } catch (err) {
+    await teardown();
+    throw err;
+  }
+  return teardown;
+}
+
+async function start(
+  project: TestProject,
+  sup: Supervisor,
+): Promise<Awaited<ReturnType<typeof startSmtpFake>>> {
   const databaseUrl = `postgres://postgres@127.0.0.1:${process.env.SWARD_PG_PORT ?? "54329"}/sward_e2e`;
-  await run("sh", ["db/cluster.sh", "start"]);
-  await run(TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
-  await run(TSX, ["db/migrate.ts"], { DATABASE_URL: databaseUrl });
-  await run(TSX, ["fixtures/demo/seed.ts"], { DATABASE_URL: databaseUrl, PHOTO_DIR });
+  await sup.cluster();
+  await sup.step("database", TSX, ["db/ensure-database.ts", "sward_e2e", "--fresh"]);
+  await sup.step("migrate", TSX, ["db/migrate.ts"], { env: { DATABASE_URL: databaseUrl } });
+  await sup.step("seed", TSX, ["fixtures/demo/seed.ts"], {
+    env: { DATABASE_URL: databaseUrl, PHOTO_DIR },
+  });
   if (isBuildStale())
-    await run("node", ["node_modules/next/dist/bin/next", "build"], {
-      NEXT_TELEMETRY_DISABLED: "1",
+    await sup.step("build", "node", ["node_modules/next/dist/bin/next", "build"], {
+      env: { NEXT_TELEMETRY_DISABLED: "1" },
     });
 
   const baseUrl = `http://localhost:${PORT}`;
   const weatherPort = PORT + 1;
-  weather = spawn(TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], {
+  sup.start("weather fake", TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
@@ -39,13 +58,13 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const smtp = await startSmtpFake(0, MAIL_DIR);
   // The server's JSON log lines go to a file the log test reads (tests/e2e/security-logs.test.ts).
   const logFile = openSync(SERVER_LOG, "w");
-  server = spawn(
+  sup.start(
+    "server",
     "node",
     ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
     {
       stdio: ["ignore", logFile, "inherit"],
       env: {
-        ...process.env,
         NODE_ENV: "production",
         NEXT_TELEMETRY_DISABLED: "1",
         DATABASE_URL: databaseUrl,
@@ -59,6 +78,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
       },
     },
   );
+  closeSync(logFile);
   await waitForUrl(`${baseUrl}/sign-in`, 30_000);
   project.provide("baseUrl", baseUrl);
   project.provide("mailDir", MAIL_DIR);
@@ -66,15 +86,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   project.provide("authSecret", AUTH_SECRET);
   project.provide("photoDir", PHOTO_DIR);
   project.provide("serverLog", SERVER_LOG);
-
-  return async () => {
-    await smtp.close();
-    if (weather?.pid && weather.exitCode === null) weather.kill("SIGTERM");
-    if (server?.pid && server.exitCode === null) {
-      server.kill("SIGTERM");
-      await new Promise((r) => server?.once("exit", r));
-    }
-  };
+  return smtp;
 }
 
 declare module "vitest" {

@@ -1,25 +1,5 @@
-// Small process helpers for test setup: run a command to completion, wait for a URL.
-import { spawn } from "node:child_process";
-
-export function run(
-  command: string,
-  args: string[],
-  env: Record<string, string> = {},
-): Promise<void> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(command, args, {
-      stdio: ["ignore", "inherit", "inherit"],
-      env: { ...process.env, ...env },
-    });
-    child.on("error", reject);
-    child.on("exit", (code) =>
-      code === 0
-        ? resolve()
-        : reject(new Error(`${command} ${args.join(" ")} exited with ${code}`)),
-    );
-  });
-}
-
+// Small process helpers for test setup: wait for a URL. (Commands run through
+// tests/harness/supervisor.ts, which stops them on every exit path.)
 export async function waitForUrl(url: string, timeoutMs: number): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   let lastError: unknown;

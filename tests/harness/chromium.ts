@@ -2,7 +2,7 @@
 import { execFileSync } from "node:child_process";
 import { existsSync } from "node:fs";
 
-export function ensureChromium(path = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium") {
+export function ensureChromium(path = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium"): string {
   if (existsSync(path)) return path;
   const isRoot = process.getuid?.() === 0;
   if (!isRoot) {
