@@ -1,12 +1,13 @@
 // `npm run demo` stops everything it started on every exit path: SIGTERM to the npm process,
-// Ctrl-C (SIGINT to the terminal's process group), npm killed with SIGKILL, and a step that fails.
+// Ctrl-C (SIGINT to the terminal's process group), npm killed with SIGKILL, the demo itself killed
+// with SIGKILL (its watchdog), and a step that fails.
 // The demo runs for real under `npm run` — its own PostgreSQL cluster (port SWARD_PG_PORT + 20,
 // its own data folder), migrate, seed, the production server, the worker and the fake weather and
 // SMTP services on SWARD_E2E_PORT + 5…7 — and skips only the build, which the e2e setup made.
 // While it runs, every process under npm and the postmaster are recorded; afterwards none may be
 // alive (process.kill(pid, 0); a zombie counts as ended) and no port may accept a connection.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { readdirSync, rmSync } from "node:fs";
+import { readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
@@ -182,6 +183,17 @@ describe("npm run demo stops everything it started", () => {
   it("when npm is killed with SIGKILL (the demo notices its parent is gone)", async () => {
     const demo = await serving((d) => process.kill(d.npm.pid!, "SIGKILL"));
     expect(demo.output()).toMatch(/demo: the process that started it \(.*npm.*\) is gone/);
+  }, 200_000);
+
+  it("when the demo itself is killed with SIGKILL (its watchdog stops the rest)", async () => {
+    const demo = await serving((d) => {
+      const node = descendants(d.npm.pid!).find((pid) =>
+        readFileSync(`/proc/${pid}/cmdline`, "utf8").includes("tests/harness/demo.ts"),
+      );
+      process.kill(node!, "SIGKILL");
+    });
+    expect(demo.output()).toContain("demo watchdog: the demo ended without stopping");
+    expect(demo.output()).toMatch(/demo watchdog: .*db\/cluster\.sh stop/);
   }, 200_000);
 
   it("when a step fails: a broken DATABASE_URL (PostgreSQL it started is stopped)", async () => {

@@ -32,7 +32,7 @@ type Env = Record<string, string | undefined>;
 /** A step that failed, or that could not start because the harness is stopping. */
 export class StepFailed extends Error {}
 
-export interface Started {
+interface Started {
   name: string;
   child: ChildProcess;
   /** The child's PID, which is also its process group's id. */
@@ -50,7 +50,7 @@ interface Deferred {
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Live (not zombie) members of a process group. A zombie has ended; only its parent's wait() is missing. */
-export function groupMembers(pgid: number): number[] {
+function groupMembers(pgid: number): number[] {
   if (process.platform !== "linux") {
     try {
       process.kill(-pgid, 0);
