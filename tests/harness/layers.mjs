@@ -17,10 +17,10 @@ import extractDepcruiseOptions from "dependency-cruiser/config-utl/extract-depcr
 import extractTSConfig from "dependency-cruiser/config-utl/extract-ts-config";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
-export const CONFIG_FILE = join(ROOT, ".dependency-cruiser.cjs");
-export const KNOWN_FILE = join(ROOT, ".dependency-cruiser-known-violations.json");
+const CONFIG_FILE = join(ROOT, ".dependency-cruiser.cjs");
+const KNOWN_FILE = join(ROOT, ".dependency-cruiser-known-violations.json");
 /** The folders of the app (what `npm run lint:deps:baseline` cruises too). */
-export const APP_DIRS = ["app", "components", "db", "fixtures", "jobs", "lib", "tests", "proxy.ts"];
+const APP_DIRS = ["app", "components", "db", "fixtures", "jobs", "lib", "tests", "proxy.ts"];
 
 const sameViolation = (a, b) => a.rule.name === b.rule.name && a.from === b.from && a.to === b.to;
 

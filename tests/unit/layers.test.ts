@@ -1,8 +1,8 @@
 // The layer check of `npm run lint` (tests/harness/layers.mjs with .dependency-cruiser.cjs): the
-// real tree has no violation besides the known list, and a tree with planted violations — a
+// real tree has no violation besides the known list, and a tree with planted violations (a
 // cycle between two lib/ folders, a migration importing lib/, pure cores reaching the database
-// and server-only —
-// fails with each one reported, also through the command `npm run lint:deps` runs.
+// and server-only, db/ and fixtures/ importing each other) fails with each one reported, also
+// through the command `npm run lint:deps` runs.
 import { execFile } from "node:child_process";
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -78,18 +78,30 @@ describe("a tree with planted violations", () => {
     );
     write("lib/scoring/weights.ts", 'import { db } from "../../db";\nexport const w = db;\n');
     write("lib/agronomy/units.ts", 'import "server-only";\nexport const u = 1;\n');
+    // db/ ↔ fixtures/: a folder cycle outside lib/ (a database script reaching for the demo)
+    write(
+      "db/seed.ts",
+      'import { company } from "../fixtures/demo/scenario";\nexport const s = company;\n',
+    );
+    write(
+      "fixtures/demo/scenario.ts",
+      'import { db } from "../../db";\nexport const company = db;\n',
+    );
   });
   afterAll(() => rmSync(tree, { recursive: true, force: true }));
 
   it(
     "reports each planted violation, through the API and through the lint's command",
     async () => {
-      const result = await check({ baseDir: tree, dirs: ["db", "lib"] });
+      const result = await check({ baseDir: tree, dirs: ["db", "fixtures", "lib"] });
       const found = result.fresh.map((v) => `${v.rule.name}: ${v.from} → ${v.to}`).sort();
       expect(found).toEqual([
         "db-imports-no-feature: db/migrations/2026-01-01T0000-x.ts → lib/alpha/one.ts",
+        "db-imports-no-feature: db/seed.ts → fixtures/demo/scenario.ts",
         "migrations-import-no-app-code: db/migrations/2026-01-01T0000-x.ts → lib/alpha/one.ts",
         "no-circular: lib/alpha/one.ts → lib/beta/two.ts", // one report per module cycle
+        "no-folder-cycle: db → fixtures/demo",
+        "no-folder-cycle: fixtures/demo → db",
         "no-lib-folder-cycle: lib/alpha → lib/beta",
         "no-lib-folder-cycle: lib/beta → lib/alpha",
         "pure-core-no-server-only: lib/agronomy/units.ts → server-only",
@@ -110,7 +122,7 @@ describe("a tree with planted violations", () => {
       expect(failed?.code).toBe(1);
       expect(failed?.stderr).toContain("no-lib-folder-cycle: lib/alpha → lib/beta");
       expect(failed?.stderr).toContain("cycle: lib/alpha → lib/beta → lib/alpha");
-      expect(failed?.stderr).toMatch(/8 new violation\(s\)/);
+      expect(failed?.stderr).toMatch(/11 new violation\(s\)/);
     },
     CRUISE_TIMEOUT,
   );
