@@ -5,6 +5,18 @@ const nextConfig: NextConfig = {
   serverExternalPackages: ["@node-rs/argon2", "pg", "pino"],
   poweredByHeader: false,
   typedRoutes: false,
+  // Pages renamed for the glossary: bookmarks and links in e-mails already sent keep working (the
+  // query string goes along). A manager's old /properties bookmark is sent to /book by that page.
+  async redirects() {
+    return [
+      { source: "/alerts", destination: "/risk-alerts", permanent: true },
+      {
+        source: "/my-lawn/visits/:visitId",
+        destination: "/my-lawn/reports/:visitId",
+        permanent: true,
+      },
+    ];
+  },
   async headers() {
     return [
       {

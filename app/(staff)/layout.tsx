@@ -1,36 +1,16 @@
-import {
-  Bell,
-  CalendarDays,
-  ClipboardList,
-  FileSpreadsheet,
-  FlaskConical,
-  Gavel,
-  Trees,
-} from "lucide-react";
+// Pages for managers and technicians alike (the day's stops, a visit, a property, risk alerts).
+// Manager-only pages live in app/(office). Not the security boundary: every read is scoped again in
+// the data-access layer.
 import type { ReactNode } from "react";
 
-import { AppShell, type NavItem } from "@/components/shell/app-shell";
+import { AppShell } from "@/components/shell/app-shell";
+import { staffNav } from "@/components/shell/staff-nav";
 import { requireActor } from "@/lib/auth/require";
 
 export default async function StaffLayout({ children }: { children: ReactNode }) {
   const actor = await requireActor(["manager", "technician"]);
-  const nav: NavItem[] =
-    actor.role === "manager"
-      ? [
-          { href: "/properties", label: "Properties", icon: Trees },
-          { href: "/alerts", label: "Alerts", icon: Bell },
-          { href: "/visits", label: "Visits", icon: ClipboardList },
-          { href: "/products", label: "Products", icon: FlaskConical },
-          { href: "/rule-sets", label: "Rule sets", icon: Gavel },
-          { href: "/records", label: "Records", icon: FileSpreadsheet },
-        ]
-      : [
-          { href: "/today", label: "Today", icon: CalendarDays },
-          { href: "/properties", label: "My properties", icon: Trees },
-          { href: "/alerts", label: "Alerts", icon: Bell },
-        ];
   return (
-    <AppShell actor={actor} nav={nav}>
+    <AppShell actor={actor} nav={staffNav(actor.role)}>
       {children}
     </AppShell>
   );

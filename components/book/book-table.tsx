@@ -6,8 +6,8 @@ import { createColumnHelper, flexRender, tableFeatures, useTable } from "@tansta
 import { ArrowDown, ArrowUp } from "lucide-react";
 import Link from "next/link";
 
-import { SeverityBadge } from "@/components/alerts/severity-badge";
-import { TrendBadge } from "@/components/scoring/trend-badge";
+import { SeverityBadge } from "@/components/risk-alerts/severity-badge";
+import { TrendBadge } from "@/components/sward-index/trend-badge";
 import type { BookRow } from "@/lib/book/dto";
 import type { BookSort } from "@/lib/book/schemas";
 import { formatDate } from "@/lib/dates";
@@ -47,7 +47,7 @@ const columns = helper.columns([
   }),
   helper.accessor("latestIndex", {
     id: "index",
-    header: "Index",
+    header: "Sward Index",
     cell: (info) => (
       <span className="text-lg font-bold">
         {info.getValue() === null ? "—" : Math.round(info.getValue()!)}
@@ -71,7 +71,7 @@ const columns = helper.columns([
   }),
   helper.accessor("alerts", {
     id: "alerts",
-    header: "Open alerts",
+    header: "Open risk alerts",
     cell: (info) => {
       const a = info.getValue();
       if (!a.high && !a.moderate && !a.low) return <span className="text-sm text-muted">None</span>;

@@ -8,6 +8,7 @@ import { inputClass } from "@/components/ui/field";
 import { FilterSelect } from "@/components/ui/filter-select";
 import type { BookRow } from "@/lib/book/dto";
 import { BOOK_SORTS, type BookQuery } from "@/lib/book/schemas";
+import { BOOK_PATH } from "@/lib/paths";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
 
 import { BookTable } from "./book-table";
@@ -65,18 +66,18 @@ export function BookView({
   const hrefFor = Object.fromEntries(
     BOOK_SORTS.map((s) => [
       s,
-      `/properties${params({ sort: s === "attention" ? undefined : s, dir: s === query.sort ? (dir === "asc" ? "desc" : "asc") : undefined, after: undefined })}`,
+      `${BOOK_PATH}${params({ sort: s === "attention" ? undefined : s, dir: s === query.sort ? (dir === "asc" ? "desc" : "asc") : undefined, after: undefined })}`,
     ]),
   );
   const isFiltered = Object.values(filters).some(Boolean);
   return (
     <section aria-labelledby="book-table-title">
-      <h2 id="book-table-title" className="mb-3 text-2xl font-bold">
-        The book
+      <h2 id="book-table-title" className="sr-only">
+        Properties in the book
       </h2>
       <form
         method="get"
-        action="/properties"
+        action={BOOK_PATH}
         className="mb-3 grid grid-cols-2 gap-3 rounded-xl border border-line bg-card p-3 sm:p-4 lg:grid-cols-4"
         aria-label="Filter the book"
       >
@@ -135,7 +136,7 @@ export function BookView({
             Show
           </button>
           {isFiltered ? (
-            <Link href="/properties" className={buttonClass("quiet", "no-underline")}>
+            <Link href={BOOK_PATH} className={buttonClass("quiet", "no-underline")}>
               Clear
             </Link>
           ) : null}
@@ -165,7 +166,7 @@ export function BookView({
       <nav aria-label="Pages of the book" className="mt-3 flex gap-2">
         {query.after ? (
           <Link
-            href={`/properties${params({})}`}
+            href={`${BOOK_PATH}${params({})}`}
             className={buttonClass("secondary", "no-underline")}
           >
             First page
@@ -173,7 +174,7 @@ export function BookView({
         ) : null}
         {nextCursor ? (
           <Link
-            href={`/properties${params({ after: nextCursor })}`}
+            href={`${BOOK_PATH}${params({ after: nextCursor })}`}
             className={buttonClass("secondary", "no-underline")}
           >
             Next page

@@ -1,6 +1,6 @@
 "use client";
 
-// The homeowner's chart: the lawn's score over time, nothing else — large, calm, readable.
+// The homeowner's chart: the lawn's Sward Index over time, nothing else — large, calm, readable.
 import { useParentSize } from "@visx/responsive";
 import { AreaSeries, Axis, GlyphSeries, Grid, XYChart } from "@visx/xychart";
 import { useMemo } from "react";
@@ -46,7 +46,7 @@ export function SimpleTrendChart({
         >
           <Grid columns={false} numTicks={3} />
           <AreaSeries
-            dataKey="Lawn score"
+            dataKey="Sward Index"
             data={points}
             xAccessor={x}
             yAccessor={(p) => p.index}

@@ -12,6 +12,8 @@ export interface NavItem {
   href: string;
   label: string;
   icon: LucideIcon;
+  /** Other path prefixes under which this entry is the current one (e.g. a property of the book). */
+  also?: string[];
 }
 
 const ROLE_LABEL = {
@@ -37,8 +39,8 @@ export function AppShell({
           <span className="text-xl font-bold">Sward</span>
         </div>
         <nav aria-label="Main" className="flex flex-col gap-1">
-          {nav.map(({ href, label, icon: Icon }) => (
-            <NavLink key={href} href={href} variant="side">
+          {nav.map(({ href, label, icon: Icon, also }) => (
+            <NavLink key={href} href={href} also={also} variant="side">
               <Icon className="size-5" aria-hidden="true" />
               {label}
             </NavLink>
@@ -74,8 +76,8 @@ export function AppShell({
           aria-label="Main"
           className="no-print fixed inset-x-0 bottom-0 flex gap-0.5 border-t border-line bg-card px-1 pt-2 pb-[max(0.5rem,env(safe-area-inset-bottom))] md:hidden"
         >
-          {nav.map(({ href, label, icon: Icon }) => (
-            <NavLink key={href} href={href} variant="bar">
+          {nav.map(({ href, label, icon: Icon, also }) => (
+            <NavLink key={href} href={href} also={also} variant="bar">
               <Icon className="size-6" aria-hidden="true" />
               {label}
             </NavLink>

@@ -8,15 +8,17 @@ import type { ReactNode } from "react";
 
 export function NavLink({
   href,
+  also = [],
   children,
   variant,
 }: {
   href: string;
+  also?: string[];
   children: ReactNode;
   variant: "side" | "bar";
 }) {
   const pathname = usePathname();
-  const isCurrent = pathname === href || pathname.startsWith(`${href}/`);
+  const isCurrent = [href, ...also].some((p) => pathname === p || pathname.startsWith(`${p}/`));
   return (
     <Link
       href={href}

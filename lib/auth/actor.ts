@@ -1,6 +1,7 @@
 // The acting user of a request, as the data-access layer sees it. Always loaded from the
 // database (lib/auth/queries.ts), so a disabled account or a changed role applies at once.
 import type { Role } from "@/db/schema";
+import { BOOK_PATH } from "@/lib/paths";
 
 export interface Actor {
   userId: string;
@@ -19,7 +20,7 @@ export const isStaff = (actor: Actor) => actor.role === "manager" || actor.role 
 
 /** Where each role lands after signing in. */
 export function landingPath(role: Role): string {
-  return { manager: "/properties", technician: "/today", homeowner: "/my-lawn" }[role];
+  return { manager: BOOK_PATH, technician: "/today", homeowner: "/my-lawn" }[role];
 }
 
 /** A path on this site, or undefined: never another origin (`//host`, `/\\host`) or a full URL. */

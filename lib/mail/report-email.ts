@@ -1,6 +1,7 @@
 // The visit report e-mail to a homeowner (pure): a short summary, the care-note titles, the
 // keep-off guidance of anything applied, photos as links, and one button to the report.
 import { formatDate } from "@/lib/dates";
+import { visitReportPath } from "@/lib/paths";
 import type { VisitReport } from "@/lib/reports/dto";
 import { escapeHtml } from "@/lib/text";
 
@@ -21,7 +22,7 @@ export function reportEmail(
   homeownerName: string,
 ) {
   const base = appUrl.replace(/\/$/, "");
-  const link = `${base}/my-lawn/visits/${report.visitId}`;
+  const link = `${base}${visitReportPath(report.visitId)}`;
   const subject = `Your lawn visit report — ${report.propertyName}, ${formatDate(report.date)}`;
   const keepOff = [...new Set(report.applications.map((a) => a.reentryGuidance).filter(Boolean))];
   const photos = report.zones.flatMap((z) =>
@@ -31,7 +32,7 @@ export function reportEmail(
   const lines = [
     `Hello ${homeownerName},`,
     "",
-    `${report.technicianName ?? report.companyName} visited ${report.propertyName} on ${formatDate(report.date)}.${score !== null ? ` Your lawn's health score: ${score} out of 100.` : ""}`,
+    `${report.technicianName ?? report.companyName} visited ${report.propertyName} on ${formatDate(report.date)}.${score !== null ? ` Your lawn's Sward Index: ${score} out of 100.` : ""}`,
     ...(report.applications.length
       ? [
           "",
@@ -53,7 +54,7 @@ export function reportEmail(
   ];
   const html = `<div style="font-family:system-ui,sans-serif;color:#18211b;max-width:36rem">
 <p>Hello ${escapeHtml(homeownerName)},</p>
-<p>${escapeHtml(report.technicianName ?? report.companyName)} visited <strong>${escapeHtml(report.propertyName)}</strong> on ${escapeHtml(formatDate(report.date))}.${score !== null ? ` Your lawn's health score: <strong>${score}</strong> out of 100.` : ""}</p>
+<p>${escapeHtml(report.technicianName ?? report.companyName)} visited <strong>${escapeHtml(report.propertyName)}</strong> on ${escapeHtml(formatDate(report.date))}.${score !== null ? ` Your lawn's Sward Index: <strong>${score}</strong> out of 100.` : ""}</p>
 ${report.applications.length ? `<p>Applied: ${escapeHtml([...new Set(report.applications.map((a) => a.productName))].join(", "))}.</p>${keepOff.map((k) => `<p style="background:#f6ecd6;padding:8px;border-radius:6px"><strong>Safety:</strong> ${escapeHtml(k)}</p>`).join("")}` : ""}
 ${report.careNotes.length ? `<p>Care notes for you:</p><ul>${report.careNotes.map((n) => `<li>${escapeHtml(n.note.title)}</li>`).join("")}</ul>` : ""}
 ${photos.length ? `<p>Photos (sign in to see them): ${photos.map((p) => `<a href="${escapeHtml(p.url)}">${escapeHtml(p.zone)}</a>`).join(" · ")}</p>` : ""}

@@ -5,6 +5,7 @@
 import type { Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
+import { RISK_ALERTS_PATH } from "@/lib/paths";
 import type { Mailer } from "@/lib/services/mail";
 import { escapeHtml } from "@/lib/text";
 
@@ -55,7 +56,7 @@ export async function sendHighAlertDigests(
       .where("users.disabled_at", "is", null)
       .execute();
     if (!managers.length) continue;
-    const link = `${options.appUrl.replace(/\/$/, "")}/alerts?severity=high`;
+    const link = `${options.appUrl.replace(/\/$/, "")}${RISK_ALERTS_PATH}?severity=high`;
     const lines = alerts.map(
       (a) =>
         `• ${alertKindLabel(a.kind)} — ${a.property_name}, ${a.city}${a.zone_name ? ` (${a.zone_name})` : ""}, raised ${a.raised_on}: ${a.summary}`,

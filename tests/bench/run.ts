@@ -347,8 +347,8 @@ async function main(): Promise<number> {
         cookie: tech,
         budget: 130,
       },
-      { name: "the book", path: "/properties", cookie: manager },
-      { name: "homeowner report", path: `/my-lawn/visits/${report.id}`, cookie: owner },
+      { name: "the book", path: "/book", cookie: manager },
+      { name: "homeowner report", path: `/my-lawn/reports/${report.id}`, cookie: owner },
     ];
     const browser = await launchBrowser();
     const jsKb: Record<string, number> = {};

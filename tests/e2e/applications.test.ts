@@ -84,7 +84,7 @@ describe("applications", () => {
     const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
     const page = await context.newPage();
     await signIn(page, baseUrl, "manager@demo.sward.test");
-    await page.waitForURL("**/properties");
+    await page.waitForURL("**/book");
     await page.goto(zoneUrl);
     await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
     await page.getByLabel("Rate", { exact: true }).fill("4");

@@ -28,7 +28,7 @@ describe("the book", () => {
       });
       const page = await context.newPage();
       await signIn(page, baseUrl, "manager@demo.sward.test");
-      await page.waitForURL("**/properties");
+      await page.waitForURL("**/book");
       const rows = page.locator("table tbody tr[data-property]");
       await rows.first().waitFor();
       expect(await rows.first().getAttribute("data-property")).toBe("Haddad residence");
@@ -56,7 +56,7 @@ describe("the book", () => {
       expect(text.trim().split("\n")).toHaveLength(shown + 1); // the header and the same rows
       expect(text).toMatch(/^property,street,city,technician/);
 
-      await page.goto("/properties?sort=name");
+      await page.goto("/book?sort=name");
       await rows.first().waitFor();
       expect(await rows.allInnerTexts().then((t) => t.length)).toBe(6);
       expect(await rows.first().getAttribute("data-property")).toBe("Brandvold residence");

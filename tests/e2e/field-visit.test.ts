@@ -188,7 +188,7 @@ describe("a technician runs a visit on a phone", () => {
     const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
     const page = await context.newPage();
     await signIn(page, baseUrl, "manager@demo.sward.test");
-    await page.waitForURL("**/properties");
+    await page.waitForURL("**/book");
     await page.goto("/visits");
     await page
       .getByRole("link", { name: /Kowalczyk residence/ })

@@ -28,7 +28,7 @@ describe("Index charts", () => {
       const context = await browser.newContext({ viewport, baseURL: baseUrl });
       const page = await context.newPage();
       await signIn(page, baseUrl, "manager@demo.sward.test");
-      await page.waitForURL("**/properties");
+      await page.waitForURL("**/book");
 
       // The book: distribution of property indexes and the share of zones following N.
       await page.getByRole("heading", { name: "Across the book" }).waitFor();
@@ -91,19 +91,19 @@ describe("Index charts", () => {
       await context.close();
     });
 
-    it(`homeowner: the simple lawn score chart at ${size} size`, async () => {
+    it(`homeowner: the simple Sward Index chart at ${size} size`, async () => {
       const context = await browser.newContext({ viewport, baseURL: baseUrl });
       const page = await context.newPage();
       await signIn(page, baseUrl, "owner1@demo.sward.test");
       await page.waitForURL("**/my-lawn");
-      await page.getByRole("heading", { name: "Lawn health score" }).waitFor();
-      await page.locator('[data-chart^="lawn-score-"] svg').first().waitFor();
+      await page.getByRole("heading", { name: "Sward Index" }).waitFor();
+      await page.locator('[data-chart^="lawn-index-"] svg').first().waitFor();
       expect(await page.getByText(/Your lawn is (getting healthier|holding steady)/).count()).toBe(
         1,
       );
       // No feeding markers or product names on the homeowner's chart.
       expect(
-        await page.locator('[data-chart^="lawn-score-"] text').filter({ hasText: "lb N" }).count(),
+        await page.locator('[data-chart^="lawn-index-"] text').filter({ hasText: "lb N" }).count(),
       ).toBe(0);
       await snap(page, `index-homeowner-${size}`, true);
       await context.close();

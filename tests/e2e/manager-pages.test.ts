@@ -26,7 +26,7 @@ describe("manager pages", () => {
       const context = await browser.newContext({ viewport, baseURL: baseUrl });
       const page = await context.newPage();
       await signIn(page, baseUrl, "manager@demo.sward.test");
-      await page.waitForURL("**/properties");
+      await page.waitForURL("**/book");
       await page.getByRole("link", { name: /Okafor residence/ }).click();
       await page.waitForURL(/\/properties\/[0-9a-f-]+$/);
       const propertyUrl = new URL(page.url()).pathname;

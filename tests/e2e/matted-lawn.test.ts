@@ -178,10 +178,10 @@ describe("matted canopy alert", () => {
     const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
     const page = await context.newPage();
     await signIn(page, baseUrl, "manager@demo.sward.test");
-    await page.waitForURL("**/properties");
-    await page.goto("/alerts?kind=matted_canopy");
+    await page.waitForURL("**/book");
+    await page.goto("/risk-alerts?kind=matted_canopy");
     const card = page
-      .getByRole("list", { name: "Alerts" })
+      .getByRole("list", { name: "Risk alerts" })
       .getByRole("listitem")
       .filter({ hasText: "Oyelaran residence" });
     await card.waitFor();
@@ -199,9 +199,9 @@ describe("matted canopy alert", () => {
     await card.getByRole("button", { name: "Resolve" }).click();
     // Resolved alerts leave the default (live) view; the resolved view keeps the history.
     await expect.poll(() => card.count(), { timeout: 10_000 }).toBe(0);
-    await page.goto("/alerts?kind=matted_canopy&status=resolved");
+    await page.goto("/risk-alerts?kind=matted_canopy&status=resolved");
     const resolved = page
-      .getByRole("list", { name: "Alerts" })
+      .getByRole("list", { name: "Risk alerts" })
       .getByRole("listitem")
       .filter({ hasText: "Oyelaran residence" });
     await resolved.getByText("Evidence and source").click();
@@ -338,7 +338,7 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
     const page = await context.newPage();
     await signIn(page, baseUrl, "manager@demo.sward.test");
-    await page.waitForURL("**/properties");
+    await page.waitForURL("**/book");
     await page.goto("/dev/mail");
     const list = page.getByRole("list", { name: "Messages, newest first" });
     await list.getByRole("link", { name: /Your lawn visit report — Oyelaran residence/ }).click();
@@ -355,7 +355,7 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     const other = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
     const page2 = await other.newPage();
     await signIn(page2, baseUrl, "manager@other.sward.test");
-    await page2.waitForURL("**/properties");
+    await page2.waitForURL("**/book");
     await page2.goto("/dev/mail");
     await page2.getByText("No mail yet.").waitFor();
     await other.close();

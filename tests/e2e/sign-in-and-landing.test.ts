@@ -37,8 +37,8 @@ describe("landing pages by role", () => {
   const cases = [
     {
       email: "manager@demo.sward.test",
-      path: "/properties",
-      heading: "Properties",
+      path: "/book",
+      heading: "Book",
       expected: namesFor(() => true),
       viewport: DESKTOP,
     },
@@ -85,8 +85,8 @@ describe("landing pages by role", () => {
     },
     {
       email: "manager@other.sward.test",
-      path: "/properties",
-      heading: "Properties",
+      path: "/book",
+      heading: "Book",
       expected: otherCompany.properties.map((p) => p.name),
       viewport: DESKTOP,
     },
@@ -159,11 +159,11 @@ describe("sign-in errors and sign-out", () => {
   it("sign-out returns to sign-in and the old session cookie can do nothing", async () => {
     const { context, page } = await freshPage(PHONE);
     await signIn(page, baseUrl, "manager@demo.sward.test");
-    await page.waitForURL("**/properties");
+    await page.waitForURL("**/book");
     const oldCookies = await context.cookies();
     await page.getByRole("button", { name: "Sign out" }).click();
     await page.waitForURL("**/sign-in");
-    await page.goto("/properties");
+    await page.goto("/book");
     expect(new URL(page.url()).pathname).toBe("/sign-in");
 
     // Replay the pre-sign-out cookies in a new context: the session row is gone, so 401.
@@ -213,7 +213,7 @@ describe("tenancy and scope through the API", () => {
     const ids = await propertyIdsSeenBy("manager@demo.sward.test");
     const { context, page } = await freshPage();
     await signIn(page, baseUrl, "manager@other.sward.test");
-    await page.waitForURL("**/properties");
+    await page.waitForURL("**/book");
     for (const id of Object.values(ids)) {
       expect((await page.request.get(`/api/v1/properties/${id}`)).status()).toBe(404);
       const html = await page.goto(`/properties/${id}`);

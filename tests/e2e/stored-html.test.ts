@@ -157,23 +157,24 @@ afterAll(async () => {
 describe("stored HTML", () => {
   it("is shown as text, never run or turned into elements, on every page that shows it", async () => {
     const pages: [keyof typeof cookies, string][] = [
-      ["manager", "/properties"],
-      ["manager", `/properties?q=${encodeURIComponent("<img")}`],
+      ["manager", "/book"],
+      ["manager", `/book?q=${encodeURIComponent("<img")}`],
       ["manager", `/properties/${t.propertyId}`],
       ["manager", `/properties/${t.propertyId}/edit`],
       ["manager", `/properties/${t.propertyId}/zones/${t.zoneId}`],
       ["manager", `/visits/${t.visitId}`],
       ["manager", "/visits"],
-      ["manager", "/alerts"],
+      ["manager", "/risk-alerts"],
       ["manager", "/products"],
       ["manager", "/rule-sets"],
       ["manager", "/records"],
       ["manager", "/dev/mail"],
       ["tech", "/today"],
+      ["tech", "/properties"],
       ["tech", `/properties/${t.propertyId}`],
       ["tech", `/visits/${t.visitId}`],
       ["owner", "/my-lawn"],
-      ["owner", `/my-lawn/visits/${t.visitId}`],
+      ["owner", `/my-lawn/reports/${t.visitId}`],
     ];
     const problems: string[] = [];
     let showingText = 0;

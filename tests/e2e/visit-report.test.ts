@@ -22,7 +22,7 @@ describe("visit report", () => {
     await signIn(page, baseUrl, "owner2@demo.sward.test");
     await page.waitForURL("**/my-lawn");
     await page.getByRole("list", { name: "Visit reports" }).getByRole("link").first().click();
-    await page.waitForURL(/\/my-lawn\/visits\//);
+    await page.waitForURL(/\/my-lawn\/reports\//);
     await page.getByRole("heading", { level: 1, name: /Haddad residence/ }).waitFor();
     expect(
       await page
@@ -44,6 +44,10 @@ describe("visit report", () => {
     await snap(page, "report-print", true);
     // Another homeowner's report is not found.
     const url = new URL(page.url()).pathname;
+    // A link in an e-mail sent before reports moved (/my-lawn/visits/…) opens the same report.
+    await page.goto(url.replace("/my-lawn/reports/", "/my-lawn/visits/"));
+    expect(new URL(page.url()).pathname).toBe(url);
+    await page.getByRole("heading", { level: 1, name: /Haddad residence/ }).waitFor();
     await context.close();
     const other = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
     const page2 = await other.newPage();

@@ -42,7 +42,7 @@ describe("high-severity alert digest", () => {
       /Declining Index — Kowalczyk residence, Cedar Ford \(Under the oaks\)/,
     );
     expect(mails[0]!.text).not.toMatch(/Torn tips/); // low severity: not in the digest
-    expect(mails[0]!.html).toContain('href="http://localhost:3000/alerts?severity=high"');
+    expect(mails[0]!.html).toContain('href="http://localhost:3000/risk-alerts?severity=high"');
     await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
     expect(await ours()).toHaveLength(1);
   });

@@ -64,7 +64,7 @@ describe("the visit report e-mail", () => {
     });
     expect(queued[0]!.subject).toMatch(/^Your lawn visit report — Haddad residence, /);
     expect(queued[0]!.text_body).toMatch(/Change the mowing direction every few mowings/);
-    expect(queued[0]!.html_body).toContain(`/my-lawn/visits/${visit.id}`);
+    expect(queued[0]!.html_body).toContain(`/my-lawn/reports/${visit.id}`);
 
     // The SMTP service is down: delivery fails and the message stays pending.
     const port = smtp.port;

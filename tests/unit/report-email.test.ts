@@ -65,13 +65,13 @@ describe("report e-mail", () => {
     expect(m.subject).toBe(
       "Your lawn visit report — <script>alert(1)</script> residence, Tue, 20 Oct 2026",
     );
-    expect(m.text).toMatch(/Your lawn's health score: 78 out of 100/);
+    expect(m.text).toMatch(/Your lawn's Sward Index: 78 out of 100/);
     expect(m.text).toMatch(/Safety: Keep off until watered in and the turf has dried\./);
     expect(m.text).toMatch(/• After today's feeding/);
     expect(m.text).toContain("http://localhost:3000/api/v1/photos/p/display");
     expect(m.html.match(/Read your visit report/g)).toHaveLength(1);
     expect(m.html).toContain(
-      'href="http://localhost:3000/my-lawn/visits/11111111-1111-4111-8111-111111111111"',
+      'href="http://localhost:3000/my-lawn/reports/11111111-1111-4111-8111-111111111111"',
     );
     expect(m.html).not.toContain("<script>");
     expect(m.html).toContain("&lt;script&gt;");

@@ -41,9 +41,11 @@ export default async function SignInPage({
         Homeowners
       </h2>
       <p className="mb-5 text-muted">
-        {redirectTo?.startsWith("/my-lawn/visits/") ? "Sign in to read your visit report. " : ""}No
-        password needed: we e-mail you a link that signs you in once, within {SIGN_IN_LINK_MINUTES}{" "}
-        minutes.
+        {/^\/my-lawn\/(reports|visits)\//.test(redirectTo ?? "")
+          ? "Sign in to read your visit report. "
+          : ""}
+        No password needed: we e-mail you a link that signs you in once, within{" "}
+        {SIGN_IN_LINK_MINUTES} minutes.
       </p>
       <SignInLinkForm redirectTo={redirectTo} minutes={SIGN_IN_LINK_MINUTES} notice={linkNotice} />
     </section>

@@ -3,10 +3,11 @@ import Link from "next/link";
 
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
-import { LawnScore } from "@/components/scoring/lawn-score";
+import { LawnIndex } from "@/components/sward-index/lawn-index";
 import { WateringLog } from "@/components/watering/watering-log";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
+import { visitReportPath } from "@/lib/paths";
 import { getProperty, listProperties } from "@/lib/properties/queries";
 import { listReports } from "@/lib/reports/queries";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
@@ -40,14 +41,14 @@ export default async function MyLawnPage() {
         properties.map((property) => (
           <section key={property.id} className="mb-10" aria-label={property.name}>
             <PropertyHeader property={property} as="h2" />
-            <LawnScore history={property.scores} />
+            <LawnIndex history={property.scores} />
             <h3 className="mb-2 text-xl font-bold">Visit reports</h3>
             {property.reports.length ? (
               <ul className="mb-6 space-y-2" aria-label="Visit reports">
                 {property.reports.map((r, i) => (
                   <li key={r.visitId}>
                     <Link
-                      href={`/my-lawn/visits/${r.visitId}`}
+                      href={visitReportPath(r.visitId)}
                       className="flex min-h-tap items-center justify-between rounded-xl border border-line bg-card p-3 font-semibold text-sward no-underline hover:border-sward"
                     >
                       <span>Visit of {formatDate(r.date)}</span>

@@ -1,33 +1,31 @@
 import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
-import { Plus } from "lucide-react";
 import type { Metadata } from "next";
-import Link from "next/link";
+import { redirect } from "next/navigation";
 
-import { BookView } from "@/components/book/book-view";
 import { PropertyList } from "@/components/properties/property-list";
-import { BookSummary } from "@/components/scoring/book-summary";
-import { buttonClass } from "@/components/ui/button";
-import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
-import { listBook } from "@/lib/book/queries";
-import { bookQuery } from "@/lib/book/schemas";
-import { AppError } from "@/lib/http/app-error";
-import { listPeople } from "@/lib/people/queries";
+import { BOOK_PATH } from "@/lib/paths";
 import { listProperties } from "@/lib/properties/queries";
 import { propertyKeys } from "@/lib/properties/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
-import { getBookScoring } from "@/lib/scoring/queries";
 
-export const metadata: Metadata = { title: "Properties" };
+export const metadata: Metadata = { title: "My properties" };
 
-export default async function PropertiesPage({
+/** The technician's properties. A manager's old bookmark of the book (this path, with its filters) goes to the book. */
+export default async function MyPropertiesPage({
   searchParams,
 }: {
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const actor = await requireActor(["manager", "technician"]);
-  if (actor.role === "manager")
-    return <ManagerBook actor={actor} searchParams={await searchParams} />;
+  if (actor.role === "manager") {
+    // Temporary on purpose: a permanent redirect is cached by the browser for this URL whoever
+    // signs in next, and technicians keep their list here.
+    const query = new URLSearchParams();
+    for (const [k, v] of Object.entries(await searchParams))
+      for (const one of Array.isArray(v) ? v : v === undefined ? [] : [v]) query.append(k, one);
+    redirect(query.size ? `${BOOK_PATH}?${query}` : BOOK_PATH);
+  }
   const queryClient = makeQueryClient();
   await queryClient.prefetchQuery({
     queryKey: propertyKeys.list(),
@@ -41,50 +39,6 @@ export default async function PropertiesPage({
       <HydrationBoundary state={dehydrate(queryClient)}>
         <PropertyList showTechnician={false} />
       </HydrationBoundary>
-    </>
-  );
-}
-
-async function ManagerBook({
-  actor,
-  searchParams,
-}: {
-  actor: Actor;
-  searchParams: Record<string, string | string[] | undefined>;
-}) {
-  const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v) || undefined;
-  const query = bookQuery.parse(
-    Object.fromEntries(Object.keys(bookQuery.shape).map((k) => [k, first(searchParams[k])])),
-  );
-  const [page, technicians, book] = await Promise.all([
-    listBook(actor, query).catch((err: unknown) => {
-      if (err instanceof AppError && err.code === "invalid_input")
-        return listBook(actor, { ...query, after: undefined });
-      throw err;
-    }),
-    listPeople(actor, "technician"),
-    getBookScoring(actor),
-  ]);
-  return (
-    <>
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h1 className="text-3xl font-bold">Properties</h1>
-        <Link href="/properties/new" className={buttonClass("primary", "no-underline")}>
-          <Plus className="size-5" aria-hidden="true" />
-          Add property
-        </Link>
-      </div>
-      <p className="mt-1 mb-6 text-muted">Every property {actor.companyName} serves.</p>
-      <BookView
-        query={query}
-        rows={page.rows}
-        nextCursor={page.nextCursor}
-        total={page.total}
-        technicians={technicians.map((t) => ({ id: t.id, name: t.name }))}
-      />
-      <div className="mt-10">
-        <BookSummary book={book} />
-      </div>
     </>
   );
 }

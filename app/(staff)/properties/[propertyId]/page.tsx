@@ -3,7 +3,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
-import { AlertList } from "@/components/alerts/alert-list";
 import { PropertyApplications } from "@/components/applications/property-applications";
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { NitrogenToDate } from "@/components/properties/nitrogen-to-date";
@@ -15,7 +14,8 @@ import {
 } from "@/components/properties/property-admin";
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
-import { PropertyIndexSection } from "@/components/scoring/property-index-section";
+import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
+import { PropertyIndexSection } from "@/components/sward-index/property-index-section";
 import { buttonClass } from "@/components/ui/button";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { WateringLog } from "@/components/watering/watering-log";
@@ -24,6 +24,7 @@ import { getNitrogenByZone, listPropertyApplications } from "@/lib/applications/
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
+import { BOOK_PATH } from "@/lib/paths";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
@@ -72,11 +73,11 @@ export default async function PropertyPage({
   return (
     <>
       <Link
-        href="/properties"
+        href={isManager ? BOOK_PATH : "/properties"}
         className="mb-4 inline-flex min-h-tap items-center gap-1 font-semibold text-sward"
       >
         <ArrowLeft className="size-5" aria-hidden="true" />
-        All properties
+        {isManager ? "Book" : "My properties"}
       </Link>
       {property.isArchived ? (
         <p className="mb-4 rounded-lg bg-sun-tint p-3 font-semibold">
@@ -116,13 +117,13 @@ export default async function PropertyPage({
 
       <section aria-labelledby="alerts-title" className="mb-8">
         <h2 id="alerts-title" className="mb-3 text-2xl font-bold">
-          Alerts
+          Risk alerts
         </h2>
-        <AlertList
+        <RiskAlertList
           alerts={alerts}
           canResolve={isManager}
           timeZone={property.timeZone}
-          empty="No open alerts for this property."
+          empty="No open risk alerts for this property."
         />
       </section>
 

@@ -3,7 +3,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
 
-import { AlertList } from "@/components/alerts/alert-list";
+import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
 import { VisitRunner } from "@/components/visits/visit-runner";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
@@ -40,13 +40,13 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
           alerts={
             <section aria-labelledby="visit-alerts-title" className="mb-6">
               <h2 id="visit-alerts-title" className="mb-2 text-xl font-bold">
-                Alerts for this property
+                Risk alerts for this property
               </h2>
-              <AlertList
+              <RiskAlertList
                 alerts={alerts}
                 canResolve={actor.role === "manager"}
                 timeZone={visit.timeZone}
-                empty="Nothing raised: no open alerts for this property."
+                empty="Nothing raised: no open risk alerts for this property."
               />
             </section>
           }

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 
 import { BeforeAfter } from "@/components/photos/before-after";
-import { ZoneIndexSection } from "@/components/scoring/zone-index-section";
+import { ZoneIndexSection } from "@/components/sward-index/zone-index-section";
 import { ZoneStatusBadge } from "@/components/visits/status-badge";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate } from "@/lib/dates";

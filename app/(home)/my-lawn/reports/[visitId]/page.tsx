@@ -3,9 +3,10 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 
-import { VisitReportView } from "@/components/reports/visit-report";
+import { VisitReportView } from "@/components/visit-reports/visit-report";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
+import { visitReportPath } from "@/lib/paths";
 import { getVisitReport } from "@/lib/reports/queries";
 import { visitIdParams } from "@/lib/visits/schemas";
 
@@ -19,7 +20,7 @@ export default async function VisitReportPage({
   const parsed = visitIdParams.safeParse(await params);
   const actor = await requireActor(
     ["homeowner"],
-    parsed.success ? `/my-lawn/visits/${parsed.data.visitId}` : "/my-lawn",
+    parsed.success ? visitReportPath(parsed.data.visitId) : "/my-lawn",
   );
   if (!parsed.success) notFound();
   const report = await getVisitReport(actor, parsed.data.visitId).catch((err: unknown) => {

@@ -1,12 +1,12 @@
-// Alerts with their evidence in plain words, the rule's source, the lifecycle so far and the
-// actions the viewer may take. Rendered on the server (property page, visit summary, alerts page).
+// Risk alerts with their evidence in plain words, the rule's source, the lifecycle so far and the
+// actions the viewer may take. Rendered on the server (property page, visit page, risk alerts page).
 import Link from "next/link";
 
 import { formatDate } from "@/lib/dates";
 import type { AlertDto } from "@/lib/risk/dto";
 import { ALERT_STATUSES, EVIDENCE_LABELS, evidenceValue } from "@/lib/risk/labels";
 
-import { AlertActions } from "./alert-actions";
+import { RiskAlertActions } from "./risk-alert-actions";
 import { SeverityBadge } from "./severity-badge";
 
 const ACTIONS: Record<string, string> = {
@@ -20,7 +20,7 @@ const ACTIONS: Record<string, string> = {
   auto_resolved: "Resolved automatically (clear for a week)",
 };
 
-export function AlertList({
+export function RiskAlertList({
   alerts,
   canResolve,
   timeZone,
@@ -40,7 +40,7 @@ export function AlertList({
   });
   if (!alerts.length) return <p className="rounded-lg border border-line bg-card p-4">{empty}</p>;
   return (
-    <ul className="space-y-3" aria-label="Alerts">
+    <ul className="space-y-3" aria-label="Risk alerts">
       {alerts.map((a) => (
         <li
           key={a.id}
@@ -106,7 +106,7 @@ export function AlertList({
           </details>
           {a.status !== "resolved" ? (
             <div className="mt-3">
-              <AlertActions alertId={a.id} status={a.status} canResolve={canResolve} />
+              <RiskAlertActions alertId={a.id} status={a.status} canResolve={canResolve} />
             </div>
           ) : null}
         </li>

@@ -1,5 +1,6 @@
 // A zone's Index through the season with its feedings, watering and photos, and how the Index
 // moved with the nitrogen and water before each check — with the caution that goes with it.
+import { ChartFigure, Td, Th } from "@/components/charts/chart-figure";
 import { IndexChart } from "@/components/charts/index-chart";
 import { formatDate } from "@/lib/dates";
 import type { ZoneScoreHistory } from "@/lib/scoring/dto";
@@ -10,7 +11,6 @@ import {
 } from "@/lib/scoring/history";
 import { correlationSentence, seasonSentence, trendSentence } from "@/lib/scoring/words";
 
-import { ChartFigure, Td, Th } from "./chart-figure";
 import { beforeAfterOf } from "./property-index-section";
 
 export function ZoneIndexSection({

@@ -1,17 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 
-import { AlertList } from "@/components/alerts/alert-list";
+import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
 import { buttonClass } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { FilterSelect } from "@/components/ui/filter-select";
 import { requireActor } from "@/lib/auth/require";
+import { RISK_ALERTS_PATH } from "@/lib/paths";
 import { listPeople } from "@/lib/people/queries";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
 import { listAlerts } from "@/lib/risk/queries";
 import { alertFilters } from "@/lib/risk/schemas";
 
-export const metadata: Metadata = { title: "Alerts" };
+export const metadata: Metadata = { title: "Risk alerts" };
 
 const STATUS_OPTIONS = {
   live: "Open or acknowledged",
@@ -21,7 +22,7 @@ const STATUS_OPTIONS = {
   all: "All",
 } as const;
 
-export default async function AlertsPage({
+export default async function RiskAlertsPage({
   searchParams,
 }: {
   searchParams: Promise<Record<string, string | string[] | undefined>>;
@@ -49,7 +50,7 @@ export default async function AlertsPage({
 
   return (
     <>
-      <h1 className="text-3xl font-bold">Alerts</h1>
+      <h1 className="text-3xl font-bold">Risk alerts</h1>
       <p className="mt-1 mb-4 text-muted">
         {actor.role === "manager"
           ? `Risks Sward has raised across ${actor.companyName}'s book`
@@ -59,7 +60,7 @@ export default async function AlertsPage({
       <form
         method="get"
         className="mb-4 grid grid-cols-2 gap-3 rounded-xl border border-line bg-card p-3 sm:p-4 lg:grid-cols-3"
-        aria-label="Filter alerts"
+        aria-label="Filter risk alerts"
       >
         <FilterSelect
           name="kind"
@@ -104,25 +105,25 @@ export default async function AlertsPage({
             Show
           </button>
           {isFiltered ? (
-            <Link href="/alerts" className={buttonClass("quiet", "no-underline")}>
+            <Link href={RISK_ALERTS_PATH} className={buttonClass("quiet", "no-underline")}>
               Clear
             </Link>
           ) : null}
         </div>
       </form>
       <p className="mb-3 font-semibold" role="status">
-        {alerts.length} {alerts.length === 1 ? "alert" : "alerts"}: {counts.high} high,{" "}
+        {alerts.length} {alerts.length === 1 ? "risk alert" : "risk alerts"}: {counts.high} high,{" "}
         {counts.moderate} moderate, {counts.low} low.
       </p>
-      <AlertList
+      <RiskAlertList
         alerts={alerts}
         canResolve={actor.role === "manager"}
         timeZone={actor.companyTimeZone}
         showProperty
         empty={
           isFiltered
-            ? "No alert matches these filters."
-            : "No open alerts. Sward checks again every morning."
+            ? "No risk alert matches these filters."
+            : "No open risk alerts. Sward checks again every morning."
         }
       />
     </>

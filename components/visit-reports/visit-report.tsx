@@ -25,7 +25,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
         </p>
         {report.propertyIndex !== null ? (
           <p className="text-lg">
-            Lawn health score at this visit:{" "}
+            Sward Index of your lawn at this visit:{" "}
             <strong className="text-2xl text-sward">{Math.round(report.propertyIndex)}</strong> out
             of 100.
           </p>

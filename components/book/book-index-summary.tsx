@@ -2,16 +2,16 @@
 // declining, and the share of zones whose Index moves with the nitrogen they get.
 import Link from "next/link";
 
+import { ChartFigure, Td, Th } from "@/components/charts/chart-figure";
 import { DistributionChart } from "@/components/charts/distribution-chart";
+import { BOOK_PATH } from "@/lib/paths";
 import type { BookScoring } from "@/lib/scoring/dto";
 import { MIN_CHECKS_FOR_CORRELATION, RESPONDS_TO_N_R } from "@/lib/scoring/history";
-
-import { ChartFigure, Td, Th } from "./chart-figure";
 
 /** Named one by one up to this many; beyond it, the first few and a link to the filtered book. */
 const NAMED_DECLINING = 8;
 
-export function BookSummary({ book }: { book: BookScoring }) {
+export function BookIndexSummary({ book }: { book: BookScoring }) {
   const declining = book.declining;
   const share = book.zonesWithEnoughChecks
     ? Math.round((100 * book.zonesRespondingToN) / book.zonesWithEnoughChecks)
@@ -43,7 +43,7 @@ export function BookSummary({ book }: { book: BookScoring }) {
                     .map((p) => p.name)
                     .join(", ")}
                   …{" "}
-                  <Link href="/properties?trend=declining" className="font-semibold text-sward">
+                  <Link href={`${BOOK_PATH}?trend=declining`} className="font-semibold text-sward">
                     See all {declining.length} in the book
                   </Link>
                   .

@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { sendJson } from "@/lib/query-client";
 
-export function AlertActions({
+export function RiskAlertActions({
   alertId,
   status,
   canResolve,

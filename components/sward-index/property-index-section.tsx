@@ -2,6 +2,7 @@
 // latest Index with its trend and how it moved with nitrogen (staff property page).
 import Link from "next/link";
 
+import { ChartFigure, Td, Th } from "@/components/charts/chart-figure";
 import { IndexChart } from "@/components/charts/index-chart";
 import { WeatherStrip } from "@/components/charts/weather-strip";
 import { formatDate } from "@/lib/dates";
@@ -9,7 +10,6 @@ import type { PropertyScoreHistory } from "@/lib/scoring/dto";
 import { MIN_CHECKS_FOR_CORRELATION } from "@/lib/scoring/history";
 import { coefficient, patternPhrase, seasonSentence, trendSentence } from "@/lib/scoring/words";
 
-import { ChartFigure, Td, Th } from "./chart-figure";
 import { TrendBadge } from "./trend-badge";
 
 const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);

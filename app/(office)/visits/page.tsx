@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 
-import { TeamActivity } from "@/components/book/team-activity";
 import { buttonClass } from "@/components/ui/button";
 import { ScheduleVisitForm } from "@/components/visits/schedule-visit-form";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
+import { TeamActivity } from "@/components/visits/team-activity";
 import { requireActor } from "@/lib/auth/require";
 import { getTeamActivity } from "@/lib/book/queries";
 import { addDays, formatDate, isIsoDate, todayIn } from "@/lib/dates";

@@ -1,9 +1,8 @@
 // The homeowner's view of the Index: one number, the direction in plain words, a simple chart.
+import { ChartFigure, Td, Th } from "@/components/charts/chart-figure";
 import { SimpleTrendChart } from "@/components/charts/simple-trend-chart";
 import { formatDate } from "@/lib/dates";
 import type { PropertyScoreHistory } from "@/lib/scoring/dto";
-
-import { ChartFigure, Td, Th } from "./chart-figure";
 
 const SAYING = {
   improving: "Your lawn is getting healthier.",
@@ -11,12 +10,12 @@ const SAYING = {
   declining: "Your lawn has slipped lately. Your technician records what they find at each visit.",
 } as const;
 
-export function LawnScore({ history }: { history: PropertyScoreHistory }) {
+export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
   const latest = history.visits.at(-1);
   if (!latest)
     return (
       <p className="mb-6 rounded-lg border border-line bg-card p-4">
-        Your lawn&apos;s health score appears after the first visit.
+        Your lawn&apos;s Sward Index appears after the first visit.
       </p>
     );
   const word = history.trend?.word ?? null;
@@ -24,9 +23,9 @@ export function LawnScore({ history }: { history: PropertyScoreHistory }) {
   return (
     <div className="mb-6">
       <ChartFigure
-        id={`lawn-score-${history.propertyId}`}
-        title="Lawn health score"
-        tableCaption="Lawn health score per visit"
+        id={`lawn-index-${history.propertyId}`}
+        title="Sward Index"
+        tableCaption="Sward Index of your lawn per visit"
         summary={
           <>
             <p>
@@ -42,14 +41,15 @@ export function LawnScore({ history }: { history: PropertyScoreHistory }) {
                 : ""}
             </p>
             <p className="text-sm text-muted">
-              The score sums up what your technician rated: colour, thickness, evenness, bare
-              patches, weeds and any disease or insect damage.
+              The Sward Index is your lawn&apos;s health from 0 to 100. It sums up what your
+              technician rated: color, thickness, evenness, bare patches, weeds and any disease or
+              insect damage.
             </p>
           </>
         }
         chart={
           <SimpleTrendChart
-            label="Lawn health score at each visit"
+            label="Sward Index of your lawn at each visit"
             from={history.from}
             to={history.today}
             points={history.visits}
@@ -60,7 +60,7 @@ export function LawnScore({ history }: { history: PropertyScoreHistory }) {
             <thead>
               <tr>
                 <Th>Visit</Th>
-                <Th>Score</Th>
+                <Th>Sward Index</Th>
               </tr>
             </thead>
             <tbody>
