@@ -237,7 +237,7 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     expect(report.text).toMatch(/Change the mowing direction every few mowings/);
     expect(report.text).toMatch(/Front lawn: https?:\/\/\S+\/api\/v1\/photos\//); // photos as links
     expect(report.html).toContain("Read your visit report");
-    const reportUrl = linkIn(report.text, /https?:\/\/\S+\/my-lawn\/visits\/[0-9a-f-]+/);
+    const reportUrl = linkIn(report.text, /https?:\/\/\S+\/my-lawn\/reports\/[0-9a-f-]+/);
     reportPath = new URL(reportUrl).pathname;
 
     const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
