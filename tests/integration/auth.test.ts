@@ -4,6 +4,8 @@
 import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
 
+import { seedCompany } from "@/db/seed-scenario";
+import { demoCompany } from "@/fixtures/demo/scenario";
 import { checkCredentials } from "@/lib/auth/credentials";
 import { createAuthSession, deleteAuthSession } from "@/lib/auth/mutations";
 import { findActorBySession } from "@/lib/auth/queries";
@@ -233,5 +235,27 @@ describe("sessions and the actor", () => {
     expect(t).toBeGreaterThanOrEqual(2);
     expect(p).toBeGreaterThanOrEqual(1);
     console.log(`passwords: argon2id m=${m} KiB, t=${t}, p=${p} (OWASP minimum m=19456, t=2, p=1)`);
+  });
+});
+
+describe("setting a password", () => {
+  it("the seed refuses a password under 15 characters (NIST SP 800-63B-4 §3.1.1.2) and writes nothing", async () => {
+    const slug = `t-short-${address}-${Date.now()}`;
+    const scenario = {
+      ...demoCompany,
+      slug,
+      people: demoCompany.people.map((p) => ({ ...p, email: `${p.key}.${slug}@test.sward.test` })),
+    };
+    await expect(seedCompany(testDb(), scenario, "fourteen-chars")).rejects.toMatchObject({
+      code: "invalid_input",
+      message:
+        "Choose a password of at least 15 characters. A few unrelated words make a good one.",
+    });
+    const written = await testDb()
+      .selectFrom("companies")
+      .select("id")
+      .where("slug", "=", slug)
+      .execute();
+    expect(written).toEqual([]);
   });
 });
