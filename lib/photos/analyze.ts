@@ -1,21 +1,12 @@
 // Measured turf condition from a photo's pixels: percent green cover and the mean Dark Green
 // Color Index of the green pixels (lib/photos/color.ts has the formulas and their sources).
-// Analysis runs on a copy downscaled to ANALYSIS_LONG_SIDE px: cover and mean colour are
-// proportions, which survive downscaling, and the work drops by the square of the factor.
-import sharp from "sharp";
-
+// processPhoto (process.ts) runs it on a copy downscaled to ANALYSIS_LONG_SIDE px: cover and mean
+// colour are proportions, which survive downscaling, and the work drops by the square of the factor.
 import { dgciOf, isGreen, rgbToHsb } from "./color";
 
 export const ANALYSIS_LONG_SIDE = 512;
 /** Pixel-level DGCI is clamped to 0–1: hues of 57–60° (inside the green window) give values just below 0. */
 const clamp01 = (x: number) => Math.min(1, Math.max(0, x));
-
-export interface TurfAnalysis {
-  greenCoverPct: number;
-  dgci: number | null;
-  width: number;
-  height: number;
-}
 
 /** Counts green pixels and averages their DGCI over raw RGB(A) bytes. */
 export function analyzePixels(
@@ -35,29 +26,5 @@ export function analyzePixels(
   return {
     greenCoverPct: total === 0 ? 0 : (100 * green) / total,
     dgci: green === 0 ? null : sum / green,
-  };
-}
-
-export async function analyzeTurfPhoto(
-  input: Buffer,
-  options: { longSide?: number | null } = {},
-): Promise<TurfAnalysis> {
-  const image = sharp(input, { failOn: "truncated", limitInputPixels: 100_000_000 });
-  const meta = await image.metadata(); // throws on input that is not an image
-  const size = meta.autoOrient ?? { width: meta.width, height: meta.height };
-  const longSide = options.longSide === undefined ? ANALYSIS_LONG_SIDE : options.longSide;
-  let pipeline = image.rotate();
-  if (longSide)
-    pipeline = pipeline.resize({
-      width: longSide,
-      height: longSide,
-      fit: "inside",
-      withoutEnlargement: true,
-    });
-  const { data, info } = await pipeline.removeAlpha().raw().toBuffer({ resolveWithObject: true });
-  return {
-    ...analyzePixels(data, info.channels),
-    width: size.width ?? info.width,
-    height: size.height ?? info.height,
   };
 }

@@ -1,21 +1,25 @@
 // Photo uploads through the route handler against the real database and the local-disk store:
 // the attack set is refused with a clear 4xx and stores nothing; derivatives carry no EXIF; the
-// same photo is stored once; photo URLs are 404 outside the actor's scope.
+// same photo is stored once; photo URLs are 404 outside the actor's scope; green cover and DGCI
+// are measured on the upload (DGCI: Karcher & Richardson 2003, Crop Science 43:943–951, on HSB
+// from colorjs.io; cover: the generated image's known green fraction).
 import { readdirSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
+import Color from "colorjs.io";
 import exifr from "exifr";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
 import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
+import { dgciOf } from "@/lib/photos/color";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { PHOTO_LIMITS } from "@/lib/photos/process";
 import { finishVisit, saveZoneCheck } from "@/lib/visits/mutations";
 import { emptyZoneCheck } from "@/lib/visits/schemas";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
-import { jpegWithGps, lawnImage, pixelFloodPng } from "../helpers/images";
+import { jpegWithGps, lawnImage, pixelFloodPng, stripedImage } from "../helpers/images";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
 let current: Actor | null = null;
@@ -235,6 +239,27 @@ describe("accepted photos", () => {
       (await testDb().selectFrom("photos").select("id").where("visit_id", "=", visitId).execute())
         .length,
     ).toBe(2);
+  });
+
+  it("measures green cover and DGCI on upload: a PNG 40 % turf green, 60 % soil stores 40 ± 1.5 % and that green's DGCI", async () => {
+    const turf: [number, number, number] = [58, 122, 44];
+    const res = await post(await stripedImage(1000, 750, 0.4, turf, [121, 85, 58]), 0, "image/png");
+    expect(res.status).toBe(201);
+    const dto = (await res.json()) as PhotoDto;
+    const [h, sat, v] = new Color("srgb", turf.map((x) => x / 255) as [number, number, number]).to(
+      "hsv",
+    ).coords as [number, number, number];
+    const expectedDgci = dgciOf(h, sat / 100, v / 100);
+    const row = await testDb()
+      .selectFrom("photos")
+      .select(["green_cover_pct", "dgci", "original_format"])
+      .where("id", "=", dto.id)
+      .executeTakeFirstOrThrow();
+    for (const measured of [dto, { greenCoverPct: row.green_cover_pct, dgci: row.dgci }]) {
+      expect(Math.abs(measured.greenCoverPct - 40)).toBeLessThanOrEqual(1.5);
+      expect(measured.dgci).toBeCloseTo(expectedDgci, 2);
+    }
+    expect(row.original_format).toBe("png");
   });
 
   it("derivatives have the promised sizes and are served as WebP with the right headers", async () => {

@@ -1,4 +1,5 @@
-// Green cover and DGCI against their published definitions:
+// Green cover and DGCI against their published definitions, measured through processPhoto — the
+// function every upload runs (the upload route handler and the demo seed call it):
 // - DGCI formula: Karcher & Richardson (2003), Crop Science 43:943–951, anchor points (60°,1,1) → 0
 //   and (120°,0,0) → 1; uniform colours checked against HSB from an independent library (colorjs.io).
 // - Green cover: Richardson, Karcher & Purcell (2001), Crop Science 41:1884–1888 (hue window from
@@ -6,10 +7,12 @@
 //   green fraction.
 import Color from "colorjs.io";
 import fc from "fast-check";
+import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 
-import { analyzeTurfPhoto } from "@/lib/photos/analyze";
+import { analyzePixels } from "@/lib/photos/analyze";
 import { dgciOf, GREEN_WINDOW, rgbToHsb } from "@/lib/photos/color";
+import { processPhoto } from "@/lib/photos/process";
 
 import { lawnImage, stripedImage, uniformImage } from "../helpers/images";
 
@@ -40,24 +43,38 @@ describe("DGCI formula", () => {
   });
 });
 
-describe("analyzeTurfPhoto", () => {
+describe("processPhoto: green cover and DGCI of an uploaded photo", () => {
   const TURF: [number, number, number] = [58, 122, 44]; // a mid turf green
   const SOIL: [number, number, number] = [121, 85, 58]; // dry soil brown
 
   it.each([0, 0.25, 0.5, 1])(
     "an image %s green measures that cover within ±1.5 points",
     async (fraction) => {
-      const result = await analyzeTurfPhoto(await stripedImage(1200, 800, fraction, TURF, SOIL));
+      const result = await processPhoto(await stripedImage(1200, 800, fraction, TURF, SOIL));
       expect(Math.abs(result.greenCoverPct - fraction * 100)).toBeLessThanOrEqual(1.5);
-      expect(result).toMatchObject({ width: 1200, height: 800 });
+      expect(result).toMatchObject({ width: 1200, height: 800, format: "png" });
       if (fraction === 0) expect(result.dgci).toBeNull();
     },
   );
 
   it("a mottled lawn photo (JPEG) with 30 % soil patches measures about 70 % cover", async () => {
-    const result = await analyzeTurfPhoto(await lawnImage(1600, 1200, 0.3));
+    const result = await processPhoto(await lawnImage(1600, 1200, 0.3));
+    expect(result.format).toBe("jpeg");
     expect(result.greenCoverPct).toBeGreaterThan(62);
     expect(result.greenCoverPct).toBeLessThan(78);
+  });
+
+  it("measuring on the downscaled copy agrees with every pixel of the photo within 2 points", async () => {
+    const jpeg = await lawnImage(2400, 1800, 0.35);
+    const full = await sharp(jpeg).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    const everyPixel = analyzePixels(full.data, full.info.channels);
+    const result = await processPhoto(jpeg);
+    const gap = Math.abs(result.greenCoverPct - everyPixel.greenCoverPct);
+    console.log(
+      `photos: cover ${result.greenCoverPct.toFixed(1)} % at 512 px vs ${everyPixel.greenCoverPct.toFixed(1)} % on every pixel (${gap.toFixed(2)} points)`,
+    );
+    expect(gap).toBeLessThan(2);
+    expect(result.dgci).toBeCloseTo(everyPixel.dgci!, 2);
   });
 
   it.each<[string, [number, number, number]]>([
@@ -68,7 +85,7 @@ describe("analyzeTurfPhoto", () => {
   ])("DGCI of uniform %s equals the formula on colorjs.io's HSB", async (_name, rgb) => {
     const ref = referenceHsb(rgb);
     const expected = dgciOf(ref.h, ref.s, ref.v);
-    const { dgci, greenCoverPct } = await analyzeTurfPhoto(await uniformImage(rgb));
+    const { dgci, greenCoverPct } = await processPhoto(await uniformImage(rgb));
     expect(greenCoverPct).toBe(100);
     expect(dgci).toBeCloseTo(expected, 6);
   });
@@ -91,20 +108,26 @@ describe("analyzeTurfPhoto", () => {
         hsb.s >= GREEN_WINDOW.minSaturation &&
         hsb.v >= GREEN_WINDOW.minBrightness;
       expect(inWindow).toBe(false);
-      expect((await analyzeTurfPhoto(await uniformImage(rgb))).greenCoverPct).toBe(0);
+      const result = await processPhoto(await uniformImage(rgb));
+      expect(result.greenCoverPct).toBe(0);
+      expect(result.dgci).toBeNull();
     }
   });
 
   it("reports the size after orientation (EXIF orientation 6 = rotated 90°)", async () => {
-    const { default: sharp } = await import("sharp");
     const rotated = await sharp(await stripedImage(400, 300, 0.5, TURF, SOIL, "jpeg"))
       .withMetadata({ orientation: 6 })
       .jpeg()
       .toBuffer();
-    expect(await analyzeTurfPhoto(rotated)).toMatchObject({ width: 300, height: 400 });
+    const result = await processPhoto(rotated);
+    expect(result).toMatchObject({ width: 300, height: 400 });
+    expect(result.display).toMatchObject({ width: 300, height: 400 });
   });
 
-  it("throws on input that is not an image", async () => {
-    await expect(analyzeTurfPhoto(Buffer.from("certainly not a picture"))).rejects.toThrow();
+  it("refuses input that is not an image, in words", async () => {
+    await expect(processPhoto(Buffer.from("certainly not a picture"))).rejects.toMatchObject({
+      code: "unsupported_media",
+      message: "This file is not a photo Sward can read. Use a JPEG, PNG or WebP image.",
+    });
   });
 });
