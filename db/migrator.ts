@@ -14,10 +14,7 @@ import {
   type MigrationResult,
 } from "kysely";
 
-export const MIGRATIONS_FOLDER = path.join(
-  path.dirname(fileURLToPath(import.meta.url)),
-  "migrations",
-);
+const MIGRATIONS_FOLDER = path.join(path.dirname(fileURLToPath(import.meta.url)), "migrations");
 
 export const DIRECTIONS = ["latest", "up", "down", "reset"] as const;
 export type Direction = (typeof DIRECTIONS)[number];

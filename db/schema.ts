@@ -1,13 +1,6 @@
 // The one typed view of Sward's database. Table interfaces describe columns; query results use
-// the Selectable/Insertable/Updateable aliases below. Nullable columns are `T | null`, never optional.
-import type {
-  ColumnType,
-  Generated,
-  GeneratedAlways,
-  Insertable,
-  Selectable,
-  Updateable,
-} from "kysely";
+// the Selectable/Insertable aliases below (add one when a module needs it). Nullable columns are `T | null`, never optional.
+import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable } from "kysely";
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type NullableTimestamp = ColumnType<
@@ -17,7 +10,7 @@ type NullableTimestamp = ColumnType<
 >;
 
 export type Role = "manager" | "technician" | "homeowner";
-export type UnitSystem = "imperial" | "metric";
+type UnitSystem = "imperial" | "metric";
 export type SunExposure = "full_sun" | "part_shade" | "shade";
 export type Slope = "flat" | "moderate" | "steep";
 export type PlannedService =
@@ -41,7 +34,7 @@ export interface ObservedSymptom {
   extentPct: number;
 }
 
-export interface CompaniesTable {
+interface CompaniesTable {
   id: Generated<string>;
   name: string;
   slug: string;
@@ -50,9 +43,9 @@ export interface CompaniesTable {
   created_at: Generated<Date>;
 }
 
-export type PhosphorusRule = "allowed" | "soil_test_or_establishment";
+type PhosphorusRule = "allowed" | "soil_test_or_establishment";
 
-export interface RuleSetsTable {
+interface RuleSetsTable {
   id: Generated<string>;
   company_id: string;
   name: string;
@@ -76,7 +69,7 @@ export interface RuleSetsTable {
 
 export type ProductFormValue = "granular" | "liquid" | "soluble";
 
-export interface ProductsTable {
+interface ProductsTable {
   id: Generated<string>;
   company_id: string;
   name: string;
@@ -94,7 +87,7 @@ export interface ProductsTable {
   created_at: Generated<Date>;
 }
 
-export interface ApplicationsTable {
+interface ApplicationsTable {
   id: string;
   company_id: string;
   visit_id: string;
@@ -131,7 +124,7 @@ export interface ApplicationsTable {
   created_at: Generated<Date>;
 }
 
-export interface UsersTable {
+interface UsersTable {
   id: Generated<string>;
   email: string;
   name: string;
@@ -142,7 +135,7 @@ export interface UsersTable {
   created_at: Generated<Date>;
 }
 
-export interface MembershipsTable {
+interface MembershipsTable {
   id: Generated<string>;
   company_id: string;
   user_id: string;
@@ -151,7 +144,7 @@ export interface MembershipsTable {
 }
 
 /** OAuth/e-mail provider accounts, as Auth.js models them. */
-export interface AuthAccountsTable {
+interface AuthAccountsTable {
   id: Generated<string>;
   user_id: string;
   type: string;
@@ -167,7 +160,7 @@ export interface AuthAccountsTable {
 }
 
 /** One row per signed-in browser; the JWT carries its id, sign-out deletes it. */
-export interface AuthSessionsTable {
+interface AuthSessionsTable {
   id: string;
   user_id: string;
   expires_at: Timestamp;
@@ -176,13 +169,13 @@ export interface AuthSessionsTable {
 }
 
 /** E-mail sign-in tokens (stored hashed), single use. */
-export interface VerificationTokensTable {
+interface VerificationTokensTable {
   identifier: string;
   token: string;
   expires: Timestamp;
 }
 
-export interface SignInAttemptsTable {
+interface SignInAttemptsTable {
   id: Generated<string>;
   email_key: string;
   address: string;
@@ -190,14 +183,14 @@ export interface SignInAttemptsTable {
   attempted_at: Generated<Date>;
 }
 
-export interface SignInLinkRequestsTable {
+interface SignInLinkRequestsTable {
   id: Generated<string>;
   email_key: string;
   address: string;
   requested_at: Generated<Date>;
 }
 
-export interface PropertiesTable {
+interface PropertiesTable {
   id: Generated<string>;
   company_id: string;
   name: string;
@@ -219,13 +212,13 @@ export interface PropertiesTable {
   search_text: GeneratedAlways<string>;
 }
 
-export interface PropertyHomeownersTable {
+interface PropertyHomeownersTable {
   property_id: string;
   user_id: string;
   company_id: string;
 }
 
-export interface ZonesTable {
+interface ZonesTable {
   id: Generated<string>;
   company_id: string;
   property_id: string;
@@ -241,7 +234,7 @@ export interface ZonesTable {
   updated_at: Generated<Date>;
 }
 
-export interface VisitsTable {
+interface VisitsTable {
   id: string;
   company_id: string;
   property_id: string;
@@ -266,7 +259,7 @@ export interface VisitsTable {
   weather: ColumnType<Record<string, unknown> | null, string | null | undefined, string | null>;
 }
 
-export interface ZoneChecksTable {
+interface ZoneChecksTable {
   id: string;
   company_id: string;
   visit_id: string;
@@ -310,7 +303,7 @@ export interface AuditEventsTable {
   created_at: Generated<Date>;
 }
 
-export interface PhotosTable {
+interface PhotosTable {
   id: Generated<string>;
   company_id: string;
   visit_id: string;
@@ -336,7 +329,7 @@ export interface PhotosTable {
   created_at: Generated<Date>;
 }
 
-export interface WateringsTable {
+interface WateringsTable {
   id: string;
   company_id: string;
   property_id: string;
@@ -351,7 +344,7 @@ export interface WateringsTable {
   created_at: Generated<Date>;
 }
 
-export interface WeatherDaysTable {
+interface WeatherDaysTable {
   cell: string;
   day: ColumnType<string, string, string>;
   tmax_c: number;
@@ -370,7 +363,7 @@ export interface WeatherDaysTable {
 
 export type AlertStatus = "open" | "acknowledged" | "resolved";
 export type AlertSeverity = "low" | "moderate" | "high";
-export type AlertEventAction =
+type AlertEventAction =
   | "raised"
   | "reopened"
   | "updated"
@@ -380,7 +373,7 @@ export type AlertEventAction =
   | "cleared"
   | "returned";
 
-export interface RiskAlertsTable {
+interface RiskAlertsTable {
   id: Generated<string>;
   company_id: string;
   property_id: string;
@@ -406,7 +399,7 @@ export interface RiskAlertsTable {
   updated_at: Generated<Date>;
 }
 
-export interface RiskAlertEventsTable {
+interface RiskAlertEventsTable {
   id: Generated<string>;
   alert_id: string;
   company_id: string;
@@ -446,7 +439,7 @@ export interface PropertySummariesTable {
   updated_at: ColumnType<Date, Date | undefined, Date>;
 }
 
-export interface MailOutboxTable {
+interface MailOutboxTable {
   id: Generated<string>;
   company_id: string;
   kind: string;
@@ -489,39 +482,12 @@ export interface Database {
   mail_outbox: MailOutboxTable;
 }
 
-export type Company = Selectable<CompaniesTable>;
-export type NewCompany = Insertable<CompaniesTable>;
-export type CompanyUpdate = Updateable<CompaniesTable>;
-export type User = Selectable<UsersTable>;
-export type NewUser = Insertable<UsersTable>;
-export type UserUpdate = Updateable<UsersTable>;
-export type Membership = Selectable<MembershipsTable>;
-export type NewMembership = Insertable<MembershipsTable>;
-export type AuthSession = Selectable<AuthSessionsTable>;
-export type NewAuthSession = Insertable<AuthSessionsTable>;
-export type VerificationToken = Selectable<VerificationTokensTable>;
-export type SignInAttempt = Selectable<SignInAttemptsTable>;
 export type Property = Selectable<PropertiesTable>;
-export type NewProperty = Insertable<PropertiesTable>;
-export type PropertyUpdate = Updateable<PropertiesTable>;
-export type NewPropertyHomeowner = Insertable<PropertyHomeownersTable>;
 export type Zone = Selectable<ZonesTable>;
-export type NewZone = Insertable<ZonesTable>;
-export type ZoneUpdate = Updateable<ZonesTable>;
 export type RuleSet = Selectable<RuleSetsTable>;
 export type Visit = Selectable<VisitsTable>;
-export type NewVisit = Insertable<VisitsTable>;
-export type VisitUpdate = Updateable<VisitsTable>;
 export type ZoneCheck = Selectable<ZoneChecksTable>;
 export type NewZoneCheck = Insertable<ZoneChecksTable>;
-export type ZoneCheckUpdate = Updateable<ZoneChecksTable>;
-export type AuditEvent = Selectable<AuditEventsTable>;
 export type Photo = Selectable<PhotosTable>;
-export type NewPhoto = Insertable<PhotosTable>;
 export type Product = Selectable<ProductsTable>;
-export type NewProduct = Insertable<ProductsTable>;
-export type Application = Selectable<ApplicationsTable>;
-export type Watering = Selectable<WateringsTable>;
 export type WeatherDay = Selectable<WeatherDaysTable>;
-export type RiskAlert = Selectable<RiskAlertsTable>;
-export type NewRiskAlert = Insertable<RiskAlertsTable>;

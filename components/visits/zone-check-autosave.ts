@@ -36,9 +36,9 @@ export interface AutosaveDeps {
 }
 
 export const DEBOUNCE_MS = 700;
-export const RETRY_SECONDS = [2, 5, 10, 30, 60] as const;
+const RETRY_SECONDS = [2, 5, 10, 30, 60] as const;
 
-export function valuesFrom(check: ZoneCheckDto): ZoneCheckValues {
+function valuesFrom(check: ZoneCheckDto): ZoneCheckValues {
   const {
     id: _id,
     visitId: _v,

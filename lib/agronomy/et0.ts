@@ -25,7 +25,7 @@ export const saturationVapourPressure = (tC: number) =>
   0.6108 * Math.exp((17.27 * tC) / (tC + 237.3));
 
 /** Slope of the saturation vapour pressure curve Δ at T, kPa °C⁻¹ (eq. 13). */
-export const vapourPressureSlope = (tC: number) =>
+const vapourPressureSlope = (tC: number) =>
   (4098 * saturationVapourPressure(tC)) / (tC + 237.3) ** 2;
 
 /** Wind speed at 2 m from a measurement at height z (eq. 47). */

@@ -3,9 +3,3 @@
 export function growingDegreeDays(tmax: number, tmin: number, base: number): number {
   return Math.max(0, (tmax + tmin) / 2 - base);
 }
-
-/** Running total from the first day given (e.g. 1 January): one value per day. */
-export function accumulateGdd(days: { tmax: number; tmin: number }[], base: number): number[] {
-  let total = 0;
-  return days.map((d) => (total += growingDegreeDays(d.tmax, d.tmin, base)));
-}

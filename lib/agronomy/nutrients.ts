@@ -11,7 +11,7 @@ import {
   US_GAL_IN_L,
 } from "./units";
 
-export type ProductForm = "granular" | "liquid" | "soluble";
+type ProductForm = "granular" | "liquid" | "soluble";
 export type RateUnit =
   | "lb/1000ft2"
   | "oz/1000ft2"
@@ -36,7 +36,7 @@ export interface Rate {
   unit: RateUnit;
 }
 
-export const VOLUME_UNITS: readonly RateUnit[] = ["floz/1000ft2", "gal/1000ft2", "L/ha"];
+const VOLUME_UNITS: readonly RateUnit[] = ["floz/1000ft2", "gal/1000ft2", "L/ha"];
 export const isVolumeUnit = (unit: RateUnit) => VOLUME_UNITS.includes(unit);
 
 export class NutrientInputError extends Error {
@@ -65,7 +65,7 @@ function checkProduct(p: ProductAnalysis): void {
 }
 
 /** Pounds of product per 1,000 ft² for a rate in any supported unit. */
-export function productLbPer1000(product: ProductAnalysis, rate: Rate): number {
+function productLbPer1000(product: ProductAnalysis, rate: Rate): number {
   if (!Number.isFinite(rate.amount) || rate.amount < 0)
     throw new NutrientInputError("The rate cannot be negative.");
   const needsDensity = isVolumeUnit(rate.unit);

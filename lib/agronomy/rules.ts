@@ -29,8 +29,7 @@ export interface ApplicationFacts {
   annualNRange: { min: number; max: number } | null;
 }
 
-export type FindingKey =
-  "max_n" | "max_wsn" | "min_slow_release" | "blackout" | "phosphorus" | "annual_n";
+type FindingKey = "max_n" | "max_wsn" | "min_slow_release" | "blackout" | "phosphorus" | "annual_n";
 
 export interface RuleFinding {
   key: FindingKey;

@@ -1,11 +1,11 @@
 // Unit definitions used by the nutrient and water maths (exact where a definition exists).
-export const LB_IN_KG = 0.45359237; // international pound
-export const FT2_IN_M2 = 0.09290304; // (0.3048 m)²
+const LB_IN_KG = 0.45359237; // international pound
+const FT2_IN_M2 = 0.09290304; // (0.3048 m)²
 export const US_GAL_IN_L = 3.785411784;
 export const FL_OZ_PER_GAL = 128;
 export const OZ_PER_LB = 16;
-export const FT2_PER_ACRE = 43_560;
-export const M2_PER_HA = 10_000;
+const FT2_PER_ACRE = 43_560;
+const M2_PER_HA = 10_000;
 export const IN_IN_MM = 25.4;
 
 /** 1 lb per 1,000 ft² expressed in kg/ha (≈ 48.824). */

@@ -32,7 +32,6 @@ export function zoneWateringByDate(
 }
 
 export const mmToIn = (mm: number) => mm / IN_IN_MM;
-export const inToMm = (inches: number) => inches * IN_IN_MM;
 
 /** Turf water use, same unit as ETo: Kc × ETo. */
 export const turfWaterUse = (et0: number, kc: number) => kc * et0;

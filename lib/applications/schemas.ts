@@ -3,8 +3,6 @@ import { z } from "zod";
 
 import { RATE_UNITS } from "./units";
 
-export { RATE_UNITS, RATE_UNIT_LABEL } from "./units";
-
 export const applicationSchema = z
   .object({
     id: z.uuid("An application needs its id."),

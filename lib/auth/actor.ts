@@ -16,8 +16,6 @@ export interface Actor {
 
 export const ROLES = ["manager", "technician", "homeowner"] as const satisfies readonly Role[];
 
-export const isStaff = (actor: Actor) => actor.role === "manager" || actor.role === "technician";
-
 /** Where each role lands after signing in. */
 export function landingPath(role: Role): string {
   return { manager: BOOK_PATH, technician: "/today", homeowner: "/my-lawn" }[role];

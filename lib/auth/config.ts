@@ -20,7 +20,7 @@ import {
   signInLinkAdapter,
 } from "./sign-in-link";
 
-export const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
+const SESSION_MAX_AGE_SECONDS = 14 * 24 * 60 * 60;
 
 class InvalidCredentials extends CredentialsSignin {
   code = "invalid";
@@ -36,7 +36,7 @@ export function clientAddress(headers: Headers): string {
   return hops.at(-1)?.trim() || "unknown";
 }
 
-export const { handlers, auth, signIn, signOut } = NextAuth({
+export const { handlers, signIn, signOut } = NextAuth({
   trustHost: true,
   // A refused sign-in is routine: one line at info level, no stack. Real failures go to error.
   logger: {

@@ -47,7 +47,7 @@ function authorise<A extends Access>(actor: Actor | null, access: A): ActorFor<A
 }
 
 /** Refuses cross-site mutations: the Origin (or Fetch Metadata) must name this site. */
-export function assertSameOrigin(request: Request): void {
+function assertSameOrigin(request: Request): void {
   if (MUTATING.has(request.method) && !isSameSiteWrite(request.headers))
     throw new AppError("forbidden", "Cross-site requests are refused.");
 }

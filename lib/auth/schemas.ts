@@ -22,8 +22,6 @@ export const signInLinkSchema = z.object({
   redirectTo: z.string().max(500).optional(),
 });
 
-export type SignInInput = z.infer<typeof signInSchema>;
-
 export const SIGN_IN_MESSAGES = {
   invalid: "That e-mail and password do not match an account. Check both and try again.",
   throttled: "Too many sign-in attempts. Wait 15 minutes, then try again.",

@@ -20,9 +20,9 @@ import {
   zoneCorrelations,
 } from "@/lib/scoring/history";
 
-export const OVERDUE_AFTER_DAYS = 35;
-export const LOW_INDEX = 60;
-export const ATTENTION = {
+const OVERDUE_AFTER_DAYS = 35;
+const LOW_INDEX = 60;
+const ATTENTION = {
   declining: 100,
   high: 30,
   overdue: 20,

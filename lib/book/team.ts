@@ -2,7 +2,7 @@
 // checks per visit, photos per check.
 import { addDays, daysBetween } from "@/lib/dates";
 
-export interface TechnicianWeek {
+interface TechnicianWeek {
   weekStart: string; // Monday
   visits: number;
 }

@@ -1,7 +1,7 @@
 // Same-site checks shared by the route guard (lib/auth/guard.ts) and the proxy (proxy.ts).
 
 /** The host an Origin header names, or null for none, "null" (sandboxed or privacy-sensitive contexts) and anything unparsable. */
-export function originHost(origin: string | null): string | null {
+function originHost(origin: string | null): string | null {
   if (!origin) return null;
   try {
     return new URL(origin).host || null;

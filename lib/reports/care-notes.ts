@@ -6,9 +6,9 @@
 import { CARE_NOTES, type CareNote, type CareTrigger } from "@/lib/reference/care-notes";
 import { alertKindLabel } from "@/lib/risk/labels";
 
-export const HOME_LAWN_MIN_CUT_IN = 2.5;
-export const THICK_THATCH_IN = 0.5;
-export const NOTABLE_PCT = 10;
+const HOME_LAWN_MIN_CUT_IN = 2.5;
+const THICK_THATCH_IN = 0.5;
+const NOTABLE_PCT = 10;
 
 export interface ObservedZone {
   zoneName: string;

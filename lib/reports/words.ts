@@ -2,7 +2,7 @@
 import type { ZoneCheckValues } from "@/lib/visits/dto";
 
 /** The 1–9 rating scale in words (9 ideal, 6 the lowest acceptable; NTEP guide, common practice). */
-export function ratingWord(r: number): string {
+function ratingWord(r: number): string {
   if (r >= 9) return "excellent";
   if (r === 8) return "very good";
   if (r === 7) return "good";

@@ -49,7 +49,7 @@ type Executor = Kysely<Database>;
 const CHECK_WINDOW_DAYS = 150;
 
 /** The rule results for one property on `at` (zone rules per zone, weather rules for the property). */
-export async function propertyRuleResults(
+async function propertyRuleResults(
   executor: Executor,
   companyId: string,
   propertyId: string,

@@ -21,7 +21,6 @@ export const SEVERITIES: Record<Severity, string> = {
   moderate: "Moderate",
   low: "Low",
 };
-export const SEVERITY_ORDER: Record<Severity, number> = { high: 0, moderate: 1, low: 2 };
 export const ALERT_STATUSES = {
   open: "Open",
   acknowledged: "Acknowledged",

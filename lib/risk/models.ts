@@ -1,7 +1,7 @@
 // Disease weather models (pure), each as published (REFERENCES.md §3).
 
 /** Smith et al. (2018) dollar spot model: the model's 10–35 °C range of the 5-day mean temperature. */
-export const DOLLAR_SPOT_T_RANGE_C = { min: 10, max: 35 } as const;
+const DOLLAR_SPOT_T_RANGE_C = { min: 10, max: 35 } as const;
 /** The published action threshold of the dollar spot model: 20 % probability. */
 export const DOLLAR_SPOT_THRESHOLD = 0.2;
 

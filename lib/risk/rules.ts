@@ -64,18 +64,18 @@ export interface RuleResult {
   summary: string;
 }
 
-export const WARM_HUMID = { tMean5dC: 20, rhMean5dPct: 70 } as const;
-export const DROUGHT = {
+const WARM_HUMID = { tMean5dC: 20, rhMean5dPct: 70 } as const;
+const DROUGHT = {
   balance14In: -1,
   highBalance14In: -2,
   forecastRainIn: 0.25,
   forecastDays: 3,
 } as const;
-export const HEAT_FEEDING = { tmaxF: 90, rainIn: 0.1, daysAfter: 2, lookbackDays: 7 } as const;
-export const DECLINE = { highSlopePer30Days: -6 } as const;
-export const SAME_DIRECTION_CHECKS = 3;
+const HEAT_FEEDING = { tmaxF: 90, rainIn: 0.1, daysAfter: 2, lookbackDays: 7 } as const;
+const DECLINE = { highSlopePer30Days: -6 } as const;
+const SAME_DIRECTION_CHECKS = 3;
 
-export const SOURCES = {
+const SOURCES = {
   matted:
     "Common practice; Kansas State University extension turf advice: mowing the same way every time lays the blades over and mats them, cutting air movement and favouring fungal disease in hot, humid weather. Warm-humid thresholds from the Smith et al. (2018) dollar spot model.",
   dollarSpot:

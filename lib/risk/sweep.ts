@@ -69,9 +69,9 @@ export async function sweepBook(
 }
 
 /** Properties evaluated at once by the sweep (each holds one database connection at a time). */
-export const SWEEP_CONCURRENCY = 3;
+const SWEEP_CONCURRENCY = 3;
 
-export class SweepIncomplete extends Error {
+class SweepIncomplete extends Error {
   constructor(readonly result: SweepResult) {
     super(`risk sweep: ${result.failed} of ${result.properties} properties failed`);
   }

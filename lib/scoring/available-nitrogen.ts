@@ -3,7 +3,7 @@
 // application (a simple linear-release model — common practice for coated and methylene-urea
 // products, which label a release over 6–12 weeks; a stated assumption, not a measurement).
 const DAY_MS = 86_400_000;
-export const SLOW_RELEASE_DAYS = 56;
+const SLOW_RELEASE_DAYS = 56;
 
 export function availableNitrogen(
   applications: { date: string; wsnLb: number; slowLb: number }[],

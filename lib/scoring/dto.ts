@@ -10,7 +10,7 @@ import type {
   ZoneCorrelations,
 } from "./history";
 
-export interface DailyWater {
+interface DailyWater {
   date: string;
   wateringIn: number;
 }

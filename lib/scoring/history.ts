@@ -21,7 +21,7 @@ import { availableNitrogen } from "./available-nitrogen";
 import { propertyIndex } from "./sward-index";
 import { correlate, indexTrend, trendWord, type TrendWord } from "./trend";
 
-export const TREND_WINDOW_DAYS = 120;
+const TREND_WINDOW_DAYS = 120;
 export const MIN_CHECKS_FOR_CORRELATION = 6;
 export const NITROGEN_WINDOW_DAYS = 45;
 export const RESPONDS_TO_N_R = 0.3;
@@ -76,7 +76,7 @@ export function seasonChange(points: IndexPoint[]): SeasonChange | null {
   return { from, to, change: to.index - from.index };
 }
 
-export interface CorrelationPair {
+interface CorrelationPair {
   date: string;
   index: number;
   availableNLb: number;

@@ -25,7 +25,7 @@ import {
 } from "./history";
 
 /** How far back histories reach: one year of checks (charts start at the first of them). */
-export const HISTORY_DAYS = 365;
+const HISTORY_DAYS = 365;
 
 /** Everything the Index charts of a property need: per visit, per zone, with weather. */
 export async function getPropertyScoreHistory(

@@ -2,7 +2,7 @@
 // that the demo and tests start). Without SMTP_URL, nothing is sent and callers are told so.
 import nodemailer, { type Transporter } from "nodemailer";
 
-export interface MailMessage {
+interface MailMessage {
   to: string | string[];
   subject: string;
   text: string;

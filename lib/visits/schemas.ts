@@ -11,7 +11,7 @@ export { emptyZoneCheck } from "./zone-check-rules";
 
 const isoDate = z.string().refine(isIsoDate, "Use a date like 2026-06-15.");
 
-export const plannedServiceSchema = z.enum([
+const plannedServiceSchema = z.enum([
   "feeding_round",
   "weed_control",
   "insect_control",
@@ -23,7 +23,6 @@ export const plannedServiceSchema = z.enum([
 
 export const visitIdParams = z.object({ visitId: z.uuid() });
 export const zoneCheckParams = z.object({ visitId: z.uuid(), zoneCheckId: z.uuid() });
-export const zoneIdParams = z.object({ zoneId: z.uuid() });
 
 export const listVisitsQuery = z
   .object({
@@ -66,4 +65,5 @@ export const zoneCheckSchema = zoneCheckFields.superRefine((check, ctx) => {
 });
 export type ZoneCheckInput = z.infer<typeof zoneCheckSchema>;
 
-export const finishVisitSchema = z.object({ notes: z.string().max(4000).optional() }).strict();
+/** Finishing takes no input: notes belong to the zone checks, the office note to the visit. */
+export const finishVisitSchema = z.object({}).strict();

@@ -8,7 +8,7 @@ import { mmToIn, movingMean } from "@/lib/agronomy/water";
 import type { WeatherDayInput } from "@/lib/services/weather/contract";
 
 /** Elevation when a property's is unknown; at 50 m vs sea level ETo differs by well under 1 %. */
-export const DEFAULT_ELEVATION_M = 50;
+const DEFAULT_ELEVATION_M = 50;
 
 export interface DerivedDay {
   date: string;

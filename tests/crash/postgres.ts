@@ -34,7 +34,7 @@ export function crashCluster(port: string, preferred: string): Cluster {
 }
 
 /** Runs a command with its output captured; rejects with that output when it fails. */
-export function capture(
+function capture(
   command: string,
   args: string[],
   env: Record<string, string> = {},
@@ -97,7 +97,7 @@ function attachedTo(shmId: number): number {
   return 0;
 }
 
-export async function startCluster(c: Cluster): Promise<void> {
+async function startCluster(c: Cluster): Promise<void> {
   await capture("sh", ["db/cluster.sh", "start"], c.env);
 }
 

@@ -140,13 +140,9 @@ beforeAll(async () => {
         )
       ).status,
     ).toBe(200);
-  expect(
-    (
-      await api(cookies.tech, "POST", `/api/v1/visits/${t.visitId}/finish`, {
-        notes: tagged("Visit"),
-      })
-    ).status,
-  ).toBe(200);
+  expect((await api(cookies.tech, "POST", `/api/v1/visits/${t.visitId}/finish`, {})).status).toBe(
+    200,
+  );
   browser = await launchBrowser();
 }, 120_000);
 

@@ -3,7 +3,7 @@ import { chromium, type Browser, type Page } from "playwright-core";
 
 import { DEMO_PASSWORD } from "@/fixtures/demo/scenario";
 
-export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({

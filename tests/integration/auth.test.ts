@@ -4,8 +4,8 @@
 import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
 
-import { seedCompany } from "@/db/seed-scenario";
 import { demoCompany } from "@/fixtures/demo/scenario";
+import { seedCompany } from "@/fixtures/demo/seed-scenario";
 import { checkCredentials } from "@/lib/auth/credentials";
 import { createAuthSession, deleteAuthSession } from "@/lib/auth/mutations";
 import { findActorBySession } from "@/lib/auth/queries";

@@ -3,7 +3,7 @@
 // A hosted service with another shape is adapted in its client, never in the rest of Sward.
 import { z } from "zod";
 
-export const weatherDaySchema = z.object({
+const weatherDaySchema = z.object({
   date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/),
   tmaxC: z.number().min(-70).max(60),
   tminC: z.number().min(-80).max(50),
