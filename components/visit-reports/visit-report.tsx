@@ -114,7 +114,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
         )}
         <p className="mt-3 text-sm text-muted">
           The product label is the law: read it before handling any lawn product, and follow local
-          rules on fertiliser and pesticide use.
+          rules on fertilizer and pesticide use.
         </p>
       </section>
 

@@ -17,7 +17,7 @@ export function zoneSentences(c: ZoneCheckValues, symptomName: (key: string) => 
   const out: string[] = [];
   const rated: [string, number | null][] = [
     ["Overall", c.quality],
-    ["Colour", c.color],
+    ["Color", c.color],
     ["Thickness", c.density],
     ["Evenness", c.uniformity],
   ];

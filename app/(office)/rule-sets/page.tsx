@@ -12,7 +12,7 @@ export default async function RuleSetsPage() {
     <>
       <h1 className="text-3xl font-bold">Rule sets</h1>
       <p className="mt-1 mb-6 text-muted">
-        Fertiliser rules each property is checked against. Sward&apos;s checks help; local
+        Fertilizer rules each property is checked against. Sward&apos;s checks help; local
         ordinances, applicator licensing and the product label take precedence.
       </p>
       <RuleSetList ruleSets={await listRuleSets(actor)} />

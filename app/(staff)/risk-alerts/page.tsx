@@ -15,7 +15,7 @@ import { alertFilters } from "@/lib/risk/schemas";
 export const metadata: Metadata = { title: "Risk alerts" };
 
 const STATUS_OPTIONS = {
-  live: "Open or acknowledged",
+  live: "Not resolved",
   open: "Open",
   acknowledged: "Acknowledged",
   resolved: "Resolved",

@@ -106,7 +106,7 @@ export default async function PropertyPage({
           <p className="text-lg">{property.technician?.name ?? "Not assigned"}</p>
         </div>
         <div className="rounded-xl border border-line bg-card p-4">
-          <p className="text-sm font-semibold text-muted">Fertiliser rule set</p>
+          <p className="text-sm font-semibold text-muted">Fertilizer rule set</p>
           <p className="text-lg">{property.ruleSet?.name ?? "None chosen"}</p>
         </div>
         <div className="rounded-xl border border-line bg-card p-4">

@@ -103,7 +103,7 @@ export default async function ZoneHistoryPage({
                   Quality
                 </th>
                 <th scope="col" className="p-3">
-                  Colour
+                  Color
                 </th>
                 <th scope="col" className="p-3">
                   Density
