@@ -31,6 +31,23 @@ function readEnvLocal(): Record<string, string> {
   );
 }
 
+async function waitForPort(port: number, timeoutMs: number): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (!(await answers(port))) {
+    if (Date.now() > deadline)
+      throw new StepFailed(`demo: nothing answers on 127.0.0.1:${port} after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+function answers(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = net.connect({ host: "127.0.0.1", port });
+    socket.once("connect", () => (socket.destroy(), resolve(true)));
+    socket.once("error", () => resolve(false));
+  });
+}
+
 function portIsFree(port: number): Promise<boolean> {
   return new Promise((resolve) => {
     const probe = net.createServer().once("error", () => resolve(false));
@@ -125,7 +142,14 @@ await sup.main(async () => {
       `demo: the server ended while starting (${signal ?? `exit code ${code}`}); see the messages above.`,
     );
   });
-  await Promise.race([waitForUrl(`${AUTH_URL}/sign-in`, 60_000), serverEnded]);
+  await Promise.race([
+    Promise.all([
+      waitForUrl(`${AUTH_URL}/sign-in`, 60_000),
+      process.env.WEATHER_BASE_URL ? null : waitForUrl(`${WEATHER_BASE_URL}/health`, 60_000),
+      MAIL_INBOX_DIR ? waitForPort(SMTP_PORT, 60_000) : null,
+    ]),
+    serverEnded,
+  ]);
 
   console.log(
     `\nSward is running at ${AUTH_URL}  (server PID ${server.pid}, worker PID ${worker.pid}; Ctrl-C to stop)\n`,
