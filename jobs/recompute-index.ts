@@ -2,7 +2,7 @@
 // weights in lib/scoring/weights.ts): `npm run db:recompute-index`. A script of the app, beside the
 // worker: db/ holds only the pool, the schema, migrations and database tools.
 import { createDb, localDatabaseUrl } from "@/db/client";
-import { recomputeAllIndexes } from "@/lib/scoring/store-index";
+import { recomputeAllIndexes } from "@/lib/after-write/check-index";
 
 const db = createDb(process.env.DATABASE_URL ?? localDatabaseUrl("sward"), { max: 2 });
 const started = Date.now();

@@ -4,18 +4,18 @@
 import PgBoss from "pg-boss";
 
 import { createDb } from "@/db/client";
+import { sweepBook } from "@/lib/after-write/sweep";
 import { log } from "@/lib/log";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
-import { sendHighAlertDigests } from "@/lib/risk/digest";
+import { sendHighAlertDigests } from "@/lib/risk-alerts/digest";
 import {
   DIGEST_QUEUE,
   registerAlertDigest,
   registerRiskSweep,
   SWEEP_CRON,
   SWEEP_QUEUE,
-} from "@/lib/risk/jobs";
-import { sweepBook } from "@/lib/risk/sweep";
+} from "@/lib/risk-alerts/jobs";
 import { smtpMailer } from "@/lib/services/mail";
 import { jsonWeatherProvider } from "@/lib/services/weather/provider";
 

@@ -3,7 +3,7 @@
 import Link from "next/link";
 
 import { formatDate } from "@/lib/dates";
-import type { AlertDto } from "@/lib/risk/dto";
+import type { AlertDto } from "@/lib/risk-alerts/dto";
 import { ALERT_STATUSES, EVIDENCE_LABELS, evidenceValue } from "@/lib/risk/labels";
 
 import { RiskAlertActions } from "./risk-alert-actions";

@@ -6,18 +6,18 @@ import "server-only";
 import { sql } from "kysely";
 
 import { db } from "@/db";
+import { afterWrite } from "@/lib/after-write";
 import { NutrientInputError, nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
 import { checkApplication, isRefused, type RuleFinding } from "@/lib/agronomy/rules";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
-import { refreshPropertySummary } from "@/lib/book/summary";
+import { visitInScope } from "@/lib/auth/scope";
 import { todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { analysisOf } from "@/lib/products/dto";
 import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { toRuleSetDto } from "@/lib/rule-sets/map";
-import { visitInScope } from "@/lib/visits/scope";
 
 import type { ApplicationDto } from "./dto";
 import { listVisitApplications, zoneNitrogenYearToDate } from "./queries";
@@ -216,6 +216,13 @@ export async function recordApplication(
           .set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId })
           .where("id", "=", visitId)
           .execute();
+      // N this year in the book at once; alerts at once on a finished visit (an open visit's
+      // are evaluated when it is finished).
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: visit.status === "completed" ? "evaluate" : "keep",
+      });
       return true;
     });
   if (!inserted) {
@@ -225,6 +232,5 @@ export async function recordApplication(
   }
   const saved = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
   if (!saved) throw new Error("application missing after insert");
-  await refreshPropertySummary(db(), actor.companyId, visit.property_id); // N this year in the book
   return saved;
 }

@@ -4,7 +4,7 @@ import "server-only";
 import { db } from "@/db";
 import type { RuleFinding } from "@/lib/agronomy/rules";
 import type { Actor } from "@/lib/auth/actor";
-import { visitInScope } from "@/lib/visits/scope";
+import { visitInScope } from "@/lib/auth/scope";
 
 import type { ApplicationDto } from "./dto";
 

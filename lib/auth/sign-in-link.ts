@@ -7,8 +7,8 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
 
+import { signInLinkEmail } from "@/lib/auth/sign-in-email";
 import { queueMail } from "@/lib/mail/mutations";
-import { signInLinkEmail } from "@/lib/mail/sign-in-email";
 
 import type { Homeowner } from "./dto";
 import { markEmailVerified, storeVerificationToken, takeVerificationToken } from "./mutations";

@@ -7,9 +7,9 @@ import { sql, type ExpressionBuilder, type RawBuilder } from "kysely";
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
-import { propertyInScope } from "@/lib/properties/scope";
 import { escapeLike } from "@/lib/text";
 
 import type { BookRow } from "./dto";

@@ -24,3 +24,14 @@ export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]
     isDisabled: r.disabled_at !== null,
   }));
 }
+
+/** The e-mail addresses of everyone in the actor's company (the development inbox shows only their mail). */
+export async function companyEmailAddresses(actor: Actor): Promise<Set<string>> {
+  const people = await db()
+    .selectFrom("users")
+    .innerJoin("memberships", "memberships.user_id", "users.id")
+    .select("users.email")
+    .where("memberships.company_id", "=", actor.companyId)
+    .execute();
+  return new Set(people.map((p) => p.email));
+}

@@ -4,11 +4,11 @@
 import "server-only";
 
 import { db } from "@/db";
+import { afterWrite } from "@/lib/after-write";
 import type { Actor } from "@/lib/auth/actor";
+import { visitInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
-import { refreshCheckIndex } from "@/lib/scoring/store-index";
 import type { PhotoStorage } from "@/lib/services/storage";
-import { visitInScope } from "@/lib/visits/scope";
 
 import type { PhotoDto } from "./dto";
 import type { ProcessedPhoto } from "./process";
@@ -59,9 +59,9 @@ export async function addPhoto(
     await storage.put(displayKey, photo.display.data, "image/webp");
   if (!(await storage.has(thumbKey))) await storage.put(thumbKey, photo.thumb.data, "image/webp");
 
-  // The row and the Index it changes commit together: were they apart, a crash between them would
-  // leave the photo stored and the Index without it, and the retry (which finds the row) would
-  // answer 200 without ever correcting it.
+  // The row and what it changes (the check's Index, the book, the alerts of a finished visit)
+  // commit together: were they apart, a crash between them would leave the photo stored and the
+  // Index without it, and the retry (which finds the row) would answer 200 without correcting it.
   const inserted = await db()
     .transaction()
     .execute(async (trx) => {
@@ -92,7 +92,13 @@ export async function addPhoto(
         .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
         .returning("id")
         .executeTakeFirst();
-      await refreshCheckIndex(trx, [zoneCheckId]); // photo cover and colour are part of the Index
+      if (row)
+        await afterWrite(trx, {
+          companyId: actor.companyId,
+          propertyId: target.property_id,
+          recheckIndexOf: [zoneCheckId], // photo cover and colour are part of the Index
+          alerts: target.status === "completed" ? "evaluate" : "keep",
+        });
       return row !== undefined;
     });
   const saved = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);

@@ -2,14 +2,14 @@
 // property's photos, and only from completed visits. Out of scope = not found.
 import "server-only";
 
-import type { ExpressionBuilder } from "kysely";
+import type { ExpressionBuilder, Kysely } from "kysely";
 
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { notFound } from "@/lib/http/app-error";
 import { findZoneInScope } from "@/lib/properties/queries";
-import { propertyInScope } from "@/lib/properties/scope";
 
 import type { PhotoDto } from "./dto";
 import { toPhotoDto } from "./map";
@@ -36,8 +36,8 @@ function photoInScope(actor: Actor) {
   };
 }
 
-function scopedPhotos(actor: Actor) {
-  return db()
+function scopedPhotos(actor: Actor, executor: Kysely<Database> = db()) {
+  return executor
     .selectFrom("photos")
     .innerJoin("visits", "visits.id", "photos.visit_id")
     .innerJoin("properties", "properties.id", "photos.property_id")
@@ -70,8 +70,12 @@ export async function listZonePhotos(actor: Actor, zoneId: string): Promise<Phot
   return rows.map((r) => toPhotoDto(r, actor));
 }
 
-export async function listVisitPhotos(actor: Actor, visitId: string): Promise<PhotoDto[]> {
-  const rows = await scopedPhotos(actor)
+export async function listVisitPhotos(
+  actor: Actor,
+  visitId: string,
+  executor: Kysely<Database> = db(),
+): Promise<PhotoDto[]> {
+  const rows = await scopedPhotos(actor, executor)
     .where("photos.visit_id", "=", visitId)
     .orderBy("photos.created_at")
     .execute();

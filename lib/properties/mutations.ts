@@ -1,11 +1,13 @@
 // Property and zone writes (managers). Scope is re-checked in every statement; archiving keeps
-// history (visits and checks stay), and every change is audited.
+// history (visits and checks stay), every change is audited, and afterWrite keeps the property's
+// Index, book row and alerts current in the same transaction.
 import "server-only";
 
 import { sql, type Transaction } from "kysely";
 
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
+import { afterWrite } from "@/lib/after-write";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
@@ -80,6 +82,7 @@ export async function createProperty(
         .returning("id")
         .executeTakeFirstOrThrow();
       await recordAudit(trx, actor, { entity: "property", entityId: row.id, action: "create" });
+      await afterWrite(trx, { companyId: actor.companyId, propertyId: row.id, alerts: "keep" });
       return row.id;
     });
   return getProperty(actor, id);
@@ -122,6 +125,8 @@ export async function updateProperty(
           action: "update",
           changes,
         });
+      // Place, time zone and rule set feed the rules: the alerts and the book follow.
+      await afterWrite(trx, { companyId: actor.companyId, propertyId, alerts: "evaluate" });
     });
   return getProperty(actor, propertyId);
 }
@@ -151,6 +156,7 @@ export async function setPropertyArchived(
         entityId: propertyId,
         action: isArchived ? "archive" : "restore",
       });
+      await afterWrite(trx, { companyId: actor.companyId, propertyId, alerts: "evaluate" });
     });
   return getProperty(actor, propertyId);
 }
@@ -203,6 +209,7 @@ export async function createZone(
         .returning([...ZONE_COLUMNS])
         .executeTakeFirstOrThrow();
       await recordAudit(trx, actor, { entity: "zone", entityId: row.id, action: "create" });
+      await afterWrite(trx, { companyId: actor.companyId, propertyId, alerts: "evaluate" });
       return toZoneDto(row);
     });
 }
@@ -244,6 +251,12 @@ export async function updateZone(actor: Actor, zoneId: string, input: ZoneInput)
           action: "update",
           changes,
         });
+      // Area, species and irrigation feed the Index weighting, N per area and the rules.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: before.property_id,
+        alerts: "evaluate",
+      });
       return toZoneDto(row);
     });
 }
@@ -265,13 +278,19 @@ export async function setZoneArchived(
         })
         .where("company_id", "=", actor.companyId)
         .where("id", "=", zoneId)
-        .returning("id")
+        .returning(["id", "property_id"])
         .executeTakeFirst();
       if (!row) throw notFound("That zone");
       await recordAudit(trx, actor, {
         entity: "zone",
         entityId: zoneId,
         action: isArchived ? "archive" : "restore",
+      });
+      // An archived zone leaves the property index, the book and the alerts.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: row.property_id,
+        alerts: "evaluate",
       });
     });
 }

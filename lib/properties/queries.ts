@@ -7,11 +7,11 @@ import type { SelectQueryBuilder } from "kysely";
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { notFound } from "@/lib/http/app-error";
 
 import type { PropertyDetailDto, PropertySummaryDto } from "./dto";
 import { toPropertySummaryDto, toZoneDto } from "./map";
-import { propertyInScope } from "./scope";
 
 type PropertyQuery<O> = SelectQueryBuilder<Database, "properties", O>;
 

@@ -2,11 +2,14 @@
 // Only completed visits of properties in the actor's scope; anything else is not found.
 import "server-only";
 
+import type { Kysely } from "kysely";
+
 import { db } from "@/db";
+import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { notFound } from "@/lib/http/app-error";
 import { listVisitPhotos } from "@/lib/photos/queries";
-import { propertyInScope } from "@/lib/properties/scope";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { findSymptom } from "@/lib/reference/symptoms";
 import { SKIP_REASONS } from "@/lib/reference/visit-options";
@@ -37,8 +40,13 @@ export async function listReports(
   return rows.map((r) => ({ visitId: r.id, date: r.scheduled_for }));
 }
 
-export async function getVisitReport(actor: Actor, visitId: string): Promise<VisitReport> {
-  const visit = await db()
+/** The report as `actor` may see it; `executor` lets the finish transaction read its own writes. */
+export async function getVisitReport(
+  actor: Actor,
+  visitId: string,
+  executor: Kysely<Database> = db(),
+): Promise<VisitReport> {
+  const visit = await executor
     .selectFrom("visits")
     .innerJoin("properties", "properties.id", "visits.property_id")
     .innerJoin("companies", "companies.id", "visits.company_id")
@@ -62,7 +70,7 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
     .executeTakeFirst();
   if (!visit) throw notFound("That report");
   const [zones, checks, applications, photos, alerts] = await Promise.all([
-    db()
+    executor
       .selectFrom("zones")
       .selectAll()
       .where("company_id", "=", actor.companyId)
@@ -70,13 +78,13 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
       .orderBy("sort_order")
       .orderBy("name")
       .execute(),
-    db()
+    executor
       .selectFrom("zone_checks")
       .selectAll()
       .where("company_id", "=", actor.companyId)
       .where("visit_id", "=", visitId)
       .execute(),
-    db()
+    executor
       .selectFrom("applications")
       .innerJoin("products", "products.id", "applications.product_id")
       .innerJoin("zones", "zones.id", "applications.zone_id")
@@ -97,8 +105,8 @@ export async function getVisitReport(actor: Actor, visitId: string): Promise<Vis
       .where("applications.visit_id", "=", visitId)
       .orderBy("applications.applied_at")
       .execute(),
-    listVisitPhotos(actor, visitId),
-    db()
+    listVisitPhotos(actor, visitId, executor),
+    executor
       .selectFrom("risk_alerts")
       .select("kind")
       .where("company_id", "=", actor.companyId)

@@ -1,7 +1,7 @@
 // What an evaluation does to an alert (pure): raise a new one (a new episode linked to the last
 // resolved one when the condition recurs), update the live one, note that its condition has
 // cleared, or resolve it automatically once the condition has stayed clear for
-// AUTO_RESOLVE_AFTER_DAYS days. Acknowledging and resolving by hand are lib/risk/mutations.ts.
+// AUTO_RESOLVE_AFTER_DAYS days. Acknowledging and resolving by hand are lib/risk-alerts/mutations.ts.
 import { daysBetween } from "@/lib/dates";
 
 import type { Severity } from "./rules";

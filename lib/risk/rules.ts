@@ -1,6 +1,6 @@
 // The risk rule catalogue (pure): each rule takes what Sward knows about a zone or a property on
 // a day and answers { raised, severity, evidence, source, summary }. The evaluator
-// (lib/risk/evaluate.ts) gathers the inputs; nothing here reads a database or a clock.
+// (lib/after-write/alerts.ts) gathers the inputs; nothing here reads a database or a clock.
 //
 // Thresholds we chose, and why (each rule's `source` names where it comes from):
 // - Matted canopy is high when a disease is already showing in the zone, else moderate.

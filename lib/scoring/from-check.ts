@@ -1,15 +1,26 @@
-// From a stored zone check (and its photos) to the Index input: null until the zone is rated.
-import type { ZoneCheckValues } from "@/lib/visits/dto";
-
+// From a zone check's values (and its photos' figures) to the Index input: null until the zone
+// is rated. Pure: the caller maps its row or its input to this shape.
 import type { IndexInput } from "./sward-index";
 
-export function indexInputOf(
-  check: Pick<
-    ZoneCheckValues,
-    "status" | "quality" | "color" | "density" | "uniformity" | "barePct" | "weedsPct" | "symptoms"
-  >,
-  photos: { greenCoverPct: number; dgci: number | null }[],
-): IndexInput | null {
+/** What the Index reads of a zone check (a subset of the check's values). */
+export interface CheckRatings {
+  status: "draft" | "done" | "skipped";
+  quality: number | null;
+  color: number | null;
+  density: number | null;
+  uniformity: number | null;
+  barePct: number | null;
+  weedsPct: number | null;
+  symptoms: { severity: 1 | 2 | 3 }[];
+}
+
+/** A photo's measured figures. */
+export interface PhotoFigures {
+  greenCoverPct: number;
+  dgci: number | null;
+}
+
+export function indexInputOf(check: CheckRatings, photos: PhotoFigures[]): IndexInput | null {
   if (
     check.status === "skipped" ||
     check.quality === null ||

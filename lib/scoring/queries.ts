@@ -7,8 +7,8 @@ import "server-only";
 import { db } from "@/db";
 import { lawnKc, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, todayIn } from "@/lib/dates";
-import { propertyInScope } from "@/lib/properties/scope";
 import { deriveDays } from "@/lib/weather/derived";
 import { getCachedWeather, getPropertyLocation } from "@/lib/weather/queries";
 
@@ -208,7 +208,7 @@ export async function getPropertyScoreHistory(
 /**
  * Across the book (managers): how the latest property indexes are spread, which properties are
  * declining, and the share of zones whose Index follows the nitrogen available to them — all read
- * from the property summaries that the write paths and the sweep keep (lib/book/summary.ts), so
+ * from the property summaries that the write paths and the sweep keep (lib/after-write/summary.ts), so
  * the cost does not grow with the zone checks. Water balance is left out here: it needs the
  * weather of every place, and N is the question the book view answers.
  */

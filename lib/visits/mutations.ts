@@ -1,5 +1,6 @@
-// Visit writes: schedule, start, save a zone check (idempotent, versioned), finish, cancel.
-// Every write re-checks scope inside its transaction; out of scope = not found.
+// Visit writes: schedule, start, save a zone check (idempotent, versioned), cancel. Finishing a
+// visit publishes its visit report (lib/reports/mutations.ts). Every write re-checks scope inside
+// its transaction (out of scope = not found) and ends with afterWrite in that transaction.
 import "server-only";
 
 import { randomUUID } from "node:crypto";
@@ -7,34 +8,22 @@ import { sql, type Transaction } from "kysely";
 
 import { db } from "@/db";
 import type { Database, ZoneCheck } from "@/db/schema";
+import { afterWrite } from "@/lib/after-write";
+import { indexColumns } from "@/lib/after-write/check-index";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
-import { refreshPropertySummary } from "@/lib/book/summary";
+import { propertyInScope, visitInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
-import { propertyInScope } from "@/lib/properties/scope";
-import { enqueueVisitReportMail } from "@/lib/reports/mutations";
-import { evaluateAfterVisit } from "@/lib/risk/mutations";
-import { refreshCheckIndex } from "@/lib/scoring/store-index";
+import type { PhotoFigures } from "@/lib/scoring/from-check";
 import { fillVisitWeather } from "@/lib/weather/mutations";
 
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
 import type { ScheduleVisitInput, ZoneCheckInput } from "./schemas";
-import { visitInScope } from "./scope";
 
-/** Keeps the book's summary of a visit's property current. */
-async function refreshVisitProperty(actor: Actor, visitId: string): Promise<void> {
-  const visit = await db()
-    .selectFrom("visits")
-    .select("property_id")
-    .where("company_id", "=", actor.companyId)
-    .where("id", "=", visitId)
-    .executeTakeFirst();
-  if (visit) await refreshPropertySummary(db(), actor.companyId, visit.property_id);
-}
-
-async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: string) {
+/** The visit row, locked for the rest of the transaction; not found outside the actor's scope. */
+export async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: string) {
   const visit = await trx
     .selectFrom("visits")
     .selectAll()
@@ -46,7 +35,8 @@ async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: stri
   return visit;
 }
 
-function assertEditable(actor: Actor, visit: { status: string }) {
+/** Cancelled visits never change; finished ones only by a manager (audited). */
+export function assertEditable(actor: Actor, visit: { status: string }) {
   if (visit.status === "cancelled")
     throw new AppError("conflict", "This visit was cancelled; it can no longer be changed.");
   if (visit.status === "completed" && actor.role !== "manager")
@@ -126,8 +116,13 @@ export async function scheduleVisit(
         )
           throw new AppError("conflict", "A different visit already uses that id.");
       }
+      // The book shows the next visit.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: input.propertyId,
+        alerts: "keep",
+      });
     });
-  await refreshPropertySummary(db(), actor.companyId, input.propertyId); // the book shows the next visit
   return getVisit(actor, id);
 }
 
@@ -155,6 +150,11 @@ export async function startVisit(
         })
         .where("id", "=", visitId)
         .execute();
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: "keep",
+      });
     });
   // The day's weather goes with the visit; a slow or absent service leaves "unavailable" and
   // never blocks the start (the next page load tries again).
@@ -220,9 +220,23 @@ export async function saveZoneCheck(
             )?.name ?? null)
           : null;
 
+      // The row with its photos' figures: the Index is computed here and written with the row.
       const existing = await trx
         .selectFrom("zone_checks")
         .selectAll()
+        .select((eb) =>
+          eb
+            .selectFrom("photos")
+            .select(
+              sql<
+                PhotoFigures[]
+              >`coalesce(json_agg(json_build_object('greenCoverPct', photos.green_cover_pct, 'dgci', photos.dgci)), '[]'::json)`.as(
+                "figures",
+              ),
+            )
+            .whereRef("photos.zone_check_id", "=", "zone_checks.id")
+            .as("photo_figures"),
+        )
         .where("id", "=", zoneCheckId)
         .forUpdate()
         .executeTakeFirst();
@@ -247,6 +261,7 @@ export async function saveZoneCheck(
             visit_id: visitId,
             updated_by: actor.userId,
             ...toColumns(input),
+            ...indexColumns(input, []), // a new check has no photos yet
           })
           .onConflict((oc) => oc.doNothing())
           .returningAll()
@@ -279,6 +294,7 @@ export async function saveZoneCheck(
           .updateTable("zone_checks")
           .set({
             ...toColumns(input),
+            ...indexColumns(input, existing.photo_figures ?? []),
             version: sql<number>`version + 1`,
             updated_at: sql<Date>`now()`,
             updated_by: actor.userId,
@@ -295,12 +311,6 @@ export async function saveZoneCheck(
           });
         }
       }
-      await refreshCheckIndex(trx, [zoneCheckId]);
-      saved = (await trx
-        .selectFrom("zone_checks")
-        .selectAll()
-        .where("id", "=", zoneCheckId)
-        .executeTakeFirstOrThrow()) as ZoneCheck;
       if (visit.status === "scheduled") {
         // Saving a check starts the visit if the technician did not tap "Start".
         await trx
@@ -309,66 +319,15 @@ export async function saveZoneCheck(
           .where("id", "=", visitId)
           .execute();
       }
+      // A finished visit's correction re-evaluates at once; an open visit's checks are evaluated
+      // when it is finished.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: visit.status === "completed" ? "evaluate" : "keep",
+      });
       return toZoneCheckDto(saved, actor.name);
     });
-}
-
-/** Locks the visit. Every active zone must be checked (done) or skipped with a reason. */
-export async function finishVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
-  await db()
-    .transaction()
-    .execute(async (trx) => {
-      const visit = await lockVisit(trx, actor, visitId);
-      if (visit.status === "completed") return; // finishing twice is harmless
-      assertEditable(actor, visit);
-      const open = await trx
-        .selectFrom("zones")
-        .leftJoin("zone_checks", (j) =>
-          j.onRef("zone_checks.zone_id", "=", "zones.id").on("zone_checks.visit_id", "=", visitId),
-        )
-        .select(["zones.name", "zone_checks.status"])
-        .where("zones.company_id", "=", actor.companyId)
-        .where("zones.property_id", "=", visit.property_id)
-        .where("zones.archived_at", "is", null)
-        .where((eb) =>
-          eb.or([eb("zone_checks.status", "is", null), eb("zone_checks.status", "=", "draft")]),
-        )
-        .orderBy("zones.sort_order")
-        .execute();
-      if (open.length) {
-        throw new AppError(
-          "invalid_input",
-          `Finish or skip every zone first: ${open.map((z) => z.name).join(", ")}.`,
-          {
-            zones: open.map(
-              (z) => `${z.name} is ${z.status === "draft" ? "not marked done" : "not checked"}.`,
-            ),
-          },
-        );
-      }
-      await trx
-        .updateTable("visits")
-        .set({
-          status: "completed",
-          completed_at: sql<Date>`now()`,
-          completed_by: actor.userId,
-          version: sql<number>`version + 1`,
-          updated_at: sql<Date>`now()`,
-        })
-        .where("id", "=", visitId)
-        .execute();
-      await recordAudit(trx, actor, {
-        entity: "visit",
-        entityId: visitId,
-        action: "finish",
-        changes: { status: { from: visit.status, to: "completed" } },
-      });
-    });
-  // Alerts for the property now, so the technician sees them on the summary before leaving;
-  // then the homeowners' report e-mail (its care notes include those alerts).
-  await evaluateAfterVisit(actor, visitId);
-  await enqueueVisitReportMail(actor, visitId);
-  return getVisit(actor, visitId);
 }
 
 export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
@@ -394,7 +353,12 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
         action: "cancel",
         changes: { status: { from: visit.status, to: "cancelled" } },
       });
+      // Its checks no longer count: the Index, the book and the alerts follow.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: "evaluate",
+      });
     });
-  await refreshVisitProperty(actor, visitId);
   return getVisit(actor, visitId);
 }

@@ -1,4 +1,4 @@
-// Visit reads, scoped to the actor (lib/visits/scope.ts). Out of scope = not found.
+// Visit reads, scoped to the actor (lib/auth/scope.ts). Out of scope = not found.
 import "server-only";
 
 import type { z } from "zod";
@@ -6,6 +6,7 @@ import type { z } from "zod";
 import { db } from "@/db";
 import { listVisitApplications } from "@/lib/applications/queries";
 import type { Actor } from "@/lib/auth/actor";
+import { visitInScope } from "@/lib/auth/scope";
 import { notFound } from "@/lib/http/app-error";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { toZoneDto, ZONE_COLUMNS } from "@/lib/properties/map";
@@ -20,7 +21,6 @@ import type {
 } from "./dto";
 import { concernsOf, toVisitSummaryDto, toZoneCheckDto, valuesOf } from "./map";
 import type { listVisitsQuery } from "./schemas";
-import { visitInScope } from "./scope";
 
 function visitSummaries() {
   return db()

@@ -1,11 +1,13 @@
-// Logging a watering (staff, and homeowners for their own lawn). Idempotent by id.
+// Logging a watering (staff, and homeowners for their own lawn). Idempotent by id; the alerts
+// and the book follow in the same transaction (afterWrite).
 import "server-only";
 
 import { db } from "@/db";
+import { afterWrite } from "@/lib/after-write";
 import { wateringDepthIn } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
-import { propertyInScope } from "@/lib/properties/scope";
 
 import type { WateringDto } from "./dto";
 import { listWaterings } from "./queries";
@@ -43,22 +45,30 @@ export async function logWatering(
       runMinutes: ["That run time and rate make more than 10 in of water. Check both."],
     });
   await db()
-    .insertInto("waterings")
-    .values({
-      id: input.id,
-      company_id: actor.companyId,
-      property_id: propertyId,
-      zone_id: input.zoneId,
-      watered_on: input.wateredOn,
-      depth_in: Math.round(depth * 1000) / 1000,
-      run_minutes: input.runMinutes,
-      precipitation_rate_in_per_h: input.precipitationRateInPerHour,
-      entered_by_role: actor.role,
-      notes: input.notes,
-      created_by: actor.userId,
-    })
-    .onConflict((oc) => oc.column("id").doNothing())
-    .execute();
+    .transaction()
+    .execute(async (trx) => {
+      const row = await trx
+        .insertInto("waterings")
+        .values({
+          id: input.id,
+          company_id: actor.companyId,
+          property_id: propertyId,
+          zone_id: input.zoneId,
+          watered_on: input.wateredOn,
+          depth_in: Math.round(depth * 1000) / 1000,
+          run_minutes: input.runMinutes,
+          precipitation_rate_in_per_h: input.precipitationRateInPerHour,
+          entered_by_role: actor.role,
+          notes: input.notes,
+          created_by: actor.userId,
+        })
+        .onConflict((oc) => oc.column("id").doNothing())
+        .returning("id")
+        .executeTakeFirst();
+      // The water balance feeds the drought and disease rules: the alerts and the book follow.
+      if (row)
+        await afterWrite(trx, { companyId: actor.companyId, propertyId, alerts: "evaluate" });
+    });
   const saved = (await listWaterings(actor, propertyId, { limit: 500 })).find(
     (w) => w.id === input.id,
   );

@@ -3,8 +3,8 @@ import "server-only";
 
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { assertPropertyInScope } from "@/lib/properties/queries";
-import { propertyInScope } from "@/lib/properties/scope";
 
 import type { WateringDto } from "./dto";
 

@@ -6,9 +6,9 @@ import "server-only";
 import { db } from "@/db";
 import { lawnKc } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, todayIn } from "@/lib/dates";
 import { notFound } from "@/lib/http/app-error";
-import { propertyInScope } from "@/lib/properties/scope";
 import { weatherProvider } from "@/lib/services/weather/instance";
 
 import { cachedWeatherResult, readWeatherDays } from "./cache";

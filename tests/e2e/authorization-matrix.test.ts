@@ -654,7 +654,7 @@ beforeAll(async () => {
   ] = await Promise.all([
     import("../helpers/factories"),
     import("@/fixtures/demo/scenario"),
-    import("@/lib/risk/evaluate"),
+    import("@/lib/after-write/sweep"),
     import("@/lib/visits/mutations"),
     import("@/lib/properties/mutations"),
     import("@/lib/dates"),

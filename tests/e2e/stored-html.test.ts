@@ -25,7 +25,7 @@ const cookies: Record<"manager" | "tech" | "owner", string> = { manager: "", tec
 beforeAll(async () => {
   useE2eDatabase();
   const { createTestCompany, testDb } = await import("../helpers/factories");
-  const { evaluateProperty } = await import("@/lib/risk/evaluate");
+  const { evaluateProperty } = await import("@/lib/after-write/sweep");
   const db = testDb();
   const c = await createTestCompany();
   t.propertyId = c.propertyIds["oyelaran"]!;

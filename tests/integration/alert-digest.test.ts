@@ -7,8 +7,8 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
-import { sendHighAlertDigests } from "@/lib/risk/digest";
-import { evaluateProperty } from "@/lib/risk/evaluate";
+import { evaluateProperty } from "@/lib/after-write/sweep";
+import { sendHighAlertDigests } from "@/lib/risk-alerts/digest";
 import { smtpMailer } from "@/lib/services/mail";
 
 import { readInbox, startSmtpFake } from "../harness/smtp-fake";

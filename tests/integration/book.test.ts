@@ -6,14 +6,14 @@ import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { otherCompany } from "@/fixtures/demo/scenario";
+import { afterWrite } from "@/lib/after-write";
+import { evaluateProperty } from "@/lib/after-write/sweep";
 import type { Actor } from "@/lib/auth/actor";
 import { getTeamActivity, listBook } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
-import { refreshPropertySummary } from "@/lib/book/summary";
 import { addDays, todayIn } from "@/lib/dates";
 import { createProperty, setPropertyArchived } from "@/lib/properties/mutations";
-import { evaluateProperty } from "@/lib/risk/evaluate";
-import { resolveAlert } from "@/lib/risk/mutations";
+import { resolveAlert } from "@/lib/risk-alerts/mutations";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { scheduleVisit } from "@/lib/visits/mutations";
 
@@ -185,7 +185,11 @@ describe("the book", () => {
           })
           .returning("id")
           .executeTakeFirstOrThrow();
-        await refreshPropertySummary(testDb(), c.companyId, id);
+        await testDb()
+          .transaction()
+          .execute((trx) =>
+            afterWrite(trx, { companyId: c.companyId, propertyId: id, alerts: "keep" }),
+          );
         added++;
       }
       const original = seen.filter((id) => before.includes(id));
@@ -241,7 +245,11 @@ describe("the book", () => {
       })
       .returning("id")
       .executeTakeFirstOrThrow();
-    await refreshPropertySummary(testDb(), c.companyId, id);
+    await testDb()
+      .transaction()
+      .execute((trx) =>
+        afterWrite(trx, { companyId: c.companyId, propertyId: id, alerts: "keep" }),
+      );
     const route = await import("@/app/api/v1/book/export/route");
     const text = await (
       await route.GET(new Request("http://localhost/api/v1/book/export?q=HYPERLINK"))

@@ -8,13 +8,13 @@ import { sql } from "kysely";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { z } from "zod";
 
+import { evaluateProperty } from "@/lib/after-write/sweep";
 import { applicationSchema } from "@/lib/applications/schemas";
 import type { Actor } from "@/lib/auth/actor";
 import { signInLinkSchema, signInSchema } from "@/lib/auth/schemas";
 import { productSchema } from "@/lib/products/schemas";
 import { homeownerLinkSchema, propertySchema, zoneSchema } from "@/lib/properties/schemas";
-import { evaluateProperty } from "@/lib/risk/evaluate";
-import { acknowledgeSchema, resolveSchema } from "@/lib/risk/schemas";
+import { acknowledgeSchema, resolveSchema } from "@/lib/risk-alerts/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import {
   finishVisitSchema,

@@ -15,7 +15,8 @@ import type { Actor } from "@/lib/auth/actor";
 import { dgciOf } from "@/lib/photos/color";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { PHOTO_LIMITS } from "@/lib/photos/process";
-import { finishVisit, saveZoneCheck } from "@/lib/visits/mutations";
+import { finishVisit } from "@/lib/reports/mutations";
+import { saveZoneCheck } from "@/lib/visits/mutations";
 import { emptyZoneCheck } from "@/lib/visits/schemas";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";

@@ -7,8 +7,9 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { deliverPendingMail } from "@/lib/mail/outbox";
+import { finishVisit } from "@/lib/reports/mutations";
 import { smtpMailer } from "@/lib/services/mail";
-import { finishVisit, saveZoneCheck, startVisit } from "@/lib/visits/mutations";
+import { saveZoneCheck, startVisit } from "@/lib/visits/mutations";
 
 import { readInbox, startSmtpFake } from "../harness/smtp-fake";
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";

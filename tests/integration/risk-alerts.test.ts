@@ -6,13 +6,13 @@ import PgBoss from "pg-boss";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { otherCompany } from "@/fixtures/demo/scenario";
+import { evaluateProperty } from "@/lib/after-write/sweep";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
-import { evaluateProperty } from "@/lib/risk/evaluate";
-import { registerRiskSweep, SWEEP_QUEUE } from "@/lib/risk/jobs";
+import { registerRiskSweep, SWEEP_QUEUE } from "@/lib/risk-alerts/jobs";
+import { acknowledgeAlert, resolveAlert } from "@/lib/risk-alerts/mutations";
+import { listAlerts, propertyAlerts } from "@/lib/risk-alerts/queries";
 import { AUTO_RESOLVE_AFTER_DAYS } from "@/lib/risk/lifecycle";
-import { acknowledgeAlert, resolveAlert } from "@/lib/risk/mutations";
-import { listAlerts, propertyAlerts } from "@/lib/risk/queries";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
@@ -187,7 +187,7 @@ describe("the sweep as a pg-boss job", () => {
     });
     await boss.start();
     let calls = 0;
-    const { sweepBook } = await import("@/lib/risk/sweep");
+    const { sweepBook } = await import("@/lib/after-write/sweep");
     const before = (await liveAlerts()).map((a) => `${a.id}:${a.severity}`);
     await registerRiskSweep(
       boss,

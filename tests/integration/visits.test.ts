@@ -6,7 +6,8 @@ import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
 import { todayIn } from "@/lib/dates";
 import { getProperty, listProperties } from "@/lib/properties/queries";
-import { finishVisit, saveZoneCheck, scheduleVisit, startVisit } from "@/lib/visits/mutations";
+import { finishVisit } from "@/lib/reports/mutations";
+import { saveZoneCheck, scheduleVisit, startVisit } from "@/lib/visits/mutations";
 import {
   getVisit,
   getZoneHistory,

@@ -2,8 +2,8 @@
 // text rendered inert in the HTML.
 import { describe, expect, it } from "vitest";
 
-import { reportEmail } from "@/lib/mail/report-email";
 import { CARE_NOTES } from "@/lib/reference/care-notes";
+import { reportEmail } from "@/lib/reports/report-email";
 
 const report = {
   visitId: "11111111-1111-4111-8111-111111111111",

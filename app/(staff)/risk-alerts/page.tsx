@@ -8,9 +8,9 @@ import { FilterSelect } from "@/components/ui/filter-select";
 import { requireActor } from "@/lib/auth/require";
 import { RISK_ALERTS_PATH } from "@/lib/paths";
 import { listPeople } from "@/lib/people/queries";
+import { listAlerts } from "@/lib/risk-alerts/queries";
+import { alertFilters } from "@/lib/risk-alerts/schemas";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
-import { listAlerts } from "@/lib/risk/queries";
-import { alertFilters } from "@/lib/risk/schemas";
 
 export const metadata: Metadata = { title: "Risk alerts" };
 

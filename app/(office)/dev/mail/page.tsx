@@ -7,7 +7,7 @@ import { requireActor } from "@/lib/auth/require";
 import { formatDateTime } from "@/lib/dates";
 import { serverEnv } from "@/lib/env";
 import { readInbox } from "@/lib/mail/inbox-folder";
-import { companyEmailAddresses } from "@/lib/mail/queries";
+import { companyEmailAddresses } from "@/lib/people/queries";
 
 export const metadata: Metadata = { title: "Development inbox" };
 

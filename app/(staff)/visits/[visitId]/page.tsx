@@ -8,7 +8,7 @@ import { VisitRunner } from "@/components/visits/visit-runner";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
 import { makeQueryClient } from "@/lib/query-client";
-import { propertyAlerts } from "@/lib/risk/queries";
+import { propertyAlerts } from "@/lib/risk-alerts/queries";
 import { getVisit } from "@/lib/visits/queries";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { visitIdParams } from "@/lib/visits/schemas";

@@ -1,7 +1,7 @@
 // GET /api/v1/alerts — { items: AlertDto[] } across the actor's properties (staff), filtered by kind, severity, status, technician, area.
 import { route } from "@/lib/auth/guards";
-import { listAlerts } from "@/lib/risk/queries";
-import { alertFilters } from "@/lib/risk/schemas";
+import { listAlerts } from "@/lib/risk-alerts/queries";
+import { alertFilters } from "@/lib/risk-alerts/schemas";
 
 export const GET = route(
   { access: ["manager", "technician"], query: alertFilters },

@@ -1,7 +1,7 @@
 // POST /api/v1/alerts/:alertId/acknowledge — { note } (technician or manager); acknowledging twice is harmless.
 import { route } from "@/lib/auth/guards";
-import { acknowledgeAlert } from "@/lib/risk/mutations";
-import { acknowledgeSchema, alertIdParams } from "@/lib/risk/schemas";
+import { acknowledgeAlert } from "@/lib/risk-alerts/mutations";
+import { acknowledgeSchema, alertIdParams } from "@/lib/risk-alerts/schemas";
 
 export const POST = route(
   {

@@ -2,7 +2,7 @@
 // The homeowners' report e-mails are queued in the outbox and delivered right after the response.
 import { route } from "@/lib/auth/guards";
 import { deliverMailAfterResponse } from "@/lib/mail/mutations";
-import { finishVisit } from "@/lib/visits/mutations";
+import { finishVisit } from "@/lib/reports/mutations";
 import { finishVisitSchema, visitIdParams } from "@/lib/visits/schemas";
 
 export const POST = route(

@@ -1,6 +1,6 @@
-// The book's per-property summary row, recomputed from the property's own rows whenever
-// something it shows changes (visit finished or scheduled, alert changed, application recorded)
-// and by the daily sweep. Takes the database handle from its caller.
+// The book's per-property summary row, recomputed from the property's own rows by afterWrite
+// (lib/after-write/index.ts) in the transaction of every write that changes what it shows, and by
+// the daily sweep. Takes the transaction from its caller.
 //
 // Readings we chose:
 // - Overdue: a scheduled visit whose day has passed without being done, or no visit for more than
@@ -32,19 +32,14 @@ const ATTENTION = {
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
 
+/** Writes the summary row of a property (its time zone given by the caller, who has the row locked). */
 export async function refreshPropertySummary(
   executor: Kysely<Database>,
   companyId: string,
   propertyId: string,
+  timeZone: string,
 ): Promise<void> {
-  const property = await executor
-    .selectFrom("properties")
-    .select(["id", "time_zone"])
-    .where("company_id", "=", companyId)
-    .where("id", "=", propertyId)
-    .executeTakeFirst();
-  if (!property) return;
-  const today = todayIn(property.time_zone);
+  const today = todayIn(timeZone);
   const year = today.slice(0, 4);
   const [zones, checks, visits, alerts, applications] = await Promise.all([
     executor

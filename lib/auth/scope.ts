@@ -1,4 +1,4 @@
-// Which properties an actor may reach: managers their company's book; technicians the
+// Which properties (and visits) an actor may reach: managers their company's book; technicians the
 // properties assigned to them and any property where they have an open visit; homeowners
 // the properties linked to them. Used in every property read and write.
 import type { ExpressionBuilder } from "kysely";
@@ -40,6 +40,28 @@ export function propertyInScope(actor: Actor) {
               .where("ph.company_id", "=", actor.companyId),
           ),
         ]);
+    }
+  };
+}
+
+// Which visits an actor may reach. Managers: their company. Technicians: visits assigned to
+// them, plus any they started. Homeowners reach visits only through published reports.
+export function visitInScope(actor: Actor) {
+  return (eb: ExpressionBuilder<Database, "visits">) => {
+    const company = eb("visits.company_id", "=", actor.companyId);
+    switch (actor.role) {
+      case "manager":
+        return company;
+      case "technician":
+        return eb.and([
+          company,
+          eb.or([
+            eb("visits.technician_id", "=", actor.userId),
+            eb("visits.started_by", "=", actor.userId),
+          ]),
+        ]);
+      case "homeowner":
+        return eb.val(false);
     }
   };
 }

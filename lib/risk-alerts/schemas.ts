@@ -1,7 +1,7 @@
 // Inputs of the alert endpoints and the alerts page filters.
 import { z } from "zod";
 
-import { ALERT_KINDS } from "./labels";
+import { ALERT_KINDS } from "@/lib/risk/labels";
 
 export const alertIdParams = z.object({ alertId: z.uuid() });
 

@@ -6,10 +6,9 @@ import type { Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
 import { RISK_ALERTS_PATH } from "@/lib/paths";
+import { alertKindLabel } from "@/lib/risk/labels";
 import type { Mailer } from "@/lib/services/mail";
 import { escapeHtml } from "@/lib/text";
-
-import { alertKindLabel } from "./labels";
 
 export interface DigestResult {
   messages: number;

@@ -1,12 +1,34 @@
-// The daily sweep: every property of every company evaluated on its own local date. A property
-// that fails is logged and the sweep goes on; the sweep then fails as a whole so the job queue
-// retries it (evaluation is idempotent, so properties done the first time change nothing).
+// The daily sweep: every property (of every company, or of the companies named) evaluated on its
+// own local date, each in its own transaction through afterWrite. A property that fails is logged
+// and the sweep goes on; the sweep then fails as a whole so the job queue retries it (evaluation
+// is idempotent, so properties done the first time change nothing).
 import type { Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
 
-import { evaluateProperty } from "./evaluate";
+import { refreshAlertWeather } from "./alerts";
+import { afterWrite, type EvaluationSummary } from "./index";
+
+/**
+ * One property on its own (the sweep, the seed, tests): the weather cache refreshed from the
+ * provider first (outside any transaction), then afterWrite in a transaction of its own.
+ */
+export async function evaluateProperty(
+  executor: Kysely<Database>,
+  companyId: string,
+  propertyId: string,
+  options: { at?: string; provider: WeatherProvider | null },
+): Promise<EvaluationSummary> {
+  await refreshAlertWeather(executor, options.provider, companyId, propertyId, options.at);
+  const summary = await executor
+    .transaction()
+    .execute((trx) =>
+      afterWrite(trx, { companyId, propertyId, alerts: "evaluate", at: options.at }),
+    );
+  if (!summary) throw new Error(`property ${propertyId} not found in company ${companyId}`);
+  return summary;
+}
 
 export interface SweepResult {
   properties: number;
@@ -22,16 +44,23 @@ export interface SweepResult {
 export async function sweepBook(
   executor: Kysely<Database>,
   provider: WeatherProvider | null,
-  options: { onError?: (propertyId: string, err: unknown) => void; concurrency?: number } = {},
+  options: {
+    onError?: (propertyId: string, err: unknown) => void;
+    concurrency?: number;
+    /** Only these companies (the per-time-zone daily run); default: every company. */
+    companyIds?: string[];
+  } = {},
 ): Promise<SweepResult> {
   const started = Date.now();
-  const properties = await executor
+  let query = executor
     .selectFrom("properties")
     .select(["id", "company_id"])
-    .where("archived_at", "is", null)
-    .orderBy("company_id")
-    .orderBy("id")
-    .execute();
+    .where("archived_at", "is", null);
+  if (options.companyIds) {
+    if (!options.companyIds.length) query = query.where((eb) => eb.val(false));
+    else query = query.where("company_id", "in", options.companyIds);
+  }
+  const properties = await query.orderBy("company_id").orderBy("id").execute();
   const result: SweepResult = {
     properties: properties.length,
     failed: 0,

@@ -5,12 +5,12 @@ import { sql } from "kysely";
 
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
-import { propertyInScope } from "@/lib/properties/scope";
+import { propertyInScope } from "@/lib/auth/scope";
+import { alertKindLabel } from "@/lib/risk/labels";
+import type { Evidence } from "@/lib/risk/rules";
 import { escapeLike } from "@/lib/text";
 
 import type { AlertDto } from "./dto";
-import { alertKindLabel } from "./labels";
-import type { Evidence } from "./rules";
 import type { AlertFilters } from "./schemas";
 
 function baseQuery(actor: Actor) {

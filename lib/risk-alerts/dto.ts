@@ -1,7 +1,6 @@
 // Alerts as the app shows them.
 import type { AlertSeverity, AlertStatus } from "@/db/schema";
-
-import type { Evidence } from "./rules";
+import type { Evidence } from "@/lib/risk/rules";
 
 export interface AlertDto {
   id: string;

@@ -1,16 +1,14 @@
 // Alert lifecycle by hand: a technician or manager acknowledges with a note; a manager resolves
-// with a note. Evaluating a property after a finished visit. Every change is an event.
+// with a note. Every change is an event; the book's summary follows in the same transaction
+// (afterWrite without re-evaluating, which would reopen what a manager just resolved).
 import "server-only";
 
 import { db } from "@/db";
+import { afterWrite } from "@/lib/after-write";
 import type { Actor } from "@/lib/auth/actor";
-import { refreshPropertySummary } from "@/lib/book/summary";
 import { AppError, notFound } from "@/lib/http/app-error";
-import { log } from "@/lib/log";
-import { weatherProvider } from "@/lib/services/weather/instance";
 
 import type { AlertDto } from "./dto";
-import { evaluateProperty, type EvaluationSummary } from "./evaluate";
 import { getAlert } from "./queries";
 
 async function lockAlert(actor: Actor, alertId: string) {
@@ -56,8 +54,12 @@ export async function acknowledgeAlert(
           note,
         })
         .execute();
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: alert.property.id,
+        alerts: "keep",
+      });
     });
-  await refreshPropertySummary(db(), actor.companyId, alert.property.id);
   return (await getAlert(actor, alertId))!;
 }
 
@@ -84,7 +86,7 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
         .where("id", "=", alertId)
         .where("status", "!=", "resolved")
         .executeTakeFirst();
-      if (!updated.numUpdatedRows) return;
+      if (!updated.numUpdatedRows) return; // resolved meanwhile: that write refreshed the book
       await trx
         .insertInto("risk_alert_events")
         .values({
@@ -97,33 +99,11 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
           note,
         })
         .execute();
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: alert.property.id,
+        alerts: "keep",
+      });
     });
-  await refreshPropertySummary(db(), actor.companyId, alert.property.id);
   return (await getAlert(actor, alertId))!;
-}
-
-/**
- * Evaluates the property of a finished visit, so the technician sees its alerts before leaving.
- * A failure is logged and never undoes the finished visit (the daily sweep evaluates it again).
- */
-export async function evaluateAfterVisit(
-  actor: Actor,
-  visitId: string,
-): Promise<EvaluationSummary | null> {
-  const visit = await db()
-    .selectFrom("visits")
-    .select(["property_id", "scheduled_for"])
-    .where("company_id", "=", actor.companyId)
-    .where("id", "=", visitId)
-    .executeTakeFirst();
-  if (!visit) return null;
-  try {
-    return await evaluateProperty(db(), actor.companyId, visit.property_id, {
-      visitId,
-      provider: weatherProvider("quick"),
-    });
-  } catch (err) {
-    log.error({ err, visitId }, "alert evaluation after a visit failed");
-    return null;
-  }
 }

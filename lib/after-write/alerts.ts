@@ -1,20 +1,14 @@
-// Evaluates every rule for one property on a day and applies the lifecycle to its alerts. Used
-// when a visit is finished (so the technician sees the alerts before leaving) and by the daily
-// sweep of the background worker (jobs/worker.ts). Takes the database handle from its caller;
-// idempotent: the same condition updates its one live alert.
+// Evaluates every risk rule for one property on a day and applies the lifecycle to its alerts,
+// inside the caller's transaction (afterWrite). Weather comes from the cache only: no network in a
+// transaction; refreshAlertWeather fills the cache beforehand where fresh weather matters (visit
+// finish, the daily sweep). Idempotent: the same condition updates its one live alert.
 import type { Kysely, Transaction } from "kysely";
 
 import type { Database } from "@/db/schema";
 import { TURF_KC, turfKcOf, zoneWateringByDate } from "@/lib/agronomy/water";
-import { refreshPropertySummary } from "@/lib/book/summary";
 import { addDays, todayIn } from "@/lib/dates";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
-import { recentTrend } from "@/lib/scoring/history";
-import type { WeatherProvider } from "@/lib/services/weather/provider";
-import { weatherFromCache } from "@/lib/weather/cache";
-import { deriveDays } from "@/lib/weather/derived";
-
-import { decide } from "./lifecycle";
+import { decide } from "@/lib/risk/lifecycle";
 import {
   blackoutApplication,
   brownPatchWeather,
@@ -32,7 +26,11 @@ import {
   type CheckFacts,
   type RiskDay,
   type RuleResult,
-} from "./rules";
+} from "@/lib/risk/rules";
+import { recentTrend } from "@/lib/scoring/history";
+import type { WeatherProvider } from "@/lib/services/weather/provider";
+import { weatherFromCache } from "@/lib/weather/cache";
+import { deriveDays } from "@/lib/weather/derived";
 
 export interface EvaluationSummary {
   propertyId: string;
@@ -47,6 +45,32 @@ export interface EvaluationSummary {
 
 type Executor = Kysely<Database>;
 const CHECK_WINDOW_DAYS = 150;
+/** The weather the rules read: 20 days back (14-day balances and spells), 3 days of forecast. */
+const weatherWindow = (at: string) => ({ from: addDays(at, -20), to: addDays(at, 3) });
+
+/**
+ * Fills the weather cache for a property's evaluation from the provider. Network: call it before
+ * the writing transaction, never inside. A failing service leaves the cache as it was.
+ */
+export async function refreshAlertWeather(
+  executor: Executor,
+  provider: WeatherProvider | null,
+  companyId: string,
+  propertyId: string,
+  at?: string,
+): Promise<void> {
+  if (!provider) return;
+  const p = await executor
+    .selectFrom("properties")
+    .select(["latitude", "longitude", "time_zone"])
+    .where("company_id", "=", companyId)
+    .where("id", "=", propertyId)
+    .executeTakeFirst();
+  if (!p) return;
+  const today = todayIn(p.time_zone);
+  const w = weatherWindow(at ?? today);
+  await weatherFromCache(executor, provider, p.latitude, p.longitude, w.from, w.to, today);
+}
 
 /** The rule results for one property on `at` (zone rules per zone, weather rules for the property). */
 async function propertyRuleResults(
@@ -54,7 +78,6 @@ async function propertyRuleResults(
   companyId: string,
   propertyId: string,
   at: string,
-  provider: WeatherProvider | null,
 ) {
   const property = await executor
     .selectFrom("properties")
@@ -132,13 +155,14 @@ async function propertyRuleResults(
       .where("watered_on", ">=", addDays(at, -20))
       .execute(),
   ]);
+  const window = weatherWindow(at);
   const weather = await weatherFromCache(
     executor,
-    provider,
+    null, // the cache only: this runs inside the writing transaction
     property.latitude,
     property.longitude,
-    addDays(at, -20),
-    addDays(at, 3),
+    window.from,
+    window.to,
     today,
   );
   const raw = new Map(weather.days.map((d) => [d.date, d]));
@@ -202,27 +226,18 @@ async function propertyRuleResults(
   return { results, weatherStatus: weather.status };
 }
 
-/** Evaluates a property and applies the lifecycle in one transaction. */
-export async function evaluateProperty(
-  executor: Executor,
+/**
+ * Evaluates a property on `at` (default: its local today) and applies the lifecycle, in the
+ * caller's transaction, which must already hold the property row's lock (afterWrite takes it).
+ */
+export async function evaluateAlerts(
+  trx: Transaction<Database>,
   companyId: string,
   propertyId: string,
-  options: { at?: string; visitId?: string | null; provider: WeatherProvider | null },
+  options: { at: string; visitId?: string | null },
 ): Promise<EvaluationSummary> {
-  const tz = await executor
-    .selectFrom("properties")
-    .select("time_zone")
-    .where("company_id", "=", companyId)
-    .where("id", "=", propertyId)
-    .executeTakeFirstOrThrow();
-  const at = options.at ?? todayIn(tz.time_zone);
-  const { results, weatherStatus } = await propertyRuleResults(
-    executor,
-    companyId,
-    propertyId,
-    at,
-    options.provider,
-  );
+  const at = options.at;
+  const { results, weatherStatus } = await propertyRuleResults(trx, companyId, propertyId, at);
   const summary: EvaluationSummary = {
     propertyId,
     at,
@@ -233,55 +248,45 @@ export async function evaluateProperty(
     autoResolved: 0,
     weather: weatherStatus,
   };
-  await executor.transaction().execute(async (trx) => {
-    // One evaluation of a property at a time (the sweep and a finished visit may meet).
-    await trx
-      .selectFrom("properties")
-      .select("id")
-      .where("id", "=", propertyId)
-      .forUpdate()
-      .execute();
-    const existing = await trx
-      .selectFrom("risk_alerts")
-      .selectAll()
-      .where("company_id", "=", companyId)
-      .where("property_id", "=", propertyId)
-      .orderBy("created_at", "desc")
-      .execute();
-    for (const { zoneId, result } of results) {
-      const same = existing.filter((a) => a.kind === result.kind && a.zone_id === zoneId);
-      const live = same.find((a) => a.status !== "resolved");
-      const lastResolved = same.find((a) => a.status === "resolved");
-      const decision = decide(
-        live
-          ? {
-              id: live.id,
-              status: live.status as "open" | "acknowledged",
-              severity: live.severity,
-              summary: live.summary,
-              clearSince: live.clear_since,
-            }
-          : null,
-        lastResolved?.id ?? null,
-        result,
-        at,
-      );
-      await applyDecision(
-        trx,
-        companyId,
-        propertyId,
-        zoneId,
-        result,
-        decision,
-        live?.id ?? null,
-        live?.status ?? null,
-        at,
-        options.visitId ?? null,
-        summary,
-      );
-    }
-  });
-  await refreshPropertySummary(executor, companyId, propertyId); // the book shows alerts, Index and visits
+  const existing = await trx
+    .selectFrom("risk_alerts")
+    .selectAll()
+    .where("company_id", "=", companyId)
+    .where("property_id", "=", propertyId)
+    .orderBy("created_at", "desc")
+    .execute();
+  for (const { zoneId, result } of results) {
+    const same = existing.filter((a) => a.kind === result.kind && a.zone_id === zoneId);
+    const live = same.find((a) => a.status !== "resolved");
+    const lastResolved = same.find((a) => a.status === "resolved");
+    const decision = decide(
+      live
+        ? {
+            id: live.id,
+            status: live.status as "open" | "acknowledged",
+            severity: live.severity,
+            summary: live.summary,
+            clearSince: live.clear_since,
+          }
+        : null,
+      lastResolved?.id ?? null,
+      result,
+      at,
+    );
+    await applyDecision(
+      trx,
+      companyId,
+      propertyId,
+      zoneId,
+      result,
+      decision,
+      live?.id ?? null,
+      live?.status ?? null,
+      at,
+      options.visitId ?? null,
+      summary,
+    );
+  }
   return summary;
 }
 
