@@ -1,5 +1,21 @@
 // What a technician recorded, in a homeowner's words (pure).
-import type { ZoneCheckValues } from "@/lib/visits/dto";
+/** What the sentences read of a zone check (a subset of its values). */
+export interface CheckForWords {
+  quality: number | null;
+  color: number | null;
+  density: number | null;
+  uniformity: number | null;
+  barePct: number | null;
+  weedsPct: number | null;
+  heightOfCutIn: number | null;
+  soilMoisture: "dry" | "moist" | "wet" | null;
+  mowingDirection: "same" | "changed" | "unknown" | null;
+  isMatted: boolean;
+  isScalped: boolean;
+  hasTornTips: boolean;
+  hasClumpedClippings: boolean;
+  symptoms: { key: string; severity: 1 | 2 | 3; extentPct: number }[];
+}
 
 /** The 1–9 rating scale in words (9 ideal, 6 the lowest acceptable; NTEP guide, common practice). */
 function ratingWord(r: number): string {
@@ -13,7 +29,7 @@ function ratingWord(r: number): string {
 
 const SEVERITY = { 1: "light", 2: "moderate", 3: "severe" } as const;
 
-export function zoneSentences(c: ZoneCheckValues, symptomName: (key: string) => string): string[] {
+export function zoneSentences(c: CheckForWords, symptomName: (key: string) => string): string[] {
   const out: string[] = [];
   const rated: [string, number | null][] = [
     ["Overall", c.quality],
