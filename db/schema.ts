@@ -451,6 +451,8 @@ interface MailOutboxTable {
   status: ColumnType<"pending" | "sent", "pending" | "sent" | undefined, "pending" | "sent">;
   attempts: Generated<number>;
   last_error: string | null;
+  /** Not tried again before this moment (back-off after a failure). */
+  next_attempt_at: Generated<Date>;
   created_at: Generated<Date>;
   sent_at: NullableTimestamp;
 }

@@ -1,6 +1,7 @@
-// The background worker: `tsx jobs/worker.ts`. pg-boss queues in the app's own PostgreSQL; the
-// daily risk sweep (lib/risk/jobs.ts) runs at 05:15 in the first company's time zone and once
-// when the worker starts.
+// The background worker: `tsx jobs/worker.ts`. pg-boss queues in the app's own PostgreSQL: every
+// 15 minutes a tick queues the daily risk sweep of each company whose local time has reached
+// 05:15 (lib/risk-alerts/jobs.ts); each company's sweep then queues its managers' digest (outbox
+// rows); the outbox is delivered every minute. When the worker starts it sweeps every company.
 import PgBoss from "pg-boss";
 
 import { createDb } from "@/db/client";
@@ -8,13 +9,14 @@ import { sweepBook } from "@/lib/after-write/sweep";
 import { log } from "@/lib/log";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
-import { sendHighAlertDigests } from "@/lib/risk-alerts/digest";
+import { queueHighAlertDigests } from "@/lib/risk-alerts/digest";
 import {
-  DIGEST_QUEUE,
+  DAILY_AT,
+  queueDigest,
+  queueSweeps,
   registerAlertDigest,
+  registerDailyTick,
   registerRiskSweep,
-  SWEEP_CRON,
-  SWEEP_QUEUE,
 } from "@/lib/risk-alerts/jobs";
 import { smtpMailer } from "@/lib/services/mail";
 import { jsonWeatherProvider } from "@/lib/services/weather/provider";
@@ -38,43 +40,42 @@ const boss = new PgBoss({ connectionString: url, schema: "pgboss", max: 3 });
 boss.on("error", (err) => log.error({ err }, "job queue error"));
 
 await boss.start();
-const zone =
-  (await db.selectFrom("companies").select("time_zone").orderBy("created_at").executeTakeFirst())
-    ?.time_zone ?? "America/New_York";
-await registerRiskSweep(
-  boss,
-  async () => {
-    const result = await sweepBook(db, weather, {
-      onError: (propertyId, err) => log.error({ err, propertyId }, "risk sweep: property failed"),
-    });
-    log.info(result, "risk sweep done");
-    await boss.send(DIGEST_QUEUE, { after: "sweep" });
-    return result;
-  },
-  { timeZone: zone },
-);
-await registerAlertDigest(boss, async () => {
-  if (!mailer) {
-    log.warn("alert digest: SMTP_URL is not set, nothing sent");
-    return { messages: 0, alerts: 0 };
-  }
-  const result = await sendHighAlertDigests(db, mailer, { appUrl });
-  log.info(result, "alert digest sent");
+await registerRiskSweep(boss, async ({ companyId }) => {
+  const result = await sweepBook(db, weather, {
+    companyIds: companyId ? [companyId] : undefined,
+    onError: (propertyId, err) => log.error({ err, propertyId }, "risk sweep: property failed"),
+  });
+  log.info({ ...result, companyId }, "risk sweep done");
+  await queueDigest(boss, companyId);
   return result;
 });
-await registerMailOutbox(
+await registerAlertDigest(boss, async ({ companyId }) => {
+  const result = await queueHighAlertDigests(db, {
+    appUrl,
+    companyIds: companyId ? [companyId] : undefined,
+  });
+  if (result.messages) {
+    log.info({ ...result, companyId }, "alert digest queued");
+    await boss.send(MAIL_QUEUE, { reason: "digest" });
+  }
+  return result;
+});
+await registerMailOutbox(boss, async () => {
+  if (!mailer) return { sent: 0, pending: 0 };
+  const result = await deliverPendingMail(db, mailer);
+  if (result.sent) log.info(result, "outbox delivered");
+  return result;
+});
+await registerDailyTick(boss, db);
+const companies = await db.selectFrom("companies").select("id").execute();
+await queueSweeps(
   boss,
-  async () => {
-    if (!mailer) return { sent: 0, pending: 0 };
-    const result = await deliverPendingMail(db, mailer);
-    if (result.sent) log.info(result, "outbox delivered");
-    return result;
-  },
-  { timeZone: zone },
+  companies.map((c) => c.id),
+  "worker start",
 );
-await boss.send(SWEEP_QUEUE, { reason: "worker start" });
 await boss.send(MAIL_QUEUE, { reason: "worker start" });
-console.log(`worker: ready (daily risk sweep "${SWEEP_CRON}" ${zone})`);
+const at = `${DAILY_AT.hour}:${String(DAILY_AT.minute).padStart(2, "0")}`;
+console.log(`worker: ready (daily risk sweep at ${at} in each company's time zone)`);
 
 const stop = async () => {
   await boss.stop({ graceful: true, timeout: 10_000 });

@@ -58,8 +58,13 @@ export const { handlers, signIn, signOut } = NextAuth({
       server: process.env.SMTP_URL ?? "smtp://127.0.0.1:25",
       from: MAIL_FROM,
       maxAge: SIGN_IN_LINK_MINUTES * 60,
-      sendVerificationRequest: ({ identifier, url, token }) =>
-        queueSignInLink({ identifier, url, token }),
+      // The secret Auth.js hashes a link's token with (it prefers the provider's own), named here
+      // so the token row written with the e-mail carries the same hash.
+      secret: process.env.AUTH_SECRET,
+      sendVerificationRequest: ({ identifier, url, token, expires, provider }) => {
+        if (!provider.secret) throw new Error("AUTH_SECRET is not set");
+        return queueSignInLink({ identifier, url, token, expires, secret: provider.secret });
+      },
     }),
     Credentials({
       credentials: { email: { type: "email" }, password: { type: "password" } },

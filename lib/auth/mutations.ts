@@ -5,6 +5,7 @@ import { randomBytes } from "node:crypto";
 import { sql } from "kysely";
 
 import { db } from "@/db";
+import { enqueueMail, type OutgoingMail } from "@/lib/mail/outbox";
 
 import type { LinkUser } from "./dto";
 
@@ -53,16 +54,21 @@ export async function markEmailVerified(
   return { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified };
 }
 
-export async function storeVerificationToken(token: {
-  identifier: string;
-  token: string;
-  expires: Date;
-}): Promise<void> {
+/** A sign-in link: the token row (its hash) and the link's e-mail commit together. */
+export async function storeSignInLink(
+  token: { identifier: string; token: string; expires: Date },
+  mail: OutgoingMail,
+): Promise<void> {
   await db()
-    .deleteFrom("verification_tokens")
-    .where("expires", "<", sql<Date>`now() - interval '1 day'`)
-    .execute();
-  await db().insertInto("verification_tokens").values(token).execute();
+    .transaction()
+    .execute(async (trx) => {
+      await trx
+        .deleteFrom("verification_tokens")
+        .where("expires", "<", sql<Date>`now() - interval '1 day'`)
+        .execute();
+      await trx.insertInto("verification_tokens").values(token).execute();
+      await enqueueMail(trx, mail);
+    });
 }
 
 /** Deleting as it is read makes a link single-use, even when opened twice at once. */

@@ -1,17 +1,17 @@
 // Sign-in links for homeowners (Auth.js e-mail provider). Staff keep their passwords; only an
 // active homeowner gets a link. A link works once (the token row is deleted as it is used) and
 // for SIGN_IN_LINK_MINUTES; what travels in the e-mail is the token, what is stored is its hash
-// (Auth.js hashes it with the secret). Requests are throttled in requestSignInLinkAction.
+// (Auth.js hashes it with the secret). The token row and its e-mail (an outbox row) are written in
+// one transaction. Requests are throttled in requestSignInLinkAction.
 import "server-only";
 
 import { createHash } from "node:crypto";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
 
 import { signInLinkEmail } from "@/lib/auth/sign-in-email";
-import { queueMail } from "@/lib/mail/mutations";
 
 import type { Homeowner } from "./dto";
-import { markEmailVerified, storeVerificationToken, takeVerificationToken } from "./mutations";
+import { markEmailVerified, storeSignInLink, takeVerificationToken } from "./mutations";
 import { findHomeowner as findHomeownerByKey, findUserById } from "./queries";
 import { normaliseEmail } from "./throttle";
 
@@ -34,8 +34,9 @@ const asAdapterUser = (h: Homeowner): AdapterUser => ({
 
 /** Just what the e-mail provider needs. Sward never creates an account at sign-in. */
 export const signInLinkAdapter: Adapter = {
+  // Auth.js calls this beside sendVerificationRequest; the row is written there instead, in the
+  // transaction of its e-mail (queueSignInLink), so a token never exists without its message.
   async createVerificationToken(token) {
-    await storeVerificationToken(token);
     return token;
   },
   async useVerificationToken({ identifier, token }) {
@@ -66,11 +67,22 @@ export function confirmationUrl(callbackUrl: string): string {
   return `${url.origin}/sign-in/link?${url.searchParams.toString()}`;
 }
 
-/** The provider's sendVerificationRequest: the message goes into the outbox (delivered right after the response, retried by the worker). */
+/** What Auth.js stores and later looks up for a link's token: sha256 of the token and the secret. */
+export function hashedToken(token: string, secret: string): string {
+  return createHash("sha256").update(`${token}${secret}`).digest("hex");
+}
+
+/**
+ * The provider's sendVerificationRequest: the token row (hashed as Auth.js checks it) and the
+ * message in the outbox, in one transaction (delivered right after the response, retried by the
+ * worker).
+ */
 export async function queueSignInLink(params: {
   identifier: string;
   url: string;
   token: string;
+  expires: Date;
+  secret: string;
 }): Promise<void> {
   const h = await findHomeowner(params.identifier);
   if (!h) return; // the signIn callback refuses these before a token is made
@@ -81,11 +93,18 @@ export async function queueSignInLink(params: {
     name: h.name,
   });
   const key = createHash("sha256").update(params.token).digest("hex").slice(0, 40);
-  await queueMail({
-    companyId: h.companyId,
-    kind: "sign_in_link",
-    dedupeKey: `sign_in_link:${key}`,
-    to: h.email,
-    ...mail,
-  });
+  await storeSignInLink(
+    {
+      identifier: params.identifier,
+      token: hashedToken(params.token, params.secret),
+      expires: params.expires,
+    },
+    {
+      companyId: h.companyId,
+      kind: "sign_in_link",
+      dedupeKey: `sign_in_link:${key}`,
+      to: h.email,
+      ...mail,
+    },
+  );
 }

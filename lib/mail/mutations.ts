@@ -1,4 +1,5 @@
-// Mail from the web process. queueMail puts a message in the outbox; deliverMailAfterResponse
+// Mail from the web process: the rows are written by the writes that cause them (in their own
+// transaction, lib/mail/outbox.ts); deliverMailAfterResponse
 // delivers what is waiting in the outbox right after the response is sent,
 // so a sign-in link or a report e-mail arrives in seconds. If SMTP fails the row stays pending and
 // the worker's minute-by-minute run retries it; row claims keep the two from sending it twice.
@@ -11,11 +12,7 @@ import { serverEnv } from "@/lib/env";
 import { log } from "@/lib/log";
 import { smtpMailer, type Mailer } from "@/lib/services/mail";
 
-import { deliverPendingMail, enqueueMail, type OutgoingMail } from "./outbox";
-
-export function queueMail(mail: OutgoingMail): Promise<boolean> {
-  return enqueueMail(db(), mail);
-}
+import { deliverPendingMail } from "./outbox";
 
 let mailer: Mailer | undefined;
 

@@ -1,7 +1,9 @@
-// The outbox (db handle from the caller): enqueue a message once per dedupe key; deliver the
-// pending ones, marking each sent only after SMTP accepted it. Delivery is at least once: a crash
-// between "accepted" and "marked" can repeat one message, never lose it.
-import type { Kysely } from "kysely";
+// The outbox (db handle from the caller): enqueue a message once per dedupe key — in the
+// transaction of the change that causes it, so the two commit together; deliver the pending ones,
+// marking each sent only after SMTP accepted it, each failed row waiting longer before its next
+// try. Delivery is at least once: a crash between "accepted" and "marked" can repeat one message,
+// never lose it.
+import { sql, type Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
 import type { Mailer } from "@/lib/services/mail";
@@ -38,8 +40,13 @@ export async function enqueueMail(
   return Boolean(inserted);
 }
 
+/** Seconds before the next try after `attempts` failures: 30 s, 1, 2, 4 … minutes, at most an hour. */
+export function retryDelaySeconds(attempts: number): number {
+  return Math.min(3600, 30 * 2 ** Math.max(0, attempts - 1));
+}
+
 /**
- * Sends what is pending, oldest first, one row at a time: each row is claimed with
+ * Sends what is pending and due, oldest first, one row at a time: each row is claimed with
  * `for update skip locked`, so the worker and a web process delivering at the same moment never
  * send the same message twice. Stops at the first SMTP failure (the service is likely down) and
  * throws, so the job retries.
@@ -53,9 +60,14 @@ export async function deliverPendingMail(
   let sent = 0;
   while (sent < limit) {
     const outcome = await executor.transaction().execute(async (trx) => {
-      let query = trx.selectFrom("mail_outbox").selectAll().where("status", "=", "pending");
+      let query = trx
+        .selectFrom("mail_outbox")
+        .selectAll()
+        .where("status", "=", "pending")
+        .where("next_attempt_at", "<=", sql<Date>`now()`);
       if (filter?.kind) query = query.where("kind", "=", filter.kind);
       const m = await query
+        .orderBy("next_attempt_at")
         .orderBy("created_at")
         .limit(1)
         .forUpdate()
@@ -75,6 +87,7 @@ export async function deliverPendingMail(
           .set((eb) => ({
             attempts: eb("attempts", "+", 1),
             last_error: String(err instanceof Error ? err.message : err).slice(0, 500),
+            next_attempt_at: sql<Date>`now() + make_interval(secs => ${retryDelaySeconds(m.attempts + 1)})`,
           }))
           .where("id", "=", m.id)
           .execute();

@@ -1,14 +1,15 @@
-// The managers' digest of new high-severity alerts through nodemailer to the local fake SMTP
-// service: one message per company with each alert; nothing sent twice; an SMTP outage delays the
-// digest (the alerts stay un-notified and the call fails, so the job retries) and, once the
-// service is back, exactly one copy arrives.
+// The managers' digest of new high-severity alerts: outbox rows (one per manager) written with the
+// alerts marked notified, delivered through nodemailer to the local fake SMTP service; nothing
+// queued twice; an SMTP outage delays the digest (the rows stay pending, the delivery fails so the
+// job retries) and, once the service is back, exactly one copy arrives.
 import { mkdtemp } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { evaluateProperty } from "@/lib/after-write/sweep";
-import { sendHighAlertDigests } from "@/lib/risk-alerts/digest";
+import { deliverPendingMail } from "@/lib/mail/outbox";
+import { queueHighAlertDigests } from "@/lib/risk-alerts/digest";
 import { smtpMailer } from "@/lib/services/mail";
 
 import { readInbox, startSmtpFake } from "../harness/smtp-fake";
@@ -33,7 +34,12 @@ afterAll(async () => {
 describe("high-severity alert digest", () => {
   it("sends one message to the company's managers listing each new high alert, and never twice", async () => {
     const mailer = smtpMailer(`smtp://127.0.0.1:${smtp.port}`);
-    await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
+    const queued = await queueHighAlertDigests(testDb(), {
+      appUrl: "http://localhost:3000",
+      companyIds: [c.companyId],
+    });
+    expect(queued).toMatchObject({ alerts: 2 });
+    await deliverPendingMail(testDb(), mailer, 100, { kind: "alert_digest" });
     const mails = await ours();
     expect(mails).toHaveLength(1);
     expect(mails[0]!.subject).toMatch(/^2 new high-severity alerts in Larkmoor Lawn Care/);
@@ -43,11 +49,20 @@ describe("high-severity alert digest", () => {
     );
     expect(mails[0]!.text).not.toMatch(/Torn tips/); // low severity: not in the digest
     expect(mails[0]!.html).toContain('href="http://localhost:3000/risk-alerts?severity=high"');
-    await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
+    expect(
+      await queueHighAlertDigests(testDb(), {
+        appUrl: "http://localhost:3000",
+        companyIds: [c.companyId],
+      }),
+    ).toEqual({
+      messages: 0,
+      alerts: 0,
+    });
+    await deliverPendingMail(testDb(), mailer, 100, { kind: "alert_digest" });
     expect(await ours()).toHaveLength(1);
   });
 
-  it("SMTP down: the digest fails and keeps the alert pending; back up: exactly one copy", async () => {
+  it("SMTP down: the digest waits in the outbox; back up: exactly one copy", async () => {
     const alert = await testDb()
       .selectFrom("risk_alerts")
       .select("id")
@@ -62,21 +77,54 @@ describe("high-severity alert digest", () => {
     const port = smtp.port;
     await smtp.close();
     const mailer = smtpMailer(`smtp://127.0.0.1:${port}`);
+    await queueHighAlertDigests(testDb(), {
+      appUrl: "http://localhost:3000",
+      companyIds: [c.companyId],
+    });
     await expect(
-      sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" }),
+      deliverPendingMail(testDb(), mailer, 100, { kind: "alert_digest" }),
     ).rejects.toThrow();
-    expect(
-      (
-        await testDb()
-          .selectFrom("risk_alerts")
-          .select("notified_at")
-          .where("id", "=", alert.id)
-          .executeTakeFirstOrThrow()
-      ).notified_at,
-    ).toBeNull();
+    const pending = await testDb()
+      .selectFrom("mail_outbox")
+      .select(["id", "status", "attempts", "next_attempt_at"])
+      .where("company_id", "=", c.companyId)
+      .where("kind", "=", "alert_digest")
+      .where("status", "=", "pending")
+      .where("to_address", "=", c.emails["manager"]!)
+      .execute();
+    expect(pending).toHaveLength(1);
+    expect(pending[0]!.attempts).toBeLessThanOrEqual(1); // the first pending row took the failed try
+    const tried = await testDb()
+      .selectFrom("mail_outbox")
+      .select(["attempts", "next_attempt_at", "last_error"])
+      .where("company_id", "=", c.companyId)
+      .where("kind", "=", "alert_digest")
+      .where("attempts", ">", 0)
+      .where("status", "=", "pending")
+      .executeTakeFirstOrThrow();
+    expect(tried.next_attempt_at.getTime()).toBeGreaterThan(Date.now()); // backing off
+    expect(tried.last_error).toBeTruthy();
     smtp = await startSmtpFake(port, dir);
-    await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
-    await sendHighAlertDigests(testDb(), mailer, { appUrl: "http://localhost:3000" });
+    // The failed row is not tried again before its back-off has passed (the others go out).
+    await deliverPendingMail(testDb(), mailer, 100, { kind: "alert_digest" });
+    expect(
+      await testDb()
+        .selectFrom("mail_outbox")
+        .select("status")
+        .where("company_id", "=", c.companyId)
+        .where("kind", "=", "alert_digest")
+        .where("attempts", ">", 0)
+        .where("status", "=", "pending")
+        .execute(),
+    ).toHaveLength(1);
+    await testDb()
+      .updateTable("mail_outbox")
+      .set({ next_attempt_at: new Date() })
+      .where("company_id", "=", c.companyId)
+      .where("status", "=", "pending")
+      .execute(); // the back-off has passed
+    await deliverPendingMail(testDb(), mailer, 100, { kind: "alert_digest" });
+    await deliverPendingMail(testDb(), mailer, 100, { kind: "alert_digest" });
     const mails = await ours();
     expect(mails).toHaveLength(2);
     expect(mails[1]!.subject).toMatch(/^1 new high-severity alert in/);

@@ -196,7 +196,7 @@ describe("the sweep as a pg-boss job", () => {
         if (calls === 1) throw new Error("weather service fell over");
         return sweepBook(testDb(), null);
       },
-      { timeZone: "America/New_York", retryDelaySeconds: 1, schedule: false },
+      { retryDelaySeconds: 1 },
     );
     const jobId = (await boss.send(SWEEP_QUEUE, {}))!;
     let state = "";

@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   confirmationUrl,
   countRecentLinkRequests,
+  hashedToken,
   queueSignInLink,
   recordLinkRequest,
   signInLinkAdapter,
@@ -24,6 +25,15 @@ let c: TestCompany;
 let dir = "";
 let smtp: Awaited<ReturnType<typeof startSmtpFake>>;
 const adapter = signInLinkAdapter as Required<typeof signInLinkAdapter>;
+const SECRET = "integration-links-secret-0123456789abcdef";
+const LINK =
+  "http://localhost:3000/api/auth/callback/nodemailer?callbackUrl=%2Fmy-lawn&token=t&email=x";
+
+/** Asks for a link as Auth.js does (sendVerificationRequest); answers the hash Auth.js looks up. */
+async function issueLink(identifier: string, token: string, expires: Date): Promise<string> {
+  await queueSignInLink({ identifier, url: LINK, token, expires, secret: SECRET });
+  return hashedToken(token, SECRET);
+}
 
 beforeAll(async () => {
   c = await createTestCompany();
@@ -61,12 +71,11 @@ describe("who can get a sign-in link", () => {
 describe("a link's token", () => {
   const identifier = () => c.emails["owner1"]!;
   it("works once: the second use — even at the same moment — finds nothing", async () => {
-    const token = `hash-${Date.now()}-a`;
-    await adapter.createVerificationToken({
-      identifier: identifier(),
-      token,
-      expires: new Date(Date.now() + 15 * 60_000),
-    });
+    const token = await issueLink(
+      identifier(),
+      `raw-${Date.now()}-a`,
+      new Date(Date.now() + 15 * 60_000),
+    );
     const uses = await Promise.all(
       Array.from({ length: 5 }, () =>
         adapter.useVerificationToken({ identifier: identifier(), token }),
@@ -79,12 +88,11 @@ describe("a link's token", () => {
     );
   });
   it("used with another e-mail address it finds nothing and stays usable by its owner", async () => {
-    const token = `hash-${Date.now()}-b`;
-    await adapter.createVerificationToken({
-      identifier: identifier(),
-      token,
-      expires: new Date(Date.now() + 15 * 60_000),
-    });
+    const token = await issueLink(
+      identifier(),
+      `raw-${Date.now()}-b`,
+      new Date(Date.now() + 15 * 60_000),
+    );
     expect(
       await adapter.useVerificationToken({ identifier: c.emails["owner2"]!, token }),
     ).toBeNull();
@@ -93,9 +101,8 @@ describe("a link's token", () => {
     });
   });
   it("comes back with its expiry, so Auth.js can refuse an expired one", async () => {
-    const token = `hash-${Date.now()}-c`;
     const expires = new Date(Date.now() - 60_000);
-    await adapter.createVerificationToken({ identifier: identifier(), token, expires });
+    const token = await issueLink(identifier(), `raw-${Date.now()}-c`, expires);
     const used = await adapter.useVerificationToken({ identifier: identifier(), token });
     expect(used?.expires.getTime()).toBe(expires.getTime());
   });
@@ -132,16 +139,29 @@ describe("the link e-mail", () => {
     );
 
     const to = c.emails["owner2"]!;
+    const expires = new Date(Date.now() + 15 * 60_000);
+    const raw = `tok-${Date.now()}`;
     await queueSignInLink({
       identifier: to,
       url: callback.replace("owner%40x.test", encodeURIComponent(to)),
-      token: `tok-${Date.now()}`,
+      token: raw,
+      expires,
+      secret: SECRET,
     });
     await queueSignInLink({
       identifier: "stranger@sward.test",
       url: callback,
       token: `tok-${Date.now()}-s`,
-    }); // no account: nothing queued
+      expires,
+      secret: SECRET,
+    }); // no account: nothing queued, no token stored
+    // The token row was written with its e-mail, hashed as Auth.js will look it up.
+    const rows = await testDb()
+      .selectFrom("verification_tokens")
+      .select(["identifier", "token"])
+      .where("token", "in", [hashedToken(raw, SECRET), hashedToken(`${raw}-s`, SECRET)])
+      .execute();
+    expect(rows).toEqual([{ identifier: to, token: hashedToken(raw, SECRET) }]);
     const mailer = smtpMailer(`smtp://127.0.0.1:${smtp.port}`);
     await Promise.all([
       deliverPendingMail(testDb(), mailer, 100, { kind: "sign_in_link" }),
