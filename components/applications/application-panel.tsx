@@ -5,9 +5,12 @@
 import { useQuery } from "@tanstack/react-query";
 import { CircleAlert, FlaskConical, TriangleAlert } from "lucide-react";
 import { useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import {
   isVolumeUnit,
   nutrientsPer1000,
@@ -17,15 +20,23 @@ import {
 } from "@/lib/agronomy/nutrients";
 import { checkApplication, type RuleFinding } from "@/lib/agronomy/rules";
 import type { ApplicationDto } from "@/lib/applications/dto";
+import { applicationSchema } from "@/lib/applications/schemas";
 import { RATE_UNIT_LABEL, RATE_UNITS } from "@/lib/applications/units";
 import { todayIn } from "@/lib/dates";
 import { analysisOf, type ProductDto } from "@/lib/products/dto";
+import { productKeys } from "@/lib/products/query-keys";
 import { fetchJson, sendJson } from "@/lib/query-client";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
+import { ruleSetKeys } from "@/lib/rule-sets/query-keys";
 
 import { SafetyCautions } from "./safety-cautions";
 
 const f2 = (x: number) => x.toFixed(2);
+
+type FormIn = z.input<typeof applicationSchema>;
+type FormOut = z.output<typeof applicationSchema>;
+
+const resolver = formResolver(applicationSchema);
 
 function computeMaths(product: ProductDto, amount: number, unit: RateUnit, areaFt2: number) {
   try {
@@ -163,38 +174,50 @@ export function ApplicationPanel({
   weather: { tmaxF: number; windMph: number | null } | null;
 }) {
   const products = useQuery({
-    queryKey: ["products"],
+    queryKey: productKeys.list(),
     queryFn: async () => (await fetchJson<{ items: ProductDto[] }>("/api/v1/products")).items,
   });
   const ruleSets = useQuery({
-    queryKey: ["rule-sets"],
+    queryKey: ruleSetKeys.list(),
     queryFn: async () => (await fetchJson<{ items: RuleSetDto[] }>("/api/v1/rule-sets")).items,
   });
   const [isOpen, setIsOpen] = useState(false);
-  const [productId, setProductId] = useState("");
-  const [amount, setAmount] = useState("");
-  const [unit, setUnit] = useState<RateUnit>("lb/1000ft2");
   const [targetN, setTargetN] = useState("");
-  const [temperatureF, setTemperatureF] = useState(
-    weather ? String(Math.round(weather.tmaxF)) : "",
-  );
-  const [windMph, setWindMph] = useState(
-    weather?.windMph !== null && weather?.windMph !== undefined ? String(weather.windMph) : "",
-  );
-  const [isEstablishing, setIsEstablishing] = useState(false);
-  const [applicatorName, setApplicatorName] = useState("");
-  const [applicatorLicence, setApplicatorLicence] = useState("");
-  const [overrideReason, setOverrideReason] = useState("");
   const [serverFindings, setServerFindings] = useState<RuleFinding[] | null>(null);
   const [message, setMessage] = useState<string | null>(null);
-  const [fieldErrors, setFieldErrors] = useState<Record<string, string[]>>({});
-  const [id, setId] = useState(() => crypto.randomUUID());
-  const [isSaving, setIsSaving] = useState(false);
+  const {
+    register,
+    handleSubmit,
+    reset,
+    setError,
+    setValue,
+    control,
+    formState: { errors, isSubmitting: isSaving },
+  } = useForm<FormIn, unknown, FormOut>({
+    resolver,
+    defaultValues: {
+      id: crypto.randomUUID(),
+      zoneId,
+      productId: "",
+      rateAmount: null as unknown as number, // empty until typed: "Enter the rate."
+      rateUnit: "lb/1000ft2",
+      temperatureF: weather ? Math.round(weather.tmaxF) : null,
+      windMph: weather?.windMph ?? null,
+      isEstablishing: false,
+      applicatorName: "",
+      applicatorLicence: "",
+      overrideReason: "",
+    },
+  });
+  const [productId, rateAmount, unit, isEstablishing, overrideReason] = useWatch({
+    control,
+    name: ["productId", "rateAmount", "rateUnit", "isEstablishing", "overrideReason"],
+  });
+  const forgetServerFindings = () => setServerFindings(null);
 
   const product = products.data?.find((p) => p.id === productId);
   const ruleSet = ruleSets.data?.find((r) => r.id === ruleSetId) ?? null;
-  const rateAmount = Number(amount);
-  const hasRate = product !== undefined && amount !== "" && rateAmount > 0;
+  const hasRate = product !== undefined && typeof rateAmount === "number" && rateAmount > 0;
   const units = RATE_UNITS.filter((u) => !isVolumeUnit(u) || product?.densityLbPerGal);
 
   // A preview of the rule checks (the server repeats them with the zone's year-to-date N and soil test).
@@ -209,7 +232,7 @@ export function ApplicationPanel({
           wsnLb: preview.wsnLb,
           p2o5Lb: preview.p2o5Lb,
           slowReleasePctOfN: product.slowReleasePctOfN,
-          isEstablishing,
+          isEstablishing: isEstablishing ?? false,
           soilTestOn: null,
           yearToDateNLb: 0,
           annualNRange: null,
@@ -222,50 +245,41 @@ export function ApplicationPanel({
     if (!product || !(target > 0)) return;
     try {
       const rate = rateForNitrogen(analysisOf(product), target);
-      setUnit(rate.unit);
-      setAmount(String(Math.round(rate.amount * 100) / 100));
+      setValue("rateUnit", rate.unit);
+      setValue("rateAmount", Math.round(rate.amount * 100) / 100);
     } catch (err) {
       setMessage(err instanceof Error ? err.message : null);
     }
   }
 
-  async function submit(withOverride: boolean) {
-    if (!product) return setFieldErrors({ productId: ["Choose a product."] });
-    setIsSaving(true);
-    setMessage(null);
-    setFieldErrors({});
-    const result = await sendJson<ApplicationDto>(
-      "POST",
-      `/api/v1/visits/${visitId}/applications`,
-      {
-        id,
-        zoneId,
-        productId: product.id,
-        rateAmount,
-        rateUnit: unit,
-        windMph: windMph === "" ? null : Number(windMph),
-        temperatureF: temperatureF === "" ? null : Number(temperatureF),
-        isEstablishing,
-        applicatorName,
-        applicatorLicence,
-        overrideReason: withOverride && overrideReason.trim() ? overrideReason.trim() : null,
-      },
-    );
-    setIsSaving(false);
-    if (result.ok) {
-      onRecorded(result.data);
-      setServerFindings(null);
-      setIsOpen(false);
-      setAmount("");
-      setTargetN("");
-      setOverrideReason("");
-      setId(crypto.randomUUID());
-      return;
-    }
-    setMessage(result.error.message);
-    setFieldErrors(result.error.fieldErrors ?? {});
-    setServerFindings((result.error.details?.findings as RuleFinding[] | undefined) ?? null);
-  }
+  const record = (withOverride: boolean) =>
+    handleSubmit(async (values) => {
+      setMessage(null);
+      const result = await sendJson<ApplicationDto>(
+        "POST",
+        `/api/v1/visits/${visitId}/applications`,
+        {
+          ...values,
+          overrideReason: withOverride && values.overrideReason ? values.overrideReason : null,
+        },
+      );
+      if (result.ok) {
+        onRecorded(result.data);
+        setServerFindings(null);
+        setIsOpen(false);
+        setTargetN("");
+        reset({
+          ...values,
+          id: crypto.randomUUID(),
+          rateAmount: null as unknown as number,
+          overrideReason: "",
+        });
+        return;
+      }
+      setMessage(result.error.message);
+      applyFieldErrors(result.error.fieldErrors, setError as never);
+      setServerFindings((result.error.details?.findings as RuleFinding[] | undefined) ?? null);
+    });
 
   const here = applications.filter((a) => a.zoneId === zoneId);
   const shownFindings = serverFindings ?? liveFindings;
@@ -318,14 +332,11 @@ export function ApplicationPanel({
             reentryGuidance={product?.reentryGuidance}
             isPesticide={product?.isPesticide}
           />
-          <Field id={`${zoneId}-product`} label="Product" error={fieldErrors.productId?.[0]}>
+          <Field id={`${zoneId}-product`} label="Product" error={errors.productId?.message}>
             <select
               id={`${zoneId}-product`}
-              value={productId}
-              onChange={(e) => {
-                setProductId(e.target.value);
-                setServerFindings(null);
-              }}
+              {...register("productId", { onChange: forgetServerFindings })}
+              aria-invalid={errors.productId ? true : undefined}
               className={inputClass}
             >
               <option value="">Choose a product</option>
@@ -356,24 +367,23 @@ export function ApplicationPanel({
             <Field
               id={`${zoneId}-rate`}
               label="Rate"
-              error={fieldErrors.rateAmount?.[0] ?? fieldErrors.rateUnit?.[0]}
+              error={errors.rateAmount?.message ?? errors.rateUnit?.message}
             >
               <input
                 id={`${zoneId}-rate`}
                 inputMode="decimal"
-                value={amount}
-                onChange={(e) => {
-                  setAmount(e.target.value);
-                  setServerFindings(null);
-                }}
+                {...register("rateAmount", {
+                  setValueAs: numberOrNull,
+                  onChange: forgetServerFindings,
+                })}
+                aria-invalid={errors.rateAmount ? true : undefined}
                 className={inputClass}
               />
             </Field>
             <Field id={`${zoneId}-unit`} label="Unit">
               <select
                 id={`${zoneId}-unit`}
-                value={unit}
-                onChange={(e) => setUnit(e.target.value as RateUnit)}
+                {...register("rateUnit", { onChange: forgetServerFindings })}
                 className={inputClass}
               >
                 {units.map((u) => (
@@ -392,37 +402,32 @@ export function ApplicationPanel({
             <Field
               id={`${zoneId}-temp`}
               label={weather ? "Temperature (°F, from today's weather)" : "Temperature (°F)"}
-              error={fieldErrors.temperatureF?.[0]}
+              error={errors.temperatureF?.message}
             >
               <input
                 id={`${zoneId}-temp`}
                 inputMode="decimal"
-                value={temperatureF}
-                onChange={(e) => setTemperatureF(e.target.value)}
+                {...register("temperatureF", { setValueAs: numberOrNull })}
+                aria-invalid={errors.temperatureF ? true : undefined}
                 className={inputClass}
               />
             </Field>
             <Field
               id={`${zoneId}-wind`}
               label={weather ? "Wind (mph, from today's weather)" : "Wind (mph)"}
-              error={fieldErrors.windMph?.[0]}
+              error={errors.windMph?.message}
             >
               <input
                 id={`${zoneId}-wind`}
                 inputMode="decimal"
-                value={windMph}
-                onChange={(e) => setWindMph(e.target.value)}
+                {...register("windMph", { setValueAs: numberOrNull })}
+                aria-invalid={errors.windMph ? true : undefined}
                 className={inputClass}
               />
             </Field>
           </div>
           <label className="flex min-h-tap items-center gap-2 font-semibold">
-            <input
-              type="checkbox"
-              checked={isEstablishing}
-              onChange={(e) => setIsEstablishing(e.target.checked)}
-              className="size-6"
-            />
+            <input type="checkbox" {...register("isEstablishing")} className="size-6" />
             Establishing or repairing turf (seeding, sodding)
           </label>
           {product?.isPesticide ? (
@@ -430,24 +435,22 @@ export function ApplicationPanel({
               <Field
                 id={`${zoneId}-applicator`}
                 label="Certified applicator"
-                error={fieldErrors.applicatorName?.[0]}
+                error={errors.applicatorName?.message}
               >
                 <input
                   id={`${zoneId}-applicator`}
-                  value={applicatorName}
-                  onChange={(e) => setApplicatorName(e.target.value)}
+                  {...register("applicatorName")}
                   className={inputClass}
                 />
               </Field>
               <Field
                 id={`${zoneId}-licence`}
                 label="Certification (licence) number"
-                error={fieldErrors.applicatorLicence?.[0]}
+                error={errors.applicatorLicence?.message}
               >
                 <input
                   id={`${zoneId}-licence`}
-                  value={applicatorLicence}
-                  onChange={(e) => setApplicatorLicence(e.target.value)}
+                  {...register("applicatorLicence")}
                   className={inputClass}
                 />
               </Field>
@@ -466,8 +469,7 @@ export function ApplicationPanel({
               <textarea
                 id={`${zoneId}-override`}
                 rows={2}
-                value={overrideReason}
-                onChange={(e) => setOverrideReason(e.target.value)}
+                {...register("overrideReason")}
                 className={inputClass}
               />
             </Field>
@@ -476,13 +478,13 @@ export function ApplicationPanel({
             {isRefusedNow && isManager ? (
               <Button
                 type="button"
-                disabled={isSaving || !overrideReason.trim()}
-                onClick={() => submit(true)}
+                disabled={isSaving || !overrideReason?.trim()}
+                onClick={record(true)}
               >
                 Record with override
               </Button>
             ) : (
-              <Button type="button" disabled={isSaving || !hasRate} onClick={() => submit(false)}>
+              <Button type="button" disabled={isSaving || !hasRate} onClick={record(false)}>
                 {isSaving ? "Recording…" : "Record application"}
               </Button>
             )}

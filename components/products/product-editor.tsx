@@ -2,25 +2,23 @@
 
 // Add or edit a catalogue product (manager): guaranteed analysis, slow-release share, density for
 // liquids, label cautions and re-entry; pesticides carry their registration number.
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import type { z } from "zod";
+import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
-import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import type { ProductDto } from "@/lib/products/dto";
 import { productSchema } from "@/lib/products/schemas";
-import { sendJson } from "@/lib/query-client";
+
+import { useSaveProduct } from "./use-products";
 
 type FormIn = z.input<typeof productSchema>;
 type FormOut = z.output<typeof productSchema>;
-const numberOrNull = (v: unknown) =>
-  v === "" || v === null || Number.isNaN(Number(v)) ? null : Number(v);
 
 export function ProductEditor({ product, onDone }: { product?: ProductDto; onDone: () => void }) {
-  const router = useRouter();
+  const saveProduct = useSaveProduct();
   const [message, setMessage] = useState<string | null>(null);
   const {
     register,
@@ -29,7 +27,7 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
     control,
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
-    resolver: zodResolver(productSchema),
+    resolver: formResolver(productSchema),
     defaultValues: product
       ? { ...product }
       : {
@@ -52,13 +50,12 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
   async function onSubmit(values: FormOut) {
     setMessage(null);
     const result = product
-      ? await sendJson<ProductDto>("PUT", `/api/v1/products/${product.id}`, values)
-      : await sendJson<ProductDto>("POST", "/api/v1/products", values);
+      ? await saveProduct.mutateAsync({ id: product.id, values })
+      : await saveProduct.mutateAsync({ values });
     if (!result.ok) {
       applyFieldErrors(result.error.fieldErrors, setError as never);
       return setMessage(result.error.message);
     }
-    router.refresh();
     onDone();
   }
 

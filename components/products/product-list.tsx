@@ -1,21 +1,22 @@
 "use client";
 
-// The product catalogue with inline editing (manager).
+// The product catalogue with inline editing (manager), read and changed through React Query.
 import { Archive, PencilLine, Plus } from "lucide-react";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 
 import { Button } from "@/components/ui/button";
 import type { ProductDto } from "@/lib/products/dto";
-import { sendJson } from "@/lib/query-client";
 
 import { ProductEditor } from "./product-editor";
+import { useArchiveProduct, useProducts } from "./use-products";
 
 const FORM = { granular: "Granular", liquid: "Liquid", soluble: "Soluble powder" } as const;
 
-export function ProductList({ products }: { products: ProductDto[] }) {
-  const router = useRouter();
+export function ProductList() {
+  const { data: products = [], error } = useProducts();
+  const archiveProduct = useArchiveProduct();
   const [editing, setEditing] = useState<string | null>(null);
+  const [message, setMessage] = useState<string | null>(null);
   async function archive(p: ProductDto) {
     if (
       !window.confirm(
@@ -23,11 +24,17 @@ export function ProductList({ products }: { products: ProductDto[] }) {
       )
     )
       return;
-    const r = await sendJson("POST", `/api/v1/products/${p.id}/archive`, { archived: true });
-    if (r.ok) router.refresh();
+    setMessage(null);
+    const result = await archiveProduct.mutateAsync(p.id);
+    if (!result.ok) setMessage(result.error.message);
   }
   return (
     <div className="space-y-3">
+      {message || error ? (
+        <p role="alert" className="rounded-lg bg-clay-tint p-3 text-clay">
+          {message ?? error?.message}
+        </p>
+      ) : null}
       {editing === "new" ? (
         <ProductEditor onDone={() => setEditing(null)} />
       ) : (

@@ -14,9 +14,12 @@ import {
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod/mini";
 
 import { Button, buttonClass } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import type { PropertyDetailDto, ZoneDto } from "@/lib/properties/dto";
 import { homeownerLinkSchema } from "@/lib/properties/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -97,31 +100,26 @@ export function AddZone({ propertyId }: { propertyId: string }) {
 
 export function HomeownerAdmin({ property }: { property: PropertyDetailDto }) {
   const router = useRouter();
-  const [email, setEmail] = useState("");
-  const [name, setName] = useState("");
-  const [errors, setErrors] = useState<Record<string, string[] | undefined>>({});
   const [message, setMessage] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    reset,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<z.input<typeof homeownerLinkSchema>, unknown, z.output<typeof homeownerLinkSchema>>({
+    resolver: formResolver(homeownerLinkSchema),
+    defaultValues: { name: "", email: "" },
+  });
 
-  async function link(event: React.FormEvent) {
-    event.preventDefault();
+  async function link(values: z.output<typeof homeownerLinkSchema>) {
     setMessage(null);
-    const parsed = homeownerLinkSchema.safeParse({ email, name });
-    if (!parsed.success)
-      return setErrors(
-        Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), [i.message]])),
-      );
-    const result = await sendJson(
-      "POST",
-      `/api/v1/properties/${property.id}/homeowners`,
-      parsed.data,
-    );
+    const result = await sendJson("POST", `/api/v1/properties/${property.id}/homeowners`, values);
     if (!result.ok) {
-      setErrors(result.error.fieldErrors ?? {});
+      applyFieldErrors(result.error.fieldErrors, setError as never);
       return setMessage(result.error.message);
     }
-    setEmail("");
-    setName("");
-    setErrors({});
+    reset();
     router.refresh();
   }
 
@@ -160,30 +158,30 @@ export function HomeownerAdmin({ property }: { property: PropertyDetailDto }) {
         ))}
       </ul>
       <form
-        onSubmit={link}
+        onSubmit={handleSubmit(link)}
         className="grid gap-3 rounded-xl border border-line bg-card p-4 sm:grid-cols-[1fr_1fr_auto] sm:items-end"
         noValidate
         aria-label="Link a homeowner"
       >
-        <Field id="homeowner-name" label="Homeowner name" error={errors.name?.[0]}>
+        <Field id="homeowner-name" label="Homeowner name" error={errors.name?.message}>
           <input
             id="homeowner-name"
-            value={name}
-            onChange={(e) => setName(e.target.value)}
+            {...register("name")}
+            aria-invalid={errors.name ? true : undefined}
             className={inputClass}
           />
         </Field>
-        <Field id="homeowner-email" label="E-mail" error={errors.email?.[0]}>
+        <Field id="homeowner-email" label="E-mail" error={errors.email?.message}>
           <input
             id="homeowner-email"
             type="email"
             inputMode="email"
-            value={email}
-            onChange={(e) => setEmail(e.target.value)}
+            {...register("email")}
+            aria-invalid={errors.email ? true : undefined}
             className={inputClass}
           />
         </Field>
-        <Button type="submit">
+        <Button type="submit" disabled={isSubmitting}>
           <UserPlus className="size-5" aria-hidden="true" />
           Link
         </Button>

@@ -1,15 +1,15 @@
 "use client";
 
 // Create or edit a property (manager). The zod schema that validates the route drives this form.
-import { zodResolver } from "@hookform/resolvers/zod";
 import { LocateFixed } from "lucide-react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import type { z } from "zod";
+import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
 import { propertySchema } from "@/lib/properties/schemas";
@@ -40,7 +40,7 @@ export function PropertyForm({
     setError,
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
-    resolver: zodResolver(propertySchema),
+    resolver: formResolver(propertySchema),
     defaultValues: property
       ? {
           name: property.name,

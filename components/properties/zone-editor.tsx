@@ -1,14 +1,14 @@
 "use client";
 
 // Add or edit a zone (manager): area in ft² or m² (stored as ft²), species from the reference table.
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import type { z } from "zod";
+import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import { SLOPE_LABEL, SUN_EXPOSURE_LABEL, type ZoneDto } from "@/lib/properties/dto";
 import { zoneSchema } from "@/lib/properties/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -34,7 +34,7 @@ export function ZoneEditor({
     setError,
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
-    resolver: zodResolver(zoneSchema),
+    resolver: formResolver(zoneSchema),
     defaultValues: zone
       ? {
           name: zone.name,

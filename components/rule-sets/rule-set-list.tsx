@@ -1,6 +1,6 @@
 "use client";
 
-// The company's rule sets, in words, with inline editing (manager).
+// The company's rule sets, in words, with inline editing (manager), read through React Query.
 import { Gavel, PencilLine, Plus } from "lucide-react";
 import { useState } from "react";
 
@@ -8,6 +8,7 @@ import { Button } from "@/components/ui/button";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 
 import { RuleSetEditor } from "./rule-set-editor";
+import { useRuleSets } from "./use-rule-sets";
 
 function describe(r: RuleSetDto): string[] {
   const out: string[] = [];
@@ -29,10 +30,16 @@ function describe(r: RuleSetDto): string[] {
   return out;
 }
 
-export function RuleSetList({ ruleSets }: { ruleSets: RuleSetDto[] }) {
+export function RuleSetList() {
+  const { data: ruleSets = [], error } = useRuleSets();
   const [editing, setEditing] = useState<string | null>(null);
   return (
     <div className="space-y-3">
+      {error ? (
+        <p role="alert" className="rounded-lg bg-clay-tint p-3 text-clay">
+          {error.message}
+        </p>
+      ) : null}
       {editing === "new" ? (
         <RuleSetEditor onDone={() => setEditing(null)} />
       ) : (

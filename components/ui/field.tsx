@@ -48,3 +48,12 @@ export function applyFieldErrors(
 
 /** For react-hook-form selects whose empty choice means "none": "" becomes null. */
 export const nullIfEmpty = (value: unknown) => (value === "" ? null : value);
+
+/**
+ * For react-hook-form number fields typed as text (inputMode="decimal"): empty is null; anything
+ * else becomes a number, so "abc" arrives as NaN and the schema refuses it in words.
+ */
+export const numberOrNull = (value: unknown) =>
+  value === null || value === undefined || (typeof value === "string" && value.trim() === "")
+    ? null
+    : Number(value);

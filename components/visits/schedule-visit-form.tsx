@@ -2,15 +2,15 @@
 
 // The manager schedules a visit: property, date, technician, planned service. The visit id is
 // chosen here, so a double click or a retry after a timeout creates one visit, never two.
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import type { z } from "zod";
+import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertySummaryDto } from "@/lib/properties/dto";
 import { sendJson } from "@/lib/query-client";
@@ -43,7 +43,7 @@ export function ScheduleVisitForm({
     reset,
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
-    resolver: zodResolver(scheduleVisitSchema),
+    resolver: formResolver(scheduleVisitSchema),
     defaultValues: {
       scheduledFor: defaultDate,
       plannedService: "feeding_round",

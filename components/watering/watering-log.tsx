@@ -5,9 +5,18 @@
 import { Droplets } from "lucide-react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
+import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import {
+  applyFieldErrors,
+  Field,
+  inputClass,
+  nullIfEmpty,
+  numberOrNull,
+} from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
 import { GAL_PER_INCH_1000FT2 } from "@/lib/agronomy/units";
 import { wateringDepthIn } from "@/lib/agronomy/water";
 import { formatDate } from "@/lib/dates";
@@ -16,7 +25,20 @@ import { sendJson } from "@/lib/query-client";
 import type { WateringDto } from "@/lib/watering/dto";
 import { wateringSchema } from "@/lib/watering/schemas";
 
-const num = (s: string) => (s.trim() === "" ? null : Number(s));
+/** The form's values: the entry, and which way its amount is given (not sent). */
+type FormIn = z.input<typeof wateringSchema> & { mode: "depth" | "run" };
+type FormOut = z.output<typeof wateringSchema>;
+
+const baseResolver = formResolver(wateringSchema);
+/** Only the chosen way of giving the amount is sent; the other keeps what was typed. */
+const resolver: Resolver<FormIn, unknown, FormOut> = ({ mode, ...values }, context, options) =>
+  baseResolver(
+    mode === "depth"
+      ? { ...values, runMinutes: null, precipitationRateInPerHour: null }
+      : { ...values, depthIn: null },
+    context,
+    options as never,
+  ) as never;
 
 export function WateringLog({
   propertyId,
@@ -32,59 +54,67 @@ export function WateringLog({
   canAdd: boolean;
 }) {
   const router = useRouter();
-  const [zoneId, setZoneId] = useState("");
-  const [wateredOn, setWateredOn] = useState(today);
-  const [mode, setMode] = useState<"depth" | "run">("depth");
-  const [depth, setDepth] = useState("");
-  const [run, setRun] = useState("");
-  const [rate, setRate] = useState("");
-  const [notes, setNotes] = useState("");
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [id, setId] = useState(() => crypto.randomUUID());
+  const [message, setMessage] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    reset,
+    setValue,
+    setError,
+    control,
+    formState: { errors, isSubmitting },
+  } = useForm<FormIn, unknown, FormOut>({
+    resolver,
+    defaultValues: {
+      mode: "depth",
+      id: crypto.randomUUID(),
+      zoneId: null,
+      wateredOn: today,
+      depthIn: null,
+      runMinutes: null,
+      precipitationRateInPerHour: null,
+      notes: "",
+    },
+  });
+  const [mode, zoneId, depth, run, rate] = useWatch({
+    control,
+    name: ["mode", "zoneId", "depthIn", "runMinutes", "precipitationRateInPerHour"],
+  });
   const areaOf = (zid: string | null) =>
     zid
       ? (zones.find((z) => z.id === zid)?.areaFt2 ?? 0)
       : zones.reduce((s, z) => s + z.areaFt2, 0);
+  const ok = (v: number | null | undefined): v is number => typeof v === "number" && v > 0;
   const previewDepth =
     mode === "depth"
-      ? num(depth)
-      : num(run) && num(rate)
-        ? wateringDepthIn(num(run)!, num(rate)!)
+      ? ok(depth)
+        ? depth
+        : null
+      : ok(run) && ok(rate)
+        ? wateringDepthIn(run, rate)
         : null;
 
-  async function add(event: React.FormEvent) {
-    event.preventDefault();
-    const body = {
-      id,
-      zoneId: zoneId || null,
-      wateredOn,
-      depthIn: mode === "depth" ? num(depth) : null,
-      runMinutes: mode === "run" ? num(run) : null,
-      precipitationRateInPerHour: mode === "run" ? num(rate) : null,
-      notes,
-    };
-    const parsed = wateringSchema.safeParse(body);
-    if (!parsed.success)
-      return setErrors(
-        Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])),
-      );
+  async function add(values: FormOut) {
+    setMessage(null);
     const result = await sendJson<WateringDto>(
       "POST",
       `/api/v1/properties/${propertyId}/waterings`,
-      parsed.data,
+      values,
     );
-    if (!result.ok)
-      return setErrors({
-        form: result.error.message,
-        ...Object.fromEntries(
-          Object.entries(result.error.fieldErrors ?? {}).map(([k, m]) => [k, m[0] ?? ""]),
-        ),
-      });
-    setErrors({});
-    setDepth("");
-    setRun("");
-    setNotes("");
-    setId(crypto.randomUUID());
+    if (!result.ok) {
+      applyFieldErrors(result.error.fieldErrors, setError as never);
+      setMessage(result.error.message);
+      return;
+    }
+    reset({
+      ...values,
+      mode,
+      id: crypto.randomUUID(),
+      depthIn: null,
+      runMinutes: null,
+      notes: "",
+    });
+    // The water balance and the Index charts on this page are computed on the server.
     router.refresh();
   }
 
@@ -92,22 +122,21 @@ export function WateringLog({
     <div className="space-y-4">
       {canAdd ? (
         <form
-          onSubmit={add}
+          onSubmit={handleSubmit(add)}
           noValidate
           className="space-y-3 rounded-xl border border-line bg-card p-4"
           aria-label="Log a watering"
         >
-          {errors.form ? (
+          {message ? (
             <p role="alert" className="rounded-lg bg-clay-tint p-3 text-clay">
-              {errors.form}
+              {message}
             </p>
           ) : null}
           <div className="grid gap-3 sm:grid-cols-2">
             <Field id="w-zone" label="Where">
               <select
                 id="w-zone"
-                value={zoneId}
-                onChange={(e) => setZoneId(e.target.value)}
+                {...register("zoneId", { setValueAs: nullIfEmpty })}
                 className={inputClass}
               >
                 <option value="">Whole lawn</option>
@@ -118,12 +147,12 @@ export function WateringLog({
                 ))}
               </select>
             </Field>
-            <Field id="w-date" label="Date" error={errors.wateredOn}>
+            <Field id="w-date" label="Date" error={errors.wateredOn?.message}>
               <input
                 id="w-date"
                 type="date"
-                value={wateredOn}
-                onChange={(e) => setWateredOn(e.target.value)}
+                {...register("wateredOn")}
+                aria-invalid={errors.wateredOn ? true : undefined}
                 className={inputClass}
               />
             </Field>
@@ -139,7 +168,7 @@ export function WateringLog({
                 type="button"
                 role="radio"
                 aria-checked={mode === m}
-                onClick={() => setMode(m)}
+                onClick={() => setValue("mode", m)}
                 className={`min-h-tap rounded-lg border-2 px-2 font-semibold ${mode === m ? "border-rain bg-rain text-white" : "border-line bg-card"}`}
               >
                 {m === "depth" ? "Depth (in)" : "Run time × rate"}
@@ -147,37 +176,37 @@ export function WateringLog({
             ))}
           </div>
           {mode === "depth" ? (
-            <Field id="w-depth" label="Depth of water (in)" error={errors.depthIn}>
+            <Field id="w-depth" label="Depth of water (in)" error={errors.depthIn?.message}>
               <input
                 id="w-depth"
                 inputMode="decimal"
-                value={depth}
-                onChange={(e) => setDepth(e.target.value)}
+                {...register("depthIn", { setValueAs: numberOrNull })}
+                aria-invalid={errors.depthIn ? true : undefined}
                 className={inputClass}
                 placeholder="e.g. 0.5"
               />
             </Field>
           ) : (
             <div className="grid grid-cols-2 gap-2">
-              <Field id="w-run" label="Run time (min)" error={errors.runMinutes}>
+              <Field id="w-run" label="Run time (min)" error={errors.runMinutes?.message}>
                 <input
                   id="w-run"
                   inputMode="decimal"
-                  value={run}
-                  onChange={(e) => setRun(e.target.value)}
+                  {...register("runMinutes", { setValueAs: numberOrNull })}
+                  aria-invalid={errors.runMinutes ? true : undefined}
                   className={inputClass}
                 />
               </Field>
               <Field
                 id="w-rate"
                 label="Precipitation rate (in/h)"
-                error={errors.precipitationRateInPerHour}
+                error={errors.precipitationRateInPerHour?.message}
               >
                 <input
                   id="w-rate"
                   inputMode="decimal"
-                  value={rate}
-                  onChange={(e) => setRate(e.target.value)}
+                  {...register("precipitationRateInPerHour", { setValueAs: numberOrNull })}
+                  aria-invalid={errors.precipitationRateInPerHour ? true : undefined}
                   className={inputClass}
                   placeholder="e.g. 1.5"
                 />
@@ -188,20 +217,15 @@ export function WateringLog({
             <p aria-live="polite" className="font-semibold text-rain">
               {previewDepth.toFixed(2)} in ≈{" "}
               {Math.round(
-                (previewDepth * GAL_PER_INCH_1000FT2 * areaOf(zoneId || null)) / 1000,
+                (previewDepth * GAL_PER_INCH_1000FT2 * areaOf(zoneId ?? null)) / 1000,
               ).toLocaleString("en-US")}{" "}
-              gal on {areaOf(zoneId || null).toLocaleString("en-US")} ft²
+              gal on {areaOf(zoneId ?? null).toLocaleString("en-US")} ft²
             </p>
           ) : null}
-          <Field id="w-notes" label="Notes (optional)" error={errors.notes}>
-            <input
-              id="w-notes"
-              value={notes}
-              onChange={(e) => setNotes(e.target.value)}
-              className={inputClass}
-            />
+          <Field id="w-notes" label="Notes (optional)" error={errors.notes?.message}>
+            <input id="w-notes" {...register("notes")} className={inputClass} />
           </Field>
-          <Button type="submit">
+          <Button type="submit" disabled={isSubmitting}>
             <Droplets className="size-5" aria-hidden="true" /> Log watering
           </Button>
         </form>

@@ -1,25 +1,25 @@
-// Application input, shared by the route and the form.
-import { z } from "zod";
+// Application input, shared by the route and the form (zod/mini: the form's bundle stays small).
+import { z } from "zod/mini";
 
 import { RATE_UNITS } from "./units";
 
-export const applicationSchema = z
-  .object({
-    id: z.uuid("An application needs its id."),
-    zoneId: z.uuid("Choose the zone."),
-    productId: z.uuid("Choose a product."),
-    rateAmount: z
-      .number("Enter the rate.")
-      .positive("The rate must be above 0.")
-      .max(100_000, "That rate is implausibly high; check the unit."),
-    rateUnit: z.enum(RATE_UNITS),
-    appliedAt: z.iso.datetime({ offset: true, error: "Use a date and time." }).optional(),
-    windMph: z.number().min(0).max(150).nullable(),
-    temperatureF: z.number().min(-60).max(140).nullable(),
-    isEstablishing: z.boolean(),
-    applicatorName: z.string().trim().max(200),
-    applicatorLicence: z.string().trim().max(80),
-    overrideReason: z.string().trim().max(1000).nullable(),
-  })
-  .strict();
+export const applicationSchema = z.strictObject({
+  id: z.uuid("An application needs its id."),
+  zoneId: z.uuid("Choose the zone."),
+  productId: z.uuid("Choose a product."),
+  rateAmount: z
+    .number("Enter the rate.")
+    .check(
+      z.positive("The rate must be above 0."),
+      z.lte(100_000, "That rate is implausibly high; check the unit."),
+    ),
+  rateUnit: z.enum(RATE_UNITS),
+  appliedAt: z.optional(z.iso.datetime({ offset: true, error: "Use a date and time." })),
+  windMph: z.nullable(z.number().check(z.gte(0), z.lte(150))),
+  temperatureF: z.nullable(z.number().check(z.gte(-60), z.lte(140))),
+  isEstablishing: z.boolean(),
+  applicatorName: z.string().check(z.trim(), z.maxLength(200)),
+  applicatorLicence: z.string().check(z.trim(), z.maxLength(80)),
+  overrideReason: z.nullable(z.string().check(z.trim(), z.maxLength(1000))),
+});
 export type ApplicationInput = z.infer<typeof applicationSchema>;

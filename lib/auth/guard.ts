@@ -8,6 +8,7 @@ import type { Role } from "@/db/schema";
 import { AppError, notFound, toErrorBody } from "@/lib/http/app-error";
 import { isSameSiteWrite } from "@/lib/http/origin";
 import { log } from "@/lib/log";
+import { plainErrors } from "@/lib/plain-errors";
 
 import type { Actor } from "./actor";
 
@@ -31,7 +32,14 @@ const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
 /** Refused authorisations, logged (ASVS V16): not signed in, not allowed. "Not found" is routine and is not. */
 const REFUSALS = new Set(["unauthenticated", "forbidden"]);
 
-function invalid(error: z.ZodError, message = "Some values need attention."): AppError {
+/** Any zod schema: full zod on the server, zod/mini where a browser form shares it. */
+type Schema = z.core.$ZodType;
+
+/** Parses with the plain-English messages of lib/plain-errors.ts. */
+const parse = <S extends Schema>(schema: S, input: unknown) =>
+  z.safeParse(schema, input, { error: plainErrors });
+
+function invalid(error: z.core.$ZodError, message = "Some values need attention."): AppError {
   return new AppError(
     "invalid_input",
     message,
@@ -55,9 +63,9 @@ function assertSameOrigin(request: Request): void {
 export function createGuards(resolveActor: () => Promise<Actor | null>) {
   function route<
     A extends Access,
-    P extends z.ZodType = z.ZodType<Record<string, never>>,
-    Q extends z.ZodType = z.ZodType<Record<string, never>>,
-    B extends z.ZodType = z.ZodType<undefined>,
+    P extends Schema = z.ZodType<Record<string, never>>,
+    Q extends Schema = z.ZodType<Record<string, never>>,
+    B extends Schema = z.ZodType<undefined>,
   >(
     spec: {
       access: A;
@@ -68,9 +76,9 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
     },
     handler: (ctx: {
       actor: ActorFor<A>;
-      params: z.infer<P>;
-      query: z.infer<Q>;
-      body: z.infer<B>;
+      params: z.output<P>;
+      query: z.output<Q>;
+      body: z.output<B>;
       request: Request;
     }) => Promise<unknown>,
   ) {
@@ -80,13 +88,13 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
         const actor = authorise(await resolveActor(), spec.access);
         const rawParams = (await context?.params) ?? {};
         const params = spec.params
-          ? spec.params.safeParse(rawParams)
+          ? parse(spec.params, rawParams)
           : { success: true as const, data: {} };
         // A malformed id cannot name a record in scope: answer as for any unknown record.
         if (!params.success) throw notFound(spec.resource);
         const url = new URL(request.url);
         const query = spec.query
-          ? spec.query.safeParse(Object.fromEntries(url.searchParams))
+          ? parse(spec.query, Object.fromEntries(url.searchParams))
           : { success: true as const, data: {} };
         if (!query.success)
           throw invalid(query.error, "The query string has values that are not allowed.");
@@ -95,15 +103,15 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
           const json = await request.json().catch(() => {
             throw new AppError("invalid_input", "The request body must be JSON.");
           });
-          const parsed = spec.body.safeParse(json);
+          const parsed = parse(spec.body, json);
           if (!parsed.success) throw invalid(parsed.error);
           body = parsed.data;
         }
         const result = await handler({
           actor,
-          params: params.data as z.infer<P>,
-          query: query.data as z.infer<Q>,
-          body: body as z.infer<B>,
+          params: params.data as z.output<P>,
+          query: query.data as z.output<Q>,
+          body: body as z.output<B>,
           request,
         });
         if (result instanceof Response) return result;
@@ -127,15 +135,15 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
     };
   }
 
-  function action<A extends Access, I extends z.ZodType, T>(
+  function action<A extends Access, I extends Schema, T>(
     spec: { access: A; input: I },
-    handler: (ctx: { actor: ActorFor<A>; input: z.infer<I> }) => Promise<T>,
+    handler: (ctx: { actor: ActorFor<A>; input: z.output<I> }) => Promise<T>,
   ) {
     return async (raw: unknown): Promise<ActionResult<T>> => {
       try {
         const actor = authorise(await resolveActor(), spec.access);
         const source = raw instanceof FormData ? Object.fromEntries(raw) : raw;
-        const parsed = spec.input.safeParse(source);
+        const parsed = parse(spec.input, source);
         if (!parsed.success) throw invalid(parsed.error);
         return { ok: true, data: await handler({ actor, input: parsed.data }) };
       } catch (err) {

@@ -1,25 +1,23 @@
 // Shared by the sign-in form (client) and the sign-in action (server).
-import { z } from "zod";
+import { z } from "zod/mini";
 
 export const signInSchema = z.object({
-  email: z
+  email: z.pipe(
+    z.string().check(z.trim(), z.minLength(1, "Enter your e-mail address."), z.maxLength(320)),
+    z.email("Enter a valid e-mail address."),
+  ),
+  password: z
     .string()
-    .trim()
-    .min(1, "Enter your e-mail address.")
-    .max(320)
-    .pipe(z.email("Enter a valid e-mail address.")),
-  password: z.string().min(1, "Enter your password.").max(1024, "That password is too long."),
-  redirectTo: z.string().max(500).optional(),
+    .check(z.minLength(1, "Enter your password."), z.maxLength(1024, "That password is too long.")),
+  redirectTo: z.optional(z.string().check(z.maxLength(500))),
 });
 
 export const signInLinkSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .min(1, "Enter your e-mail address.")
-    .max(320)
-    .pipe(z.email("Enter a valid e-mail address.")),
-  redirectTo: z.string().max(500).optional(),
+  email: z.pipe(
+    z.string().check(z.trim(), z.minLength(1, "Enter your e-mail address."), z.maxLength(320)),
+    z.email("Enter a valid e-mail address."),
+  ),
+  redirectTo: z.optional(z.string().check(z.maxLength(500))),
 });
 
 export const SIGN_IN_MESSAGES = {

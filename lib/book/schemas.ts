@@ -1,5 +1,6 @@
 // The book's view state, read from the URL (unknown or malformed values fall back, never error).
-import { z } from "zod";
+// zod/mini: the book's client view imports the sorts from here.
+import { z } from "zod/mini";
 
 import { ALERT_KINDS } from "@/lib/risk/labels";
 
@@ -10,16 +11,19 @@ const kinds = Object.keys(ALERT_KINDS) as [
 export const BOOK_SORTS = ["attention", "name", "index", "slope", "last", "next", "n"] as const;
 export type BookSort = (typeof BOOK_SORTS)[number];
 
+/** Optional, and ignored (undefined) when malformed. */
+const lenient = <T extends z.ZodMiniType>(schema: T) => z.catch(z.optional(schema), undefined);
+
 export const bookQuery = z.object({
-  q: z.string().trim().max(80).optional().catch(undefined),
-  technician: z.uuid().optional().catch(undefined),
-  trend: z.enum(["improving", "steady", "declining", "none"]).optional().catch(undefined),
-  kind: z.enum(kinds).optional().catch(undefined),
-  severity: z.enum(["high", "moderate", "low"]).optional().catch(undefined),
-  overdue: z.enum(["1"]).optional().catch(undefined),
-  sort: z.enum(BOOK_SORTS).catch("attention").default("attention"),
-  dir: z.enum(["asc", "desc"]).optional().catch(undefined),
-  after: z.string().max(300).optional().catch(undefined),
-  limit: z.coerce.number().int().min(1).max(100).catch(25).default(25),
+  q: lenient(z.string().check(z.trim(), z.maxLength(80))),
+  technician: lenient(z.uuid()),
+  trend: lenient(z.enum(["improving", "steady", "declining", "none"])),
+  kind: lenient(z.enum(kinds)),
+  severity: lenient(z.enum(["high", "moderate", "low"])),
+  overdue: lenient(z.enum(["1"])),
+  sort: z._default(z.catch(z.enum(BOOK_SORTS), "attention"), "attention"),
+  dir: lenient(z.enum(["asc", "desc"])),
+  after: lenient(z.string().check(z.maxLength(300))),
+  limit: z._default(z.catch(z.coerce.number().check(z.int(), z.gte(1), z.lte(100)), 25), 25),
 });
 export type BookQuery = z.infer<typeof bookQuery>;

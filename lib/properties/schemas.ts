@@ -1,5 +1,6 @@
-// Input schemas for properties and zones, shared by the route handlers and the manager's forms.
-import { z } from "zod";
+// Input schemas for properties and zones, shared by the route handlers and the manager's forms
+// (zod/mini: the forms' bundles stay small; the server parses the same schemas).
+import { z } from "zod/mini";
 
 import { isValidTimeZone } from "@/lib/dates";
 import { grassSpeciesKeys } from "@/lib/reference/grass-species";
@@ -10,50 +11,57 @@ export const zoneIdParams = z.object({ zoneId: z.uuid() });
 const text = (label: string, max: number) =>
   z
     .string(`${label} is required.`)
-    .trim()
-    .min(1, `${label} is required.`)
-    .max(max, `${label}: at most ${max} characters.`);
+    .check(
+      z.trim(),
+      z.minLength(1, `${label} is required.`),
+      z.maxLength(max, `${label}: at most ${max} characters.`),
+    );
 
-export const propertySchema = z
-  .object({
-    name: text("Name", 200),
-    street: text("Street address", 200),
-    city: text("Town or city", 100),
-    region: text("State", 100),
-    postalCode: text("ZIP code", 20),
-    latitude: z
-      .number("Enter the latitude as a number, e.g. 40.3342.")
-      .min(-90, "Latitude is between -90 and 90.")
-      .max(90, "Latitude is between -90 and 90."),
-    longitude: z
-      .number("Enter the longitude as a number, e.g. -74.7391.")
-      .min(-180, "Longitude is between -180 and 180.")
-      .max(180, "Longitude is between -180 and 180."),
-    timeZone: z.string().refine(isValidTimeZone, "Choose a time zone from the list."),
-    ruleSetId: z.uuid("Choose a rule set.").nullable(),
-    technicianId: z.uuid("Choose a technician.").nullable(),
-    notes: z.string().trim().max(4000, "Keep notes under 4,000 characters.").default(""),
-  })
-  .strict();
+export const propertySchema = z.strictObject({
+  name: text("Name", 200),
+  street: text("Street address", 200),
+  city: text("Town or city", 100),
+  region: text("State", 100),
+  postalCode: text("ZIP code", 20),
+  latitude: z
+    .number("Enter the latitude as a number, e.g. 40.3342.")
+    .check(
+      z.gte(-90, "Latitude is between -90 and 90."),
+      z.lte(90, "Latitude is between -90 and 90."),
+    ),
+  longitude: z
+    .number("Enter the longitude as a number, e.g. -74.7391.")
+    .check(
+      z.gte(-180, "Longitude is between -180 and 180."),
+      z.lte(180, "Longitude is between -180 and 180."),
+    ),
+  timeZone: z.string().check(z.refine(isValidTimeZone, "Choose a time zone from the list.")),
+  ruleSetId: z.nullable(z.uuid("Choose a rule set.")),
+  technicianId: z.nullable(z.uuid("Choose a technician.")),
+  notes: z._default(
+    z.string().check(z.trim(), z.maxLength(4000, "Keep notes under 4,000 characters.")),
+    "",
+  ),
+});
 export type PropertyInput = z.infer<typeof propertySchema>;
 
 export const M2_PER_FT2 = 0.09290304; // exact: 1 ft = 0.3048 m
 
-export const zoneSchema = z
-  .object({
-    name: text("Zone name", 120),
-    area: z
-      .number("Enter the area as a number.")
-      .positive("Area must be above 0.")
-      .max(10_000_000, "That area is too large for one zone."),
-    areaUnit: z.enum(["ft2", "m2"]).default("ft2"),
-    grassSpecies: z.enum(grassSpeciesKeys, "Choose a grass species."),
-    sunExposure: z.enum(["full_sun", "part_shade", "shade"], "Choose the sun exposure."),
-    isIrrigated: z.boolean(),
-    slope: z.enum(["flat", "moderate", "steep"], "Choose the slope."),
-    sortOrder: z.number().int().min(0).max(1000).optional(),
-  })
-  .strict();
+export const zoneSchema = z.strictObject({
+  name: text("Zone name", 120),
+  area: z
+    .number("Enter the area as a number.")
+    .check(
+      z.positive("Area must be above 0."),
+      z.lte(10_000_000, "That area is too large for one zone."),
+    ),
+  areaUnit: z._default(z.enum(["ft2", "m2"]), "ft2"),
+  grassSpecies: z.enum(grassSpeciesKeys, "Choose a grass species."),
+  sunExposure: z.enum(["full_sun", "part_shade", "shade"], "Choose the sun exposure."),
+  isIrrigated: z.boolean(),
+  slope: z.enum(["flat", "moderate", "steep"], "Choose the slope."),
+  sortOrder: z.optional(z.int().check(z.gte(0), z.lte(1000))),
+});
 export type ZoneInput = z.infer<typeof zoneSchema>;
 
 /** Areas are stored in ft²; m² are converted on the way in (to 0.1 ft²). */
@@ -62,11 +70,12 @@ export function areaInFt2(area: number, unit: "ft2" | "m2"): number {
   return Math.round(ft2 * 10) / 10;
 }
 
-export const homeownerLinkSchema = z
-  .object({
-    email: z.string().trim().toLowerCase().max(320).pipe(z.email("Enter a valid e-mail address.")),
-    name: z.string().trim().min(1, "Name is required.").max(200),
-  })
-  .strict();
+export const homeownerLinkSchema = z.strictObject({
+  email: z.pipe(
+    z.string().check(z.trim(), z.toLowerCase(), z.maxLength(320)),
+    z.email("Enter a valid e-mail address."),
+  ),
+  name: z.string().check(z.trim(), z.minLength(1, "Name is required."), z.maxLength(200)),
+});
 
 export const homeownerParams = z.object({ propertyId: z.uuid(), userId: z.uuid() });

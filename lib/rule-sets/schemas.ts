@@ -1,38 +1,40 @@
-// Rule-set input (managers), shared by the route and the form.
-import { z } from "zod";
+// Rule-set input (managers), shared by the route and the form (zod/mini: the form's bundle stays
+// small; the server parses the same schema).
+import { z } from "zod/mini";
 
 import { RECORD_FIELD_KEYS } from "@/lib/reference/record-fields";
 
 const monthDay = z
   .string()
-  .regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "Use month-day, e.g. 12-01.");
-const window = z.tuple([monthDay, monthDay]).nullable();
-const limit = z
-  .number()
-  .positive("A limit must be above 0.")
-  .max(10, "Above 10 lb per 1,000 ft²? Check the number.")
-  .nullable();
+  .check(z.regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "Use month-day, e.g. 12-01."));
+const window = z.nullable(z.tuple([monthDay, monthDay]));
+const limit = z.nullable(
+  z
+    .number("Enter a number.")
+    .check(
+      z.positive("A limit must be above 0."),
+      z.lte(10, "Above 10 lb per 1,000 ft²? Check the number."),
+    ),
+);
 
 export const ruleSetIdParams = z.object({ ruleSetId: z.uuid() });
 
-export const ruleSetSchema = z
-  .object({
-    name: z.string().trim().min(1, "Name the rule set.").max(120),
-    citation: z.string().trim().max(1000),
-    limitsAreLaw: z.boolean(),
-    maxNLbPer1000: limit,
-    maxWsnLbPer1000: limit,
-    minSlowReleasePct: z.number().min(0).max(100).nullable(),
-    proBlackout: window,
-    homeownerBlackout: window,
-    phosphorusRule: z.enum(["allowed", "soil_test_or_establishment"]),
-    soilTestMaxAgeYears: z.number().int().min(1).max(20).nullable(),
-    recordRetentionYears: z.number().int().min(1, "Keep records at least a year.").max(30),
-    recordRequiredFields: z
-      .array(z.enum(RECORD_FIELD_KEYS))
-      .max(RECORD_FIELD_KEYS.length)
-      .refine((a) => new Set(a).size === a.length, "Each field once."),
-    recordFieldsApplyTo: z.enum(["pesticides", "all"]),
-  })
-  .strict();
+export const ruleSetSchema = z.strictObject({
+  name: z.string().check(z.trim(), z.minLength(1, "Name the rule set."), z.maxLength(120)),
+  citation: z.string().check(z.trim(), z.maxLength(1000)),
+  limitsAreLaw: z.boolean(),
+  maxNLbPer1000: limit,
+  maxWsnLbPer1000: limit,
+  minSlowReleasePct: z.nullable(z.number().check(z.gte(0), z.lte(100))),
+  proBlackout: window,
+  homeownerBlackout: window,
+  phosphorusRule: z.enum(["allowed", "soil_test_or_establishment"]),
+  soilTestMaxAgeYears: z.nullable(z.int().check(z.gte(1), z.lte(20))),
+  recordRetentionYears: z.int().check(z.gte(1, "Keep records at least a year."), z.lte(30)),
+  recordRequiredFields: z.array(z.enum(RECORD_FIELD_KEYS)).check(
+    z.maxLength(RECORD_FIELD_KEYS.length),
+    z.refine((a) => new Set(a).size === a.length, "Each field once."),
+  ),
+  recordFieldsApplyTo: z.enum(["pesticides", "all"]),
+});
 export type RuleSetInput = z.infer<typeof ruleSetSchema>;

@@ -1,5 +1,6 @@
-// Input schemas for visits and zone checks, shared by the route handlers and the forms.
-import { z } from "zod";
+// Input schemas for visits and zone checks, shared by the route handlers and the forms (zod/mini:
+// the forms' bundles stay small; the server parses the same schemas).
+import { z } from "zod/mini";
 
 import { isIsoDate } from "@/lib/dates";
 
@@ -9,7 +10,7 @@ import { zoneCheckCompleteness } from "./zone-check-rules";
 export { zoneCheckFields } from "./zone-check-fields";
 export { emptyZoneCheck } from "./zone-check-rules";
 
-const isoDate = z.string().refine(isIsoDate, "Use a date like 2026-06-15.");
+const isoDate = z.string().check(z.refine(isIsoDate, "Use a date like 2026-06-15."));
 
 const plannedServiceSchema = z.enum([
   "feeding_round",
@@ -24,46 +25,48 @@ const plannedServiceSchema = z.enum([
 export const visitIdParams = z.object({ visitId: z.uuid() });
 export const zoneCheckParams = z.object({ visitId: z.uuid(), zoneCheckId: z.uuid() });
 
-export const listVisitsQuery = z
-  .object({
-    date: isoDate.optional(),
-    from: isoDate.optional(),
-    to: isoDate.optional(),
-    technicianId: z.uuid().optional(),
-    propertyId: z.uuid().optional(),
-    status: z.enum(["scheduled", "in_progress", "completed", "cancelled"]).optional(),
-  })
-  .strict();
+export const listVisitsQuery = z.strictObject({
+  date: z.optional(isoDate),
+  from: z.optional(isoDate),
+  to: z.optional(isoDate),
+  technicianId: z.optional(z.uuid()),
+  propertyId: z.optional(z.uuid()),
+  status: z.optional(z.enum(["scheduled", "in_progress", "completed", "cancelled"])),
+});
 
-export const scheduleVisitSchema = z
-  .object({
-    id: z.uuid("A visit id must be a UUID.").optional(),
-    propertyId: z.uuid("Choose a property."),
-    scheduledFor: isoDate,
-    technicianId: z.uuid("Choose a technician.").nullable(),
-    plannedService: plannedServiceSchema,
-    stopOrder: z.number().int().min(0).max(1000).default(0),
-    notes: z.string().trim().max(4000, "Keep notes under 4,000 characters.").default(""),
-  })
-  .strict();
+export const scheduleVisitSchema = z.strictObject({
+  id: z.optional(z.uuid("A visit id must be a UUID.")),
+  propertyId: z.uuid("Choose a property."),
+  scheduledFor: isoDate,
+  technicianId: z.nullable(z.uuid("Choose a technician.")),
+  plannedService: plannedServiceSchema,
+  stopOrder: z._default(z.int().check(z.gte(0), z.lte(1000)), 0),
+  notes: z._default(
+    z.string().check(z.trim(), z.maxLength(4000, "Keep notes under 4,000 characters.")),
+    "",
+  ),
+});
 export type ScheduleVisitInput = z.infer<typeof scheduleVisitSchema>;
 
 export const startVisitSchema = z
-  .object({
-    latitude: z.number().min(-90).max(90).nullable().default(null),
-    longitude: z.number().min(-180).max(180).nullable().default(null),
+  .strictObject({
+    latitude: z._default(z.nullable(z.number().check(z.gte(-90), z.lte(90))), null),
+    longitude: z._default(z.nullable(z.number().check(z.gte(-180), z.lte(180))), null),
   })
-  .strict()
-  .refine((v) => (v.latitude === null) === (v.longitude === null), {
-    message: "Send both latitude and longitude, or neither.",
-    path: ["latitude"],
-  });
+  .check(
+    z.refine((v) => (v.latitude === null) === (v.longitude === null), {
+      message: "Send both latitude and longitude, or neither.",
+      path: ["latitude"],
+    }),
+  );
 
-export const zoneCheckSchema = zoneCheckFields.superRefine((check, ctx) => {
-  for (const [field, message] of Object.entries(zoneCheckCompleteness(check)))
-    ctx.addIssue({ code: "custom", path: [field], message });
-});
+export const zoneCheckSchema = zoneCheckFields.check(
+  z.superRefine((check, ctx) => {
+    for (const [field, message] of Object.entries(zoneCheckCompleteness(check)))
+      ctx.addIssue({ code: "custom", path: [field], message });
+  }),
+);
 export type ZoneCheckInput = z.infer<typeof zoneCheckSchema>;
 
 /** Finishing takes no input: notes belong to the zone checks, the office note to the visit. */
-export const finishVisitSchema = z.object({}).strict();
+export const finishVisitSchema = z.strictObject({});

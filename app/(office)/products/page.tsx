@@ -1,14 +1,21 @@
+import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import type { Metadata } from "next";
 
 import { ProductList } from "@/components/products/product-list";
 import { requireActor } from "@/lib/auth/require";
 import { listProducts } from "@/lib/products/queries";
+import { productKeys } from "@/lib/products/query-keys";
+import { makeQueryClient } from "@/lib/query-client";
 
 export const metadata: Metadata = { title: "Products" };
 
 export default async function ProductsPage() {
   const actor = await requireActor(["manager"]);
-  const products = await listProducts(actor);
+  const queryClient = makeQueryClient();
+  await queryClient.prefetchQuery({
+    queryKey: productKeys.list(),
+    queryFn: () => listProducts(actor),
+  });
   return (
     <>
       <h1 className="text-3xl font-bold">Products</h1>
@@ -16,7 +23,9 @@ export default async function ProductsPage() {
         The catalogue technicians choose from. Analyses come from each product&apos;s label
         (guaranteed analysis, % by weight).
       </p>
-      <ProductList products={products} />
+      <HydrationBoundary state={dehydrate(queryClient)}>
+        <ProductList />
+      </HydrationBoundary>
     </>
   );
 }

@@ -1,0 +1,184 @@
+// The forms' validation as the browser runs it: react-hook-form's resolver (formResolver) with
+// the shared zod/mini schemas. Every message a person can see is plain US English — never the
+// validator's own wording ("Invalid input", "expected number, received NaN").
+import type { FieldErrors, FieldValues } from "react-hook-form";
+import { describe, expect, it } from "vitest";
+
+import { numberOrNull } from "@/components/ui/field";
+import { formResolver } from "@/components/ui/form-resolver";
+import { productSchema } from "@/lib/products/schemas";
+import { homeownerLinkSchema, propertySchema, zoneSchema } from "@/lib/properties/schemas";
+import { ruleSetSchema } from "@/lib/rule-sets/schemas";
+import { scheduleVisitSchema } from "@/lib/visits/schemas";
+import { wateringSchema } from "@/lib/watering/schemas";
+
+type AnyResolver = (
+  values: FieldValues,
+  context: unknown,
+  options: { fields: object; shouldUseNativeValidation: boolean },
+) => Promise<{ values: FieldValues; errors: FieldErrors }>;
+
+async function validate(resolver: unknown, values: FieldValues) {
+  const result = await (resolver as AnyResolver)(values, undefined, {
+    fields: {},
+    shouldUseNativeValidation: false,
+  });
+  // Field paths as react-hook-form nests them ("proBlackout.0"), with their messages.
+  const messages: Record<string, string | undefined> = {};
+  const walk = (node: unknown, path: string) => {
+    if (!node || typeof node !== "object") return;
+    const e = node as { message?: unknown; type?: unknown };
+    if (typeof e.type === "string") messages[path] = e.message as string | undefined;
+    else
+      for (const [k, child] of Object.entries(node))
+        if (k !== "ref") walk(child, path ? `${path}.${k}` : k);
+  };
+  walk(result.errors, "");
+  return { values: result.values, messages };
+}
+
+const RAW = /invalid input|expected|received|nan|undefined|too (small|big)/i;
+
+describe("forms validate with their shared schema, in plain words", () => {
+  it("a zone with an empty area (NaN from the number field) asks for a number", async () => {
+    const { messages } = await validate(formResolver(zoneSchema), {
+      name: "",
+      area: Number.NaN,
+      areaUnit: "ft2",
+      grassSpecies: "tall_fescue",
+      sunExposure: "full_sun",
+      isIrrigated: false,
+      slope: "flat",
+    });
+    expect(messages).toEqual({
+      name: "Zone name is required.",
+      area: "Enter the area as a number.",
+    });
+  });
+
+  it("fields without a message of their own get the plain fallback, not the validator's text", async () => {
+    const { messages } = await validate(formResolver(ruleSetSchema), {
+      name: "Shore towns",
+      citation: "",
+      limitsAreLaw: true,
+      maxNLbPer1000: 0.7,
+      maxWsnLbPer1000: null,
+      minSlowReleasePct: Number.NaN,
+      proBlackout: ["13-01", "02-15"],
+      homeownerBlackout: null,
+      phosphorusRule: "sometimes",
+      soilTestMaxAgeYears: 2.5,
+      recordRetentionYears: 3,
+      recordRequiredFields: [],
+      recordFieldsApplyTo: "all",
+    });
+    expect(messages.minSlowReleasePct).toBe("Enter a number.");
+    expect(messages.soilTestMaxAgeYears).toBe("Use a whole number.");
+    expect(messages.phosphorusRule).toBe("Choose one of the options.");
+    expect(messages["proBlackout.0"]).toBe("Use month-day, e.g. 12-01.");
+    expect(Object.keys(messages)).toHaveLength(4);
+    for (const m of Object.values(messages)) expect(m).not.toMatch(RAW);
+  });
+
+  it("the product form's cross-field rules reach the right field", async () => {
+    const { messages } = await validate(formResolver(productSchema), {
+      name: "Liquid 20-0-0",
+      form: "liquid",
+      nPct: 60,
+      p2o5Pct: 30,
+      k2oPct: 20,
+      slowReleasePctOfN: 0,
+      densityLbPerGal: null,
+      isPesticide: true,
+      registrationNumber: "",
+      labelCautions: "",
+      reentryGuidance: "",
+    });
+    expect(messages).toEqual({
+      nPct: "N + P₂O₅ + K₂O adds up to more than 100 %.",
+      densityLbPerGal: "A liquid needs its density (lb/gal) from the label.",
+      registrationNumber: "A pesticide needs its registration number.",
+    });
+  });
+
+  it("a watering needs a depth, or both run time and rate", async () => {
+    const base = {
+      id: "5f0c4a8e-2d1b-4c3a-9e7f-1a2b3c4d5e6f",
+      zoneId: null,
+      wateredOn: "2026-07-02",
+      notes: "",
+    };
+    const none = await validate(formResolver(wateringSchema), {
+      ...base,
+      depthIn: null,
+      runMinutes: null,
+      precipitationRateInPerHour: null,
+    });
+    expect(none.messages).toEqual({
+      depthIn: "Give the depth, or the run time and the precipitation rate.",
+    });
+    const half = await validate(formResolver(wateringSchema), {
+      ...base,
+      depthIn: null,
+      runMinutes: 20,
+      precipitationRateInPerHour: null,
+    });
+    expect(half.messages).toEqual({
+      precipitationRateInPerHour: "Give both the run time and the precipitation rate.",
+    });
+  });
+
+  it("valid values come back parsed (trimmed, lower-cased, defaults filled)", async () => {
+    const link = await validate(formResolver(homeownerLinkSchema), {
+      email: "  Pat.Lee@Example.TEST ",
+      name: " Pat Lee ",
+    });
+    expect(link.messages).toEqual({});
+    expect(link.values).toEqual({ email: "pat.lee@example.test", name: "Pat Lee" });
+    const visit = await validate(formResolver(scheduleVisitSchema), {
+      propertyId: "5f0c4a8e-2d1b-4c3a-9e7f-1a2b3c4d5e6f",
+      scheduledFor: "2026-07-02",
+      technicianId: null,
+      plannedService: "inspection",
+    });
+    expect(visit.values).toMatchObject({ stopOrder: 0, notes: "" });
+  });
+
+  it("a property with empty required fields lists each field once, with its own words", async () => {
+    const { messages } = await validate(formResolver(propertySchema), {
+      name: " ",
+      street: "",
+      city: "Hopewell",
+      region: "NJ",
+      postalCode: "08525",
+      latitude: Number.NaN,
+      longitude: 200,
+      timeZone: "America/New_York",
+      ruleSetId: null,
+      technicianId: null,
+      notes: "",
+    });
+    expect(messages).toEqual({
+      name: "Name is required.",
+      street: "Street address is required.",
+      latitude: "Enter the latitude as a number, e.g. 40.3342.",
+      longitude: "Longitude is between -180 and 180.",
+    });
+  });
+
+  it("number boxes: empty (or never typed in) is null, text is NaN and refused, a figure is a number", async () => {
+    expect([null, undefined, "", "  "].map(numberOrNull)).toEqual([null, null, null, null]);
+    expect(numberOrNull("0.5")).toBe(0.5);
+    expect(numberOrNull("half")).toBeNaN();
+    const { messages } = await validate(formResolver(wateringSchema), {
+      id: "5f0c4a8e-2d1b-4c3a-9e7f-1a2b3c4d5e6f",
+      zoneId: null,
+      wateredOn: "2026-07-02",
+      depthIn: numberOrNull("half"),
+      runMinutes: numberOrNull(null),
+      precipitationRateInPerHour: numberOrNull(undefined),
+      notes: "",
+    });
+    expect(messages).toEqual({ depthIn: "Enter the depth as a number." });
+  });
+});
