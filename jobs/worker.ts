@@ -6,6 +6,7 @@ import PgBoss from "pg-boss";
 
 import { createDb } from "@/db/client";
 import { sweepBook } from "@/lib/after-write/sweep";
+import { serviceEnv } from "@/lib/env";
 import { log } from "@/lib/log";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
@@ -18,8 +19,7 @@ import {
   registerDailyTick,
   registerRiskSweep,
 } from "@/lib/risk-alerts/jobs";
-import { smtpMailer } from "@/lib/services/mail";
-import { jsonWeatherProvider } from "@/lib/services/weather/provider";
+import { services } from "@/lib/services";
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -27,15 +27,10 @@ if (!url) {
   process.exit(1);
 }
 const db = createDb(url, { max: 3 });
-// The worker needs the database, the weather service and SMTP only (no sign-in secrets).
-const mailer = process.env.SMTP_URL ? smtpMailer(process.env.SMTP_URL) : null;
-const appUrl = process.env.AUTH_URL ?? "http://localhost:3000";
-const weather = process.env.WEATHER_BASE_URL
-  ? jsonWeatherProvider({
-      baseUrl: process.env.WEATHER_BASE_URL,
-      apiKey: process.env.WEATHER_API_KEY,
-    })
-  : null;
+// The worker needs the database and the service clients only (no sign-in secrets): lib/services
+// builds them from the validated configuration, as it does for the web server.
+const { mailer, weather } = services();
+const appUrl = serviceEnv().AUTH_URL ?? "http://localhost:3000";
 const boss = new PgBoss({ connectionString: url, schema: "pgboss", max: 3 });
 boss.on("error", (err) => log.error({ err }, "job queue error"));
 

@@ -2,9 +2,45 @@
 // message naming it (fail fast), instead of surfacing later as an obscure error.
 import { z } from "zod";
 
+/**
+ * What the service clients need (mail, weather, photo storage — see lib/services) and the address
+ * links in e-mails point to: shared by the web server, the worker and the db scripts.
+ */
+const serviceFields = {
+  NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+  /** The app's public address, used in links sent by e-mail. */
+  AUTH_URL: z.url().optional(),
+  /** Outgoing mail, e.g. smtp://127.0.0.1:2525 (the local fake the demo and tests start). Unset: mail waits in the outbox. */
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, "SMTP_URL must be an smtp:// or smtps:// URL")
+    .optional(),
+  /** Development only: the folder of the local fake SMTP service, shown to managers at /dev/mail. */
+  MAIL_INBOX_DIR: z.string().optional(),
+  /** Where photo derivatives live: "local" (PHOTO_DIR on this machine) or "s3". */
+  PHOTO_STORAGE: z.enum(["local", "s3"]).default("local"),
+  PHOTO_DIR: z.string().default(".data/photos"),
+  S3_BUCKET: z.string().optional(),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_ENDPOINT: z.url().optional(),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  /** Base URL of the daily-weather JSON service (the demo and tests start a local fake). */
+  WEATHER_BASE_URL: z.url().optional(),
+  WEATHER_API_KEY: z.string().optional(),
+};
+
+const needsBucket = {
+  check: (env: { PHOTO_STORAGE: string; S3_BUCKET?: string }) =>
+    env.PHOTO_STORAGE !== "s3" || Boolean(env.S3_BUCKET),
+  params: { message: "S3_BUCKET is required when PHOTO_STORAGE=s3", path: ["S3_BUCKET"] },
+};
+
+const serviceSchema = z.object(serviceFields).refine(needsBucket.check, needsBucket.params);
+
 const serverSchema = z
   .object({
-    NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+    ...serviceFields,
     DATABASE_URL: z
       .string({
         error: "DATABASE_URL is required (e.g. postgres://postgres@127.0.0.1:54329/sward)",
@@ -16,7 +52,6 @@ const serverSchema = z
           "AUTH_SECRET is required (32+ random characters; npm run demo writes one to .env.local)",
       })
       .min(32, "AUTH_SECRET must be at least 32 characters"),
-    AUTH_URL: z.url().optional(),
     LOG_LEVEL: z
       .enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"])
       .default("info"),
@@ -29,44 +64,41 @@ const serverSchema = z
     SIGN_IN_LINK_MAX_PER_EMAIL: z.coerce.number().int().positive().default(3),
     /** Sign-in links one client address may ask for within the window. */
     SIGN_IN_LINK_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(10),
-    /** Outgoing mail, e.g. smtp://127.0.0.1:2525 (the local fake the demo and tests start). Unset: mail waits in the outbox. */
-    SMTP_URL: z
-      .string()
-      .regex(/^smtps?:\/\//, "SMTP_URL must be an smtp:// or smtps:// URL")
-      .optional(),
-    /** Development only: the folder of the local fake SMTP service, shown to managers at /dev/mail. */
-    MAIL_INBOX_DIR: z.string().optional(),
-    /** Where photo derivatives live: "local" (PHOTO_DIR on this machine) or "s3". */
-    PHOTO_STORAGE: z.enum(["local", "s3"]).default("local"),
-    PHOTO_DIR: z.string().default(".data/photos"),
-    S3_BUCKET: z.string().optional(),
-    S3_REGION: z.string().default("us-east-1"),
-    S3_ENDPOINT: z.url().optional(),
-    S3_ACCESS_KEY_ID: z.string().optional(),
-    S3_SECRET_ACCESS_KEY: z.string().optional(),
-    /** Base URL of the daily-weather JSON service (the demo and tests start a local fake). */
-    WEATHER_BASE_URL: z.url().optional(),
-    WEATHER_API_KEY: z.string().optional(),
   })
-  .refine((env) => env.PHOTO_STORAGE !== "s3" || Boolean(env.S3_BUCKET), {
-    message: "S3_BUCKET is required when PHOTO_STORAGE=s3",
-    path: ["S3_BUCKET"],
-  });
+  .refine(needsBucket.check, needsBucket.params);
 
+export type ServiceEnv = z.infer<typeof serviceSchema>;
 export type ServerEnv = z.infer<typeof serverSchema>;
 
-export function parseServerEnv(source: Record<string, string | undefined>): ServerEnv {
-  const result = serverSchema.safeParse(source);
+type Source = Record<string, string | undefined>;
+
+function parse<T>(schema: z.ZodType<T>, source: Source, what: string): T {
+  const result = schema.safeParse(source);
   if (!result.success) {
     const lines = result.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
-    throw new Error(`Invalid server configuration:\n${lines.join("\n")}`);
+    throw new Error(`Invalid ${what} configuration:\n${lines.join("\n")}`);
   }
   return result.data;
 }
 
-let cached: ServerEnv | undefined;
+export const parseServerEnv = (source: Source): ServerEnv => parse(serverSchema, source, "server");
+export const parseServiceEnv = (source: Source): ServiceEnv =>
+  parse(serviceSchema, source, "service");
 
+let cachedServer: ServerEnv | undefined;
+let cachedServices: ServiceEnv | undefined;
+
+/** Everything the web server needs, read from process.env once. */
 export function serverEnv(): ServerEnv {
-  cached ??= parseServerEnv(process.env);
-  return cached;
+  cachedServer ??= parseServerEnv(process.env);
+  return cachedServer;
+}
+
+/**
+ * The service clients' part alone, read from process.env once: the worker and the db scripts need
+ * no sign-in secret, so they do not have to carry one.
+ */
+export function serviceEnv(): ServiceEnv {
+  cachedServices ??= parseServiceEnv(process.env);
+  return cachedServices;
 }

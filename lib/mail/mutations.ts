@@ -8,19 +8,14 @@ import "server-only";
 import { after } from "next/server";
 
 import { db } from "@/db";
-import { serverEnv } from "@/lib/env";
 import { log } from "@/lib/log";
-import { smtpMailer, type Mailer } from "@/lib/services/mail";
+import { services } from "@/lib/services";
 
 import { deliverPendingMail } from "./outbox";
 
-let mailer: Mailer | undefined;
-
 export function deliverMailAfterResponse(kind?: string): void {
-  const url = serverEnv().SMTP_URL;
-  if (!url) return; // no SMTP here: the worker delivers when it has one
-  mailer ??= smtpMailer(url);
-  const m = mailer;
+  const m = services().mailer;
+  if (!m) return; // no SMTP here: the worker delivers when it has one
   after(async () => {
     try {
       await deliverPendingMail(db(), m, 20, kind ? { kind } : undefined);

@@ -17,7 +17,7 @@ import { serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { enqueueMail } from "@/lib/mail/outbox";
-import { weatherProvider } from "@/lib/services/weather/instance";
+import { services } from "@/lib/services";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { assertEditable, lockVisit } from "@/lib/visits/mutations";
 import { getVisit } from "@/lib/visits/queries";
@@ -32,7 +32,7 @@ export async function finishVisit(actor: Actor, visitId: string): Promise<VisitD
   if (target.status !== "completed") {
     await refreshAlertWeather(
       db(),
-      weatherProvider("quick"),
+      services().quickWeather,
       actor.companyId,
       target.propertyId,
     ).catch((err: unknown) => log.warn({ err, visitId }, "weather refresh before finish failed"));

@@ -6,7 +6,7 @@ import "server-only";
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
-import { weatherProvider } from "@/lib/services/weather/instance";
+import { services } from "@/lib/services";
 import type { WeatherProvider } from "@/lib/services/weather/provider";
 
 import { weatherFromCache } from "./cache";
@@ -44,7 +44,7 @@ export async function refreshPropertyWeather(
   const jan1 = `${today.slice(0, 4)}-01-01`;
   const past = addDays(today, -PAST_DAYS);
   const { status, message } = await refreshWeather(
-    weatherProvider(),
+    services().weather,
     property.latitude,
     property.longitude,
     jan1 < past ? jan1 : past,
@@ -62,7 +62,7 @@ async function weatherSnapshot(
   today: string,
 ): Promise<Record<string, unknown>> {
   try {
-    const result = await refreshWeather(weatherProvider("quick"), lat, lon, date, date, today);
+    const result = await refreshWeather(services().quickWeather, lat, lon, date, date, today);
     const d = result.days.find((x) => x.date === date);
     if (!d)
       return {

@@ -9,7 +9,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, todayIn } from "@/lib/dates";
 import { notFound } from "@/lib/http/app-error";
-import { weatherProvider } from "@/lib/services/weather/instance";
+import { services } from "@/lib/services";
 
 import { cachedWeatherResult, readWeatherDays } from "./cache";
 import { deriveDays } from "./derived";
@@ -24,7 +24,7 @@ export async function getCachedWeather(
   today: string,
 ): Promise<WeatherResult> {
   const cached = await readWeatherDays(db(), lat, lon, from, to, today);
-  return cachedWeatherResult(cached, weatherProvider() !== null);
+  return cachedWeatherResult(cached, services().weather !== null);
 }
 
 /** Where a property is (and its time zone), within the actor's scope; not found otherwise. */

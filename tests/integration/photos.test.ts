@@ -16,6 +16,8 @@ import { dgciOf } from "@/lib/photos/color";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { PHOTO_LIMITS } from "@/lib/photos/process";
 import { finishVisit } from "@/lib/reports/mutations";
+import { useServices } from "@/lib/services";
+import type { PhotoStorage } from "@/lib/services/storage";
 import { saveZoneCheck } from "@/lib/visits/mutations";
 import { emptyZoneCheck } from "@/lib/visits/schemas";
 
@@ -318,6 +320,64 @@ describe("accepted photos", () => {
     current = await c.actor("tech1");
     const res = await post(await lawnImage(300, 200, 0.1));
     expect(res.status).toBe(403);
+  });
+});
+
+describe("the photo storage comes from lib/services (a fake injected with useServices)", () => {
+  it("the upload route puts the display and thumbnail files in the configured storage", async () => {
+    current = await c.actor("manager");
+    const puts: string[] = [];
+    const files = new Map<string, Buffer>();
+    const recording: PhotoStorage = {
+      async put(key, body) {
+        puts.push(key);
+        files.set(key, body);
+      },
+      async get(key) {
+        return files.get(key) ?? null;
+      },
+      async has(key) {
+        return files.has(key);
+      },
+    };
+    const before = filesIn(STORE).length;
+    const restore = useServices({ photoStorage: recording });
+    try {
+      const res = await post(await lawnImage(320, 240, 0.2, "jpeg", 41), 1);
+      expect(res.status).toBe(201);
+    } finally {
+      restore();
+    }
+    expect(puts).toHaveLength(2);
+    expect(puts.every((k) => k.endsWith(".webp"))).toBe(true);
+    expect(filesIn(STORE).length).toBe(before); // nothing went to the local disk
+  });
+
+  it("when the storage fails, the upload answers 500 without details and writes no photo row", async () => {
+    current = await c.actor("manager");
+    const failing: PhotoStorage = {
+      put: async () => {
+        throw new Error("disk full at /srv/photos");
+      },
+      get: async () => null,
+      has: async () => false,
+    };
+    const count = async () =>
+      (await testDb().selectFrom("photos").select("id").where("visit_id", "=", visitId).execute())
+        .length;
+    const rows = await count();
+    const restore = useServices({ photoStorage: failing });
+    let res: Response;
+    try {
+      res = await post(await lawnImage(320, 240, 0.3, "jpeg", 42), 1);
+    } finally {
+      restore();
+    }
+    expect(res.status).toBe(500);
+    const text = await res.text();
+    expect(JSON.parse(text)).toMatchObject({ error: { code: "internal" } });
+    expect(text).not.toContain("/srv/photos");
+    expect(await count()).toBe(rows);
   });
 });
 

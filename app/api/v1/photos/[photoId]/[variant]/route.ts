@@ -7,7 +7,7 @@ import { ROLES } from "@/lib/auth/actor";
 import { route } from "@/lib/auth/guards";
 import { notFound } from "@/lib/http/app-error";
 import { getPhotoFile } from "@/lib/photos/queries";
-import { photoStorage } from "@/lib/services/photo-storage";
+import { services } from "@/lib/services";
 
 const params = z.object({ photoId: z.uuid(), variant: z.enum(["display", "thumb"]) });
 
@@ -25,7 +25,7 @@ export const GET = route(
     };
     if (request.headers.get("if-none-match") === etag)
       return new Response(null, { status: 304, headers });
-    const body = await photoStorage().get(file.key);
+    const body = await services().photoStorage.get(file.key);
     if (!body) throw notFound("That photo");
     return new Response(new Uint8Array(body), {
       status: 200,

@@ -6,7 +6,7 @@ import { readBodyLimited } from "@/lib/http/read-body";
 import { limitPhotoWork } from "@/lib/photos/limiter";
 import { addPhoto, assertCanAddPhoto } from "@/lib/photos/mutations";
 import { PHOTO_LIMITS, processPhoto } from "@/lib/photos/process";
-import { photoStorage } from "@/lib/services/photo-storage";
+import { services } from "@/lib/services";
 import { zoneCheckParams } from "@/lib/visits/schemas";
 
 export const POST = route(
@@ -20,7 +20,7 @@ export const POST = route(
       params.visitId,
       params.zoneCheckId,
       processed,
-      photoStorage(),
+      services().photoStorage,
     );
     return Response.json(photo, {
       status: isNew ? 201 : 200,
