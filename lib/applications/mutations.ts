@@ -20,7 +20,7 @@ import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { toRuleSetDto } from "@/lib/rule-sets/map";
 
 import type { ApplicationDto } from "./dto";
-import { listVisitApplications, zoneNitrogenYearToDate } from "./queries";
+import { getZoneNitrogenYearToDate, listVisitApplications } from "./queries";
 import type { ApplicationInput } from "./schemas";
 
 const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") =>
@@ -147,7 +147,7 @@ export async function recordApplication(
       slowReleasePctOfN: product.slowReleasePctOfN,
       isEstablishing: input.isEstablishing,
       soilTestOn: visit.p_soil_test_on,
-      yearToDateNLb: await zoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
+      yearToDateNLb: await getZoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
       annualNRange: species
         ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max }
         : null,

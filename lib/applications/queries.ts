@@ -68,7 +68,7 @@ export async function listVisitApplications(
 }
 
 /** lb N per 1,000 ft² put down on a zone in a calendar year before a date (year to date). */
-export async function zoneNitrogenYearToDate(
+export async function getZoneNitrogenYearToDate(
   companyId: string,
   zoneId: string,
   beforeDate: string,

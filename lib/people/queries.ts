@@ -26,7 +26,7 @@ export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]
 }
 
 /** The e-mail addresses of everyone in the actor's company (the development inbox shows only their mail). */
-export async function companyEmailAddresses(actor: Actor): Promise<Set<string>> {
+export async function listCompanyEmailAddresses(actor: Actor): Promise<Set<string>> {
   const people = await db()
     .selectFrom("users")
     .innerJoin("memberships", "memberships.user_id", "users.id")

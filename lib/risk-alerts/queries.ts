@@ -132,7 +132,7 @@ export async function listAlerts(
 }
 
 /** A property's alerts: live ones first, then the resolved ones of the last 90 days. */
-export async function propertyAlerts(actor: Actor, propertyId: string): Promise<AlertDto[]> {
+export async function listPropertyAlerts(actor: Actor, propertyId: string): Promise<AlertDto[]> {
   if (actor.role === "homeowner") return [];
   const rows = await baseQuery(actor)
     .where("risk_alerts.property_id", "=", propertyId)

@@ -11,7 +11,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { registerRiskSweep, SWEEP_QUEUE } from "@/lib/risk-alerts/jobs";
 import { acknowledgeAlert, resolveAlert } from "@/lib/risk-alerts/mutations";
-import { listAlerts, propertyAlerts } from "@/lib/risk-alerts/queries";
+import { listAlerts, listPropertyAlerts } from "@/lib/risk-alerts/queries";
 import { AUTO_RESOLVE_AFTER_DAYS } from "@/lib/risk/lifecycle";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
@@ -107,7 +107,7 @@ describe("lifecycle", () => {
   it("acknowledge (technician, with a note) → resolve (manager only, with a note) → recurs as a new linked episode", async () => {
     const tech1 = await c.actor("tech1");
     const manager = await c.actor("manager");
-    const torn = (await propertyAlerts(tech1, c.propertyIds["oyelaran"]!)).find(
+    const torn = (await listPropertyAlerts(tech1, c.propertyIds["oyelaran"]!)).find(
       (a) => a.kind === "torn_tips",
     )!;
     const acked = await acknowledgeAlert(tech1, torn.id, "Blade sharpened at the shop today.");
@@ -132,7 +132,7 @@ describe("lifecycle", () => {
     await expect(acknowledgeAlert(tech1, torn.id, "")).rejects.toMatchObject({ code: "conflict" });
     // The latest check still shows torn tips, so the next evaluation opens a new episode.
     await evaluateProperty(testDb(), c.companyId, c.propertyIds["oyelaran"]!, { provider: null });
-    const again = (await propertyAlerts(manager, c.propertyIds["oyelaran"]!)).filter(
+    const again = (await listPropertyAlerts(manager, c.propertyIds["oyelaran"]!)).filter(
       (a) => a.kind === "torn_tips",
     );
     expect(again.map((a) => a.status).sort()).toEqual(["open", "resolved"]);
@@ -157,7 +157,7 @@ describe("lifecycle", () => {
       .where("zone_id", "=", front.id)
       .execute();
     await evaluateProperty(testDb(), c.companyId, oyelaran, { provider: null });
-    let torn = (await propertyAlerts(manager, oyelaran)).find(
+    let torn = (await listPropertyAlerts(manager, oyelaran)).find(
       (a) => a.kind === "torn_tips" && a.status !== "resolved",
     )!;
     expect(torn.clearSince).toBe(today);
@@ -165,14 +165,14 @@ describe("lifecycle", () => {
       provider: null,
       at: addDays(today, AUTO_RESOLVE_AFTER_DAYS - 1),
     });
-    expect((await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!.status).toBe(
-      "open",
-    );
+    expect(
+      (await listPropertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!.status,
+    ).toBe("open");
     await evaluateProperty(testDb(), c.companyId, oyelaran, {
       provider: null,
       at: addDays(today, AUTO_RESOLVE_AFTER_DAYS),
     });
-    torn = (await propertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!;
+    torn = (await listPropertyAlerts(manager, oyelaran)).find((a) => a.id === torn.id)!;
     expect(torn).toMatchObject({ status: "resolved", resolution: "auto", resolvedBy: null });
     expect(torn.events.map((e) => e.action)).toEqual(["reopened", "cleared", "auto_resolved"]);
   });

@@ -7,7 +7,7 @@ import { requireActor } from "@/lib/auth/require";
 import { formatDateTime } from "@/lib/dates";
 import { serverEnv } from "@/lib/env";
 import { readInbox } from "@/lib/mail/inbox-folder";
-import { companyEmailAddresses } from "@/lib/people/queries";
+import { listCompanyEmailAddresses } from "@/lib/people/queries";
 
 export const metadata: Metadata = { title: "Development inbox" };
 
@@ -36,7 +36,7 @@ export default async function DevMailPage({
   const actor = await requireActor(["manager"]);
   const dir = serverEnv().MAIL_INBOX_DIR;
   if (!dir) notFound();
-  const ours = await companyEmailAddresses(actor);
+  const ours = await listCompanyEmailAddresses(actor);
   const mails = (await readInbox(dir))
     .filter((m) => m.to.some((t) => ours.has(t.toLowerCase())))
     .reverse()

@@ -29,7 +29,7 @@ import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
-import { propertyAlerts } from "@/lib/risk-alerts/queries";
+import { listPropertyAlerts } from "@/lib/risk-alerts/queries";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { listVisits } from "@/lib/visits/queries";
 import { listWaterings } from "@/lib/watering/queries";
@@ -61,7 +61,7 @@ export default async function PropertyPage({
         getPropertyScoreHistory(actor, property.id),
       ]),
     ),
-    propertyAlerts(actor, property.id),
+    listPropertyAlerts(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
   const [nitrogen, applications] = await Promise.all([

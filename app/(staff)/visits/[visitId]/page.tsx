@@ -8,7 +8,7 @@ import { VisitRunner } from "@/components/visits/visit-runner";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
 import { makeQueryClient } from "@/lib/query-client";
-import { propertyAlerts } from "@/lib/risk-alerts/queries";
+import { listPropertyAlerts } from "@/lib/risk-alerts/queries";
 import { getVisit } from "@/lib/visits/queries";
 import { visitKeys } from "@/lib/visits/query-keys";
 import { visitIdParams } from "@/lib/visits/schemas";
@@ -25,7 +25,7 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const alerts = (await propertyAlerts(actor, visit.propertyId)).filter(
+  const alerts = (await listPropertyAlerts(actor, visit.propertyId)).filter(
     (a) => a.status !== "resolved",
   );
   const queryClient = makeQueryClient();
