@@ -4,7 +4,7 @@ import { z } from "zod/mini";
 
 const pct = (label: string) =>
   z
-    .number(`${label} is a number.`)
+    .number(`Enter ${label} as a number.`)
     .check(
       z.gte(0, `${label} cannot be below 0 %.`),
       z.lte(100, `${label} cannot be above 100 %.`),
@@ -22,7 +22,7 @@ export const productSchema = z
     slowReleasePctOfN: pct("Slow-release share"),
     densityLbPerGal: z.nullable(
       z
-        .number("Density is a number.")
+        .number("Enter the density as a number.")
         .check(
           z.positive("Density must be above 0."),
           z.lte(30, "Density above 30 lb/gal? Check the label."),

@@ -57,7 +57,7 @@ describe("forms", () => {
         await form.getByLabel("Product name").fill(name);
         await form.getByLabel("N %").fill("");
         await form.getByRole("button", { name: "Add product" }).click();
-        await form.getByText("N is a number.").waitFor();
+        await form.getByText("Enter N as a number.").waitFor();
         expect(await form.textContent()).not.toMatch(RAW);
         await snap(page, `form-product-errors-${size}`, true);
 
