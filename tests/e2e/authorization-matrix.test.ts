@@ -556,7 +556,7 @@ const CELLS: Cell[] = [
     key: "POST /api/v1/visits/[visitId]/finish",
     path: (t) => `/api/v1/visits/${t.visitId}/finish`,
     method: "POST",
-    body: () => ({ notes: "Finished on the matrix walk." }),
+    body: () => ({}),
     allow: ["assignedTech", "manager"],
     mustSucceed: true,
     before: (x) => checkEveryZone(x),

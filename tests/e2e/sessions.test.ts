@@ -44,9 +44,10 @@ const ACTIONS: {
     run: (cookie) => fetch(`${BASE}/api/v1/book`, { headers: { cookie } }),
   },
   {
-    name: "GET /properties (page)",
+    name: "GET /properties/:id (page)",
     managerOnly: false,
-    run: (cookie) => fetch(`${BASE}/properties`, { headers: { cookie }, redirect: "manual" }),
+    run: (cookie) =>
+      fetch(`${BASE}/properties/${propertyId}`, { headers: { cookie }, redirect: "manual" }),
   },
   {
     name: "POST /api/v1/products",
