@@ -1,7 +1,7 @@
 // The stored Sward Index of zone checks (never computed at read time): the columns for a check
 // from the values in hand (a save writes them in its own INSERT/UPDATE), and the recompute from
 // stored rows for a photo added or removed (through afterWrite) and for a change of weights
-// (db/recompute-index.ts). Takes the database handle from its caller.
+// (jobs/recompute-index.ts). Takes the database handle from its caller.
 import type { Kysely } from "kysely";
 
 import type { Database, ZoneCheck } from "@/db/schema";

@@ -2,8 +2,8 @@
 // the database says whether it is still valid and who is behind it. Memoised per request.
 //
 // The cookie is decoded here with next-auth's own `decode` rather than through `auth()`: `auth()`
-// runs the whole Auth.js session endpoint and re-issues the cookie on every request, which cost
-// about 4.5 ms per API call under load (tests/bench). Sessions therefore end 14 days after sign-in
+// runs the whole Auth.js session endpoint and re-issues the cookie on every request (measured in
+// tests/bench; the figure is in README.md). Sessions therefore end 14 days after sign-in
 // (the JWT's and the auth_sessions row's expiry), not 14 days after the last request.
 import "server-only";
 

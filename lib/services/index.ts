@@ -1,6 +1,6 @@
 // The service clients — mail (nodemailer over SMTP), the weather provider and photo storage —
 // built in one place from the validated configuration of lib/env.ts. Route handlers, mutations,
-// the worker (jobs/worker.ts) and the db scripts all take them from services(); a test swaps any
+// the worker (jobs/worker.ts) and the demo seed all take them from services(); a test swaps any
 // of them for a fake with useServices(). No "server-only" here: the worker and scripts run it too.
 import path from "node:path";
 
