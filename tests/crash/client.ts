@@ -24,6 +24,11 @@ export class Client {
     return new Client(base, result.cookie);
   }
 
+  /** The signed-in session's headers, for a request sent by hand. */
+  headers(): Record<string, string> {
+    return { cookie: this.cookie, origin: this.base };
+  }
+
   /** One attempt, no retry (setup steps before the crashes start). */
   async once<T>(method: string, path: string, body?: unknown): Promise<T> {
     const res = await fetch(`${this.base}${path}`, {

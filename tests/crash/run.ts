@@ -7,8 +7,11 @@
 // 5xx. Meanwhile the PostgreSQL postmaster is killed with SIGKILL 5 times and the web server 5
 // times, at random points of the run, each restarted at once. Then the database must hold every
 // acknowledged (2xx) zone check exactly once with the values sent, no duplicates, and no photo row
-// may name a missing file. Exit 1 otherwise. Everything it started is stopped in `finally`, and on
-// Ctrl-C, SIGTERM or the end of npm by tests/harness/supervisor.ts.
+// may name a missing file. Last, a visit at a lawn with a homeowner is finished over HTTP and the
+// web server killed with SIGKILL as the 200 arrives, before its after-response delivery (its SMTP
+// port never answers): the worker's outbox run must then send that report exactly once
+// (tests/crash/report-mail.ts). Exit 1 otherwise. Everything it started is stopped in `finally`,
+// and on Ctrl-C, SIGTERM or the end of npm by tests/harness/supervisor.ts.
 //
 // Environment: CRASH_SEED (repeat a run's crash points), CRASH_SUBMISSIONS (default 1000),
 // SWARD_CRASH_PORT (3300), SWARD_CRASH_PG_PORT (54339).
@@ -43,6 +46,7 @@ import {
   stopCluster,
   type Cluster,
 } from "./postgres";
+import { reportMailAfterKill, silentSmtp } from "./report-mail";
 import { verify, type Submission } from "./verify";
 import { WebServer } from "./web";
 
@@ -198,6 +202,8 @@ async function main(): Promise<number> {
     "tests/.artifacts/crash-pg",
   );
   const databaseUrl = cluster.url(DATABASE);
+  // SMTP for the web server: a port that accepts and never answers (tests/crash/report-mail.ts).
+  const silent = await silentSmtp();
   const web = new WebServer(
     sup,
     PORT,
@@ -209,6 +215,7 @@ async function main(): Promise<number> {
       AUTH_URL: BASE,
       LOG_LEVEL: "warn",
       PHOTO_DIR,
+      SMTP_URL: `smtp://127.0.0.1:${silent.port}`,
     },
     path.join(ARTIFACTS, "server.log"),
   );
@@ -220,6 +227,7 @@ async function main(): Promise<number> {
     web.keepAlive = false;
     await web.stop().catch((err) => console.error("crash: stopping the web server:", err));
     await stopCluster(cluster).catch((err) => console.error("crash: stopping PostgreSQL:", err));
+    await silent.close();
   };
   // On a signal, the supervisor stops the running step and the web server, then runs this.
   sup.defer("stop the web server and PostgreSQL", cleanup, {
@@ -376,10 +384,22 @@ async function main(): Promise<number> {
     );
     for (const s of refused.slice(0, 5)) console.log(`  refused #${s.n}: ${s.status}`);
 
-    const check = createDb(databaseUrl, { max: 2 });
-    const found = await verify(check, submissions, visitIds, preexisting, PHOTO_DIR).finally(() =>
-      check.destroy(),
+    const check = createDb(databaseUrl, { max: 4 });
+    const found = await verify(check, submissions, visitIds, preexisting, PHOTO_DIR).catch(
+      async (err: unknown) => {
+        await check.destroy();
+        throw err;
+      },
     );
+    // Last, as it ends with the web server killed: the report e-mail of a finish it acknowledged.
+    const mail = await reportMailAfterKill({
+      db: check,
+      web,
+      tech,
+      manager,
+      silent,
+      inboxDir: path.join(ARTIFACTS, "mail"),
+    }).finally(() => check.destroy());
     const leftovers = readdirSync(PHOTO_DIR, { recursive: true, encoding: "utf8" }).filter((f) =>
       f.endsWith(".tmp"),
     ).length;
@@ -401,6 +421,7 @@ async function main(): Promise<number> {
       ...uncaught
         .slice(0, 3)
         .map((l) => `the server log has an uncaught exception: ${l.slice(0, 200)}`),
+      ...mail.problems,
       ...(cycles.length === kinds.length
         ? []
         : [`only ${cycles.length} of ${kinds.length} crash cycles ran`]),
@@ -421,6 +442,7 @@ async function main(): Promise<number> {
     console.log(
       `  crash cycles ${cycles.length} (PostgreSQL ${CRASHES.postgres}, web server ${CRASHES.web}); web server exits nobody caused ${web.unexpectedExits.length}; uncaught exceptions in the server log ${uncaught.length}`,
     );
+    console.log(mail.line);
     if (problems.length) {
       console.error(`\ncrash: FAILED (${problems.length}):`);
       for (const p of problems.slice(0, 30)) console.error(`  ${p}`);
