@@ -32,7 +32,10 @@ export interface PropertyChange {
 
 /**
  * Recomputes, in `trx`, the Index of the checks named, the property's alerts (when asked) and its
- * summary row. Takes the property row's lock first: one evaluation of a property at a time.
+ * summary row. Takes the property row's lock first: one evaluation of a property at a time. FOR
+ * NO KEY UPDATE, not FOR UPDATE: the writing transaction may already hold the KEY SHARE lock that
+ * inserting a row referencing the property takes (a new visit), and two such writers upgrading to
+ * FOR UPDATE deadlock; NO KEY UPDATE does not conflict with KEY SHARE and still excludes itself.
  */
 export async function afterWrite(
   trx: Transaction<Database>,
@@ -44,7 +47,7 @@ export async function afterWrite(
     .select("time_zone")
     .where("company_id", "=", change.companyId)
     .where("id", "=", change.propertyId)
-    .forUpdate()
+    .forNoKeyUpdate()
     .executeTakeFirst();
   if (!property) return null;
   if (change.recheckIndexOf?.length) await refreshCheckIndex(trx, change.recheckIndexOf);
