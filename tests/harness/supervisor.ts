@@ -128,6 +128,8 @@ export class Supervisor {
   private readonly deferred: Deferred[] = [];
   private reaper: ChildProcess | undefined;
   private stopping: Promise<void> | undefined;
+  /** Set by exit(): a signal's (or a lost parent's) exit is under way and ends the process. */
+  private exiting = false;
   private firstSignalAt = 0;
   /** What was running when stop() began: a second Ctrl-C kills these (never the clean-ups). */
   private stoppingChildren: Started[] = [];
@@ -299,6 +301,7 @@ export class Supervisor {
 
   /** Standalone: stops everything, then exits with `code`. */
   async exit(code: number, signal: NodeJS.Signals = "SIGTERM"): Promise<never> {
+    this.exiting = true;
     await this.stop(signal);
     process.exit(code);
   }
@@ -315,10 +318,11 @@ export class Supervisor {
       if (!this.stopping) console.error(err instanceof StepFailed ? err.message : err);
       code = 1;
     }
-    if (this.stopping) {
+    if (this.exiting) {
       await this.stopping;
       await new Promise(() => {}); // the signal handler's exit follows
     }
+    // Also when the work stopped everything itself (sup.stop()): the exit code is the work's.
     return this.exit(code);
   }
 
