@@ -1,10 +1,10 @@
 // A whole visit on a phone (390×844): tech1 opens today, starts a visit, fills two zone checks,
 // skips a third with a reason, reloads mid-way and finds the draft intact, finishes; the manager
 // then sees the finished visit and its checks. Screenshots of each step go to tests/.artifacts.
-import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
+import { seriousViolations } from "../helpers/axe";
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { lawnImage } from "../helpers/images";
 import { snap } from "../helpers/screenshots";
@@ -33,13 +33,6 @@ async function waitSaved(page: Page) {
     .getByRole("status")
     .filter({ hasText: /^Saved/ })
     .waitFor({ timeout: 10_000 });
-}
-
-async function seriousViolations(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  return result.violations
-    .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .map((v) => `${v.id}: ${v.help} (${v.nodes.length})`);
 }
 
 describe("a technician runs a visit on a phone", () => {

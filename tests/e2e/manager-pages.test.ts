@@ -1,10 +1,10 @@
 // Every manager page at phone and desktop size: it renders its heading and axe finds no serious
 // or critical violation. The property page carries the weather panel (from the local fake),
 // the nitrogen to date per zone and the watering log.
-import AxeBuilder from "@axe-core/playwright";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
+import { seriousViolations } from "../helpers/axe";
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
@@ -49,11 +49,7 @@ describe("manager pages", () => {
       ] as const) {
         await page.goto(path);
         await page.getByRole("heading", { level: 1, name: heading }).waitFor();
-        const result = await new AxeBuilder({ page }).analyze();
-        const serious = result.violations
-          .filter((v) => v.impact === "serious" || v.impact === "critical")
-          .map((v) => `${path}: ${v.id} (${v.nodes.length})`);
-        expect(serious).toEqual([]);
+        expect(await seriousViolations(page, path)).toEqual([]);
       }
       await context.close();
     });

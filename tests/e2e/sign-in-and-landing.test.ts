@@ -1,11 +1,11 @@
 // Each role signs in through the real form in Chromium and lands on its own page; wrong
 // passwords get a clear error; sign-out ends the session for good; tenancy holds in the API.
-import AxeBuilder from "@axe-core/playwright";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
 import { demoCompany, otherCompany } from "@/fixtures/demo/scenario";
 
+import { seriousViolations } from "../helpers/axe";
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 
 const baseUrl = inject("baseUrl");
@@ -25,13 +25,6 @@ async function freshPage(viewport = DESKTOP): Promise<{ context: BrowserContext;
 
 const namesFor = (pred: (p: (typeof demoCompany.properties)[number]) => boolean) =>
   demoCompany.properties.filter(pred).map((p) => p.name);
-
-async function seriousViolations(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  return result.violations
-    .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .map((v) => `${v.id}: ${v.help}`);
-}
 
 describe("landing pages by role", () => {
   const cases = [
