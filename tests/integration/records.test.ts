@@ -1,6 +1,7 @@
 // Application records as CSV through the route: manager only, the date range, UTF-8 BOM,
 // ISO dates, formula-like cells neutralised, required record fields enforced per rule set.
 import { parse } from "csv-parse/sync";
+import { sql } from "kysely";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { recordApplication } from "@/lib/applications/mutations";
@@ -108,6 +109,61 @@ describe("GET /api/v1/records/applications", () => {
     current = await c.actor("manager");
     expect((await get("from=2026-06-01&to=2026-05-01")).status).toBe(422);
     expect((await get("from=yesterday&to=2026-05-01")).status).toBe(422);
+  });
+});
+
+describe("one row per application", () => {
+  it("a property with several homeowners gives one row per application, its homeowners in one cell, across page boundaries", async () => {
+    current = await c.actor("manager");
+    const propertyId = c.propertyIds["oyelaran"]!;
+    const before = await get("from=2026-05-01&to=2026-05-31");
+    const baseline = parse(await before.text(), { columns: true, bom: true }) as Record<
+      string,
+      string
+    >[];
+    // Two more homeowners on the lawn (three in all, or two where the demo has none).
+    for (const name of ["Zora Quist", "Abel Ferro"]) {
+      const user = await testDb()
+        .insertInto("users")
+        .values({ email: `${newId()}@test.sward.test`, name })
+        .returning("id")
+        .executeTakeFirstOrThrow();
+      await testDb()
+        .insertInto("property_homeowners")
+        .values({ property_id: propertyId, user_id: user.id, company_id: c.companyId })
+        .execute();
+    }
+    // 600 more applications on one day: the export reads 500 a page, so pages have a boundary.
+    const copied = sql.raw(
+      "company_id, visit_id, zone_id, product_id, rate_amount, rate_unit, area_ft2, product_total_lb, product_total_gal, n_lb_per_1000, p2o5_lb_per_1000, k2o_lb_per_1000, wsn_lb_per_1000, wind_mph, temperature_f, is_establishing, applicator_name, applicator_licence, findings, override_reason, override_by, created_by",
+    );
+    await sql`insert into applications (id, applied_on, applied_at, ${copied})
+        select gen_random_uuid(), '2026-05-20', applied_at + interval '8 days' + g * interval '1 second', ${copied}
+        from applications, generate_series(1, 600) g
+        where applications.id = (select id from applications where visit_id = ${visitId} order by applied_at limit 1)`.execute(
+      testDb(),
+    );
+    const res = await get("from=2026-05-01&to=2026-05-31");
+    expect(res.status).toBe(200);
+    const rows = parse(await res.text(), { columns: true, bom: true }) as Record<string, string>[];
+    const expected = await testDb()
+      .selectFrom("applications")
+      .select((eb) => [
+        eb.fn.countAll<number>().as("n"),
+        eb.fn.sum<number>("product_total_lb").as("lb"),
+      ])
+      .where("company_id", "=", c.companyId)
+      .where("applied_on", ">=", "2026-05-01")
+      .where("applied_on", "<=", "2026-05-31")
+      .executeTakeFirstOrThrow();
+    expect(rows).toHaveLength(Number(expected.n));
+    expect(rows).toHaveLength(baseline.length + 600);
+    const total = rows.reduce((sum, r) => sum + Number(r.total_product_lb), 0);
+    expect(total).toBeCloseTo(Number(expected.lb), 6);
+    for (const r of rows) {
+      expect(r.customer).toContain("Abel Ferro, ");
+      expect(r.customer).toMatch(/Zora Quist.*\(Oyelaran residence\)$/);
+    }
   });
 });
 

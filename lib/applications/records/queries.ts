@@ -1,6 +1,9 @@
-// Application records for export: every field record-keeping rules ask for, one row each,
+// Application records for export: every field record-keeping rules ask for, one row per
+// application (the property's homeowners together in the customer cell),
 // streamed page by page (keyset on applied_at, id) so a long range never sits in memory.
 import "server-only";
+
+import { sql } from "kysely";
 
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
@@ -48,15 +51,12 @@ export async function* listApplicationRecords(
       .innerJoin("zones as z", "z.id", "a.zone_id")
       .innerJoin("products as pr", "pr.id", "a.product_id")
       .leftJoin("rule_sets as r", "r.id", "p.rule_set_id")
-      .leftJoin("property_homeowners as ph", "ph.property_id", "p.id")
-      .leftJoin("users as owner", "owner.id", "ph.user_id")
       .select([
         "a.id",
         "a.applied_on",
         "a.applied_at",
         "p.time_zone",
         "p.name as property_name",
-        "owner.name as owner_name",
         "p.street",
         "p.city",
         "p.region",
@@ -82,6 +82,17 @@ export async function* listApplicationRecords(
         "a.findings",
         "a.override_reason",
       ])
+      // The homeowners of the lawn in one cell: joined as rows they would repeat the application
+      // once per homeowner (and a repeat on a page boundary would be skipped by the keyset).
+      .select((eb) =>
+        eb
+          .selectFrom("property_homeowners as ph")
+          .innerJoin("users as owner", "owner.id", "ph.user_id")
+          .select(sql<string | null>`string_agg(owner.name, ', ' order by owner.name)`.as("names"))
+          .whereRef("ph.property_id", "=", "p.id")
+          .whereRef("ph.company_id", "=", "a.company_id")
+          .as("owner_names"),
+      )
       .where("a.company_id", "=", actor.companyId)
       .where("a.applied_on", ">=", from)
       .where("a.applied_on", "<=", to)
@@ -111,7 +122,7 @@ export async function* listApplicationRecords(
           dateStyle: "short",
           timeStyle: "short",
         }).format(at),
-        r.owner_name ? `${r.owner_name} (${r.property_name})` : r.property_name,
+        r.owner_names ? `${r.owner_names} (${r.property_name})` : r.property_name,
         `${r.street}, ${r.city}, ${r.region} ${r.postal_code}`,
         r.zone_name,
         Number(r.area_ft2),
