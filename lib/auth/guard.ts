@@ -6,7 +6,12 @@ import { z } from "zod";
 
 import type { Role } from "@/db/schema";
 import { AppError, notFound, toErrorBody } from "@/lib/http/app-error";
+import {
+  CONTROL_CHARACTER_MESSAGE,
+  fieldsWithControlCharacters,
+} from "@/lib/http/control-characters";
 import { isSameSiteWrite } from "@/lib/http/origin";
+import { readBodyLimited } from "@/lib/http/read-body";
 import { log } from "@/lib/log";
 import { plainErrors } from "@/lib/plain-errors";
 
@@ -47,6 +52,21 @@ function invalid(error: z.core.$ZodError, message = "Some values need attention.
   );
 }
 
+/** The largest JSON body a route reads unless it says otherwise: the largest form (a product with
+ *  its 4,000-character label cautions) is under 32 KiB even in 4-byte characters. */
+const DEFAULT_MAX_BODY_BYTES = 64 * 1024;
+
+/** 422 when any text of the input (a value or a key) holds a control character or a lone surrogate. */
+function refuseControlCharacters(input: unknown, message = "Some values need attention."): void {
+  const fields = fieldsWithControlCharacters(input);
+  if (fields.length)
+    throw new AppError(
+      "invalid_input",
+      message,
+      Object.fromEntries(fields.map((f) => [f || "body", [CONTROL_CHARACTER_MESSAGE]])),
+    );
+}
+
 function authorise<A extends Access>(actor: Actor | null, access: A): ActorFor<A> {
   if (access === "public") return actor as ActorFor<A>;
   if (!actor) throw new AppError("unauthenticated", "Sign in to continue.");
@@ -72,6 +92,9 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
       params?: P;
       query?: Q;
       body?: B;
+      /** The largest body read (bytes, default DEFAULT_MAX_BODY_BYTES): a larger one is 413, refused
+       *  from its Content-Length before reading, or as soon as the count passes it while streaming. */
+      maxBodyBytes?: number;
       /** e.g. "That property": names what a bad id fails to find */ resource?: string;
     },
     handler: (ctx: {
@@ -98,11 +121,23 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
           : { success: true as const, data: {} };
         if (!query.success)
           throw invalid(query.error, "The query string has values that are not allowed.");
+        // After the schema: search text strips control characters there (harmless); any other
+        // query value that still holds one is refused.
+        refuseControlCharacters(query.data, "The query string has values that are not allowed.");
         let body: unknown = undefined;
         if (spec.body) {
-          const json = await request.json().catch(() => {
+          const bytes = await readBodyLimited(
+            request,
+            spec.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES,
+            "The request body",
+          );
+          let json: unknown;
+          try {
+            json = JSON.parse(new TextDecoder().decode(bytes));
+          } catch {
             throw new AppError("invalid_input", "The request body must be JSON.");
-          });
+          }
+          refuseControlCharacters(json);
           const parsed = parse(spec.body, json);
           if (!parsed.success) throw invalid(parsed.error);
           body = parsed.data;
@@ -143,6 +178,7 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
       try {
         const actor = authorise(await resolveActor(), spec.access);
         const source = raw instanceof FormData ? Object.fromEntries(raw) : raw;
+        refuseControlCharacters(source);
         const parsed = parse(spec.input, source);
         if (!parsed.success) throw invalid(parsed.error);
         return { ok: true, data: await handler({ actor, input: parsed.data }) };

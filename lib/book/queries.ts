@@ -3,13 +3,15 @@
 import "server-only";
 
 import { sql, type ExpressionBuilder, type RawBuilder } from "kysely";
+import { z } from "zod/mini";
 
 import { db } from "@/db";
 import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
-import { addDays, todayIn } from "@/lib/dates";
+import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
+import { hasControlCharacters } from "@/lib/http/control-characters";
 import { escapeLike } from "@/lib/text";
 
 import type { BookRow } from "./dto";
@@ -62,20 +64,30 @@ const SORTS: Record<
 
 const encodeCursor = (value: unknown, id: string) =>
   Buffer.from(JSON.stringify([value, id])).toString("base64url");
-function decodeCursor(cursor: string): [string | number, string] {
+
+/** PostgreSQL's real (float4) holds magnitudes up to about 3.4e38; anything larger cannot be a sort value. */
+const REAL_MAX = 3.4e38;
+/** What the sort value of each sort type may be: exactly what encodeCursor writes for it. */
+const CURSOR_VALUE = {
+  int: z.int32(),
+  real: z.number().check(z.gte(-REAL_MAX), z.lte(REAL_MAX)),
+  date: z.string().check(z.refine((d) => isIsoDate(d) && d >= "0001-01-01")), // PostgreSQL has no year 0
+  text: z.string().check(
+    z.maxLength(300),
+    z.refine((s) => !hasControlCharacters(s)),
+  ),
+} as const;
+
+/** The `after` cursor, checked by the schema of the sort's type: anything else is 422, never an SQL error. */
+function decodeCursor(cursor: string, type: keyof typeof CURSOR_VALUE): [string | number, string] {
+  let parsed: unknown;
   try {
-    const parsed = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as unknown;
-    if (
-      Array.isArray(parsed) &&
-      parsed.length === 2 &&
-      (typeof parsed[0] === "string" || typeof parsed[0] === "number") &&
-      typeof parsed[1] === "string" &&
-      /^[0-9a-f-]{36}$/.test(parsed[1])
-    )
-      return [parsed[0], parsed[1]];
+    parsed = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8"));
   } catch {
-    /* fall through */
+    parsed = undefined;
   }
+  const checked = z.tuple([CURSOR_VALUE[type], z.guid()]).safeParse(parsed);
+  if (checked.success) return [checked.data[0], checked.data[1]];
   throw new AppError(
     "invalid_input",
     "That page link is no longer valid. Start again from the first page.",
@@ -160,7 +172,7 @@ export function bookPageQuery(actor: Actor, q: BookQuery) {
   if (actor.role !== "manager") throw new AppError("forbidden", "The book is for managers.");
   const sort = SORTS[q.sort];
   const dir = q.dir ?? sort.dir;
-  const after = q.after ? decodeCursor(q.after) : null;
+  const after = q.after ? decodeCursor(q.after, sort.type) : null;
   return baseQuery(actor, q)
     .selectAll("ps")
     .select([

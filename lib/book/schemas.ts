@@ -2,6 +2,7 @@
 // zod/mini: the book's client view imports the sorts from here.
 import { z } from "zod/mini";
 
+import { stripControlCharacters } from "@/lib/http/control-characters";
 import { ALERT_KINDS } from "@/lib/risk/labels";
 
 const kinds = Object.keys(ALERT_KINDS) as [
@@ -15,7 +16,7 @@ export type BookSort = (typeof BOOK_SORTS)[number];
 const lenient = <T extends z.ZodMiniType>(schema: T) => z.catch(z.optional(schema), undefined);
 
 export const bookQuery = z.object({
-  q: lenient(z.string().check(z.trim(), z.maxLength(80))),
+  q: lenient(z.string().check(z.overwrite(stripControlCharacters), z.trim(), z.maxLength(80))),
   technician: lenient(z.uuid()),
   trend: lenient(z.enum(["improving", "steady", "declining", "none"])),
   kind: lenient(z.enum(kinds)),

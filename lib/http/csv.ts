@@ -7,12 +7,18 @@ function neutraliseCell(value: unknown): string {
   return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
 }
 
-/** Streams rows as a CSV download: BOM, header, text cells neutralised, numbers as they are. */
-export function csvResponse(
+/**
+ * Streams rows as a CSV download: BOM, header, text cells neutralised, numbers as they are. The
+ * first page of rows is read before answering, so a query that fails (bad input, a database
+ * error) answers with its own status instead of a 200 cut short mid-stream.
+ */
+export async function csvResponse(
   columns: readonly string[],
   rows: AsyncIterable<(string | number | null)[]>,
   filename: string,
-): Response {
+): Promise<Response> {
+  const iterator = rows[Symbol.asyncIterator]();
+  const first = await iterator.next();
   const encoder = new TextEncoder();
   const body = new ReadableStream<Uint8Array>({
     async start(controller) {
@@ -28,9 +34,10 @@ export function csvResponse(
         ),
       );
       controller.enqueue(encoder.encode(UTF8_BOM));
+      const write = (row: (string | number | null)[]) =>
+        csv.write(row.map((cell) => (typeof cell === "number" ? cell : neutraliseCell(cell))));
       try {
-        for await (const row of rows)
-          csv.write(row.map((cell) => (typeof cell === "number" ? cell : neutraliseCell(cell))));
+        for (let next = first; !next.done; next = await iterator.next()) write(next.value);
         csv.end();
         await new Promise<void>((resolve) => csv.on("end", () => resolve()));
         controller.close();

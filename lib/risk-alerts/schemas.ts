@@ -1,6 +1,7 @@
 // Inputs of the alert endpoints and the alerts page filters (zod/mini, as every domain schema).
 import { z } from "zod/mini";
 
+import { stripControlCharacters } from "@/lib/http/control-characters";
 import { ALERT_KINDS } from "@/lib/risk/labels";
 
 export const alertIdParams = z.object({ alertId: z.uuid() });
@@ -24,6 +25,6 @@ export const alertFilters = z.object({
   severity: lenient(z.enum(["low", "moderate", "high"])),
   status: lenient(z.enum(["open", "acknowledged", "resolved", "live", "all"])),
   technician: lenient(z.uuid()),
-  area: lenient(z.string().check(z.trim(), z.maxLength(80))),
+  area: lenient(z.string().check(z.overwrite(stripControlCharacters), z.trim(), z.maxLength(80))),
 });
 export type AlertFilters = z.infer<typeof alertFilters>;

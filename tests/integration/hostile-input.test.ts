@@ -2,7 +2,8 @@
 // 10,000 malformed payloads each (wrong types, out-of-range values, huge strings, unicode, unknown
 // fields, missing fields, prototype-pollution keys, SQL and HTML fragments, non-objects) get 422
 // with field errors — never a 5xx, never a stack trace or an SQL error in the body — and change no
-// rows. HOSTILE_RUNS lowers the count for a quick local run.
+// rows. Text a schema would accept but holding NUL, a C0/C1 control or a lone surrogate is 422
+// naming the field. HOSTILE_RUNS lowers the count for a quick local run.
 import fc from "fast-check";
 import { sql } from "kysely";
 import { beforeAll, describe, expect, it, vi } from "vitest";
@@ -25,6 +26,7 @@ import {
 import { wateringSchema } from "@/lib/watering/schemas";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
+import { ACCEPTED_SEPARATORS, REFUSED_TEXT } from "../helpers/hostile-text";
 import { doneCheck, newId } from "../helpers/zone-checks";
 
 let current: Actor | null = null;
@@ -411,6 +413,15 @@ const junk = fc.oneof(
     "{{7*7}}",
     "${7*7}",
   ),
+  // NUL, the other C0 and the C1 controls, lone surrogates, and the line/paragraph separators.
+  fc.constantFrom(...REFUSED_TEXT, ...ACCEPTED_SEPARATORS),
+  fc
+    .tuple(
+      fc.string({ maxLength: 20 }),
+      fc.constantFrom(...REFUSED_TEXT),
+      fc.string({ maxLength: 20 }),
+    )
+    .map(([a, ch, b]) => a + ch + b),
   fc.string({ unit: "grapheme", maxLength: 200 }),
   fc.double(),
   fc.integer({ min: -1e9, max: 1e9 }),
@@ -484,7 +495,7 @@ async function tableCounts(): Promise<string> {
   return JSON.stringify(rows);
 }
 
-const stats = { payloads: 0, serverErrors: 0, leakyBodies: 0, rowsChanged: 0 };
+const stats = { payloads: 0, controls: 0, serverErrors: 0, leakyBodies: 0, rowsChanged: 0 };
 const LEAKY = /\n\s+at |node_modules|syntax error|relation "|violates|duplicate key|postgres/i;
 const prototypeBefore = Object.getOwnPropertyNames(Object.prototype).sort();
 
@@ -602,13 +613,116 @@ describe("malformed payloads", () => {
     }, 300_000);
   }
 
+  // Text a schema would accept, with a refused character somewhere in it (a value or a key): the
+  // boundary answers 422 naming the field, before anything is parsed further or written.
+  const REFUSED_RUNS = Math.min(RUNS, 1000);
+  for (const endpoint of endpoints) {
+    it(`${endpoint.name}: ${REFUSED_RUNS} texts with NUL, C0/C1 controls or lone surrogates → 422 naming the field, nothing changed`, async () => {
+      current = await c.actor("manager");
+      const textFields = Object.keys(endpoint.valid()).filter(
+        (k) => typeof endpoint.valid()[k] === "string",
+      );
+      const handler = (await endpoint.load())[endpoint.method]!;
+      const before = await tableCounts();
+      const hostileText = fc
+        .tuple(
+          fc.string({ maxLength: 30 }),
+          fc.constantFrom(...REFUSED_TEXT),
+          fc.string({ maxLength: 30 }),
+        )
+        .map(([a, ch, b]) => a + ch + b);
+      const payload = fc.oneof(
+        ...(textFields.length
+          ? [
+              fc
+                .tuple(fc.constantFrom(...textFields), hostileText)
+                .map(([k, v]) => ({ field: k, body: { ...endpoint.valid(), [k]: v } })),
+            ]
+          : []),
+        hostileText.map((k) => ({ field: null, body: { ...endpoint.valid(), [k]: "x" } })),
+      );
+      await fc.assert(
+        fc.asyncProperty(payload, async ({ field, body }) => {
+          const res = await handler(
+            new Request("http://localhost/api", {
+              method: endpoint.method,
+              body: JSON.stringify(body),
+              headers: {
+                origin: "http://localhost",
+                host: "localhost",
+                "content-type": "application/json",
+              },
+            }),
+            { params: Promise.resolve(endpoint.params()) },
+          );
+          const text = await res.text();
+          stats.payloads++;
+          stats.controls++;
+          if (res.status >= 500) stats.serverErrors++;
+          expect(res.status).toBe(422);
+          const parsed = JSON.parse(text) as { error: { fieldErrors?: Record<string, string[]> } };
+          if (field) expect(parsed.error.fieldErrors?.[field]?.[0]).toMatch(/control characters/);
+          expect(text).not.toMatch(LEAKY);
+        }),
+        { numRuns: REFUSED_RUNS },
+      );
+      const after = await tableCounts();
+      if (after !== before) stats.rowsChanged++;
+      expect(after).toBe(before);
+    }, 300_000);
+  }
+
+  it("the sign-in forms refuse control characters in any field with an error state", async () => {
+    current = null;
+    for (const a of actions)
+      for (const ch of REFUSED_TEXT) {
+        const data = new FormData();
+        for (const [k, v] of Object.entries(a.valid())) data.set(k, `${v}${ch}`);
+        const state = await a.run(data);
+        stats.payloads++;
+        stats.controls++;
+        expect(state.error, JSON.stringify(ch)).toBeTruthy();
+        expect(state.fieldErrors, JSON.stringify(ch)).toBeDefined();
+      }
+  });
+
+  // U+2028 and U+2029 are text: a valid body carrying them is never a 5xx (stored as sent or
+  // refused by the field's own rule, e.g. an e-mail address).
+  it("line and paragraph separators in every text field: never a 5xx", async () => {
+    current = await c.actor("manager");
+    for (const endpoint of endpoints) {
+      const handler = (await endpoint.load())[endpoint.method]!;
+      for (const k of Object.keys(endpoint.valid()).filter(
+        (key) => typeof endpoint.valid()[key] === "string",
+      ))
+        for (const ch of ACCEPTED_SEPARATORS) {
+          const body = { ...endpoint.valid(), [k]: `a${ch}b` };
+          const res = await handler(
+            new Request("http://localhost/api", {
+              method: endpoint.method,
+              body: JSON.stringify(body),
+              headers: {
+                origin: "http://localhost",
+                host: "localhost",
+                "content-type": "application/json",
+              },
+            }),
+            { params: Promise.resolve(endpoint.params()) },
+          );
+          stats.payloads++;
+          if (res.status >= 500) stats.serverErrors++;
+          expect(res.status, `${endpoint.name} ${k}`).toBeLessThan(500);
+        }
+    }
+  });
+
   it("the valid payloads themselves are accepted by their schemas (the generator corrupts something real), and Object.prototype is untouched", () => {
     for (const e of endpoints) expect(e.schema.safeParse(e.valid()).success, e.name).toBe(true);
     for (const a of actions) expect(a.schema.safeParse(a.valid()).success, a.name).toBe(true);
     expect(Object.getOwnPropertyNames(Object.prototype).sort()).toEqual(prototypeBefore);
     expect(({} as Record<string, unknown>).isAdmin).toBeUndefined();
     console.log(
-      `hostile input: ${stats.payloads} malformed payloads across ${endpoints.length} route handlers and ${actions.length} server actions (${RUNS} each); responses 5xx ${stats.serverErrors}, stack traces or SQL errors in bodies ${stats.leakyBodies}, endpoints with rows changed by rejected requests ${stats.rowsChanged}`,
+      `hostile input: ${stats.payloads} malformed payloads across ${endpoints.length} route handlers and ${actions.length} server actions (${RUNS} each), ${stats.controls} of them texts with one of ${REFUSED_TEXT.length} refused characters (${REFUSED_TEXT.length - 5} C0/DEL/C1 controls, 5 lone-surrogate cases); responses 5xx ${stats.serverErrors}, stack traces or SQL errors in bodies ${stats.leakyBodies}, endpoints with rows changed by rejected requests ${stats.rowsChanged}`,
     );
     expect(stats).toMatchObject({ serverErrors: 0, leakyBodies: 0, rowsChanged: 0 });
   });

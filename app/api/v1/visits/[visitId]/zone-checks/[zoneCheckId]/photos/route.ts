@@ -13,7 +13,7 @@ export const POST = route(
   { access: ["manager", "technician"], params: zoneCheckParams, resource: "That zone check" },
   async ({ actor, params, request }) => {
     await assertCanAddPhoto(actor, params.visitId, params.zoneCheckId); // before reading or decoding anything
-    const bytes = await readBodyLimited(request, PHOTO_LIMITS.maxBytes);
+    const bytes = await readBodyLimited(request, PHOTO_LIMITS.maxBytes, "The photo");
     const processed = await limitPhotoWork(() => processPhoto(bytes));
     const { photo, isNew } = await addPhoto(
       actor,
