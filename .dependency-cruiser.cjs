@@ -24,7 +24,7 @@ const PURE = [
   "^lib/agronomy/[^/]+\\.ts$",
   "^lib/scoring/(weights|sward-index|trend|available-nitrogen|from-check|history|words)\\.ts$",
   "^lib/risk/(rules|models|lifecycle|labels)\\.ts$",
-  "^lib/photos/(color|analyze)\\.ts$",
+  "^lib/photo-analysis/(color|analyze)\\.ts$",
   "^lib/weather/derived\\.ts$",
   "^lib/reports/(care-notes|words)\\.ts$",
 ];

@@ -319,8 +319,16 @@ interface PhotosTable {
   display_width: number;
   display_height: number;
   thumb_key: string;
+  /** Green canopy cover, % of the frame (lib/photo-analysis/color.ts). */
   green_cover_pct: number;
+  /** Mean DGCI over the canopy pixels; null when there are none. */
   dgci: number | null;
+  /** The method the figures came from: rows before 2026-12-02 await `npm run db:remeasure-photos`. */
+  measured_by: "hue-window-2001" | "canopy-rule-2015";
+  /** Share of pixels too dark to read, % (the lighting caution). */
+  dark_pct: number;
+  /** Share of pixels with a clipped channel, % (the lighting caution). */
+  clipped_pct: number;
   /** Capture time as the camera recorded it (local, no zone), e.g. "2026-06-14 09:31:05". */
   captured_local: string | null;
   gps_latitude: number | null;

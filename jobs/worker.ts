@@ -10,6 +10,7 @@ import { serviceEnv } from "@/lib/env";
 import { log } from "@/lib/log";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
+import { remeasurePhotos } from "@/lib/photos/remeasure";
 import { queueHighAlertDigests } from "@/lib/risk-alerts/digest";
 import {
   DAILY_AT,
@@ -62,6 +63,18 @@ await registerMailOutbox(boss, async () => {
   return result;
 });
 await registerDailyTick(boss, db);
+// Photos measured by a retired method are measured again from their stored images, with their
+// checks' Index, book rows and alerts (lib/photos/remeasure.ts); nothing to do once done.
+try {
+  const r = await remeasurePhotos(db, services().photoStorage);
+  if (r.photos.length || r.missing.length)
+    log.info(
+      { photos: r.photos.length, properties: r.properties, missing: r.missing.length },
+      "photos remeasured",
+    );
+} catch (err) {
+  log.error({ err }, "photo remeasure failed");
+}
 const companies = await db.selectFrom("companies").select("id").execute();
 await queueSweeps(
   boss,

@@ -1,5 +1,6 @@
 // The first and the latest photo of a zone side by side, and every photo over time.
 import type { PhotoDto } from "@/lib/photos/dto";
+import { PHOTO_FIGURES_EXPLAINED } from "@/lib/photos/words";
 
 import { PhotoFigure } from "./photo-figure";
 
@@ -12,7 +13,9 @@ export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName
     );
   const first = photos[0]!;
   const latest = photos[photos.length - 1]!;
-  const change = photos.length > 1 ? latest.greenCoverPct - first.greenCoverPct : null;
+  const comparable = first.lighting === "ok" && latest.lighting === "ok";
+  const change =
+    photos.length > 1 && comparable ? latest.greenCoverPct - first.greenCoverPct : null;
   return (
     <div className="space-y-4">
       {photos.length > 1 ? (
@@ -29,20 +32,26 @@ export function BeforeAfter({ photos, zoneName }: { photos: PhotoDto[]; zoneName
           </div>
           {change !== null ? (
             <p className="font-semibold">
-              Green cover {change >= 0 ? "up" : "down"} {Math.abs(change).toFixed(1)} points since
-              the first photo
+              Green canopy cover {change >= 0 ? "up" : "down"} {Math.abs(change).toFixed(1)} points
+              since the first photo
               {first.dgci !== null && latest.dgci !== null
                 ? `; DGCI ${first.dgci.toFixed(3)} → ${latest.dgci.toFixed(3)}`
                 : ""}
               .
             </p>
-          ) : null}
+          ) : (
+            <p className="font-semibold">
+              No change is given: the first or the latest photo was too dark or too bright to
+              measure.
+            </p>
+          )}
         </>
       ) : (
         <div className="max-w-md">
           <PhotoFigure photo={first} size="display" showDate />
         </div>
       )}
+      <p className="max-w-reading text-sm text-muted">{PHOTO_FIGURES_EXPLAINED}</p>
       <ol
         className="flex gap-2 overflow-x-auto pb-2"
         aria-label={`All photos of ${zoneName}, oldest first`}

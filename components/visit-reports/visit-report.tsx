@@ -4,6 +4,7 @@ import { ShieldAlert } from "lucide-react";
 
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { formatDate } from "@/lib/dates";
+import { PHOTO_FIGURES_EXPLAINED } from "@/lib/photos/words";
 import type { VisitReport } from "@/lib/reports/dto";
 
 import { PrintButton } from "./print-button";
@@ -70,6 +71,9 @@ export function VisitReportView({ report }: { report: VisitReport }) {
             </div>
           ))}
         </div>
+        {report.zones.some((z) => z.photos.length) ? (
+          <p className="mt-3 text-sm text-muted">{PHOTO_FIGURES_EXPLAINED}</p>
+        ) : null}
       </section>
 
       <section aria-labelledby="applied-title">

@@ -67,13 +67,18 @@ export async function refreshCheckIndex(
     .execute();
   const photos = await executor
     .selectFrom("photos")
-    .select(["zone_check_id", "green_cover_pct", "dgci"])
+    .select(["zone_check_id", "green_cover_pct", "dgci", "dark_pct", "clipped_pct"])
     .where("zone_check_id", "in", zoneCheckIds)
     .execute();
   for (const c of checks) {
     const figures = photos
       .filter((p) => p.zone_check_id === c.id)
-      .map((p) => ({ greenCoverPct: p.green_cover_pct, dgci: p.dgci }));
+      .map((p) => ({
+        greenCoverPct: p.green_cover_pct,
+        dgci: p.dgci,
+        darkPct: p.dark_pct,
+        clippedPct: p.clipped_pct,
+      }));
     await executor
       .updateTable("zone_checks")
       .set(indexColumns(ratingsOfRow(c), figures))

@@ -1,6 +1,7 @@
 // Photo row → DTO: staff see capture time and GPS; homeowners never do.
 import type { Photo } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { lightingOf, MEASURED_BY } from "@/lib/photo-analysis/color";
 
 import type { PhotoDto } from "./dto";
 
@@ -16,6 +17,10 @@ export function toPhotoDto(row: PhotoRow, actor: Actor): PhotoDto {
     visitedOn: row.scheduled_for,
     greenCoverPct: Math.round(row.green_cover_pct * 10) / 10,
     dgci: row.dgci === null ? null : Math.round(row.dgci * 1000) / 1000,
+    lighting: lightingOf(row.dark_pct, row.clipped_pct),
+    darkPct: Math.round(row.dark_pct),
+    clippedPct: Math.round(row.clipped_pct),
+    measuredByCanopyRule: row.measured_by === MEASURED_BY,
     width: row.width,
     height: row.height,
     displayUrl: `/api/v1/photos/${row.id}/display`,

@@ -8,6 +8,7 @@ import { afterWrite } from "@/lib/after-write";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { MEASURED_BY } from "@/lib/photo-analysis/color";
 import type { PhotoStorage } from "@/lib/services/storage";
 
 import type { PhotoDto } from "./dto";
@@ -84,6 +85,9 @@ export async function addPhoto(
           thumb_key: thumbKey,
           green_cover_pct: photo.greenCoverPct,
           dgci: photo.dgci,
+          measured_by: MEASURED_BY,
+          dark_pct: photo.darkPct,
+          clipped_pct: photo.clippedPct,
           captured_local: photo.capturedLocal,
           gps_latitude: photo.gps?.latitude ?? null,
           gps_longitude: photo.gps?.longitude ?? null,

@@ -1,5 +1,7 @@
 // From a zone check's values (and its photos' figures) to the Index input: null until the zone
 // is rated. Pure: the caller maps its row or its input to this shape.
+import { lightingOf } from "@/lib/photo-analysis/color";
+
 import type { IndexInput } from "./sward-index";
 
 /** What the Index reads of a zone check (a subset of the check's values). */
@@ -14,13 +16,15 @@ export interface CheckRatings {
   symptoms: { severity: 1 | 2 | 3 }[];
 }
 
-/** A photo's measured figures. */
+/** A photo's measured figures (lib/photos/analyze.ts). */
 export interface PhotoFigures {
   greenCoverPct: number;
   dgci: number | null;
+  darkPct: number;
+  clippedPct: number;
 }
 
-export function indexInputOf(check: CheckRatings, photos: PhotoFigures[]): IndexInput | null {
+export function indexInputOf(check: CheckRatings, allPhotos: PhotoFigures[]): IndexInput | null {
   if (
     check.status === "skipped" ||
     check.quality === null ||
@@ -28,6 +32,9 @@ export function indexInputOf(check: CheckRatings, photos: PhotoFigures[]): Index
     check.density === null
   )
     return null;
+  // A photo too dark or too bright to measure (lib/photo-analysis/color.ts, LIGHTING) is shown with its
+  // caution but not scored: its cover could be off by as many points as the unreadable share.
+  const photos = allPhotos.filter((p) => lightingOf(p.darkPct, p.clippedPct) === "ok");
   const dgcis = photos.map((p) => p.dgci).filter((d): d is number => d !== null);
   return {
     qualityRating: check.quality,

@@ -7,9 +7,12 @@
 // - colour 0.15: matters, but responds to a feeding within weeks, so it is weighed below density;
 // - uniformity 0.10: a patchy lawn reads worse than its average.
 // Photo metrics, when a photo exists, add a measured view of the same things:
-// - green cover 0.10 (Richardson et al. 2001 method) and DGCI 0.10 (Karcher & Richardson 2003),
-//   DGCI mapped from 0.25 (straw) to 0.65 (very dark green) onto 0–100 — the span of turf values
-//   reported for lawns in those studies, from memory.
+// - green canopy cover 0.10 (Patrignani & Ochsner 2015 pixel rule) and DGCI 0.10 (Karcher &
+//   Richardson 2003, averaged over the same canopy pixels), DGCI mapped from 0.25 (straw) to 0.65
+//   (very dark green) onto 0–100 — the span of turf values reported for lawns in the DGCI
+//   studies, from memory. A chlorotic yellow-green canopy (DGCI about 0.29) scores low on colour
+//   while still counting as cover. A photo under the lighting caution is not scored
+//   (lib/scoring/from-check.ts).
 // Missing parts drop out and the remaining weights are rescaled, so a check without a photo is
 // scored on its ratings alone.
 // Penalties are subtracted after the weighted mean, so added bare ground, weeds or disease can

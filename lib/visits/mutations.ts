@@ -230,7 +230,7 @@ export async function saveZoneCheck(
             .select(
               sql<
                 PhotoFigures[]
-              >`coalesce(json_agg(json_build_object('greenCoverPct', photos.green_cover_pct, 'dgci', photos.dgci)), '[]'::json)`.as(
+              >`coalesce(json_agg(json_build_object('greenCoverPct', photos.green_cover_pct, 'dgci', photos.dgci, 'darkPct', photos.dark_pct, 'clippedPct', photos.clipped_pct)), '[]'::json)`.as(
                 "figures",
               ),
             )

@@ -1,11 +1,11 @@
 // `npm run bench:photos` — per-photo processing time for generated 12-megapixel JPEGs through
 // processPhoto, the function every upload runs (decode, orient, two WebP derivatives, analysis on
-// a 512 px copy); then the analysis step alone (analyzePixels, which processPhoto calls) on the
-// 512 px copy and on every pixel, so the gain from downscaling is a ratio from one run.
+// a copy of ANALYSIS_LONG_SIDE px); then the analysis step alone (analyzePixels, which processPhoto
+// calls) on that copy and on every pixel, so the gain from downscaling is a ratio from one run.
 import { mkdirSync, writeFileSync } from "node:fs";
 import sharp from "sharp";
 
-import { ANALYSIS_LONG_SIDE, analyzePixels } from "@/lib/photos/analyze";
+import { ANALYSIS_LONG_SIDE, analyzePixels } from "@/lib/photo-analysis/analyze";
 import { processPhoto } from "@/lib/photos/process";
 
 import { lawnImage } from "../helpers/images";
@@ -43,7 +43,7 @@ for (let i = 0; i < RUNS; i++) inputs.push(await lawnImage(4000, 3000, 0.1 + (0.
 await processPhoto(inputs[0]!); // warm-up
 
 const full = await time(
-  "processPhoto (decode, orient, 1600 + 320 px WebP, analysis at 512 px)",
+  `processPhoto (decode, orient, 1600 + 320 px WebP, analysis at ${ANALYSIS_LONG_SIDE} px)`,
   inputs,
   (b) => processPhoto(b),
 );

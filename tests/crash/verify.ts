@@ -126,6 +126,8 @@ export async function verify(
       "thumb_key",
       "green_cover_pct",
       "dgci",
+      "dark_pct",
+      "clipped_pct",
     ])
     .execute();
   const photoById = new Map(photos.map((p) => [p.id, p]));
@@ -155,7 +157,12 @@ export async function verify(
     if (!row) continue;
     const own = photos
       .filter((p) => p.zone_check_id === row.id)
-      .map((p) => ({ greenCoverPct: p.green_cover_pct, dgci: p.dgci }));
+      .map((p) => ({
+        greenCoverPct: p.green_cover_pct,
+        dgci: p.dgci,
+        darkPct: p.dark_pct,
+        clippedPct: p.clipped_pct,
+      }));
     const input = indexInputOf(valuesOf(row), own);
     const expected = input ? swardIndex(input).index : null;
     if (

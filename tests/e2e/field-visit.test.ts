@@ -99,7 +99,7 @@ describe("a technician runs a visit on a phone", () => {
         { timeout: 20_000 },
       )
       .toBe(2);
-    expect(await photos.innerText()).toMatch(/\d+\.\d % green cover · DGCI 0\.\d{3}/);
+    expect(await photos.innerText()).toMatch(/\d+\.\d % green canopy cover · DGCI 0\.\d{3}/);
     await page.getByRole("alert").filter({ hasText: "not a photo Sward can read" }).waitFor();
     await snap(page, "visit-03a-photos");
     await page.getByRole("button", { name: "Mark zone done" }).click();

@@ -28,6 +28,36 @@ export async function stripedImage(
   return format === "png" ? img.png().toBuffer() : img.jpeg({ quality: 92 }).toBuffer();
 }
 
+/**
+ * RGB image of horizontal bands, one per entry, each `share` of the height (shares sum to 1; the
+ * last band takes the rounding): a photo of known composition whose downscaled copy blends only
+ * the few rows where two bands meet.
+ */
+export async function bandedImage(
+  width: number,
+  height: number,
+  bands: { rgb: readonly [number, number, number]; share: number }[],
+  format: "png" | "jpeg" = "png",
+): Promise<Buffer> {
+  const data = Buffer.alloc(width * height * 3);
+  const edges: number[] = [];
+  let acc = 0;
+  for (const band of bands) edges.push(Math.round(height * (acc += band.share)));
+  edges[edges.length - 1] = height;
+  for (let y = 0, k = 0; y < height; y++) {
+    while (y >= edges[k]!) k++;
+    const [r, g, b] = bands[k]!.rgb;
+    for (let x = 0; x < width; x++) {
+      const i = (y * width + x) * 3;
+      data[i] = r;
+      data[i + 1] = g;
+      data[i + 2] = b;
+    }
+  }
+  const img = sharp(data, { raw: { width, height, channels: 3 } });
+  return format === "png" ? img.png().toBuffer() : img.jpeg({ quality: 92 }).toBuffer();
+}
+
 export async function uniformImage(rgb: [number, number, number], size = 64): Promise<Buffer> {
   return sharp({
     create: {

@@ -2,7 +2,9 @@
 // the attack set is refused with a clear 4xx and stores nothing; derivatives carry no EXIF; the
 // same photo is stored once; photo URLs are 404 outside the actor's scope; green cover and DGCI
 // are measured on the upload (DGCI: Karcher & Richardson 2003, Crop Science 43:943–951, on HSB
-// from colorjs.io; cover: the generated image's known green fraction).
+// from colorjs.io; green canopy cover: the generated image's known green fraction, every band of
+// which passes or fails the Patrignani & Ochsner (2015) rule). Mixed surfaces, the lighting
+// caution and the remeasure: photo-measurement.test.ts.
 import { readdirSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import Color from "colorjs.io";
@@ -12,7 +14,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
 import { otherCompany } from "@/fixtures/demo/scenario";
 import type { Actor } from "@/lib/auth/actor";
-import { dgciOf } from "@/lib/photos/color";
+import { dgciOf } from "@/lib/photo-analysis/color";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { PHOTO_LIMITS } from "@/lib/photos/process";
 import { finishVisit } from "@/lib/reports/mutations";
@@ -244,7 +246,7 @@ describe("accepted photos", () => {
     ).toBe(2);
   });
 
-  it("measures green cover and DGCI on upload: a PNG 40 % turf green, 60 % soil stores 40 ± 1.5 % and that green's DGCI", async () => {
+  it("measures green canopy cover and DGCI on upload: a PNG 40 % turf green, 60 % soil stores 40 ± 1.5 % and that green's DGCI", async () => {
     const turf: [number, number, number] = [58, 122, 44];
     const res = await post(await stripedImage(1000, 750, 0.4, turf, [121, 85, 58]), 0, "image/png");
     expect(res.status).toBe(201);
