@@ -6,7 +6,7 @@ import PgBoss from "pg-boss";
 
 import { createDb } from "@/db/client";
 import { sweepBook } from "@/lib/after-write/sweep";
-import { serviceEnv } from "@/lib/env";
+import { appOrigin, serviceEnv } from "@/lib/env";
 import { log } from "@/lib/log";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
@@ -31,7 +31,7 @@ const db = createDb(url, { max: 3 });
 // The worker needs the database and the service clients only (no sign-in secrets): lib/services
 // builds them from the validated configuration, as it does for the web server.
 const { mailer, weather } = services();
-const appUrl = serviceEnv().AUTH_URL ?? "http://localhost:3000";
+const appUrl = appOrigin(serviceEnv());
 const boss = new PgBoss({ connectionString: url, schema: "pgboss", max: 3 });
 boss.on("error", (err) => log.error({ err }, "job queue error"));
 

@@ -8,14 +8,23 @@ import { z } from "zod";
  */
 const serviceFields = {
   NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
-  /** The app's public address, used in links sent by e-mail. */
+  /**
+   * The app's public address: every link in an e-mail and Auth.js's own URLs are built from it,
+   * never from a request's Host or X-Forwarded-Host. Required in production; in development and
+   * tests it defaults to http://localhost:$PORT.
+   */
   AUTH_URL: z.url().optional(),
+  PORT: z.string().optional(),
   /** Outgoing mail, e.g. smtp://127.0.0.1:2525 (the local fake the demo and tests start). Unset: mail waits in the outbox. */
   SMTP_URL: z
     .string()
     .regex(/^smtps?:\/\//, "SMTP_URL must be an smtp:// or smtps:// URL")
     .optional(),
-  /** Development only: the folder of the local fake SMTP service, shown to managers at /dev/mail. */
+  /**
+   * Development only: the folder of the local fake SMTP service, shown to managers at /dev/mail.
+   * Refused unless the app's address is loopback (a machine's own demo), so a deployment others can
+   * reach never shows live sign-in links to anyone.
+   */
   MAIL_INBOX_DIR: z.string().optional(),
   /** Where photo derivatives live: "local" (PHOTO_DIR on this machine) or "s3". */
   PHOTO_STORAGE: z.enum(["local", "s3"]).default("local"),
@@ -36,7 +45,41 @@ const needsBucket = {
   params: { message: "S3_BUCKET is required when PHOTO_STORAGE=s3", path: ["S3_BUCKET"] },
 };
 
-const serviceSchema = z.object(serviceFields).refine(needsBucket.check, needsBucket.params);
+type UrlFields = { NODE_ENV: string; AUTH_URL?: string; PORT?: string; MAIL_INBOX_DIR?: string };
+
+const APP_URL_REQUIRED =
+  "AUTH_URL is required in production (the app's public address, e.g. https://sward.example.com): links in e-mails are built from it, never from request headers";
+
+const needsAppUrl = {
+  check: (env: UrlFields) => env.NODE_ENV !== "production" || Boolean(env.AUTH_URL),
+  params: { message: APP_URL_REQUIRED, path: ["AUTH_URL"] },
+};
+
+const LOOPBACK_HOSTS = new Set(["localhost", "127.0.0.1", "[::1]"]);
+
+/** The app's public origin (no trailing slash): AUTH_URL, or http://localhost:$PORT outside production. */
+export function appOrigin(env: UrlFields): string {
+  if (env.AUTH_URL) return new URL(env.AUTH_URL).origin;
+  if (env.NODE_ENV === "production") throw new Error(APP_URL_REQUIRED);
+  return `http://localhost:${env.PORT ?? "3000"}`;
+}
+
+const inboxOnlyOnLoopback = {
+  check: (env: UrlFields) =>
+    !env.MAIL_INBOX_DIR ||
+    (needsAppUrl.check(env) && LOOPBACK_HOSTS.has(new URL(appOrigin(env)).hostname)),
+  params: {
+    message:
+      "MAIL_INBOX_DIR (the development inbox at /dev/mail) is refused unless AUTH_URL is a loopback address (localhost, 127.0.0.1, [::1])",
+    path: ["MAIL_INBOX_DIR"],
+  },
+};
+
+const serviceSchema = z
+  .object(serviceFields)
+  .refine(needsBucket.check, needsBucket.params)
+  .refine(needsAppUrl.check, needsAppUrl.params)
+  .refine(inboxOnlyOnLoopback.check, inboxOnlyOnLoopback.params);
 
 const serverSchema = z
   .object({
@@ -65,7 +108,9 @@ const serverSchema = z
     /** Sign-in links one client address may ask for within the window. */
     SIGN_IN_LINK_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(10),
   })
-  .refine(needsBucket.check, needsBucket.params);
+  .refine(needsBucket.check, needsBucket.params)
+  .refine(needsAppUrl.check, needsAppUrl.params)
+  .refine(inboxOnlyOnLoopback.check, inboxOnlyOnLoopback.params);
 
 export type ServiceEnv = z.infer<typeof serviceSchema>;
 export type ServerEnv = z.infer<typeof serverSchema>;
@@ -93,6 +138,12 @@ export function serverEnv(): ServerEnv {
   cachedServer ??= parseServerEnv(process.env);
   return cachedServer;
 }
+
+/** The app's public origin for links in e-mails (see appOrigin). */
+export const appUrl = (): string => appOrigin(serviceEnv());
+
+/** The development inbox's folder, or undefined: only ever set on a loopback app address (checked above). */
+export const devInboxDir = (): string | undefined => serviceEnv().MAIL_INBOX_DIR;
 
 /**
  * The service clients' part alone, read from process.env once: the worker and the db scripts need

@@ -3,23 +3,19 @@
 // Sign-in and sign-out server actions (public POST endpoints, built with the guard).
 import { AuthError } from "next-auth";
 import { headers } from "next/headers";
+import { after } from "next/server";
 import { z } from "zod";
 
 import { serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/http/app-error";
+import { sameOriginPath } from "@/lib/http/redirect";
 import { log } from "@/lib/log";
 import { deliverMailAfterResponse } from "@/lib/mail/mutations";
 
-import { sitePath } from "./actor";
 import { clientAddress, signIn, signOut } from "./config";
 import { action } from "./guards";
 import { SIGN_IN_MESSAGES, signInLinkSchema, signInSchema } from "./schemas";
-import {
-  countRecentLinkRequests,
-  findHomeowner,
-  recordLinkRequest,
-  SIGN_IN_LINK_PROVIDER,
-} from "./sign-in-link";
+import { countRecentLinkRequests, issueSignInLink, recordLinkRequest } from "./sign-in-link";
 import { normaliseEmail } from "./throttle";
 
 export interface SignInState {
@@ -29,7 +25,7 @@ export interface SignInState {
 }
 
 /** Only a path on this site; anything else falls back to the role's landing page. */
-const safeRedirect = (target: string | undefined): string => sitePath(target) ?? "/";
+const safeRedirect = (target: string | undefined): string => sameOriginPath(target) ?? "/";
 
 const signInGuarded = action({ access: "public", input: signInSchema }, async ({ input }) => {
   try {
@@ -67,7 +63,9 @@ export interface SignInLinkState {
 }
 
 // Every request is counted and answered the same way whether or not the address has a homeowner
-// account, so the answer reveals nothing; only a homeowner's address gets a link.
+// account, so the answer reveals nothing; only a homeowner's address gets a link. The answer also
+// takes the same time: looking the address up, writing the token and its e-mail all run after the
+// response has been sent (Next's after()), so a homeowner's address is not slower to answer.
 const requestLinkGuarded = action(
   { access: "public", input: signInLinkSchema },
   async ({ input }) => {
@@ -83,14 +81,14 @@ const requestLinkGuarded = action(
       throw new AppError("rate_limited", SIGN_IN_MESSAGES.linkThrottled);
     }
     await recordLinkRequest(emailKey, address);
-    if (await findHomeowner(emailKey)) {
-      await signIn(SIGN_IN_LINK_PROVIDER, {
-        email: emailKey,
-        redirect: false,
-        redirectTo: safeRedirect(input.redirectTo),
-      });
-    }
-    deliverMailAfterResponse("sign_in_link");
+    const redirectTo = safeRedirect(input.redirectTo);
+    after(async () => {
+      try {
+        if (await issueSignInLink(emailKey, redirectTo)) deliverMailAfterResponse("sign_in_link");
+      } catch (err) {
+        log.error({ err }, "sign-in link could not be issued");
+      }
+    });
     log.info({ event: "sign_in_link_requested" }, "sign-in link requested");
   },
 );

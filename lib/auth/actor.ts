@@ -20,10 +20,3 @@ export const ROLES = ["manager", "technician", "homeowner"] as const satisfies r
 export function landingPath(role: Role): string {
   return { manager: BOOK_PATH, technician: "/today", homeowner: "/my-lawn" }[role];
 }
-
-/** A path on this site, or undefined: never another origin (`//host`, `/\\host`) or a full URL. */
-export function sitePath(target: string | undefined): string | undefined {
-  return target && target.startsWith("/") && !target.startsWith("//") && !target.startsWith("/\\")
-    ? target
-    : undefined;
-}

@@ -7,6 +7,7 @@ import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import Nodemailer from "next-auth/providers/nodemailer";
 
+import { authRedirect } from "@/lib/http/redirect";
 import { log } from "@/lib/log";
 import { MAIL_FROM } from "@/lib/services/mail";
 
@@ -82,6 +83,9 @@ export const { handlers, signIn, signOut } = NextAuth({
     }),
   ],
   callbacks: {
+    // Every redirect Auth.js makes (callbackUrl from a form, a link or its cookie) passes the one
+    // same-origin check (lib/http/redirect.ts); its default let "/\t/host" through.
+    redirect: authRedirect,
     // Links are for active homeowners only: checked when a link is asked for and again when it is used.
     async signIn({ account, user }) {
       if (account?.type !== "email") return true;

@@ -2,19 +2,42 @@
 // that touches the database.
 import "server-only";
 
-import { sql } from "kysely";
+import { sql, type ExpressionBuilder } from "kysely";
 
 import { db } from "@/db";
+import type { Database } from "@/db/schema";
 
 import type { Actor } from "./actor";
 import type { Homeowner, LinkUser, SignInCandidate } from "./dto";
 import type { RecentFailures } from "./throttle";
 
+/**
+ * Staff, or a homeowner still linked to at least one property of their company: a homeowner
+ * removed from every property has nothing to see and can no longer sign in (nor keep a session).
+ */
+const mayUseSward = (eb: ExpressionBuilder<Database, "memberships">) =>
+  eb.or([
+    eb("memberships.role", "!=", "homeowner"),
+    eb.exists(
+      eb
+        .selectFrom("property_homeowners as ph")
+        .select("ph.property_id")
+        .whereRef("ph.user_id", "=", "memberships.user_id")
+        .whereRef("ph.company_id", "=", "memberships.company_id"),
+    ),
+  ]);
+
 export async function findSignInCandidate(email: string): Promise<SignInCandidate | undefined> {
   const row = await db()
     .selectFrom("users")
     .leftJoin("memberships", "memberships.user_id", "users.id")
-    .select(["users.id", "users.password_hash", "users.disabled_at", "memberships.role"])
+    .select((eb) => [
+      "users.id",
+      "users.password_hash",
+      "users.disabled_at",
+      "memberships.role",
+      mayUseSward(eb as unknown as ExpressionBuilder<Database, "memberships">).as("may_use"),
+    ])
     .where("users.email", "=", email)
     .executeTakeFirst();
   if (!row) return undefined;
@@ -22,7 +45,7 @@ export async function findSignInCandidate(email: string): Promise<SignInCandidat
     userId: row.id,
     passwordHash: row.password_hash,
     isDisabled: row.disabled_at !== null,
-    role: row.role,
+    role: row.may_use ? row.role : null,
   };
 }
 
@@ -73,6 +96,7 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
     .where("auth_sessions.id", "=", sessionId)
     .where("auth_sessions.expires_at", ">", sql<Date>`now()`)
     .where("users.disabled_at", "is", null)
+    .where(mayUseSward)
     .executeTakeFirst();
   if (!row) return undefined;
   return {
@@ -106,6 +130,7 @@ export async function findHomeowner(emailKey: string): Promise<Homeowner | undef
     .where("users.email", "=", emailKey)
     .where("users.disabled_at", "is", null)
     .where("memberships.role", "=", "homeowner")
+    .where(mayUseSward)
     .executeTakeFirst();
   return (
     row && {

@@ -5,6 +5,7 @@ import "server-only";
 import { redirect } from "next/navigation";
 
 import type { Role } from "@/db/schema";
+import { sameOriginPath } from "@/lib/http/redirect";
 
 import { landingPath, type Actor } from "./actor";
 import { getActor } from "./session";
@@ -12,8 +13,10 @@ import { getActor } from "./session";
 /** returnTo: the page to come back to after signing in (e.g. the report an e-mail linked to). */
 export async function requireActor(roles: readonly Role[], returnTo?: string): Promise<Actor> {
   const actor = await getActor();
-  if (!actor)
-    redirect(returnTo ? `/sign-in?${new URLSearchParams({ callbackUrl: returnTo })}` : "/sign-in");
+  if (!actor) {
+    const back = sameOriginPath(returnTo);
+    redirect(back ? `/sign-in?${new URLSearchParams({ callbackUrl: back })}` : "/sign-in");
+  }
   if (!roles.includes(actor.role)) redirect(landingPath(actor.role));
   return actor;
 }

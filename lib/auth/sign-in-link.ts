@@ -5,10 +5,12 @@
 // one transaction. Requests are throttled in requestSignInLinkAction.
 import "server-only";
 
-import { createHash } from "node:crypto";
+import { createHash, randomBytes } from "node:crypto";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
 
 import { signInLinkEmail } from "@/lib/auth/sign-in-email";
+import { appUrl, serverEnv } from "@/lib/env";
+import { sameOriginPath } from "@/lib/http/redirect";
 
 import type { Homeowner } from "./dto";
 import { markEmailVerified, storeSignInLink, takeVerificationToken } from "./mutations";
@@ -59,12 +61,56 @@ export const signInLinkAdapter: Adapter = {
 };
 
 /**
- * Auth.js hands over the callback URL; the e-mail links to our confirmation page instead, which
- * sends the homeowner on with one tap. Mail scanners that open links do not use up the token.
+ * The e-mail links to our confirmation page, which sends the homeowner on to Auth.js's callback
+ * with one tap (mail scanners that open links do not use up the token). Only the token, the
+ * address and a same-origin path are taken from `callbackUrl`; the host is always the configured
+ * app address (AUTH_URL), never one a request named in Host or X-Forwarded-Host.
  */
 export function confirmationUrl(callbackUrl: string): string {
-  const url = new URL(callbackUrl);
-  return `${url.origin}/sign-in/link?${url.searchParams.toString()}`;
+  const from = new URL(callbackUrl).searchParams;
+  const origin = appUrl();
+  let next = "/";
+  const asked = from.get("callbackUrl");
+  if (asked) {
+    try {
+      const u = new URL(asked, origin);
+      next = sameOriginPath(`${u.pathname}${u.search}${u.hash}`) ?? "/";
+    } catch {
+      next = "/";
+    }
+  }
+  const query = new URLSearchParams({
+    callbackUrl: `${origin}${next}`,
+    token: from.get("token") ?? "",
+    email: from.get("email") ?? "",
+  });
+  return `${origin}/sign-in/link?${query.toString()}`;
+}
+
+/**
+ * Issues a sign-in link for an e-mail address when it belongs to an active homeowner, and does
+ * nothing otherwise. Runs after the response has been sent (requestSignInLinkAction), so the
+ * answer takes the same time whoever the address belongs to. The token is made as Auth.js makes
+ * one (32 random bytes, hex) and checked by Auth.js's own callback.
+ */
+export async function issueSignInLink(emailKey: string, redirectTo: string): Promise<boolean> {
+  if (!(await findHomeowner(emailKey))) return false;
+  const token = randomBytes(32).toString("hex");
+  const origin = appUrl();
+  const callback = new URL(`${origin}/api/auth/callback/${SIGN_IN_LINK_PROVIDER}`);
+  callback.search = new URLSearchParams({
+    callbackUrl: `${origin}${sameOriginPath(redirectTo) ?? "/"}`,
+    token,
+    email: emailKey,
+  }).toString();
+  await queueSignInLink({
+    identifier: emailKey,
+    url: callback.toString(),
+    token,
+    expires: new Date(Date.now() + SIGN_IN_LINK_MINUTES * 60_000),
+    secret: serverEnv().AUTH_SECRET,
+  });
+  return true;
 }
 
 /** What Auth.js stores and later looks up for a link's token: sha256 of the token and the secret. */

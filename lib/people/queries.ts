@@ -1,9 +1,12 @@
-// People of the actor's company (for choosing a technician or linking a homeowner). Staff only.
+// People of the actor's company (for choosing a technician or linking a homeowner). Managers see
+// everyone of their company; technicians only the homeowners of the properties in their scope
+// (lib/auth/scope.ts) and themselves; homeowners nobody.
 import "server-only";
 
 import { db } from "@/db";
 import type { Role } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
+import { propertyInScope } from "@/lib/auth/scope";
 
 import type { PersonDto } from "./dto";
 
@@ -15,6 +18,24 @@ export async function listPeople(actor: Actor, role?: Role): Promise<PersonDto[]
     .select(["users.id", "users.name", "users.email", "memberships.role", "users.disabled_at"])
     .where("memberships.company_id", "=", actor.companyId);
   if (role) q = q.where("memberships.role", "=", role);
+  if (actor.role === "technician")
+    q = q.where((eb) =>
+      eb.or([
+        eb("users.id", "=", actor.userId),
+        eb.and([
+          eb("memberships.role", "=", "homeowner"),
+          eb.exists(
+            eb
+              .selectFrom("property_homeowners as ph")
+              .innerJoin("properties", "properties.id", "ph.property_id")
+              .select("ph.property_id")
+              .whereRef("ph.user_id", "=", "users.id")
+              .where("ph.company_id", "=", actor.companyId)
+              .where(propertyInScope(actor)),
+          ),
+        ]),
+      ]),
+    );
   const rows = await q.orderBy("users.name").execute();
   return rows.map((r) => ({
     id: r.id,

@@ -13,7 +13,7 @@ import { afterWrite } from "@/lib/after-write";
 import { refreshAlertWeather } from "@/lib/after-write/alerts";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
-import { serverEnv } from "@/lib/env";
+import { appOrigin, serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { enqueueMail } from "@/lib/mail/outbox";
@@ -111,7 +111,7 @@ async function queueVisitReportMail(
     .where("property_homeowners.property_id", "=", propertyId)
     .where("users.disabled_at", "is", null)
     .execute();
-  const appUrl = serverEnv().AUTH_URL ?? "http://localhost:3000";
+  const appUrl = appOrigin(serverEnv());
   let queued = 0;
   for (const h of homeowners) {
     const homeowner: Actor = {

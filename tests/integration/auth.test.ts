@@ -6,13 +6,24 @@ import { beforeAll, describe, expect, it } from "vitest";
 
 import { demoCompany } from "@/fixtures/demo/scenario";
 import { seedCompany } from "@/fixtures/demo/seed-scenario";
+import type { Actor } from "@/lib/auth/actor";
 import { checkCredentials } from "@/lib/auth/credentials";
 import { createAuthSession, deleteAuthSession } from "@/lib/auth/mutations";
 import { findActorBySession } from "@/lib/auth/queries";
+import { findHomeowner } from "@/lib/auth/sign-in-link";
+import { unlinkHomeowner } from "@/lib/properties/mutations";
 
 import { createTestCompany, TEST_PASSWORD, testDb, type TestCompany } from "../helpers/factories";
 
 let company: TestCompany;
+
+/** Puts a property–homeowner link back as the seed writes it. */
+async function linkAgain(manager: Actor, propertyId: string, userId: string): Promise<void> {
+  await testDb()
+    .insertInto("property_homeowners")
+    .values({ property_id: propertyId, user_id: userId, company_id: manager.companyId })
+    .execute();
+}
 let address = 0;
 /** A fresh client address per test, so per-address counts do not leak between tests. */
 const nextAddress = () => `198.51.100.${++address}`; // RFC 5737 documentation range
@@ -192,10 +203,41 @@ describe("sessions and the actor", () => {
     expect((await findActorBySession(sid))?.role).toBe("technician");
     await testDb()
       .updateTable("memberships")
-      .set({ role: "homeowner" })
+      .set({ role: "manager" })
       .where("user_id", "=", c.userIds.tech2!)
       .execute();
-    expect((await findActorBySession(sid))?.role).toBe("homeowner");
+    expect((await findActorBySession(sid))?.role).toBe("manager");
+  });
+
+  it("a homeowner removed from every property can no longer sign in, by password or link, and their session ends", async () => {
+    const c = await createTestCompany();
+    const owner = c.userIds.owner1!;
+    const sid = await createAuthSession(owner, 60);
+    const signIn = () =>
+      checkCredentials({
+        email: c.emails.owner1!,
+        password: TEST_PASSWORD,
+        address: nextAddress(),
+      });
+    expect(await signIn()).toEqual({ ok: true, userId: owner });
+    expect(await findHomeowner(c.emails.owner1!)).toBeDefined();
+
+    const manager = await c.actor("manager");
+    const linked = await testDb()
+      .selectFrom("property_homeowners")
+      .select("property_id")
+      .where("user_id", "=", owner)
+      .execute();
+    expect(linked.length).toBeGreaterThan(0);
+    for (const { property_id } of linked) await unlinkHomeowner(manager, property_id, owner);
+
+    expect(await signIn()).toEqual({ ok: false, reason: "invalid" });
+    expect(await findHomeowner(c.emails.owner1!)).toBeUndefined();
+    expect(await findActorBySession(sid)).toBeUndefined();
+
+    // Linked again, the same account works again.
+    await linkAgain(manager, linked[0]!.property_id, owner);
+    expect(await signIn()).toEqual({ ok: true, userId: owner });
   });
 
   it("a disabled user, a deleted (signed-out) session and an expired session resolve to nobody", async () => {

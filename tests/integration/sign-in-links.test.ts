@@ -11,6 +11,7 @@ import {
   confirmationUrl,
   countRecentLinkRequests,
   hashedToken,
+  issueSignInLink,
   queueSignInLink,
   recordLinkRequest,
   signInLinkAdapter,
@@ -130,12 +131,48 @@ describe("throttling link requests", () => {
   });
 });
 
+describe("the link's host", () => {
+  it("is the configured app address, whatever host the request named (X-Forwarded-Host, Host)", () => {
+    // What Auth.js builds when it trusts a forged X-Forwarded-Host: every part on evil.example.
+    const forged =
+      "http://evil.example/api/auth/callback/nodemailer?callbackUrl=http%3A%2F%2Fevil.example%2Fmy-lawn&token=abc123&email=owner%40x.test";
+    const link = new URL(confirmationUrl(forged));
+    expect(link.origin).toBe("http://localhost:3000"); // no AUTH_URL in this test run: localhost:$PORT
+    expect(link.pathname).toBe("/sign-in/link");
+    expect(link.searchParams.get("callbackUrl")).toBe("http://localhost:3000/my-lawn");
+    expect(link.searchParams.get("token")).toBe("abc123");
+    for (const asked of ["/\t/evil.example", "//evil.example/x", "https://evil.example/"]) {
+      const u = new URL(
+        confirmationUrl(
+          `http://evil.example/x?${new URLSearchParams({ callbackUrl: asked, token: "t", email: "e" })}`,
+        ),
+      );
+      expect(new URL(u.searchParams.get("callbackUrl")!).origin).toBe("http://localhost:3000");
+    }
+  });
+
+  it("issueSignInLink writes a token and a message for a homeowner only, linking to the app address", async () => {
+    const to = c.emails["owner3"]!;
+    expect(await issueSignInLink("nobody-here@sward.test", "/my-lawn")).toBe(false);
+    expect(await issueSignInLink(to, "/\t/evil.example")).toBe(true);
+    const row = await testDb()
+      .selectFrom("mail_outbox")
+      .selectAll()
+      .where("to_address", "=", to)
+      .where("kind", "=", "sign_in_link")
+      .executeTakeFirstOrThrow();
+    const link = /https?:\/\/\S+/.exec(row.text_body)![0];
+    expect(new URL(link).origin).toBe("http://localhost:3000");
+    expect(new URL(new URL(link).searchParams.get("callbackUrl")!).pathname).toBe("/");
+  });
+});
+
 describe("the link e-mail", () => {
   it("links to the confirmation page (not straight to the token check) and is delivered once with two deliverers racing", async () => {
     const callback =
       "http://localhost:3000/api/auth/callback/nodemailer?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test";
     expect(confirmationUrl(callback)).toBe(
-      "http://localhost:3000/sign-in/link?callbackUrl=%2Fmy-lawn&token=abc123&email=owner%40x.test",
+      "http://localhost:3000/sign-in/link?callbackUrl=http%3A%2F%2Flocalhost%3A3000%2Fmy-lawn&token=abc123&email=owner%40x.test",
     );
 
     const to = c.emails["owner2"]!;

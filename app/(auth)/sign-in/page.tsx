@@ -4,9 +4,10 @@ import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { SignInLinkForm } from "@/components/auth/sign-in-link-form";
 import { SwardMark } from "@/components/ui/sward-mark";
-import { landingPath, sitePath } from "@/lib/auth/actor";
+import { landingPath } from "@/lib/auth/actor";
 import { getActor } from "@/lib/auth/session";
 import { SIGN_IN_LINK_MINUTES } from "@/lib/auth/sign-in-link";
+import { sameOriginPath } from "@/lib/http/redirect";
 
 export const metadata: Metadata = { title: "Sign in" };
 
@@ -25,7 +26,7 @@ export default async function SignInPage({
   searchParams: Promise<{ callbackUrl?: string; error?: string }>;
 }) {
   const { callbackUrl, error } = await searchParams;
-  const redirectTo = sitePath(callbackUrl);
+  const redirectTo = sameOriginPath(callbackUrl);
   const actor = await getActor();
   if (actor) redirect(redirectTo ?? landingPath(actor.role));
   const linkNotice = error ? LINK_ERRORS[error] : undefined;

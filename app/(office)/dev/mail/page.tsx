@@ -5,7 +5,7 @@ import { Fragment } from "react";
 
 import { requireActor } from "@/lib/auth/require";
 import { formatDateTime } from "@/lib/dates";
-import { serverEnv } from "@/lib/env";
+import { devInboxDir } from "@/lib/env";
 import { readInbox } from "@/lib/mail/inbox-folder";
 import { listCompanyEmailAddresses } from "@/lib/people/queries";
 
@@ -27,14 +27,16 @@ function Linkified({ text }: { text: string }) {
 }
 
 // Development only: what the local fake SMTP service received, for this company's people. The page
-// exists only where MAIL_INBOX_DIR is set (the demo sets it); production never sets it.
+// exists only where MAIL_INBOX_DIR is set (the demo and the e2e suite set it), and lib/env.ts
+// refuses that setting unless AUTH_URL is a loopback address: a deployment others can reach never
+// shows anyone's live sign-in links.
 export default async function DevMailPage({
   searchParams,
 }: {
   searchParams: Promise<{ id?: string }>;
 }) {
   const actor = await requireActor(["manager"]);
-  const dir = serverEnv().MAIL_INBOX_DIR;
+  const dir = devInboxDir();
   if (!dir) notFound();
   const ours = await listCompanyEmailAddresses(actor);
   const mails = (await readInbox(dir))
