@@ -215,8 +215,9 @@ const CELLS: Cell[] = [
   {
     key: "GET /api/v1/people",
     path: () => "/api/v1/people",
-    allow: ["assignedTech", "otherTech", "manager"],
-    hidden: ["otherManager"],
+    // Technicians list only the homeowners of their own properties (lib/people/queries.ts).
+    allow: ["assignedTech", "manager"],
+    hidden: ["otherTech", "otherManager"],
     marker: (t) => t.ownerEmail,
     leak: (t) => [t.ownerEmail],
   },
