@@ -367,6 +367,14 @@ interface WeatherDaysTable {
   precip_mm: Generated<number>;
   is_forecast: Generated<boolean>;
   fetched_at: Generated<Date>;
+  /** The day's hours as the service gave them (local time): { time: "HH:MM"[], tempC, rhPct }. */
+  hourly: ColumnType<
+    { time: string[]; tempC: number[]; rhPct: number[] } | null,
+    string | null | undefined,
+    string | null
+  >;
+  /** The service's own daily FAO-56 reference ET, mm (an outside check of ours). */
+  service_et0_mm: number | null;
 }
 
 export type AlertStatus = "open" | "acknowledged" | "resolved";

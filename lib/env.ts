@@ -34,8 +34,14 @@ const serviceFields = {
   S3_ENDPOINT: z.url().optional(),
   S3_ACCESS_KEY_ID: z.string().optional(),
   S3_SECRET_ACCESS_KEY: z.string().optional(),
-  /** Base URL of the daily-weather JSON service (the demo and tests start a local fake). */
+  /**
+   * Origin of Open-Meteo's forecast API (https://api.open-meteo.com; the demo and tests start a
+   * local fake that speaks the same API). Unset: no weather.
+   */
   WEATHER_BASE_URL: z.url().optional(),
+  /** Origin of Open-Meteo's historical-weather API (https://archive-api.open-meteo.com); default WEATHER_BASE_URL. */
+  WEATHER_ARCHIVE_URL: z.url().optional(),
+  /** Open-Meteo's commercial API key (sent as `apikey`); the free API needs none. */
   WEATHER_API_KEY: z.string().optional(),
 };
 

@@ -172,6 +172,7 @@ async function propertyRuleResults(
         ...d,
         rhMinPct: raw.get(d.date)?.rhMinPct ?? null,
         rhMaxPct: raw.get(d.date)?.rhMaxPct ?? null,
+        hourly: raw.get(d.date)?.hourly ?? null,
       }),
     );
   const propertyDays = toRiskDays(TURF_KC.cool, {});
@@ -179,9 +180,14 @@ async function propertyRuleResults(
     ? `${property.rule_set_name}: ${property.rule_set_citation}`
     : null;
 
+  // Unknown species count as cool-season, as the late-season rule reads them.
+  const seasonOf = (key: string) => findGrassSpecies(key)?.season ?? "cool";
+  const coolSeasonZones = zones
+    .filter((z) => seasonOf(z.grass_species) === "cool")
+    .map((z) => z.name);
   const results: { zoneId: string | null; result: RuleResult }[] = [
     dollarSpotWeather(propertyDays, at),
-    brownPatchWeather(propertyDays, at),
+    brownPatchWeather(propertyDays, at, coolSeasonZones),
     pythiumWeather(propertyDays, at),
   ].map((result) => ({ zoneId: null, result }));
   for (const z of zones) {
@@ -211,15 +217,15 @@ async function propertyRuleResults(
         .map((c) => ({ date: c.scheduled_for, index: c.sward_index! })),
     );
     const zoneResults = [
-      mattedCanopy(facts, days, at),
+      mattedCanopy(facts, days, at, seasonOf(z.grass_species)),
       droughtStress(days.find((d) => d.date === at)?.balance14In ?? null, days, at, facts.at(-1)),
-      heatFeeding(apps, days, at),
+      heatFeeding(apps, days, at, seasonOf(z.grass_species)),
       overApplication(apps, species?.annualNitrogenLb.max ?? null, year, ruleSource),
       blackoutApplication(apps, year, ruleSource),
       mowingTooShort(facts, species?.heightOfCutIn ?? null),
       tornTips(facts),
       decliningIndex(trend),
-      lateSeasonFeeding(species?.season ?? "cool", apps, at, property.pro_blackout_start),
+      lateSeasonFeeding(seasonOf(z.grass_species), apps, at, property.pro_blackout_start),
     ];
     for (const result of zoneResults) results.push({ zoneId: z.id, result });
   }

@@ -66,7 +66,7 @@ export function extraterrestrialRadiation(latitudeDeg: number, dayOfYearValue: n
 }
 
 /** Daylight hours N (eq. 34). */
-export const daylightHours = (latitudeDeg: number, doy: number) =>
+const daylightHours = (latitudeDeg: number, doy: number) =>
   (24 / Math.PI) * solarGeometry(latitudeDeg, doy).ws;
 
 export interface PenmanMonteithDay {

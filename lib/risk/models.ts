@@ -31,33 +31,61 @@ export function brownPatchIndex(rhMeanPct: number, tminC: number): number {
 }
 
 /** Thresholds of the Nutter, Cole & Schein (1983) Pythium blight rule. */
-export const PYTHIUM = { tmaxAboveC: 30, tminAboveC: 20, hoursRhAbove90AtLeast: 14 } as const;
+export const PYTHIUM = {
+  tmaxAboveC: 30,
+  tminAboveC: 20,
+  hoursRhAbove90AtLeast: 14,
+  /** The night after the hot day: local noon of the hot day to noon the next day (24 hours). */
+  nightFromHour: 12,
+} as const;
 
-/**
- * Pythium blight weather (Nutter, Cole & Schein 1983, Plant Disease 67:1126): a maximum air
- * temperature above 30 °C followed by at least 14 hours of relative humidity above 90 % with the
- * minimum temperature above 20 °C.
- */
-export function pythiumWeatherRisk(day: {
-  tmaxC: number;
-  tminC: number;
-  hoursRhAbove90: number;
-}): boolean {
-  return (
-    day.tmaxC > PYTHIUM.tmaxAboveC &&
-    day.tminC > PYTHIUM.tminAboveC &&
-    day.hoursRhAbove90 >= PYTHIUM.hoursRhAbove90AtLeast
-  );
+/** One local hour of weather. */
+export interface WeatherHour {
+  /** "YYYY-MM-DDTHH:MM", local time. */
+  at: string;
+  tempC: number;
+  rhPct: number;
 }
 
 /**
- * Hours of a day with relative humidity above 90 %, estimated from the day's minimum and maximum
- * RH when hourly values are missing: RH is taken to move linearly between them through the day,
- * so the share of the day above 90 % is (max − 90) / (max − min). A stated assumption (daily
- * weather services give RH extremes, not hours); hourly data, when a provider gives it, is better.
+ * Pythium blight weather (Nutter, Cole & Schein 1983, Plant Disease 67:1126–1128), as the
+ * abstract states it: "a maximum air temperature > 30 °C followed by at least 14 h of relative
+ * humidity > 90 % with the minimum temperature > 20 °C" (REFERENCES.md §3; the extension form
+ * is the same in °F: high above 86 °F, low above 68 °F). The model counts hours of measured
+ * humidity, so it takes the hours that follow the hot day: from local noon of the hot day to
+ * noon the next day (the afternoon, the night and the morning after; our reading of "followed
+ * by" — the paper's exact window is from memory, not re-read), counting every hour above 90 %
+ * whether or not they run together, with the lowest temperature of those 24 hours as the
+ * minimum. Null when that night's hours are not all known.
  */
-export function estimateHoursRhAbove90(rhMinPct: number | null, rhMaxPct: number | null): number {
-  if (rhMinPct === null || rhMaxPct === null || rhMaxPct <= 90) return 0;
-  if (rhMinPct >= 90) return 24;
-  return (24 * (rhMaxPct - 90)) / (rhMaxPct - rhMinPct);
+export function pythiumNight(
+  hotDay: { date: string; tmaxC: number },
+  hours: WeatherHour[],
+): { hoursRhAbove90: number; nightMinC: number; risk: boolean } | null {
+  const from = `${hotDay.date}T${String(PYTHIUM.nightFromHour).padStart(2, "0")}:00`;
+  const nextNoon = new Date(Date.parse(`${hotDay.date}T00:00:00Z`) + 86_400_000)
+    .toISOString()
+    .slice(0, 10);
+  const to = `${nextNoon}T${String(PYTHIUM.nightFromHour).padStart(2, "0")}:00`;
+  const night = hours.filter((h) => h.at >= from && h.at < to);
+  // 23 or 25 hours on a daylight-saving night.
+  if (night.length < 23) return null;
+  const hoursRhAbove90 = night.filter((h) => h.rhPct > 90).length;
+  const nightMinC = Math.min(...night.map((h) => h.tempC));
+  return {
+    hoursRhAbove90,
+    nightMinC,
+    risk:
+      hotDay.tmaxC > PYTHIUM.tmaxAboveC &&
+      nightMinC > PYTHIUM.tminAboveC &&
+      hoursRhAbove90 >= PYTHIUM.hoursRhAbove90AtLeast,
+  };
 }
+
+/** What each disease model was built on, shown with its alerts (the model applies best there). */
+export const MODEL_TURF = {
+  dollarSpot:
+    "golf-course creeping bentgrass (fairways and putting greens in several US states and Canada)",
+  brownPatch: "perennial ryegrass (Maryland field plots)",
+  pythium: "Pennsylvania turfgrass plots (cool-season turf; the species from memory, not re-read)",
+} as const;

@@ -3,16 +3,25 @@
 // (lib/after-write/alerts.ts) gathers the inputs; nothing here reads a database or a clock.
 //
 // Thresholds we chose, and why (each rule's `source` names where it comes from):
-// - Matted canopy is high when a disease is already showing in the zone, else moderate.
-// - Warm and humid (matted canopy): 5-day mean ≥ 20 °C (68 °F) and 5-day mean RH ≥ 70 %. At
-//   20 °C the Smith et al. (2018) dollar spot model crosses its 20 % action threshold near
-//   RH5 69 %, so this is where the published disease weather starts to count.
+// - Matted canopy (kept because crews are taught it): the link between one mowing direction or
+//   a laid-over canopy and fungal disease is common practice with no published threshold, so the
+//   alert is low, and moderate only when a disease is already showing in the zone (seen, not
+//   inferred). Its weather part is the published models' own: the dollar spot model at its 20 %
+//   action threshold, or (cool-season zones) the brown patch index at its warning level in the
+//   last 3 days. Each disease weather alert carries its own severity.
 // - Drought: the 14-day balance (rain + watering − Kc × ETo) at or below −1.0 in — a week's
 //   summer water need unmet ("about 1 inch a week", common practice) — with less than 0.25 in of
 //   rain forecast in the next 3 days; −2.0 in or worse is high. Wilt observed raises it too.
-// - Heat feeding: N applied when the high reaches 90 °F (32.2 °C) on the day or the 2 days after,
-//   with less than 0.1 in of rain in those days (common practice: do not push N on heat-stressed
-//   turf); looked at for 7 days after the application.
+// - Heat feeding: cool-season zones only. N applied when the high reaches 90 °F (32.2 °C) on the
+//   day or the 2 days after, with less than 0.1 in of rain in those days (common practice: do not
+//   push N on cool-season turf stressed by heat — it grows best at about 60–75 °F and slows in
+//   summer heat); looked at for 7 days after the application. Warm-season grasses (bermuda,
+//   zoysia, St. Augustine, centipede, bahia) grow fastest in summer heat and are fed then, so the
+//   rule is by season rather than by nitrogen source: a quick-release feeding of bermudagrass at
+//   94 °F is the recommended practice, not a risk.
+// - Brown patch weather runs for properties with a cool-season zone (the model was built on
+//   perennial ryegrass); dollar spot and Pythium run for every property, and every disease alert
+//   names the turf its model was built on.
 // - Mowing too short: the cut below the species' range (University of Tennessee table), or the
 //   one-third rule read between checks: a cut lower than two thirds of the previous check's cut
 //   means more than a third of the blade came off at once (common practice, extension-wide).
@@ -27,9 +36,10 @@ import {
   brownPatchIndex,
   DOLLAR_SPOT_THRESHOLD,
   dollarSpotProbability,
-  estimateHoursRhAbove90,
+  MODEL_TURF,
   PYTHIUM,
-  pythiumWeatherRisk,
+  pythiumNight,
+  type WeatherHour,
 } from "./models";
 
 export type AlertKind =
@@ -64,7 +74,6 @@ export interface RuleResult {
   summary: string;
 }
 
-const WARM_HUMID = { tMean5dC: 20, rhMean5dPct: 70 } as const;
 const DROUGHT = {
   balance14In: -1,
   highBalance14In: -2,
@@ -77,15 +86,13 @@ const SAME_DIRECTION_CHECKS = 3;
 
 const SOURCES = {
   matted:
-    "Common practice; Kansas State University extension turf advice: mowing the same way every time lays the blades over and mats them, cutting air movement and favouring fungal disease in hot, humid weather. Warm-humid thresholds from the Smith et al. (2018) dollar spot model.",
-  dollarSpot:
-    "Smith, Kerns, Walker et al. (2018), PLoS ONE 13(3): e0194216 — 20 % action threshold.",
-  brownPatch:
-    "Fidanza, Dernoeden & Grybauskas (1996), Phytopathology 86:385–390 — two-variable index, warning at 6.",
-  pythium: "Nutter, Cole & Schein (1983), Plant Disease 67:1126.",
+    "Common practice (taught to crews; Kansas State University extension turf advice): mowing the same way every time lays the blades over and mats them, cutting air movement and favoring fungal disease in hot, humid weather — no published study sets a threshold for it. The weather part is the published disease models': Smith et al. (2018) dollar spot at 20 %; Fidanza et al. (1996) brown patch index at 6.",
+  dollarSpot: `Smith, Kerns, Walker et al. (2018), PLoS ONE 13(3): e0194216 — 20 % action threshold. Built on ${MODEL_TURF.dollarSpot}.`,
+  brownPatch: `Fidanza, Dernoeden & Grybauskas (1996), Phytopathology 86:385–390 — two-variable index, warning at 6. Built on ${MODEL_TURF.brownPatch}.`,
+  pythium: `Nutter, Cole & Schein (1983), Plant Disease 67:1126–1128, on hourly relative humidity. Built on ${MODEL_TURF.pythium}.`,
   drought:
     "Common practice: about 1 inch of water a week in summer; balance = rain + watering − Kc × reference ET (FAO-56).",
-  heat: "Common practice: do not push nitrogen on turf stressed by heat and drought.",
+  heat: "Common practice (extension-wide): do not push nitrogen on cool-season turf in summer heat and drought; warm-season grasses are fed in summer, their season of growth.",
   mowing:
     "University of Tennessee height-of-cut table (via trade press); the one-third rule (common practice, extension-wide).",
   tornTips: "Common practice: dull blades tear leaf tips, which brown and let disease in.",
@@ -116,6 +123,8 @@ export interface RiskDay {
   rainIn: number;
   tmean5dF: number;
   rhMean5dPct: number | null;
+  /** The day's hours as the weather service gave them (local time), when it gave every hour. */
+  hourly: { time: string[]; tempC: number[]; rhPct: number[] } | null;
 }
 
 export interface CheckFacts {
@@ -131,8 +140,17 @@ export interface CheckFacts {
 const dayOf = (days: RiskDay[], date: string) => days.find((d) => d.date === date);
 const f2c = (f: number) => ((f - 32) * 5) / 9;
 
-/** Matted canopy: one mowing direction at 3 checks running, or matting seen, in warm humid weather. */
-export function mattedCanopy(checks: CheckFacts[], days: RiskDay[], at: string): RuleResult {
+/**
+ * Matted canopy: one mowing direction at 3 checks running, or matting seen, while a published
+ * disease model is at its action level (dollar spot ≥ 20 %; brown patch index ≥ 6 in the last 3
+ * days on cool-season turf). Common practice; low, or moderate when disease already shows.
+ */
+export function mattedCanopy(
+  checks: CheckFacts[],
+  days: RiskDay[],
+  at: string,
+  season: "cool" | "warm",
+): RuleResult {
   const last = checks.slice(-SAME_DIRECTION_CHECKS);
   const sameRun =
     last.length === SAME_DIRECTION_CHECKS && last.every((c) => c.mowingDirection === "same");
@@ -140,31 +158,54 @@ export function mattedCanopy(checks: CheckFacts[], days: RiskDay[], at: string):
   const d = dayOf(days, at);
   const t5 = d ? f2c(d.tmean5dF) : null;
   const rh5 = d?.rhMean5dPct ?? null;
-  const warmHumid =
-    t5 !== null && rh5 !== null && t5 >= WARM_HUMID.tMean5dC && rh5 >= WARM_HUMID.rhMean5dPct;
+  const p = t5 !== null && rh5 !== null ? dollarSpotProbability(rh5, t5) : null;
+  const brownPatch = season === "cool" ? worstBrownPatch(days, at) : null;
+  const dollarSpotAtAction = p !== null && p >= DOLLAR_SPOT_THRESHOLD;
+  const brownPatchAtAction = brownPatch !== null && brownPatch.e >= BROWN_PATCH_THRESHOLD;
   const evidence: Evidence = {
     values: {
       sameDirectionChecks: last.filter((c) => c.mowingDirection === "same").length,
       mattingSeen: matted,
+      practice: "common practice (no published threshold)",
       tMean5dC: t5 === null ? null : round(t5, 1),
       rhMean5dPct: rh5 === null ? null : round(rh5, 0),
+      probabilityPct: p === null ? null : round(p * 100, 1),
+      highestIndex: brownPatch ? round(brownPatch.e, 2) : null,
+      model: "Smith et al. (2018) dollar spot; Fidanza et al. (1996) brown patch (cool-season)",
     },
-    threshold: `${SAME_DIRECTION_CHECKS} checks in a row mowed the same way, or matting seen; and 5-day means ≥ ${WARM_HUMID.tMean5dC} °C and ≥ ${WARM_HUMID.rhMean5dPct} % RH`,
+    threshold: `${SAME_DIRECTION_CHECKS} checks in a row mowed the same way, or matting seen; and dollar spot probability ≥ ${DOLLAR_SPOT_THRESHOLD * 100} % or (cool-season turf) brown patch index ≥ ${BROWN_PATCH_THRESHOLD}`,
     window: `the last ${SAME_DIRECTION_CHECKS} checks; the 5 days to ${at}`,
   };
-  if (!(sameRun || matted) || !warmHumid) return quiet("matted_canopy", SOURCES.matted, evidence);
+  if (!(sameRun || matted) || !(dollarSpotAtAction || brownPatchAtAction))
+    return quiet("matted_canopy", SOURCES.matted, evidence);
   const disease = (checks.at(-1)?.symptomKeys ?? []).filter(
     (k) => findSymptom(k)?.kind === "disease",
   );
   evidence.values.diseaseSeen = disease.length > 0;
+  const weather = [
+    dollarSpotAtAction ? `dollar spot weather at ${round(p! * 100, 0)} %` : null,
+    brownPatchAtAction ? `brown patch index ${round(brownPatch!.e, 1)}` : null,
+  ]
+    .filter(Boolean)
+    .join(" and ");
   return {
     kind: "matted_canopy",
     raised: true,
-    severity: disease.length ? "high" : "moderate",
+    severity: disease.length ? "moderate" : "low",
     evidence,
     source: SOURCES.matted,
-    summary: `${sameRun ? `Mowed the same direction at the last ${SAME_DIRECTION_CHECKS} checks` : "Matted, laid-over grass seen"}${disease.length ? ", with disease already showing," : ""} while the weather is warm and humid (${round(t5!, 1)} °C, ${round(rh5!, 0)} % RH over 5 days): fungus risk. Vary the mowing direction every few mowings where the slope allows.`,
+    summary: `${sameRun ? `Mowed the same direction at the last ${SAME_DIRECTION_CHECKS} checks` : "Matted, laid-over grass seen"}${disease.length ? ", with disease already showing," : ""} while the disease models read ${weather}${t5 !== null && rh5 !== null ? ` (${round(t5, 1)} °C, ${round(rh5, 0)} % RH over 5 days)` : ""}: a matted canopy holds moisture (common practice). Vary the mowing direction every few mowings where the slope allows.`,
   };
+}
+
+/** The highest brown patch index of the last 3 observed days to `at`, and its day. */
+function worstBrownPatch(days: RiskDay[], at: string): { date: string; e: number } | null {
+  return days
+    .filter((d) => d.date <= at && !d.isForecast)
+    .slice(-3)
+    .filter((d) => d.rhMeanPct !== null)
+    .map((d) => ({ date: d.date, e: brownPatchIndex(d.rhMeanPct!, f2c(d.tminF)) }))
+    .reduce<{ date: string; e: number } | null>((m, x) => (m === null || x.e > m.e ? x : m), null);
 }
 
 export function dollarSpotWeather(days: RiskDay[], at: string): RuleResult {
@@ -177,6 +218,8 @@ export function dollarSpotWeather(days: RiskDay[], at: string): RuleResult {
       tMean5dC: t5 === null ? null : round(t5, 1),
       rhMean5dPct: rh5 === null ? null : round(rh5, 0),
       probabilityPct: p === null ? null : round(p * 100, 1),
+      model: "Smith et al. (2018) logistic model",
+      builtOn: MODEL_TURF.dollarSpot,
     },
     threshold: `probability ≥ ${DOLLAR_SPOT_THRESHOLD * 100} % (model defined for 5-day means of 10–35 °C)`,
     window: `the 5 days to ${at}`,
@@ -189,22 +232,26 @@ export function dollarSpotWeather(days: RiskDay[], at: string): RuleResult {
     severity: p >= 0.5 ? "high" : "moderate",
     evidence,
     source: SOURCES.dollarSpot,
-    summary: `Dollar spot weather: ${round(p * 100, 0)} % probability from the last 5 days (threshold ${DOLLAR_SPOT_THRESHOLD * 100} %).`,
+    summary: `Dollar spot weather: ${round(p * 100, 0)} % probability from the last 5 days (threshold ${DOLLAR_SPOT_THRESHOLD * 100} %; a model built on golf-course bentgrass).`,
   };
 }
 
-export function brownPatchWeather(days: RiskDay[], at: string): RuleResult {
-  const recent = days.filter((d) => d.date <= at && !d.isForecast).slice(-3);
-  const scored = recent
-    .filter((d) => d.rhMeanPct !== null)
-    .map((d) => ({ date: d.date, e: brownPatchIndex(d.rhMeanPct!, f2c(d.tminF)) }));
-  const worst = scored.reduce<{ date: string; e: number } | null>(
-    (m, x) => (m === null || x.e > m.e ? x : m),
-    null,
-  );
+/** Brown patch weather, for a property with cool-season zones (named in `coolSeasonZones`). */
+export function brownPatchWeather(
+  days: RiskDay[],
+  at: string,
+  coolSeasonZones: string[],
+): RuleResult {
+  const worst = coolSeasonZones.length ? worstBrownPatch(days, at) : null;
   const evidence: Evidence = {
-    values: { highestIndex: worst ? round(worst.e, 2) : null, on: worst?.date ?? null },
-    threshold: `index ≥ ${BROWN_PATCH_THRESHOLD}`,
+    values: {
+      highestIndex: worst ? round(worst.e, 2) : null,
+      on: worst?.date ?? null,
+      coolSeasonZones: coolSeasonZones.join(", ") || null,
+      model: "Fidanza et al. (1996) two-variable index",
+      builtOn: MODEL_TURF.brownPatch,
+    },
+    threshold: `index ≥ ${BROWN_PATCH_THRESHOLD}; cool-season zones only`,
     window: `the 3 days to ${at}`,
   };
   if (!worst || worst.e < BROWN_PATCH_THRESHOLD)
@@ -215,30 +262,56 @@ export function brownPatchWeather(days: RiskDay[], at: string): RuleResult {
     severity: "moderate",
     evidence,
     source: SOURCES.brownPatch,
-    summary: `Brown patch weather: index ${round(worst.e, 1)} on ${worst.date} (warning at ${BROWN_PATCH_THRESHOLD}): humid nights above about 20 °C.`,
+    summary: `Brown patch weather: index ${round(worst.e, 1)} on ${worst.date} (warning at ${BROWN_PATCH_THRESHOLD}): humid nights above about 20 °C. For the cool-season zones (${coolSeasonZones.join(", ")}); the model was built on perennial ryegrass.`,
   };
 }
 
-export function pythiumWeather(days: RiskDay[], at: string): RuleResult {
-  const recent = days.filter((d) => d.date <= at && !d.isForecast).slice(-3);
-  const hit = recent.find((d) =>
-    pythiumWeatherRisk({
-      tmaxC: f2c(d.tmaxF),
-      tminC: f2c(d.tminF),
-      hoursRhAbove90: estimateHoursRhAbove90(d.rhMinPct, d.rhMaxPct),
-    }),
+/** The hours of the days given, in order, as the models read them. */
+const hoursOf = (days: RiskDay[]): WeatherHour[] =>
+  days.flatMap((d) =>
+    d.hourly
+      ? d.hourly.time.map((t, i) => ({
+          at: `${d.date}T${t}`,
+          tempC: d.hourly!.tempC[i]!,
+          rhPct: d.hourly!.rhPct[i]!,
+        }))
+      : [],
   );
+
+/**
+ * Pythium blight weather: a hot day among the 3 days before `at` followed by a humid, warm
+ * night, counted on the service's hourly humidity (Nutter et al. 1983). Without the hours of a
+ * night the day is not judged (and the evidence says so) — never guessed from daily extremes.
+ */
+export function pythiumWeather(days: RiskDay[], at: string): RuleResult {
+  const observed = days.filter((d) => d.date <= at && !d.isForecast);
+  const hours = hoursOf(observed);
+  const candidates = observed.filter((d) => d.date < at).slice(-3);
+  const nights = candidates.map((d) => ({
+    day: d,
+    night: pythiumNight({ date: d.date, tmaxC: f2c(d.tmaxF) }, hours),
+  }));
+  const judged = nights.filter((n) => n.night !== null);
+  const hit = judged.find((n) => n.night!.risk);
+  const shown =
+    hit ??
+    judged.reduce<(typeof judged)[number] | null>(
+      (m, n) => (m === null || n.night!.hoursRhAbove90 > m.night!.hoursRhAbove90 ? n : m),
+      null,
+    );
   const evidence: Evidence = {
-    values: hit
-      ? {
-          on: hit.date,
-          tmaxC: round(f2c(hit.tmaxF), 1),
-          tminC: round(f2c(hit.tminF), 1),
-          hoursRhAbove90: round(estimateHoursRhAbove90(hit.rhMinPct, hit.rhMaxPct), 1),
-        }
-      : { days: recent.length },
-    threshold: `Tmax > ${PYTHIUM.tmaxAboveC} °C, Tmin > ${PYTHIUM.tminAboveC} °C, ≥ ${PYTHIUM.hoursRhAbove90AtLeast} h of RH > 90 % (hours estimated from the day's RH range)`,
-    window: `the 3 days to ${at}`,
+    values: {
+      on: shown?.day.date ?? null,
+      tmaxC: shown ? round(f2c(shown.day.tmaxF), 1) : null,
+      nightMinC: shown ? round(shown.night!.nightMinC, 1) : null,
+      hoursRhAbove90: shown ? shown.night!.hoursRhAbove90 : null,
+      nightsJudged: judged.length,
+      nightsWithoutHours: nights.length - judged.length,
+      model: "Nutter et al. (1983) Pythium blight rule, hourly humidity",
+      builtOn: MODEL_TURF.pythium,
+    },
+    threshold: `high > ${PYTHIUM.tmaxAboveC} °C (86 °F), then ≥ ${PYTHIUM.hoursRhAbove90AtLeast} h of RH > 90 % with the low > ${PYTHIUM.tminAboveC} °C (68 °F), counted hour by hour from noon of the hot day to noon the next`,
+    window: `the nights after the 3 days before ${at}`,
   };
   if (!hit) return quiet("pythium_weather", SOURCES.pythium, evidence);
   return {
@@ -247,7 +320,7 @@ export function pythiumWeather(days: RiskDay[], at: string): RuleResult {
     severity: "high",
     evidence,
     source: SOURCES.pythium,
-    summary: `Pythium blight weather on ${hit.date}: a hot day followed by a long humid night above 20 °C.`,
+    summary: `Pythium blight weather after ${hit.day.date}: a high of ${round(hit.day.tmaxF, 0)} °F, then ${hit.night!.hoursRhAbove90} hours above 90 % humidity with the night's low at ${round((hit.night!.nightMinC * 9) / 5 + 32, 0)} °F.`,
   };
 }
 
@@ -297,11 +370,19 @@ export interface ApplicationFacts {
   findings: { key: string; severity: string; message: string }[];
 }
 
+/** Feeding under heat stress: cool-season turf only (warm-season grasses are fed in summer). */
 export function heatFeeding(
   applications: ApplicationFacts[],
   days: RiskDay[],
   at: string,
+  season: "cool" | "warm",
 ): RuleResult {
+  if (season === "warm")
+    return quiet("heat_feeding", SOURCES.heat, {
+      values: { season },
+      threshold: "cool-season turf only: warm-season grasses are fed in summer heat",
+      window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${at}`,
+    });
   const since = new Date(Date.parse(`${at}T00:00:00Z`) - HEAT_FEEDING.lookbackDays * 86_400_000)
     .toISOString()
     .slice(0, 10);
@@ -327,18 +408,19 @@ export function heatFeeding(
             nLb: round(a.nLb),
             highestF: round(hot, 0),
             rainIn: round(rain),
+            season,
           },
-          threshold: `high ≥ ${HEAT_FEEDING.tmaxF} °F on the day or the ${HEAT_FEEDING.daysAfter} days after, with < ${HEAT_FEEDING.rainIn} in of rain`,
+          threshold: `cool-season turf; high ≥ ${HEAT_FEEDING.tmaxF} °F on the day or the ${HEAT_FEEDING.daysAfter} days after, with < ${HEAT_FEEDING.rainIn} in of rain`,
           window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${at}`,
         },
         source: SOURCES.heat,
-        summary: `${round(a.nLb)} lb N (${a.productName}) went down on ${a.date} with highs of ${round(hot, 0)} °F and no rain: watch for burn and stress; water it in.`,
+        summary: `${round(a.nLb)} lb N (${a.productName}) went down on ${a.date} with highs of ${round(hot, 0)} °F and no rain, on cool-season grass that slows down in summer heat: watch for burn and stress; water it in.`,
       };
     }
   }
   return quiet("heat_feeding", SOURCES.heat, {
-    values: {},
-    threshold: `high ≥ ${HEAT_FEEDING.tmaxF} °F with < ${HEAT_FEEDING.rainIn} in of rain`,
+    values: { season },
+    threshold: `cool-season turf; high ≥ ${HEAT_FEEDING.tmaxF} °F with < ${HEAT_FEEDING.rainIn} in of rain`,
     window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${at}`,
   });
 }

@@ -8,12 +8,12 @@ import { serviceEnv, type ServiceEnv } from "@/lib/env";
 
 import { smtpMailer, type Mailer } from "./mail";
 import { localDiskStorage, s3Storage, type PhotoStorage } from "./storage";
-import { jsonWeatherProvider, type WeatherProvider } from "./weather/provider";
+import { openMeteoProvider, type WeatherProvider } from "./weather/provider";
 
 export interface Services {
   /** Null without SMTP_URL: mail then waits in the outbox. */
   mailer: Mailer | null;
-  /** Null without WEATHER_BASE_URL. For background work: retries with back-off. */
+  /** Open-Meteo's API; null without WEATHER_BASE_URL. For background work: retries with back-off. */
   weather: WeatherProvider | null;
   /** The same service for moments a person is waiting (starting a visit): one try, 1.5 s. */
   quickWeather: WeatherProvider | null;
@@ -24,8 +24,9 @@ export interface Services {
 export function createServices(env: ServiceEnv): Services {
   const weather = (options: { timeoutMs?: number; retries?: number }) =>
     env.WEATHER_BASE_URL
-      ? jsonWeatherProvider({
+      ? openMeteoProvider({
           baseUrl: env.WEATHER_BASE_URL,
+          archiveUrl: env.WEATHER_ARCHIVE_URL,
           apiKey: env.WEATHER_API_KEY,
           ...options,
         })

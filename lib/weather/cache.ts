@@ -15,6 +15,8 @@ import { cellOf, toWeatherDay, weatherDayRow } from "./map";
 
 /** Recent days and forecasts are fetched again after this long. */
 const STALE_AFTER_MS = 6 * 3600_000;
+/** How far back a day's hours are needed: the alerts' weather window (lib/after-write/alerts.ts). */
+const HOURS_NEEDED_DAYS = 20;
 
 /** Days [from, to] for a location as the cache holds them, and whether they are complete and fresh. */
 export async function readWeatherDays(
@@ -36,12 +38,15 @@ export async function readWeatherDays(
   const staleAfter = Date.now() - STALE_AFTER_MS;
   const wanted = Math.round((Date.parse(to) - Date.parse(from)) / 86_400_000) + 1;
   // Past days are final two days after the fact; recent days and forecasts are refreshed every 6 h.
+  // A day of the alerts' window without its hours (cached before the hours were kept, or an hour
+  // missing at the service) is asked for again: the Pythium model needs them.
   const isFresh =
     cached.length >= wanted &&
     !cached.some(
       (r) =>
-        (r.is_forecast || r.day >= addDays(today, -2)) &&
-        new Date(r.fetched_at).getTime() < staleAfter,
+        ((r.is_forecast || r.day >= addDays(today, -2)) &&
+          new Date(r.fetched_at).getTime() < staleAfter) ||
+        (r.hourly === null && r.day >= addDays(today, -HOURS_NEEDED_DAYS)),
     );
   return { days: cached.map(toWeatherDay), isFresh };
 }
@@ -93,6 +98,8 @@ export async function weatherFromCache(
             solar_mj: eb.ref("excluded.solar_mj"),
             precip_mm: eb.ref("excluded.precip_mm"),
             is_forecast: eb.ref("excluded.is_forecast"),
+            hourly: eb.ref("excluded.hourly"),
+            service_et0_mm: eb.ref("excluded.service_et0_mm"),
             fetched_at: eb.fn("now"),
           })),
         )

@@ -19,6 +19,8 @@ export const toWeatherDay = (r: WeatherDay): WeatherDayInput => ({
   solarMJ: r.solar_mj,
   precipMm: r.precip_mm,
   isForecast: r.is_forecast,
+  hourly: r.hourly,
+  serviceEt0Mm: r.service_et0_mm,
 });
 
 /** A provider's day as a row of the cache. */
@@ -36,4 +38,6 @@ export const weatherDayRow = (cell: string, d: WeatherDayInput) => ({
   solar_mj: d.solarMJ,
   precip_mm: d.precipMm,
   is_forecast: d.isForecast,
+  hourly: d.hourly ? JSON.stringify(d.hourly) : null,
+  service_et0_mm: d.serviceEt0Mm,
 });

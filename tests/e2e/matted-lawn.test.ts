@@ -43,6 +43,7 @@ async function waitForMail(to: string, subject: RegExp, since: number) {
     .toBe(true);
   return found!;
 }
+const HOURS = Array.from({ length: 24 }, (_, h) => h);
 const linkIn = (text: string, pattern: RegExp) => text.match(pattern)?.[0] ?? "";
 
 beforeAll(async () => {
@@ -65,6 +66,13 @@ beforeAll(async () => {
       solarMJ: null,
       precipMm: 0,
       isForecast: date > today,
+      // The hours the service gives with such days (the cache asks again for recent days without them).
+      hourly: {
+        time: HOURS.map((h) => `${String(h).padStart(2, "0")}:00`),
+        tempC: HOURS.map((h) => 25 + 4 * Math.sin((Math.PI * (h - 9)) / 12)),
+        rhPct: HOURS.map((h) => 80 - 15 * Math.sin((Math.PI * (h - 9)) / 12)),
+      },
+      serviceEt0Mm: 4.2,
     }),
     fetched_at: new Date(),
   }));
@@ -80,6 +88,8 @@ beforeAll(async () => {
         rh_mean_pct: eb.ref("excluded.rh_mean_pct"),
         precip_mm: eb.ref("excluded.precip_mm"),
         is_forecast: eb.ref("excluded.is_forecast"),
+        hourly: eb.ref("excluded.hourly"),
+        service_et0_mm: eb.ref("excluded.service_et0_mm"),
         fetched_at: eb.ref("excluded.fetched_at"),
       })),
     )
@@ -162,12 +172,14 @@ describe("matted canopy alert", () => {
     await matted.waitFor({ timeout: 15_000 });
     expect(await matted.innerText()).toMatch(/Front lawn/);
     expect(await matted.innerText()).toMatch(
-      /Matted, laid-over grass seen while the weather is warm and humid \(25 °C, 80 % RH over 5 days\)/,
+      /Matted, laid-over grass seen while the disease models read dollar spot weather at 64 % \(25 °C, 80 % RH over 5 days\): a matted canopy holds moisture \(common practice\)/,
     );
     await matted.getByText("Evidence and source").click();
     const evidence = await matted.innerText();
     expect(evidence).toMatch(/Matting seen\s*yes/);
     expect(evidence).toMatch(/5-day mean humidity \(%\)\s*80/);
+    expect(evidence).toMatch(/Basis\s*common practice \(no published threshold\)/);
+    expect(evidence).toMatch(/Probability \(%\)\s*64/); // Smith et al. (2018): logit −11.4041 + 0.0894·80 + 0.1932·25
     expect(evidence).toMatch(/Kansas State University/);
     await alerts.scrollIntoViewIfNeeded();
     await snap(page, "alert-01-visit-summary", true);

@@ -1,11 +1,12 @@
-// Weather through the provider and the cache: the fake service on 127.0.0.1, validation,
-// the cache answering when the service is down, and a visit that starts without weather and
-// gets it filled on the next sync.
+// Weather through the provider and the cache: the fake service on 127.0.0.1 speaking
+// Open-Meteo's forecast and archive API, validation, the cache keeping each day's hours and the
+// service's ETo, the cache answering when the service is down, and a visit that starts without
+// weather and gets it filled on the next sync.
 import type { Server } from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
 import { addDays, todayIn } from "@/lib/dates";
-import { jsonWeatherProvider, WeatherUnavailable } from "@/lib/services/weather/provider";
+import { openMeteoProvider, WeatherUnavailable } from "@/lib/services/weather/provider";
 import { deriveDays } from "@/lib/weather/derived";
 import { refreshWeather } from "@/lib/weather/mutations";
 
@@ -24,9 +25,17 @@ afterAll(() => new Promise<void>((r) => server.close(() => r())));
 const today = todayIn("America/New_York");
 
 describe("weather", () => {
-  it("the fake serves plausible, deterministic days that pass the contract", async () => {
-    const provider = jsonWeatherProvider({ baseUrl: base });
+  it("the fake serves plausible, deterministic days that pass the contract, from the archive and the forecast endpoint", async () => {
+    const provider = openMeteoProvider({ baseUrl: base });
     const a = await provider.daily(40.33, -74.74, "2026-07-01", "2026-07-14");
+    expect(a.every((d) => d.hourly?.rhPct.length === 24 && d.serviceEt0Mm! > 0)).toBe(true);
+    expect(a.every((d) => !d.isForecast)).toBe(true);
+    // Recent days and the week ahead come from the forecast endpoint; the days ahead are forecasts.
+    const recent = await provider.daily(40.33, -74.74, addDays(today, -3), addDays(today, 3));
+    expect(recent).toHaveLength(7);
+    expect(recent.filter((d) => d.isForecast).map((d) => d.date)).toEqual(
+      [1, 2, 3].map((i) => addDays(today, i)),
+    );
     const b = await provider.daily(40.33, -74.74, "2026-07-01", "2026-07-14");
     expect(a).toEqual(b);
     expect(a).toHaveLength(14);
@@ -42,7 +51,7 @@ describe("weather", () => {
   });
 
   it("a service that is down gives WeatherUnavailable after retries; the cache still answers", async () => {
-    const down = jsonWeatherProvider({
+    const down = openMeteoProvider({
       baseUrl: "http://127.0.0.1:9",
       timeoutMs: 300,
       retries: 1,
@@ -51,15 +60,29 @@ describe("weather", () => {
     await expect(down.daily(40, -74, "2026-07-01", "2026-07-02")).rejects.toBeInstanceOf(
       WeatherUnavailable,
     );
-    const up = jsonWeatherProvider({ baseUrl: base });
+    const up = openMeteoProvider({ baseUrl: base });
     const filled = await refreshWeather(up, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
     expect(filled.status).toBe("ok");
     const fromCache = await refreshWeather(down, 40.31, -74.71, "2026-06-01", "2026-06-10", today);
     expect(fromCache.status).toBe("ok"); // past, complete and cached: no fetch needed
     expect(fromCache.days).toHaveLength(10);
+    // The cache keeps each day's hours and the service's ETo.
+    expect(fromCache.days.every((d) => d.hourly?.time[0] === "00:00" && d.serviceEt0Mm! > 0)).toBe(
+      true,
+    );
     const partly = await refreshWeather(down, 40.31, -74.71, "2026-06-01", "2026-06-20", today);
     expect(partly.status).toBe("cached");
     expect(partly.message).toMatch(/Weather unavailable: the weather service could not be reached/);
+  });
+
+  it("a refused request gives the service's own reason", async () => {
+    // Further ahead than the forecast endpoint's 16 days is not asked for; a bad coordinate is.
+    const provider = openMeteoProvider({ baseUrl: base, retries: 0 });
+    await expect(provider.daily(95, -74, today, today)).rejects.toThrow(
+      /answered 400 \(Latitude must be in range of -90 to 90°\.\)/,
+    );
+    const ahead = await provider.daily(40.33, -74.74, addDays(today, 10), addDays(today, 30));
+    expect(ahead.at(-1)!.date <= addDays(today, 15)).toBe(true);
   });
 
   it("a visit starts with the weather service down; the snapshot says unavailable; the next sync fills it", async () => {
@@ -85,7 +108,7 @@ describe("weather", () => {
       .where("visits.id", "=", visit.id)
       .executeTakeFirstOrThrow();
     await refreshWeather(
-      jsonWeatherProvider({ baseUrl: base }),
+      openMeteoProvider({ baseUrl: base }),
       property.latitude,
       property.longitude,
       addDays(today, -1),

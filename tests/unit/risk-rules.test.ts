@@ -30,6 +30,7 @@ const day = (date: string, o: Partial<RiskDay> = {}): RiskDay => ({
   rainIn: 0,
   tmean5dF: 71,
   rhMean5dPct: 72,
+  hourly: null,
   ...o,
 });
 const check = (date: string, o: Partial<CheckFacts> = {}): CheckFacts => ({
@@ -44,23 +45,27 @@ const check = (date: string, o: Partial<CheckFacts> = {}): CheckFacts => ({
 });
 const AT = "2026-07-20";
 const warmHumid = [day(AT, { tmean5dF: c2f(24), rhMean5dPct: 80 })];
-const cool = [day(AT, { tmean5dF: c2f(15), rhMean5dPct: 85 })];
+const cool = [day(AT, { tmean5dF: c2f(9), rhMean5dPct: 85 })]; // under the dollar spot model's 10 °C
 
-describe("matted canopy (common practice; Kansas State University extension)", () => {
+describe("matted canopy (common practice; weather from Smith et al. 2018 and Fidanza et al. 1996)", () => {
   const same3 = [
     check("2026-06-08", { mowingDirection: "same" }),
     check("2026-06-29", { mowingDirection: "same" }),
     check(AT, { mowingDirection: "same" }),
   ];
-  it("raises on three checks mowed the same way in warm humid weather", () => {
-    const r = mattedCanopy(same3, warmHumid, AT);
+  it("raises on three checks mowed the same way while dollar spot weather is at its 20 % threshold: low, marked common practice", () => {
+    const r = mattedCanopy(same3, warmHumid, AT, "cool");
     expect(r.raised).toBe(true);
     expect(r.evidence.values).toMatchObject({
       sameDirectionChecks: 3,
       tMean5dC: 24,
       rhMean5dPct: 80,
+      probabilityPct: 59.5, // logit −11.4041 + 0.0894·80 + 0.1932·24 = 0.385
+      practice: "common practice (no published threshold)",
     });
-    expect(r.severity).toBe("moderate");
+    expect(r.severity).toBe("low");
+    expect(r.source).toMatch(/^Common practice/);
+    expect(r.source).toMatch(/Smith et al\. \(2018\)/);
     expect(
       mattedCanopy(
         [
@@ -69,40 +74,80 @@ describe("matted canopy (common practice; Kansas State University extension)", (
         ],
         warmHumid,
         AT,
+        "cool",
       ).severity,
-    ).toBe("high"); // disease showing
-    expect(r.summary).toMatch(/Vary the mowing direction/);
+    ).toBe("moderate"); // disease showing: seen, not inferred
+    expect(r.summary).toMatch(/dollar spot weather at 60 %.*Vary the mowing direction/);
   });
-  it("raises on matting seen once, in warm humid weather", () => {
+  it("raises on matting seen once; the weather part follows the dollar spot model's own threshold", () => {
+    // At T5 20 °C the model's 20 % threshold is RH5 68.86 % (ln 0.25 = −11.4041 + 0.0894·RH + 0.1932·20).
+    const at = (rh5: number) => [day(AT, { tmean5dF: c2f(20), rhMean5dPct: rh5 })];
+    expect(mattedCanopy([check(AT, { isMatted: true })], at(69.5), AT, "warm")).toMatchObject({
+      raised: true,
+      severity: "low",
+    });
+    expect(mattedCanopy([check(AT, { isMatted: true })], at(68), AT, "warm").raised).toBe(false);
+  });
+  it("counts brown patch weather on cool-season turf only (Fidanza et al. 1996 was built on perennial ryegrass)", () => {
+    // Dollar spot under threshold (T5 9 °C is outside its range); brown patch index 6.80 the day before.
+    const days = [
+      day("2026-07-19", { rhMeanPct: 90, tminF: c2f(20), tmean5dF: c2f(9) }),
+      day(AT, { tmean5dF: c2f(9), rhMean5dPct: 85 }),
+    ];
+    expect(mattedCanopy(same3, days, AT, "cool")).toMatchObject({
+      raised: true,
+      evidence: { values: { highestIndex: 6.8 } },
+    });
+    expect(mattedCanopy(same3, days, AT, "warm").raised).toBe(false);
+  });
+  it("stays quiet with two same-way checks, a change of direction, weather under the models' thresholds, or none", () => {
+    expect(mattedCanopy(same3.slice(1), warmHumid, AT, "cool").raised).toBe(false);
     expect(
       mattedCanopy(
-        [check(AT, { isMatted: true })],
-        [day(AT, { tmean5dF: c2f(21), rhMean5dPct: 71 })],
+        [...same3.slice(0, 2), check(AT, { mowingDirection: "changed" })],
+        warmHumid,
         AT,
-      ),
-    ).toMatchObject({ raised: true, severity: "moderate" });
-  });
-  it("stays quiet with two same-way checks, a change of direction, or cool weather", () => {
-    expect(mattedCanopy(same3.slice(1), warmHumid, AT).raised).toBe(false);
-    expect(
-      mattedCanopy([...same3.slice(0, 2), check(AT, { mowingDirection: "changed" })], warmHumid, AT)
-        .raised,
+        "cool",
+      ).raised,
     ).toBe(false);
-    expect(mattedCanopy(same3, cool, AT).raised).toBe(false);
-    expect(mattedCanopy(same3, [day(AT, { tmean5dF: c2f(24), rhMean5dPct: 69 })], AT).raised).toBe(
-      false,
-    ); // RH just under 70 %
-    expect(mattedCanopy(same3, [], AT).raised).toBe(false); // no weather: no claim
+    expect(mattedCanopy(same3, cool, AT, "cool").raised).toBe(false);
+    // At T5 24 °C the threshold is RH5 60.2 %.
+    expect(
+      mattedCanopy(same3, [day(AT, { tmean5dF: c2f(24), rhMean5dPct: 59 })], AT, "cool").raised,
+    ).toBe(false);
+    expect(mattedCanopy(same3, [], AT, "cool").raised).toBe(false); // no weather: no claim
   });
 });
 
+/** Two local days of hours as the weather service gives them: `rh(i)` and `temp(i)` by hour 0–47. */
+function withHours(
+  first: RiskDay,
+  second: RiskDay,
+  temp: (i: number) => number,
+  rh: (i: number) => number,
+): RiskDay[] {
+  const hours = (offset: number) => ({
+    time: Array.from({ length: 24 }, (_, h) => `${String(h).padStart(2, "0")}:00`),
+    tempC: Array.from({ length: 24 }, (_, h) => temp(h + offset)),
+    rhPct: Array.from({ length: 24 }, (_, h) => rh(h + offset)),
+  });
+  return [
+    { ...first, hourly: hours(0) },
+    { ...second, hourly: hours(24) },
+  ];
+}
+
 describe("disease weather rules", () => {
-  it("dollar spot (Smith et al. 2018): raised at ≥ 20 %", () => {
-    expect(dollarSpotWeather([day(AT, { tmean5dF: c2f(20), rhMean5dPct: 80 })], AT)).toMatchObject({
+  it("dollar spot (Smith et al. 2018): raised at ≥ 20 %, naming the model and the golf-course bentgrass it was built on", () => {
+    const r = dollarSpotWeather([day(AT, { tmean5dF: c2f(20), rhMean5dPct: 80 })], AT);
+    expect(r).toMatchObject({
       raised: true,
       severity: "moderate",
       evidence: { values: { probabilityPct: 40.4 } },
     });
+    expect(r.evidence.values.builtOn).toMatch(/golf-course creeping bentgrass/);
+    expect(r.source).toMatch(/Built on golf-course creeping bentgrass/);
+    expect(r.summary).toMatch(/built on golf-course bentgrass/);
     expect(dollarSpotWeather([day(AT, { tmean5dF: c2f(20), rhMean5dPct: 65 })], AT).raised).toBe(
       false,
     );
@@ -110,13 +155,24 @@ describe("disease weather rules", () => {
       false,
     ); // outside 10–35 °C
   });
-  it("brown patch (Fidanza et al. 1996): raised at index ≥ 6 in the last 3 days", () => {
-    expect(
-      brownPatchWeather(
-        [day("2026-07-18", { rhMeanPct: 90, tminF: c2f(20) }), day("2026-07-19"), day(AT)],
-        AT,
-      ),
-    ).toMatchObject({ raised: true, evidence: { values: { on: "2026-07-18" } } });
+  it("brown patch (Fidanza et al. 1996): raised at index ≥ 6 in the last 3 days, for cool-season zones", () => {
+    const humid = [
+      day("2026-07-18", { rhMeanPct: 90, tminF: c2f(20) }),
+      day("2026-07-19"),
+      day(AT),
+    ];
+    const r = brownPatchWeather(humid, AT, ["Front lawn"]);
+    expect(r).toMatchObject({
+      raised: true,
+      evidence: { values: { on: "2026-07-18", highestIndex: 6.8, coolSeasonZones: "Front lawn" } },
+    });
+    expect(r.evidence.values.builtOn).toMatch(/perennial ryegrass/);
+    expect(r.summary).toMatch(/cool-season zones \(Front lawn\)/);
+    // The same weather on a lawn of zoysia and St. Augustine only: the model does not apply.
+    expect(brownPatchWeather(humid, AT, [])).toMatchObject({
+      raised: false,
+      evidence: { values: { highestIndex: null, coolSeasonZones: null } },
+    });
     expect(
       brownPatchWeather(
         [
@@ -126,15 +182,56 @@ describe("disease weather rules", () => {
           day(AT),
         ],
         AT,
+        ["Front lawn"],
       ).raised,
     ).toBe(false); // 4 days ago
-    expect(brownPatchWeather([day(AT, { rhMeanPct: 84, tminF: c2f(20) })], AT).raised).toBe(false);
+    expect(
+      brownPatchWeather([day(AT, { rhMeanPct: 84, tminF: c2f(20) })], AT, ["Front lawn"]).raised,
+    ).toBe(false);
   });
-  it("Pythium (Nutter et al. 1983): a hot day, a warm night and ≥ 14 h above 90 % RH", () => {
-    const hot = day(AT, { tmaxF: c2f(32), tminF: c2f(22), rhMinPct: 92, rhMaxPct: 100 });
-    expect(pythiumWeather([hot], AT)).toMatchObject({ raised: true, severity: "high" });
-    expect(pythiumWeather([{ ...hot, rhMinPct: 60 }], AT).raised).toBe(false); // (100 − 90)/40 × 24 = 6 h
-    expect(pythiumWeather([{ ...hot, tmaxF: c2f(30) }], AT).raised).toBe(false);
+  describe("Pythium (Nutter et al. 1983) on the service's hourly humidity", () => {
+    const hot = day("2026-07-19", { tmaxF: c2f(33), tminF: c2f(22), rhMinPct: 55, rhMaxPct: 97 });
+    const next = day(AT, { tmaxF: c2f(31), tminF: c2f(23), rhMinPct: 60, rhMaxPct: 97 });
+    const temp = (i: number) => (i < 15 ? 24 + i * 0.6 : i < 21 ? 33 - (i - 15) * 1.5 : 23.5);
+    it("raises for a hot day and 14 humid hours of the night after, though the day's RH range reads as a dry day", () => {
+      // 96 % from 19:00 to 08:59 the next morning; 55–79 % in the afternoon.
+      const days = withHours(hot, next, temp, (i) => (i >= 19 && i < 33 ? 96 : 55 + (i % 3)));
+      const r = pythiumWeather(days, AT);
+      expect(r).toMatchObject({
+        raised: true,
+        severity: "high",
+        evidence: {
+          values: { on: "2026-07-19", hoursRhAbove90: 14, nightMinC: 23.5, nightsJudged: 1 },
+        },
+      });
+      expect(r.evidence.values.builtOn).toMatch(/Pennsylvania/);
+      expect(r.summary).toMatch(/a high of 91 °F, then 14 hours above 90 % humidity/);
+    });
+    it("stays quiet when the humid hours were the night before the hot day", () => {
+      const days = withHours(hot, next, temp, (i) => (i < 10 ? 97 : 60));
+      expect(pythiumWeather(days, AT)).toMatchObject({
+        raised: false,
+        evidence: { values: { hoursRhAbove90: 0 } },
+      });
+    });
+    it("does not judge a night without hourly humidity, and says so", () => {
+      expect(pythiumWeather([hot, next], AT)).toMatchObject({
+        raised: false,
+        evidence: { values: { nightsJudged: 0, nightsWithoutHours: 1 } },
+      });
+    });
+    it("stays quiet for a cool night (low of 19 °C) and for a high of 30 °C", () => {
+      const humid = (i: number) => (i >= 19 && i < 33 ? 96 : 60);
+      expect(
+        pythiumWeather(
+          withHours(hot, next, (i) => (i === 28 ? 19 : temp(i)), humid),
+          AT,
+        ).raised,
+      ).toBe(false);
+      expect(
+        pythiumWeather(withHours({ ...hot, tmaxF: c2f(30) }, next, temp, humid), AT).raised,
+      ).toBe(false);
+    });
   });
 });
 
@@ -169,26 +266,36 @@ describe("drought stress (common practice: about 1 in of water a week)", () => {
   });
 });
 
-describe("feeding under heat stress (common practice)", () => {
+describe("feeding under heat stress (common practice; cool-season turf only)", () => {
   const app = { date: "2026-07-18", nLb: 0.7, productName: "Steadyfeed", findings: [] };
-  it("raises when the high reaches 90 °F within 2 days of the application with no rain", () => {
-    const days = [
-      day("2026-07-18", { tmaxF: 88 }),
-      day("2026-07-19", { tmaxF: 92 }),
-      day(AT, { tmaxF: 91 }),
-    ];
-    expect(heatFeeding([app], days, AT)).toMatchObject({
+  const hotDays = [
+    day("2026-07-18", { tmaxF: 88 }),
+    day("2026-07-19", { tmaxF: 92 }),
+    day(AT, { tmaxF: 91 }),
+  ];
+  it("raises on cool-season turf when the high reaches 90 °F within 2 days of the application with no rain", () => {
+    expect(heatFeeding([app], hotDays, AT, "cool")).toMatchObject({
       raised: true,
-      evidence: { values: { highestF: 92 } },
+      evidence: { values: { highestF: 92, season: "cool" } },
     });
   });
-  it("stays quiet with rain, cooler days, or an old application", () => {
-    expect(heatFeeding([app], [day("2026-07-18", { tmaxF: 93, rainIn: 0.4 })], AT).raised).toBe(
-      false,
+  it("stays quiet for warm-season turf fed in summer heat: 0.75 lb N on bermudagrass at 94 °F", () => {
+    const bermuda = { ...app, nLb: 0.75, productName: "Quickgreen 24-0-6" };
+    const r = heatFeeding([bermuda], [day("2026-07-18", { tmaxF: 94 })], AT, "warm");
+    expect(r.raised).toBe(false);
+    expect(r.evidence.threshold).toMatch(/warm-season grasses are fed in summer heat/);
+    expect(heatFeeding([bermuda], [day("2026-07-18", { tmaxF: 94 })], AT, "cool").raised).toBe(
+      true,
     );
-    expect(heatFeeding([app], [day("2026-07-18", { tmaxF: 89 })], AT).raised).toBe(false);
+  });
+  it("stays quiet with rain, cooler days, or an old application", () => {
     expect(
-      heatFeeding([{ ...app, date: "2026-07-01" }], [day("2026-07-01", { tmaxF: 95 })], AT).raised,
+      heatFeeding([app], [day("2026-07-18", { tmaxF: 93, rainIn: 0.4 })], AT, "cool").raised,
+    ).toBe(false);
+    expect(heatFeeding([app], [day("2026-07-18", { tmaxF: 89 })], AT, "cool").raised).toBe(false);
+    expect(
+      heatFeeding([{ ...app, date: "2026-07-01" }], [day("2026-07-01", { tmaxF: 95 })], AT, "cool")
+        .raised,
     ).toBe(false);
   });
 });

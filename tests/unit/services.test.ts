@@ -57,11 +57,12 @@ describe("createServices", () => {
 
   describe("WEATHER_BASE_URL against a service that answers 503", () => {
     let server: Server;
-    const seen: { auth: string | undefined }[] = [];
+    const seen: { path: string; apikey: string | null }[] = [];
     let base = "";
     beforeAll(async () => {
       server = createServer((req, res) => {
-        seen.push({ auth: req.headers.authorization });
+        const url = new URL(req.url ?? "/", "http://127.0.0.1");
+        seen.push({ path: url.pathname, apikey: url.searchParams.get("apikey") });
         res.writeHead(503).end();
       });
       await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
@@ -69,20 +70,28 @@ describe("createServices", () => {
     });
     afterAll(() => new Promise<void>((resolve) => server.close(() => resolve())));
 
-    it("the quick client tries once; the background client three times; both send the key", async () => {
+    it("the quick client tries once; the background client three times; both send the key as Open-Meteo's `apikey`", async () => {
       const s = createServices(
         parseServiceEnv({ WEATHER_BASE_URL: base, WEATHER_API_KEY: "k-123" }),
       );
+      const today = new Date().toISOString().slice(0, 10);
       seen.length = 0;
-      await expect(s.quickWeather!.daily(40, -74, "2026-06-01", "2026-06-02")).rejects.toThrow(
-        /answered 503/,
-      );
-      expect(seen).toEqual([{ auth: "Bearer k-123" }]);
+      await expect(s.quickWeather!.daily(40, -74, today, today)).rejects.toThrow(/answered 503/);
+      expect(seen).toEqual([{ path: "/v1/forecast", apikey: "k-123" }]);
       seen.length = 0;
-      await expect(s.weather!.daily(40, -74, "2026-06-01", "2026-06-02")).rejects.toThrow(
-        /answered 503/,
-      );
+      await expect(s.weather!.daily(40, -74, today, today)).rejects.toThrow(/answered 503/);
       expect(seen.length).toBe(3);
+    });
+
+    it("asks the archive (WEATHER_ARCHIVE_URL) for days older than the forecast endpoint keeps", async () => {
+      const s = createServices(
+        parseServiceEnv({ WEATHER_BASE_URL: "http://127.0.0.1:9", WEATHER_ARCHIVE_URL: base }),
+      );
+      seen.length = 0;
+      await expect(s.quickWeather!.daily(40, -74, "2024-06-01", "2024-06-02")).rejects.toThrow(
+        /answered 503/,
+      );
+      expect(seen).toEqual([{ path: "/v1/archive", apikey: null }]);
     });
   });
 });
