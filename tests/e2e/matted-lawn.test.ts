@@ -184,7 +184,8 @@ describe("matted canopy alert", () => {
     await alerts.scrollIntoViewIfNeeded();
     await snap(page, "alert-01-visit-summary", true);
     await context.close();
-  });
+    // A whole visit with a photo upload: 30 s on a loaded 2-core machine (load average 12–17).
+  }, 60_000);
 
   it("the manager acknowledges it with a note, then resolves it", async () => {
     const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
