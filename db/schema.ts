@@ -54,12 +54,22 @@ interface RuleSetsTable {
   max_n_lb_per_1000: number | null;
   max_wsn_lb_per_1000: number | null;
   min_slow_release_pct: number | null;
-  pro_blackout_start: string | null;
-  pro_blackout_end: string | null;
-  homeowner_blackout_start: string | null;
-  homeowner_blackout_end: string | null;
+  /** No fertilizer after this month-day (the day itself allowed), as the statute words it. */
+  pro_no_fertilizer_after: string | null;
+  /** …nor before this month-day (the day itself allowed). */
+  pro_no_fertilizer_before: string | null;
+  homeowner_no_fertilizer_after: string | null;
+  homeowner_no_fertilizer_before: string | null;
   phosphorus_rule: Generated<PhosphorusRule>;
   soil_test_max_age_years: number | null;
+  phosphorus_exempt_establishment: Generated<boolean>;
+  phosphorus_exempt_repair: Generated<boolean>;
+  /** The section that states each limit ("" when the rule set has none). */
+  n_limits_source: Generated<string>;
+  blackout_source: Generated<string>;
+  phosphorus_source: Generated<string>;
+  /** Non-empty when the rule set names frozen or saturated ground and heavy rain. */
+  conditions_source: Generated<string>;
   record_retention_years: Generated<number>;
   record_required_fields: ColumnType<string[], string[] | undefined, string[]>;
   record_fields_apply_to: Generated<"pesticides" | "all">;
@@ -68,6 +78,18 @@ interface RuleSetsTable {
 }
 
 export type ProductFormValue = "granular" | "liquid" | "soluble";
+export type NitrogenRelease = "quick" | "slow_release" | "organic";
+export type RateUnitValue =
+  | "lb/1000ft2"
+  | "oz/1000ft2"
+  | "floz/1000ft2"
+  | "gal/1000ft2"
+  | "kg/ha"
+  | "g/m2"
+  | "lb/acre"
+  | "L/ha";
+type OverrideCategoryValue =
+  "documented_exemption" | "research_plot" | "regulator_permission" | "other";
 
 interface ProductsTable {
   id: Generated<string>;
@@ -83,6 +105,13 @@ interface ProductsTable {
   registration_number: Generated<string>;
   label_cautions: Generated<string>;
   reentry_guidance: Generated<string>;
+  /** The label's maximum rate per application, in label_rate_unit. */
+  label_max_rate: number | null;
+  label_rate_unit: RateUnitValue | null;
+  /** The label's maximum per year (365 days), in label_rate_unit. */
+  label_max_yearly: number | null;
+  label_min_interval_days: number | null;
+  n_release: Generated<NitrogenRelease>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
 }
@@ -94,15 +123,7 @@ interface ApplicationsTable {
   zone_id: string;
   product_id: string;
   rate_amount: number;
-  rate_unit:
-    | "lb/1000ft2"
-    | "oz/1000ft2"
-    | "floz/1000ft2"
-    | "gal/1000ft2"
-    | "kg/ha"
-    | "g/m2"
-    | "lb/acre"
-    | "L/ha";
+  rate_unit: RateUnitValue;
   area_ft2: number;
   product_total_lb: number;
   product_total_gal: number | null;
@@ -115,10 +136,12 @@ interface ApplicationsTable {
   wind_mph: number | null;
   temperature_f: number | null;
   is_establishing: Generated<boolean>;
+  is_repairing: Generated<boolean>;
   applicator_name: Generated<string>;
   applicator_licence: Generated<string>;
   findings: ColumnType<unknown[], string, string>;
   override_reason: string | null;
+  override_category: OverrideCategoryValue | null;
   override_by: string | null;
   created_by: string | null;
   created_at: Generated<Date>;

@@ -12,16 +12,21 @@ import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
 import {
-  isVolumeUnit,
   nutrientsPer1000,
   productForArea,
-  rateForNitrogen,
+  proposeRateForNitrogen,
   type RateUnit,
 } from "@/lib/agronomy/nutrients";
-import { checkApplication, type RuleFinding } from "@/lib/agronomy/rules";
+import type { RuleFinding } from "@/lib/agronomy/rules";
+import { assessApplication, labelUnitLb } from "@/lib/applications/assess";
 import type { ApplicationDto } from "@/lib/applications/dto";
 import { applicationSchema } from "@/lib/applications/schemas";
-import { RATE_UNIT_LABEL, RATE_UNITS } from "@/lib/applications/units";
+import {
+  OVERRIDE_CATEGORIES,
+  OVERRIDE_CATEGORY_LABEL,
+  RATE_UNIT_LABEL,
+  rateUnitsFor,
+} from "@/lib/applications/units";
 import { todayIn } from "@/lib/dates";
 import { analysisOf, type ProductDto } from "@/lib/products/dto";
 import { productKeys } from "@/lib/products/query-keys";
@@ -140,7 +145,12 @@ function Findings({ findings }: { findings: RuleFinding[] }) {
             ) : (
               <TriangleAlert className="size-4 text-sun" aria-hidden="true" />
             )}
-            {f.severity === "refusal" ? "Refused — legal limit" : "Warning"}: {f.message}
+            {f.severity === "refusal"
+              ? f.basis === "label"
+                ? "Refused — product label (no override)"
+                : "Refused — legal limit"
+              : "Warning"}
+            : {f.message}
           </p>
           <p className="mt-1 text-muted">{f.source}</p>
         </li>
@@ -170,8 +180,14 @@ export function ApplicationPanel({
   isManager: boolean;
   disabled: boolean;
   onRecorded: (a: ApplicationDto) => void;
-  /** The visit's weather snapshot: prefills temperature and wind (editable). */
-  weather: { tmaxF: number; windMph: number | null } | null;
+  /** The visit's weather snapshot: prefills temperature and wind (editable), and feeds the checks. */
+  weather: {
+    tmaxF: number;
+    tminF?: number;
+    precipIn?: number;
+    isForecast?: boolean;
+    windMph: number | null;
+  } | null;
 }) {
   const products = useQuery({
     queryKey: productKeys.list(),
@@ -185,6 +201,7 @@ export function ApplicationPanel({
   const [targetN, setTargetN] = useState("");
   const [serverFindings, setServerFindings] = useState<RuleFinding[] | null>(null);
   const [message, setMessage] = useState<string | null>(null);
+  const [proposal, setProposal] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -204,49 +221,100 @@ export function ApplicationPanel({
       temperatureF: weather ? Math.round(weather.tmaxF) : null,
       windMph: weather?.windMph ?? null,
       isEstablishing: false,
+      isRepairing: false,
       applicatorName: "",
       applicatorLicence: "",
       overrideReason: "",
+      overrideCategory: null,
     },
   });
-  const [productId, rateAmount, unit, isEstablishing, overrideReason] = useWatch({
-    control,
-    name: ["productId", "rateAmount", "rateUnit", "isEstablishing", "overrideReason"],
-  });
+  const [productId, rateAmount, unit, isEstablishing, isRepairing, overrideReason, category] =
+    useWatch({
+      control,
+      name: [
+        "productId",
+        "rateAmount",
+        "rateUnit",
+        "isEstablishing",
+        "isRepairing",
+        "overrideReason",
+        "overrideCategory",
+      ],
+    });
   const forgetServerFindings = () => setServerFindings(null);
 
   const product = products.data?.find((p) => p.id === productId);
   const ruleSet = ruleSets.data?.find((r) => r.id === ruleSetId) ?? null;
   const hasRate = product !== undefined && typeof rateAmount === "number" && rateAmount > 0;
-  const units = RATE_UNITS.filter((u) => !isVolumeUnit(u) || product?.densityLbPerGal);
+  // A liquid is measured by volume only; weight units are named as such.
+  const units = product
+    ? rateUnitsFor(product)
+    : rateUnitsFor({ form: "granular", densityLbPerGal: null });
 
-  // A preview of the rule checks (the server repeats them with the zone's year-to-date N and soil test).
-  const preview = product && hasRate ? computeMaths(product, rateAmount, unit, areaFt2).n : null;
-  const liveFindings: RuleFinding[] =
-    product && preview && ruleSet
-      ? checkApplication(ruleSet, {
+  // A preview of the checks (the server repeats them with the zone's whole history, its
+  // year-to-date N and the soil test): the rule set on today's date and the product label.
+  let liveFindings: RuleFinding[] = [];
+  if (product && hasRate && units.includes(unit)) {
+    try {
+      liveFindings = assessApplication({
+        product,
+        rate: { amount: rateAmount, unit },
+        areaFt2,
+        ruleSet,
+        facts: {
           appliedOn: todayIn(timeZone),
-          byProfessional: true,
-          nPct: product.nPct,
-          nLb: preview.nLb,
-          wsnLb: preview.wsnLb,
-          p2o5Lb: preview.p2o5Lb,
-          slowReleasePctOfN: product.slowReleasePctOfN,
           isEstablishing: isEstablishing ?? false,
+          isRepairing: isRepairing ?? false,
           soilTestOn: null,
           yearToDateNLb: 0,
           annualNRange: null,
-        })
-      : [];
+          weather: weather
+            ? {
+                tminF: weather.tminF ?? null,
+                precipIn: weather.precipIn ?? null,
+                isForecast: weather.isForecast ?? false,
+              }
+            : null,
+        },
+        sameProductOnZone: applications
+          .filter((a) => a.zoneId === zoneId && a.product.id === product.id)
+          .map((a) => ({
+            appliedOn: a.appliedOn,
+            productLbPer1000: (a.productTotalLb / a.areaFt2) * 1000,
+          })),
+      }).findings;
+    } catch {
+      liveFindings = []; // the maths box already says what is wrong with the rate
+    }
+  }
+
+  function chooseProduct(id: string) {
+    forgetServerFindings();
+    setProposal(null);
+    const next = products.data?.find((p) => p.id === id);
+    if (next && !rateUnitsFor(next).includes(unit)) setValue("rateUnit", rateUnitsFor(next)[0]!);
+  }
 
   function proposeFromTarget(value: string) {
     setTargetN(value);
+    setProposal(null);
     const target = Number(value);
     if (!product || !(target > 0)) return;
     try {
-      const rate = rateForNitrogen(analysisOf(product), target);
+      const unitLb = labelUnitLb(product);
+      const maxLb =
+        unitLb !== null && product.labelMaxRate !== null ? unitLb * product.labelMaxRate : null;
+      const { rate, cappedByLabel } = proposeRateForNitrogen(analysisOf(product), target, maxLb);
+      // Rounded down when capped, so the proposal never exceeds the label.
+      const amount = cappedByLabel
+        ? Math.floor(rate.amount * 100) / 100
+        : Math.round(rate.amount * 100) / 100;
       setValue("rateUnit", rate.unit);
-      setValue("rateAmount", Math.round(rate.amount * 100) / 100);
+      setValue("rateAmount", amount);
+      if (cappedByLabel)
+        setProposal(
+          `Capped at the label's maximum of ${product.labelMaxRate} ${RATE_UNIT_LABEL[product.labelRateUnit!]} per application: ${f2(nutrientsPer1000(analysisOf(product), { amount, unit: rate.unit }).nLb)} lb N per 1,000 ft², not ${target}.`,
+        );
     } catch (err) {
       setMessage(err instanceof Error ? err.message : null);
     }
@@ -261,6 +329,7 @@ export function ApplicationPanel({
         {
           ...values,
           overrideReason: withOverride && values.overrideReason ? values.overrideReason : null,
+          overrideCategory: withOverride ? (values.overrideCategory ?? null) : null,
         },
       );
       if (result.ok) {
@@ -273,6 +342,7 @@ export function ApplicationPanel({
           id: crypto.randomUUID(),
           rateAmount: null as unknown as number,
           overrideReason: "",
+          overrideCategory: null,
         });
         return;
       }
@@ -284,6 +354,10 @@ export function ApplicationPanel({
   const here = applications.filter((a) => a.zoneId === zoneId);
   const shownFindings = serverFindings ?? liveFindings;
   const isRefusedNow = shownFindings.some((f) => f.severity === "refusal");
+  const isLabelRefusedNow = shownFindings.some(
+    (f) => f.severity === "refusal" && f.basis === "label",
+  );
+  const canOverride = isRefusedNow && !isLabelRefusedNow && isManager;
 
   return (
     <div className="space-y-3">
@@ -301,7 +375,10 @@ export function ApplicationPanel({
               </p>
               {a.overrideReason ? (
                 <p className="mt-1 font-semibold text-clay">
-                  Legal limit overridden by {a.overrideBy}: {a.overrideReason}
+                  Legal limit overridden by {a.overrideBy}
+                  {a.overrideCategory
+                    ? ` (${OVERRIDE_CATEGORY_LABEL[a.overrideCategory]})`
+                    : ""}: {a.overrideReason}
                 </p>
               ) : null}
               {a.findings
@@ -335,7 +412,7 @@ export function ApplicationPanel({
           <Field id={`${zoneId}-product`} label="Product" error={errors.productId?.message}>
             <select
               id={`${zoneId}-product`}
-              {...register("productId", { onChange: forgetServerFindings })}
+              {...register("productId", { onChange: (e) => chooseProduct(e.target.value) })}
               aria-invalid={errors.productId ? true : undefined}
               className={inputClass}
             >
@@ -362,6 +439,22 @@ export function ApplicationPanel({
                 placeholder="e.g. 0.75"
               />
             </Field>
+          ) : null}
+          {proposal ? (
+            <p role="status" className="rounded-lg bg-sun-tint p-3 text-sm font-semibold">
+              {proposal}
+            </p>
+          ) : null}
+          {product && product.labelMaxRate !== null && product.labelRateUnit ? (
+            <p className="text-sm text-muted">
+              Label: at most {product.labelMaxRate} {RATE_UNIT_LABEL[product.labelRateUnit]} per
+              application
+              {product.labelMaxYearly !== null ? `, ${product.labelMaxYearly} a year` : ""}
+              {product.labelMinIntervalDays !== null
+                ? `, ${product.labelMinIntervalDays} days apart`
+                : ""}
+              .
+            </p>
           ) : null}
           <div className="grid grid-cols-[1fr_auto] gap-2">
             <Field
@@ -426,10 +519,27 @@ export function ApplicationPanel({
               />
             </Field>
           </div>
-          <label className="flex min-h-tap items-center gap-2 font-semibold">
-            <input type="checkbox" {...register("isEstablishing")} className="size-6" />
-            Establishing or repairing turf (seeding, sodding)
-          </label>
+          <fieldset className="space-y-1">
+            <legend className="font-semibold">
+              Turf being established (phosphorus exemptions)
+            </legend>
+            <label className="flex min-h-tap items-center gap-2">
+              <input
+                type="checkbox"
+                {...register("isEstablishing", { onChange: forgetServerFindings })}
+                className="size-6"
+              />
+              First establishment: new seeding or sod
+            </label>
+            <label className="flex min-h-tap items-center gap-2">
+              <input
+                type="checkbox"
+                {...register("isRepairing", { onChange: forgetServerFindings })}
+                className="size-6"
+              />
+              Repair or re-establishment of a turf area (overseeding thin turf)
+            </label>
+          </fieldset>
           {product?.isPesticide ? (
             <div className="grid gap-2 sm:grid-cols-2">
               <Field
@@ -461,30 +571,62 @@ export function ApplicationPanel({
               {message}
             </p>
           ) : null}
-          {isRefusedNow && isManager ? (
-            <Field
-              id={`${zoneId}-override`}
-              label="Override reason (managers; kept in the audit trail)"
-            >
-              <textarea
+          {isLabelRefusedNow ? (
+            <p className="rounded-lg bg-clay-tint p-3 font-semibold text-clay">
+              The label is the law: an application above the label cannot be recorded, by anyone.
+              Lower the rate or choose another product.
+            </p>
+          ) : null}
+          {canOverride ? (
+            <>
+              <Field
+                id={`${zoneId}-override-category`}
+                label="Override category"
+                error={errors.overrideCategory?.message}
+              >
+                <select
+                  id={`${zoneId}-override-category`}
+                  {...register("overrideCategory", {
+                    setValueAs: (v: string | null) => (v ? v : null),
+                  })}
+                  className={inputClass}
+                >
+                  <option value="">Choose why the override applies</option>
+                  {OVERRIDE_CATEGORIES.map((c) => (
+                    <option key={c} value={c}>
+                      {OVERRIDE_CATEGORY_LABEL[c]}
+                    </option>
+                  ))}
+                </select>
+              </Field>
+              <Field
                 id={`${zoneId}-override`}
-                rows={2}
-                {...register("overrideReason")}
-                className={inputClass}
-              />
-            </Field>
+                label="Override reason (managers; kept in the audit trail)"
+              >
+                <textarea
+                  id={`${zoneId}-override`}
+                  rows={2}
+                  {...register("overrideReason")}
+                  className={inputClass}
+                />
+              </Field>
+            </>
           ) : null}
           <div className="flex flex-wrap gap-2">
-            {isRefusedNow && isManager ? (
+            {canOverride ? (
               <Button
                 type="button"
-                disabled={isSaving || !overrideReason?.trim()}
+                disabled={isSaving || !overrideReason?.trim() || !category}
                 onClick={record(true)}
               >
                 Record with override
               </Button>
             ) : (
-              <Button type="button" disabled={isSaving || !hasRate} onClick={record(false)}>
+              <Button
+                type="button"
+                disabled={isSaving || !hasRate || isLabelRefusedNow}
+                onClick={record(false)}
+              >
                 {isSaving ? "Recording…" : "Record application"}
               </Button>
             )}

@@ -32,7 +32,7 @@ export function SafetyCautions({
         </li>
         <li>Do not apply before heavy rain or on frozen or saturated ground.</li>
         <li>
-          Local fertiliser ordinances, applicator licensing and the label take precedence over
+          Local fertilizer ordinances, applicator licensing and the label take precedence over
           Sward&apos;s numbers.
         </li>
       </ul>

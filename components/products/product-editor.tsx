@@ -1,7 +1,9 @@
 "use client";
 
-// Add or edit a catalogue product (manager): guaranteed analysis, slow-release share, density for
-// liquids, label cautions and re-entry; pesticides carry their registration number.
+// Add or edit a catalogue product (manager): guaranteed analysis, how its N is released (the
+// slow-release or water-insoluble share from the label), density for liquids, the label's limits
+// (maximum rate per application, per year, days between applications), label cautions and
+// re-entry; pesticides carry their registration number.
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod/mini";
@@ -9,6 +11,7 @@ import type { z } from "zod/mini";
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { RATE_UNIT_LABEL, rateUnitsFor } from "@/lib/applications/units";
 import type { ProductDto } from "@/lib/products/dto";
 import { productSchema } from "@/lib/products/schemas";
 
@@ -41,11 +44,22 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
           registrationNumber: "",
           labelCautions: "",
           reentryGuidance: "",
+          nRelease: "quick",
+          labelMaxRate: null,
+          labelRateUnit: null,
+          labelMaxYearly: null,
+          labelMinIntervalDays: null,
         },
   });
   const p = product ? `product-${product.id}` : "product-new";
   const form = useWatch({ control, name: "form" });
   const isPesticide = useWatch({ control, name: "isPesticide" });
+  const nRelease = useWatch({ control, name: "nRelease" });
+  const density = useWatch({ control, name: "densityLbPerGal" });
+  const labelUnits = rateUnitsFor({
+    form: form ?? "granular",
+    densityLbPerGal: typeof density === "number" ? density : null,
+  });
 
   async function onSubmit(values: FormOut) {
     setMessage(null);
@@ -109,9 +123,22 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
         </Field>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
+        <Field id={`${p}-release`} label="How the N is released" error={err("nRelease")}>
+          <select id={`${p}-release`} {...register("nRelease")} className={inputClass}>
+            <option value="quick">Quick-release (soluble) N</option>
+            <option value="slow_release">Slow- or controlled-release N</option>
+            <option value="organic">Organic (natural) N</option>
+          </select>
+        </Field>
         <Field
           id={`${p}-slow`}
-          label="Slow-release share of N (%)"
+          label={
+            nRelease === "organic"
+              ? "Water-insoluble share of N (%, from the label)"
+              : nRelease === "slow_release"
+                ? "Slow-release share of N (%, from the label)"
+                : "Slow-release share of N (%)"
+          }
           error={err("slowReleasePctOfN")}
         >
           <input
@@ -136,6 +163,59 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
           </Field>
         ) : null}
       </div>
+      <fieldset className="grid gap-3 rounded-lg border border-line p-3 sm:grid-cols-2">
+        <legend className="px-1 font-bold">Label limits (the label is the law)</legend>
+        <Field
+          id={`${p}-labelmax`}
+          label="Maximum rate per application"
+          error={err("labelMaxRate")}
+        >
+          <input
+            id={`${p}-labelmax`}
+            inputMode="decimal"
+            {...register("labelMaxRate", { setValueAs: numberOrNull })}
+            className={inputClass}
+          />
+        </Field>
+        <Field id={`${p}-labelunit`} label="Label's unit" error={err("labelRateUnit")}>
+          <select
+            id={`${p}-labelunit`}
+            {...register("labelRateUnit", { setValueAs: (v: string | null) => (v ? v : null) })}
+            className={inputClass}
+          >
+            <option value="">Choose the unit</option>
+            {labelUnits.map((u) => (
+              <option key={u} value={u}>
+                {RATE_UNIT_LABEL[u]}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field
+          id={`${p}-labelyear`}
+          label="Maximum per year (same unit; empty if none)"
+          error={err("labelMaxYearly")}
+        >
+          <input
+            id={`${p}-labelyear`}
+            inputMode="decimal"
+            {...register("labelMaxYearly", { setValueAs: numberOrNull })}
+            className={inputClass}
+          />
+        </Field>
+        <Field
+          id={`${p}-labelinterval`}
+          label="Days between applications (at least; empty if none)"
+          error={err("labelMinIntervalDays")}
+        >
+          <input
+            id={`${p}-labelinterval`}
+            inputMode="numeric"
+            {...register("labelMinIntervalDays", { setValueAs: numberOrNull })}
+            className={inputClass}
+          />
+        </Field>
+      </fieldset>
       <label className="flex min-h-tap items-center gap-2 font-semibold">
         <input type="checkbox" {...register("isPesticide")} className="size-6" />
         This is a pesticide (records then ask for the applicator&apos;s licence)
@@ -153,7 +233,11 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
           className={inputClass}
         />
       </Field>
-      <Field id={`${p}-reentry`} label="Re-entry guidance" error={err("reentryGuidance")}>
+      <Field
+        id={`${p}-reentry`}
+        label="Re-entry / keep-off instruction (from the label)"
+        error={err("reentryGuidance")}
+      >
         <input id={`${p}-reentry`} {...register("reentryGuidance")} className={inputClass} />
       </Field>
       <div className="flex gap-2">

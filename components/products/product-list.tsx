@@ -5,6 +5,7 @@ import { Archive, PencilLine, Plus } from "lucide-react";
 import { useState } from "react";
 
 import { Button } from "@/components/ui/button";
+import { RATE_UNIT_LABEL } from "@/lib/applications/units";
 import type { ProductDto } from "@/lib/products/dto";
 
 import { ProductEditor } from "./product-editor";
@@ -60,10 +61,17 @@ export function ProductList() {
               <p className="text-muted">
                 {FORM[p.form]}
                 {p.slowReleasePctOfN
-                  ? ` · ${p.slowReleasePctOfN} % of N slow-release`
-                  : " · all N water-soluble"}
+                  ? ` · ${p.slowReleasePctOfN} % of N ${p.nRelease === "organic" ? "water-insoluble" : "slow-release"}`
+                  : p.nPct > 0
+                    ? " · all N water-soluble"
+                    : ""}
                 {p.densityLbPerGal ? ` · ${p.densityLbPerGal} lb/gal` : ""}
                 {p.isPesticide ? ` · pesticide, reg. ${p.registrationNumber}` : ""}
+              </p>
+              <p className="mt-1 text-sm">
+                {p.labelMaxRate !== null && p.labelRateUnit
+                  ? `Label: at most ${p.labelMaxRate} ${RATE_UNIT_LABEL[p.labelRateUnit]} per application${p.labelMaxYearly !== null ? `, ${p.labelMaxYearly} a year` : ""}${p.labelMinIntervalDays !== null ? `, ${p.labelMinIntervalDays} days apart` : ""}.`
+                  : "No label limits entered: applications of it are checked only against the rule set."}
               </p>
               {p.labelCautions ? <p className="mt-2 text-sm">{p.labelCautions}</p> : null}
               <div className="mt-3 flex gap-2">

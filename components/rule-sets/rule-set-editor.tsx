@@ -1,7 +1,8 @@
 "use client";
 
-// Edit or add a fertiliser rule set (manager): limits per application, blackout windows,
-// phosphorus rule, and the citation shown with every refusal.
+// Edit or add a fertiliser rule set (manager): limits per application, the dates with no
+// fertilizer in the statute's own words ("after … or before …"), the phosphorus rule with its
+// exemptions, and the section that states each limit (shown with every refusal).
 import { useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import type { z } from "zod/mini";
@@ -58,6 +59,12 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
       homeownerBlackout: ruleSet?.homeownerBlackout ?? ["", ""],
       phosphorusRule: ruleSet?.phosphorusRule ?? "allowed",
       soilTestMaxAgeYears: ruleSet?.soilTestMaxAgeYears ?? null,
+      phosphorusExemptEstablishment: ruleSet?.phosphorusExemptEstablishment ?? true,
+      phosphorusExemptRepair: ruleSet?.phosphorusExemptRepair ?? false,
+      nLimitsSource: ruleSet?.nLimitsSource ?? "",
+      blackoutSource: ruleSet?.blackoutSource ?? "",
+      phosphorusSource: ruleSet?.phosphorusSource ?? "",
+      conditionsSource: ruleSet?.conditionsSource ?? "",
       recordRetentionYears: ruleSet?.recordRetentionYears ?? 3,
       recordRequiredFields: ruleSet?.recordRequiredFields ?? [
         "applicator_name",
@@ -144,30 +151,42 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
           />
         </Field>
       </div>
+      <Field
+        id={`${p}-nsource`}
+        label="Section stating these N limits"
+        error={errors.nLimitsSource?.message}
+      >
+        <input id={`${p}-nsource`} {...register("nLimitsSource")} className={inputClass} />
+      </Field>
       <fieldset className="grid gap-3 rounded-lg border border-line p-3 sm:grid-cols-2">
         <legend className="px-1 font-bold">
-          Blackout windows (month-day, inclusive; empty for none)
+          No fertilizer after – or before (month-day, as the law words it: both days themselves
+          allowed; empty for none)
         </legend>
-        <Field id={`${p}-pro`} label="Professionals: from – to" error={windowError("proBlackout")}>
+        <Field
+          id={`${p}-pro`}
+          label="Professionals: after – before"
+          error={windowError("proBlackout")}
+        >
           <div className="flex gap-2">
             <input
               id={`${p}-pro`}
               placeholder="12-01"
               {...register("proBlackout.0")}
               className={inputClass}
-              aria-label="Professional blackout from"
+              aria-label="Professionals: no fertilizer after"
             />
             <input
               placeholder="03-01"
               {...register("proBlackout.1")}
               className={inputClass}
-              aria-label="Professional blackout to"
+              aria-label="Professionals: nor before"
             />
           </div>
         </Field>
         <Field
           id={`${p}-home`}
-          label="Homeowners: from – to"
+          label="Homeowners: after – before"
           error={windowError("homeownerBlackout")}
         >
           <div className="flex gap-2">
@@ -176,15 +195,29 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
               placeholder="11-15"
               {...register("homeownerBlackout.0")}
               className={inputClass}
-              aria-label="Homeowner blackout from"
+              aria-label="Homeowners: no fertilizer after"
             />
             <input
               placeholder="03-01"
               {...register("homeownerBlackout.1")}
               className={inputClass}
-              aria-label="Homeowner blackout to"
+              aria-label="Homeowners: nor before"
             />
           </div>
+        </Field>
+        <Field
+          id={`${p}-bsource`}
+          label="Section stating these dates"
+          error={errors.blackoutSource?.message}
+        >
+          <input id={`${p}-bsource`} {...register("blackoutSource")} className={inputClass} />
+        </Field>
+        <Field
+          id={`${p}-csource`}
+          label="Section naming frozen or saturated ground and heavy rain (empty if none)"
+          error={errors.conditionsSource?.message}
+        >
+          <input id={`${p}-csource`} {...register("conditionsSource")} className={inputClass} />
         </Field>
       </fieldset>
       <div className="grid gap-3 sm:grid-cols-2">
@@ -192,7 +225,7 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
           <select id={`${p}-phos`} {...register("phosphorusRule")} className={inputClass}>
             <option value="allowed">Allowed</option>
             <option value="soil_test_or_establishment">
-              Only with a soil test showing need, or when establishing turf
+              Only with a soil test showing need, or an exemption below
             </option>
           </select>
         </Field>
@@ -207,6 +240,25 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
             {...register("soilTestMaxAgeYears", { setValueAs: numberOrNull })}
             className={inputClass}
           />
+        </Field>
+        <label className="flex min-h-tap items-center gap-2">
+          <input
+            type="checkbox"
+            {...register("phosphorusExemptEstablishment")}
+            className="size-6"
+          />
+          Exempt: first establishment of turf (seeding or sodding)
+        </label>
+        <label className="flex min-h-tap items-center gap-2">
+          <input type="checkbox" {...register("phosphorusExemptRepair")} className="size-6" />
+          Exempt: repair or re-establishment of turf
+        </label>
+        <Field
+          id={`${p}-psource`}
+          label="Section stating the phosphorus rule"
+          error={errors.phosphorusSource?.message}
+        >
+          <input id={`${p}-psource`} {...register("phosphorusSource")} className={inputClass} />
         </Field>
       </div>
       <fieldset className="space-y-3 rounded-lg border border-line p-3">

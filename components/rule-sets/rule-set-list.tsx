@@ -5,6 +5,7 @@ import { Gavel, PencilLine, Plus } from "lucide-react";
 import { useState } from "react";
 
 import { Button } from "@/components/ui/button";
+import { monthDayWords } from "@/lib/agronomy/rules";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 
 import { RuleSetEditor } from "./rule-set-editor";
@@ -17,13 +18,23 @@ function describe(r: RuleSetDto): string[] {
   if (r.maxWsnLbPer1000 !== null) out.push(`at most ${r.maxWsnLbPer1000} lb water-soluble N`);
   if (r.minSlowReleasePct !== null) out.push(`at least ${r.minSlowReleasePct} % slow-release N`);
   if (r.proBlackout)
-    out.push(`no fertiliser by professionals ${r.proBlackout[0]} to ${r.proBlackout[1]}`);
-  if (r.homeownerBlackout)
-    out.push(`no fertiliser by homeowners ${r.homeownerBlackout[0]} to ${r.homeownerBlackout[1]}`);
-  if (r.phosphorusRule === "soil_test_or_establishment")
     out.push(
-      `phosphorus only with a soil test${r.soilTestMaxAgeYears ? ` (within ${r.soilTestMaxAgeYears} years)` : ""} or when establishing`,
+      `no fertilizer by professionals after ${monthDayWords(r.proBlackout[0])} or before ${monthDayWords(r.proBlackout[1])}`,
     );
+  if (r.homeownerBlackout)
+    out.push(
+      `no fertilizer by homeowners after ${monthDayWords(r.homeownerBlackout[0])} or before ${monthDayWords(r.homeownerBlackout[1])}`,
+    );
+  if (r.conditionsSource) out.push("not on frozen or saturated ground, nor before heavy rain");
+  if (r.phosphorusRule === "soil_test_or_establishment") {
+    const exempt = [
+      r.phosphorusExemptEstablishment ? "first establishment" : "",
+      r.phosphorusExemptRepair ? "repair" : "",
+    ].filter(Boolean);
+    out.push(
+      `phosphorus only with a soil test${r.soilTestMaxAgeYears ? ` no more than ${r.soilTestMaxAgeYears} years old` : ""}${exempt.length ? ` or for ${exempt.join(" or ")}` : ""}`,
+    );
+  }
   out.push(
     `records kept ${r.recordRetentionYears} years; ${r.recordRequiredFields.length ? `${r.recordFieldsApplyTo === "all" ? "every application" : "pesticide applications"} need ${r.recordRequiredFields.map((f) => f.replaceAll("_", " ")).join(", ")}` : "no extra record fields"}`,
   );

@@ -57,7 +57,13 @@ export function ZoneCheckForm({
   isManager,
   weather,
 }: {
-  weather: { tmaxF: number; windMph: number | null } | null;
+  weather: {
+    tmaxF: number;
+    tminF?: number;
+    precipIn?: number;
+    isForecast?: boolean;
+    windMph: number | null;
+  } | null;
   applications: ApplicationDto[];
   onApplicationRecorded: (application: ApplicationDto) => void;
   ruleSetId: string | null;

@@ -32,6 +32,13 @@ import type { WeatherProvider } from "@/lib/services/weather/provider";
 import { weatherFromCache } from "@/lib/weather/cache";
 import { deriveDays } from "@/lib/weather/derived";
 
+/** The first month-day a rule set forbids: the day after its "no fertilizer after" day. */
+function firstForbiddenDay(after: string | null): string | null {
+  if (after === null) return null;
+  const d = new Date(Date.UTC(2000, Number(after.slice(0, 2)) - 1, Number(after.slice(3)) + 1));
+  return d.toISOString().slice(5, 10);
+}
+
 export interface EvaluationSummary {
   propertyId: string;
   at: string;
@@ -89,7 +96,7 @@ async function propertyRuleResults(
       "properties.time_zone",
       "rule_sets.name as rule_set_name",
       "rule_sets.citation as rule_set_citation",
-      "rule_sets.pro_blackout_start",
+      "rule_sets.pro_no_fertilizer_after",
     ])
     .where("properties.company_id", "=", companyId)
     .where("properties.id", "=", propertyId)
@@ -225,7 +232,12 @@ async function propertyRuleResults(
       mowingTooShort(facts, species?.heightOfCutIn ?? null),
       tornTips(facts),
       decliningIndex(trend),
-      lateSeasonFeeding(seasonOf(z.grass_species), apps, at, property.pro_blackout_start),
+      lateSeasonFeeding(
+        seasonOf(z.grass_species),
+        apps,
+        at,
+        firstForbiddenDay(property.pro_no_fertilizer_after),
+      ),
     ];
     for (const result of zoneResults) results.push({ zoneId: z.id, result });
   }

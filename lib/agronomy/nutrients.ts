@@ -12,15 +12,18 @@ import {
 } from "./units";
 
 type ProductForm = "granular" | "liquid" | "soluble";
-export type RateUnit =
-  | "lb/1000ft2"
-  | "oz/1000ft2"
-  | "floz/1000ft2"
-  | "gal/1000ft2"
-  | "kg/ha"
-  | "g/m2"
-  | "lb/acre"
-  | "L/ha";
+/** Every rate unit Sward speaks (product by weight or by volume, per area). */
+export const RATE_UNITS = [
+  "lb/1000ft2",
+  "oz/1000ft2",
+  "floz/1000ft2",
+  "gal/1000ft2",
+  "kg/ha",
+  "g/m2",
+  "lb/acre",
+  "L/ha",
+] as const;
+export type RateUnit = (typeof RATE_UNITS)[number];
 
 export interface ProductAnalysis {
   nPct: number;
@@ -37,7 +40,7 @@ export interface Rate {
 }
 
 const VOLUME_UNITS: readonly RateUnit[] = ["floz/1000ft2", "gal/1000ft2", "L/ha"];
-export const isVolumeUnit = (unit: RateUnit) => VOLUME_UNITS.includes(unit);
+const isVolumeUnit = (unit: RateUnit) => VOLUME_UNITS.includes(unit);
 
 export class NutrientInputError extends Error {
   constructor(message: string) {
@@ -65,10 +68,17 @@ function checkProduct(p: ProductAnalysis): void {
 }
 
 /** Pounds of product per 1,000 ft² for a rate in any supported unit. */
-function productLbPer1000(product: ProductAnalysis, rate: Rate): number {
+export function productLbPer1000(
+  product: Pick<ProductAnalysis, "form" | "densityLbPerGal">,
+  rate: Rate,
+): number {
   if (!Number.isFinite(rate.amount) || rate.amount < 0)
     throw new NutrientInputError("The rate cannot be negative.");
   const needsDensity = isVolumeUnit(rate.unit);
+  // A liquid is measured by volume: a weight oz taken for a fl oz reads 1/16 lb instead of
+  // density/128 lb (29 % less N at 11.2 lb/gal).
+  if (product.form === "liquid" && !needsDensity)
+    throw new NutrientInputError("A liquid is measured by volume: use fl oz, gal or L.");
   const density = product.densityLbPerGal;
   if (needsDensity && (density === undefined || !(density > 0)))
     throw new NutrientInputError("A rate by volume needs the product's density (lb/gal).");
@@ -120,6 +130,24 @@ export function rateForNitrogen(product: ProductAnalysis, targetNLb: number): Ra
     return { amount: (lb / product.densityLbPerGal) * FL_OZ_PER_GAL, unit: "floz/1000ft2" };
   }
   return { amount: lb, unit: "lb/1000ft2" };
+}
+
+/**
+ * The rate proposed for a target lb N, never above the label's maximum per application
+ * (lb of product per 1,000 ft²; null when the catalog has none): capped, it says so.
+ */
+export function proposeRateForNitrogen(
+  product: ProductAnalysis,
+  targetNLb: number,
+  labelMaxLbPer1000: number | null,
+): { rate: Rate; cappedByLabel: boolean } {
+  const rate = rateForNitrogen(product, targetNLb);
+  const lb = productLbPer1000(product, rate);
+  if (labelMaxLbPer1000 === null || lb <= labelMaxLbPer1000) return { rate, cappedByLabel: false };
+  return {
+    rate: { amount: (rate.amount * labelMaxLbPer1000) / lb, unit: rate.unit },
+    cappedByLabel: true,
+  };
 }
 
 /** What to load for a zone: total product (lb, and gallons for liquids). */

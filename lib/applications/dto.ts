@@ -2,6 +2,8 @@
 import type { RateUnit } from "@/lib/agronomy/nutrients";
 import type { RuleFinding } from "@/lib/agronomy/rules";
 
+import type { OverrideCategory } from "./units";
+
 export interface ApplicationDto {
   id: string;
   visitId: string;
@@ -24,9 +26,11 @@ export interface ApplicationDto {
   windMph: number | null;
   temperatureF: number | null;
   isEstablishing: boolean;
+  isRepairing: boolean;
   applicatorName: string;
   applicatorLicence: string;
   findings: RuleFinding[];
   overrideReason: string | null;
+  overrideCategory: OverrideCategory | null;
   overrideBy: string | null;
 }

@@ -1,24 +1,26 @@
-// Recording an application: the nutrient maths are computed here (never trusted from the
-// client), checked against the property's rule set, and refused when a legal limit is broken
-// unless a manager records an override reason. The client's id makes a retry harmless.
+// Recording an application: the time is bound to the visit (applied-at.ts), the nutrient maths
+// are computed here (never trusted from the client) and checked against the property's rule set
+// on that date and against the product label (assess.ts). A broken label limit is always
+// refused; a broken legal limit is refused unless a manager records an override category and
+// reason. The client's id makes a retry harmless.
 import "server-only";
 
 import { sql } from "kysely";
 
 import { db } from "@/db";
 import { afterWrite } from "@/lib/after-write";
-import { NutrientInputError, nutrientsPer1000, productForArea } from "@/lib/agronomy/nutrients";
-import { checkApplication, isRefused, type RuleFinding } from "@/lib/agronomy/rules";
+import { NutrientInputError } from "@/lib/agronomy/nutrients";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
 import { todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
-import { analysisOf } from "@/lib/products/dto";
 import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { toRuleSetDto } from "@/lib/rule-sets/map";
 
+import { bindAppliedAt } from "./applied-at";
+import { assessApplication, type Assessment } from "./assess";
 import type { ApplicationDto } from "./dto";
 import { getZoneNitrogenYearToDate, listVisitApplications } from "./queries";
 import type { ApplicationInput } from "./schemas";
@@ -61,6 +63,9 @@ export async function recordApplication(
       "visits.id",
       "visits.status",
       "visits.property_id",
+      "visits.started_at",
+      "visits.completed_at",
+      "visits.weather",
       "properties.time_zone",
       "properties.p_soil_test_on",
       "rule_sets.id as rule_set_id",
@@ -121,49 +126,108 @@ export async function recordApplication(
     missing.temperatureF = ["The record needs the temperature at application."];
   if (Object.keys(missing).length) throw invalid(missing, "The application record is incomplete.");
 
-  const rate = { amount: input.rateAmount, unit: input.rateUnit };
-  let per1000: ReturnType<typeof nutrientsPer1000>;
-  let totals: ReturnType<typeof productForArea>;
+  // The time of the record: within the visit, never any date a client sends (a date outside the
+  // visit would move the blackout, the year's N and the legal record).
+  const bound = bindAppliedAt(
+    input.appliedAt ? new Date(input.appliedAt) : null,
+    {
+      startedAt: visit.started_at ? new Date(visit.started_at) : null,
+      completedAt: visit.completed_at ? new Date(visit.completed_at) : null,
+    },
+    new Date(),
+  );
+  if (!bound.ok) {
+    const local = (d: Date) =>
+      new Intl.DateTimeFormat("en-US", {
+        timeZone: visit.time_zone,
+        dateStyle: "medium",
+        timeStyle: "short",
+      }).format(d);
+    throw invalid(
+      {
+        appliedAt: [
+          `An application is recorded at the time of its visit: between ${local(bound.from)} and ${local(bound.to)}.`,
+        ],
+      },
+      "The application time is outside the visit.",
+    );
+  }
+  const appliedAt = bound.at;
+  const appliedOn = todayIn(visit.time_zone, appliedAt);
+  const species = findGrassSpecies(zone.grass_species);
+  const weather = visit.weather as {
+    status?: string;
+    tminF?: unknown;
+    precipIn?: unknown;
+    isForecast?: unknown;
+  } | null;
+  const sameProduct = await db()
+    .selectFrom("applications")
+    .select(["applied_on", "product_total_lb", "area_ft2"])
+    .where("company_id", "=", actor.companyId)
+    .where("zone_id", "=", zone.id)
+    .where("product_id", "=", product.id)
+    .execute();
+  let assessed: Assessment;
   try {
-    per1000 = nutrientsPer1000(analysisOf(product), rate);
-    totals = productForArea(analysisOf(product), rate, Number(zone.area_ft2));
+    assessed = assessApplication({
+      product,
+      rate: { amount: input.rateAmount, unit: input.rateUnit },
+      areaFt2: Number(zone.area_ft2),
+      ruleSet,
+      facts: {
+        appliedOn,
+        isEstablishing: input.isEstablishing,
+        isRepairing: input.isRepairing ?? false,
+        soilTestOn: visit.p_soil_test_on,
+        yearToDateNLb: await getZoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
+        annualNRange: species
+          ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max }
+          : null,
+        weather:
+          weather?.status === "ok"
+            ? {
+                tminF: typeof weather.tminF === "number" ? weather.tminF : null,
+                precipIn: typeof weather.precipIn === "number" ? weather.precipIn : null,
+                isForecast: weather.isForecast === true,
+              }
+            : null,
+      },
+      sameProductOnZone: sameProduct.map((r) => ({
+        appliedOn: r.applied_on,
+        productLbPer1000: (Number(r.product_total_lb) / Number(r.area_ft2)) * 1000,
+      })),
+    });
   } catch (err) {
     if (err instanceof NutrientInputError) throw invalid({ rateUnit: [err.message] });
     throw err;
   }
-
-  const appliedAt = input.appliedAt ? new Date(input.appliedAt) : new Date();
-  const appliedOn = todayIn(visit.time_zone, appliedAt);
-  const species = findGrassSpecies(zone.grass_species);
-  let findings: RuleFinding[] = [];
-  if (ruleSet) {
-    findings = checkApplication(ruleSet, {
-      appliedOn,
-      byProfessional: true,
-      nPct: product.nPct,
-      nLb: per1000.nLb,
-      wsnLb: per1000.wsnLb,
-      p2o5Lb: per1000.p2o5Lb,
-      slowReleasePctOfN: product.slowReleasePctOfN,
-      isEstablishing: input.isEstablishing,
-      soilTestOn: visit.p_soil_test_on,
-      yearToDateNLb: await getZoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
-      annualNRange: species
-        ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max }
-        : null,
-    });
-  }
-  const refused = isRefused(findings);
+  const { per1000, totals, findings, refused } = assessed;
+  const refusals = findings.filter((f) => f.severity === "refusal").map((f) => f.message);
+  if (assessed.labelRefused)
+    throw new AppError(
+      "invalid_input",
+      "The product label does not allow this application, and no one can override a label limit.",
+      { rateAmount: refusals },
+      { findings },
+    );
   if (refused && (actor.role !== "manager" || !input.overrideReason)) {
     throw new AppError(
       "invalid_input",
       actor.role === "manager"
-        ? "This application breaks a legal limit. Record an override reason to save it anyway."
+        ? "This application breaks a legal limit. Record an override category and reason to save it anyway."
         : "This application breaks a legal limit and was not recorded. Ask your manager if it must go ahead.",
-      { rateAmount: findings.filter((f) => f.severity === "refusal").map((f) => f.message) },
+      { rateAmount: refusals },
       { findings },
     );
   }
+  if (refused && !input.overrideCategory)
+    throw new AppError(
+      "invalid_input",
+      "An override needs its category as well as the reason.",
+      { overrideCategory: ["Choose why the override applies."] },
+      { findings },
+    );
 
   const inserted = await db()
     .transaction()
@@ -190,10 +254,12 @@ export async function recordApplication(
           wind_mph: input.windMph,
           temperature_f: input.temperatureF,
           is_establishing: input.isEstablishing,
+          is_repairing: input.isRepairing ?? false,
           applicator_name: input.applicatorName,
           applicator_licence: input.applicatorLicence,
           findings: JSON.stringify(findings),
           override_reason: refused ? input.overrideReason : null,
+          override_category: refused ? (input.overrideCategory ?? null) : null,
           override_by: refused ? actor.userId : null,
           created_by: actor.userId,
         })
@@ -208,7 +274,20 @@ export async function recordApplication(
           entity: "application",
           entityId: input.id,
           action: "override_legal_limit",
-          changes: { reason: { from: null, to: input.overrideReason } },
+          changes: {
+            category: { from: null, to: input.overrideCategory ?? null },
+            reason: { from: null, to: input.overrideReason },
+          },
+        });
+      if (bound.differs)
+        // Dated away from the visit's own time (within the visit): kept, and said so.
+        await recordAudit(trx, actor, {
+          entity: "application",
+          entityId: input.id,
+          action: "applied_at_differs",
+          changes: {
+            appliedAt: { from: bound.expected.toISOString(), to: appliedAt.toISOString() },
+          },
         });
       if (visit.status === "scheduled")
         await trx

@@ -59,10 +59,12 @@ export async function listVisitApplications(
     windMph: r.wind_mph === null ? null : Number(r.wind_mph),
     temperatureF: r.temperature_f === null ? null : Number(r.temperature_f),
     isEstablishing: r.is_establishing,
+    isRepairing: r.is_repairing,
     applicatorName: r.applicator_name,
     applicatorLicence: r.applicator_licence,
     findings: r.findings as RuleFinding[],
     overrideReason: r.override_reason,
+    overrideCategory: r.override_category,
     overrideBy: r.override_by_name,
   }));
 }

@@ -1,7 +1,7 @@
 // Application input, shared by the route and the form (zod/mini: the form's bundle stays small).
 import { z } from "zod/mini";
 
-import { RATE_UNITS } from "./units";
+import { OVERRIDE_CATEGORIES, RATE_UNITS } from "./units";
 
 export const applicationSchema = z.strictObject({
   id: z.uuid("An application needs its id."),
@@ -17,9 +17,15 @@ export const applicationSchema = z.strictObject({
   appliedAt: z.optional(z.iso.datetime({ offset: true, error: "Use a date and time." })),
   windMph: z.nullable(z.number().check(z.gte(0), z.lte(150))),
   temperatureF: z.nullable(z.number().check(z.gte(-60), z.lte(140))),
+  /** First establishment of turf (seeding or sodding). */
   isEstablishing: z.boolean(),
+  /** Re-establishment or repair of a turf area (absent: no). */
+  isRepairing: z.optional(z.boolean()),
   applicatorName: z.string().check(z.trim(), z.maxLength(200)),
   applicatorLicence: z.string().check(z.trim(), z.maxLength(80)),
   overrideReason: z.nullable(z.string().check(z.trim(), z.maxLength(1000))),
+  overrideCategory: z.optional(
+    z.nullable(z.enum(OVERRIDE_CATEGORIES, "Choose why the override applies.")),
+  ),
 });
 export type ApplicationInput = z.infer<typeof applicationSchema>;

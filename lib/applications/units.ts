@@ -1,22 +1,42 @@
-// Rate units of an application (no zod here: client components import it).
-export const RATE_UNITS = [
-  "lb/1000ft2",
-  "oz/1000ft2",
-  "floz/1000ft2",
-  "gal/1000ft2",
-  "kg/ha",
-  "g/m2",
-  "lb/acre",
-  "L/ha",
-] as const;
+// Rate units of an application and the override categories (no zod here: client components
+// import it).
+import { RATE_UNITS } from "@/lib/agronomy/nutrients";
+
+export { RATE_UNITS };
 
 export const RATE_UNIT_LABEL: Record<(typeof RATE_UNITS)[number], string> = {
   "lb/1000ft2": "lb / 1,000 ft²",
-  "oz/1000ft2": "oz / 1,000 ft²",
+  "oz/1000ft2": "oz (weight) / 1,000 ft²",
   "floz/1000ft2": "fl oz / 1,000 ft²",
   "gal/1000ft2": "gal / 1,000 ft²",
   "kg/ha": "kg / ha",
   "g/m2": "g / m²",
   "lb/acre": "lb / acre",
   "L/ha": "L / ha",
+};
+
+/** Units a product can be measured in: a liquid by volume only; a dry product by weight, or by volume when its density is known. */
+export function rateUnitsFor(product: {
+  form: "granular" | "liquid" | "soluble";
+  densityLbPerGal: number | null;
+}): (typeof RATE_UNITS)[number][] {
+  const byVolume = (u: string) => u === "floz/1000ft2" || u === "gal/1000ft2" || u === "L/ha";
+  if (product.form === "liquid") return RATE_UNITS.filter(byVolume);
+  return RATE_UNITS.filter((u) => !byVolume(u) || product.densityLbPerGal !== null);
+}
+
+/** Why a manager records an application a state rule refuses (a label refusal has no override). */
+export const OVERRIDE_CATEGORIES = [
+  "documented_exemption",
+  "research_plot",
+  "regulator_permission",
+  "other",
+] as const;
+export type OverrideCategory = (typeof OVERRIDE_CATEGORIES)[number];
+
+export const OVERRIDE_CATEGORY_LABEL: Record<OverrideCategory, string> = {
+  documented_exemption: "Documented exemption (on file)",
+  research_plot: "Research or trial plot",
+  regulator_permission: "Written permission from the regulator",
+  other: "Other (explained in the reason)",
 };

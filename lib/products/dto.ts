@@ -1,5 +1,5 @@
 // A catalogue product as screens and the nutrient maths use it.
-import type { ProductFormValue } from "@/db/schema";
+import type { NitrogenRelease, ProductFormValue, RateUnitValue } from "@/db/schema";
 
 export interface ProductDto {
   id: string;
@@ -14,6 +14,11 @@ export interface ProductDto {
   registrationNumber: string;
   labelCautions: string;
   reentryGuidance: string;
+  nRelease: NitrogenRelease;
+  labelMaxRate: number | null;
+  labelRateUnit: RateUnitValue | null;
+  labelMaxYearly: number | null;
+  labelMinIntervalDays: number | null;
   isArchived: boolean;
 }
 

@@ -4,7 +4,15 @@ import type { Product } from "@/db/schema";
 import type { ProductDto } from "./dto";
 import type { ProductInput } from "./schemas";
 
+/** Table columns of a product input; label fields the input leaves out stay as they are. */
 export const productColumns = (p: ProductInput) => ({
+  ...(p.nRelease !== undefined ? { n_release: p.nRelease } : {}),
+  ...(p.labelMaxRate !== undefined ? { label_max_rate: p.labelMaxRate } : {}),
+  ...(p.labelRateUnit !== undefined ? { label_rate_unit: p.labelRateUnit } : {}),
+  ...(p.labelMaxYearly !== undefined ? { label_max_yearly: p.labelMaxYearly } : {}),
+  ...(p.labelMinIntervalDays !== undefined
+    ? { label_min_interval_days: p.labelMinIntervalDays }
+    : {}),
   name: p.name,
   form: p.form,
   n_pct: p.nPct,
@@ -32,6 +40,11 @@ export function toProductDto(p: Product): ProductDto {
     registrationNumber: p.registration_number,
     labelCautions: p.label_cautions,
     reentryGuidance: p.reentry_guidance,
+    nRelease: p.n_release,
+    labelMaxRate: p.label_max_rate === null ? null : Number(p.label_max_rate),
+    labelRateUnit: p.label_rate_unit,
+    labelMaxYearly: p.label_max_yearly === null ? null : Number(p.label_max_yearly),
+    labelMinIntervalDays: p.label_min_interval_days,
     isArchived: p.archived_at !== null,
   };
 }

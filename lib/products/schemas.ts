@@ -2,6 +2,8 @@
 // stays small; the server parses the same schema).
 import { z } from "zod/mini";
 
+import { RATE_UNITS } from "@/lib/agronomy/nutrients";
+
 const pct = (label: string) =>
   z
     .number(`Enter ${label} as a number.`)
@@ -32,6 +34,34 @@ export const productSchema = z
     registrationNumber: z.string().check(z.trim(), z.maxLength(60)),
     labelCautions: z.string().check(z.trim(), z.maxLength(4000)),
     reentryGuidance: z.string().check(z.trim(), z.maxLength(1000)),
+    // How the N is released, and so which share the label gives: slow-release N, or for an
+    // organic product its water-insoluble N. Optional in the API (absent: unchanged, or "quick").
+    nRelease: z.optional(
+      z.enum(["quick", "slow_release", "organic"], "Choose how the N is released."),
+    ),
+    // The label's limits (absent or null: not entered). Rates are in labelRateUnit.
+    labelMaxRate: z.optional(
+      z.nullable(
+        z
+          .number("Enter the label's maximum rate as a number.")
+          .check(z.positive("The label's maximum must be above 0."), z.lte(100_000)),
+      ),
+    ),
+    labelRateUnit: z.optional(z.nullable(z.enum(RATE_UNITS, "Choose the label's unit."))),
+    labelMaxYearly: z.optional(
+      z.nullable(
+        z
+          .number("Enter the label's yearly maximum as a number.")
+          .check(z.positive("The yearly maximum must be above 0."), z.lte(1_000_000)),
+      ),
+    ),
+    labelMinIntervalDays: z.optional(
+      z.nullable(
+        z
+          .int("Enter whole days.")
+          .check(z.gte(1, "At least 1 day."), z.lte(366, "At most 366 days.")),
+      ),
+    ),
   })
   .check(
     z.superRefine((p, ctx) => {
@@ -52,6 +82,50 @@ export const productSchema = z
           code: "custom",
           path: ["registrationNumber"],
           message: "A pesticide needs its registration number.",
+        });
+      if (p.nRelease && p.nRelease !== "quick" && p.nPct > 0 && p.slowReleasePctOfN === 0)
+        ctx.addIssue({
+          code: "custom",
+          path: ["slowReleasePctOfN"],
+          message:
+            p.nRelease === "organic"
+              ? "Enter the water-insoluble share of N from the label: most of an organic product's N is water-insoluble."
+              : "Enter the slow-release share of N from the label.",
+        });
+      const hasRate = (p.labelMaxRate ?? null) !== null || (p.labelMaxYearly ?? null) !== null;
+      const unit = p.labelRateUnit ?? null;
+      if (hasRate && unit === null)
+        ctx.addIssue({
+          code: "custom",
+          path: ["labelRateUnit"],
+          message: "Choose the unit the label gives its rates in.",
+        });
+      if (unit !== null) {
+        const byVolume = unit === "floz/1000ft2" || unit === "gal/1000ft2" || unit === "L/ha";
+        if (p.form === "liquid" && !byVolume)
+          ctx.addIssue({
+            code: "custom",
+            path: ["labelRateUnit"],
+            message: "A liquid's label rate is by volume (fl oz, gal or L).",
+          });
+        if (p.form !== "liquid" && byVolume && p.densityLbPerGal === null)
+          ctx.addIssue({
+            code: "custom",
+            path: ["labelRateUnit"],
+            message: "A rate by volume needs the product's density (lb/gal).",
+          });
+      }
+      if (p.labelMaxRate != null && p.labelMaxYearly != null && p.labelMaxYearly < p.labelMaxRate)
+        ctx.addIssue({
+          code: "custom",
+          path: ["labelMaxYearly"],
+          message: "The yearly maximum cannot be below the maximum per application.",
+        });
+      if (p.isPesticide && (p.labelMaxRate ?? null) === null)
+        ctx.addIssue({
+          code: "custom",
+          path: ["labelMaxRate"],
+          message: "A pesticide label states its maximum rate per application: enter it.",
         });
     }),
   );

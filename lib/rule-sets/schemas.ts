@@ -7,7 +7,11 @@ import { RECORD_FIELD_KEYS } from "@/lib/reference/record-fields";
 const monthDay = z
   .string()
   .check(z.regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "Use month-day, e.g. 12-01."));
-const window = z.nullable(z.tuple([monthDay, monthDay]));
+// [no fertilizer after, nor before], as the statutes word it: both named days are allowed.
+const window = z.nullable(
+  z.tuple([monthDay, monthDay]).check(z.refine(([a, b]) => a !== b, "The two days must differ.")),
+);
+const source = z.string().check(z.trim(), z.maxLength(1000));
 const limit = z.nullable(
   z
     .number("Enter a number.")
@@ -30,6 +34,13 @@ export const ruleSetSchema = z.strictObject({
   homeownerBlackout: window,
   phosphorusRule: z.enum(["allowed", "soil_test_or_establishment"]),
   soilTestMaxAgeYears: z.nullable(z.int().check(z.gte(1), z.lte(20))),
+  // Absent (an older client): left as they are, or the defaults for a new rule set.
+  phosphorusExemptEstablishment: z.optional(z.boolean()),
+  phosphorusExemptRepair: z.optional(z.boolean()),
+  nLimitsSource: z.optional(source),
+  blackoutSource: z.optional(source),
+  phosphorusSource: z.optional(source),
+  conditionsSource: z.optional(source),
   recordRetentionYears: z.int().check(z.gte(1, "Keep records at least a year."), z.lte(30)),
   recordRequiredFields: z.array(z.enum(RECORD_FIELD_KEYS)).check(
     z.maxLength(RECORD_FIELD_KEYS.length),

@@ -4,7 +4,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
-import { isInWindow } from "@/lib/agronomy/rules";
+import { inNoFertilizerWindow } from "@/lib/agronomy/rules";
 import { todayIn } from "@/lib/dates";
 import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
 
@@ -15,7 +15,7 @@ const baseUrl = inject("baseUrl");
 let browser: Browser;
 let zoneUrl = "";
 const nj = SHIPPED_RULE_SETS.find((r) => r.name.startsWith("New Jersey"))!;
-const isBlackoutToday = isInWindow(todayIn("America/New_York").slice(5), nj.proBlackout!);
+const isBlackoutToday = inNoFertilizerWindow(todayIn("America/New_York").slice(5), nj.proBlackout!);
 
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -53,7 +53,7 @@ describe("applications", () => {
     await page.getByRole("button", { name: "Record application" }).click();
     if (isBlackoutToday) {
       await page
-        .getByText(/may not be applied between 12-01 and 03-01/)
+        .getByText(/may not be applied after December 1 or before March 1/)
         .first()
         .waitFor();
     } else {
@@ -88,12 +88,15 @@ describe("applications", () => {
     await page.goto(zoneUrl);
     await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
     await page.getByLabel("Rate", { exact: true }).fill("4");
+    await page.getByLabel("Override category").selectOption({ label: "Research or trial plot" });
     await page
       .getByLabel(/Override reason/)
       .fill("Sod repair after irrigation work; agronomist's written recommendation on file.");
     await page.getByRole("button", { name: "Record with override" }).click();
     const recorded = page.getByRole("list", { name: "Applications on this zone" });
-    await recorded.getByText(/Legal limit overridden by Dana Whitcombe/).waitFor();
+    await recorded
+      .getByText(/Legal limit overridden by Dana Whitcombe \(Research or trial plot\)/)
+      .waitFor();
     await snap(page, "application-03-override");
     await context.close();
   });

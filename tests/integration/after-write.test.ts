@@ -230,6 +230,7 @@ describe("a write shows in the book and the alerts at once", () => {
           applicatorName: "",
           applicatorLicence: "",
           overrideReason: "Test of the book's N to date.",
+          overrideCategory: "research_plot",
         },
       },
     );

@@ -30,6 +30,12 @@ beforeAll(async () => {
       .where("status", "=", "scheduled")
       .executeTakeFirstOrThrow()
   ).id;
+  // The visit was under way that morning: an application is recorded at the time of its visit.
+  await testDb()
+    .updateTable("visits")
+    .set({ status: "in_progress", started_at: new Date("2026-05-12T08:00:00-04:00") })
+    .where("id", "=", visitId)
+    .execute();
   zoneId = (
     await testDb()
       .selectFrom("zones")

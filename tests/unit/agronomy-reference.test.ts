@@ -301,11 +301,12 @@ describe("nutrient arithmetic", () => {
         fc.double({ min: 0.01, max: 500, noNaN: true }),
         fc.double({ min: 0.1, max: 10, noNaN: true }),
         (unit, amount, k) => {
+          // A soluble powder with a known density takes every unit (a liquid takes volume only).
           const product = {
             nPct: 18,
             p2o5Pct: 3,
             k2oPct: 5,
-            form: "liquid" as const,
+            form: "soluble" as const,
             densityLbPerGal: 10.5,
           };
           const a = nutrientsPer1000(product, { amount, unit }).nLb;

@@ -68,6 +68,12 @@ describe("forms validate with their shared schema, in plain words", () => {
       homeownerBlackout: null,
       phosphorusRule: "sometimes",
       soilTestMaxAgeYears: 2.5,
+      phosphorusExemptEstablishment: true,
+      phosphorusExemptRepair: false,
+      nLimitsSource: "",
+      blackoutSource: "",
+      phosphorusSource: "",
+      conditionsSource: "",
       recordRetentionYears: 3,
       recordRequiredFields: [],
       recordFieldsApplyTo: "all",
@@ -98,6 +104,7 @@ describe("forms validate with their shared schema, in plain words", () => {
       nPct: "N + P₂O₅ + K₂O adds up to more than 100 %.",
       densityLbPerGal: "A liquid needs its density (lb/gal) from the label.",
       registrationNumber: "A pesticide needs its registration number.",
+      labelMaxRate: "A pesticide label states its maximum rate per application: enter it.",
     });
   });
 

@@ -9,6 +9,8 @@ import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError } from "@/lib/http/app-error";
 
+import { OVERRIDE_CATEGORY_LABEL } from "../units";
+
 export const RECORD_COLUMNS = [
   "applied_on",
   "applied_at_local",
@@ -33,6 +35,7 @@ export const RECORD_COLUMNS = [
   "rule_set",
   "findings",
   "override_reason",
+  "override_category",
   "keep_until",
 ] as const;
 
@@ -81,6 +84,7 @@ export async function* listApplicationRecords(
         "r.record_retention_years",
         "a.findings",
         "a.override_reason",
+        "a.override_category",
       ])
       // The homeowners of the lawn in one cell: joined as rows they would repeat the application
       // once per homeowner (and a repeat on a page boundary would be skipped by the keyset).
@@ -145,6 +149,7 @@ export async function* listApplicationRecords(
           .map((f) => `${f.key} (${f.severity})`)
           .join("; ") || null,
         r.override_reason,
+        r.override_category ? OVERRIDE_CATEGORY_LABEL[r.override_category] : null,
         `${Number(r.applied_on.slice(0, 4)) + keepYears}${r.applied_on.slice(4)}`,
       ];
     }
