@@ -106,7 +106,40 @@ describe("GET /api/v1/records/applications", () => {
       keep_until: "2028-05-12",
     });
     expect(rows[1]!.applicator).toBe('\'=HYPERLINK("x")');
+    expect(rows[1]!.applicator_license).toBe("NJ-DEMO-1");
+    // Findings in words, never internal keys (the New Jersey ground-and-rain reminder here).
+    expect(rows[0]!.findings).toMatch(/^Warning: Not on frozen or saturated ground/);
+    expect(rows[0]!.findings).not.toMatch(/conditions|\(warning\)/);
     expect(rows[1]!.registration_number).toBe("DEMO-0000-1");
+  });
+
+  it("a manager's override shows with its category in words", async () => {
+    const manager = await c.actor("manager");
+    const quick = (await listProducts(manager)).find((p) => p.name.startsWith("Quickgreen"))!;
+    await recordApplication(manager, visitId, {
+      id: newId(),
+      zoneId,
+      productId: quick.id,
+      rateAmount: 4, // 1.12 lb N: above New Jersey's 0.9 lb
+      rateUnit: "lb/1000ft2",
+      appliedAt: "2026-05-12T11:00:00-04:00",
+      windMph: 3,
+      temperatureF: 70,
+      isEstablishing: false,
+      applicatorName: "",
+      applicatorLicence: "",
+      overrideReason: "University trial strip, plot 4",
+      overrideCategory: "research_plot",
+    });
+    current = manager;
+    const text = await (await get("from=2026-05-12&to=2026-05-12")).text();
+    const rows = parse(text.replace(/^\uFEFF/, ""), { columns: true }) as Record<string, string>[];
+    const row = rows.find((r) => r.product === quick.name)!;
+    expect(row).toMatchObject({
+      override_reason: "University trial strip, plot 4",
+      override_category: "Research or trial plot",
+    });
+    expect(row.findings).toContain("Refused (legal limit): 1.12 lb N per 1,000 ft²");
   });
 
   it("is for managers only and checks the range", async () => {

@@ -29,7 +29,7 @@ export const RECORD_COLUMNS = [
   "p2o5_lb_per_1000ft2",
   "k2o_lb_per_1000ft2",
   "applicator",
-  "applicator_licence",
+  "applicator_license",
   "wind_mph",
   "temperature_f",
   "rule_set",
@@ -145,9 +145,13 @@ export async function* listApplicationRecords(
         r.wind_mph === null ? null : Number(r.wind_mph),
         r.temperature_f === null ? null : Number(r.temperature_f),
         r.rule_set_name,
-        (r.findings as { key: string; severity: string }[])
-          .map((f) => `${f.key} (${f.severity})`)
-          .join("; ") || null,
+        // In words, as the record showed them (no internal keys).
+        (r.findings as { severity: string; basis?: string; message: string }[])
+          .map(
+            (f) =>
+              `${f.severity === "refusal" ? (f.basis === "label" ? "Refused by the label" : "Refused (legal limit)") : "Warning"}: ${f.message}`,
+          )
+          .join(" | ") || null,
         r.override_reason,
         r.override_category ? OVERRIDE_CATEGORY_LABEL[r.override_category] : null,
         `${Number(r.applied_on.slice(0, 4)) + keepYears}${r.applied_on.slice(4)}`,
