@@ -121,6 +121,12 @@ export const productSchema = z
           path: ["labelMaxYearly"],
           message: "The yearly maximum cannot be below the maximum per application.",
         });
+      if (p.isPesticide && !p.reentryGuidance)
+        ctx.addIssue({
+          code: "custom",
+          path: ["reentryGuidance"],
+          message: "A pesticide label says when people and pets may go back on the turf: enter it.",
+        });
       if (p.isPesticide && (p.labelMaxRate ?? null) === null)
         ctx.addIssue({
           code: "custom",

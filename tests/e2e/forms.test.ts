@@ -87,22 +87,25 @@ describe("forms", () => {
       const name = `Test town rules ${Date.now()}`;
       await form.getByLabel("Name", { exact: true }).fill(name);
       await form.getByLabel("Max lb N / 1,000 ft² per application").fill("lots");
-      await form.getByLabel("Professional blackout from").fill("13-01");
-      await form.getByLabel("Professional blackout to").fill("03-01");
+      await form.getByLabel("Professionals: no fertilizer after").fill("13-01");
+      await form.getByLabel("Professionals: nor before").fill("03-01");
       await form.getByRole("button", { name: "Add rule set" }).click();
       await form.getByText("Use month-day, e.g. 12-01.").waitFor();
       await form.getByText("Enter a number.").waitFor();
       expect(await form.textContent()).not.toMatch(RAW);
 
       await form.getByLabel("Max lb N / 1,000 ft² per application").fill("0.9");
-      await form.getByLabel("Professional blackout from").fill("12-01");
+      await form.getByLabel("Professionals: no fertilizer after").fill("12-01");
       await form.getByRole("button", { name: "Add rule set" }).click();
       await form.waitFor({ state: "detached", timeout: 10_000 }).catch(async () => {
         await snap(page, "form-rule-set-not-saved", true);
         throw new Error(`the rule set was not saved: ${await form.textContent()}`);
       });
       await page.getByRole("heading", { name }).waitFor();
-      await page.getByText("no fertiliser by professionals 12-01 to 03-01").first().waitFor();
+      await page
+        .getByText("no fertilizer by professionals after December 1 or before March 1")
+        .first()
+        .waitFor();
       expect(await form.count()).toBe(0);
       expect(navigations()).toBe(0);
       await page.context().close();

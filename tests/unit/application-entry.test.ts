@@ -186,8 +186,9 @@ describe("the product form asks for what the label states", () => {
       "labelMaxYearly: The yearly maximum cannot be below the maximum per application.",
     ]);
   });
-  it("a pesticide must give its label's maximum rate", () => {
+  it("a pesticide must give its label's maximum rate and re-entry instruction", () => {
     expect(issues({ nPct: 0, p2o5Pct: 0, isPesticide: true, registrationNumber: "X-1" })).toEqual([
+      "reentryGuidance: A pesticide label says when people and pets may go back on the turf: enter it.",
       "labelMaxRate: A pesticide label states its maximum rate per application: enter it.",
     ]);
   });

@@ -105,6 +105,8 @@ describe("forms validate with their shared schema, in plain words", () => {
       densityLbPerGal: "A liquid needs its density (lb/gal) from the label.",
       registrationNumber: "A pesticide needs its registration number.",
       labelMaxRate: "A pesticide label states its maximum rate per application: enter it.",
+      reentryGuidance:
+        "A pesticide label says when people and pets may go back on the turf: enter it.",
     });
   });
 
