@@ -22,7 +22,14 @@ export default defineConfig({
     projects: [
       {
         ...shared,
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+        test: {
+          name: "unit",
+          include: ["tests/unit/**/*.test.ts"],
+          environment: "node",
+          // Photo decoding and the supervisor child run for 1–2 s on an idle machine but passed
+          // 5 s on one loaded to 15 runnable processes per core; a hang still fails.
+          testTimeout: 30_000,
+        },
       },
       {
         ...shared,
