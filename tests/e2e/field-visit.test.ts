@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
 import { seriousViolations } from "../helpers/axe";
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
-import { lawnImage } from "../helpers/images";
+import { exposedImage, lawnImage } from "../helpers/images";
 import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
@@ -78,10 +78,16 @@ describe("a technician runs a visit on a phone", () => {
       .getByRole("radiogroup", { name: "Mowing direction" })
       .getByRole("radio", { name: "Changed" })
       .click();
-    // Two photos at once from the library, and one file that is not a photo.
+    // Three photos at once from the library (one taken too dark to measure), and one file that
+    // is not a photo.
     await page.getByLabel("Choose photos from the library").setInputFiles([
       { name: "front-1.jpg", mimeType: "image/jpeg", buffer: await lawnImage(2400, 1800, 0.3) },
       { name: "front-2.jpg", mimeType: "image/jpeg", buffer: await lawnImage(1600, 1200, 0.1) },
+      {
+        name: "front-dusk.jpg",
+        mimeType: "image/jpeg",
+        buffer: await exposedImage(await lawnImage(640, 480, 0.1), 0.12, "jpeg"),
+      },
       {
         name: "notes.jpg",
         mimeType: "image/jpeg",
@@ -98,8 +104,11 @@ describe("a technician runs a visit on a phone", () => {
             .catch(() => 0),
         { timeout: 20_000 },
       )
-      .toBe(2);
+      .toBe(3);
     expect(await photos.innerText()).toMatch(/\d+\.\d % green canopy cover · DGCI 0\.\d{3}/);
+    // The lighting caution shows where the figures show (lib/photo-analysis/color.ts, LIGHTING).
+    await photos.getByRole("note").filter({ hasText: "Too dark to measure" }).waitFor();
+    expect(await photos.getByRole("note").count()).toBe(1);
     await page.getByRole("alert").filter({ hasText: "not a photo Sward can read" }).waitFor();
     await snap(page, "visit-03a-photos");
     await page.getByRole("button", { name: "Mark zone done" }).click();
@@ -198,9 +207,11 @@ describe("a technician runs a visit on a phone", () => {
     expect(text).toContain("Shade thinning (moderate, 5 %)");
     expect(text).toContain("Skipped: Dog in yard");
     expect(text).toContain("3.25 in");
-    expect(
-      await page.getByRole("list", { name: "Photos of Front lawn" }).getByRole("listitem").count(),
-    ).toBe(2);
+    const frontPhotos = page.getByRole("list", { name: "Photos of Front lawn" });
+    expect(await frontPhotos.getByRole("listitem").count()).toBe(3);
+    expect(await frontPhotos.getByRole("note").innerText()).toMatch(
+      /^Too dark to measure\s+\d+ % of the photo is too dark to read \(the limit is 25 %\)/,
+    );
     await expect(page.getByText("Finished", { exact: true }).first().isVisible()).resolves.toBe(
       true,
     );

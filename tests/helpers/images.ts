@@ -58,6 +58,22 @@ export async function bandedImage(
   return format === "png" ? img.png().toBuffer() : img.jpeg({ quality: 92 }).toBuffer();
 }
 
+/** The same photo with every channel multiplied by `k` (under- or overexposed), as PNG or JPEG. */
+export async function exposedImage(
+  image: Buffer,
+  k: number,
+  format: "png" | "jpeg" = "png",
+): Promise<Buffer> {
+  const { data, info } = await sharp(image)
+    .removeAlpha()
+    .raw()
+    .toBuffer({ resolveWithObject: true });
+  const img = sharp(Buffer.from(data.map((x) => Math.min(255, Math.round(x * k)))), {
+    raw: { width: info.width, height: info.height, channels: 3 },
+  });
+  return format === "png" ? img.png().toBuffer() : img.jpeg({ quality: 92 }).toBuffer();
+}
+
 export async function uniformImage(rgb: [number, number, number], size = 64): Promise<Buffer> {
   return sharp({
     create: {

@@ -9,7 +9,6 @@
 // - a photo row left by the old method is measured again from its stored image, and its check's
 //   Index and the book row follow; a photo whose image is missing is reported and left alone.
 import Color from "colorjs.io";
-import sharp from "sharp";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { afterWrite } from "@/lib/after-write";
@@ -23,7 +22,7 @@ import { propertyIndex, swardIndex } from "@/lib/scoring/sward-index";
 import { services } from "@/lib/services";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
-import { bandedImage, lawnImage } from "../helpers/images";
+import { bandedImage, exposedImage, lawnImage } from "../helpers/images";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
@@ -173,13 +172,7 @@ describe("uploads measured by the green-canopy rule", () => {
   });
 
   it("a photo too dark to measure is stored with its caution, shown by the zone's photo list, and left out of the Index", async () => {
-    const lawn = await lawnImage(800, 600, 0.1, "png", 4);
-    const raw = await sharp(lawn).raw().toBuffer({ resolveWithObject: true });
-    const dark = await sharp(Buffer.from(raw.data.map((x) => Math.round(x * 0.15))), {
-      raw: { width: raw.info.width, height: raw.info.height, channels: raw.info.channels },
-    })
-      .png()
-      .toBuffer();
+    const dark = await exposedImage(await lawnImage(800, 600, 0.1, "png", 4), 0.15);
     const check = checks[1]!;
     const before = await indexFromRows(check.id);
     const bookBefore = await bookIndex();
