@@ -1,5 +1,10 @@
 import type { NextConfig } from "next";
 
+import {
+  COMMON_SECURITY_HEADERS,
+  RESOURCE_CONTENT_SECURITY_POLICY,
+} from "./lib/http/security-headers";
+
 const nextConfig: NextConfig = {
   // Native modules stay outside the server bundle.
   serverExternalPackages: ["@node-rs/argon2", "pg", "pino"],
@@ -17,15 +22,18 @@ const nextConfig: NextConfig = {
       },
     ];
   },
+  // Every response: lib/http/security-headers.ts. Pages get their nonce-based policy from
+  // proxy.ts; JSON, CSV, photos and static files a policy under which nothing runs.
   async headers() {
     return [
+      { source: "/:path*", headers: [...COMMON_SECURITY_HEADERS] },
       {
-        source: "/:path*",
-        headers: [
-          { key: "X-Content-Type-Options", value: "nosniff" },
-          { key: "Referrer-Policy", value: "same-origin" },
-          { key: "X-Frame-Options", value: "DENY" },
-        ],
+        source: "/api/:path*",
+        headers: [{ key: "Content-Security-Policy", value: RESOURCE_CONTENT_SECURITY_POLICY }],
+      },
+      {
+        source: "/_next/static/:path*",
+        headers: [{ key: "Content-Security-Policy", value: RESOURCE_CONTENT_SECURITY_POLICY }],
       },
     ];
   },

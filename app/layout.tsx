@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import type { ReactNode } from "react";
 
 import { Providers } from "@/components/providers";
@@ -35,7 +36,10 @@ export const viewport: Viewport = {
   themeColor: "#2f6b3a",
 };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // Every page renders per request (the not-found page too), so Next can put this request's
+  // Content-Security-Policy nonce (proxy.ts) on its scripts; a prerendered page would have none.
+  await connection();
   return (
     <html lang="en" className={sward.variable}>
       <body className="min-h-dvh font-sans">

@@ -104,8 +104,12 @@ const serverSchema = z
     LOG_LEVEL: z
       .enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"])
       .default("info"),
-    /** Failed sign-ins allowed per e-mail address within the window before it is throttled. */
+    /** Failed sign-ins allowed per e-mail address from one client address within the window. */
     SIGN_IN_MAX_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+    /** Failed sign-ins allowed per e-mail address from all client addresses (addresses that signed in to it before are exempt). */
+    SIGN_IN_MAX_PER_ACCOUNT_ALL_ADDRESSES: z.coerce.number().int().positive().default(50),
+    /** Proxies in front of the app that append to X-Forwarded-For (read by lib/http/edge-address.mjs). */
+    TRUSTED_PROXY_COUNT: z.coerce.number().int().min(0).max(10).default(0),
     /** Failed sign-ins allowed per client address within the window. */
     SIGN_IN_MAX_PER_ADDRESS: z.coerce.number().int().positive().default(20),
     SIGN_IN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),

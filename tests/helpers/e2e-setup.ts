@@ -61,7 +61,16 @@ async function start(
   sup.start(
     "server",
     "node",
-    ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(PORT)],
+    [
+      "--import",
+      "./lib/http/edge-address.mjs",
+      "node_modules/next/dist/bin/next",
+      "start",
+      "-H",
+      "127.0.0.1",
+      "-p",
+      String(PORT),
+    ],
     {
       stdio: ["ignore", logFile, "inherit"],
       env: {

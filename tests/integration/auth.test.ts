@@ -73,9 +73,35 @@ describe("checkCredentials", () => {
     ).toEqual({ ok: false, reason: "invalid" });
   });
 
-  it("100 wrong passwords for one account: throttled after 5, even the right password then, and says so", async () => {
+  it("wrong passwords from one address lock that address out of the account after 5, not its owner", async () => {
     const c = await createTestCompany();
     const email = c.emails.owner3!;
+    const guesser = nextAddress();
+    const outcomes: string[] = [];
+    for (let i = 0; i < 20; i++) {
+      const r = await checkCredentials({ email, password: "wrong-guess-" + i, address: guesser });
+      outcomes.push(r.ok ? "ok" : r.reason);
+    }
+    expect(outcomes.indexOf("throttled")).toBe(5); // SIGN_IN_MAX_PER_ACCOUNT in vitest.config.ts
+    expect(outcomes.slice(5).every((o) => o === "throttled")).toBe(true);
+    // Even the right password, from the guesser's address:
+    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: guesser })).toEqual({
+      ok: false,
+      reason: "throttled",
+    });
+    // The owner, from their own address, is not locked out.
+    expect(
+      await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
+    ).toEqual({ ok: true, userId: c.userIds.owner3 });
+  });
+
+  it("100 wrong passwords for one account, each from a new address: refused after 50 account-wide, except from an address that signed in before", async () => {
+    const c = await createTestCompany();
+    const email = c.emails.owner3!;
+    const home = nextAddress();
+    expect((await checkCredentials({ email, password: TEST_PASSWORD, address: home })).ok).toBe(
+      true,
+    );
     const outcomes: string[] = [];
     for (let i = 0; i < 100; i++) {
       const r = await checkCredentials({
@@ -86,24 +112,30 @@ describe("checkCredentials", () => {
       outcomes.push(r.ok ? "ok" : r.reason);
     }
     const throttledFrom = outcomes.indexOf("throttled");
-    expect(throttledFrom).toBe(5); // SIGN_IN_MAX_PER_ACCOUNT in vitest.config.ts
+    expect(throttledFrom).toBe(50); // SIGN_IN_MAX_PER_ACCOUNT_ALL_ADDRESSES (default)
     expect(outcomes.slice(throttledFrom).every((o) => o === "throttled")).toBe(true);
     expect(outcomes).not.toContain("ok");
+    // A new address is refused even with the right password; the owner's known address is not.
     expect(
       await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
     ).toEqual({ ok: false, reason: "throttled" });
+    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: home })).toEqual({
+      ok: true,
+      userId: c.userIds.owner3,
+    });
     console.log(
-      `throttle: 100 wrong passwords for one account (each from a new address): refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled, 0 accepted`,
+      `throttle: 100 wrong passwords for one account (each from a new address): refused from attempt ${throttledFrom + 1} on; ${outcomes.filter((o) => o === "throttled").length} of 100 throttled, 0 accepted; the owner's known address still signs in`,
     );
   });
 
   it("throttles an unknown e-mail the same way (no hint that it does not exist)", async () => {
     const outcomes: string[] = [];
+    const from = nextAddress();
     for (let i = 0; i < 6; i++) {
       const r = await checkCredentials({
         email: "nobody-here@test.sward.test",
         password: "x-" + i,
-        address: nextAddress(),
+        address: from,
       });
       outcomes.push(r.ok ? "ok" : r.reason);
     }
@@ -148,19 +180,20 @@ describe("checkCredentials", () => {
   it("failures older than the window no longer count", async () => {
     const c = await createTestCompany();
     const email = c.emails.tech2!;
-    for (let i = 0; i < 5; i++)
-      await checkCredentials({ email, password: "bad", address: nextAddress() });
-    expect(
-      await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
-    ).toEqual({ ok: false, reason: "throttled" });
+    const from = nextAddress();
+    for (let i = 0; i < 5; i++) await checkCredentials({ email, password: "bad", address: from });
+    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: from })).toEqual({
+      ok: false,
+      reason: "throttled",
+    });
     await testDb()
       .updateTable("sign_in_attempts")
       .set({ attempted_at: sql<Date>`now() - interval '16 minutes'` })
       .where("email_key", "=", email)
       .execute();
-    expect(
-      await checkCredentials({ email, password: TEST_PASSWORD, address: nextAddress() }),
-    ).toMatchObject({ ok: true });
+    expect(await checkCredentials({ email, password: TEST_PASSWORD, address: from })).toMatchObject(
+      { ok: true },
+    );
   });
 
   it("timing does not reveal whether an e-mail exists", async () => {

@@ -5,22 +5,60 @@ import { describe, expect, it } from "vitest";
 import { signInSchema } from "@/lib/auth/schemas";
 import { isThrottled, normaliseEmail } from "@/lib/auth/throttle";
 
-const limits = { maxPerAccount: 5, maxPerAddress: 20, windowMinutes: 15 };
+const limits = {
+  maxPerAccount: 5,
+  maxPerAddress: 20,
+  maxPerAccountAllAddresses: 50,
+  windowMinutes: 15,
+};
+const none = { forAccountFromAddress: 0, fromAddress: 0, forAccount: 0, isKnownAddress: false };
 
 describe("isThrottled", () => {
   it("throttles exactly at the limits", () => {
-    expect(isThrottled({ forAccount: 4, fromAddress: 19 }, limits)).toBe(false);
-    expect(isThrottled({ forAccount: 5, fromAddress: 0 }, limits)).toBe(true);
-    expect(isThrottled({ forAccount: 0, fromAddress: 20 }, limits)).toBe(true);
+    expect(
+      isThrottled({ ...none, forAccountFromAddress: 4, fromAddress: 19, forAccount: 49 }, limits),
+    ).toBe(false);
+    expect(isThrottled({ ...none, forAccountFromAddress: 5 }, limits)).toBe(true);
+    expect(isThrottled({ ...none, fromAddress: 20 }, limits)).toBe(true);
+    expect(isThrottled({ ...none, forAccount: 50 }, limits)).toBe(true);
+  });
+
+  it("the account-wide limit spares an address that signed in to the account before; the others do not", () => {
+    expect(isThrottled({ ...none, forAccount: 500, isKnownAddress: true }, limits)).toBe(false);
+    expect(isThrottled({ ...none, forAccountFromAddress: 5, isKnownAddress: true }, limits)).toBe(
+      true,
+    );
+    expect(isThrottled({ ...none, fromAddress: 20, isKnownAddress: true }, limits)).toBe(true);
   });
 
   it("is monotone: more failures never un-throttle", () => {
     fc.assert(
-      fc.property(fc.nat(100), fc.nat(100), fc.nat(10), fc.nat(10), (a, b, da, db) => {
-        if (isThrottled({ forAccount: a, fromAddress: b }, limits)) {
-          expect(isThrottled({ forAccount: a + da, fromAddress: b + db }, limits)).toBe(true);
-        }
-      }),
+      fc.property(
+        fc.nat(100),
+        fc.nat(100),
+        fc.nat(100),
+        fc.boolean(),
+        fc.nat(10),
+        fc.nat(10),
+        fc.nat(10),
+        (p, a, t, known, dp, da, dt) => {
+          const before = {
+            forAccountFromAddress: p,
+            fromAddress: a,
+            forAccount: t,
+            isKnownAddress: known,
+          };
+          if (isThrottled(before, limits)) {
+            const after = {
+              forAccountFromAddress: p + dp,
+              fromAddress: a + da,
+              forAccount: t + dt,
+              isKnownAddress: known,
+            };
+            expect(isThrottled(after, limits)).toBe(true);
+          }
+        },
+      ),
     );
   });
 });
