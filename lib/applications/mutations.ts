@@ -18,6 +18,7 @@ import { AppError, notFound } from "@/lib/http/app-error";
 import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { toRuleSetDto } from "@/lib/rule-sets/map";
+import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 
 import { bindAppliedAt } from "./applied-at";
 import { assessApplication, type Assessment } from "./assess";
@@ -232,6 +233,15 @@ export async function recordApplication(
   const inserted = await db()
     .transaction()
     .execute(async (trx) => {
+      // The visit, locked: a finish (or a cancel) that committed since the checks above wins,
+      // and this application is refused instead of being stored after the visit was closed.
+      const locked = await lockVisit(trx, actor, visitId);
+      assertEditable(actor, locked);
+      if (locked.status === "completed" && visit.status !== "completed")
+        throw new AppError(
+          "conflict",
+          "This visit was finished while the application was being recorded, so it was not saved. A manager can add it as a correction.",
+        );
       const row = await trx
         .insertInto("applications")
         .values({
@@ -289,7 +299,7 @@ export async function recordApplication(
             appliedAt: { from: bound.expected.toISOString(), to: appliedAt.toISOString() },
           },
         });
-      if (visit.status === "scheduled")
+      if (locked.status === "scheduled")
         await trx
           .updateTable("visits")
           .set({ status: "in_progress", started_at: sql<Date>`now()`, started_by: actor.userId })

@@ -10,6 +10,7 @@ import { visitInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { MEASURED_BY } from "@/lib/photo-analysis/color";
 import type { PhotoStorage } from "@/lib/services/storage";
+import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 
 import type { PhotoDto } from "./dto";
 import type { ProcessedPhoto } from "./process";
@@ -66,6 +67,10 @@ export async function addPhoto(
   const inserted = await db()
     .transaction()
     .execute(async (trx) => {
+      // The visit, locked: a finish or a cancel that committed while the photo was processed
+      // is seen here (a technician's photo is then refused, as it would be on a finished visit).
+      const locked = await lockVisit(trx, actor, visitId);
+      assertEditable(actor, locked);
       const row = await trx
         .insertInto("photos")
         .values({
@@ -101,7 +106,7 @@ export async function addPhoto(
           companyId: actor.companyId,
           propertyId: target.property_id,
           recheckIndexOf: [zoneCheckId], // photo cover and colour are part of the Index
-          alerts: target.status === "completed" ? "evaluate" : "keep",
+          alerts: locked.status === "completed" ? "evaluate" : "keep",
         });
       return row !== undefined;
     });

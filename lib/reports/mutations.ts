@@ -18,8 +18,8 @@ import { AppError } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { services } from "@/lib/services";
+import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 import type { VisitDetailDto } from "@/lib/visits/dto";
-import { assertEditable, lockVisit } from "@/lib/visits/mutations";
 import { getVisit } from "@/lib/visits/queries";
 
 import { getVisitReport } from "./queries";
@@ -72,7 +72,9 @@ export async function finishVisit(actor: Actor, visitId: string): Promise<VisitD
         .updateTable("visits")
         .set({
           status: "completed",
-          completed_at: sql<Date>`now()`,
+          // The moment of the lock, not of the transaction's start: every write that held the
+          // visit before it committed earlier, and every later one sees the visit finished.
+          completed_at: sql<Date>`clock_timestamp()`,
           completed_by: actor.userId,
           version: sql<number>`version + 1`,
           updated_at: sql<Date>`now()`,

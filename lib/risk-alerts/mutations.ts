@@ -70,11 +70,34 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
       "Only a manager can resolve an alert. Acknowledge it with a note instead.",
     );
   const alert = await lockAlert(actor, alertId);
-  if (alert.status === "resolved") return alert; // resolving twice is harmless
   await db()
     .transaction()
     .execute(async (trx) => {
-      const updated = await trx
+      // The row, locked: of resolves sent at once one wins; the others see it resolved here.
+      const row = await trx
+        .selectFrom("risk_alerts")
+        .select(["status", "resolved_by"])
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", alertId)
+        .forUpdate()
+        .executeTakeFirstOrThrow();
+      if (row.status === "resolved") {
+        const last = await trx
+          .selectFrom("risk_alert_events")
+          .leftJoin("users", "users.id", "risk_alert_events.actor_id")
+          .select(["risk_alert_events.note", "users.name"])
+          .where("risk_alert_events.alert_id", "=", alertId)
+          .where("risk_alert_events.action", "=", "resolved")
+          .orderBy("risk_alert_events.at", "desc")
+          .executeTakeFirst();
+        // The same manager sending the same note again (a retry): harmless, nothing added.
+        if (row.resolved_by === actor.userId && (last?.note ?? "") === note) return;
+        throw new AppError(
+          "conflict",
+          `This alert was already resolved${last?.name ? ` by ${last.name}` : ""}, so your note was not saved. Read the resolution and add what is missing to the property's notes.`,
+        );
+      }
+      await trx
         .updateTable("risk_alerts")
         .set({
           status: "resolved",
@@ -84,9 +107,7 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
           updated_at: new Date(),
         })
         .where("id", "=", alertId)
-        .where("status", "!=", "resolved")
-        .executeTakeFirst();
-      if (!updated.numUpdatedRows) return; // resolved meanwhile: that write refreshed the book
+        .execute();
       await trx
         .insertInto("risk_alert_events")
         .values({
@@ -94,7 +115,7 @@ export async function resolveAlert(actor: Actor, alertId: string, note: string):
           company_id: actor.companyId,
           actor_id: actor.userId,
           action: "resolved",
-          from_status: alert.status,
+          from_status: row.status,
           to_status: "resolved",
           note,
         })

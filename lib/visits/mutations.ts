@@ -4,47 +4,24 @@
 import "server-only";
 
 import { randomUUID } from "node:crypto";
-import { sql, type Transaction } from "kysely";
+import { sql } from "kysely";
 
 import { db } from "@/db";
-import type { Database, ZoneCheck } from "@/db/schema";
+import type { ZoneCheck } from "@/db/schema";
 import { afterWrite } from "@/lib/after-write";
 import { indexColumns } from "@/lib/after-write/check-index";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
-import { propertyInScope, visitInScope } from "@/lib/auth/scope";
+import { propertyInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
 import type { PhotoFigures } from "@/lib/scoring/from-check";
+import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 import { fillVisitWeather } from "@/lib/weather/mutations";
 
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
 import type { ScheduleVisitInput, ZoneCheckInput } from "./schemas";
-
-/** The visit row, locked for the rest of the transaction; not found outside the actor's scope. */
-export async function lockVisit(trx: Transaction<Database>, actor: Actor, visitId: string) {
-  const visit = await trx
-    .selectFrom("visits")
-    .selectAll()
-    .where(visitInScope(actor))
-    .where("visits.id", "=", visitId)
-    .forUpdate()
-    .executeTakeFirst();
-  if (!visit) throw notFound("That visit");
-  return visit;
-}
-
-/** Cancelled visits never change; finished ones only by a manager (audited). */
-export function assertEditable(actor: Actor, visit: { status: string }) {
-  if (visit.status === "cancelled")
-    throw new AppError("conflict", "This visit was cancelled; it can no longer be changed.");
-  if (visit.status === "completed" && actor.role !== "manager")
-    throw new AppError(
-      "forbidden",
-      "This visit is finished and locked. Ask your manager to correct it.",
-    );
-}
 
 export async function scheduleVisit(
   actor: Actor,
