@@ -67,10 +67,16 @@ const encodeCursor = (value: unknown, id: string) =>
 
 /** PostgreSQL's real (float4) holds magnitudes up to about 3.4e38; anything larger cannot be a sort value. */
 const REAL_MAX = 3.4e38;
+const REAL_MIN_NORMAL = 1.18e-38;
 /** What the sort value of each sort type may be: exactly what encodeCursor writes for it. */
 const CURSOR_VALUE = {
   int: z.int32(),
-  real: z.number().check(z.gte(-REAL_MAX), z.lte(REAL_MAX)),
+  // …and nothing between 0 and float4's smallest normal magnitude (casting 5e-324 underflows).
+  real: z.number().check(
+    z.gte(-REAL_MAX),
+    z.lte(REAL_MAX),
+    z.refine((n) => n === 0 || Math.abs(n) >= REAL_MIN_NORMAL),
+  ),
   date: z.string().check(z.refine((d) => isIsoDate(d) && d >= "0001-01-01")), // PostgreSQL has no year 0
   text: z.string().check(
     z.maxLength(300),

@@ -46,6 +46,7 @@ describe("forged book cursors", () => {
     ["a numeric string", ["12", UUID]],
     ["1e40", [1e40, UUID]],
     ["-1e40", [-1e40, UUID]],
+    ["5e-324 (underflows a real)", [5e-324, UUID]],
     ["2^31", [2 ** 31, UUID]],
     ["a fraction for an integer", [1.5, UUID]],
     ["an impossible date", ["2026-02-30", UUID]],
@@ -69,7 +70,7 @@ describe("forged book cursors", () => {
     if (sort === "name") return typeof v === "string" && !v.includes("\u0000");
     if (sort === "last" || sort === "next") return false;
     if (sort === "attention") return Number.isInteger(v) && Math.abs(v as number) < 2 ** 31;
-    return typeof v === "number" && Math.abs(v) <= 3.4e38;
+    return typeof v === "number" && Math.abs(v) <= 3.4e38 && (v === 0 || Math.abs(v) >= 1.18e-38);
   };
 
   it(`${forged.length} forged values × ${BOOK_SORTS.length} sorts → 422 with a plain message (or a page for a value a real cursor could hold)`, async () => {
