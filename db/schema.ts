@@ -298,6 +298,10 @@ interface ZoneChecksTable {
   soil_moisture: SoilMoisture | null;
   soil_moisture_pct: number | null;
   height_of_cut_in: number | null;
+  /** Mowed at this visit (true), explicitly not mowed today (false), or not recorded (null). */
+  mowed_today: boolean | null;
+  /** Grass height before mowing, when mowed at this visit (the one-third rule reads it). */
+  height_before_mowing_in: number | null;
   mowing_direction: MowingDirection | null;
   is_matted: Generated<boolean>;
   is_scalped: Generated<boolean>;

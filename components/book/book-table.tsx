@@ -59,7 +59,7 @@ const columns = helper.columns([
     header: "Trend",
     cell: (info) => (
       <div className="space-y-1">
-        <TrendBadge word={info.row.original.trendWord} />
+        <TrendBadge word={info.row.original.trendWord} n={info.row.original.trendN} />
         {info.getValue() !== null && info.row.original.trendWord ? (
           <div className="text-sm text-muted">
             {info.getValue()! >= 0 ? "+" : "−"}

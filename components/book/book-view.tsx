@@ -17,7 +17,7 @@ const TRENDS = [
   ["declining", "Declining"],
   ["steady", "Steady"],
   ["improving", "Improving"],
-  ["none", "No trend yet"],
+  ["none", "No clear trend"],
 ] as const;
 const NATURAL: Record<string, "asc" | "desc"> = {
   attention: "desc",

@@ -3,6 +3,7 @@ import { ChartFigure, Td, Th } from "@/components/charts/chart-figure";
 import { SimpleTrendChart } from "@/components/charts/simple-trend-chart";
 import { formatDate } from "@/lib/dates";
 import type { PropertyScoreHistory } from "@/lib/scoring/dto";
+import { MIN_CHECKS_FOR_TREND_WORD } from "@/lib/scoring/weights";
 
 const SAYING = {
   improving: "Your lawn is getting healthier.",
@@ -19,6 +20,7 @@ export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
       </p>
     );
   const word = history.trend?.word ?? null;
+  const n = history.trend?.n ?? 0;
   const change = history.season?.change ?? null;
   return (
     <div className="mb-6">
@@ -35,7 +37,11 @@ export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
               </span>
             </p>
             <p>
-              {word ? SAYING[word] : "A direction shows after three visits."}
+              {word
+                ? `${SAYING[word]} Based on ${n} visits in the last 120 days.`
+                : n < MIN_CHECKS_FOR_TREND_WORD
+                  ? `A direction shows after ${MIN_CHECKS_FOR_TREND_WORD} visits within 120 days (${n} so far).`
+                  : `No clear direction over the last ${n} visits: the scores vary more than they move.`}
               {change !== null && history.season
                 ? ` ${change >= 0 ? "Up" : "Down"} ${Math.abs(Math.round(change))} points since ${formatDate(history.season.from.date)}.`
                 : ""}

@@ -8,7 +8,13 @@ import { WeatherStrip } from "@/components/charts/weather-strip";
 import { formatDate } from "@/lib/dates";
 import type { PropertyScoreHistory } from "@/lib/scoring/dto";
 import { MIN_CHECKS_FOR_CORRELATION } from "@/lib/scoring/history";
-import { coefficient, patternPhrase, seasonSentence, trendSentence } from "@/lib/scoring/words";
+import {
+  coefficient,
+  patternPhrase,
+  pValue,
+  seasonSentence,
+  trendSentence,
+} from "@/lib/scoring/words";
 
 import { TrendBadge } from "./trend-badge";
 
@@ -184,7 +190,7 @@ export function PropertyIndexSection({
                 <span className="text-2xl font-bold">{last ? Math.round(last.index) : "—"}</span>
               </div>
               <p className="mt-1 flex flex-wrap items-center gap-2">
-                <TrendBadge word={z.trend?.word ?? null} />
+                <TrendBadge word={z.trend?.word ?? null} n={z.trend?.n ?? 0} />
                 {z.trend && z.trend.word ? (
                   <span className="text-sm text-muted">
                     {z.trend.slopePer30Days >= 0 ? "+" : "−"}
@@ -202,7 +208,7 @@ export function PropertyIndexSection({
                 {c.n < MIN_CHECKS_FOR_CORRELATION
                   ? `Nitrogen pattern: not enough visits yet (${c.n} of ${MIN_CHECKS_FOR_CORRELATION} checks).`
                   : c.nitrogen
-                    ? `Nitrogen: ${patternPhrase(c.nitrogen.pearson)} (r ${coefficient(c.nitrogen.pearson)}, n ${c.nitrogen.n}).`
+                    ? `Nitrogen: ${patternPhrase(c.nitrogen)} (r ${coefficient(c.nitrogen.pearson)}, ${pValue(c.nitrogen.pPearson)}, n ${c.nitrogen.n}).`
                     : "Nitrogen: no feeding variation to compare."}
               </p>
             </li>

@@ -1,7 +1,9 @@
-// A trend word as a badge: improving / steady / declining (or no trend yet).
+// A trend word as a badge with n beside it: improving / steady / declining, or no word (fewer than
+// 5 checks, or checks that support no word: see trendWord in lib/scoring/trend.ts).
 import { MoveRight, TrendingDown, TrendingUp } from "lucide-react";
 
 import type { TrendWord } from "@/lib/scoring/trend";
+import { MIN_CHECKS_FOR_TREND_WORD } from "@/lib/scoring/weights";
 
 const STYLE = {
   improving: { className: "bg-sward-tint text-sward-deep", Icon: TrendingUp },
@@ -9,11 +11,11 @@ const STYLE = {
   declining: { className: "bg-clay-tint text-clay", Icon: TrendingDown },
 } as const;
 
-export function TrendBadge({ word }: { word: TrendWord | null }) {
+export function TrendBadge({ word, n }: { word: TrendWord | null; n: number }) {
   if (!word)
     return (
       <span className="rounded-full bg-paper px-2.5 py-1 text-sm text-muted ring-1 ring-line">
-        No trend yet
+        {n < MIN_CHECKS_FOR_TREND_WORD ? "No trend yet" : "No clear trend"} (n {n})
       </span>
     );
   const { className, Icon } = STYLE[word];
@@ -23,6 +25,7 @@ export function TrendBadge({ word }: { word: TrendWord | null }) {
     >
       <Icon className="size-4" aria-hidden="true" />
       <span className="capitalize">{word}</span>
+      <span className="font-normal">(n {n})</span>
     </span>
   );
 }

@@ -128,7 +128,7 @@ export function ZoneIndexSection({
                 {c.respondsToNitrogen
                   ? "This zone counts as responding to nitrogen"
                   : "This zone does not count as responding to nitrogen"}{" "}
-                (both r at least {RESPONDS_TO_N_R}).
+                (Pearson r significant at 5 % and both r at least {RESPONDS_TO_N_R}).
               </li>
             ) : null}
           </ul>

@@ -9,8 +9,10 @@ import { PhotoFigure } from "@/components/photos/photo-figure";
 import { Button } from "@/components/ui/button";
 import { formatTime } from "@/lib/dates";
 import { fetchJson } from "@/lib/query-client";
+import { mowingReading, mowingSentence } from "@/lib/reference/mowing";
 import { findSymptom } from "@/lib/reference/symptoms";
 import {
+  MOWED_TODAY,
   MOWING_DIRECTION,
   RATING_FIELDS,
   SKIP_REASONS,
@@ -38,6 +40,7 @@ function Facts({ check }: { check: ZoneCheckDto }) {
     check.hasTornTips && "torn leaf tips",
     check.hasClumpedClippings && "clumped clippings",
   ].filter(Boolean);
+  const reading = mowingReading(check);
   return (
     <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4">
       {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(
@@ -73,6 +76,17 @@ function Facts({ check }: { check: ZoneCheckDto }) {
           {check.heightOfCutIn === null ? "—" : `${check.heightOfCutIn.toFixed(2)} in`}
         </dd>
       </div>
+      <div>
+        <dt className="text-muted">Mowed at this visit</dt>
+        <dd className="font-semibold">
+          {check.mowedToday === null
+            ? "not recorded"
+            : MOWED_TODAY[check.mowedToday ? "yes" : "no"]}
+          {check.mowedToday && check.heightBeforeMowingIn !== null
+            ? `, from ${check.heightBeforeMowingIn.toFixed(2)} in`
+            : ""}
+        </dd>
+      </div>
       <div className="col-span-2 sm:col-span-4">
         <dt className="text-muted">Mowing</dt>
         <dd>
@@ -80,6 +94,7 @@ function Facts({ check }: { check: ZoneCheckDto }) {
             ? MOWING_DIRECTION[check.mowingDirection]
             : "direction not recorded"}
           {signs.length ? `; ${signs.join(", ")}` : ""}
+          {reading ? `. ${mowingSentence(reading)}` : ""}
         </dd>
       </div>
       <div className="col-span-2 sm:col-span-4">

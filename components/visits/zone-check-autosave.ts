@@ -51,6 +51,16 @@ function valuesFrom(check: ZoneCheckDto): ZoneCheckValues {
   return values;
 }
 
+/**
+ * A device copy as this version of the form reads it: fields added since the copy was written
+ * (a draft kept on a phone across an update) take their empty value, so an old draft still loads
+ * and saves.
+ */
+function withCurrentFields(draft: DeviceDraft, zoneId: string): DeviceDraft {
+  const { baseVersion: _b, ...empty } = emptyZoneCheck(zoneId);
+  return { ...draft, values: { ...empty, ...draft.values } };
+}
+
 const sameValues = (a: ZoneCheckValues, b: ZoneCheckValues) =>
   JSON.stringify(a) === JSON.stringify(b);
 
@@ -88,7 +98,8 @@ export class ZoneCheckAutosave {
 
   /** Reads the device copy (call once mounted, in the browser). */
   start(): void {
-    const local = this.deps.storage.read();
+    const stored = this.deps.storage.read();
+    const local = stored ? withCurrentFields(stored, this.zoneId) : null;
     const serverVersion = this.serverCheck?.version ?? 0;
     if (local && !local.isDirty && local.baseVersion > serverVersion) {
       // The page was rendered from data older than this phone's last acknowledged save (a save

@@ -15,14 +15,16 @@ import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
+import { mowingReading, mowingSentence } from "@/lib/reference/mowing";
 import {
+  MOWED_TODAY,
   MOWING_DIRECTION,
   RATING_FIELDS,
   SKIP_REASONS,
   SOIL_MOISTURE,
 } from "@/lib/reference/visit-options";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
-import { zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
+import { mowingConsistency, zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
 
 import { RatingPicker } from "./rating-picker";
 import { SaveStatus } from "./save-status";
@@ -101,7 +103,19 @@ export function ZoneCheckForm({
       return next;
     });
   };
+  const setMowedToday = (choice: keyof typeof MOWED_TODAY | null) => {
+    setLocalErrors((e) => ({ ...e, heightBeforeMowingIn: [] }));
+    store.update((v) => ({
+      ...v,
+      mowedToday: choice === null ? null : choice === "yes",
+      // A height before mowing belongs to a mowing at this visit only.
+      heightBeforeMowingIn: choice === "yes" ? v.heightBeforeMowingIn : null,
+    }));
+  };
   const species = findGrassSpecies(zone.grassSpecies.key);
+  const reading = mowingReading(values);
+  const mowingError =
+    mowingConsistency(values).heightBeforeMowingIn ?? errorOf("heightBeforeMowingIn");
   const isSkipped = values.status === "skipped";
   const disabled = !canEdit;
 
@@ -132,7 +146,7 @@ export function ZoneCheckForm({
         >
           <p className="font-bold text-clay">{saveState.message}</p>
           <p>
-            Their version: overall quality {saveState.current.quality ?? "—"}, colour{" "}
+            Their version: overall quality {saveState.current.quality ?? "—"}, color{" "}
             {saveState.current.color ?? "—"}, {saveState.current.symptoms.length} symptom(s). Yours
             is on screen.
           </p>
@@ -317,12 +331,49 @@ export function ZoneCheckForm({
           </Section>
 
           <Section title="Mowing">
+            <div className="space-y-2">
+              <p className="font-semibold">Mowed at this visit?</p>
+              <ChoiceGroup
+                label="Mowed at this visit"
+                choices={choicesOf(MOWED_TODAY)}
+                value={values.mowedToday === null ? null : values.mowedToday ? "yes" : "no"}
+                onChange={setMowedToday}
+                columns={2}
+              />
+            </div>
+            {values.mowedToday ? (
+              <div>
+                <p className="mb-1 font-semibold">Grass height before mowing</p>
+                <p className="mb-2 text-sm text-muted">
+                  Measure before the mower goes over. The one-third rule: take off no more than a
+                  third of the blade at one mowing.
+                </p>
+                <Stepper
+                  label="Height before mowing"
+                  value={values.heightBeforeMowingIn}
+                  onChange={(v) => set("heightBeforeMowingIn", v)}
+                  step={0.25}
+                  min={0.25}
+                  max={24}
+                  startAt={Math.max(4, values.heightOfCutIn ?? 0)}
+                  unit="in"
+                  format={(v) => v.toFixed(2)}
+                />
+                {mowingError ? (
+                  <p className="mt-1 font-semibold text-clay" role="alert">
+                    {mowingError}
+                  </p>
+                ) : null}
+              </div>
+            ) : null}
             <div>
-              <p className="mb-1 font-semibold">Measured height of cut</p>
+              <p className="mb-1 font-semibold">
+                {values.mowedToday ? "Height of cut, after mowing" : "Measured height of cut"}
+              </p>
               {species ? (
                 <p className="mb-2 text-sm text-muted">
-                  {species.name}: {species.heightOfCutIn.min}–{species.heightOfCutIn.max} in (home
-                  lawns sit near the top)
+                  {species.name}, home lawns: {species.heightOfCutIn.min}–
+                  {species.heightOfCutIn.max} in
                 </p>
               ) : null}
               <Stepper
@@ -337,6 +388,18 @@ export function ZoneCheckForm({
                 format={(v) => v.toFixed(2)}
               />
             </div>
+            {reading ? (
+              <p
+                role="status"
+                className={
+                  reading.breaksOneThird
+                    ? "rounded-lg bg-sun-tint p-3 text-sm font-semibold"
+                    : "text-sm text-muted"
+                }
+              >
+                {mowingSentence(reading)}
+              </p>
+            ) : null}
             <div className="space-y-2">
               <p className="font-semibold">Mowing direction, compared with the last check</p>
               <ChoiceGroup

@@ -121,6 +121,8 @@ async function propertyRuleResults(
         "zone_checks.is_scalped",
         "zone_checks.has_torn_tips",
         "zone_checks.height_of_cut_in",
+        "zone_checks.mowed_today",
+        "zone_checks.height_before_mowing_in",
         "zone_checks.symptoms",
         "zone_checks.sward_index",
         "visits.scheduled_for",
@@ -207,6 +209,9 @@ async function propertyRuleResults(
       isScalped: c.is_scalped,
       hasTornTips: c.has_torn_tips,
       heightOfCutIn: c.height_of_cut_in === null ? null : Number(c.height_of_cut_in),
+      mowedToday: c.mowed_today,
+      heightBeforeMowingIn:
+        c.height_before_mowing_in === null ? null : Number(c.height_before_mowing_in),
       symptomKeys: c.symptoms.map((s) => s.key),
     }));
     const apps: ApplicationFacts[] = applications

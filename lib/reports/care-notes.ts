@@ -1,12 +1,12 @@
 // Which care notes a visit report carries (pure): the notes whose triggers match what was seen in
 // the zones, the property's open alerts, or what was applied — each with the reasons in words.
-// Readings: a "short cut" is below the species' range or below 2.5 in on cool-season turf
-// (home lawns are best kept at the top of the range; common practice); thick thatch is more than
-// 0.5 in; bare ground or weeds count from 10 % of the zone.
+// Readings: a "short cut" is below the bottom of the species' home-lawn range (extension tables,
+// lib/reference/grass-species.ts; these replaced a blanket 2.5 in for cool-season turf that sat
+// above perennial ryegrass's home-lawn range of 1.5–2.5 in); thick thatch is more than 0.5 in;
+// bare ground or weeds count from 10 % of the zone.
 import { CARE_NOTES, type CareNote, type CareTrigger } from "@/lib/reference/care-notes";
 import { alertKindLabel } from "@/lib/risk/labels";
 
-const HOME_LAWN_MIN_CUT_IN = 2.5;
 const THICK_THATCH_IN = 0.5;
 const NOTABLE_PCT = 10;
 
@@ -49,11 +49,7 @@ function findingsOf(z: ObservedZone): Finding[] {
   if (z.isMatted) out.push("matted");
   if (z.hasTornTips) out.push("torn_tips");
   if (z.isScalped) out.push("scalped");
-  if (
-    z.heightOfCutIn !== null &&
-    ((z.speciesMinCutIn !== null && z.heightOfCutIn < z.speciesMinCutIn) ||
-      (z.season === "cool" && z.heightOfCutIn < HOME_LAWN_MIN_CUT_IN))
-  )
+  if (z.heightOfCutIn !== null && z.speciesMinCutIn !== null && z.heightOfCutIn < z.speciesMinCutIn)
     out.push("short_cut");
   if (z.hasClumpedClippings) out.push("clumped_clippings");
   if (z.thatchIn !== null && z.thatchIn > THICK_THATCH_IN) out.push("thick_thatch");

@@ -22,13 +22,18 @@
 // - Brown patch weather runs for properties with a cool-season zone (the model was built on
 //   perennial ryegrass); dollar spot and Pythium run for every property, and every disease alert
 //   names the turf its model was built on.
-// - Mowing too short: the cut below the species' range (University of Tennessee table), or the
-//   one-third rule read between checks: a cut lower than two thirds of the previous check's cut
-//   means more than a third of the blade came off at once (common practice, extension-wide).
-// - Declining Index: the zone's trend word is "declining" (slope ≤ −2 points per 30 days over
-//   120 days, n ≥ 3; lib/scoring/weights.ts); −6 or worse is high.
+// - Mowing too short: the cut below the bottom of the species' home-lawn range (extension tables,
+//   lib/reference/grass-species.ts), or more than a third of the blade taken off at the mowing of
+//   this visit — the height before mowing against the height of cut (the one-third rule,
+//   lib/reference/mowing.ts). Never read between two checks: they may be weeks and several
+//   mowings apart. Moderate below the range, when scalping is seen, or when half the blade or
+//   more came off; low for a cut between a third and a half.
+// - Declining Index: the zone's trend word is "declining" — at least 5 checks in 120 days, a
+//   slope ≤ −2 points per 30 days whose 90 % interval lies below zero (trendWord in
+//   lib/scoring/trend.ts); −6 or worse is high.
 // - Late-season feeding: cool-season turf, from 1 September to the start of the rule set's
 //   blackout (else 30 November), with no N since 1 September — a reminder (low).
+import { mowingReading, ONE_THIRD_RULE } from "@/lib/reference/mowing";
 import { findSymptom } from "@/lib/reference/symptoms";
 
 import {
@@ -93,10 +98,10 @@ const SOURCES = {
   drought:
     "Common practice: about 1 inch of water a week in summer; balance = rain + watering − Kc × reference ET (FAO-56).",
   heat: "Common practice (extension-wide): do not push nitrogen on cool-season turf in summer heat and drought; warm-season grasses are fed in summer, their season of growth.",
-  mowing:
-    "University of Tennessee height-of-cut table (via trade press); the one-third rule (common practice, extension-wide).",
+  mowing: `Home-lawn mowing heights from extension tables (University of Kentucky AGR-209; UF/IFAS “Mowing Your Florida Lawn”; University of Maine); ${ONE_THIRD_RULE.source}`,
   tornTips: "Common practice: dull blades tear leaf tips, which brown and let disease in.",
-  decline: "Sward trend: least squares over 120 days (lib/scoring/history.ts).",
+  decline:
+    "Sward trend: least-squares slope over 120 days with its 90 % interval (Student's t, n − 2 degrees of freedom); a word needs at least 5 checks.",
   lateSeason:
     "Common practice: a late-season nitrogen feeding for cool-season turf in the fall, before the ground freezes.",
 } as const;
@@ -134,6 +139,9 @@ export interface CheckFacts {
   isScalped: boolean;
   hasTornTips: boolean;
   heightOfCutIn: number | null;
+  /** Mowed at this visit (true), not mowed today (false), not recorded (null). */
+  mowedToday: boolean | null;
+  heightBeforeMowingIn: number | null;
   symptomKeys: string[];
 }
 
@@ -502,34 +510,45 @@ export function mowingTooShort(
   range: { min: number; max: number } | null,
 ): RuleResult {
   const latest = checks.at(-1);
-  const previous = checks.at(-2);
   const h = latest?.heightOfCutIn ?? null;
-  const prev = previous?.heightOfCutIn ?? null;
+  const reading = latest ? mowingReading(latest) : null;
   const belowRange = h !== null && range !== null && h < range.min;
-  const oneThird = h !== null && prev !== null && h < (prev * 2) / 3 - 1e-9;
+  const oneThird = reading?.breaksOneThird ?? false;
+  const half = reading !== null && reading.removedShare >= 0.5;
   const scalped = latest?.isScalped ?? false;
   const evidence: Evidence = {
-    values: { heightOfCutIn: h, previousIn: prev, speciesMinIn: range?.min ?? null, scalped },
+    values: {
+      heightOfCutIn: h,
+      mowedToday: latest?.mowedToday ?? null,
+      heightBeforeMowingIn: latest?.heightBeforeMowingIn ?? null,
+      removedPct: reading ? round(reading.removedShare * 100, 0) : null,
+      speciesMinIn: range?.min ?? null,
+      scalped,
+    },
     threshold:
-      "cut below the species' range, or below two thirds of the previous check's cut (one-third rule), or scalping seen",
-    window: latest
-      ? `the checks of ${previous ? `${previous.date} and ` : ""}${latest.date}`
-      : "no check yet",
+      "cut below the bottom of the species' home-lawn range; more than a third of the blade taken off at this visit's mowing (height before mowing against height of cut: the one-third rule); or scalping seen",
+    window: latest ? `the check of ${latest.date}` : "no check yet",
   };
   if (!belowRange && !oneThird && !scalped)
     return quiet("mowing_too_short", SOURCES.mowing, evidence);
   const reasons = [
-    belowRange ? `cut at ${h} in, below the ${range!.min} in bottom of the range` : null,
-    oneThird ? `cut dropped from ${prev} in to ${h} in — more than a third at once` : null,
+    belowRange ? `cut at ${h} in, below the ${range!.min} in bottom of the home-lawn range` : null,
+    oneThird
+      ? `mowed from ${reading!.beforeIn} in to ${reading!.cutIn} in, taking off ${round(reading!.removedShare * 100, 0)} % of the blade (more than the third the one-third rule allows; at ${reading!.cutIn} in, mow before the grass passes ${round(reading!.mowByIn, 2)} in)`
+      : null,
     scalped ? "scalping seen" : null,
   ].filter(Boolean);
   return {
     kind: "mowing_too_short",
     raised: true,
-    severity: belowRange || scalped ? "moderate" : "low",
+    severity: belowRange || scalped || half ? "moderate" : "low",
     evidence,
     source: SOURCES.mowing,
-    summary: `Mowing too short: ${reasons.join("; ")}. Raise the mowing height.`,
+    summary: `Mowing too short: ${reasons.join("; ")}. ${
+      belowRange || scalped
+        ? "Raise the mowing height."
+        : "Mow more often, or bring tall grass down over two or three mowings."
+    }`,
   };
 }
 
@@ -552,15 +571,25 @@ export function tornTips(checks: CheckFacts[]): RuleResult {
 }
 
 export function decliningIndex(
-  trend: { slopePer30Days: number; r2: number; n: number; word: string | null } | null,
+  trend: {
+    slopePer30Days: number;
+    r2: number;
+    n: number;
+    ciLowPer30Days: number | null;
+    ciHighPer30Days: number | null;
+    word: string | null;
+  } | null,
 ): RuleResult {
   const evidence: Evidence = {
     values: {
       slopePer30Days: trend ? round(trend.slopePer30Days, 1) : null,
+      ciLowPer30Days: trend?.ciLowPer30Days == null ? null : round(trend.ciLowPer30Days, 1),
+      ciHighPer30Days: trend?.ciHighPer30Days == null ? null : round(trend.ciHighPer30Days, 1),
       r2: trend ? round(trend.r2, 2) : null,
       n: trend?.n ?? 0,
     },
-    threshold: "trend word “declining”: ≤ −2 points per 30 days with n ≥ 3; high at ≤ −6",
+    threshold:
+      "trend word “declining”: n ≥ 5 and a slope ≤ −2 points per 30 days whose 90 % interval is below zero; high at ≤ −6",
     window: "the 120 days to the latest check",
   };
   if (!trend || trend.word !== "declining")
@@ -571,7 +600,7 @@ export function decliningIndex(
     severity: trend.slopePer30Days <= DECLINE.highSlopePer30Days ? "high" : "moderate",
     evidence,
     source: SOURCES.decline,
-    summary: `The Index is falling ${round(Math.abs(trend.slopePer30Days), 1)} points per 30 days (n ${trend.n}).`,
+    summary: `The Index is falling ${round(Math.abs(trend.slopePer30Days), 1)} points per 30 days (90 % interval ${round(Math.abs(trend.ciHighPer30Days ?? 0), 1)} to ${round(Math.abs(trend.ciLowPer30Days ?? 0), 1)}; n ${trend.n}).`,
   };
 }
 

@@ -3,23 +3,34 @@
 //
 // Readings we chose, and why:
 // - Trend: least squares over the checks of the last TREND_WINDOW_DAYS days before the latest
-//   check (at least 3 for a word), in points per 30 days (lib/scoring/trend.ts).
+//   check, in points per 30 days with its 90 % interval; a word needs at least 5 checks and an
+//   interval that excludes zero ("improving"/"declining") or lies within ±2 ("steady"); see
+//   trendWord in lib/scoring/trend.ts.
 // - Season: the calendar year of the latest check. Cool-season lawns in the northern states are
 //   fed and scored from spring green-up to late fall, so a year is one season (common practice).
 // - Nitrogen and water are taken *before* the check: an application made at the same visit comes
 //   after the technician looked at the zone, so it cannot explain what was seen. Plant-available N
 //   is the prior 45 days (lib/scoring/available-nitrogen.ts) up to the day before the check; the
 //   water balance is the 14 days ending the day before (rain + watering − Kc × ETo).
-// - A zone "responds to N" when both Pearson and Spearman r of Index vs available N are at least
+// - A zone "responds to N" when Pearson's r of Index vs available N is significant (two-sided
+//   p < 0.05 by t = r√(n−2)/√(1−r²)) and both Pearson and Spearman r are at least
 //   RESPONDS_TO_N_R = 0.3, Cohen's "medium" correlation (J. Cohen, Statistical Power Analysis for
 //   the Behavioral Sciences, 2nd ed., 1988: r = .1 small, .3 medium, .5 large; from memory).
+//   Significance first: r = 0.5 over 6 checks has p = 0.31, no evidence of any pattern.
 //   It is a pattern, not proof: correlation is not cause.
 import { addDays } from "@/lib/dates";
 import type { DerivedDay } from "@/lib/weather/derived";
 
 import { availableNitrogen } from "./available-nitrogen";
 import { propertyIndex } from "./sward-index";
-import { correlate, indexTrend, trendWord, type TrendWord } from "./trend";
+import {
+  correlate,
+  indexTrend,
+  trendWord,
+  type Correlation,
+  type IndexTrend,
+  type TrendWord,
+} from "./trend";
 
 const TREND_WINDOW_DAYS = 120;
 export const MIN_CHECKS_FOR_CORRELATION = 6;
@@ -43,10 +54,7 @@ export interface NitrogenEvent {
   productName: string;
 }
 
-export interface Trend {
-  slopePer30Days: number;
-  r2: number;
-  n: number;
+export interface Trend extends IndexTrend {
   word: TrendWord | null;
 }
 
@@ -85,8 +93,8 @@ interface CorrelationPair {
 
 export interface ZoneCorrelations {
   pairs: CorrelationPair[];
-  nitrogen: { pearson: number; spearman: number; n: number } | null;
-  water: { pearson: number; spearman: number; n: number } | null;
+  nitrogen: Correlation | null;
+  water: Correlation | null;
   /** Checks counted; below MIN_CHECKS_FOR_CORRELATION there is "not enough visits yet". */
   n: number;
   respondsToNitrogen: boolean | null;
@@ -137,7 +145,9 @@ export function zoneCorrelations(
     water,
     n: pairs.length,
     respondsToNitrogen: nitrogen
-      ? nitrogen.pearson >= RESPONDS_TO_N_R && nitrogen.spearman >= RESPONDS_TO_N_R
+      ? nitrogen.isSignificant &&
+        nitrogen.pearson >= RESPONDS_TO_N_R &&
+        nitrogen.spearman >= RESPONDS_TO_N_R
       : null,
   };
 }

@@ -41,5 +41,15 @@ export const INDEX_PENALTIES = {
   maxSymptoms: 40,
 } as const;
 
-/** Trend words: a slope of at least this many Index points per 30 days (n ≥ 3) is a change. */
+/**
+ * Trend words (lib/scoring/trend.ts, trendWord): a change is a slope of at least this many Index
+ * points per 30 days whose 90 % interval excludes zero; "steady" needs the whole interval within
+ * ± this margin.
+ */
 export const TREND_THRESHOLD_PER_30_DAYS = 2;
+/** A trend word needs at least this many checks in the 120-day window. */
+export const MIN_CHECKS_FOR_TREND_WORD = 5;
+/** Two-sided confidence level of the slope interval. */
+export const TREND_CONFIDENCE = 0.9;
+/** Correlation words need Pearson's r significant at this two-sided level. */
+export const CORRELATION_ALPHA = 0.05;

@@ -2,7 +2,12 @@
 import { formatDate } from "@/lib/dates";
 
 import type { SeasonChange, Trend } from "./history";
-import { TREND_THRESHOLD_PER_30_DAYS } from "./weights";
+import type { Correlation } from "./trend";
+import {
+  CORRELATION_ALPHA,
+  MIN_CHECKS_FOR_TREND_WORD,
+  TREND_THRESHOLD_PER_30_DAYS,
+} from "./weights";
 
 const signed = (x: number, digits = 1) => `${x >= 0 ? "+" : "−"}${Math.abs(x).toFixed(digits)}`;
 /** A coefficient with a true minus sign: −0.84, 0.92. */
@@ -17,19 +22,34 @@ export function correlationStrength(r: number): "no" | "a weak" | "a moderate" |
   return "a strong";
 }
 
-export function correlationSentence(
-  what: string,
-  c: { pearson: number; spearman: number; n: number },
-): string {
-  const phrase = patternPhrase(c.pearson);
-  return `${phrase[0]!.toUpperCase()}${phrase.slice(1)} with ${what}: Pearson r ${coefficient(c.pearson)}, Spearman ρ ${coefficient(c.spearman)} (n ${c.n}).`;
+/** A p-value as printed beside a coefficient: "p 0.31", "p < 0.001". */
+export const pValue = (p: number) => (p < 0.001 ? "p < 0.001" : `p ${p.toFixed(p < 0.01 ? 3 : 2)}`);
+
+export function correlationSentence(what: string, c: Correlation): string {
+  const phrase = patternPhrase(c);
+  const significance = c.isSignificant
+    ? pValue(c.pPearson)
+    : `${pValue(c.pPearson)}, not significant at ${CORRELATION_ALPHA * 100} %`;
+  return `${phrase[0]!.toUpperCase()}${phrase.slice(1)} with ${what}: Pearson r ${coefficient(c.pearson)} (${significance}), Spearman ρ ${coefficient(c.spearman)} (n ${c.n}).`;
 }
 
+/**
+ * The trend in a sentence with n beside the word. Below MIN_CHECKS_FOR_TREND_WORD checks no slope is
+ * given (three noisy checks make a steep line); otherwise the slope with its 90 % interval.
+ */
 export function trendSentence(trend: Trend | null): string {
-  if (!trend || trend.word === null)
-    return "Not enough rated checks for a trend yet (at least 3 in 120 days).";
+  const n = trend?.n ?? 0;
+  if (!trend || n < MIN_CHECKS_FOR_TREND_WORD)
+    return `Not enough rated checks for a trend yet (n ${n} in the last 120 days; a trend needs at least ${MIN_CHECKS_FOR_TREND_WORD}).`;
+  const interval =
+    trend.ciLowPer30Days !== null && trend.ciHighPer30Days !== null
+      ? `; 90 % interval ${signed(trend.ciLowPer30Days)} to ${signed(trend.ciHighPer30Days)}`
+      : "";
+  const figures = `${signed(trend.slopePer30Days)} points per 30 days over the last 120 days (n ${n}${interval})`;
+  if (trend.word === null)
+    return `No clear trend: ${figures}. Improving or declining needs an interval clear of zero; steady, an interval within ±${TREND_THRESHOLD_PER_30_DAYS}.`;
   const word = trend.word[0]!.toUpperCase() + trend.word.slice(1);
-  return `${word}: ${signed(trend.slopePer30Days)} points per 30 days over the last 120 days (r² ${trend.r2.toFixed(2)}, n ${trend.n}; steady is within ±${TREND_THRESHOLD_PER_30_DAYS}).`;
+  return `${word}: ${figures}.`;
 }
 
 export function seasonSentence(season: SeasonChange | null): string {
@@ -37,10 +57,13 @@ export function seasonSentence(season: SeasonChange | null): string {
   return `Since the first check of the season (${formatDate(season.from.date)}, ${Math.round(season.from.index)}): ${signed(season.change, 0)} points.`;
 }
 
-/** "a strong positive pattern", "no pattern"… */
-export function patternPhrase(r: number): string {
-  const strength = correlationStrength(r);
-  return strength === "no"
-    ? "no pattern"
-    : `${strength} ${r > 0 ? "positive" : "negative"} pattern`;
+/**
+ * "a strong positive pattern", "no clear pattern"…: the strength word only for an r that is
+ * significant (two-sided p < CORRELATION_ALPHA); r = 0.5 over 6 checks (p 0.31) is no clear pattern.
+ */
+export function patternPhrase(c: Pick<Correlation, "pearson" | "isSignificant">): string {
+  const strength = correlationStrength(c.pearson);
+  return !c.isSignificant || strength === "no"
+    ? "no clear pattern"
+    : `${strength} ${c.pearson > 0 ? "positive" : "negative"} pattern`;
 }

@@ -80,6 +80,8 @@ export interface ZoneHistoryEntryDto {
   barePct: number | null;
   weedsPct: number | null;
   heightOfCutIn: number | null;
+  mowedToday: boolean | null;
+  heightBeforeMowingIn: number | null;
   symptoms: ZoneCheckDto["symptoms"];
   skipReason: ZoneCheckDto["skipReason"];
   technician: string | null;

@@ -35,6 +35,9 @@ export function valuesOf(
     soilMoisture: row.soil_moisture,
     soilMoisturePct: row.soil_moisture_pct === null ? null : Number(row.soil_moisture_pct),
     heightOfCutIn: row.height_of_cut_in === null ? null : Number(row.height_of_cut_in),
+    mowedToday: row.mowed_today,
+    heightBeforeMowingIn:
+      row.height_before_mowing_in === null ? null : Number(row.height_before_mowing_in),
     mowingDirection: row.mowing_direction,
     isMatted: row.is_matted,
     isScalped: row.is_scalped,
@@ -62,6 +65,8 @@ export function toColumns(input: ZoneCheckInput) {
     soil_moisture: input.soilMoisture,
     soil_moisture_pct: input.soilMoisturePct,
     height_of_cut_in: input.heightOfCutIn,
+    mowed_today: input.mowedToday,
+    height_before_mowing_in: input.mowedToday === true ? input.heightBeforeMowingIn : null,
     mowing_direction: input.mowingDirection,
     is_matted: input.isMatted,
     is_scalped: input.isScalped,

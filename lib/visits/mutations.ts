@@ -21,7 +21,8 @@ import { fillVisitWeather } from "@/lib/weather/mutations";
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
-import type { ScheduleVisitInput, ZoneCheckInput } from "./schemas";
+import type { ScheduleVisitInput, ZoneCheckInput, ZoneCheckRequest } from "./schemas";
+import { mowingConsistency } from "./zone-check-rules";
 
 export async function scheduleVisit(
   actor: Actor,
@@ -139,6 +140,36 @@ export async function startVisit(
   return getVisit(actor, visitId);
 }
 
+/**
+ * A request with every field: the mowing fields a form older than them does not send keep the
+ * stored values (null on a new check), so an old page cannot erase them. The merged check is
+ * checked again, since a kept height before mowing must still agree with a new height of cut.
+ */
+function withStoredMowing(
+  request: ZoneCheckRequest,
+  existing: ZoneCheck | undefined,
+): ZoneCheckInput {
+  const input: ZoneCheckInput = {
+    ...request,
+    mowedToday:
+      request.mowedToday === undefined ? (existing?.mowed_today ?? null) : request.mowedToday,
+    heightBeforeMowingIn:
+      request.heightBeforeMowingIn === undefined
+        ? existing?.height_before_mowing_in == null
+          ? null
+          : Number(existing.height_before_mowing_in)
+        : request.heightBeforeMowingIn,
+  };
+  const problems = mowingConsistency(input);
+  if (Object.keys(problems).length)
+    throw new AppError(
+      "invalid_input",
+      "Some values need attention.",
+      Object.fromEntries(Object.entries(problems).map(([field, message]) => [field, [message]])),
+    );
+  return input;
+}
+
 function sameValues(row: ZoneCheck, input: ZoneCheckInput): boolean {
   const { baseVersion: _ignored, ...submitted } = input;
   const normalised = {
@@ -167,7 +198,7 @@ export async function saveZoneCheck(
   actor: Actor,
   visitId: string,
   zoneCheckId: string,
-  input: ZoneCheckInput,
+  request: ZoneCheckRequest,
 ): Promise<ZoneCheckDto> {
   return db()
     .transaction()
@@ -179,7 +210,7 @@ export async function saveZoneCheck(
         .select(["id", "archived_at"])
         .where("company_id", "=", actor.companyId)
         .where("property_id", "=", visit.property_id)
-        .where("id", "=", input.zoneId)
+        .where("id", "=", request.zoneId)
         .executeTakeFirst();
       if (!zone)
         throw new AppError("invalid_input", "Some values need attention.", {
@@ -219,6 +250,7 @@ export async function saveZoneCheck(
         .executeTakeFirst();
       if (existing && (existing.company_id !== actor.companyId || existing.visit_id !== visitId))
         throw notFound("That zone check");
+      const input = withStoredMowing(request, existing);
       if (existing && existing.zone_id !== input.zoneId)
         throw new AppError("invalid_input", "Some values need attention.", {
           zoneId: ["A zone check cannot move to another zone."],

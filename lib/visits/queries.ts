@@ -233,6 +233,9 @@ export async function getZoneHistory(
       barePct: r.bare_pct,
       weedsPct: r.weeds_pct,
       heightOfCutIn: r.height_of_cut_in === null ? null : Number(r.height_of_cut_in),
+      mowedToday: r.mowed_today,
+      heightBeforeMowingIn:
+        r.height_before_mowing_in === null ? null : Number(r.height_before_mowing_in),
       symptoms: r.symptoms,
       skipReason: r.skip_reason,
       technician: r.technician_name,

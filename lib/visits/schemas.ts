@@ -5,7 +5,7 @@ import { z } from "zod/mini";
 import { isIsoDate } from "@/lib/dates";
 
 import { zoneCheckFields } from "./zone-check-fields";
-import { zoneCheckCompleteness } from "./zone-check-rules";
+import { mowingConsistency, zoneCheckCompleteness } from "./zone-check-rules";
 
 export { zoneCheckFields } from "./zone-check-fields";
 export { emptyZoneCheck } from "./zone-check-rules";
@@ -62,11 +62,14 @@ export const startVisitSchema = z
 
 export const zoneCheckSchema = zoneCheckFields.check(
   z.superRefine((check, ctx) => {
-    for (const [field, message] of Object.entries(zoneCheckCompleteness(check)))
+    for (const [field, message] of Object.entries({
+      ...zoneCheckCompleteness(check),
+      ...mowingConsistency(check),
+    }))
       ctx.addIssue({ code: "custom", path: [field], message });
   }),
 );
-export type ZoneCheckInput = z.infer<typeof zoneCheckSchema>;
+export type { ZoneCheckInput, ZoneCheckRequest } from "./zone-check-fields";
 
 /** Finishing takes no input: notes belong to the zone checks, the office note to the visit. */
 export const finishVisitSchema = z.strictObject({});

@@ -59,6 +59,24 @@ export const zoneCheckFields = z.strictObject({
         z.multipleOf(0.05),
       ),
   ),
+  /**
+   * Mowed at this visit (true), not mowed today (false), or not recorded (null). Optional in a
+   * request: a form older than the field (a page left open, a draft on a phone) sends none, and the
+   * stored value is kept (saveZoneCheck).
+   */
+  mowedToday: z.optional(z.nullable(z.boolean("Say whether the zone was mowed today."))),
+  /** Grass height before mowing, when mowed at this visit: the one-third rule reads it. */
+  heightBeforeMowingIn: z.optional(
+    z.nullable(
+      z
+        .number("Enter the height before mowing as a number.")
+        .check(
+          z.gt(0, "The height before mowing must be above 0 in."),
+          z.lte(24, "Grass over 24 in before mowing? Check the reading."),
+          z.multipleOf(0.05),
+        ),
+    ),
+  ),
   mowingDirection: z.nullable(z.enum(["same", "changed", "unknown"])),
   isMatted: z.boolean(),
   isScalped: z.boolean(),
@@ -73,5 +91,11 @@ export const zoneCheckFields = z.strictObject({
   skipNote: z.string().check(z.maxLength(1000, "Keep the reason under 1,000 characters.")),
 });
 
-/** A zone check as a form or a request carries it (the cross-field rules apply on top). */
-export type ZoneCheckInput = z.infer<typeof zoneCheckFields>;
+/** A zone check as a request carries it (the cross-field rules apply on top). */
+export type ZoneCheckRequest = z.infer<typeof zoneCheckFields>;
+
+/** A zone check as a form holds it and the server stores it: every field present. */
+export type ZoneCheckInput = Omit<ZoneCheckRequest, "mowedToday" | "heightBeforeMowingIn"> & {
+  mowedToday: boolean | null;
+  heightBeforeMowingIn: number | null;
+};

@@ -24,6 +24,30 @@ export function zoneCheckCompleteness(
   return missing;
 }
 
+/**
+ * The mowing readings that contradict each other, with the message for each ({} when they agree):
+ * a height before mowing needs "mowed today", and grass is never shorter before mowing than the
+ * height it was cut to.
+ */
+export function mowingConsistency(check: {
+  mowedToday?: boolean | null;
+  heightBeforeMowingIn?: number | null;
+  heightOfCutIn: number | null;
+}): Record<string, string> {
+  const before = check.heightBeforeMowingIn ?? null;
+  if (before === null) return {};
+  if (check.mowedToday !== true)
+    return {
+      heightBeforeMowingIn:
+        "A height before mowing goes with “mowed today”; choose that, or clear the height.",
+    };
+  if (check.heightOfCutIn !== null && before < check.heightOfCutIn)
+    return {
+      heightBeforeMowingIn: `The grass before mowing (${before} in) cannot be shorter than the height of cut (${check.heightOfCutIn} in); check both readings.`,
+    };
+  return {};
+}
+
 /** An empty zone check, as a form starts it. */
 export function emptyZoneCheck(zoneId: string): ZoneCheckInput {
   return {
@@ -40,6 +64,8 @@ export function emptyZoneCheck(zoneId: string): ZoneCheckInput {
     soilMoisture: null,
     soilMoisturePct: null,
     heightOfCutIn: null,
+    mowedToday: null,
+    heightBeforeMowingIn: null,
     mowingDirection: null,
     isMatted: false,
     isScalped: false,

@@ -63,7 +63,7 @@ describe("a technician runs a visit on a phone", () => {
 
     // Zone 1: Front lawn
     await rate(page, "Overall quality", 7);
-    await rate(page, "Colour", 8);
+    await rate(page, "Color", 8);
     await rate(page, "Density", 7);
     await rate(page, "Uniformity", 6);
     await page.getByRole("button", { name: "Weeds: more" }).click();
@@ -147,7 +147,7 @@ describe("a technician runs a visit on a phone", () => {
     ).resolves.toBe("true");
     await expect(page.getByText("Shade thinning", { exact: true }).isVisible()).resolves.toBe(true);
     await snap(page, "visit-04-after-reload");
-    await rate(page, "Colour", 6);
+    await rate(page, "Color", 6);
     await rate(page, "Uniformity", 5);
     await page.getByRole("button", { name: "Mark zone done" }).click();
     await waitSaved(page);
@@ -166,7 +166,7 @@ describe("a technician runs a visit on a phone", () => {
     // Zone 4: Pool surround.
     await page.getByRole("button", { name: /Next: Pool surround/ }).click();
     await page.getByRole("heading", { name: "Pool surround" }).waitFor();
-    for (const label of ["Overall quality", "Colour", "Density", "Uniformity"])
+    for (const label of ["Overall quality", "Color", "Density", "Uniformity"])
       await rate(page, label, 8);
     await page.getByRole("button", { name: "Mark zone done" }).click();
     await waitSaved(page);

@@ -122,7 +122,7 @@ describe("matted canopy alert", () => {
     await page.waitForURL(/\/visits\/[0-9a-f-]+$/);
     await page.getByRole("button", { name: "Start visit" }).click();
     await page.getByRole("heading", { name: "Front lawn" }).waitFor();
-    for (const label of ["Overall quality", "Colour", "Density", "Uniformity"])
+    for (const label of ["Overall quality", "Color", "Density", "Uniformity"])
       await rate(page, label, 7);
     await page
       .getByRole("radiogroup", { name: "Mowing direction" })

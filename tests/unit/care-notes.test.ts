@@ -7,7 +7,7 @@ import { matchCareNotes, type ObservedZone } from "@/lib/reports/care-notes";
 const zone = (o: Partial<ObservedZone> = {}): ObservedZone => ({
   zoneName: "Front lawn",
   season: "cool",
-  speciesMinCutIn: 1,
+  speciesMinCutIn: 2, // tall fescue's home-lawn minimum (University of Kentucky AGR-209)
   mowingDirection: "changed",
   isMatted: false,
   hasTornTips: false,
@@ -41,11 +41,15 @@ describe("care notes", () => {
     expect(keys(m)).toEqual(["sharpen_blade"]);
     expect(m[0]!.note.cautions!.join(" ")).toMatch(/cut away from yourself and others/);
   });
-  it("a short cut on cool-season turf → raise the height (below 2.5 in, common practice)", () => {
-    expect(keys(matchCareNotes([zone({ heightOfCutIn: 2.25 })], [], []))).toEqual([
+  it("a cut below the species' home-lawn range → raise the height (extension tables)", () => {
+    expect(keys(matchCareNotes([zone({ heightOfCutIn: 1.75 })], [], []))).toEqual([
       "raise_mowing_height",
     ]);
-    expect(keys(matchCareNotes([zone({ heightOfCutIn: 2.5 })], [], []))).toEqual([]);
+    expect(keys(matchCareNotes([zone({ heightOfCutIn: 2 })], [], []))).toEqual([]);
+    // Perennial ryegrass's home-lawn range is 1.5–2.5 in: 2.25 in is not short.
+    expect(
+      keys(matchCareNotes([zone({ speciesMinCutIn: 1.5, heightOfCutIn: 2.25 })], [], [])),
+    ).toEqual([]);
   });
   it("dry soil or wilt → water deeply and early; disease symptoms → help the grass dry off", () => {
     expect(keys(matchCareNotes([zone({ soilMoisture: "dry" })], [], []))).toEqual(["water_deeply"]);

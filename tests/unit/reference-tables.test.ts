@@ -5,19 +5,43 @@ import { describe, expect, it } from "vitest";
 import { demoCompany, demoScenario, otherCompany } from "@/fixtures/demo/scenario";
 import { findGrassSpecies, grassSpecies } from "@/lib/reference/grass-species";
 
-describe("grass species: height of cut (in)", () => {
-  // Source: University of Tennessee height-of-cut table, via trade press.
-  const published: Record<string, [number, number]> = {
-    tall_fescue: [1, 3],
-    perennial_ryegrass: [0.25, 3],
-    kentucky_bluegrass: [0.75, 3],
-    bermudagrass: [0.5, 3],
-    zoysiagrass: [0.375, 3],
-    centipedegrass: [1, 3],
-    st_augustinegrass: [2, 4],
+describe("grass species: home-lawn height of cut (in), from extension tables", () => {
+  // University of Kentucky AGR-209, Table 1 "Mowing heights for Kentucky lawns" (as reproduced by
+  // UK extension; the PDF was not read).
+  const kentucky: Record<string, [number, number]> = {
+    tall_fescue: [2, 3.5],
+    kentucky_bluegrass: [2, 3.5],
+    perennial_ryegrass: [1.5, 2.5],
+    bermudagrass: [1, 2],
   };
-  it.each(Object.entries(published))("%s", (key, [min, max]) => {
-    expect(findGrassSpecies(key)?.heightOfCutIn).toMatchObject({ min, max });
+  // UF/IFAS "Mowing Your Florida Lawn" (EDIS LH028), optimal mowing heights (as reproduced by
+  // UF/IFAS county extension; the EDIS page was not read).
+  const florida: Record<string, [number, number]> = {
+    bahiagrass: [3, 4],
+    centipedegrass: [1.5, 2],
+    st_augustinegrass: [2.5, 4],
+    zoysiagrass: [1, 3],
+  };
+  // University of Maine Cooperative Extension lawn grass table: red (creeping) fescue.
+  const maine: Record<string, [number, number]> = { fine_fescue: [2, 2.5] };
+  it.each([
+    ...Object.entries(kentucky).map(([k, r]) => [k, r, /Kentucky AGR-209/] as const),
+    ...Object.entries(florida).map(([k, r]) => [k, r, /UF\/IFAS/] as const),
+    ...Object.entries(maine).map(([k, r]) => [k, r, /University of Maine/] as const),
+  ])("%s", (key, [min, max], source) => {
+    const h = findGrassSpecies(key)!.heightOfCutIn;
+    expect(h).toMatchObject({ min, max });
+    expect(h.source).toMatch(source);
+  });
+  it("every species is covered, and no home-lawn minimum is an all-use (golf) minimum", () => {
+    expect(
+      new Set([...Object.keys(kentucky), ...Object.keys(florida), ...Object.keys(maine)]),
+    ).toEqual(new Set(grassSpecies.map((s) => s.key)));
+    // The University of Tennessee all-use table Sward used before: tall fescue from 1 in,
+    // perennial ryegrass from 0.25 in, Kentucky bluegrass from 0.75 in.
+    expect(findGrassSpecies("tall_fescue")!.heightOfCutIn.min).toBeGreaterThan(1);
+    expect(findGrassSpecies("perennial_ryegrass")!.heightOfCutIn.min).toBeGreaterThan(0.25);
+    expect(findGrassSpecies("kentucky_bluegrass")!.heightOfCutIn.min).toBeGreaterThan(0.75);
   });
 });
 

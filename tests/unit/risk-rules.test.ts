@@ -1,6 +1,8 @@
 // Each rule with cases that raise and cases that stay quiet, named with their source.
 import { describe, expect, it } from "vitest";
 
+import { addDays } from "@/lib/dates";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 import {
   blackoutApplication,
   brownPatchWeather,
@@ -17,6 +19,8 @@ import {
   type CheckFacts,
   type RiskDay,
 } from "@/lib/risk/rules";
+import { recentTrend } from "@/lib/scoring/history";
+import { trendWord } from "@/lib/scoring/trend";
 
 const c2f = (c: number) => (c * 9) / 5 + 32;
 const day = (date: string, o: Partial<RiskDay> = {}): RiskDay => ({
@@ -40,6 +44,8 @@ const check = (date: string, o: Partial<CheckFacts> = {}): CheckFacts => ({
   isScalped: false,
   hasTornTips: false,
   heightOfCutIn: 3,
+  mowedToday: null,
+  heightBeforeMowingIn: null,
   symptomKeys: [],
   ...o,
 });
@@ -370,29 +376,59 @@ describe("over-application and blackout (the rule set; species range: University
   });
 });
 
-describe("mowing (University of Tennessee heights; the one-third rule, common practice)", () => {
-  const tallFescue = { min: 1, max: 3 };
-  it("raises below the species' range, on more than a third off at once, or scalping", () => {
-    expect(mowingTooShort([check(AT, { heightOfCutIn: 0.75 })], tallFescue)).toMatchObject({
+describe("mowing: home-lawn heights (extension tables) and the one-third rule (common practice)", () => {
+  // Ranges as lib/reference/grass-species.ts holds them (checked against their extension tables in
+  // tests/unit/reference-tables.test.ts): tall fescue 2.0–3.5 in (University of Kentucky AGR-209).
+  const tallFescue = findGrassSpecies("tall_fescue")!.heightOfCutIn;
+  const mowed = (before: number, cut: number) =>
+    check(AT, { mowedToday: true, heightBeforeMowingIn: before, heightOfCutIn: cut });
+
+  it("raises below the species' home-lawn range, on more than a third off at this mowing, or scalping", () => {
+    expect(mowingTooShort([check(AT, { heightOfCutIn: 1.75 })], tallFescue)).toMatchObject({
       raised: true,
       severity: "moderate",
     });
+    // 5 in before mowing, cut to 3: 40 % of the blade (Cornell: at 3 in, mow by about 4.5 in).
+    const r = mowingTooShort([mowed(5, 3)], tallFescue);
+    expect(r).toMatchObject({
+      raised: true,
+      severity: "low",
+      evidence: { values: { heightBeforeMowingIn: 5, removedPct: 40, mowedToday: true } },
+    });
+    expect(r.summary).toMatch(/mowed from 5 in to 3 in, taking off 40 %/);
+    expect(r.summary).toMatch(/mow before the grass passes 4\.5 in/);
+    // Half or more taken off: moderate.
+    expect(mowingTooShort([mowed(6, 3)], tallFescue).severity).toBe("moderate");
+    expect(mowingTooShort([check(AT, { isScalped: true })], tallFescue).raised).toBe(true);
+  });
+
+  it("stays quiet at a third exactly, within the range, or when not mowed today", () => {
+    expect(mowingTooShort([mowed(4.5, 3)], tallFescue).raised).toBe(false); // exactly a third
+    expect(mowingTooShort([mowed(3.75, 2.5)], tallFescue).raised).toBe(false); // exactly a third
+    expect(mowingTooShort([check(AT, { heightOfCutIn: 3 })], tallFescue).raised).toBe(false);
+    expect(
+      mowingTooShort([check(AT, { mowedToday: false, heightOfCutIn: 3 })], tallFescue).raised,
+    ).toBe(false);
+  });
+
+  it("where the old reading (cuts of two checks; all-use minimums) and the new one disagree", () => {
+    // Old: 3.5 in at one check and 2.25 in weeks later read as "more than a third at once" (low).
+    // Those are different mowings; nothing says a third came off at either.
     expect(
       mowingTooShort(
         [check("2026-07-01", { heightOfCutIn: 3.5 }), check(AT, { heightOfCutIn: 2.25 })],
         tallFescue,
-      ),
-    ).toMatchObject({ raised: true, severity: "low" });
-    expect(mowingTooShort([check(AT, { isScalped: true })], tallFescue).raised).toBe(true);
-  });
-  it("stays quiet at a third exactly, or within the range", () => {
-    expect(
-      mowingTooShort(
-        [check("2026-07-01", { heightOfCutIn: 3 }), check(AT, { heightOfCutIn: 2 })],
-        tallFescue,
       ).raised,
     ).toBe(false);
-    expect(mowingTooShort([check(AT, { heightOfCutIn: 3 })], tallFescue).raised).toBe(false);
+    // Old: same cut at both checks, quiet. New: the grass stood 5 in before today's mowing.
+    expect(
+      mowingTooShort([check("2026-07-01", { heightOfCutIn: 3 }), mowed(5, 3)], tallFescue).raised,
+    ).toBe(true);
+    // Old: tall fescue's all-use minimum of 1 in let a 1.5 in cut pass; the home-lawn range starts at 2.
+    expect(mowingTooShort([check(AT, { heightOfCutIn: 1.5 })], { min: 1, max: 3 }).raised).toBe(
+      false,
+    );
+    expect(mowingTooShort([check(AT, { heightOfCutIn: 1.5 })], tallFescue).raised).toBe(true);
   });
   it("torn tips (common practice: a dull blade) raise a low alert", () => {
     expect(tornTips([check(AT, { hasTornTips: true })])).toMatchObject({
@@ -403,20 +439,49 @@ describe("mowing (University of Tennessee heights; the one-third rule, common pr
   });
 });
 
+const t4 = (slopePer30Days: number, lo: number, hi: number, n: number) => ({
+  slopePer30Days,
+  r2: 0.5,
+  n,
+  ciLowPer30Days: lo,
+  ciHighPer30Days: hi,
+  word: trendWord({ slopePer30Days, n, ciLowPer30Days: lo, ciHighPer30Days: hi }),
+});
+
 describe("declining Index and late-season feeding", () => {
   it("declining raises with the trend word; high at −6 per 30 days", () => {
-    expect(decliningIndex({ slopePer30Days: -3, r2: 0.8, n: 4, word: "declining" })).toMatchObject({
+    const t = (slopePer30Days: number, lo: number, hi: number, n: number) => ({
+      slopePer30Days,
+      r2: 0.8,
+      n,
+      ciLowPer30Days: lo,
+      ciHighPer30Days: hi,
+      word: trendWord({ slopePer30Days, n, ciLowPer30Days: lo, ciHighPer30Days: hi }),
+    });
+    expect(decliningIndex(t(-3, -4.5, -1.5, 6))).toMatchObject({
       raised: true,
       severity: "moderate",
+      evidence: { values: { n: 6, ciHighPer30Days: -1.5 } },
     });
-    expect(decliningIndex({ slopePer30Days: -7, r2: 0.8, n: 4, word: "declining" })).toMatchObject({
-      raised: true,
-      severity: "high",
-    });
-    expect(decliningIndex({ slopePer30Days: -1, r2: 0.8, n: 4, word: "steady" }).raised).toBe(
-      false,
-    );
+    expect(decliningIndex(t(-7, -9, -5, 6))).toMatchObject({ raised: true, severity: "high" });
+    expect(decliningIndex(t(-1, -1.5, -0.5, 6)).raised).toBe(false);
     expect(decliningIndex(null).raised).toBe(false);
+  });
+  it("where the old rule raised and the new one does not: few or noisy checks", () => {
+    // Old rule: slope ≤ −2 with n ≥ 3 raised. Now n ≥ 5 and a 90 % interval below zero.
+    expect(decliningIndex(t4(-3, -9, 3, 3)).raised).toBe(false); // 3 checks
+    expect(decliningIndex(t4(-7, -15, 1, 5)).raised).toBe(false); // 5 noisy checks
+    const points = [80, 68, 79, 66, 74].map((index, i) => ({
+      date: addDays("2026-06-01", 20 * i),
+      index,
+    }));
+    const noisy = recentTrend(points)!;
+    expect(noisy.slopePer30Days).toBeLessThan(-2);
+    expect(decliningIndex(noisy).raised).toBe(false);
+    const clean = recentTrend(
+      [80, 77.5, 75, 73, 69.5].map((index, i) => ({ date: addDays("2026-06-01", 20 * i), index })),
+    )!;
+    expect(decliningIndex(clean)).toMatchObject({ raised: true });
   });
   it("late-season feeding is a low reminder for cool-season turf in the fall window without N", () => {
     expect(lateSeasonFeeding("cool", [], "2026-10-15", "12-01")).toMatchObject({

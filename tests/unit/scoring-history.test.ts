@@ -19,6 +19,7 @@ import {
 } from "@/lib/scoring/history";
 import { correlate } from "@/lib/scoring/trend";
 import {
+  correlationSentence,
   correlationStrength,
   patternPhrase,
   seasonSentence,
@@ -40,15 +41,37 @@ describe("recentTrend and seasonChange", () => {
   it("uses only the 120 days before the latest check", () => {
     const points = [
       { date: "2026-01-10", index: 10 }, // outside the window: would flip the slope
-      { date: "2026-06-01", index: 80 },
-      { date: "2026-07-01", index: 77 },
-      { date: "2026-07-31", index: 74 },
+      { date: "2026-04-02", index: 83 },
+      { date: "2026-05-02", index: 80 },
+      { date: "2026-06-01", index: 77 },
+      { date: "2026-07-01", index: 74 },
+      { date: "2026-07-31", index: 71 },
     ];
     const t = recentTrend(points)!;
-    expect(t.n).toBe(3);
+    expect(t.n).toBe(5);
     expect(t.slopePer30Days).toBeCloseTo(-3, 9);
     expect(t.word).toBe("declining");
-    expect(trendSentence(t)).toMatch(/^Declining: −3\.0 points per 30 days/);
+    expect(trendSentence(t)).toBe(
+      "Declining: −3.0 points per 30 days over the last 120 days (n 5; 90 % interval −3.0 to −3.0).",
+    );
+  });
+  it("sentences: n beside every word; no slope below 5 checks; the interval otherwise", () => {
+    const three = recentTrend([
+      { date: "2026-06-01", index: 80 },
+      { date: "2026-07-01", index: 70 },
+      { date: "2026-07-31", index: 76 },
+    ])!;
+    expect(three.word).toBeNull();
+    expect(trendSentence(three)).toBe(
+      "Not enough rated checks for a trend yet (n 3 in the last 120 days; a trend needs at least 5).",
+    );
+    expect(trendSentence(null)).toMatch(/\(n 0 in the last 120 days/);
+    const noisy = recentTrend(
+      [80, 68, 79, 66, 74].map((index, i) => ({ date: addDays("2026-06-01", 20 * i), index })),
+    )!;
+    expect(trendSentence(noisy)).toMatch(
+      /^No clear trend: −\d\.\d points per 30 days over the last 120 days \(n 5; 90 % interval −\d+\.\d to \+\d+\.\d\)\./,
+    );
   });
   it("season change counts from the first check of the latest check's calendar year", () => {
     const s = seasonChange([
@@ -190,8 +213,27 @@ describe("book figures and words", () => {
     expect(correlationStrength(-0.1)).toBe("a weak");
     expect(correlationStrength(0.3)).toBe("a moderate");
     expect(correlationStrength(-0.5)).toBe("a strong");
-    expect(patternPhrase(-0.62)).toBe("a strong negative pattern");
-    expect(patternPhrase(0.02)).toBe("no pattern");
+    expect(patternPhrase({ pearson: -0.62, isSignificant: true })).toBe(
+      "a strong negative pattern",
+    );
+    expect(patternPhrase({ pearson: 0.02, isSignificant: true })).toBe("no clear pattern");
+  });
+  it("pattern words follow significance: r 0.5 over 6 checks is no clear pattern, over 30 a strong one", () => {
+    // Old words read r alone: 0.5 was "a strong positive pattern" at any n.
+    const six = correlate([1, 2, 3, 4, 5, 6], [2, 1, 3, 6, 2, 5])!;
+    expect(six.pearson).toBeGreaterThanOrEqual(0.5);
+    expect(six.isSignificant).toBe(false);
+    expect(patternPhrase(six)).toBe("no clear pattern");
+    expect(correlationSentence("x", six)).toMatch(
+      /^No clear pattern with x: Pearson r 0\.\d\d \(p 0\.\d\d, not significant at 5 %\), Spearman ρ [−\d.]+ \(n 6\)\.$/,
+    );
+    // The same shape repeated five times: r unchanged, n 30, p < 0.01.
+    const xs = Array.from({ length: 5 }, () => [1, 2, 3, 4, 5, 6]).flat();
+    const ys = Array.from({ length: 5 }, () => [2, 1, 3, 6, 2, 5]).flat();
+    const thirty = correlate(xs, ys)!;
+    expect(thirty.pearson).toBeCloseTo(six.pearson, 12);
+    expect(thirty.isSignificant).toBe(true);
+    expect(patternPhrase(thirty)).toBe("a strong positive pattern");
   });
 });
 

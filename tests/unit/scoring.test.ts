@@ -3,10 +3,12 @@
 // typed from memory, pinned by the paper's printed summary: mean x 9, mean y 7.50,
 // y = 3.00 + 0.500x, r = 0.816); fast-check bounds and monotonicity; golden cases.
 import fc from "fast-check";
+import jStat from "jstat";
 import { mean } from "simple-statistics";
 import { describe, expect, it } from "vitest";
 
 import { GOLDEN_CASES } from "@/fixtures/scoring/golden";
+import { addDays as addDaysUtc } from "@/lib/dates";
 import { availableNitrogen } from "@/lib/scoring/available-nitrogen";
 import { propertyIndex, swardIndex, type IndexInput } from "@/lib/scoring/sward-index";
 import { correlate, indexTrend, linearFit, trendWord } from "@/lib/scoring/trend";
@@ -147,23 +149,78 @@ describe("golden cases", () => {
 });
 
 describe("trends", () => {
-  it("slope per 30 days by least squares; null below 2 points; words need 3", () => {
+  const series = (indexes: number[], everyDays = 20) =>
+    indexes.map((index, i) => ({ date: addDaysUtc("2026-04-01", i * everyDays), index }));
+
+  it("slope per 30 days by least squares; null below 2 points; the interval from 3", () => {
     expect(indexTrend([{ date: "2026-05-01", index: 60 }])).toBeNull();
-    const t = indexTrend([
-      { date: "2026-05-01", index: 60 },
-      { date: "2026-05-31", index: 66 },
-      { date: "2026-06-30", index: 72 },
-    ])!;
+    const two = indexTrend(series([60, 66], 30))!;
+    expect(two.slopePer30Days).toBeCloseTo(6, 9);
+    expect(two.ciLowPer30Days).toBeNull();
+    const t = indexTrend(series([60, 66, 72], 30))!;
     expect(t.slopePer30Days).toBeCloseTo(6, 9);
     expect(t.r2).toBeCloseTo(1, 9);
-    expect(trendWord(t)).toBe("improving");
-    expect(trendWord({ slopePer30Days: -3, n: 4 })).toBe("declining");
-    expect(trendWord({ slopePer30Days: 1, n: 4 })).toBe("steady");
-    expect(trendWord({ slopePer30Days: 9, n: 2 })).toBeNull();
+    expect(t.ciLowPer30Days).toBeCloseTo(6, 9); // a perfect line: no residual, no width
   });
-  it("correlation needs at least 6 pairs", () => {
+
+  it("the slope interval of Anscombe's set I: b = 0.5001, SE 0.1179, t(0.95; 9) = 1.833", () => {
+    // Anscombe (1973), The American Statistician 27(1): set I. Slope and its standard error as any
+    // regression package prints them (R's lm: 0.5001, Std. Error 0.1179; from memory), with x read
+    // as days so the slope per 30 days is 30 × b.
+    const x = [10, 8, 13, 9, 11, 14, 6, 4, 12, 7, 5];
+    const y = [8.04, 6.95, 7.58, 8.81, 8.33, 9.96, 7.24, 4.26, 10.84, 4.82, 5.68];
+    const t = indexTrend(x.map((d, i) => ({ date: addDaysUtc("2026-01-01", d), index: y[i]! })))!;
+    expect(t.slopePer30Days / 30).toBeCloseTo(0.5001, 4);
+    const half = (t.ciHighPer30Days! - t.ciLowPer30Days!) / 2 / 30;
+    expect(half / 1.833).toBeCloseTo(0.1179, 4);
+    expect(t.r2).toBeCloseTo(0.6665, 4);
+  });
+
+  it("words need 5 checks and an interval clear of zero; steady needs it within ±2", () => {
+    const w = (b: number, lo: number, hi: number, n = 6) =>
+      trendWord({ slopePer30Days: b, ciLowPer30Days: lo, ciHighPer30Days: hi, n });
+    expect(w(-3, -4, -2)).toBe("declining");
+    expect(w(-3, -6, 0.5)).toBeNull(); // interval includes zero: no clear trend
+    expect(w(-1.5, -1.9, -1.1)).toBe("steady"); // significant but inside ±2: equivalence holds
+    expect(w(-1.5, -2.5, -0.5)).toBeNull(); // a small change, not shown steady either
+    expect(w(3, 1, 5)).toBe("improving");
+    expect(w(3, 1, 5, 4)).toBeNull(); // 4 checks
+    expect(w(0.2, -1.5, 1.9)).toBe("steady");
+    expect(w(0.2, -2.5, 2.9)).toBeNull();
+    expect(trendWord(null)).toBeNull();
+  });
+
+  it("where the old reading (n ≥ 3, slope beyond ±2) and the new one disagree", () => {
+    // 3 noisy checks, 20 days apart: −2.6 points per 30 days. Old: "declining" (and an alert).
+    const three = indexTrend(series([78, 70, 74.5]))!;
+    expect(three.slopePer30Days).toBeLessThan(-2);
+    expect(trendWord(three)).toBeNull();
+    // 5 noisy checks: −3.9 points per 30 days, but the 90 % interval reaches above zero.
+    const noisy = indexTrend(series([80, 68, 79, 66, 74]))!;
+    expect(noisy.n).toBe(5);
+    expect(noisy.slopePer30Days).toBeLessThan(-2);
+    expect(noisy.ciHighPer30Days!).toBeGreaterThan(0);
+    expect(trendWord(noisy)).toBeNull();
+    // The same fall with little scatter: declining under both readings.
+    const clean = indexTrend(series([80, 77.5, 75, 73, 69.5]))!;
+    expect(clean.ciHighPer30Days!).toBeLessThan(0);
+    expect(trendWord(clean)).toBe("declining");
+    // Flat but noisy, slope +1: old "steady", new no word (the interval reaches beyond ±2).
+    const flat = indexTrend(series([70, 78, 66, 79, 71, 74]))!;
+    expect(Math.abs(flat.slopePer30Days)).toBeLessThan(2);
+    expect(trendWord(flat)).toBeNull();
+    // Flat and quiet: steady.
+    expect(trendWord(indexTrend(series([70, 70.5, 70, 70.5, 70, 70.5]))!)).toBe("steady");
+  });
+
+  it("correlation needs at least 6 pairs and carries the significance of Pearson's r", () => {
     expect(correlate([1, 2, 3, 4, 5], [2, 4, 6, 8, 10])).toBeNull();
-    expect(correlate([1, 2, 3, 4, 5, 6], [1, 3, 2, 5, 4, 6])).toMatchObject({ n: 6 });
+    const c = correlate([1, 2, 3, 4, 5, 6], [1, 3, 2, 5, 4, 6])!;
+    expect(c).toMatchObject({ n: 6 });
+    expect(c.pearson).toBeCloseTo(31 / 35, 12); // Sxy 15.5 / Sxx 17.5 by hand
+    const t = ((31 / 35) * 2) / Math.sqrt(1 - (31 / 35) ** 2);
+    expect(c.pPearson).toBeCloseTo(2 * (1 - jStat.studentt.cdf(t, 4)), 7);
+    expect(c.isSignificant).toBe(true); // r 0.886 is above the printed critical r .811 at n 6
   });
 });
 

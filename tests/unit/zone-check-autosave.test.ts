@@ -10,6 +10,7 @@ import {
 } from "@/components/visits/zone-check-autosave";
 import type { SendResult } from "@/lib/query-client";
 import type { ZoneCheckDto } from "@/lib/visits/dto";
+import { emptyZoneCheck, zoneCheckSchema } from "@/lib/visits/schemas";
 
 const ZONE = "11111111-1111-4111-8111-111111111111";
 
@@ -61,6 +62,41 @@ function harness(
 }
 
 describe("ZoneCheckAutosave", () => {
+  it("a draft kept on the phone before the mowing fields existed loads, shows, and saves", async () => {
+    // Exactly what an earlier form wrote to localStorage: every field of that day, none since.
+    const {
+      mowedToday: _m,
+      heightBeforeMowingIn: _h,
+      ...oldShape
+    } = {
+      ...emptyZoneCheck(ZONE),
+      quality: 6,
+      heightOfCutIn: 3.25,
+      notes: "typed offline",
+    };
+    const { baseVersion: _b, ...oldValues } = oldShape;
+    const old = {
+      id: "22222222-2222-4222-8222-222222222222",
+      values: oldValues,
+      baseVersion: 0,
+      isDirty: true,
+      savedLocallyAt: "2026-06-01T09:00:00Z",
+    } as unknown as DeviceDraft;
+    expect("mowedToday" in old.values).toBe(false);
+    const h = harness([], old);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    const snap = store.getSnapshot();
+    expect(snap.isRestored).toBe(true);
+    expect(snap.values).toMatchObject({ notes: "typed offline", mowedToday: null });
+    expect(snap.values.heightBeforeMowingIn).toBeNull();
+    await h.runTimers();
+    expect(h.sent).toHaveLength(1);
+    // The body the server gets passes the server's schema.
+    expect(zoneCheckSchema.safeParse(h.sent[0]).success).toBe(true);
+    expect(h.sent[0]).toMatchObject({ quality: 6, heightOfCutIn: 3.25, mowedToday: null });
+  });
+
   it("keeps every change on the device at once and sends once after the pause", async () => {
     const h = harness([]);
     const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);

@@ -159,6 +159,13 @@ export default async function ZoneHistoryPage({
                       </td>
                       <td className="p-3">
                         {e.heightOfCutIn === null ? "—" : `${e.heightOfCutIn.toFixed(2)} in`}
+                        {e.mowedToday === false ? (
+                          <span className="block text-sm text-muted">not mowed today</span>
+                        ) : e.mowedToday && e.heightBeforeMowingIn !== null ? (
+                          <span className="block text-sm text-muted">
+                            mowed from {e.heightBeforeMowingIn.toFixed(2)} in
+                          </span>
+                        ) : null}
                       </td>
                       <td className="p-3 text-sm">
                         {e.symptoms.length
