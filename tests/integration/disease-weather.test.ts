@@ -198,6 +198,19 @@ describe("warm- and cool-season grasses", () => {
         .orderBy("name")
         .executeTakeFirstOrThrow();
       expect(zone.grass_species).toBe(key === "haddad" ? "perennial_ryegrass" : "bermudagrass");
+      // An application is dated within its visit (issue 18 item 1): the visit is the hot day's.
+      await testDb()
+        .updateTable("visits")
+        .set({
+          status: "completed",
+          started_at: new Date(`${HOT}T09:00:00-04:00`),
+          completed_at: new Date(`${HOT}T12:00:00-04:00`),
+        })
+        .where("id", "=", visit.id)
+        .execute();
+      // The label's yearly maximum and interval count the scenario's own feedings of this zone;
+      // this test is about the heat, so the zone starts the season unfed.
+      await testDb().deleteFrom("applications").where("zone_id", "=", zone.id).execute();
       await recordApplication(manager, visit.id, {
         id: newId(),
         zoneId: zone.id,
