@@ -529,7 +529,7 @@ export function ApplicationPanel({
                 {...register("isEstablishing", { onChange: forgetServerFindings })}
                 className="size-6"
               />
-              First establishment: new seeding or sod
+              First establishment: new seeding or sod, in its first growing season
             </label>
             <label className="flex min-h-tap items-center gap-2">
               <input

@@ -6,7 +6,7 @@
 // converted by the caller from its unit (liquids through their density); messages speak the
 // label's unit. "Per year" is read as the 365 days ending on the application date, which is
 // never looser than a calendar-year reading.
-import type { RuleFinding } from "./rules";
+import { weatherNotes, type ApplicationFacts, type RuleFinding } from "./rules";
 
 export interface LabelLimits {
   productName: string;
@@ -91,4 +91,32 @@ export function checkLabel(label: LabelLimits, a: LabelFacts): RuleFinding[] {
       });
   }
   return findings;
+}
+
+/**
+ * The label's own words about frozen or saturated ground and rain, as a warning with what the
+ * visit's weather says (Sward cannot see the ground): the sentences of the label cautions that
+ * name them, or nothing when the label does not.
+ */
+export function labelConditions(
+  productName: string,
+  labelCautions: string,
+  weather: ApplicationFacts["weather"],
+): RuleFinding[] {
+  const sentences = labelCautions
+    .split(/(?<=[.!?])\s+/)
+    .filter((x) => /\b(frozen|saturated|rain|rainfall)\b/i.test(x));
+  if (!sentences.length) return [];
+  const notes = weatherNotes(weather);
+  return [
+    {
+      key: "label_conditions",
+      severity: "warning",
+      basis: "label",
+      source: `Product label: ${productName}`,
+      value: notes.join(" ") || "none seen",
+      limit: sentences.join(" "),
+      message: `The label says: “${sentences.join(" ")}”${notes.length ? ` ${notes.join(" ")}` : ""}`,
+    },
+  ];
 }

@@ -65,7 +65,8 @@ type FindingKey =
   | "label_max_rate"
   | "label_yearly"
   | "label_interval"
-  | "label_missing";
+  | "label_missing"
+  | "label_conditions";
 
 export interface RuleFinding {
   key: FindingKey;
@@ -107,6 +108,19 @@ export const monthDayWords = (md: string) =>
   `${MONTHS[Number(md.slice(0, 2)) - 1]} ${Number(md.slice(3))}`;
 
 const fmt = (x: number) => (Math.round(x * 100) / 100).toFixed(2);
+
+/** What the visit's weather says about frozen ground and rain, in words. */
+export function weatherNotes(w: ApplicationFacts["weather"]): string[] {
+  return [
+    typeof w?.tminF === "number" && w.tminF <= 32
+      ? `The day's low is ${w.tminF} °F: the ground may be frozen.`
+      : "",
+    typeof w?.precipIn === "number" && w.precipIn > 0
+      ? `${w.precipIn} in of rain ${w.isForecast ? "in the day's forecast" : "recorded for the day"}.`
+      : "",
+    w ? "" : "No weather is kept for this visit.",
+  ].filter(Boolean);
+}
 
 /** Was a soil test made on `testOn` no more than `years` calendar years before `on`? */
 export function soilTestCounts(testOn: string, on: string, years: number | null): boolean {
@@ -207,16 +221,7 @@ export function checkApplication(rules: RuleSetLimits, a: ApplicationFacts): Rul
   if (rules.conditionsSource && isFertiliser) {
     // The law names conditions Sward cannot see (saturated soil, frozen ground): a warning on
     // every fertilizer application, with what the visit's weather says.
-    const w = a.weather;
-    const notes = [
-      w?.tminF != null && w.tminF <= 32
-        ? `The day's low is ${w.tminF} °F: the ground may be frozen.`
-        : "",
-      w?.precipIn != null && w.precipIn > 0
-        ? `${w.precipIn} in of rain ${w.isForecast ? "in the day's forecast" : "recorded for the day"}.`
-        : "",
-      w ? "" : "No weather is kept for this visit.",
-    ].filter(Boolean);
+    const notes = weatherNotes(a.weather);
     findings.push({
       key: "conditions",
       severity: "warning",

@@ -1,7 +1,7 @@
 // The one assessment every path that writes an application goes through (the API's
 // recordApplication and the demo seed): nutrients from the product and rate, the property's rule
 // set on the application's real date, and the product label. Pure; the callers read the facts.
-import { checkLabel } from "@/lib/agronomy/label";
+import { checkLabel, labelConditions } from "@/lib/agronomy/label";
 import {
   nutrientsPer1000,
   productForArea,
@@ -82,6 +82,7 @@ export function assessApplication(i: AssessmentInput): Assessment {
       { appliedOn: i.facts.appliedOn, productLbPer1000: lb, others: i.sameProductOnZone },
     ),
   );
+  findings.push(...labelConditions(i.product.name, i.product.labelCautions, i.facts.weather));
   return {
     per1000,
     totals,

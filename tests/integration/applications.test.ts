@@ -89,8 +89,11 @@ describe("recordApplication", () => {
     expect(a.per1000.wsnLb).toBeCloseTo(0.504, 6);
     expect(a.per1000.k2oLb).toBeCloseTo(0.24, 6);
     expect(a.productTotalLb).toBeCloseTo(15.6, 3);
-    // The standing New Jersey reminder about ground and rain, and nothing else.
-    expect(a.findings.map((f) => `${f.key}:${f.severity}`)).toEqual(["conditions:warning"]);
+    // The standing reminders about ground and rain (New Jersey's and the label's), nothing else.
+    expect(a.findings.map((f) => `${f.key}:${f.severity}`)).toEqual([
+      "conditions:warning",
+      "label_conditions:warning",
+    ]);
     expect(a.appliedOn).toBe("2025-05-12");
   });
 

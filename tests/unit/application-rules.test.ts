@@ -14,7 +14,7 @@
 //   first growing season" — repair is not named.
 import { describe, expect, it } from "vitest";
 
-import { checkLabel, type LabelLimits } from "@/lib/agronomy/label";
+import { checkLabel, labelConditions, type LabelLimits } from "@/lib/agronomy/label";
 import {
   checkApplication,
   inNoFertilizerWindow,
@@ -216,6 +216,16 @@ describe("the product label (refusals no one overrides)", () => {
       { appliedOn: "2026-06-01", productLbPer1000: 40, others: [] },
     );
     expect(f.map((x) => `${x.key}:${x.severity}`)).toEqual(["label_missing:warning"]);
+  });
+  it("a label that names frozen ground, saturated soil or rain: its own words as a warning, with the weather", () => {
+    const caution =
+      "Keep out of reach of children. Do not apply to frozen ground or before heavy rain. Wash hands.";
+    const [f] = labelConditions("Demo feed", caution, { tminF: 28, precipIn: 0, isForecast: true });
+    expect(f).toMatchObject({ key: "label_conditions", severity: "warning", basis: "label" });
+    expect(f!.message).toBe(
+      "The label says: “Do not apply to frozen ground or before heavy rain.” The day's low is 28 °F: the ground may be frozen.",
+    );
+    expect(labelConditions("Demo feed", "Wash hands after use.", null)).toEqual([]);
   });
   it("messages speak the label's unit", () => {
     const floz = {
