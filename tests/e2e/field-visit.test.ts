@@ -183,7 +183,7 @@ describe("a technician runs a visit on a phone", () => {
     const locked = await page.request.get(`/api/v1${visitUrl}`);
     expect(((await locked.json()) as { canEdit: boolean; status: string }).canEdit).toBe(false);
     await context.close();
-  });
+  }, 90_000); // the whole visit with two photo uploads: 15–32 s here, more on a loaded machine
 
   it("the manager sees the finished visit with every check", async () => {
     expect(visitUrl).not.toBe("");
