@@ -33,10 +33,12 @@ async function managerPage(viewport: { width: number; height: number }): Promise
 }
 
 /** Counts the documents the browser loaded: a React Query update loads none. */
+/** Document loads of the page (a reload or a hard navigation); the router's own same-document
+ * URL updates are not reloads, and `framenavigated` counted those too. */
 function countNavigations(page: Page): () => number {
   let n = 0;
-  page.on("framenavigated", (frame) => {
-    if (frame === page.mainFrame()) n += 1;
+  page.on("domcontentloaded", () => {
+    n += 1;
   });
   return () => n;
 }

@@ -42,7 +42,7 @@ describe("mowing readings on a phone", () => {
     const page = await context.newPage();
     await signIn(page, baseUrl, "tech2@demo.sward.test");
     await page.waitForURL("**/today");
-    await page.getByRole("link", { name: /Hollis Commons/ }).click();
+    await page.getByRole("link", { name: /Hollis Mill Commons/ }).click();
     await page.waitForURL(/\/visits\/[0-9a-f-]+$/);
     const visitId = new URL(page.url()).pathname.split("/").at(-1)!;
     await page.getByRole("button", { name: "Start visit" }).click();
@@ -53,7 +53,7 @@ describe("mowing readings on a phone", () => {
     await mowing.scrollIntoViewIfNeeded();
     // No height before mowing until the zone is marked as mowed today.
     expect(await page.getByRole("group", { name: "Height before mowing" }).count()).toBe(0);
-    await mowing.getByRole("radio", { name: "Mowed today" }).click();
+    await mowing.getByRole("radio", { name: "Mowed today", exact: true }).click();
     await tap(page, "Height before mowing: more", 5); // first tap 4.00 in, then 4.25 … 5.00
     await tap(page, "Height of cut: more", 1); // 3.00 in
     const reading = page.getByRole("status").filter({ hasText: /before mowing, cut to/ });
@@ -78,7 +78,7 @@ describe("mowing readings on a phone", () => {
     await waitSaved(page);
 
     // "Not mowed today" clears the height before mowing.
-    await mowing.getByRole("radio", { name: "Not mowed today" }).click();
+    await mowing.getByRole("radio", { name: "Not mowed today", exact: true }).click();
     expect(await page.getByRole("group", { name: "Height before mowing" }).count()).toBe(0);
     await waitSaved(page);
     const saved = (await (await page.request.get(`/api/v1/visits/${visitId}`)).json()) as {
