@@ -86,27 +86,3 @@ export async function refreshCheckIndex(
       .execute();
   }
 }
-
-/** Recomputes every stored Index (after a change of weights). Returns how many checks it read. */
-export async function recomputeAllIndexes(
-  executor: Kysely<Database>,
-  batch = 500,
-): Promise<number> {
-  let after = "00000000-0000-0000-0000-000000000000";
-  let total = 0;
-  for (;;) {
-    const ids = (
-      await executor
-        .selectFrom("zone_checks")
-        .select("id")
-        .where("id", ">", after)
-        .orderBy("id")
-        .limit(batch)
-        .execute()
-    ).map((r) => r.id);
-    if (!ids.length) return total;
-    await refreshCheckIndex(executor, ids);
-    total += ids.length;
-    after = ids[ids.length - 1]!;
-  }
-}
