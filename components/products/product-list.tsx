@@ -70,9 +70,14 @@ export function ProductList() {
               </p>
               <p className="mt-1 text-sm">
                 {p.labelMaxRate !== null && p.labelRateUnit
-                  ? `Label: at most ${p.labelMaxRate} ${RATE_UNIT_LABEL[p.labelRateUnit]} per application${p.labelMaxYearly !== null ? `, ${p.labelMaxYearly} a year` : ""}${p.labelMinIntervalDays !== null ? `, ${p.labelMinIntervalDays} days apart` : ""}.`
+                  ? `Label: at most ${p.labelMaxRate} ${RATE_UNIT_LABEL[p.labelRateUnit]} per application${p.labelMaxYearly !== null ? `, ${p.labelMaxYearly} ${RATE_UNIT_LABEL[p.labelRateUnit]} in any 365 days` : ""}${p.labelMinIntervalDays !== null ? `, at least ${p.labelMinIntervalDays} days between applications` : ""}.`
                   : "No label limits entered: applications of it are checked only against the rule set."}
               </p>
+              {p.reentryGuidance ? (
+                <p className="mt-1 text-sm">
+                  <span className="font-semibold">Keep off treated turf:</span> {p.reentryGuidance}
+                </p>
+              ) : null}
               {p.labelCautions ? <p className="mt-2 text-sm">{p.labelCautions}</p> : null}
               <div className="mt-3 flex gap-2">
                 <Button
