@@ -37,6 +37,8 @@ import { ruleSetKeys } from "@/lib/rule-sets/query-keys";
 import { SafetyCautions } from "./safety-cautions";
 
 const f2 = (x: number) => x.toFixed(2);
+/** The schema's upper bound on a rate (lib/applications/schemas.ts): no preview beyond it. */
+const MAX_RATE_AMOUNT = 100_000;
 
 type FormIn = z.input<typeof applicationSchema>;
 type FormOut = z.output<typeof applicationSchema>;
@@ -74,6 +76,30 @@ function Maths({
       </p>
     );
   const k = areaFt2 / 1000;
+  const load = (
+    <p className="mt-2 font-bold">
+      Load {f2(total.lb)} lb of product{total.gal !== null ? ` (${f2(total.gal)} gal)` : ""} for
+      this zone.
+    </p>
+  );
+  // Only the nutrients the product's label guarantees: an insecticide or a straight potash has
+  // rows of zeros that read like a fertilizer that failed.
+  const rows = [
+    { label: "N", lb: n.nLb, shown: product.nPct > 0 },
+    { label: "water-soluble N", lb: n.wsnLb, shown: product.nPct > 0 },
+    { label: "P₂O₅", lb: n.p2o5Lb, shown: product.p2o5Pct > 0 },
+    { label: "K₂O", lb: n.k2oLb, shown: product.k2oPct > 0 },
+  ].filter((r) => r.shown);
+  if (!rows.length)
+    return (
+      <div className="rounded-xl border border-line bg-paper p-3" aria-live="polite">
+        <p className="text-sm text-muted">
+          This product brings no nitrogen, phosphate or potash: nothing is added to the zone&apos;s
+          nutrient totals.
+        </p>
+        {load}
+      </div>
+    );
   return (
     <div className="rounded-xl border border-line bg-paper p-3" aria-live="polite">
       <table className="w-full text-left text-sm">
@@ -92,69 +118,61 @@ function Maths({
           </tr>
         </thead>
         <tbody className="font-semibold">
-          <tr>
-            <th scope="row" className="py-0.5 font-normal">
-              N
-            </th>
-            <td>{f2(n.nLb)} lb</td>
-            <td>{f2(n.nLb * k)} lb</td>
-          </tr>
-          <tr>
-            <th scope="row" className="py-0.5 font-normal">
-              water-soluble N
-            </th>
-            <td>{f2(n.wsnLb)} lb</td>
-            <td>{f2(n.wsnLb * k)} lb</td>
-          </tr>
-          <tr>
-            <th scope="row" className="py-0.5 font-normal">
-              P₂O₅
-            </th>
-            <td>{f2(n.p2o5Lb)} lb</td>
-            <td>{f2(n.p2o5Lb * k)} lb</td>
-          </tr>
-          <tr>
-            <th scope="row" className="py-0.5 font-normal">
-              K₂O
-            </th>
-            <td>{f2(n.k2oLb)} lb</td>
-            <td>{f2(n.k2oLb * k)} lb</td>
-          </tr>
+          {rows.map((r) => (
+            <tr key={r.label}>
+              <th scope="row" className="py-0.5 font-normal">
+                {r.label}
+              </th>
+              <td>{f2(r.lb)} lb</td>
+              <td>{f2(r.lb * k)} lb</td>
+            </tr>
+          ))}
         </tbody>
       </table>
-      <p className="mt-2 font-bold">
-        Load {f2(total.lb)} lb of product{total.gal !== null ? ` (${f2(total.gal)} gal)` : ""} for
-        this zone.
-      </p>
+      {load}
     </div>
   );
 }
 
 function Findings({ findings }: { findings: RuleFinding[] }) {
   if (!findings.length) return null;
+  // Each finding says what is wrong in a sentence; the rule it comes from (section and statute
+  // text) is behind a "Why", once per source, however many findings share it.
+  const seen = new Set<string>();
   return (
     <ul className="space-y-2" aria-label="Rule checks">
-      {findings.map((f) => (
-        <li
-          key={f.key}
-          className={`rounded-lg border p-3 text-sm ${f.severity === "refusal" ? "border-clay bg-clay-tint" : "border-sun bg-sun-tint"}`}
-        >
-          <p className="flex items-center gap-1.5 font-bold">
-            {f.severity === "refusal" ? (
-              <CircleAlert className="size-4 text-clay" aria-hidden="true" />
-            ) : (
-              <TriangleAlert className="size-4 text-sun" aria-hidden="true" />
-            )}
-            {f.severity === "refusal"
-              ? f.basis === "label"
-                ? "Refused — product label (no override)"
-                : "Refused — legal limit"
-              : "Warning"}
-            : {f.message}
-          </p>
-          <p className="mt-1 text-muted">{f.source}</p>
-        </li>
-      ))}
+      {findings.map((f) => {
+        const showSource = !seen.has(f.source);
+        seen.add(f.source);
+        return (
+          <li
+            key={f.key}
+            className={`rounded-lg border p-3 text-sm ${f.severity === "refusal" ? "border-clay bg-clay-tint" : "border-sun bg-sun-tint"}`}
+          >
+            <p className="flex items-start gap-1.5 font-bold">
+              {f.severity === "refusal" ? (
+                <CircleAlert className="mt-0.5 size-4 shrink-0 text-clay" aria-hidden="true" />
+              ) : (
+                <TriangleAlert className="mt-0.5 size-4 shrink-0 text-sun" aria-hidden="true" />
+              )}
+              <span>
+                {f.severity === "refusal"
+                  ? f.basis === "label"
+                    ? "Refused — product label (no override)"
+                    : "Refused — legal limit"
+                  : "Warning"}
+                : {f.message}
+              </span>
+            </p>
+            {showSource ? (
+              <details className="mt-1 text-muted">
+                <summary className="cursor-pointer py-1 font-semibold">Why</summary>
+                <p>{f.source}</p>
+              </details>
+            ) : null}
+          </li>
+        );
+      })}
     </ul>
   );
 }
@@ -245,7 +263,11 @@ export function ApplicationPanel({
 
   const product = products.data?.find((p) => p.id === productId);
   const ruleSet = ruleSets.data?.find((r) => r.id === ruleSetId) ?? null;
-  const hasRate = product !== undefined && typeof rateAmount === "number" && rateAmount > 0;
+  const hasRate =
+    product !== undefined &&
+    typeof rateAmount === "number" &&
+    rateAmount > 0 &&
+    rateAmount <= MAX_RATE_AMOUNT;
   // A liquid is measured by volume only; weight units are named as such.
   const units = product
     ? rateUnitsFor(product)
@@ -347,8 +369,12 @@ export function ApplicationPanel({
         return;
       }
       setMessage(result.error.message);
-      applyFieldErrors(result.error.fieldErrors, setError as never);
-      setServerFindings((result.error.details?.findings as RuleFinding[] | undefined) ?? null);
+      const findings = (result.error.details?.findings as RuleFinding[] | undefined) ?? null;
+      // A refusal names its rule in the checks below the maths; the Rate field keeps only what
+      // is wrong with the number itself.
+      const { rateAmount: _refusals, ...fieldErrors } = result.error.fieldErrors ?? {};
+      applyFieldErrors(findings ? fieldErrors : result.error.fieldErrors, setError as never);
+      setServerFindings(findings);
     });
 
   const here = applications.filter((a) => a.zoneId === zoneId);
@@ -449,9 +475,11 @@ export function ApplicationPanel({
             <p className="text-sm text-muted">
               Label: at most {product.labelMaxRate} {RATE_UNIT_LABEL[product.labelRateUnit]} per
               application
-              {product.labelMaxYearly !== null ? `, ${product.labelMaxYearly} a year` : ""}
+              {product.labelMaxYearly !== null
+                ? `, ${product.labelMaxYearly} ${RATE_UNIT_LABEL[product.labelRateUnit]} in any 365 days`
+                : ""}
               {product.labelMinIntervalDays !== null
-                ? `, ${product.labelMinIntervalDays} days apart`
+                ? `, at least ${product.labelMinIntervalDays} days between applications`
                 : ""}
               .
             </p>
@@ -571,6 +599,12 @@ export function ApplicationPanel({
               {message}
             </p>
           ) : null}
+          {isRefusedNow && !isLabelRefusedNow && !isManager ? (
+            <p className="rounded-lg bg-clay-tint p-3 font-semibold text-clay">
+              This application breaks a legal limit and cannot be recorded. Change the rate or the
+              product, or ask your manager if it must go ahead.
+            </p>
+          ) : null}
           {isLabelRefusedNow ? (
             <p className="rounded-lg bg-clay-tint p-3 font-semibold text-clay">
               The label is the law: an application above the label cannot be recorded, by anyone.
@@ -624,7 +658,7 @@ export function ApplicationPanel({
             ) : (
               <Button
                 type="button"
-                disabled={isSaving || !hasRate || isLabelRefusedNow}
+                disabled={isSaving || !hasRate || isRefusedNow}
                 onClick={record(false)}
               >
                 {isSaving ? "Recording…" : "Record application"}

@@ -232,7 +232,9 @@ export function checkApplication(rules: RuleSetLimits, a: ApplicationFacts): Rul
       message: `Not on frozen or saturated ground, nor when heavy rain is falling or forecast: check before applying.${notes.length ? ` ${notes.join(" ")}` : ""}`,
     });
   }
-  if (a.annualNRange && a.yearToDateNLb + a.nLb > a.annualNRange.max + 1e-9) {
+  // Only an application that brings nitrogen can take the zone over its yearly range: a product
+  // without N (an insecticide, potash) says nothing about the year's nitrogen.
+  if (a.annualNRange && a.nLb > 0 && a.yearToDateNLb + a.nLb > a.annualNRange.max + 1e-9) {
     findings.push({
       key: "annual_n",
       severity: "warning",

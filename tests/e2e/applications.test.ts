@@ -1,6 +1,6 @@
 // Applications on a phone: tech1 records an application and sees the nutrient maths and the
-// cautions; one over New Jersey's legal N limit is refused with the law's citation; the manager
-// records it with an override reason.
+// cautions; one over New Jersey's legal N limit is refused in the preview (recording disabled, the
+// law's section behind a "Why"); the manager records it with an override reason.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
@@ -50,13 +50,16 @@ describe("applications", () => {
       await page.getByRole("complementary", { name: "Safety cautions" }).innerText(),
     ).toContain("the label is the law");
     await snap(page, "application-01-maths");
-    await page.getByRole("button", { name: "Record application" }).click();
+    const recordButton = page.getByRole("button", { name: "Record application" });
     if (isBlackoutToday) {
+      // Refused in the preview already: the button stays disabled and the rule is named once.
       await page
         .getByText(/may not be applied after December 1 or before March 1/)
         .first()
         .waitFor();
+      expect(await recordButton.isDisabled()).toBe(true);
     } else {
+      await recordButton.click();
       await page
         .getByRole("list", { name: "Applications on this zone" })
         .getByText("Larkmoor Steadyfeed")
@@ -70,11 +73,18 @@ describe("applications", () => {
       .catch(() => undefined);
     await openForm(page, "Quickgreen 28-3-6 (28-3-6)");
     await page.getByLabel("Rate", { exact: true }).fill("4");
-    await page.getByRole("button", { name: "Record application" }).click();
     const refusal = page.getByRole("list", { name: "Rule checks" });
     await refusal.getByText(/1\.12 lb N per 1,000 ft² is above the 0\.90 lb limit/).waitFor();
-    expect(await refusal.innerText()).toContain("P.L.2010, c.112");
-    await page.getByText("was not recorded").waitFor();
+    // Refused: nothing to send, and the technician is told what to do instead.
+    expect(await page.getByRole("button", { name: "Record application" }).isDisabled()).toBe(true);
+    await page.getByText("cannot be recorded").waitFor();
+    // The rule's section and statute are behind one "Why" per source, not repeated per finding.
+    expect(await refusal.innerText()).not.toContain("P.L.2010, c.112");
+    const whys = refusal.getByText("Why", { exact: true });
+    await whys.first().click();
+    expect(await refusal.innerText()).toMatch(/58:10A/);
+    const sources = await refusal.locator("details p").allTextContents();
+    expect(new Set(sources).size).toBe(sources.length);
     await snap(page, "application-02-refused");
     await context.close();
   });

@@ -177,6 +177,11 @@ describe("company default and the species range", () => {
   it("going over the species' annual range is a warning, never a refusal", () => {
     expect(keys(NJ, { yearToDateNLb: 3.5 })).toEqual(["annual_n:warning"]);
   });
+  it("a product without nitrogen (an insecticide) never warns about the year's nitrogen", () => {
+    const noN = { nPct: 0, nLb: 0, wsnLb: 0, slowReleasePctOfN: 0 };
+    expect(keys(DEFAULT, { ...noN, yearToDateNLb: 3.5 })).toEqual([]);
+    expect(keys(NJ, { ...noN, yearToDateNLb: 4.5, appliedOn: "2026-12-20" })).toEqual([]);
+  });
 });
 
 describe("the product label (refusals no one overrides)", () => {
