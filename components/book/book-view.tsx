@@ -1,5 +1,5 @@
-// The manager's book: filters (a GET form, so every view is a URL), the table, keyset paging and
-// the CSV of the same view.
+// The manager's book: filters (a GET form, so every view is a URL), the table (cards on a phone),
+// keyset paging and the CSV of the same view.
 import { Download } from "lucide-react";
 import Link from "next/link";
 
@@ -11,6 +11,7 @@ import { BOOK_SORTS, type BookQuery } from "@/lib/book/schemas";
 import { BOOK_PATH } from "@/lib/paths";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
 
+import { BookCards } from "./book-cards";
 import { BookTable } from "./book-table";
 
 const TRENDS = [
@@ -157,7 +158,15 @@ export function BookView({
         </a>
       </div>
       {rows.length ? (
-        <BookTable rows={rows} sort={query.sort} dir={dir} hrefFor={hrefFor} />
+        <>
+          {/* Cards on a phone or a narrow tablet; the table where its columns fit. */}
+          <div className="lg:hidden">
+            <BookCards rows={rows} sort={query.sort} dir={dir} hrefFor={hrefFor} />
+          </div>
+          <div className="hidden lg:block">
+            <BookTable rows={rows} sort={query.sort} dir={dir} hrefFor={hrefFor} />
+          </div>
+        </>
       ) : (
         <p className="rounded-lg border border-line bg-card p-4">
           {isFiltered ? "No property matches these filters." : "No properties yet."}

@@ -176,7 +176,7 @@ export function PropertyIndexSection({
           />
         </>
       )}
-      <h3 className="text-xl font-bold">Zones</h3>
+      <h3 className="text-xl font-bold">Index by zone</h3>
       <ul className="grid gap-3 sm:grid-cols-2" aria-label="Zone index">
         {history.zones.map((z) => {
           const last = z.points.at(-1);

@@ -17,6 +17,7 @@ import {
   numberOrNull,
 } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { PagedList } from "@/components/ui/paged-list";
 import { GAL_PER_INCH_1000FT2 } from "@/lib/agronomy/units";
 import { wateringDepthIn } from "@/lib/agronomy/water";
 import { formatDate } from "@/lib/dates";
@@ -233,27 +234,29 @@ export function WateringLog({
       {waterings.length === 0 ? (
         <p className="rounded-lg border border-line bg-card p-4">No watering logged yet.</p>
       ) : (
-        <ul className="space-y-2" aria-label="Waterings">
-          {waterings.slice(0, 20).map((w) => (
-            <li
-              key={w.id}
-              className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-line bg-card p-3"
-            >
-              <span>
-                <span className="font-bold">{formatDate(w.wateredOn)}</span> ·{" "}
-                {w.zoneName ?? "whole lawn"}
-                {w.runMinutes && w.precipitationRateInPerHour
-                  ? ` · ${w.runMinutes} min at ${w.precipitationRateInPerHour} in/h`
-                  : ""}
-                {w.notes ? ` · ${w.notes}` : ""}
-              </span>
-              <span className="inline-flex items-center gap-1 rounded-full bg-rain-tint px-2.5 py-1 font-semibold text-ink">
-                <Droplets className="size-4 text-rain" aria-hidden="true" />
-                {w.depthIn.toFixed(2)} in
-              </span>
-            </li>
-          ))}
-        </ul>
+        <PagedList
+          label="Waterings"
+          noun="waterings"
+          items={waterings.map((w) => ({
+            key: w.id,
+            node: (
+              <div className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-line bg-card p-3">
+                <span>
+                  <span className="font-bold">{formatDate(w.wateredOn)}</span> ·{" "}
+                  {w.zoneName ?? "whole lawn"}
+                  {w.runMinutes && w.precipitationRateInPerHour
+                    ? ` · ${w.runMinutes} min at ${w.precipitationRateInPerHour} in/h`
+                    : ""}
+                  {w.notes ? ` · ${w.notes}` : ""}
+                </span>
+                <span className="inline-flex items-center gap-1 rounded-full bg-rain-tint px-2.5 py-1 font-semibold text-ink">
+                  <Droplets className="size-4 text-rain" aria-hidden="true" />
+                  {w.depthIn.toFixed(2)} in
+                </span>
+              </div>
+            ),
+          }))}
+        />
       )}
     </div>
   );

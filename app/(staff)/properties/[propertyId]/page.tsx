@@ -17,6 +17,7 @@ import { ZoneList } from "@/components/properties/zone-list";
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
 import { PropertyIndexSection } from "@/components/sward-index/property-index-section";
 import { buttonClass } from "@/components/ui/button";
+import { PagedList } from "@/components/ui/paged-list";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { WateringLog } from "@/components/watering/watering-log";
 import { WeatherPanel } from "@/components/weather/weather-panel";
@@ -69,6 +70,18 @@ export default async function PropertyPage({
     listPropertyApplications(actor, property.id, year),
   ]);
   const isManager = actor.role === "manager";
+  // The page's sections, in page order, for the "On this page" links.
+  const sections: [string, string][] = [
+    ["alerts", "Risk alerts"],
+    ["zones", "Zones"],
+    ["index", "Sward Index"],
+    ...(latestPhotos.length ? ([["photos", "Photos"]] as [string, string][]) : []),
+    ["visits", "Visits"],
+    ["weather", "Weather and water"],
+    ["applications", "Applications"],
+    ["watering", "Watering log"],
+    ...(isManager ? ([["homeowners", "Homeowners"]] as [string, string][]) : []),
+  ];
 
   return (
     <>
@@ -115,7 +128,22 @@ export default async function PropertyPage({
         </div>
       </section>
 
-      <section aria-labelledby="alerts-title" className="mb-8">
+      <nav aria-label="On this page" className="mb-8">
+        <ul className="flex flex-wrap gap-2 text-sm">
+          {sections.map(([id, label]) => (
+            <li key={id}>
+              <a
+                href={`#${id}`}
+                className="inline-flex min-h-tap items-center rounded-full border border-line bg-card px-3 font-semibold text-ink no-underline hover:border-sward"
+              >
+                {label}
+              </a>
+            </li>
+          ))}
+        </ul>
+      </nav>
+
+      <section id="alerts" aria-labelledby="alerts-title" className="mb-8 scroll-mt-4">
         <h2 id="alerts-title" className="mb-3 text-2xl font-bold">
           Risk alerts
         </h2>
@@ -127,31 +155,35 @@ export default async function PropertyPage({
         />
       </section>
 
-      <h2 className="mb-3 text-2xl font-bold">Zones</h2>
-      <ZoneList
-        zones={property.zones}
-        actions={(zone) => (
-          <>
-            <NitrogenToDate
-              nLb={nitrogen[zone.id] ?? 0}
-              speciesKey={zone.grassSpecies.key}
-              year={year}
-            />
-            <ZoneActions
-              propertyId={property.id}
-              zone={zone}
-              canManage={isManager && !property.isArchived}
-            />
-          </>
-        )}
-      />
-      {isManager && !property.isArchived ? (
-        <div className="mt-3">
-          <AddZone propertyId={property.id} />
-        </div>
-      ) : null}
+      <section id="zones" aria-labelledby="zones-title" className="scroll-mt-4">
+        <h2 id="zones-title" className="mb-3 text-2xl font-bold">
+          Zones
+        </h2>
+        <ZoneList
+          zones={property.zones}
+          actions={(zone) => (
+            <>
+              <NitrogenToDate
+                nLb={nitrogen[zone.id] ?? 0}
+                speciesKey={zone.grassSpecies.key}
+                year={year}
+              />
+              <ZoneActions
+                propertyId={property.id}
+                zone={zone}
+                canManage={isManager && !property.isArchived}
+              />
+            </>
+          )}
+        />
+        {isManager && !property.isArchived ? (
+          <div className="mt-3">
+            <AddZone propertyId={property.id} />
+          </div>
+        ) : null}
+      </section>
 
-      <div className="mt-10">
+      <div id="index" className="mt-10 scroll-mt-4">
         <PropertyIndexSection
           history={scores}
           zoneHref={(zoneId) => `/properties/${property.id}/zones/${zoneId}`}
@@ -159,8 +191,10 @@ export default async function PropertyPage({
       </div>
 
       {latestPhotos.length ? (
-        <>
-          <h2 className="mt-10 mb-3 text-2xl font-bold">Latest photo of each zone</h2>
+        <section id="photos" aria-labelledby="photos-title" className="scroll-mt-4">
+          <h2 id="photos-title" className="mt-10 mb-3 text-2xl font-bold">
+            Latest photo of each zone
+          </h2>
           <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4" aria-label="Latest photos">
             {latestPhotos.map((photo) => (
               <li key={photo.id}>
@@ -171,50 +205,69 @@ export default async function PropertyPage({
               </li>
             ))}
           </ul>
-        </>
+        </section>
       ) : null}
 
-      <h2 className="mt-10 mb-3 text-2xl font-bold">Visits</h2>
-      {visits.length === 0 ? (
-        <p className="rounded-lg border border-line bg-card p-4">No visits yet.</p>
-      ) : (
-        <ul className="space-y-2" aria-label="Visits">
-          {visits.map((v) => (
-            <li key={v.id}>
-              <Link
-                href={`/visits/${v.id}`}
-                className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-card p-3 no-underline hover:border-sward"
-              >
-                <span className="text-ink">
-                  <span className="font-bold">{formatDate(v.scheduledFor)}</span> ·{" "}
-                  {PLANNED_SERVICES[v.plannedService]} · {v.technician?.name ?? "no technician"}
-                </span>
-                <VisitStatusBadge status={v.status} />
-              </Link>
-            </li>
-          ))}
-        </ul>
-      )}
+      <section id="visits" aria-labelledby="visits-title" className="scroll-mt-4">
+        <h2 id="visits-title" className="mt-10 mb-3 text-2xl font-bold">
+          Visits
+        </h2>
+        {visits.length === 0 ? (
+          <p className="rounded-lg border border-line bg-card p-4">
+            No visits yet.{isManager ? " Schedule one from Visits." : ""}
+          </p>
+        ) : (
+          <PagedList
+            label="Visits"
+            noun="visits"
+            items={visits.map((v) => ({
+              key: v.id,
+              node: (
+                <Link
+                  href={`/visits/${v.id}`}
+                  className="flex flex-wrap items-center justify-between gap-2 rounded-xl border border-line bg-card p-3 no-underline hover:border-sward"
+                >
+                  <span className="text-ink">
+                    <span className="font-bold">{formatDate(v.scheduledFor)}</span> ·{" "}
+                    {PLANNED_SERVICES[v.plannedService]} · {v.technician?.name ?? "no technician"}
+                  </span>
+                  <VisitStatusBadge status={v.status} />
+                </Link>
+              ),
+            }))}
+          />
+        )}
+      </section>
 
-      <div className="mt-10">
+      <div id="weather" className="mt-10 scroll-mt-4">
         <WeatherPanel weather={weather} />
       </div>
 
-      <h2 className="mt-10 mb-3 text-2xl font-bold">Applications in {year}</h2>
-      <PropertyApplications rows={applications} year={year} />
+      <section id="applications" aria-labelledby="applications-title" className="scroll-mt-4">
+        <h2 id="applications-title" className="mt-10 mb-3 text-2xl font-bold">
+          Applications in {year}
+        </h2>
+        <PropertyApplications rows={applications} year={year} />
+      </section>
 
-      <h2 className="mt-10 mb-3 text-2xl font-bold">Watering log</h2>
-      <WateringLog
-        propertyId={property.id}
-        zones={property.zones}
-        today={todayIn(property.timeZone)}
-        waterings={waterings}
-        canAdd={!property.isArchived}
-      />
+      <section id="watering" aria-labelledby="watering-title" className="scroll-mt-4">
+        <h2 id="watering-title" className="mt-10 mb-3 text-2xl font-bold">
+          Watering log
+        </h2>
+        <WateringLog
+          propertyId={property.id}
+          zones={property.zones}
+          today={todayIn(property.timeZone)}
+          waterings={waterings}
+          canAdd={!property.isArchived}
+        />
+      </section>
 
       {isManager ? (
         <>
-          <h2 className="mt-10 mb-3 text-2xl font-bold">Homeowner sign-ins</h2>
+          <h2 id="homeowners" className="mt-10 mb-3 scroll-mt-4 text-2xl font-bold">
+            Homeowner sign-ins
+          </h2>
           <HomeownerAdmin property={property} />
           {property.notes ? (
             <>
