@@ -20,7 +20,9 @@ export type PlannedService =
   | "aeration_overseeding"
   | "fall_feeding"
   | "inspection"
-  | "callback";
+  | "callback"
+  | "soil_sampling"
+  | "liming";
 export type VisitStatus = "scheduled" | "in_progress" | "completed" | "cancelled";
 export type ZoneCheckStatus = "draft" | "done" | "skipped";
 export type SoilMoisture = "dry" | "moist" | "wet";

@@ -5,10 +5,11 @@
 import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
+import { CharacterCount } from "@/components/ui/character-count";
 import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
 import type { PersonDto } from "@/lib/people/dto";
@@ -17,9 +18,14 @@ import { sendJson } from "@/lib/query-client";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { VisitDetailDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
-import { scheduleVisitSchema } from "@/lib/visits/schemas";
+import { MAX_STOP_NUMBER, scheduleVisitSchema, VISIT_NOTES_MAX } from "@/lib/visits/schemas";
 
 type FormIn = z.input<typeof scheduleVisitSchema>;
+type ConfirmField = "confirmSameDay" | "confirmBlackout";
+const CONFIRM_LABEL: Record<ConfirmField, string> = {
+  confirmSameDay: "Schedule another visit that day anyway",
+  confirmBlackout: "Schedule this round in the no-fertilizer window anyway",
+};
 type FormOut = z.output<typeof scheduleVisitSchema>;
 
 export function ScheduleVisitForm({
@@ -35,12 +41,16 @@ export function ScheduleVisitForm({
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
   const [visitId, setVisitId] = useState(() => crypto.randomUUID());
+  // Warnings the server asks the manager to confirm (a second visit that day, a round with N or P
+  // inside the rule set's no-fertilizer window): each shows with its "schedule anyway" box.
+  const [warnings, setWarnings] = useState<Partial<Record<ConfirmField, string>>>({});
   const {
     register,
     handleSubmit,
     setValue,
     setError,
     reset,
+    control,
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
     resolver: formResolver(scheduleVisitSchema),
@@ -48,10 +58,13 @@ export function ScheduleVisitForm({
       scheduledFor: defaultDate,
       plannedService: "feeding_round",
       technicianId: null,
-      stopOrder: 0,
+      stopOrder: undefined,
       notes: "",
+      confirmSameDay: false,
+      confirmBlackout: false,
     },
   });
+  const notesLength = (useWatch({ control, name: "notes" }) ?? "").length;
 
   async function onSubmit(values: FormOut) {
     setMessage(null);
@@ -60,9 +73,15 @@ export function ScheduleVisitForm({
       id: visitId,
     });
     if (!result.ok) {
-      applyFieldErrors(result.error.fieldErrors, setError as never);
+      const { confirmSameDay, confirmBlackout, ...rest } = result.error.fieldErrors ?? {};
+      setWarnings({
+        ...(confirmSameDay?.[0] ? { confirmSameDay: confirmSameDay[0] } : {}),
+        ...(confirmBlackout?.[0] ? { confirmBlackout: confirmBlackout[0] } : {}),
+      });
+      applyFieldErrors(rest, setError as never);
       return setMessage({ tone: "error", text: result.error.message });
     }
+    setWarnings({});
     setMessage({
       tone: "ok",
       text: `Scheduled: ${result.data.propertyName} on ${result.data.scheduledFor}.`,
@@ -72,8 +91,10 @@ export function ScheduleVisitForm({
       scheduledFor: values.scheduledFor,
       plannedService: values.plannedService,
       technicianId: null,
-      stopOrder: 0,
+      stopOrder: undefined,
       notes: "",
+      confirmSameDay: false,
+      confirmBlackout: false,
     });
     void queryClient.invalidateQueries({ queryKey: visitKeys.all });
     router.refresh();
@@ -130,10 +151,14 @@ export function ScheduleVisitForm({
           <input
             id="sv-order"
             type="number"
-            min={0}
-            max={1000}
+            min={1}
+            max={MAX_STOP_NUMBER}
+            step={1}
             inputMode="numeric"
-            {...register("stopOrder", { valueAsNumber: true })}
+            placeholder="Not numbered"
+            {...register("stopOrder", {
+              setValueAs: (v: string) => (v === "" || v === undefined ? undefined : Number(v)),
+            })}
             className={inputClass}
           />
         </Field>
@@ -164,8 +189,24 @@ export function ScheduleVisitForm({
         </Field>
       </div>
       <Field id="sv-notes" label="Note for the technician (optional)" error={errors.notes?.message}>
-        <textarea id="sv-notes" rows={2} {...register("notes")} className={inputClass} />
+        <textarea
+          id="sv-notes"
+          rows={2}
+          aria-describedby="sv-notes-count"
+          {...register("notes")}
+          className={inputClass}
+        />
+        <CharacterCount id="sv-notes-count" length={notesLength} max={VISIT_NOTES_MAX} />
       </Field>
+      {(Object.keys(warnings) as ConfirmField[]).map((field) => (
+        <div key={field} role="alert" className="rounded-lg border border-sun bg-card p-3">
+          <p className="mb-2 font-semibold text-sun">Warning: {warnings[field]}</p>
+          <label className="flex min-h-tap items-center gap-2">
+            <input type="checkbox" {...register(field)} className="size-5" />
+            {CONFIRM_LABEL[field]}
+          </label>
+        </div>
+      ))}
       <Button type="submit" disabled={isSubmitting}>
         {isSubmitting ? "Scheduling…" : "Schedule visit"}
       </Button>

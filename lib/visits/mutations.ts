@@ -10,10 +10,14 @@ import { db } from "@/db";
 import type { ZoneCheck } from "@/db/schema";
 import { afterWrite } from "@/lib/after-write";
 import { indexColumns } from "@/lib/after-write/check-index";
+import { inNoFertilizerWindow, monthDayWords } from "@/lib/agronomy/rules";
+import { nextFertilizerDate, putsDownNOrP, usDate } from "@/lib/agronomy/season";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
+import { addDays, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { PhotoFigures } from "@/lib/scoring/from-check";
 import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 import { fillVisitWeather } from "@/lib/weather/mutations";
@@ -21,7 +25,12 @@ import { fillVisitWeather } from "@/lib/weather/mutations";
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
 import { getVisit } from "./queries";
-import type { ScheduleVisitInput, ZoneCheckInput, ZoneCheckRequest } from "./schemas";
+import {
+  SCHEDULE_AHEAD_DAYS,
+  type ScheduleVisitInput,
+  type ZoneCheckInput,
+  type ZoneCheckRequest,
+} from "./schemas";
 import { mowingConsistency } from "./zone-check-rules";
 
 export async function scheduleVisit(
@@ -34,7 +43,16 @@ export async function scheduleVisit(
     .execute(async (trx) => {
       const property = await trx
         .selectFrom("properties")
-        .select(["id", "archived_at"])
+        .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
+        .select([
+          "properties.id",
+          "properties.name",
+          "properties.archived_at",
+          "properties.time_zone",
+          "rule_sets.name as rule_set_name",
+          "rule_sets.pro_no_fertilizer_after",
+          "rule_sets.pro_no_fertilizer_before",
+        ])
         .where(propertyInScope(actor))
         .where("properties.id", "=", input.propertyId)
         .executeTakeFirst();
@@ -46,6 +64,58 @@ export async function scheduleVisit(
         throw new AppError("invalid_input", "Some values need attention.", {
           propertyId: ["That property is archived."],
         });
+      // The date's window, in the property's time zone: today up to 18 months ahead.
+      const today = todayIn(property.time_zone);
+      if (input.scheduledFor < today)
+        throw new AppError("invalid_input", "Some values need attention.", {
+          scheduledFor: [
+            `Date: a visit is scheduled for today (${usDate(today)}) or a later day, not in the past.`,
+          ],
+        });
+      if (input.scheduledFor > addDays(today, SCHEDULE_AHEAD_DAYS))
+        throw new AppError("invalid_input", "Some values need attention.", {
+          scheduledFor: [
+            `Date: at most 18 months ahead (${usDate(addDays(today, SCHEDULE_AHEAD_DAYS))} or earlier).`,
+          ],
+        });
+      // Warnings the manager confirms: a second visit that day, a round with N or P inside the
+      // rule set's no-fertilizer window (with the next day it is allowed).
+      const warnings: Record<string, string[]> = {};
+      const sameDay = await trx
+        .selectFrom("visits")
+        .select(["id", "planned_service"])
+        .where("company_id", "=", actor.companyId)
+        .where("property_id", "=", input.propertyId)
+        .where("scheduled_for", "=", input.scheduledFor)
+        .where("status", "!=", "cancelled")
+        .where("id", "!=", id)
+        .execute();
+      if (sameDay.length && !input.confirmSameDay)
+        warnings.confirmSameDay = [
+          `${property.name} already has ${sameDay.length === 1 ? "a visit" : `${sameDay.length} visits`} on ${usDate(input.scheduledFor)} (${sameDay.map((v) => PLANNED_SERVICES[v.planned_service]).join(", ")}). Confirm to schedule another one that day.`,
+        ];
+      const window =
+        property.pro_no_fertilizer_after && property.pro_no_fertilizer_before
+          ? ([property.pro_no_fertilizer_after, property.pro_no_fertilizer_before] as const)
+          : null;
+      if (
+        window &&
+        putsDownNOrP(input.plannedService) &&
+        inNoFertilizerWindow(input.scheduledFor.slice(5), window) &&
+        !input.confirmBlackout
+      ) {
+        const next = nextFertilizerDate(input.scheduledFor, window);
+        warnings.confirmBlackout = [
+          `${usDate(input.scheduledFor)} is inside the no-fertilizer window of ${property.rule_set_name}: no fertilizer with nitrogen or phosphorus after ${monthDayWords(window[0])} or before ${monthDayWords(window[1])}.${next ? ` The next allowed day is ${usDate(next)}.` : ""} Choose that date, a round without nitrogen or phosphorus (lime, soil sampling, inspection), or confirm to schedule it anyway.`,
+        ];
+      }
+      if (Object.keys(warnings).length)
+        throw new AppError(
+          "invalid_input",
+          "Check the warnings below, then confirm or change the visit.",
+          warnings,
+          { warnings: Object.keys(warnings) },
+        );
       if (input.technicianId) {
         const tech = await trx
           .selectFrom("memberships")

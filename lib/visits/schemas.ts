@@ -2,7 +2,7 @@
 // the forms' bundles stay small; the server parses the same schemas).
 import { z } from "zod/mini";
 
-import { isIsoDate } from "@/lib/dates";
+import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 
 import { zoneCheckFields } from "./zone-check-fields";
 import { mowingConsistency, zoneCheckCompleteness } from "./zone-check-rules";
@@ -20,6 +20,8 @@ const plannedServiceSchema = z.enum([
   "fall_feeding",
   "inspection",
   "callback",
+  "soil_sampling",
+  "liming",
 ]);
 
 export const visitIdParams = z.object({ visitId: z.uuid() });
@@ -34,19 +36,60 @@ export const listVisitsQuery = z.strictObject({
   status: z.optional(z.enum(["scheduled", "in_progress", "completed", "cancelled"])),
 });
 
+/** How far ahead a visit may be scheduled: about 18 months (548 days). */
+export const SCHEDULE_AHEAD_DAYS = 548;
+/** The most stops one technician's day may number. */
+export const MAX_STOP_NUMBER = 200;
+/** Visit notes: the column's limit (characters). */
+export const VISIT_NOTES_MAX = 4000;
+
+/**
+ * The window a visit date may fall in, seen from this device's clock: from yesterday (a time zone
+ * west of here may still be on it) to 18 months ahead. The server checks the exact day in the
+ * company's time zone (lib/visits/mutations.ts).
+ */
+const scheduleDate = isoDate.check(
+  z.refine(
+    (d) => !isIsoDate(d) || d >= addDays(todayIn("UTC"), -1),
+    "Date: a visit is scheduled for today or a later day, not in the past.",
+  ),
+  z.refine(
+    (d) => !isIsoDate(d) || d <= addDays(todayIn("UTC"), SCHEDULE_AHEAD_DAYS + 1),
+    "Date: at most 18 months ahead.",
+  ),
+);
+
 export const scheduleVisitSchema = z.strictObject({
   id: z.optional(z.uuid("A visit id must be a UUID.")),
   propertyId: z.uuid("Choose a property."),
-  scheduledFor: isoDate,
+  scheduledFor: scheduleDate,
   technicianId: z.nullable(z.uuid("Choose a technician.")),
   plannedService: plannedServiceSchema,
-  stopOrder: z._default(z.int().check(z.gte(0), z.lte(1000)), 0),
+  /** Omitted: not numbered (0), listed after the numbered stops. */
+  stopOrder: z._default(
+    z
+      .int("Stop number: a whole number, 1 or more.")
+      .check(
+        z.gte(1, "Stop number: 1 or more (the day's first stop is 1)."),
+        z.lte(MAX_STOP_NUMBER, `Stop number: at most ${MAX_STOP_NUMBER} stops in a day.`),
+      ),
+    0,
+  ),
   notes: z._default(
-    z.string().check(z.trim(), z.maxLength(4000, "Keep notes under 4,000 characters.")),
+    z
+      .string()
+      .check(z.trim(), z.maxLength(VISIT_NOTES_MAX, "Note: at most 4,000 characters; shorten it.")),
     "",
   ),
+  /** The manager saw the warning that the property already has a visit that day, and goes ahead. */
+  confirmSameDay: z._default(z.boolean(), false),
+  /** The manager saw the no-fertilizer window warning for a round with N or P, and goes ahead. */
+  confirmBlackout: z._default(z.boolean(), false),
 });
-export type ScheduleVisitInput = z.infer<typeof scheduleVisitSchema>;
+type ScheduleVisitParsed = z.infer<typeof scheduleVisitSchema>;
+/** What scheduleVisit takes: the parsed body; the confirmations default to false. */
+export type ScheduleVisitInput = Omit<ScheduleVisitParsed, "confirmSameDay" | "confirmBlackout"> &
+  Partial<Pick<ScheduleVisitParsed, "confirmSameDay" | "confirmBlackout">>;
 
 export const startVisitSchema = z
   .strictObject({

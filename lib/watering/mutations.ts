@@ -4,14 +4,16 @@ import "server-only";
 
 import { db } from "@/db";
 import { afterWrite } from "@/lib/after-write";
+import { usDate } from "@/lib/agronomy/season";
 import { wateringDepthIn } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
+import { addDays, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 
 import type { WateringDto } from "./dto";
 import { listWaterings } from "./queries";
-import type { WateringInput } from "./schemas";
+import { WATERING_BACK_DAYS, type WateringInput } from "./schemas";
 
 export async function logWatering(
   actor: Actor,
@@ -20,11 +22,23 @@ export async function logWatering(
 ): Promise<WateringDto> {
   const property = await db()
     .selectFrom("properties")
-    .select("properties.id")
+    .select(["properties.id", "properties.time_zone"])
     .where(propertyInScope(actor))
     .where("properties.id", "=", propertyId)
     .executeTakeFirst();
   if (!property) throw notFound("That property");
+  // The property's own day: no watering in the future, none more than a year back.
+  const today = todayIn(property.time_zone);
+  if (input.wateredOn > today)
+    throw new AppError("invalid_input", "Some values need attention.", {
+      wateredOn: [`Date watered: not in the future (today is ${usDate(today)}).`],
+    });
+  if (input.wateredOn < addDays(today, -WATERING_BACK_DAYS))
+    throw new AppError("invalid_input", "Some values need attention.", {
+      wateredOn: [
+        `Date watered: within the last year (${usDate(addDays(today, -WATERING_BACK_DAYS))} or later).`,
+      ],
+    });
   if (input.zoneId) {
     const zone = await db()
       .selectFrom("zones")

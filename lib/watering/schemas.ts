@@ -2,19 +2,34 @@
 // (zod/mini: shared by the route and the watering form, whose bundle stays small).
 import { z } from "zod/mini";
 
-import { isIsoDate } from "@/lib/dates";
+import { addDays, isIsoDate, todayIn } from "@/lib/dates";
+
+/** How far back a watering may be logged: a year (the water balance reads two weeks). */
+export const WATERING_BACK_DAYS = 365;
 
 export const wateringSchema = z
   .strictObject({
     id: z.uuid(),
     zoneId: z.nullable(z.uuid()),
-    wateredOn: z.string().check(z.refine(isIsoDate, "Use a date like 2026-06-15.")),
+    // Seen from this device's clock (a day of slack for time zones); the server checks the
+    // property's own day (lib/watering/mutations.ts).
+    wateredOn: z.string().check(
+      z.refine(isIsoDate, "Use a date like 2026-06-15."),
+      z.refine(
+        (d) => !isIsoDate(d) || d <= addDays(todayIn("UTC"), 1),
+        "Date watered: not in the future.",
+      ),
+      z.refine(
+        (d) => !isIsoDate(d) || d >= addDays(todayIn("UTC"), -WATERING_BACK_DAYS - 1),
+        "Date watered: within the last year.",
+      ),
+    ),
     depthIn: z.nullable(
       z
         .number("Enter the depth as a number.")
         .check(
-          z.positive("Depth must be above 0."),
-          z.lte(10, "More than 10 in of water? Check the number."),
+          z.positive("Depth: above 0 in."),
+          z.lte(10, "Depth: at most 10 in of water at once; check the number."),
         ),
     ),
     runMinutes: z.nullable(

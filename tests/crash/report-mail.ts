@@ -123,6 +123,7 @@ export async function reportMailAfterKill(options: {
     plannedService: "inspection",
     stopOrder: 20,
     notes: "",
+    confirmSameDay: true,
   });
   await tech.once("POST", `/api/v1/visits/${visitId}/start`, { latitude: null, longitude: null });
   for (const zone of property.zones)

@@ -182,6 +182,7 @@ async function planSlots(
       plannedService: "inspection",
       stopOrder: 10,
       notes: "",
+      confirmSameDay: true, // a second visit at a property with a stop today
     }),
   );
   await inParallel(toStart, (id) =>

@@ -474,6 +474,7 @@ const CELLS: Cell[] = [
       scheduledFor: t.today,
       technicianId: null,
       plannedService: "inspection",
+      confirmSameDay: true, // the demo property has its stop today
     }),
     allow: ["manager"],
     refusedAs: [422],
@@ -716,6 +717,7 @@ beforeAll(async () => {
     plannedService: "inspection",
     stopOrder: 0,
     notes: "",
+    confirmSameDay: true,
   });
   const extraEmail = `matrix-extra-${randomUUID().slice(0, 8)}@test.sward.test`;
   await linkHomeowner(manager, propertyId, { email: extraEmail, name: "Matrix Extra" });

@@ -7,6 +7,7 @@ import { randomUUID } from "node:crypto";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
+import { addDays, todayIn } from "@/lib/dates";
 import { readInbox } from "@/lib/mail/inbox-folder";
 
 import { DESKTOP, launchBrowser } from "../helpers/browser";
@@ -120,7 +121,7 @@ beforeAll(async () => {
       await api(cookies.tech, "POST", `/api/v1/properties/${t.propertyId}/waterings`, {
         id: randomUUID(),
         zoneId: null,
-        wateredOn: "2026-11-20",
+        wateredOn: addDays(todayIn("America/New_York"), -1),
         depthIn: 0.5,
         runMinutes: null,
         precipitationRateInPerHour: null,

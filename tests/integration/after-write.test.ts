@@ -6,6 +6,7 @@ import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { evaluateProperty } from "@/lib/after-write/sweep";
 import type { Actor } from "@/lib/auth/actor";
+import { todayIn } from "@/lib/dates";
 import { listProducts } from "@/lib/products/queries";
 import { propertyIndex } from "@/lib/scoring/sward-index";
 import { valuesOf } from "@/lib/visits/map";
@@ -248,7 +249,7 @@ describe("a write shows in the book and the alerts at once", () => {
         body: {
           id: newId(),
           zoneId: null,
-          wateredOn: new Date().toISOString().slice(0, 10),
+          wateredOn: todayIn("America/New_York"),
           depthIn: 1.5,
           runMinutes: null,
           precipitationRateInPerHour: null,

@@ -222,7 +222,13 @@ describe("every path that writes an application", () => {
 
   it("the seed refuses a scenario application that breaks the label or the law", async () => {
     const schedule = demoCompany.schedule!;
-    const broken = (application: { product: string; rateLbPer1000: number }) => ({
+    // The round on a seeded day decides what the history puts down (fixtures/demo/rounds.ts):
+    // seeded on 2026-06-15 the April visit is a feeding, on 2026-10-20 the September one an
+    // aeration with its starter.
+    const broken = (
+      service: "feeding_round" | "aeration_overseeding",
+      application: { product: string; rateLbPer1000: number },
+    ) => ({
       ...demoCompany,
       slug: `t-broken-${randomUUID().slice(0, 8)}`,
       people: demoCompany.people.map((p) => ({
@@ -231,21 +237,26 @@ describe("every path that writes an application", () => {
       })),
       schedule: {
         ...schedule,
-        pastVisitsDaysAgo: [{ daysAgo: 200, service: "feeding_round" as const, application }],
+        treatments: { ...schedule.treatments, [service]: application },
       },
     });
     await expect(
       seedCompany(
         testDb(),
-        broken({ product: "Larkmoor Steadyfeed 24-0-8", rateLbPer1000: 4.5 }),
+        broken("feeding_round", { product: "Larkmoor Steadyfeed 24-0-8", rateLbPer1000: 4.5 }),
         "x-password-2026",
+        "2026-06-15",
       ),
     ).rejects.toThrow(/label's maximum of 4\.2/);
     await expect(
       seedCompany(
         testDb(),
-        broken({ product: "Rootstart 18-24-12 (starter)", rateLbPer1000: 2 }),
+        broken("aeration_overseeding", {
+          product: "Rootstart 18-24-12 (starter)",
+          rateLbPer1000: 2,
+        }),
         "x-password-2026",
+        "2026-10-20",
       ),
     ).rejects.toThrow(/Phosphorus/);
   });

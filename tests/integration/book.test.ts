@@ -5,7 +5,9 @@ import { randomUUID } from "node:crypto";
 import { parse } from "csv-parse/sync";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
-import { otherCompany } from "@/fixtures/demo/scenario";
+import { DEMO_PRODUCTS } from "@/fixtures/demo/products";
+import { pastRounds } from "@/fixtures/demo/rounds";
+import { demoCompany, otherCompany } from "@/fixtures/demo/scenario";
 import { afterWrite } from "@/lib/after-write";
 import { evaluateProperty } from "@/lib/after-write/sweep";
 import type { Actor } from "@/lib/auth/actor";
@@ -46,7 +48,16 @@ describe("the book", () => {
     );
     const scores = rows.map((r) => r.attentionScore);
     expect(scores).toEqual([...scores].sort((a, b) => b - a));
-    expect(rows.find((r) => r.name === "Oyelaran residence")!.nYtdLb).toBeCloseTo(3.9, 2); // five feedings in the demo season
+    // The year's N at Oyelaran: the feedings of the demo's rounds this calendar year (every zone
+    // gets the same rate), rate × N % of each product.
+    const oyelaran = demoCompany.properties.find((p) => p.key === "oyelaran")!;
+    const ytd = pastRounds(demoCompany.schedule!, oyelaran, today)
+      .filter((v) => v.application && addDays(today, -v.daysAgo).slice(0, 4) === today.slice(0, 4))
+      .reduce((sum, v) => {
+        const product = DEMO_PRODUCTS.find((p) => p.name === v.application!.product)!;
+        return sum + (v.application!.rateLbPer1000 * product.nPct) / 100;
+      }, 0);
+    expect(rows.find((r) => r.name === "Oyelaran residence")!.nYtdLb).toBeCloseTo(ytd, 2);
   });
 
   it("declining shows exactly the properties whose property-index trend is declining", async () => {

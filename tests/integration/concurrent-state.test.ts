@@ -60,6 +60,7 @@ async function readyVisit(propertyKey: string): Promise<{ visitId: string; zoneI
     plannedService: "inspection",
     stopOrder: 0,
     notes: "",
+    confirmSameDay: true,
   });
   await startVisit(tech, visit.id, { latitude: null, longitude: null });
   const zones = await testDb()

@@ -13,6 +13,7 @@ import { evaluateProperty } from "@/lib/after-write/sweep";
 import { applicationSchema } from "@/lib/applications/schemas";
 import type { Actor } from "@/lib/auth/actor";
 import { signInLinkSchema, signInSchema } from "@/lib/auth/schemas";
+import { addDays, todayIn } from "@/lib/dates";
 import { productSchema } from "@/lib/products/schemas";
 import { homeownerLinkSchema, propertySchema, zoneSchema } from "@/lib/properties/schemas";
 import { acknowledgeSchema, resolveSchema } from "@/lib/risk-alerts/schemas";
@@ -212,7 +213,7 @@ const endpoints: Endpoint[] = [
     schema: scheduleVisitSchema,
     valid: () => ({
       propertyId: ids.propertyId,
-      scheduledFor: "2026-06-01",
+      scheduledFor: addDays(todayIn("America/New_York"), 30),
       technicianId: ids.techId,
       plannedService: "inspection",
     }),
@@ -362,7 +363,7 @@ const endpoints: Endpoint[] = [
     valid: () => ({
       id: newId(),
       zoneId: null,
-      wateredOn: "2026-07-01",
+      wateredOn: addDays(todayIn("America/New_York"), -1),
       depthIn: 0.5,
       runMinutes: null,
       precipitationRateInPerHour: null,

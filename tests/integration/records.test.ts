@@ -45,8 +45,8 @@ beforeAll(async () => {
       .executeTakeFirstOrThrow()
   ).id;
   const products = await listProducts(manager);
-  const grub = products.find((p) => p.isPesticide)!;
-  const feed = products.find((p) => p.name.startsWith("Larkmoor"))!;
+  const grub = products.find((p) => p.name.startsWith("Grubward"))!;
+  const feed = products.find((p) => p.name.startsWith("Larkmoor Steadyfeed"))!;
   await recordApplication(manager, visitId, {
     id: newId(),
     zoneId,
@@ -220,7 +220,7 @@ describe("required record fields per rule set", () => {
       .set({ rule_set_id: pa.id })
       .where("id", "=", c.propertyIds["oyelaran"]!)
       .execute();
-    const grub = (await listProducts(manager)).find((p) => p.isPesticide)!;
+    const grub = (await listProducts(manager)).find((p) => p.name.startsWith("Grubward"))!;
     await expect(
       recordApplication(manager, visitId, {
         id: newId(),

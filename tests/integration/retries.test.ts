@@ -63,6 +63,7 @@ async function newVisit(): Promise<string> {
     plannedService: "inspection",
     stopOrder: 0,
     notes: "",
+    confirmSameDay: true,
   });
   return id;
 }
@@ -218,6 +219,7 @@ describe("a submission sent three times at once", () => {
               scheduledFor: addDays(todayIn("America/New_York"), 30),
               technicianId: null,
               plannedService: "inspection",
+              confirmSameDay: true, // 20 visits at one property on one day, on purpose
             },
           ),
         async (id) =>

@@ -3,6 +3,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 
 import { otherCompany } from "@/fixtures/demo/scenario";
+import { addDays, todayIn } from "@/lib/dates";
 import { logWatering } from "@/lib/watering/mutations";
 import { listWaterings } from "@/lib/watering/queries";
 import type { WateringInput } from "@/lib/watering/schemas";
@@ -15,10 +16,13 @@ let other: TestCompany;
 beforeAll(async () => {
   [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
 });
+// Waterings are logged for past days within a year (lib/watering/schemas.ts).
+const yesterday = addDays(todayIn("America/New_York"), -1);
+const twoDaysAgo = addDays(yesterday, -1);
 const entry = (o: Partial<WateringInput>): WateringInput => ({
   id: newId(),
   zoneId: null,
-  wateredOn: "2026-07-02",
+  wateredOn: yesterday,
   depthIn: 0.5,
   runMinutes: null,
   precipitationRateInPerHour: null,
@@ -30,7 +34,7 @@ describe("logWatering", () => {
   it("stores a depth, or run time × rate (30 min at 1.5 in/h = 0.75 in), newest first", async () => {
     const tech1 = await c.actor("tech1");
     const haddad = c.propertyIds["haddad"]!;
-    const first = await logWatering(tech1, haddad, entry({ wateredOn: "2026-07-01" }));
+    const first = await logWatering(tech1, haddad, entry({ wateredOn: twoDaysAgo }));
     const byRun = await logWatering(
       tech1,
       haddad,
@@ -41,7 +45,7 @@ describe("logWatering", () => {
     const ours = (await listWaterings(tech1, haddad, { limit: 500 })).filter(
       (w) => w.id === first.id || w.id === byRun.id,
     );
-    expect(ours.map((w) => w.wateredOn)).toEqual(["2026-07-02", "2026-07-01"]);
+    expect(ours.map((w) => w.wateredOn)).toEqual([yesterday, twoDaysAgo]);
   });
 
   it("is idempotent by id", async () => {

@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 
 import { numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { addDays, todayIn } from "@/lib/dates";
 import { productSchema } from "@/lib/products/schemas";
 import { homeownerLinkSchema, propertySchema, zoneSchema } from "@/lib/properties/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
@@ -114,7 +115,7 @@ describe("forms validate with their shared schema, in plain words", () => {
     const base = {
       id: "5f0c4a8e-2d1b-4c3a-9e7f-1a2b3c4d5e6f",
       zoneId: null,
-      wateredOn: "2026-07-02",
+      wateredOn: addDays(todayIn("UTC"), -1),
       notes: "",
     };
     const none = await validate(formResolver(wateringSchema), {
@@ -146,7 +147,7 @@ describe("forms validate with their shared schema, in plain words", () => {
     expect(link.values).toEqual({ email: "pat.lee@example.test", name: "Pat Lee" });
     const visit = await validate(formResolver(scheduleVisitSchema), {
       propertyId: "5f0c4a8e-2d1b-4c3a-9e7f-1a2b3c4d5e6f",
-      scheduledFor: "2026-07-02",
+      scheduledFor: addDays(todayIn("UTC"), 10),
       technicianId: null,
       plannedService: "inspection",
     });
@@ -182,7 +183,7 @@ describe("forms validate with their shared schema, in plain words", () => {
     const { messages } = await validate(formResolver(wateringSchema), {
       id: "5f0c4a8e-2d1b-4c3a-9e7f-1a2b3c4d5e6f",
       zoneId: null,
-      wateredOn: "2026-07-02",
+      wateredOn: addDays(todayIn("UTC"), -1),
       depthIn: numberOrNull("half"),
       runMinutes: numberOrNull(null),
       precipitationRateInPerHour: numberOrNull(undefined),

@@ -3,6 +3,7 @@ import type { Metadata } from "next";
 
 import { buttonClass } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
+import { recordsRangeQuery } from "@/lib/applications/records/schemas";
 import { requireActor } from "@/lib/auth/require";
 import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 
@@ -18,6 +19,9 @@ export default async function RecordsPage({
   const q = await searchParams;
   const from = q.from && isIsoDate(q.from) ? q.from : addDays(today, -30);
   const to = q.to && isIsoDate(q.to) ? q.to : today;
+  // The same rule as the export route: a reversed range is refused here too, with no download.
+  const checked = recordsRangeQuery.safeParse({ from, to });
+  const rangeError = checked.success ? null : (checked.error.issues[0]?.message ?? null);
   return (
     <>
       <h1 className="text-3xl font-bold">Application records</h1>
@@ -33,20 +37,29 @@ export default async function RecordsPage({
         <Field id="from" label="From">
           <input id="from" name="from" type="date" defaultValue={from} className={inputClass} />
         </Field>
-        <Field id="to" label="To">
-          <input id="to" name="to" type="date" defaultValue={to} className={inputClass} />
+        <Field id="to" label="To" error={rangeError ?? undefined}>
+          <input
+            id="to"
+            name="to"
+            type="date"
+            defaultValue={to}
+            aria-invalid={rangeError ? true : undefined}
+            className={inputClass}
+          />
         </Field>
         <button type="submit" className={buttonClass("secondary")}>
           Set range
         </button>
-        <a
-          href={`/api/v1/records/applications?from=${from}&to=${to}`}
-          className={buttonClass("primary", "no-underline")}
-          download
-        >
-          <Download className="size-5" aria-hidden="true" />
-          Download CSV ({from} to {to})
-        </a>
+        {rangeError ? null : (
+          <a
+            href={`/api/v1/records/applications?from=${from}&to=${to}`}
+            className={buttonClass("primary", "no-underline")}
+            download
+          >
+            <Download className="size-5" aria-hidden="true" />
+            Download CSV ({from} to {to})
+          </a>
+        )}
       </form>
     </>
   );

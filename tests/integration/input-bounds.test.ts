@@ -1,0 +1,278 @@
+// Bounds on what a person types, through the API routes the forms post to: at each bound the last
+// value accepted and the first refused, with a message that names the field, what is expected and
+// the unit; refused writes change no row. Dates: a visit from today to 18 months ahead, a watering
+// from a year back to today, a records range that runs forward. Numbers: the stop number. Warnings
+// a manager confirms: a second visit on a day, a feeding round inside the rule set's
+// no-fertilizer window (with the next allowed day).
+import { randomUUID } from "node:crypto";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+
+import { inNoFertilizerWindow } from "@/lib/agronomy/rules";
+import type { Actor } from "@/lib/auth/actor";
+import { addDays, todayIn } from "@/lib/dates";
+import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
+import { SCHEDULE_AHEAD_DAYS } from "@/lib/visits/schemas";
+import { WATERING_BACK_DAYS } from "@/lib/watering/schemas";
+
+import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
+
+let current: Actor | null = null;
+vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
+
+const visits = await import("@/app/api/v1/visits/route");
+const waterings = await import("@/app/api/v1/properties/[propertyId]/waterings/route");
+const records = await import("@/app/api/v1/records/applications/route");
+
+let c: TestCompany;
+const today = todayIn("America/New_York"); // the demo properties' zone
+beforeAll(async () => {
+  c = await createTestCompany();
+});
+
+interface Answer {
+  status: number;
+  fieldErrors: Record<string, string[]>;
+}
+
+async function post(
+  handler: (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>,
+  body: unknown,
+  params: Record<string, string> = {},
+): Promise<Answer> {
+  const res = await handler(
+    new Request("http://localhost/api", {
+      method: "POST",
+      body: JSON.stringify(body),
+      headers: {
+        origin: "http://localhost",
+        host: "localhost",
+        "content-type": "application/json",
+      },
+    }),
+    { params: Promise.resolve(params) },
+  );
+  const json = (await res.json()) as { error?: { fieldErrors?: Record<string, string[]> } };
+  return { status: res.status, fieldErrors: json.error?.fieldErrors ?? {} };
+}
+
+const visitCount = async () =>
+  Number(
+    (
+      await testDb()
+        .selectFrom("visits")
+        .select((eb) => eb.fn.countAll().as("n"))
+        .where("company_id", "=", c.companyId)
+        .executeTakeFirstOrThrow()
+    ).n,
+  );
+
+/** A visit at Okafor (no demo stop on the days tried here unless a test adds one). */
+const visit = (o: Record<string, unknown>) => ({
+  id: randomUUID(),
+  propertyId: c.propertyIds["okafor"],
+  scheduledFor: addDays(today, 3),
+  technicianId: null,
+  plannedService: "inspection",
+  ...o,
+});
+
+describe("scheduling a visit", () => {
+  it("date: today and 18 months ahead are accepted; yesterday and a day past 18 months are refused", async () => {
+    current = await c.actor("manager");
+    expect((await post(visits.POST, visit({ scheduledFor: addDays(today, 1) }))).status).toBe(200);
+    const last = addDays(today, SCHEDULE_AHEAD_DAYS);
+    expect((await post(visits.POST, visit({ scheduledFor: last }))).status).toBe(200);
+    const before = await visitCount();
+    const past = await post(visits.POST, visit({ scheduledFor: addDays(today, -1) }));
+    expect(past.status).toBe(422);
+    expect(past.fieldErrors.scheduledFor?.[0]).toMatch(/^Date: .*today.*not in the past\.$/);
+    const tooFar = await post(visits.POST, visit({ scheduledFor: addDays(last, 1) }));
+    expect(tooFar.status).toBe(422);
+    expect(tooFar.fieldErrors.scheduledFor?.[0]).toMatch(/^Date: at most 18 months ahead/);
+    const years = await post(visits.POST, visit({ scheduledFor: "2019-01-01" }));
+    expect(years.fieldErrors.scheduledFor?.[0]).toMatch(/not in the past/);
+    expect(await visitCount()).toBe(before);
+  });
+
+  it("stop number: 1 and 200 accepted; 0, 201, −3 and 2.5 refused, saying what is expected", async () => {
+    current = await c.actor("manager");
+    const day = addDays(today, 5);
+    expect((await post(visits.POST, visit({ scheduledFor: day, stopOrder: 1 }))).status).toBe(200);
+    expect(
+      (await post(visits.POST, visit({ scheduledFor: addDays(day, 1), stopOrder: 200 }))).status,
+    ).toBe(200);
+    const before = await visitCount();
+    for (const [stopOrder, message] of [
+      [0, /^Stop number: 1 or more/],
+      [-3, /^Stop number: 1 or more/],
+      [201, /^Stop number: at most 200 stops in a day\.$/],
+      [2.5, /^Stop number: a whole number/],
+    ] as const) {
+      const answer = await post(visits.POST, visit({ scheduledFor: addDays(day, 2), stopOrder }));
+      expect(answer.status, String(stopOrder)).toBe(422);
+      expect(answer.fieldErrors.stopOrder?.[0], String(stopOrder)).toMatch(message);
+    }
+    expect(await visitCount()).toBe(before);
+  });
+
+  it("notes: 4,000 characters accepted, 4,001 refused naming the limit", async () => {
+    current = await c.actor("manager");
+    const day = addDays(today, 8);
+    expect(
+      (await post(visits.POST, visit({ scheduledFor: day, notes: "n".repeat(4000) }))).status,
+    ).toBe(200);
+    const long = await post(
+      visits.POST,
+      visit({ scheduledFor: addDays(day, 1), notes: "n".repeat(4001) }),
+    );
+    expect(long.status).toBe(422);
+    expect(long.fieldErrors.notes?.[0]).toBe("Note: at most 4,000 characters; shorten it.");
+  });
+
+  it("a second visit at a property on one day is warned and refused until confirmed", async () => {
+    current = await c.actor("manager");
+    const day = addDays(today, 12);
+    expect((await post(visits.POST, visit({ scheduledFor: day }))).status).toBe(200);
+    const before = await visitCount();
+    const again = await post(visits.POST, visit({ scheduledFor: day }));
+    expect(again.status).toBe(422);
+    expect(again.fieldErrors.confirmSameDay?.[0]).toMatch(
+      /^Okafor residence already has a visit on [A-Z][a-z]+ \d{1,2}, \d{4} \(Inspection\)\. Confirm/,
+    );
+    expect(await visitCount()).toBe(before);
+    expect(
+      (await post(visits.POST, visit({ scheduledFor: day, confirmSameDay: true }))).status,
+    ).toBe(200);
+    // Resending the same request (same id) is not a second visit.
+    const id = randomUUID();
+    const once = visit({ id, scheduledFor: addDays(day, 1) });
+    expect((await post(visits.POST, once)).status).toBe(200);
+    expect((await post(visits.POST, once)).status).toBe(200);
+  });
+
+  // N.J.S.A. 58:10A-62b: no professional application of fertilizer containing nitrogen or
+  // phosphorus "before March 1st or after December 1st in any calendar year".
+  it("a feeding round inside New Jersey's window is warned with the next allowed day; lime is not", async () => {
+    current = await c.actor("manager");
+    const nj = SHIPPED_RULE_SETS.find((r) => r.name.startsWith("New Jersey"))!;
+    // The next December 2 (inside the window) and December 1 (the named day, allowed).
+    const year = Number(today.slice(0, 4)) + (today.slice(5) >= "12-01" ? 1 : 0);
+    const inside = `${year}-12-02`;
+    const namedDay = `${year}-12-01`;
+    expect(inNoFertilizerWindow(inside.slice(5), nj.proBlackout!)).toBe(true);
+    const before = await visitCount();
+    const warned = await post(
+      visits.POST,
+      visit({ scheduledFor: inside, plannedService: "feeding_round" }),
+    );
+    expect(warned.status).toBe(422);
+    expect(warned.fieldErrors.confirmBlackout?.[0]).toMatch(
+      new RegExp(
+        `^December 2, ${year} is inside the no-fertilizer window of New Jersey.*after December 1 or before March 1\\. The next allowed day is March 1, ${year + 1}\\.`,
+      ),
+    );
+    expect(await visitCount()).toBe(before);
+    for (const plannedService of ["liming", "soil_sampling", "inspection"])
+      expect(
+        (
+          await post(
+            visits.POST,
+            visit({ scheduledFor: inside, plannedService, confirmSameDay: true }),
+          )
+        ).status,
+        plannedService,
+      ).toBe(200);
+    expect(
+      (
+        await post(
+          visits.POST,
+          visit({ scheduledFor: namedDay, plannedService: "fall_feeding", confirmSameDay: true }),
+        )
+      ).status,
+    ).toBe(200);
+    expect(
+      (
+        await post(
+          visits.POST,
+          visit({
+            scheduledFor: inside,
+            plannedService: "feeding_round",
+            confirmBlackout: true,
+            confirmSameDay: true,
+          }),
+        )
+      ).status,
+    ).toBe(200);
+  });
+});
+
+describe("logging a watering", () => {
+  const watering = (o: Record<string, unknown>) => ({
+    id: randomUUID(),
+    zoneId: null,
+    wateredOn: today,
+    depthIn: 0.5,
+    runMinutes: null,
+    precipitationRateInPerHour: null,
+    notes: "",
+    ...o,
+  });
+  const params = () => ({ propertyId: c.propertyIds["haddad"]! });
+
+  it("date: today and a year back accepted; tomorrow and a day more than a year back refused", async () => {
+    current = await c.actor("tech1");
+    expect((await post(waterings.POST, watering({}), params())).status).toBe(201);
+    expect(
+      (
+        await post(
+          waterings.POST,
+          watering({ wateredOn: addDays(today, -WATERING_BACK_DAYS) }),
+          params(),
+        )
+      ).status,
+    ).toBe(201);
+    const future = await post(waterings.POST, watering({ wateredOn: addDays(today, 1) }), params());
+    expect(future.status).toBe(422);
+    expect(future.fieldErrors.wateredOn?.[0]).toMatch(/^Date watered: not in the future/);
+    const old = await post(
+      waterings.POST,
+      watering({ wateredOn: addDays(today, -WATERING_BACK_DAYS - 1) }),
+      params(),
+    );
+    expect(old.status).toBe(422);
+    expect(old.fieldErrors.wateredOn?.[0]).toMatch(/^Date watered: within the last year/);
+    const far = await post(waterings.POST, watering({ wateredOn: "2030-06-01" }), params());
+    expect(far.fieldErrors.wateredOn?.[0]).toMatch(/not in the future/);
+  });
+
+  it("depth: 10 in accepted; 10.01 in and 0 in refused with the unit", async () => {
+    current = await c.actor("tech1");
+    expect((await post(waterings.POST, watering({ depthIn: 10 }), params())).status).toBe(201);
+    const deep = await post(waterings.POST, watering({ depthIn: 10.01 }), params());
+    expect(deep.fieldErrors.depthIn?.[0]).toBe(
+      "Depth: at most 10 in of water at once; check the number.",
+    );
+    const none = await post(waterings.POST, watering({ depthIn: 0 }), params());
+    expect(none.fieldErrors.depthIn?.[0]).toBe("Depth: above 0 in.");
+  });
+});
+
+describe("the records export", () => {
+  it("a range that runs forward (one day included) is a CSV; a reversed one is 422 naming To", async () => {
+    current = await c.actor("manager");
+    const get = (from: string, to: string) =>
+      records.GET(
+        new Request(`http://localhost/api/v1/records/applications?from=${from}&to=${to}`),
+        {
+          params: Promise.resolve({}),
+        },
+      );
+    expect((await get(today, today)).status).toBe(200);
+    const reversed = await get(today, addDays(today, -1));
+    expect(reversed.status).toBe(422);
+    const body = (await reversed.json()) as { error: { fieldErrors: Record<string, string[]> } };
+    expect(body.error.fieldErrors.to?.[0]).toBe(
+      "To: on or after the From date (the range runs forward).",
+    );
+  });
+});
