@@ -42,6 +42,9 @@ export default defineConfig({
           server: { deps: { inline: ["next-auth"] } },
           env: {
             NODE_ENV: "test",
+            // The site the route guard accepts writes from (lib/http/origin.ts: the loopback origins
+            // on this port) and links are built on; pinned so a developer's PORT changes nothing.
+            PORT: "3000",
             DATABASE_URL: `postgres://postgres@127.0.0.1:${pgPort}/sward_test`,
             AUTH_SECRET: "integration-tests-only-secret-0123456789abcdef",
             SIGN_IN_MAX_PER_ACCOUNT: "5",

@@ -30,7 +30,7 @@ let c: TestCompany;
 let propertyId: string;
 let visitId: string; // the property's latest finished visit
 const headers = {
-  origin: "http://localhost",
+  origin: "http://localhost:3000",
   host: "localhost",
   "content-type": "application/json",
 };

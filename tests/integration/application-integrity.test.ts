@@ -39,7 +39,7 @@ async function post(visitId: string, body: Record<string, unknown>) {
     new Request(`http://localhost/api/v1/visits/${visitId}/applications`, {
       method: "POST",
       headers: {
-        origin: "http://localhost",
+        origin: "http://localhost:3000",
         host: "localhost",
         "content-type": "application/json",
       },

@@ -38,7 +38,11 @@ const json = (method: string, body: unknown) =>
   new Request("http://localhost/api", {
     method,
     body: JSON.stringify(body),
-    headers: { origin: "http://localhost", host: "localhost", "content-type": "application/json" },
+    headers: {
+      origin: "http://localhost:3000",
+      host: "localhost",
+      "content-type": "application/json",
+    },
   });
 const ctx = (params: Record<string, string>) => ({ params: Promise.resolve(params) });
 

@@ -513,7 +513,7 @@ describe("malformed payloads", () => {
               method: endpoint.method,
               body: JSON.stringify(payload),
               headers: {
-                origin: "http://localhost",
+                origin: "http://localhost:3000",
                 host: "localhost",
                 "content-type": "application/json",
               },
@@ -649,7 +649,7 @@ describe("malformed payloads", () => {
               method: endpoint.method,
               body: JSON.stringify(body),
               headers: {
-                origin: "http://localhost",
+                origin: "http://localhost:3000",
                 host: "localhost",
                 "content-type": "application/json",
               },
@@ -703,7 +703,7 @@ describe("malformed payloads", () => {
               method: endpoint.method,
               body: JSON.stringify(body),
               headers: {
-                origin: "http://localhost",
+                origin: "http://localhost:3000",
                 host: "localhost",
                 "content-type": "application/json",
               },

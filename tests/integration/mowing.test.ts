@@ -21,7 +21,7 @@ let visitId: string;
 let checkId: string;
 let zoneId: string;
 const headers = {
-  origin: "http://localhost",
+  origin: "http://localhost:3000",
   host: "localhost",
   "content-type": "application/json",
 };

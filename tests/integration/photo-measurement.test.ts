@@ -62,7 +62,7 @@ async function post(zoneCheckId: string, bytes: Buffer) {
     new Request("http://localhost/api/x", {
       method: "POST",
       body: new Uint8Array(bytes),
-      headers: { origin: "http://localhost", host: "localhost", "content-type": "image/png" },
+      headers: { origin: "http://localhost:3000", host: "localhost", "content-type": "image/png" },
     }),
     { params: Promise.resolve({ visitId, zoneCheckId }) },
   );

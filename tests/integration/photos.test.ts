@@ -54,7 +54,7 @@ async function post(body: Buffer | Uint8Array, checkIndex = 0, type = "image/jpe
     new Request("http://localhost/api/x", {
       method: "POST",
       body: new Uint8Array(body),
-      headers: { origin: "http://localhost", host: "localhost", "content-type": type },
+      headers: { origin: "http://localhost:3000", host: "localhost", "content-type": type },
     }),
     { params: Promise.resolve({ visitId, zoneCheckId: checkIds[checkIndex]! }) },
   );

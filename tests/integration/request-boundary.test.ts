@@ -196,7 +196,7 @@ describe("JSON body limits", () => {
       method: "POST",
       body,
       headers: {
-        origin: "http://localhost",
+        origin: "http://localhost:3000",
         host: "localhost",
         "content-type": "application/json",
         ...headers,
@@ -238,7 +238,7 @@ describe("JSON body limits", () => {
         method: "POST",
         body: text,
         headers: {
-          origin: "http://localhost",
+          origin: "http://localhost:3000",
           host: "localhost",
           "content-type": "application/json",
         },

@@ -46,7 +46,7 @@ const send = (
         body instanceof Uint8Array
           ? new Blob([body as Uint8Array<ArrayBuffer>])
           : JSON.stringify(body),
-      headers: { origin: "http://localhost", host: "localhost", "content-type": type },
+      headers: { origin: "http://localhost:3000", host: "localhost", "content-type": type },
     }),
     { params: Promise.resolve(params) },
   );

@@ -243,7 +243,7 @@ describe("the alert routes", () => {
       method: "POST",
       body: JSON.stringify(body),
       headers: {
-        origin: "http://localhost",
+        origin: "http://localhost:3000",
         host: "localhost",
         "content-type": "application/json",
       },

@@ -1,12 +1,13 @@
 // The guard that builds every route handler and server action: authentication, role, input
 // parsing, origin checks, and error bodies that never carry a stack trace.
 import fc from "fast-check";
-import { describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { z } from "zod";
 
 import type { Actor } from "@/lib/auth/actor";
 import { createGuards } from "@/lib/auth/guard";
 import { AppError } from "@/lib/http/app-error";
+import { isSameSiteWrite, siteOrigins } from "@/lib/http/origin";
 
 const manager: Actor = {
   userId: "u1",
@@ -19,6 +20,15 @@ const manager: Actor = {
   sessionId: "s",
 };
 const homeowner: Actor = { ...manager, userId: "u2", role: "homeowner" };
+
+// The configured site (AUTH_URL) of these tests; the guard reads process.env.
+const SITE = "https://lawns.example.com";
+beforeAll(() => {
+  vi.stubEnv("AUTH_URL", SITE);
+});
+afterAll(() => {
+  vi.unstubAllEnvs();
+});
 
 function guardsFor(actor: Actor | null) {
   return createGuards(async () => actor);
@@ -73,7 +83,7 @@ describe("route()", () => {
       new Request("http://h/x", {
         method: "POST",
         body,
-        headers: { origin: "http://h", host: "h" },
+        headers: { origin: SITE, host: "h" },
       });
     expect((await byBody(post('{"name":""}'))).status).toBe(422);
     expect((await byBody(post("{not json"))).status).toBe(422);
@@ -89,12 +99,79 @@ describe("route()", () => {
     // Origin "null" (sandboxed frames, some redirects) and unparsable origins are refused, not a 500.
     for (const origin of ["null", "::not a url", "http://", "file://"])
       expect((await post({ origin, host: "h" })).status).toBe(403);
+    expect((await post({ origin: SITE, host: "h", "sec-fetch-site": "cross-site" })).status).toBe(
+      403,
+    );
+    expect((await post({ origin: SITE, host: "h", "sec-fetch-site": "same-origin" })).status).toBe(
+      200,
+    );
+  });
+
+  it("the site is AUTH_URL's origin: a forged Host or X-Forwarded-Host that matches the Origin is refused", async () => {
+    const handler = guardsFor(manager).route({ access: ["manager"] }, ok);
+    const post = (headers: Record<string, string>) =>
+      handler(new Request("http://h/x", { method: "POST", headers }));
+    // What a script sends to make the old Host comparison pass.
+    expect((await post({ origin: "https://evil.example", host: "evil.example" })).status).toBe(403);
     expect(
-      (await post({ origin: "http://h", host: "h", "sec-fetch-site": "cross-site" })).status,
+      (
+        await post({
+          origin: "https://evil.example",
+          host: "lawns.example.com",
+          "x-forwarded-host": "evil.example",
+        })
+      ).status,
     ).toBe(403);
+    // Same scheme and host but another port or scheme is another origin (RFC 6454 §4).
+    expect((await post({ origin: "https://lawns.example.com:8443" })).status).toBe(403);
+    expect((await post({ origin: "http://lawns.example.com" })).status).toBe(403);
+    // The configured origin is accepted whatever Host says.
+    expect((await post({ origin: SITE, host: "evil.example" })).status).toBe(200);
+    expect((await post({ origin: SITE, "x-forwarded-host": "evil.example" })).status).toBe(200);
+  });
+});
+
+describe("siteOrigins / isSameSiteWrite", () => {
+  const headers = (origin: string, more: Record<string, string> = {}) =>
+    new Headers({ origin, ...more });
+
+  it("production: only AUTH_URL's origin; loopback addresses are not the site", () => {
+    const env = {
+      NODE_ENV: "production",
+      AUTH_URL: "https://lawns.example.com/app/",
+      PORT: "3000",
+    };
+    expect([...siteOrigins(env)]).toEqual(["https://lawns.example.com"]);
+    expect(isSameSiteWrite(headers("https://lawns.example.com"), env)).toBe(true);
+    expect(isSameSiteWrite(headers("http://localhost:3000"), env)).toBe(false);
+    expect(isSameSiteWrite(headers("http://127.0.0.1:3000"), env)).toBe(false);
+    // No AUTH_URL in production (the server refuses to start so): nothing is same-site.
+    expect(isSameSiteWrite(headers("http://localhost:3000"), { NODE_ENV: "production" })).toBe(
+      false,
+    );
+  });
+
+  it("development and tests: also the loopback origins on the port the server was started on", () => {
+    const env = { NODE_ENV: "development", PORT: "3120" };
+    for (const origin of ["http://localhost:3120", "http://127.0.0.1:3120", "http://[::1]:3120"])
+      expect(isSameSiteWrite(headers(origin, { host: "evil.example" }), env)).toBe(true);
+    for (const origin of [
+      "http://localhost:3000",
+      "https://localhost:3120",
+      "http://evil.example:3120",
+      "http://localhost.evil.example:3120",
+    ])
+      expect(isSameSiteWrite(headers(origin, { host: new URL(origin).host }), env)).toBe(false);
+    // Forged forwarding headers change nothing.
     expect(
-      (await post({ origin: "http://h", host: "h", "sec-fetch-site": "same-origin" })).status,
-    ).toBe(200);
+      isSameSiteWrite(
+        headers("http://evil.example", {
+          host: "evil.example",
+          "x-forwarded-host": "evil.example",
+        }),
+        env,
+      ),
+    ).toBe(false);
   });
 
   it("an unexpected failure is a 500 with a plain message: no stack, no SQL, whatever was thrown", async () => {
