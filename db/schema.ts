@@ -215,6 +215,26 @@ interface SignInLinkRequestsTable {
   requested_at: Generated<Date>;
 }
 
+/** A manager's invitation of an e-mail address to a property (lib/invitations). */
+interface HomeownerInvitationsTable {
+  id: Generated<string>;
+  company_id: string;
+  property_id: string;
+  email: string;
+  name: string;
+  /** sha256 of the token and AUTH_SECRET; the token itself travels only in the e-mail. */
+  token_hash: string;
+  expires_at: Timestamp;
+  invited_by: string | null;
+  sent_at: Generated<Date>;
+  send_count: Generated<number>;
+  accepted_at: NullableTimestamp;
+  accepted_user_id: string | null;
+  revoked_at: NullableTimestamp;
+  revoked_by: string | null;
+  created_at: Generated<Date>;
+}
+
 interface PropertiesTable {
   id: Generated<string>;
   company_id: string;
@@ -513,6 +533,7 @@ export interface Database {
   sign_in_link_requests: SignInLinkRequestsTable;
   properties: PropertiesTable;
   property_homeowners: PropertyHomeownersTable;
+  homeowner_invitations: HomeownerInvitationsTable;
   zones: ZonesTable;
   rule_sets: RuleSetsTable;
   visits: VisitsTable;

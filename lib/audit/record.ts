@@ -6,7 +6,8 @@ import type { Actor } from "@/lib/auth/actor";
 
 export async function recordAudit(
   trx: Transaction<Database> | Kysely<Database>,
-  actor: Actor,
+  /** Who did it: the signed-in actor, or (for an invited person confirming) the account's ids. */
+  actor: Pick<Actor, "companyId" | "userId">,
   event: {
     entity: AuditEventsTable["entity"];
     entityId: string;

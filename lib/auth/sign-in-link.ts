@@ -5,7 +5,7 @@
 // one transaction. Requests are throttled in requestSignInLinkAction.
 import "server-only";
 
-import { createHash, randomBytes } from "node:crypto";
+import { createHash } from "node:crypto";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
 
 import { signInLinkEmail } from "@/lib/auth/sign-in-email";
@@ -16,8 +16,10 @@ import type { Homeowner } from "./dto";
 import { markEmailVerified, storeSignInLink, takeVerificationToken } from "./mutations";
 import { findHomeowner as findHomeownerByKey, findUserById } from "./queries";
 import { normaliseEmail } from "./throttle";
+import { hashedToken, newLinkToken } from "./tokens";
 
 export { recordLinkRequest } from "./mutations";
+export { hashedToken } from "./tokens";
 export { countRecentLinkRequests } from "./queries";
 
 export const SIGN_IN_LINK_MINUTES = 15;
@@ -95,7 +97,7 @@ export function confirmationUrl(callbackUrl: string): string {
  */
 export async function issueSignInLink(emailKey: string, redirectTo: string): Promise<boolean> {
   if (!(await findHomeowner(emailKey))) return false;
-  const token = randomBytes(32).toString("hex");
+  const token = newLinkToken();
   const origin = appUrl();
   const callback = new URL(`${origin}/api/auth/callback/${SIGN_IN_LINK_PROVIDER}`);
   callback.search = new URLSearchParams({
@@ -111,11 +113,6 @@ export async function issueSignInLink(emailKey: string, redirectTo: string): Pro
     secret: serverEnv().AUTH_SECRET,
   });
   return true;
-}
-
-/** What Auth.js stores and later looks up for a link's token: sha256 of the token and the secret. */
-export function hashedToken(token: string, secret: string): string {
-  return createHash("sha256").update(`${token}${secret}`).digest("hex");
 }
 
 /**

@@ -295,66 +295,6 @@ export async function setZoneArchived(
     });
 }
 
-/** Links a homeowner by e-mail: an existing homeowner of the company, or a new one (no password yet). */
-export async function linkHomeowner(
-  actor: Actor,
-  propertyId: string,
-  input: { email: string; name: string },
-): Promise<PropertyDetailDto> {
-  requireManager(actor);
-  await db()
-    .transaction()
-    .execute(async (trx) => {
-      const property = await trx
-        .selectFrom("properties")
-        .select("id")
-        .where("company_id", "=", actor.companyId)
-        .where("id", "=", propertyId)
-        .executeTakeFirst();
-      if (!property) throw notFound("That property");
-      const user = await trx
-        .selectFrom("users")
-        .leftJoin("memberships", "memberships.user_id", "users.id")
-        .select(["users.id", "memberships.company_id", "memberships.role"])
-        .where("users.email", "=", input.email)
-        .executeTakeFirst();
-      let userId: string;
-      if (user) {
-        // Do not reveal anything about accounts of other companies.
-        if (user.company_id !== actor.companyId || user.role !== "homeowner")
-          throw invalid(
-            "email",
-            "That e-mail cannot be linked as a homeowner. Use another address.",
-          );
-        userId = user.id;
-      } else {
-        userId = (
-          await trx
-            .insertInto("users")
-            .values({ email: input.email, name: input.name, password_hash: null })
-            .returning("id")
-            .executeTakeFirstOrThrow()
-        ).id;
-        await trx
-          .insertInto("memberships")
-          .values({ company_id: actor.companyId, user_id: userId, role: "homeowner" })
-          .execute();
-      }
-      await trx
-        .insertInto("property_homeowners")
-        .values({ property_id: propertyId, user_id: userId, company_id: actor.companyId })
-        .onConflict((oc) => oc.columns(["property_id", "user_id"]).doNothing())
-        .execute();
-      await recordAudit(trx, actor, {
-        entity: "property",
-        entityId: propertyId,
-        action: "link_homeowner",
-        changes: { homeowner: { from: null, to: input.email } },
-      });
-    });
-  return getProperty(actor, propertyId);
-}
-
 export async function unlinkHomeowner(
   actor: Actor,
   propertyId: string,

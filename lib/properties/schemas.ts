@@ -70,12 +70,4 @@ export function areaInFt2(area: number, unit: "ft2" | "m2"): number {
   return Math.round(ft2 * 10) / 10;
 }
 
-export const homeownerLinkSchema = z.strictObject({
-  email: z.pipe(
-    z.string().check(z.trim(), z.toLowerCase(), z.maxLength(320)),
-    z.email("Enter a valid e-mail address."),
-  ),
-  name: z.string().check(z.trim(), z.minLength(1, "Name is required."), z.maxLength(200)),
-});
-
 export const homeownerParams = z.object({ propertyId: z.uuid(), userId: z.uuid() });

@@ -46,6 +46,9 @@ interface Targets {
   ruleSetName: string;
   zoneName: string;
   extraOwnerId: string; // a homeowner linked only for the unlink cell
+  invitationId: string; // a pending invitation to the property, for the resend cell
+  invitationEmail: string;
+  revokeInvitationId: string; // another, for the withdraw cell
   zoneCheckId: string;
   photoId: string;
   ownerEmail: string;
@@ -85,6 +88,13 @@ const CELLS: Cell[] = [
   { key: "PAGE /", path: () => "/", allow: PERSONAS, isPublic: true },
   { key: "PAGE /sign-in", path: () => "/sign-in", allow: PERSONAS, isPublic: true },
   { key: "PAGE /sign-in/link", path: () => "/sign-in/link", allow: PERSONAS, isPublic: true },
+  {
+    key: "PAGE /invitation",
+    case: "an invitation link: what it shows is for whoever holds the token",
+    path: () => `/invitation?token=${"0".repeat(64)}`,
+    allow: PERSONAS,
+    isPublic: true,
+  },
   {
     key: "GET /api/auth/[...nextauth]",
     path: () => "/api/auth/csrf",
@@ -435,14 +445,37 @@ const CELLS: Cell[] = [
     allow: ["manager"],
   },
   {
-    key: "POST /api/v1/properties/[propertyId]/homeowners",
-    path: (t) => `/api/v1/properties/${t.propertyId}/homeowners`,
+    key: "GET /api/v1/properties/[propertyId]/invitations",
+    path: (t) => `/api/v1/properties/${t.propertyId}/invitations`,
+    allow: ["manager"],
+    marker: (t) => t.invitationEmail,
+    leak: (t) => [t.invitationEmail, t.propertyId],
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/invitations",
+    path: (t) => `/api/v1/properties/${t.propertyId}/invitations`,
     method: "POST",
     body: () => ({
       email: `matrix-${randomUUID().slice(0, 8)}@test.sward.test`,
       name: "Matrix Neighbour",
     }),
     allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/invitations/[invitationId]/resend",
+    path: (t) => `/api/v1/properties/${t.propertyId}/invitations/${t.invitationId}/resend`,
+    method: "POST",
+    allow: ["manager"],
+    mustSucceed: true,
+    leak: (t) => [t.invitationEmail, t.propertyId],
+  },
+  {
+    key: "DELETE /api/v1/properties/[propertyId]/invitations/[invitationId]",
+    path: (t) => `/api/v1/properties/${t.propertyId}/invitations/${t.revokeInvitationId}`,
+    method: "DELETE",
+    allow: ["manager"],
+    mustSucceed: true,
   },
   {
     key: "DELETE /api/v1/properties/[propertyId]/homeowners/[userId]",
@@ -584,6 +617,13 @@ const CELLS: Cell[] = [
     isPublic: true,
   },
   {
+    key: "ACTION lib/invitations/actions.ts#acceptInvitationAction",
+    case: "needs the token of a pending invitation; an empty form is an error state",
+    path: () => "/invitation",
+    allow: PERSONAS,
+    isPublic: true,
+  },
+  {
     key: "ACTION lib/auth/actions.ts#signOutAction",
     path: () => "/properties",
     allow: PERSONAS,
@@ -651,14 +691,16 @@ beforeAll(async () => {
     { otherCompany },
     { evaluateProperty },
     { scheduleVisit },
-    { linkHomeowner },
+    { acceptInvitation, inviteHomeowner },
+    { invitationTokenFor },
     { todayIn },
   ] = await Promise.all([
     import("../helpers/factories"),
     import("@/fixtures/demo/scenario"),
     import("@/lib/after-write/sweep"),
     import("@/lib/visits/mutations"),
-    import("@/lib/properties/mutations"),
+    import("@/lib/invitations/mutations"),
+    import("../helpers/invitations"),
     import("@/lib/dates"),
   ]);
   const [c, other] = await Promise.all([createTestCompany(), createTestCompany(otherCompany)]);
@@ -720,7 +762,19 @@ beforeAll(async () => {
     confirmSameDay: true,
   });
   const extraEmail = `matrix-extra-${randomUUID().slice(0, 8)}@test.sward.test`;
-  await linkHomeowner(manager, propertyId, { email: extraEmail, name: "Matrix Extra" });
+  await inviteHomeowner(manager, propertyId, { email: extraEmail, name: "Matrix Extra" });
+  await acceptInvitation(await invitationTokenFor(db, extraEmail), {
+    password: "matrix-extra-password-2026",
+  });
+  const invitationEmail = `matrix-invited-${randomUUID().slice(0, 8)}@test.sward.test`;
+  const invitation = await inviteHomeowner(manager, propertyId, {
+    email: invitationEmail,
+    name: "Matrix Invited",
+  });
+  const toRevoke = await inviteHomeowner(manager, propertyId, {
+    email: `matrix-withdrawn-${randomUUID().slice(0, 8)}@test.sward.test`,
+    name: "Matrix Withdrawn",
+  });
   const extra = await db
     .selectFrom("users")
     .select("id")
@@ -741,6 +795,9 @@ beforeAll(async () => {
     ruleSetName: ruleSet.name,
     zoneName: zone.name,
     extraOwnerId: extra.id,
+    invitationId: invitation.id,
+    invitationEmail,
+    revokeInvitationId: toRevoke.id,
     zoneCheckId: randomUUID(),
     photoId: randomUUID(),
     ownerEmail: c.emails["owner1"]!,

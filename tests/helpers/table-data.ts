@@ -48,6 +48,9 @@ export async function fillEmptyTables(db: Kysely<unknown>): Promise<void> {
   await sql`insert into verification_tokens (identifier, token, expires) values ('check@example.test', 'check-token', now() + interval '15 minutes')`.execute(
     db,
   );
+  await sql`insert into homeowner_invitations (company_id, property_id, email, name, token_hash, expires_at)
+            select company_id, id, 'invited-' || id || '@example.test', 'Invited Check', encode(sha256(id::text::bytea), 'hex'), now() + interval '7 days'
+            from properties order by name limit 1`.execute(db);
   await sql`insert into weather_days (cell, day, tmax_c, tmin_c, precip_mm) values ('40.7:-74.0', date '2026-06-01', 27.5, 16.0, 3.2)`.execute(
     db,
   );

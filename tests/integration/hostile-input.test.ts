@@ -14,8 +14,9 @@ import { applicationSchema } from "@/lib/applications/schemas";
 import type { Actor } from "@/lib/auth/actor";
 import { signInLinkSchema, signInSchema } from "@/lib/auth/schemas";
 import { addDays, todayIn } from "@/lib/dates";
+import { acceptInvitationSchema, invitationSchema } from "@/lib/invitations/schemas";
 import { productSchema } from "@/lib/products/schemas";
-import { homeownerLinkSchema, propertySchema, zoneSchema } from "@/lib/properties/schemas";
+import { propertySchema, zoneSchema } from "@/lib/properties/schemas";
 import { acknowledgeSchema, resolveSchema } from "@/lib/risk-alerts/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import {
@@ -198,11 +199,11 @@ const endpoints: Endpoint[] = [
     valid: () => ({ archived: false }),
   },
   {
-    name: "POST /properties/:id/homeowners",
-    load: () => import("@/app/api/v1/properties/[propertyId]/homeowners/route"),
+    name: "POST /properties/:id/invitations",
+    load: () => import("@/app/api/v1/properties/[propertyId]/invitations/route"),
     method: "POST",
     params: () => ({ propertyId: ids.propertyId }),
-    schema: homeownerLinkSchema,
+    schema: invitationSchema,
     valid: () => ({ email: "new@test.sward.test", name: "N" }),
   },
   {
@@ -490,9 +491,10 @@ async function tableCounts(): Promise<string> {
     union all select 'products', count(*)::int from products union all select 'rule_sets', count(*)::int from rule_sets
     union all select 'applications', count(*)::int from applications union all select 'waterings', count(*)::int from waterings
     union all select 'alerts', count(*)::int from risk_alerts union all select 'alert_events', count(*)::int from risk_alert_events
-    union all select 'alerts_open', count(*)::int from risk_alerts where status = 'open'`.execute(
-    testDb(),
-  );
+    union all select 'alerts_open', count(*)::int from risk_alerts where status = 'open'
+    union all select 'invitations', count(*)::int from homeowner_invitations
+    union all select 'homeowner_links', count(*)::int from property_homeowners
+    union all select 'outbox', count(*)::int from mail_outbox`.execute(testDb());
   return JSON.stringify(rows);
 }
 
@@ -557,6 +559,13 @@ describe("malformed payloads", () => {
       run: async (form: FormData) =>
         (await import("@/lib/auth/actions")).signInAction({ email: "" }, form),
     },
+    {
+      name: "action acceptInvitationAction",
+      schema: acceptInvitationSchema,
+      valid: () => ({ token: "0".repeat(64), name: "Pat Lee", password: "x" }),
+      run: async (form: FormData) =>
+        (await import("@/lib/invitations/actions")).acceptInvitationAction({ name: "" }, form),
+    },
   ];
   for (const a of actions) {
     it(`${a.name}: ${RUNS} malformed forms → an error state with field errors, nothing recorded`, async () => {
@@ -568,7 +577,11 @@ describe("malformed payloads", () => {
               a: number;
               l: number;
               v: number;
-            }>`select (select count(*)::int from sign_in_attempts) a, (select count(*)::int from sign_in_link_requests) l, (select count(*)::int from verification_tokens) v`.execute(
+              u: number;
+              i: number;
+              h: number;
+            }>`select (select count(*)::int from sign_in_attempts) a, (select count(*)::int from sign_in_link_requests) l, (select count(*)::int from verification_tokens) v,
+                      (select count(*)::int from users) u, (select count(*)::int from homeowner_invitations where accepted_at is not null) i, (select count(*)::int from property_homeowners) h`.execute(
               testDb(),
             )
           ).rows,
@@ -580,11 +593,12 @@ describe("malformed payloads", () => {
       );
       const form = fc
         .record(
-          {
-            email: fc.option(field, { nil: undefined }),
-            password: fc.option(field, { nil: undefined }),
-            redirectTo: fc.option(field, { nil: undefined }),
-          },
+          Object.fromEntries(
+            [...new Set([...Object.keys(a.valid()), "redirectTo"])].map((k) => [
+              k,
+              fc.option(field, { nil: undefined }),
+            ]),
+          ),
           { requiredKeys: [] },
         )
         .map(

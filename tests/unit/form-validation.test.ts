@@ -7,8 +7,9 @@ import { describe, expect, it } from "vitest";
 import { numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
 import { addDays, todayIn } from "@/lib/dates";
+import { invitationSchema } from "@/lib/invitations/schemas";
 import { productSchema } from "@/lib/products/schemas";
-import { homeownerLinkSchema, propertySchema, zoneSchema } from "@/lib/properties/schemas";
+import { propertySchema, zoneSchema } from "@/lib/properties/schemas";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 import { scheduleVisitSchema } from "@/lib/visits/schemas";
 import { wateringSchema } from "@/lib/watering/schemas";
@@ -139,7 +140,7 @@ describe("forms validate with their shared schema, in plain words", () => {
   });
 
   it("valid values come back parsed (trimmed, lower-cased, defaults filled)", async () => {
-    const link = await validate(formResolver(homeownerLinkSchema), {
+    const link = await validate(formResolver(invitationSchema), {
       email: "  Pat.Lee@Example.TEST ",
       name: " Pat Lee ",
     });

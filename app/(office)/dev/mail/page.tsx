@@ -6,6 +6,8 @@ import { Fragment } from "react";
 import { requireActor } from "@/lib/auth/require";
 import { formatDateTime } from "@/lib/dates";
 import { devInboxDir } from "@/lib/env";
+import { invitationSubject } from "@/lib/invitations/email";
+import { listInvitedAddresses } from "@/lib/invitations/queries";
 import { readInbox } from "@/lib/mail/inbox-folder";
 import { listCompanyEmailAddresses } from "@/lib/people/queries";
 
@@ -38,9 +40,21 @@ export default async function DevMailPage({
   const actor = await requireActor(["manager"]);
   const dir = devInboxDir();
   if (!dir) notFound();
-  const ours = await listCompanyEmailAddresses(actor);
+  const [ours, invited] = await Promise.all([
+    listCompanyEmailAddresses(actor),
+    listInvitedAddresses(actor),
+  ]);
+  // An invited address may belong to someone of another company: of its mail, only this
+  // company's own invitations are shown.
+  const ourInvitation = invitationSubject(actor.companyName);
   const mails = (await readInbox(dir))
-    .filter((m) => m.to.some((t) => ours.has(t.toLowerCase())))
+    .filter((m) =>
+      m.to.some(
+        (t) =>
+          ours.has(t.toLowerCase()) ||
+          (invited.has(t.toLowerCase()) && m.subject === ourInvitation),
+      ),
+    )
     .reverse()
     .slice(0, 100);
   const { id } = await searchParams;
@@ -51,8 +65,9 @@ export default async function DevMailPage({
       <h1 className="text-3xl font-bold">Development inbox</h1>
       <p className="mt-1 mb-6 max-w-2xl text-muted">
         Mail Sward sent to your company&apos;s people, as the local fake SMTP service received it —
-        sign-in links, visit reports and alert digests. This page exists only in development
-        (MAIL_INBOX_DIR is set); a real deployment sends through a real mail service.
+        sign-in links, visit reports, alert digests, and the invitations it sent. This page exists
+        only in development (MAIL_INBOX_DIR is set); a real deployment sends through a real mail
+        service.
       </p>
       {mails.length === 0 ? (
         <p className="rounded-xl border border-line bg-card p-4">

@@ -25,6 +25,7 @@ import { getNitrogenByZone, listPropertyApplications } from "@/lib/applications/
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
+import { listPendingInvitations } from "@/lib/invitations/queries";
 import { BOOK_PATH } from "@/lib/paths";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { getProperty } from "@/lib/properties/queries";
@@ -82,6 +83,7 @@ export default async function PropertyPage({
     ["watering", "Watering log"],
     ...(isManager ? ([["homeowners", "Homeowners"]] as [string, string][]) : []),
   ];
+  const invitations = isManager ? await listPendingInvitations(actor, property.id) : [];
 
   return (
     <>
@@ -266,9 +268,9 @@ export default async function PropertyPage({
       {isManager ? (
         <>
           <h2 id="homeowners" className="mt-10 mb-3 scroll-mt-4 text-2xl font-bold">
-            Homeowner sign-ins
+            Homeowners
           </h2>
-          <HomeownerAdmin property={property} />
+          <HomeownerAdmin property={property} invitations={invitations} />
           {property.notes ? (
             <>
               <h2 className="mt-10 mb-2 text-xl font-bold">Office notes</h2>

@@ -1,0 +1,327 @@
+// Writes of homeowner invitations.
+//
+// Inviting (and resending) does the same work for every address — the property's row, the
+// invitation row, its e-mail in the outbox (same transaction), an audit event — and never reads
+// `users`: whether the address has an account, in this company or another, is not looked at until
+// the person opens the link. So the manager's answer is the same, in content and in the work behind
+// it, whoever the address belongs to. The property is linked only when the person confirms
+// (acceptInvitation): an account of this company's homeowners is linked; an address without an
+// account gets one (with the password they choose); any other account is neither joined nor named.
+import "server-only";
+
+import { createHash } from "node:crypto";
+import { sql, type Transaction } from "kysely";
+
+import { db } from "@/db";
+import type { Database } from "@/db/schema";
+import { recordAudit } from "@/lib/audit/record";
+import type { Actor } from "@/lib/auth/actor";
+import { hashPassword } from "@/lib/auth/password";
+import { hashedToken, newLinkToken } from "@/lib/auth/tokens";
+import { appUrl, serverEnv } from "@/lib/env";
+import { AppError, notFound } from "@/lib/http/app-error";
+import { enqueueMail } from "@/lib/mail/outbox";
+
+import type { InvitationDto } from "./dto";
+import { invitationEmail } from "./email";
+import { INVITATION_COLUMNS, toInvitationDto } from "./map";
+import { INVITATION_DAYS } from "./rules";
+import type { InvitationInput } from "./schemas";
+
+export const INVITATION_MAIL_KIND = "homeowner_invitation";
+
+export const INVITATION_MESSAGES = {
+  unusable:
+    "This invitation link no longer works: it was used already, withdrawn, or it expired. Ask the company to send a new one.",
+  unavailable:
+    "This e-mail address already has a Sward account that cannot be added to this property. Ask the company to invite another address.",
+  passwordNeeded: "Choose a password for your new account.",
+  race: "Someone accepted an invitation for this address at the same moment. Open the link again.",
+} as const;
+
+function requireManager(actor: Actor): void {
+  if (actor.role !== "manager")
+    throw new AppError("forbidden", "Only a manager can invite homeowners.");
+}
+
+/** A fresh token, its stored hash and its expiry. */
+function newInvitationToken() {
+  const token = newLinkToken();
+  return {
+    token,
+    tokenHash: hashedToken(token, serverEnv().AUTH_SECRET),
+    expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
+  };
+}
+
+function invitationUrl(token: string): string {
+  return `${appUrl()}/invitation?${new URLSearchParams({ token }).toString()}`;
+}
+
+async function propertyForInvitation(trx: Transaction<Database>, actor: Actor, propertyId: string) {
+  const property = await trx
+    .selectFrom("properties as p")
+    .innerJoin("companies as c", "c.id", "p.company_id")
+    .select(["p.id", "p.street", "p.city", "p.archived_at", "c.name as company_name"])
+    .where("p.company_id", "=", actor.companyId)
+    .where("p.id", "=", propertyId)
+    .executeTakeFirst();
+  if (!property) throw notFound("That property");
+  return property;
+}
+
+async function queueInvitationMail(
+  trx: Transaction<Database>,
+  actor: Actor,
+  property: { street: string; city: string; company_name: string },
+  invitation: { email: string; name: string },
+  token: string,
+): Promise<void> {
+  const mail = invitationEmail({
+    link: invitationUrl(token),
+    days: INVITATION_DAYS,
+    companyName: property.company_name,
+    name: invitation.name,
+    street: property.street,
+    city: property.city,
+  });
+  const key = createHash("sha256").update(token).digest("hex").slice(0, 40);
+  await enqueueMail(trx, {
+    companyId: actor.companyId,
+    kind: INVITATION_MAIL_KIND,
+    dedupeKey: `${INVITATION_MAIL_KIND}:${key}`,
+    to: invitation.email,
+    ...mail,
+  });
+}
+
+/**
+ * Invites an address to a property. Inviting an address that already has a pending invitation
+ * there sends a new link in its place (the old one stops working).
+ */
+export async function inviteHomeowner(
+  actor: Actor,
+  propertyId: string,
+  input: InvitationInput,
+): Promise<InvitationDto> {
+  requireManager(actor);
+  const { token, tokenHash, expiresAt } = newInvitationToken();
+  return db()
+    .transaction()
+    .execute(async (trx) => {
+      const property = await propertyForInvitation(trx, actor, propertyId);
+      if (property.archived_at)
+        throw new AppError(
+          "conflict",
+          "That property is archived; restore it before inviting homeowners.",
+        );
+      const row = await trx
+        .insertInto("homeowner_invitations")
+        .values({
+          company_id: actor.companyId,
+          property_id: propertyId,
+          email: input.email,
+          name: input.name,
+          token_hash: tokenHash,
+          expires_at: expiresAt,
+          invited_by: actor.userId,
+        })
+        .onConflict((oc) =>
+          oc
+            .columns(["property_id", "email"])
+            .where("accepted_at", "is", null)
+            .where("revoked_at", "is", null)
+            .doUpdateSet({
+              name: input.name,
+              token_hash: tokenHash,
+              expires_at: expiresAt,
+              invited_by: actor.userId,
+              sent_at: sql<Date>`now()`,
+              send_count: sql<number>`homeowner_invitations.send_count + 1`,
+            }),
+        )
+        .returning([...INVITATION_COLUMNS])
+        .executeTakeFirstOrThrow();
+      await queueInvitationMail(trx, actor, property, row, token);
+      await recordAudit(trx, actor, {
+        entity: "property",
+        entityId: propertyId,
+        action: "invite_homeowner",
+        changes: { invitation: { from: null, to: { id: row.id, email: row.email } } },
+      });
+      return toInvitationDto(row);
+    });
+}
+
+/** Sends a pending invitation again with a new link (the old one stops working) and a new expiry. */
+export async function resendInvitation(
+  actor: Actor,
+  propertyId: string,
+  invitationId: string,
+): Promise<InvitationDto> {
+  requireManager(actor);
+  const { token, tokenHash, expiresAt } = newInvitationToken();
+  return db()
+    .transaction()
+    .execute(async (trx) => {
+      const property = await propertyForInvitation(trx, actor, propertyId);
+      const row = await trx
+        .updateTable("homeowner_invitations")
+        .set({
+          token_hash: tokenHash,
+          expires_at: expiresAt,
+          sent_at: sql<Date>`now()`,
+          send_count: sql<number>`send_count + 1`,
+        })
+        .where("company_id", "=", actor.companyId)
+        .where("property_id", "=", propertyId)
+        .where("id", "=", invitationId)
+        .where("accepted_at", "is", null)
+        .where("revoked_at", "is", null)
+        .returning([...INVITATION_COLUMNS])
+        .executeTakeFirst();
+      if (!row) throw notFound("That invitation");
+      await queueInvitationMail(trx, actor, property, row, token);
+      await recordAudit(trx, actor, {
+        entity: "property",
+        entityId: propertyId,
+        action: "resend_invitation",
+        changes: { invitation: { from: { id: row.id }, to: { id: row.id, email: row.email } } },
+      });
+      return toInvitationDto(row);
+    });
+}
+
+/** Withdraws a pending invitation: its link stops working at once. */
+export async function revokeInvitation(
+  actor: Actor,
+  propertyId: string,
+  invitationId: string,
+): Promise<void> {
+  requireManager(actor);
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const row = await trx
+        .updateTable("homeowner_invitations")
+        .set({ revoked_at: sql<Date>`now()`, revoked_by: actor.userId })
+        .where("company_id", "=", actor.companyId)
+        .where("property_id", "=", propertyId)
+        .where("id", "=", invitationId)
+        .where("accepted_at", "is", null)
+        .where("revoked_at", "is", null)
+        .returning(["id", "email"])
+        .executeTakeFirst();
+      if (!row) throw notFound("That invitation");
+      await recordAudit(trx, actor, {
+        entity: "property",
+        entityId: propertyId,
+        action: "revoke_invitation",
+        changes: { invitation: { from: { id: row.id, email: row.email }, to: null } },
+      });
+    });
+}
+
+export interface AcceptedInvitation {
+  email: string;
+  userId: string;
+  /** True when the address had no account and one was made with the chosen password. */
+  createdAccount: boolean;
+}
+
+/**
+ * The invited person's confirmation. The token is claimed (single use, even for two clicks at
+ * once: one conditional update wins) in the transaction that links the property; when the address
+ * cannot be linked here nothing is written and the invitation stays as it was, so the manager sees
+ * no difference.
+ */
+export async function acceptInvitation(
+  token: string,
+  input: { name?: string; password?: string },
+): Promise<AcceptedInvitation> {
+  const tokenHash = hashedToken(token, serverEnv().AUTH_SECRET);
+  return db()
+    .transaction()
+    .execute(async (trx) => {
+      const invitation = await trx
+        .updateTable("homeowner_invitations")
+        .set({ accepted_at: sql<Date>`now()` })
+        .where("token_hash", "=", tokenHash)
+        .where("accepted_at", "is", null)
+        .where("revoked_at", "is", null)
+        .where("expires_at", ">", sql<Date>`now()`)
+        .returning(["id", "company_id", "property_id", "email", "name"])
+        .executeTakeFirst();
+      if (!invitation) throw new AppError("not_found", INVITATION_MESSAGES.unusable);
+      const user = await trx
+        .selectFrom("users")
+        .leftJoin("memberships", "memberships.user_id", "users.id")
+        .select(["users.id", "users.disabled_at", "memberships.company_id", "memberships.role"])
+        .where("users.email", "=", invitation.email)
+        .forUpdate("users")
+        .executeTakeFirst();
+      let userId: string;
+      let createdAccount = false;
+      if (user) {
+        if (
+          user.company_id !== invitation.company_id ||
+          user.role !== "homeowner" ||
+          user.disabled_at
+        )
+          throw new AppError("conflict", INVITATION_MESSAGES.unavailable);
+        userId = user.id;
+      } else {
+        if (!input.password)
+          throw new AppError("invalid_input", INVITATION_MESSAGES.passwordNeeded, {
+            password: [INVITATION_MESSAGES.passwordNeeded],
+          });
+        const passwordHash = await hashPassword(input.password);
+        const created = await trx
+          .insertInto("users")
+          .values({
+            email: invitation.email,
+            name: input.name?.trim() || invitation.name,
+            password_hash: passwordHash,
+            email_verified: sql<Date>`now()`,
+          })
+          .onConflict((oc) => oc.column("email").doNothing())
+          .returning("id")
+          .executeTakeFirst();
+        if (!created) throw new AppError("conflict", INVITATION_MESSAGES.race);
+        userId = created.id;
+        createdAccount = true;
+        await trx
+          .insertInto("memberships")
+          .values({ company_id: invitation.company_id, user_id: userId, role: "homeowner" })
+          .execute();
+      }
+      await trx
+        .insertInto("property_homeowners")
+        .values({
+          property_id: invitation.property_id,
+          user_id: userId,
+          company_id: invitation.company_id,
+        })
+        .onConflict((oc) => oc.columns(["property_id", "user_id"]).doNothing())
+        .execute();
+      await trx
+        .updateTable("homeowner_invitations")
+        .set({ accepted_user_id: userId })
+        .where("id", "=", invitation.id)
+        .execute();
+      await recordAudit(
+        trx,
+        { companyId: invitation.company_id, userId },
+        {
+          entity: "property",
+          entityId: invitation.property_id,
+          action: "link_homeowner",
+          changes: {
+            homeowner: { from: null, to: invitation.email },
+            invitation: { from: invitation.id, to: createdAccount ? "new account" : "accepted" },
+          },
+        },
+      );
+      return { email: invitation.email, userId, createdAccount };
+    });
+}
