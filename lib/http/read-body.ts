@@ -9,7 +9,7 @@ function sizeWords(bytes: number): string {
     : `${Math.round(bytes / 1024)} KB`;
 }
 
-function tooLarge(maxBytes: number, what: string): AppError {
+export function tooLarge(maxBytes: number, what: string): AppError {
   return new AppError(
     "payload_too_large",
     `${what} is larger than ${sizeWords(maxBytes)}. Send a smaller one.`,
@@ -17,7 +17,7 @@ function tooLarge(maxBytes: number, what: string): AppError {
 }
 
 /** 413 when the declared length is above the limit (nothing is read). */
-function assertDeclaredLength(request: Request, maxBytes: number, what: string): void {
+export function assertDeclaredLength(request: Request, maxBytes: number, what: string): void {
   const declared = Number(request.headers.get("content-length") ?? "0");
   if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge(maxBytes, what);
 }

@@ -6,6 +6,7 @@ import exifr from "exifr";
 import sharp, { type Metadata } from "sharp";
 
 import { AppError } from "@/lib/http/app-error";
+import type { UploadedFile } from "@/lib/http/stream-to-file";
 import { ANALYSIS_LONG_SIDE, analyzePixels, type PixelFigures } from "@/lib/photo-analysis/analyze";
 
 export const PHOTO_LIMITS = {
@@ -37,7 +38,7 @@ const refuse = (message: string, code: "invalid_input" | "unsupported_media" = "
   new AppError(code === "unsupported_media" ? "unsupported_media" : "invalid_input", message);
 
 async function readEvidence(
-  input: Buffer,
+  input: Buffer | string,
 ): Promise<{ capturedLocal: string | null; gps: ProcessedPhoto["gps"] }> {
   try {
     const tags = (await exifr.parse(input, {
@@ -65,9 +66,17 @@ async function readEvidence(
   }
 }
 
-export async function processPhoto(input: Buffer): Promise<ProcessedPhoto> {
-  if (input.length === 0) throw refuse("The file is empty. Choose the photo again.");
-  if (input.length > PHOTO_LIMITS.maxBytes)
+/**
+ * Processes a photo from memory (a Buffer) or from the temporary file an upload was streamed to
+ * (lib/http/stream-to-file.ts: read by sharp and exifr from disk, its hash taken while streaming).
+ */
+export async function processPhoto(upload: Buffer | UploadedFile): Promise<ProcessedPhoto> {
+  const inMemory = Buffer.isBuffer(upload);
+  // sharp and exifr read a string as a file path.
+  const input: Buffer | string = inMemory ? upload : upload.path;
+  const size = inMemory ? upload.length : upload.bytes;
+  if (size === 0) throw refuse("The file is empty. Choose the photo again.");
+  if (size > PHOTO_LIMITS.maxBytes)
     throw new AppError(
       "payload_too_large",
       `The photo is larger than ${PHOTO_LIMITS.maxBytes / 1024 / 1024} MB. Send a smaller copy.`,
@@ -141,9 +150,9 @@ export async function processPhoto(input: Buffer): Promise<ProcessedPhoto> {
     ]);
     const analysis = analyzePixels(small.data, small.info.channels);
     return {
-      contentHash: createHash("sha256").update(input).digest("hex"),
+      contentHash: inMemory ? createHash("sha256").update(upload).digest("hex") : upload.sha256,
       format: format as ProcessedPhoto["format"],
-      bytes: input.length,
+      bytes: size,
       width: info.width,
       height: info.height,
       display: { data: display.data, width: display.info.width, height: display.info.height },

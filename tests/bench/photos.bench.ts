@@ -2,7 +2,13 @@
 // processPhoto, the function every upload runs (decode, orient, two WebP derivatives, analysis on
 // a copy of ANALYSIS_LONG_SIDE px); then the analysis step alone (analyzePixels, which processPhoto
 // calls) on that copy and on every pixel, so the gain from downscaling is a ratio from one run.
+// Last, the memory of BENCH_UPLOADS (10) concurrent ~11 MB uploads over HTTP, in a server process
+// of its own (tests/bench/photo-upload-server.ts): its peak resident memory above where it stood
+// before the burst (Linux VmHWM, reset first), with the body read whole before the photo limiter
+// (how uploads were handled before) and streamed to a temporary file inside it (now).
+import { spawn } from "node:child_process";
 import { mkdirSync, writeFileSync } from "node:fs";
+import http from "node:http";
 import sharp from "sharp";
 
 import { ANALYSIS_LONG_SIDE, analyzePixels } from "@/lib/photo-analysis/analyze";
@@ -69,11 +75,69 @@ console.table(
 );
 const ratio = everyPixel.p50 / downscaled.p50;
 console.log(`analysis on every pixel / at ${ANALYSIS_LONG_SIDE} px (p50): ${ratio.toFixed(1)}×`);
+
+const UPLOADS = Number(process.env.BENCH_UPLOADS ?? 10);
+const uploadBody = await sharp(inputs[0]!)
+  .jpeg({ quality: 100, chromaSubsampling: "4:4:4" })
+  .toBuffer();
+inputs.length = 0;
+
+function call(port: number, method: string, path: string, body?: Buffer) {
+  return new Promise<{ status: number; json: Record<string, unknown> }>((resolve, reject) => {
+    const req = http.request(
+      { host: "127.0.0.1", port, method, path, headers: { "content-type": "image/jpeg" } },
+      (res) => {
+        let text = "";
+        res.on("data", (d: Buffer) => (text += d.toString()));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, json: JSON.parse(text) }));
+      },
+    );
+    req.on("error", reject);
+    req.end(body);
+  });
+}
+
+async function uploadBurst(mode: "buffered" | "streamed") {
+  const child = spawn("node_modules/.bin/tsx", ["tests/bench/photo-upload-server.ts", mode], {
+    stdio: ["ignore", "pipe", "inherit"],
+    env: { ...process.env, UPLOAD_TMP_DIR: "tests/.artifacts/bench/uploads" },
+  });
+  try {
+    const port = await new Promise<number>((resolve, reject) => {
+      child.stdout.once("data", (d: Buffer) => resolve(JSON.parse(d.toString()).port as number));
+      child.once("exit", (code) => reject(new Error(`upload server exited ${code}`)));
+    });
+    await call(port, "POST", "/", uploadBody); // warm-up: sharp and the code paths loaded
+    const base = (await call(port, "POST", "/reset-peak")).json as { rssKb: number };
+    const started = performance.now();
+    const answers = await Promise.all(
+      Array.from({ length: UPLOADS }, () => call(port, "POST", "/", uploadBody)),
+    );
+    const seconds = (performance.now() - started) / 1000;
+    const mem = (await call(port, "GET", "/mem")).json as { peakKb: number };
+    return {
+      mode,
+      uploads: UPLOADS,
+      ok: answers.filter((a) => a.status === 201).length,
+      peakRssDeltaMb: Math.round((mem.peakKb - base.rssKb) / 1024),
+      seconds: Math.round(seconds * 10) / 10,
+    };
+  } finally {
+    child.kill("SIGTERM");
+  }
+}
+
+const burst = [await uploadBurst("buffered"), await uploadBurst("streamed")];
+console.log(
+  `bench:photos — ${UPLOADS} concurrent uploads of ${(uploadBody.length / 1024 / 1024).toFixed(1)} MB (12 MP JPEG), peak RSS above the server's resident size before the burst:`,
+);
+console.table(burst);
+
 mkdirSync("tests/.artifacts/bench", { recursive: true });
 writeFileSync(
   "tests/.artifacts/bench/photos.json",
   JSON.stringify(
-    { at: new Date().toISOString(), rows, everyPixelOverDownscaledP50: ratio },
+    { at: new Date().toISOString(), rows, everyPixelOverDownscaledP50: ratio, uploadBurst: burst },
     null,
     2,
   ),

@@ -1,8 +1,13 @@
 // POST /api/v1/visits/:visitId/zone-checks/:zoneCheckId/photos — the image bytes as the body
 // (image/jpeg, image/png or image/webp, checked from the content). 201 with the PhotoDto, or 200
 // when the same photo is already on this check. Refused files store nothing.
+//
+// The body is read only inside the photo limiter (at most two uploads at once per process), and
+// then streamed to a temporary file with the byte limit enforced as it arrives (413 at once, the
+// file removed); the photo is processed from that file, which is removed afterwards whatever
+// happens. Uploads beyond the limit wait with their bodies unread.
 import { route } from "@/lib/auth/guards";
-import { readBodyLimited } from "@/lib/http/read-body";
+import { streamBodyToFile } from "@/lib/http/stream-to-file";
 import { limitPhotoWork } from "@/lib/photos/limiter";
 import { addPhoto, assertCanAddPhoto } from "@/lib/photos/mutations";
 import { PHOTO_LIMITS, processPhoto } from "@/lib/photos/process";
@@ -13,8 +18,14 @@ export const POST = route(
   { access: ["manager", "technician"], params: zoneCheckParams, resource: "That zone check" },
   async ({ actor, params, request }) => {
     await assertCanAddPhoto(actor, params.visitId, params.zoneCheckId); // before reading or decoding anything
-    const bytes = await readBodyLimited(request, PHOTO_LIMITS.maxBytes, "The photo");
-    const processed = await limitPhotoWork(() => processPhoto(bytes));
+    const processed = await limitPhotoWork(async () => {
+      const upload = await streamBodyToFile(request, PHOTO_LIMITS.maxBytes, "The photo");
+      try {
+        return await processPhoto(upload);
+      } finally {
+        await upload.remove();
+      }
+    });
     const { photo, isNew } = await addPhoto(
       actor,
       params.visitId,
