@@ -21,7 +21,7 @@ let propertyId: string;
 async function bookIndex(): Promise<number | null> {
   const res = await book.GET(
     new Request("http://localhost/api/v1/book?limit=100", {
-      headers: { origin: "http://localhost", host: "localhost" },
+      headers: { origin: "http://localhost:3000", host: "localhost" },
     }),
     { params: Promise.resolve({}) },
   );
