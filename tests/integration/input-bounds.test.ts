@@ -44,7 +44,7 @@ async function post(
       method: "POST",
       body: JSON.stringify(body),
       headers: {
-        origin: "http://localhost",
+        origin: "http://localhost:3000",
         host: "localhost",
         "content-type": "application/json",
       },
