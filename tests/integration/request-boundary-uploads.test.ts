@@ -161,10 +161,19 @@ describe("photo uploads at the request boundary", () => {
     const gate = new Promise<void>((resolve) => (open = resolve));
     const bodies = [0, 1, 2].map(() => countingBody(photo.length, { bytes: photo, gate: gate }));
     const answers = bodies.map((b, i) => post(b.stream, {}, i % checkIds.length));
-    await new Promise((r) => setTimeout(r, 300));
-    // Two uploads hold the limiter and have started reading; the third has not touched its body.
-    expect(bodies.map((b) => b.state.started)).toEqual([true, true, false]);
-    open();
+    try {
+      // Two uploads take the limiter and start reading (each checks its scope first)…
+      for (let waited = 0; bodies.filter((b) => b.state.started).length < 2; waited += 50) {
+        if (waited > 15_000) throw new Error("two uploads never started reading");
+        await new Promise((r) => setTimeout(r, 50));
+      }
+      await new Promise((r) => setTimeout(r, 500));
+      // …and the third has not touched its body: it cannot until a slot frees, which needs the gate.
+      expect(bodies.map((b) => b.state.started).filter(Boolean)).toHaveLength(2);
+      expect(bodies.reduce((n, b) => n + b.state.pulled, 0)).toBe(0); // the two wait at the gate
+    } finally {
+      open();
+    }
     const statuses = await Promise.all(answers.map(async (a) => (await a).status));
     for (const s of statuses) expect([200, 201]).toContain(s); // 200: the same photo again on a check
     expect(bodies.every((b) => b.state.pulled === photo.length)).toBe(true);
