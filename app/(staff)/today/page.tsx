@@ -1,9 +1,12 @@
 import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
+import { ChevronLeft, ChevronRight } from "lucide-react";
 import type { Metadata } from "next";
+import Link from "next/link";
 
+import { buttonClass } from "@/components/ui/button";
 import { TodayList } from "@/components/visits/today-list";
 import { requireActor } from "@/lib/auth/require";
-import { formatDate, isIsoDate, todayIn } from "@/lib/dates";
+import { addDays, formatDate, isIsoDate, todayIn } from "@/lib/dates";
 import { makeQueryClient } from "@/lib/query-client";
 import { listTodayStops } from "@/lib/visits/queries";
 import { visitKeys } from "@/lib/visits/query-keys";
@@ -17,7 +20,9 @@ export default async function TodayPage({
 }) {
   const actor = await requireActor(["technician"]);
   const { date: asked } = await searchParams;
-  const date = asked && isIsoDate(asked) ? asked : todayIn(actor.companyTimeZone);
+  const today = todayIn(actor.companyTimeZone);
+  const date = asked && isIsoDate(asked) ? asked : today;
+  const dayHref = (d: string) => (d === today ? "/today" : `/today?date=${d}`);
   const queryClient = makeQueryClient();
   await queryClient.prefetchQuery({
     queryKey: visitKeys.today(date),
@@ -26,8 +31,28 @@ export default async function TodayPage({
 
   return (
     <>
-      <h1 className="text-3xl font-bold">Today</h1>
-      <p className="mt-1 mb-4 text-muted">{formatDate(date)}</p>
+      <h1 className="text-3xl font-bold">{date === today ? "Today" : formatDate(date)}</h1>
+      <p className="mt-1 text-muted">
+        {date === today ? formatDate(date) : date < today ? "A past day" : "A coming day"}
+      </p>
+      <nav aria-label="Other days" className="mt-3 mb-4 flex flex-wrap gap-2">
+        <Link
+          href={dayHref(addDays(date, -1))}
+          className={buttonClass("secondary", "no-underline")}
+        >
+          <ChevronLeft className="size-5" aria-hidden="true" />
+          Previous day
+        </Link>
+        {date !== today ? (
+          <Link href="/today" className={buttonClass("quiet", "no-underline")}>
+            Back to today
+          </Link>
+        ) : null}
+        <Link href={dayHref(addDays(date, 1))} className={buttonClass("secondary", "no-underline")}>
+          Next day
+          <ChevronRight className="size-5" aria-hidden="true" />
+        </Link>
+      </nav>
       <HydrationBoundary state={dehydrate(queryClient)}>
         <TodayList date={date} />
       </HydrationBoundary>
