@@ -26,6 +26,7 @@ describe("the property page", () => {
     await page.waitForURL(/\/properties\/[0-9a-f-]+$/);
 
     const nav = page.getByRole("navigation", { name: "On this page" });
+    await nav.waitFor(); // past the loading skeleton
     const hrefs = await nav
       .getByRole("link")
       .evaluateAll((links) => links.map((a) => a.getAttribute("href")!));
