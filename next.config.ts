@@ -1,4 +1,5 @@
 import type { NextConfig } from "next";
+import createNextIntlPlugin from "next-intl/plugin";
 
 import {
   COMMON_SECURITY_HEADERS,
@@ -39,4 +40,5 @@ const nextConfig: NextConfig = {
   },
 };
 
-export default nextConfig;
+// Words and formats in the company's locale (lib/i18n/, next-intl without locale routing).
+export default createNextIntlPlugin("./lib/i18n/request.ts")(nextConfig);

@@ -1,4 +1,6 @@
 import type { Metadata, Viewport } from "next";
+import { NextIntlClientProvider } from "next-intl";
+import { getLocale } from "next-intl/server";
 import localFont from "next/font/local";
 import { connection } from "next/server";
 import type { ReactNode } from "react";
@@ -40,10 +42,14 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   // Every page renders per request (the not-found page too), so Next can put this request's
   // Content-Security-Policy nonce (proxy.ts) on its scripts; a prerendered page would have none.
   await connection();
+  // The company's locale (lib/i18n/request.ts): the page's language and its client components' words.
+  const locale = await getLocale();
   return (
-    <html lang="en" className={sward.variable}>
+    <html lang={locale} className={sward.variable}>
       <body className="min-h-dvh font-sans">
-        <Providers>{children}</Providers>
+        <NextIntlClientProvider>
+          <Providers>{children}</Providers>
+        </NextIntlClientProvider>
       </body>
     </html>
   );

@@ -42,6 +42,8 @@ interface CompaniesTable {
   slug: string;
   unit_system: ColumnType<UnitSystem, UnitSystem | undefined, UnitSystem>;
   time_zone: Generated<string>;
+  /** BCP 47 language-region (lib/i18n/locales.ts): words, dates and units of screens, e-mails, exports. */
+  locale: Generated<string>;
   created_at: Generated<Date>;
 }
 

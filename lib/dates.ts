@@ -39,9 +39,13 @@ export function isValidTimeZone(timeZone: string): boolean {
   }
 }
 
-/** "Tue 1 Dec 2026" — unambiguous for readers on either side of the Atlantic. */
-export function formatDate(date: IsoDate): string {
-  return new Intl.DateTimeFormat("en-GB", {
+// Dates and times for people, in the company's locale (lib/i18n/locales.ts; US English unless a
+// manager chose otherwise): always through Intl (CLDR patterns), never a hand-built string.
+const DEFAULT_LOCALE = "en-US";
+
+/** "Wed, Dec 2, 2026" in en-US: the weekday keeps a date unambiguous. */
+export function formatDate(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
+  return new Intl.DateTimeFormat(locale, {
     weekday: "short",
     day: "numeric",
     month: "short",
@@ -50,20 +54,64 @@ export function formatDate(date: IsoDate): string {
   }).format(new Date(`${date}T00:00:00Z`));
 }
 
-export function formatTime(at: Date | string, timeZone: string): string {
-  return new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(
+/** "Dec 2, 2026" in en-US: a date in running text or a table cell. */
+export function formatShortDate(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
+  return new Intl.DateTimeFormat(locale, {
+    day: "numeric",
+    month: "short",
+    year: "numeric",
+    timeZone: "UTC",
+  }).format(new Date(`${date}T00:00:00Z`));
+}
+
+/** "12/02/2026" in en-US: a date in a spreadsheet cell (the form a US spreadsheet reads as a date). */
+export function formatNumericDate(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
+  return new Intl.DateTimeFormat(locale, {
+    day: "2-digit",
+    month: "2-digit",
+    year: "numeric",
+    timeZone: "UTC",
+  }).format(new Date(`${date}T00:00:00Z`));
+}
+
+/** "12/02/2026, 9:15 AM" in en-US, in the given zone: a moment in a spreadsheet cell. */
+export function formatNumericDateTime(
+  at: Date | string,
+  timeZone: string,
+  locale: string = DEFAULT_LOCALE,
+): string {
+  return new Intl.DateTimeFormat(locale, {
+    day: "2-digit",
+    month: "2-digit",
+    year: "numeric",
+    hour: "numeric",
+    minute: "2-digit",
+    timeZone,
+  }).format(new Date(at));
+}
+
+export function formatTime(
+  at: Date | string,
+  timeZone: string,
+  locale: string = DEFAULT_LOCALE,
+): string {
+  return new Intl.DateTimeFormat(locale, { hour: "numeric", minute: "2-digit", timeZone }).format(
     new Date(at),
   );
 }
 
-/** "Tue 1 Dec, 3:05 PM" in the given zone. */
-export function formatDateTime(at: Date | string, timeZone: string): string {
-  const d = new Date(at);
-  const day = new Intl.DateTimeFormat("en-GB", {
+/** "Wed, Dec 2, 3:05 PM" in en-US, in the given zone. */
+export function formatDateTime(
+  at: Date | string,
+  timeZone: string,
+  locale: string = DEFAULT_LOCALE,
+): string {
+  return new Intl.DateTimeFormat(locale, {
     weekday: "short",
     day: "numeric",
     month: "short",
+    hour: "numeric",
+    minute: "2-digit",
     timeZone,
-  }).format(d);
-  return `${day}, ${formatTime(d, timeZone)}`;
+  }).format(new Date(at));
 }

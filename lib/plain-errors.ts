@@ -6,18 +6,54 @@ import type { z } from "zod/mini";
 
 type Issue = z.core.$ZodRawIssue;
 
+/**
+ * Fields whose schema leaves the message to this map: what the field is called on its form and
+ * the unit it is typed in, so a refusal names both ("The stop number must be 0 or more.").
+ * Keyed by the field's name (the last part of its path).
+ */
+const FIELD_WORDS: Record<string, { label: string; unit?: string }> = {
+  stopOrder: { label: "the stop number" },
+  sortOrder: { label: "the position in the list" },
+  windMph: { label: "the wind speed", unit: "mph" },
+  temperatureF: { label: "the temperature", unit: "°F" },
+  minSlowReleasePct: { label: "the smallest slow-release N share", unit: "%" },
+  soilTestMaxAgeYears: { label: "the soil test's greatest age", unit: "years" },
+  recordRetentionYears: { label: "how long records are kept", unit: "years" },
+  latitude: { label: "the latitude", unit: "degrees" },
+  longitude: { label: "the longitude", unit: "degrees" },
+  soilMoisturePct: { label: "the soil moisture", unit: "%" },
+  extentPct: { label: "the share of the zone", unit: "%" },
+  depthIn: { label: "the watering depth", unit: "in" },
+  runMinutes: { label: "the run time", unit: "minutes" },
+  precipitationRateInPerHour: { label: "the precipitation rate", unit: "in/h" },
+};
+
+const fieldOf = (issue: Issue) => {
+  const last = issue.path?.at(-1);
+  return typeof last === "string" ? FIELD_WORDS[last] : undefined;
+};
+const capital = (s: string) => s[0]!.toUpperCase() + s.slice(1);
+const withUnit = (figure: string, unit?: string) => (unit ? `${figure} ${unit}` : figure);
+
 const isEmpty = (input: unknown) =>
   input === undefined || input === null || (typeof input === "string" && input.trim() === "");
 
 function typeMessage(issue: Issue & { expected?: string }): string {
-  if (isEmpty(issue.input)) return "This is required.";
+  const field = fieldOf(issue);
+  if (isEmpty(issue.input))
+    return field ? `${capital(field.label)} is required.` : "This is required.";
+  const asNumber = field
+    ? `Enter ${field.label} as a number${field.unit ? `, in ${field.unit}` : ""}.`
+    : "Enter a number.";
   switch (issue.expected) {
     case "int":
       return typeof issue.input === "number" && Number.isFinite(issue.input)
-        ? "Use a whole number."
-        : "Enter a number.";
+        ? field
+          ? `Use a whole number for ${field.label}${field.unit ? `, in ${field.unit}` : ""}.`
+          : "Use a whole number."
+        : asNumber;
     case "number":
-      return "Enter a number.";
+      return asNumber;
     case "string":
       return "Enter some text.";
     case "boolean":
@@ -43,13 +79,19 @@ export const plainErrors: z.core.$ZodErrorMap = (issue) => {
       if (issue.origin === "string")
         return Number(issue.minimum) <= 1 ? "This is required." : `Use at least ${min} characters.`;
       if (issue.origin === "array" || issue.origin === "set") return `Choose at least ${min}.`;
-      return issue.inclusive === false ? `Must be above ${min}.` : `Must be ${min} or more.`;
+      const field = fieldOf(issue);
+      const who = field ? `${capital(field.label)} must be` : "Must be";
+      const at = withUnit(min, field?.unit);
+      return issue.inclusive === false ? `${who} above ${at}.` : `${who} ${at} or more.`;
     }
     case "too_big": {
       const max = figure(issue.maximum);
       if (issue.origin === "string") return `Use at most ${max} characters.`;
       if (issue.origin === "array" || issue.origin === "set") return `Choose at most ${max}.`;
-      return issue.inclusive === false ? `Must be below ${max}.` : `Must be ${max} or less.`;
+      const field = fieldOf(issue);
+      const who = field ? `${capital(field.label)} must be` : "Must be";
+      const at = withUnit(max, field?.unit);
+      return issue.inclusive === false ? `${who} below ${at}.` : `${who} ${at} or less.`;
     }
     case "not_multiple_of":
       return `Use steps of ${figure(issue.divisor)}.`;

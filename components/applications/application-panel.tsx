@@ -583,7 +583,7 @@ export function ApplicationPanel({
               </Field>
               <Field
                 id={`${zoneId}-licence`}
-                label="Certification (licence) number"
+                label="Certification (license) number"
                 error={errors.applicatorLicence?.message}
               >
                 <input

@@ -24,7 +24,7 @@ export const chartTheme = buildChartTheme({
 /** Noon UTC of an ISO date, so a day never slides across a time-zone boundary. */
 export const dayToDate = (iso: string) => new Date(`${iso}T12:00:00Z`);
 
-const SHORT = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", timeZone: "UTC" });
+const SHORT = new Intl.DateTimeFormat("en-US", { day: "numeric", month: "short", timeZone: "UTC" });
 export const shortDate = (d: Date | { valueOf(): number }) => SHORT.format(new Date(d.valueOf()));
 
 /** Every day from `from` to `to` (inclusive), for daily bars that need one datum per day. */

@@ -11,10 +11,13 @@ export function PhotoFigure({
   photo,
   size = "thumb",
   showDate = false,
+  forHomeowner = false,
 }: {
   photo: PhotoDto;
   size?: "thumb" | "display";
   showDate?: boolean;
+  /** A homeowner reads the green cover only, without the imaging index (DGCI). */
+  forHomeowner?: boolean;
 }) {
   const isThumb = size === "thumb";
   const caution = lightingCaution(photo);
@@ -37,7 +40,9 @@ export function PhotoFigure({
       <figcaption className="p-2 text-sm">
         {showDate ? <span className="block font-bold">{formatDate(photo.visitedOn)}</span> : null}
         <span className="font-semibold">{photo.greenCoverPct.toFixed(1)} %</span> green canopy cover
-        · DGCI {photo.dgci === null ? "— (no green canopy)" : photo.dgci.toFixed(3)}
+        {forHomeowner
+          ? null
+          : ` · DGCI ${photo.dgci === null ? "— (no green canopy)" : photo.dgci.toFixed(3)}`}
         {photo.measuredByCanopyRule ? null : (
           <span className="block text-muted">Measured by an earlier method; update pending.</span>
         )}

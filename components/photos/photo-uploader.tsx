@@ -218,7 +218,7 @@ export function PhotoUploader({
                         ? "Waiting…"
                         : item.status === "uploading"
                           ? `Uploading ${item.progress} %`
-                          : "Measuring cover and colour…"}
+                          : "Measuring cover and color…"}
                     </p>
                   </>
                 )}

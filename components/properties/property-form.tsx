@@ -184,7 +184,7 @@ export function PropertyForm({
       </Field>
       <Field
         id="ruleSetId"
-        label="Fertiliser rule set"
+        label="Fertilizer rule set"
         hint="The local rules every application here is checked against."
         error={err("ruleSetId")}
       >

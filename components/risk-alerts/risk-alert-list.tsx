@@ -2,7 +2,7 @@
 // actions the viewer may take. Rendered on the server (property page, visit page, risk alerts page).
 import Link from "next/link";
 
-import { formatDate } from "@/lib/dates";
+import { formatDate, formatDateTime } from "@/lib/dates";
 import type { AlertDto } from "@/lib/risk-alerts/dto";
 import { ALERT_STATUSES, EVIDENCE_LABELS, evidenceValue } from "@/lib/risk/labels";
 
@@ -33,11 +33,6 @@ export function RiskAlertList({
   showProperty?: boolean;
   empty: string;
 }) {
-  const at = new Intl.DateTimeFormat("en-GB", {
-    dateStyle: "medium",
-    timeStyle: "short",
-    timeZone,
-  });
   if (!alerts.length) return <p className="rounded-lg border border-line bg-card p-4">{empty}</p>;
   return (
     <ul className="space-y-3" aria-label="Risk alerts">
@@ -96,7 +91,7 @@ export function RiskAlertList({
                 {a.events.map((e, i) => (
                   <li key={i}>
                     <span className="font-semibold">{ACTIONS[e.action] ?? e.action}</span> ·{" "}
-                    {at.format(new Date(e.at))}
+                    {formatDateTime(e.at, timeZone)}
                     {e.actor ? ` · ${e.actor}` : ""}
                     {e.note ? <span className="block text-ink">“{e.note}”</span> : null}
                   </li>

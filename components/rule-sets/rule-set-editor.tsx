@@ -160,8 +160,8 @@ export function RuleSetEditor({ ruleSet, onDone }: { ruleSet?: RuleSetDto; onDon
       </Field>
       <fieldset className="grid gap-3 rounded-lg border border-line p-3 sm:grid-cols-2">
         <legend className="px-1 font-bold">
-          No fertilizer after – or before (month-day, as the law words it: both days themselves
-          allowed; empty for none)
+          No fertilizer after – or before, as the law words it (both days themselves allowed; leave
+          empty for none). Type month and day, e.g. 12-01 for December 1.
         </legend>
         <Field
           id={`${p}-pro`}

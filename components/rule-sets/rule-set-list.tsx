@@ -6,6 +6,7 @@ import { useState } from "react";
 
 import { Button } from "@/components/ui/button";
 import { monthDayWords } from "@/lib/agronomy/rules";
+import { RECORD_FIELDS } from "@/lib/reference/record-fields";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 
 import { RuleSetEditor } from "./rule-set-editor";
@@ -36,7 +37,7 @@ function describe(r: RuleSetDto): string[] {
     );
   }
   out.push(
-    `records kept ${r.recordRetentionYears} years; ${r.recordRequiredFields.length ? `${r.recordFieldsApplyTo === "all" ? "every application" : "pesticide applications"} need ${r.recordRequiredFields.map((f) => f.replaceAll("_", " ")).join(", ")}` : "no extra record fields"}`,
+    `records kept ${r.recordRetentionYears} years; ${r.recordRequiredFields.length ? `${r.recordFieldsApplyTo === "all" ? "every application" : "pesticide applications"} need ${r.recordRequiredFields.map((f) => RECORD_FIELDS[f].toLowerCase()).join(", ")}` : "no extra record fields"}`,
   );
   return out;
 }

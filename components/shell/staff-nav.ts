@@ -7,6 +7,7 @@ import {
   FileSpreadsheet,
   FlaskConical,
   Gavel,
+  Settings,
   Trees,
 } from "lucide-react";
 
@@ -24,6 +25,7 @@ export function staffNav(role: Role): NavItem[] {
         { href: "/products", label: "Products", icon: FlaskConical },
         { href: "/rule-sets", label: "Rule sets", icon: Gavel },
         { href: "/records", label: "Records", icon: FileSpreadsheet },
+        { href: "/settings", label: "Settings", icon: Settings },
       ]
     : [
         { href: "/today", label: "Today", icon: CalendarDays, also: ["/visits"] },

@@ -3,15 +3,9 @@ import { ChartFigure, Td, Th } from "@/components/charts/chart-figure";
 import { SimpleTrendChart } from "@/components/charts/simple-trend-chart";
 import { formatDate } from "@/lib/dates";
 import type { PropertyScoreHistory } from "@/lib/scoring/dto";
-import { MIN_CHECKS_FOR_TREND_WORD } from "@/lib/scoring/weights";
+import { lawnHeadline } from "@/lib/scoring/words";
 
-const SAYING = {
-  improving: "Your lawn is getting healthier.",
-  steady: "Your lawn is holding steady.",
-  declining: "Your lawn has slipped lately. Your technician records what they find at each visit.",
-} as const;
-
-export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
+export function LawnIndex({ history, locale }: { history: PropertyScoreHistory; locale?: string }) {
   const latest = history.visits.at(-1);
   if (!latest)
     return (
@@ -19,9 +13,16 @@ export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
         Your lawn&apos;s Sward Index appears after the first visit.
       </p>
     );
-  const word = history.trend?.word ?? null;
-  const n = history.trend?.n ?? 0;
-  const change = history.season?.change ?? null;
+  // One sentence builder for the trend and the change, so they never contradict each other.
+  const headline = lawnHeadline(
+    {
+      word: history.trend?.word ?? null,
+      n: history.trend?.n ?? 0,
+      change: history.season?.change ?? null,
+      since: history.season?.from.date ?? null,
+    },
+    locale,
+  );
   return (
     <div className="mb-6">
       <ChartFigure
@@ -33,19 +34,10 @@ export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
             <p>
               <span className="text-3xl font-bold text-sward">{Math.round(latest.index)}</span>{" "}
               <span className="text-muted">
-                out of 100, at the visit of {formatDate(latest.date)}.
+                out of 100, at the visit of {formatDate(latest.date, locale)}.
               </span>
             </p>
-            <p>
-              {word
-                ? `${SAYING[word]} Based on ${n} visits in the last 120 days.`
-                : n < MIN_CHECKS_FOR_TREND_WORD
-                  ? `A direction shows after ${MIN_CHECKS_FOR_TREND_WORD} visits within 120 days (${n} so far).`
-                  : `No clear direction over the last ${n} visits: the scores vary more than they move.`}
-              {change !== null && history.season
-                ? ` ${change >= 0 ? "Up" : "Down"} ${Math.abs(Math.round(change))} points since ${formatDate(history.season.from.date)}.`
-                : ""}
-            </p>
+            <p data-tone={headline.tone}>{headline.sentences.join(" ")}</p>
             <p className="text-sm text-muted">
               The Sward Index is your lawn&apos;s health from 0 to 100. It sums up what your
               technician rated: color, thickness, evenness, bare patches, weeds and any disease or
@@ -72,7 +64,7 @@ export function LawnIndex({ history }: { history: PropertyScoreHistory }) {
             <tbody>
               {history.visits.map((v) => (
                 <tr key={v.visitId}>
-                  <Td>{formatDate(v.date)}</Td>
+                  <Td>{formatDate(v.date, locale)}</Td>
                   <Td className="font-bold">{Math.round(v.index)}</Td>
                 </tr>
               ))}

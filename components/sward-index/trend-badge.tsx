@@ -15,7 +15,8 @@ export function TrendBadge({ word, n }: { word: TrendWord | null; n: number }) {
   if (!word)
     return (
       <span className="rounded-full bg-paper px-2.5 py-1 text-sm text-muted ring-1 ring-line">
-        {n < MIN_CHECKS_FOR_TREND_WORD ? "No trend yet" : "No clear trend"} (n {n})
+        {n < MIN_CHECKS_FOR_TREND_WORD ? "No trend yet" : "No clear trend"} ·{" "}
+        {n === 1 ? "1 check" : `${n} checks`}
       </span>
     );
   const { className, Icon } = STYLE[word];
@@ -25,7 +26,7 @@ export function TrendBadge({ word, n }: { word: TrendWord | null; n: number }) {
     >
       <Icon className="size-4" aria-hidden="true" />
       <span className="capitalize">{word}</span>
-      <span className="font-normal">(n {n})</span>
+      <span className="font-normal">· {n === 1 ? "1 check" : `${n} checks`}</span>
     </span>
   );
 }

@@ -63,7 +63,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
                 >
                   {z.photos.map((p) => (
                     <li key={p.id}>
-                      <PhotoFigure photo={p} />
+                      <PhotoFigure photo={p} forHomeowner />
                     </li>
                   ))}
                 </ul>
@@ -140,6 +140,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
                 <h3 className="text-lg font-bold">{note.title}</h3>
                 <p className="mt-1 text-sm text-muted">Because we saw: {because.join("; ")}.</p>
                 <p className="mt-2">{note.body}</p>
+                <p className="mt-1 text-sm text-muted">Source: {note.source}.</p>
                 {note.cautions?.map((c) => (
                   <p
                     key={c}

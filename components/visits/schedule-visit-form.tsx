@@ -3,6 +3,7 @@
 // The manager schedules a visit: property, date, technician, planned service. The visit id is
 // chosen here, so a double click or a retry after a timeout creates one visit, never two.
 import { useQueryClient } from "@tanstack/react-query";
+import { useLocale } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
@@ -12,6 +13,7 @@ import { Button } from "@/components/ui/button";
 import { CharacterCount } from "@/components/ui/character-count";
 import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { formatDate } from "@/lib/dates";
 import type { PersonDto } from "@/lib/people/dto";
 import type { PropertySummaryDto } from "@/lib/properties/dto";
 import { sendJson } from "@/lib/query-client";
@@ -38,6 +40,7 @@ export function ScheduleVisitForm({
   defaultDate: string;
 }) {
   const router = useRouter();
+  const locale = useLocale();
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
   const [visitId, setVisitId] = useState(() => crypto.randomUUID());
@@ -84,7 +87,7 @@ export function ScheduleVisitForm({
     setWarnings({});
     setMessage({
       tone: "ok",
-      text: `Scheduled: ${result.data.propertyName} on ${result.data.scheduledFor}.`,
+      text: `Scheduled: ${result.data.propertyName} on ${formatDate(result.data.scheduledFor, locale)}.`,
     });
     setVisitId(crypto.randomUUID());
     reset({

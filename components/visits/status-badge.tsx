@@ -8,7 +8,7 @@ const VISIT = {
   scheduled: { label: "Not started", icon: Clock, tone: "bg-paper text-ink ring-1 ring-line" },
   in_progress: { label: "In progress", icon: PencilLine, tone: "bg-rain-tint text-ink" },
   completed: { label: "Finished", icon: CheckCircle2, tone: "bg-sward-tint text-sward-deep" },
-  cancelled: { label: "Cancelled", icon: XCircle, tone: "bg-clay-tint text-clay" },
+  cancelled: { label: "Canceled", icon: XCircle, tone: "bg-clay-tint text-clay" },
 } as const;
 
 const ZONE = {

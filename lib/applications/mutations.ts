@@ -75,7 +75,7 @@ export async function recordApplication(
     .where("visits.id", "=", visitId)
     .executeTakeFirst();
   if (!visit) throw notFound("That visit");
-  if (visit.status === "cancelled") throw new AppError("conflict", "This visit was cancelled.");
+  if (visit.status === "cancelled") throw new AppError("conflict", "This visit was canceled.");
   if (visit.status === "completed" && actor.role !== "manager")
     throw new AppError(
       "forbidden",
@@ -96,7 +96,7 @@ export async function recordApplication(
     .where("company_id", "=", actor.companyId)
     .where("id", "=", input.productId)
     .executeTakeFirst();
-  if (!productRow) throw invalid({ productId: ["Choose a product from your catalogue."] });
+  if (!productRow) throw invalid({ productId: ["Choose a product from your catalog."] });
   const product = toProductDto(productRow);
   if (product.isArchived) throw invalid({ productId: ["That product is archived."] });
   const ruleRow = visit.rule_set_id
@@ -119,7 +119,7 @@ export async function recordApplication(
     missing.applicatorName = ["The record needs the certified applicator's name."];
   if (required.has("applicator_licence") && !input.applicatorLicence)
     missing.applicatorLicence = [
-      "The record needs the applicator's certification (licence) number.",
+      "The record needs the applicator's certification (license) number.",
     ];
   if (required.has("wind_mph") && input.windMph === null)
     missing.windMph = ["The record needs the wind speed at application."];

@@ -8,6 +8,8 @@ export interface Actor {
   companyId: string;
   companyName: string;
   companyTimeZone: string;
+  /** The company's locale (BCP 47, lib/i18n/locales.ts): words, dates and units. */
+  companyLocale: string;
   role: Role;
   email: string;
   name: string;

@@ -111,6 +111,7 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
       "memberships.company_id",
       "companies.name as company_name",
       "companies.time_zone as company_time_zone",
+      "companies.locale as company_locale",
       "memberships.role",
       "auth_sessions.id as session_id",
     ])
@@ -127,6 +128,7 @@ export async function findActorBySession(sessionId: string): Promise<Actor | und
     companyId: row.company_id,
     companyName: row.company_name,
     companyTimeZone: row.company_time_zone,
+    companyLocale: row.company_locale,
     role: row.role,
     sessionId: row.session_id,
   };

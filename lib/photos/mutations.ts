@@ -34,7 +34,7 @@ export async function assertCanAddPhoto(actor: Actor, visitId: string, zoneCheck
     .executeTakeFirst();
   if (!row) throw notFound("That zone check");
   if (row.status === "cancelled")
-    throw new AppError("conflict", "This visit was cancelled; photos can no longer be added.");
+    throw new AppError("conflict", "This visit was canceled; photos can no longer be added.");
   if (row.status === "completed" && actor.role !== "manager")
     throw new AppError(
       "forbidden",

@@ -12,13 +12,13 @@ import type { ProductInput } from "./schemas";
 
 function requireManager(actor: Actor) {
   if (actor.role !== "manager")
-    throw new AppError("forbidden", "Only a manager can change the product catalogue.");
+    throw new AppError("forbidden", "Only a manager can change the product catalog.");
 }
 
 const duplicate = (err: unknown) => (err as { code?: string }).code === "23505";
 const nameTaken = () =>
   new AppError("invalid_input", "Some values need attention.", {
-    name: ["A product with this name is already in the catalogue."],
+    name: ["A product with this name is already in the catalog."],
   });
 
 export async function createProduct(actor: Actor, input: ProductInput): Promise<ProductDto> {

@@ -4,7 +4,12 @@
 // lib/reference/grass-species.ts; these replaced a blanket 2.5 in for cool-season turf that sat
 // above perennial ryegrass's home-lawn range of 1.5–2.5 in); thick thatch is more than 0.5 in;
 // bare ground or weeds count from 10 % of the zone.
-import { CARE_NOTES, type CareNote, type CareTrigger } from "@/lib/reference/care-notes";
+import {
+  CARE_NOTES,
+  careNoteText,
+  type CareNote,
+  type CareTrigger,
+} from "@/lib/reference/care-notes";
 import { alertKindLabel } from "@/lib/risk/labels";
 
 const THICK_THATCH_IN = 0.5;
@@ -85,6 +90,8 @@ export function matchCareNotes(
   openAlertKinds: string[],
   applied: AppliedProduct[],
   symptomName: (key: string) => string = (k) => k,
+  /** The visit's date and weather: a note's advice for the season and weather (careNoteText). */
+  context?: { date: string; weather: { tmaxF: number } | null },
 ): MatchedNote[] {
   const matched: MatchedNote[] = [];
   for (const note of CARE_NOTES) {
@@ -115,7 +122,11 @@ export function matchCareNotes(
           );
       }
     }
-    if (because.size) matched.push({ note, because: [...because] });
+    if (because.size)
+      matched.push({
+        note: context ? { ...note, ...careNoteText(note, context) } : note,
+        because: [...because],
+      });
   }
   return matched;
 }

@@ -204,6 +204,11 @@ export async function getVisitReport(
       alerts.map((a) => a.kind),
       applied,
       symptomName,
+      {
+        date: visit.scheduled_for,
+        weather:
+          weather?.status === "ok" && weather.tmaxF !== undefined ? { tmaxF: weather.tmaxF } : null,
+      },
     ),
   };
 }

@@ -6,6 +6,8 @@ import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
+import { formatDate } from "@/lib/dates";
+import { translator } from "@/lib/i18n/translate";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { RISK_ALERTS_PATH } from "@/lib/paths";
 import { alertKindLabel } from "@/lib/risk/labels";
@@ -36,6 +38,7 @@ export async function queueHighAlertDigests(
         "properties.city",
         "zones.name as zone_name",
         "companies.name as company_name",
+        "companies.locale as company_locale",
       ])
       .where("risk_alerts.severity", "=", "high")
       .where("risk_alerts.status", "!=", "resolved")
@@ -103,23 +106,28 @@ function digestEmail(
     city: string;
     zone_name: string | null;
     company_name: string;
+    company_locale: string;
   }[],
   appUrl: string,
 ) {
+  const locale = alerts[0]!.company_locale;
+  const t = translator(locale, "digest");
   const link = `${appUrl.replace(/\/$/, "")}${RISK_ALERTS_PATH}?severity=high`;
-  const lines = alerts.map(
-    (a) =>
-      `• ${alertKindLabel(a.kind)} — ${a.property_name}, ${a.city}${a.zone_name ? ` (${a.zone_name})` : ""}, raised ${a.raised_on}: ${a.summary}`,
-  );
-  const subject = `${alerts.length} new high-severity ${alerts.length === 1 ? "alert" : "alerts"} in ${alerts[0]!.company_name}'s book`;
-  const text = `${subject}.\n\n${lines.join("\n")}\n\nSee the evidence and act on them: ${link}\n\nSward checks every morning and when a visit is finished.`;
+  const line = (a: (typeof alerts)[number], esc: (s: string) => string) =>
+    t("line", {
+      kind: esc(alertKindLabel(a.kind)),
+      property: esc(a.property_name),
+      city: esc(a.city),
+      zone: a.zone_name ? ` (${esc(a.zone_name)})` : "",
+      date: esc(formatDate(a.raised_on, locale)),
+      summary: esc(a.summary),
+    });
+  const subject = t("subject", { count: alerts.length, company: alerts[0]!.company_name });
+  const text = `${subject}.\n\n${alerts.map((a) => `• ${line(a, (s) => s)}`).join("\n")}\n\n${t("act")}: ${link}\n\n${t("when")}`;
   const html = `<p>${escapeHtml(subject)}.</p><ul>${alerts
-    .map(
-      (a) =>
-        `<li><strong>${escapeHtml(alertKindLabel(a.kind))}</strong> — ${escapeHtml(a.property_name)}, ${escapeHtml(a.city)}${a.zone_name ? ` (${escapeHtml(a.zone_name)})` : ""}, raised ${escapeHtml(a.raised_on)}: ${escapeHtml(a.summary)}</li>`,
-    )
+    .map((a) => `<li>${line(a, escapeHtml)}</li>`)
     .join(
       "",
-    )}</ul><p><a href="${escapeHtml(link)}">See the evidence and act on them</a></p><p>Sward checks every morning and when a visit is finished.</p>`;
+    )}</ul><p><a href="${escapeHtml(link)}">${escapeHtml(t("act"))}</a></p><p>${escapeHtml(t("when"))}</p>`;
   return { subject, text, html };
 }

@@ -1,4 +1,6 @@
 // Names of alert kinds, severities and statuses in words (shared by pages and e-mails).
+import { formatShortDate, isIsoDate } from "@/lib/dates";
+
 import type { AlertKind, Severity } from "./rules";
 
 export const ALERT_KINDS: Record<AlertKind, string> = {
@@ -73,15 +75,27 @@ export const EVIDENCE_LABELS: Record<string, string> = {
   slopePer30Days: "Trend (points per 30 days)",
   ciLowPer30Days: "90 % interval, low end (points per 30 days)",
   ciHighPer30Days: "90 % interval, high end (points per 30 days)",
-  r2: "r²",
+  r2: "Share of the change the trend explains (r², 0–1)",
   n: "Checks",
-  nSinceSep1Lb: "N since 1 September (lb / 1,000 ft²)",
+  nSinceSep1Lb: "N since September 1 (lb / 1,000 ft²)",
   season: "Grass type",
+};
+
+/** Words for coded evidence values (grass type, model names …); anything else as it is. */
+const VALUE_WORDS: Record<string, string> = {
+  cool: "cool-season",
+  warm: "warm-season",
 };
 
 export function evidenceValue(v: unknown): string {
   if (v === null || v === undefined) return "—";
   if (typeof v === "boolean") return v ? "yes" : "no";
-  if (typeof v === "number") return v < 0 ? `−${Math.abs(v)}` : String(v);
+  if (typeof v === "number")
+    return v < 0 ? `−${Math.abs(v).toLocaleString("en-US")}` : v.toLocaleString("en-US");
+  if (Array.isArray(v)) return v.map(evidenceValue).join("; ");
+  if (typeof v === "string") {
+    if (isIsoDate(v)) return formatShortDate(v);
+    return VALUE_WORDS[v] ?? v;
+  }
   return String(v);
 }

@@ -33,6 +33,7 @@
 //   lib/scoring/trend.ts); −6 or worse is high.
 // - Late-season feeding: cool-season turf, from 1 September to the start of the rule set's
 //   blackout (else 30 November), with no N since 1 September — a reminder (low).
+import { formatShortDate } from "@/lib/dates";
 import { mowingReading, ONE_THIRD_RULE } from "@/lib/reference/mowing";
 import { findSymptom } from "@/lib/reference/symptoms";
 
@@ -106,6 +107,8 @@ const SOURCES = {
     "Common practice: a late-season nitrogen feeding for cool-season turf in the fall, before the ground freezes.",
 } as const;
 
+/** A date in evidence and summaries as people read it (US style: "Dec 2, 2026"). */
+const day = (iso: string) => formatShortDate(iso);
 const round = (x: number, d = 2) => Math.round(x * 10 ** d) / 10 ** d;
 const quiet = (kind: AlertKind, source: string, evidence: Evidence, summary = ""): RuleResult => ({
   kind,
@@ -182,7 +185,7 @@ export function mattedCanopy(
       model: "Smith et al. (2018) dollar spot; Fidanza et al. (1996) brown patch (cool-season)",
     },
     threshold: `${SAME_DIRECTION_CHECKS} checks in a row mowed the same way, or matting seen; and dollar spot probability ≥ ${DOLLAR_SPOT_THRESHOLD * 100} % or (cool-season turf) brown patch index ≥ ${BROWN_PATCH_THRESHOLD}`,
-    window: `the last ${SAME_DIRECTION_CHECKS} checks; the 5 days to ${at}`,
+    window: `the last ${SAME_DIRECTION_CHECKS} checks; the 5 days to ${day(at)}`,
   };
   if (!(sameRun || matted) || !(dollarSpotAtAction || brownPatchAtAction))
     return quiet("matted_canopy", SOURCES.matted, evidence);
@@ -202,7 +205,7 @@ export function mattedCanopy(
     severity: disease.length ? "moderate" : "low",
     evidence,
     source: SOURCES.matted,
-    summary: `${sameRun ? `Mowed the same direction at the last ${SAME_DIRECTION_CHECKS} checks` : "Matted, laid-over grass seen"}${disease.length ? ", with disease already showing," : ""} while the disease models read ${weather}${t5 !== null && rh5 !== null ? ` (${round(t5, 1)} °C, ${round(rh5, 0)} % RH over 5 days)` : ""}: a matted canopy holds moisture (common practice). Vary the mowing direction every few mowings where the slope allows.`,
+    summary: `${sameRun ? `Mowed the same direction at the last ${SAME_DIRECTION_CHECKS} checks` : "Matted, laid-over grass seen"}${disease.length ? ", with disease already showing," : ""} while the disease models read ${weather}${t5 !== null && rh5 !== null ? ` (${round((t5 * 9) / 5 + 32, 0)} °F, ${round(rh5, 0)} % humidity over 5 days)` : ""}: a matted canopy holds moisture (common practice). Vary the mowing direction every few mowings where the slope allows.`,
   };
 }
 
@@ -229,8 +232,8 @@ export function dollarSpotWeather(days: RiskDay[], at: string): RuleResult {
       model: "Smith et al. (2018) logistic model",
       builtOn: MODEL_TURF.dollarSpot,
     },
-    threshold: `probability ≥ ${DOLLAR_SPOT_THRESHOLD * 100} % (model defined for 5-day means of 10–35 °C)`,
-    window: `the 5 days to ${at}`,
+    threshold: `probability ≥ ${DOLLAR_SPOT_THRESHOLD * 100} % (model defined for 5-day means of 50–95 °F)`,
+    window: `the 5 days to ${day(at)}`,
   };
   if (p === null || p < DOLLAR_SPOT_THRESHOLD)
     return quiet("dollar_spot_weather", SOURCES.dollarSpot, evidence);
@@ -260,7 +263,7 @@ export function brownPatchWeather(
       builtOn: MODEL_TURF.brownPatch,
     },
     threshold: `index ≥ ${BROWN_PATCH_THRESHOLD}; cool-season zones only`,
-    window: `the 3 days to ${at}`,
+    window: `the 3 days to ${day(at)}`,
   };
   if (!worst || worst.e < BROWN_PATCH_THRESHOLD)
     return quiet("brown_patch_weather", SOURCES.brownPatch, evidence);
@@ -270,7 +273,7 @@ export function brownPatchWeather(
     severity: "moderate",
     evidence,
     source: SOURCES.brownPatch,
-    summary: `Brown patch weather: index ${round(worst.e, 1)} on ${worst.date} (warning at ${BROWN_PATCH_THRESHOLD}): humid nights above about 20 °C. For the cool-season zones (${coolSeasonZones.join(", ")}); the model was built on perennial ryegrass.`,
+    summary: `Brown patch weather: index ${round(worst.e, 1)} on ${day(worst.date)} (warning at ${BROWN_PATCH_THRESHOLD}): humid nights above about 68 °F. For the cool-season zones (${coolSeasonZones.join(", ")}); the model was built on perennial ryegrass.`,
   };
 }
 
@@ -319,7 +322,7 @@ export function pythiumWeather(days: RiskDay[], at: string): RuleResult {
       builtOn: MODEL_TURF.pythium,
     },
     threshold: `high > ${PYTHIUM.tmaxAboveC} °C (86 °F), then ≥ ${PYTHIUM.hoursRhAbove90AtLeast} h of RH > 90 % with the low > ${PYTHIUM.tminAboveC} °C (68 °F), counted hour by hour from noon of the hot day to noon the next`,
-    window: `the nights after the 3 days before ${at}`,
+    window: `the nights after the 3 days before ${day(at)}`,
   };
   if (!hit) return quiet("pythium_weather", SOURCES.pythium, evidence);
   return {
@@ -328,7 +331,7 @@ export function pythiumWeather(days: RiskDay[], at: string): RuleResult {
     severity: "high",
     evidence,
     source: SOURCES.pythium,
-    summary: `Pythium blight weather after ${hit.day.date}: a high of ${round(hit.day.tmaxF, 0)} °F, then ${hit.night!.hoursRhAbove90} hours above 90 % humidity with the night's low at ${round((hit.night!.nightMinC * 9) / 5 + 32, 0)} °F.`,
+    summary: `Pythium blight weather after ${day(hit.day.date)}: a high of ${round(hit.day.tmaxF, 0)} °F, then ${hit.night!.hoursRhAbove90} hours above 90 % humidity with the night's low at ${round((hit.night!.nightMinC * 9) / 5 + 32, 0)} °F.`,
   };
 }
 
@@ -350,7 +353,7 @@ export function droughtStress(
       wiltSeen: wilt,
     },
     threshold: `14-day balance ≤ ${DROUGHT.balance14In} in with < ${DROUGHT.forecastRainIn} in of rain forecast in ${DROUGHT.forecastDays} days, or wilt seen`,
-    window: `the 14 days to ${at} and the next ${DROUGHT.forecastDays}`,
+    window: `the 14 days to ${day(at)} and the next ${DROUGHT.forecastDays}`,
   };
   const dry =
     balance14In !== null &&
@@ -389,7 +392,7 @@ export function heatFeeding(
     return quiet("heat_feeding", SOURCES.heat, {
       values: { season },
       threshold: "cool-season turf only: warm-season grasses are fed in summer heat",
-      window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${at}`,
+      window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${day(at)}`,
     });
   const since = new Date(Date.parse(`${at}T00:00:00Z`) - HEAT_FEEDING.lookbackDays * 86_400_000)
     .toISOString()
@@ -419,17 +422,17 @@ export function heatFeeding(
             season,
           },
           threshold: `cool-season turf; high ≥ ${HEAT_FEEDING.tmaxF} °F on the day or the ${HEAT_FEEDING.daysAfter} days after, with < ${HEAT_FEEDING.rainIn} in of rain`,
-          window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${at}`,
+          window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${day(at)}`,
         },
         source: SOURCES.heat,
-        summary: `${round(a.nLb)} lb N (${a.productName}) went down on ${a.date} with highs of ${round(hot, 0)} °F and no rain, on cool-season grass that slows down in summer heat: watch for burn and stress; water it in.`,
+        summary: `${round(a.nLb)} lb N (${a.productName}) went down on ${day(a.date)} with highs of ${round(hot, 0)} °F and no rain, on cool-season grass that slows down in summer heat: watch for burn and stress; water it in.`,
       };
     }
   }
   return quiet("heat_feeding", SOURCES.heat, {
     values: { season },
     threshold: `cool-season turf; high ≥ ${HEAT_FEEDING.tmaxF} °F with < ${HEAT_FEEDING.rainIn} in of rain`,
-    window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${at}`,
+    window: `applications of the ${HEAT_FEEDING.lookbackDays} days to ${day(at)}`,
   });
 }
 
@@ -490,7 +493,7 @@ export function blackoutApplication(
   );
   const evidence: Evidence = {
     values: { applications: hits.length, dates: hits.map((h) => h.date).join(", ") || null },
-    threshold: "no fertiliser in the rule set's blackout window",
+    threshold: "no fertilizer in the rule set's blackout window",
     window: `applications of ${year}`,
   };
   const source = ruleSetSource ?? "The property's rule set";
@@ -501,7 +504,7 @@ export function blackoutApplication(
     severity: "high",
     evidence,
     source,
-    summary: `Fertiliser applied in the blackout period on ${hits.map((h) => h.date).join(", ")} (recorded with a manager's override).`,
+    summary: `Fertilizer applied in the blackout period on ${hits.map((h) => day(h.date)).join("; ")} (recorded with a manager's override).`,
   };
 }
 
@@ -527,7 +530,7 @@ export function mowingTooShort(
     },
     threshold:
       "cut below the bottom of the species' home-lawn range; more than a third of the blade taken off at this visit's mowing (height before mowing against height of cut: the one-third rule); or scalping seen",
-    window: latest ? `the check of ${latest.date}` : "no check yet",
+    window: latest ? `the check of ${day(latest.date)}` : "no check yet",
   };
   if (!belowRange && !oneThird && !scalped)
     return quiet("mowing_too_short", SOURCES.mowing, evidence);
@@ -557,7 +560,7 @@ export function tornTips(checks: CheckFacts[]): RuleResult {
   const evidence: Evidence = {
     values: { tornTipsSeen: latest?.hasTornTips ?? false },
     threshold: "torn, ragged leaf tips seen",
-    window: latest ? `the check of ${latest.date}` : "no check yet",
+    window: latest ? `the check of ${day(latest.date)}` : "no check yet",
   };
   if (!latest?.hasTornTips) return quiet("torn_tips", SOURCES.tornTips, evidence);
   return {
@@ -589,7 +592,7 @@ export function decliningIndex(
       n: trend?.n ?? 0,
     },
     threshold:
-      "trend word “declining”: n ≥ 5 and a slope ≤ −2 points per 30 days whose 90 % interval is below zero; high at ≤ −6",
+      "trend “declining”: at least 5 checks and a fall of 2 points or more per 30 days whose 90 % interval is below zero; high severity from a fall of 6",
     window: "the 120 days to the latest check",
   };
   if (!trend || trend.word !== "declining")
@@ -600,7 +603,7 @@ export function decliningIndex(
     severity: trend.slopePer30Days <= DECLINE.highSlopePer30Days ? "high" : "moderate",
     evidence,
     source: SOURCES.decline,
-    summary: `The Index is falling ${round(Math.abs(trend.slopePer30Days), 1)} points per 30 days (90 % interval ${round(Math.abs(trend.ciHighPer30Days ?? 0), 1)} to ${round(Math.abs(trend.ciLowPer30Days ?? 0), 1)}; n ${trend.n}).`,
+    summary: `The Index is falling ${round(Math.abs(trend.slopePer30Days), 1)} points per 30 days (90 % interval ${round(Math.abs(trend.ciHighPer30Days ?? 0), 1)} to ${round(Math.abs(trend.ciLowPer30Days ?? 0), 1)}; over ${trend.n} checks).`,
   };
 }
 
@@ -618,8 +621,8 @@ export function lateSeasonFeeding(
   const inWindow = at >= windowStart && at < windowEnd;
   const evidence: Evidence = {
     values: { nSinceSep1Lb: round(fedSince.reduce((s, a) => s + a.nLb, 0)), season },
-    threshold: "cool-season turf with no nitrogen since 1 September",
-    window: `${windowStart} to ${windowEnd}`,
+    threshold: "cool-season turf with no nitrogen since September 1",
+    window: `${day(windowStart)} to ${day(windowEnd)}`,
   };
   if (season !== "cool" || !inWindow || fedSince.length)
     return quiet("late_season_feeding", SOURCES.lateSeason, evidence);
@@ -629,6 +632,6 @@ export function lateSeasonFeeding(
     severity: "low",
     evidence,
     source: SOURCES.lateSeason,
-    summary: `A late-season feeding is due before ${windowEnd}: no nitrogen since 1 September.`,
+    summary: `A late-season feeding is due before ${day(windowEnd)}: no nitrogen since September 1.`,
   };
 }

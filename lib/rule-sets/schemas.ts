@@ -6,7 +6,12 @@ import { RECORD_FIELD_KEYS } from "@/lib/reference/record-fields";
 
 const monthDay = z
   .string()
-  .check(z.regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "Use month-day, e.g. 12-01."));
+  .check(
+    z.regex(
+      /^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/,
+      "Type month and day as two digits each, e.g. 12-01 for December 1.",
+    ),
+  );
 // [no fertilizer after, nor before], as the statutes word it: both named days are allowed.
 const window = z.nullable(
   z.tuple([monthDay, monthDay]).check(z.refine(([a, b]) => a !== b, "The two days must differ.")),

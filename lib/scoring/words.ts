@@ -1,8 +1,9 @@
 // Scoring figures in plain words (pure): the sentences under the charts and in the tables.
 import { formatDate } from "@/lib/dates";
+import { translator } from "@/lib/i18n/translate";
 
 import type { SeasonChange, Trend } from "./history";
-import type { Correlation } from "./trend";
+import type { Correlation, TrendWord } from "./trend";
 import {
   CORRELATION_ALPHA,
   MIN_CHECKS_FOR_TREND_WORD,
@@ -66,4 +67,100 @@ export function patternPhrase(c: Pick<Correlation, "pearson" | "isSignificant">)
   return !c.isSignificant || strength === "no"
     ? "no clear pattern"
     : `${strength} ${c.pearson > 0 ? "positive" : "negative"} pattern`;
+}
+
+/** A change of the Index below this many points reads as "a little" (common practice: about the
+ * spread of two ratings of one lawn by one technician; Sward's own choice, not a published value). */
+export const SMALL_CHANGE_POINTS = 5;
+
+export type LawnTone = "improving" | "steady" | "declining" | "unclear" | "too-few";
+
+/**
+ * The homeowner's headline about their lawn's Index, composed from the trend (the last 120 days)
+ * and the change since the season's first visit, so the two can never contradict each other: a
+ * "steady" lawn that moved many points over the season says it rose (or fell) and has held there;
+ * an improving lawn still below its start says so; a slipping lawn still above its start says so.
+ */
+export function lawnHeadline(
+  input: {
+    word: TrendWord | null;
+    n: number;
+    change: number | null;
+    since: string | null;
+  },
+  locale?: string,
+): { tone: LawnTone; sentences: string[] } {
+  const t = translator(locale, "lawn");
+  const points = input.change === null ? null : Math.round(input.change);
+  const date = input.since ? formatDate(input.since, locale) : "";
+  const size =
+    points === null || !input.since
+      ? "none"
+      : points === 0
+        ? "same"
+        : Math.abs(points) < SMALL_CHANGE_POINTS
+          ? points > 0
+            ? "small-up"
+            : "small-down"
+          : points > 0
+            ? "up"
+            : "down";
+  const abs = Math.abs(points ?? 0);
+  const plainChange = () =>
+    size === "up"
+      ? t("up", { points: abs, date })
+      : size === "down"
+        ? t("down", { points: abs, date })
+        : size === "small-up"
+          ? t("upSmall", { points: abs, date })
+          : size === "small-down"
+            ? t("downSmall", { points: abs, date })
+            : size === "same"
+              ? t("same", { date })
+              : null;
+  const basedOn = t("basedOn", { count: input.n });
+  const out = (tone: LawnTone, ...sentences: (string | null)[]) => ({
+    tone,
+    sentences: sentences.filter((s): s is string => Boolean(s)),
+  });
+  switch (input.word) {
+    case "improving":
+      return size === "down" || size === "small-down"
+        ? out("improving", t("improving"), t("recoveringBelow", { points: abs, date }), basedOn)
+        : size === "same"
+          ? out("improving", t("improving"), t("backToStart", { date }), basedOn)
+          : out("improving", t("improving"), plainChange(), basedOn);
+    case "declining":
+      return size === "up" || size === "small-up"
+        ? out(
+            "declining",
+            t("declining"),
+            t("slippingAbove", { points: abs, date }),
+            t("decliningNext"),
+            basedOn,
+          )
+        : size === "same"
+          ? out(
+              "declining",
+              t("declining"),
+              t("backToStart", { date }),
+              t("decliningNext"),
+              basedOn,
+            )
+          : out("declining", t("declining"), plainChange(), t("decliningNext"), basedOn);
+    case "steady":
+      return size === "up"
+        ? out("steady", t("heldAfterRise", { points: abs, date }), basedOn)
+        : size === "down"
+          ? out("steady", t("heldAfterFall", { points: abs, date }), basedOn)
+          : out("steady", t("steady"), plainChange(), basedOn);
+    default:
+      return input.n < MIN_CHECKS_FOR_TREND_WORD
+        ? out(
+            "too-few",
+            t("noTrendYet", { needed: String(MIN_CHECKS_FOR_TREND_WORD), count: input.n }),
+            plainChange(),
+          )
+        : out("unclear", t("noClearTrend"), plainChange(), basedOn);
+  }
 }

@@ -25,7 +25,7 @@ export async function lockVisit(trx: Transaction<Database>, actor: Actor, visitI
 /** Cancelled visits never change; finished ones only by a manager (audited). */
 export function assertEditable(actor: Actor, visit: { status: string }) {
   if (visit.status === "cancelled")
-    throw new AppError("conflict", "This visit was cancelled; it can no longer be changed.");
+    throw new AppError("conflict", "This visit was canceled; it can no longer be changed.");
   if (visit.status === "completed" && actor.role !== "manager")
     throw new AppError(
       "forbidden",

@@ -416,7 +416,7 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
       const visit = await lockVisit(trx, actor, visitId);
       if (visit.status === "cancelled") return;
       if (visit.status === "completed")
-        throw new AppError("conflict", "A finished visit cannot be cancelled.");
+        throw new AppError("conflict", "A finished visit cannot be canceled.");
       await trx
         .updateTable("visits")
         .set({

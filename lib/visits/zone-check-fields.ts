@@ -19,7 +19,7 @@ const percentBy5 = z.nullable(
   ),
 );
 const observedSymptomSchema = z.strictObject({
-  key: z.enum(symptomKeys, "Pick a symptom from the catalogue."),
+  key: z.enum(symptomKeys, "Pick a symptom from the list."),
   severity: z.union([z.literal(1), z.literal(2), z.literal(3)], "Severity is 1, 2 or 3."),
   extentPct: z.int().check(
     z.gte(0),

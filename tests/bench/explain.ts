@@ -18,6 +18,7 @@ const manager = await db
     "memberships.company_id",
     "companies.name as company_name",
     "companies.time_zone",
+    "companies.locale",
   ])
   .where("users.email", "=", process.argv[2]!)
   .executeTakeFirstOrThrow();
@@ -26,6 +27,7 @@ const actor: Actor = {
   companyId: manager.company_id,
   companyName: manager.company_name,
   companyTimeZone: manager.time_zone,
+  companyLocale: manager.locale,
   role: "manager",
   email: manager.email,
   name: manager.name,

@@ -150,7 +150,7 @@ export async function seedBench(options: {
       .selectFrom("rule_sets")
       .select("id")
       .where("company_id", "=", companyId)
-      .where("name", "=", "New Jersey turf fertiliser law")
+      .where("name", "=", "New Jersey turf fertilizer law")
       .executeTakeFirstOrThrow();
     const products = new Map(
       (

@@ -200,6 +200,27 @@ const CELLS: Cell[] = [
     leak: (t) => [t.ruleSetId],
   },
   {
+    key: "PAGE /settings",
+    path: () => "/settings",
+    // Each manager sees their own company's settings (locale, time zone); nothing of a property.
+    allow: ["manager", "otherManager"],
+    marker: () => "Language and region",
+  },
+  {
+    key: "GET /api/v1/company-settings",
+    path: () => "/api/v1/company-settings",
+    allow: ["manager", "otherManager"],
+    marker: () => "en-US",
+  },
+  {
+    key: "PUT /api/v1/company-settings",
+    path: () => "/api/v1/company-settings",
+    method: "PUT",
+    body: () => ({ locale: "en-US", timeZone: "America/New_York" }),
+    allow: ["manager", "otherManager"],
+    mustSucceed: true,
+  },
+  {
     key: "PAGE /today",
     path: () => "/today",
     allow: ["assignedTech"],

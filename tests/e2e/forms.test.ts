@@ -92,7 +92,9 @@ describe("forms", () => {
       await form.getByLabel("Professionals: no fertilizer after").fill("13-01");
       await form.getByLabel("Professionals: nor before").fill("03-01");
       await form.getByRole("button", { name: "Add rule set" }).click();
-      await form.getByText("Use month-day, e.g. 12-01.").waitFor();
+      await form
+        .getByText("Type month and day as two digits each, e.g. 12-01 for December 1.")
+        .waitFor();
       await form.getByText("Enter a number.").waitFor();
       expect(await form.textContent()).not.toMatch(RAW);
 

@@ -104,7 +104,7 @@ describe("Index charts", () => {
       expect(
         await page
           .getByText(
-            /Your lawn (is getting healthier|is holding steady|has slipped lately)\..*Based on \d+ visits|No clear direction over the last \d+ visits/,
+            /(Your lawn (is getting healthier|is holding steady|has slipped lately|is \d+ points? (healthier|lower) than on)|moved up and down without a clear direction|A direction shows after).*(Based on \d+ visits|since|so far)/,
           )
           .count(),
       ).toBe(1);

@@ -19,6 +19,7 @@ import { resolveAlert } from "@/lib/risk-alerts/mutations";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { scheduleVisit } from "@/lib/visits/mutations";
 
+import { BOOK_KEYS } from "../helpers/csv-columns";
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 
 let current: Actor | null = null;
@@ -229,13 +230,13 @@ describe("the book", () => {
       expect(res.headers.get("content-type")).toContain("text/csv");
       const bytes = new Uint8Array(await res.arrayBuffer());
       expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]); // UTF-8 byte-order mark
-      const records = parse(new TextDecoder().decode(bytes), { columns: true }) as {
+      const records = parse(new TextDecoder().decode(bytes), { columns: BOOK_KEYS }) as {
         property: string;
         last_visit: string;
       }[];
       expect(records.map((r) => r.property)).toEqual(table);
       for (const r of records)
-        if (r.last_visit) expect(r.last_visit).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+        if (r.last_visit) expect(r.last_visit).toMatch(/^\d{2}\/\d{2}\/\d{4}$/); // US dates
     }
   });
 
@@ -265,7 +266,7 @@ describe("the book", () => {
     const text = await (
       await route.GET(new Request("http://localhost/api/v1/book/export?q=HYPERLINK"))
     ).text();
-    const [row] = parse(text, { columns: true }) as {
+    const [row] = parse(text, { columns: BOOK_KEYS }) as {
       property: string;
       street: string;
       city: string;

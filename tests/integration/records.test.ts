@@ -8,6 +8,7 @@ import { recordApplication } from "@/lib/applications/mutations";
 import type { Actor } from "@/lib/auth/actor";
 import { listProducts } from "@/lib/products/queries";
 
+import { RECORD_KEYS } from "../helpers/csv-columns";
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
 import { newId } from "../helpers/zone-checks";
 
@@ -91,19 +92,19 @@ describe("GET /api/v1/records/applications", () => {
     );
     const bytes = new Uint8Array(await res.arrayBuffer());
     expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
-    const rows = parse(new TextDecoder().decode(bytes), { columns: true }) as Record<
+    const rows = parse(new TextDecoder().decode(bytes), { columns: RECORD_KEYS }) as Record<
       string,
       string
     >[];
     expect(rows).toHaveLength(2);
     expect(rows[0]).toMatchObject({
-      applied_on: "2026-05-12",
-      applied_at_local: "2026-05-12 09:15",
+      applied_on: "05/12/2026",
+      applied_at_local: "05/12/2026, 9:15 AM",
       zone: "Front lawn",
       area_ft2: "2400",
       n_lb_per_1000ft2: "0.72",
       wind_mph: "3",
-      keep_until: "2028-05-12",
+      keep_until: "05/12/2028",
     });
     expect(rows[1]!.applicator).toBe('\'=HYPERLINK("x")');
     expect(rows[1]!.applicator_license).toBe("NJ-DEMO-1");
@@ -133,7 +134,10 @@ describe("GET /api/v1/records/applications", () => {
     });
     current = manager;
     const text = await (await get("from=2026-05-12&to=2026-05-12")).text();
-    const rows = parse(text.replace(/^\uFEFF/, ""), { columns: true }) as Record<string, string>[];
+    const rows = parse(text.replace(/^\uFEFF/, ""), { columns: RECORD_KEYS }) as Record<
+      string,
+      string
+    >[];
     const row = rows.find((r) => r.product === quick.name)!;
     expect(row).toMatchObject({
       override_reason: "University trial strip, plot 4",
@@ -156,7 +160,7 @@ describe("one row per application", () => {
     current = await c.actor("manager");
     const propertyId = c.propertyIds["oyelaran"]!;
     const before = await get("from=2026-05-01&to=2026-05-31");
-    const baseline = parse(await before.text(), { columns: true, bom: true }) as Record<
+    const baseline = parse(await before.text(), { columns: RECORD_KEYS, bom: true }) as Record<
       string,
       string
     >[];
@@ -184,7 +188,10 @@ describe("one row per application", () => {
     );
     const res = await get("from=2026-05-01&to=2026-05-31");
     expect(res.status).toBe(200);
-    const rows = parse(await res.text(), { columns: true, bom: true }) as Record<string, string>[];
+    const rows = parse(await res.text(), { columns: RECORD_KEYS, bom: true }) as Record<
+      string,
+      string
+    >[];
     const expected = await testDb()
       .selectFrom("applications")
       .select((eb) => [

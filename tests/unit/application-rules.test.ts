@@ -29,7 +29,7 @@ import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
 import { ruleSetSchema } from "@/lib/rule-sets/schemas";
 
 const byName = (name: string): RuleSetLimits => SHIPPED_RULE_SETS.find((x) => x.name === name)!;
-const NJ = byName("New Jersey turf fertiliser law");
+const NJ = byName("New Jersey turf fertilizer law");
 const MN = byName("Minnesota phosphorus law");
 const DEFAULT = byName("Company default");
 

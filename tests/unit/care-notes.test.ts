@@ -1,8 +1,12 @@
 // Care notes match what was observed and applied, say why, and carry their safety cautions.
 import { describe, expect, it } from "vitest";
 
-import { CARE_NOTES } from "@/lib/reference/care-notes";
+import { CARE_NOTES, careNoteText, yearSeason } from "@/lib/reference/care-notes";
+import { symptomKeys } from "@/lib/reference/symptoms";
 import { matchCareNotes, type ObservedZone } from "@/lib/reports/care-notes";
+import { ALERT_KINDS } from "@/lib/risk/labels";
+
+import { scanWords } from "../helpers/house-words";
 
 const zone = (o: Partial<ObservedZone> = {}): ObservedZone => ({
   zoneName: "Front lawn",
@@ -91,5 +95,85 @@ describe("care notes", () => {
   it("every note has a title, a body and at least one trigger; keys are unique", () => {
     expect(new Set(CARE_NOTES.map((n) => n.key)).size).toBe(CARE_NOTES.length);
     for (const n of CARE_NOTES) expect(n.title && n.body && n.triggers.length).toBeTruthy();
+  });
+  it("every finding, every symptom of the catalogue and every alert kind has a care note", () => {
+    const findings = [
+      "same_direction",
+      "matted",
+      "torn_tips",
+      "scalped",
+      "short_cut",
+      "clumped_clippings",
+      "thick_thatch",
+      "dry_soil",
+      "wet_soil",
+      "bare_ground",
+      "weeds",
+    ];
+    const triggered = (pred: (t: (typeof CARE_NOTES)[number]["triggers"][number]) => boolean) =>
+      CARE_NOTES.some((n) => n.triggers.some(pred));
+    const missing = [
+      ...findings.filter((f) => !triggered((t) => t.kind === "finding" && t.finding === f)),
+      ...symptomKeys.filter(
+        (k) => !triggered((t) => t.kind === "symptom" && t.symptoms.includes(k)),
+      ),
+      ...Object.keys(ALERT_KINDS).filter(
+        (k) => !triggered((t) => t.kind === "alert" && t.alert === k),
+      ),
+    ];
+    expect(missing).toEqual([]);
+  });
+  it("dog urine spots bring their own note", () => {
+    const m = matchCareNotes(
+      [zone({ symptomKeys: ["dog_spots"] })],
+      [],
+      [],
+      () => "Dog urine spots",
+    );
+    expect(keys(m)).toEqual(["dog_spots"]);
+    expect(m[0]!.because).toEqual(["Front lawn: dog urine spots"]);
+    expect(m[0]!.note.body).toMatch(/Soak the spot/);
+  });
+  it("every note states its source, and reads in US English without internals", () => {
+    for (const n of CARE_NOTES) {
+      expect(n.source, n.key).toMatch(/\w{5,}/);
+      const text = [
+        n.title,
+        n.body,
+        n.source,
+        ...(n.cautions ?? []),
+        ...(n.variants ?? []).map((v) => v.body),
+      ].join(" ");
+      expect(scanWords(n.key, text, { homeowner: true }), n.key).toEqual([]);
+    }
+  });
+  // Meteorological seasons (Dec–Feb winter …); warm from a high of 75 °F, cold below 50 °F.
+  it("the advice follows the visit's season and weather: no warm, humid weather in December", () => {
+    expect(["2026-12-02", "2026-03-01", "2026-07-15", "2026-11-30"].map(yearSeason)).toEqual([
+      "winter",
+      "spring",
+      "summer",
+      "fall",
+    ]);
+    const december = { date: "2026-12-02", weather: { tmaxF: 41 } };
+    for (const n of CARE_NOTES) {
+      const { body } = careNoteText(n, december);
+      expect(body, n.key).not.toMatch(/warm|humid|summer heat|In summer/i);
+    }
+    const matted = CARE_NOTES.find((n) => n.key === "vary_mowing_direction")!;
+    expect(careNoteText(matted, { date: "2026-07-15", weather: { tmaxF: 88 } }).body).toMatch(
+      /warm, humid weather/,
+    );
+    expect(careNoteText(matted, december).body).toMatch(/when you start mowing again in spring/);
+    // A mild fall day, or no weather known: the advice that holds in any season.
+    expect(careNoteText(matted, { date: "2026-10-10", weather: { tmaxF: 62 } }).body).toBe(
+      matted.body,
+    );
+    expect(careNoteText(matted, { date: "2026-07-15", weather: null }).body).toBe(matted.body);
+    // The report picks the December text for a matted lawn seen on 2 December.
+    const m = matchCareNotes([zone({ isMatted: true })], [], [], undefined, december);
+    expect(m[0]!.note.body).toMatch(/when you start mowing again in spring/);
+    const water = CARE_NOTES.find((n) => n.key === "water_deeply")!;
+    expect(careNoteText(water, december).body).not.toMatch(/an inch of water a week/);
   });
 });

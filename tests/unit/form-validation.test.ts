@@ -80,10 +80,16 @@ describe("forms validate with their shared schema, in plain words", () => {
       recordRequiredFields: [],
       recordFieldsApplyTo: "all",
     });
-    expect(messages.minSlowReleasePct).toBe("Enter a number.");
-    expect(messages.soilTestMaxAgeYears).toBe("Use a whole number.");
+    expect(messages.minSlowReleasePct).toBe(
+      "Enter the smallest slow-release N share as a number, in %.",
+    );
+    expect(messages.soilTestMaxAgeYears).toBe(
+      "Use a whole number for the soil test's greatest age, in years.",
+    );
     expect(messages.phosphorusRule).toBe("Choose one of the options.");
-    expect(messages["proBlackout.0"]).toBe("Use month-day, e.g. 12-01.");
+    expect(messages["proBlackout.0"]).toBe(
+      "Type month and day as two digits each, e.g. 12-01 for December 1.",
+    );
     expect(Object.keys(messages)).toHaveLength(4);
     for (const m of Object.values(messages)) expect(m).not.toMatch(RAW);
   });
@@ -191,5 +197,29 @@ describe("forms validate with their shared schema, in plain words", () => {
       notes: "",
     });
     expect(messages).toEqual({ depthIn: "Enter the depth as a number." });
+  });
+  it("a refusal names the field, what is expected and the unit (stop −3, depth 'abc' or '1,5')", async () => {
+    const schedule = await validate(formResolver(scheduleVisitSchema), {
+      propertyId: "5b0c0a52-6a0e-4a8e-9d3c-0c3f7f4a1b11",
+      technicianId: null,
+      scheduledFor: "2026-12-10",
+      plannedService: null,
+      stopOrder: -3,
+      notes: "",
+    });
+    expect(schedule.messages.stopOrder).toBe("The stop number must be 0 or more.");
+    for (const typed of ["abc", "1,5"]) {
+      const watering = await validate(formResolver(wateringSchema), {
+        id: "5b0c0a52-6a0e-4a8e-9d3c-0c3f7f4a1b12",
+        zoneId: null,
+        wateredOn: "2026-11-20",
+        depthIn: numberOrNull(typed),
+        runMinutes: null,
+        precipitationRateInPerHour: null,
+        notes: "",
+      });
+      expect(watering.messages.depthIn).toBe("Enter the depth as a number.");
+      expect(JSON.stringify(watering.messages)).not.toMatch(RAW);
+    }
   });
 });

@@ -14,6 +14,7 @@ const manager: Actor = {
   companyId: "c1",
   companyName: "Co",
   companyTimeZone: "America/New_York",
+  companyLocale: "en-US",
   role: "manager",
   email: "m@x.test",
   name: "M",

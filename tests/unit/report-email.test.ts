@@ -67,7 +67,7 @@ describe("report e-mail", () => {
   it("has the summary, keep-off guidance, care notes, photo links and one button to the report", () => {
     const m = reportEmail(report, "http://localhost:3000/", "Samir Haddad");
     expect(m.subject).toBe(
-      "Your lawn visit report — <script>alert(1)</script> residence, Tue, 20 Oct 2026",
+      "Your lawn visit report — <script>alert(1)</script> residence, Tue, Oct 20, 2026",
     );
     expect(m.text).toMatch(/Your lawn's Sward Index: 78 out of 100/);
     expect(m.text).toMatch(/Safety: Keep off until watered in and the turf has dried\./);

@@ -41,7 +41,7 @@ export default async function MyLawnPage() {
         properties.map((property) => (
           <section key={property.id} className="mb-10" aria-label={property.name}>
             <PropertyHeader property={property} as="h2" />
-            <LawnIndex history={property.scores} />
+            <LawnIndex history={property.scores} locale={actor.companyLocale} />
             <h3 className="mb-2 text-xl font-bold">Visit reports</h3>
             {property.reports.length ? (
               <ul className="mb-6 space-y-2" aria-label="Visit reports">

@@ -7,9 +7,10 @@ import { sql } from "kysely";
 
 import { db } from "@/db";
 import type { Actor } from "@/lib/auth/actor";
+import { formatNumericDate, formatNumericDateTime } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 
-import { OVERRIDE_CATEGORY_LABEL } from "../units";
+import { OVERRIDE_CATEGORY_LABEL, RATE_UNIT_LABEL } from "../units";
 
 export const RECORD_COLUMNS = [
   "applied_on",
@@ -120,12 +121,8 @@ export async function* listApplicationRecords(
       const at = new Date(r.applied_at);
       const keepYears = r.record_retention_years ?? 2;
       yield [
-        r.applied_on,
-        new Intl.DateTimeFormat("sv-SE", {
-          timeZone: r.time_zone,
-          dateStyle: "short",
-          timeStyle: "short",
-        }).format(at),
+        formatNumericDate(r.applied_on, actor.companyLocale),
+        formatNumericDateTime(at, r.time_zone, actor.companyLocale),
         r.owner_names ? `${r.owner_names} (${r.property_name})` : r.property_name,
         `${r.street}, ${r.city}, ${r.region} ${r.postal_code}`,
         r.zone_name,
@@ -133,7 +130,7 @@ export async function* listApplicationRecords(
         r.product_name,
         r.registration_number || null,
         Number(r.rate_amount),
-        r.rate_unit,
+        RATE_UNIT_LABEL[r.rate_unit as keyof typeof RATE_UNIT_LABEL] ?? r.rate_unit,
         Number(r.product_total_lb),
         r.product_total_gal === null ? null : Number(r.product_total_gal),
         Number(r.n_lb_per_1000),
@@ -154,7 +151,10 @@ export async function* listApplicationRecords(
           .join(" | ") || null,
         r.override_reason,
         r.override_category ? OVERRIDE_CATEGORY_LABEL[r.override_category] : null,
-        `${Number(r.applied_on.slice(0, 4)) + keepYears}${r.applied_on.slice(4)}`,
+        formatNumericDate(
+          `${Number(r.applied_on.slice(0, 4)) + keepYears}${r.applied_on.slice(4)}`,
+          actor.companyLocale,
+        ),
       ];
     }
     const lastRow = rows[rows.length - 1]!;

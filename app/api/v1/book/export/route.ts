@@ -1,9 +1,12 @@
 // GET /api/v1/book/export?… — the book's current filtered view (same query as the page) as CSV
-// (UTF-8 with BOM, ISO dates, formula-like cells neutralised), streamed (manager).
+// (UTF-8 with BOM, headers in words and dates in the company's locale, formula-like cells
+// neutralised), streamed (manager).
 import { route } from "@/lib/auth/guards";
 import { listBookRows } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
+import { formatNumericDate } from "@/lib/dates";
 import { csvResponse } from "@/lib/http/csv";
+import { translator } from "@/lib/i18n/translate";
 import { alertKindLabel } from "@/lib/risk/labels";
 
 const COLUMNS = [
@@ -27,6 +30,9 @@ const COLUMNS = [
 ] as const;
 
 export const GET = route({ access: ["manager"], query: bookQuery }, async ({ actor, query }) => {
+  const t = translator(actor.companyLocale, "csv");
+  const trendT = translator(actor.companyLocale, "trend");
+  const date = (iso: string | null) => (iso ? formatNumericDate(iso, actor.companyLocale) : "");
   async function* rows() {
     for await (const r of listBookRows(actor, { ...query, after: undefined })) {
       yield [
@@ -34,11 +40,11 @@ export const GET = route({ access: ["manager"], query: bookQuery }, async ({ act
         r.street,
         r.city,
         r.technician?.name ?? "",
-        r.lastVisitOn ?? "",
-        r.nextVisitOn ?? "",
-        r.isOverdue ? "yes" : "no",
+        date(r.lastVisitOn),
+        date(r.nextVisitOn),
+        r.isOverdue ? t("yes") : t("no"),
         r.latestIndex === null ? "" : Math.round(r.latestIndex * 10) / 10,
-        r.trendWord ?? "",
+        r.trendWord ? trendT(r.trendWord) : "",
         r.trendSlope === null ? "" : Math.round(r.trendSlope * 10) / 10,
         r.alerts.high,
         r.alerts.moderate,
@@ -50,5 +56,9 @@ export const GET = route({ access: ["manager"], query: bookQuery }, async ({ act
       ];
     }
   }
-  return csvResponse(COLUMNS, rows(), `book-${new Date().toISOString().slice(0, 10)}.csv`);
+  return csvResponse(
+    COLUMNS.map((c) => t(`book.${c}`)),
+    rows(),
+    `book-${new Date().toISOString().slice(0, 10)}.csv`,
+  );
 });

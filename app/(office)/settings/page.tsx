@@ -1,0 +1,29 @@
+import type { Metadata } from "next";
+import { getTranslations } from "next-intl/server";
+
+import { CompanySettingsForm } from "@/components/settings/company-settings-form";
+import { requireActor } from "@/lib/auth/require";
+import { getCompanySettings } from "@/lib/company-settings/queries";
+import { LOCALES } from "@/lib/i18n/locales";
+import { timeZoneChoices } from "@/lib/time-zones";
+
+export const metadata: Metadata = { title: "Company settings" };
+
+export default async function SettingsPage() {
+  const actor = await requireActor(["manager"]);
+  const settings = await getCompanySettings(actor);
+  const t = await getTranslations("settings");
+  return (
+    <>
+      <h1 className="text-3xl font-bold">{t("title")}</h1>
+      <p className="mt-1 mb-6 max-w-prose text-muted">
+        {t("intro", { company: settings.companyName })}
+      </p>
+      <CompanySettingsForm
+        settings={settings}
+        locales={LOCALES.map((l) => ({ tag: l.tag, label: l.label }))}
+        timeZones={timeZoneChoices()}
+      />
+    </>
+  );
+}

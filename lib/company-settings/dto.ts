@@ -1,0 +1,5 @@
+export interface CompanySettingsDto {
+  companyName: string;
+  locale: string;
+  timeZone: string;
+}

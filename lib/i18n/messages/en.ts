@@ -1,0 +1,115 @@
+// The catalogue of Sward's words in US English (ICU message syntax, read by next-intl on pages and
+// by use-intl's translator in e-mails, CSV exports and pure code): screens, e-mails, CSV headers and
+// printed reports take their words from here, so they read the same. Spelling: US English
+// (Merriam-Webster); tests/unit/plain-words.test.ts scans every message.
+export const en = {
+  settings: {
+    title: "Company settings",
+    intro:
+      "How {company}'s screens, e-mails and exports read: the language and region set the words, the date style and the units.",
+    locale: "Language and region",
+    localeHint: "Dates, times and numbers follow the region's usual style.",
+    timeZone: "Time zone",
+    timeZoneHint: "Today's stops, the morning checks and the visit dates follow this time zone.",
+    preview: "How it reads",
+    previewDate: "A date",
+    previewDateTime: "A date and time",
+    previewNumber: "A number",
+    previewUnits: "Units",
+    units: "lb N/1,000 ft², inches, °F, gallons",
+    save: "Save settings",
+    saving: "Saving…",
+    saved: "Saved. Screens, e-mails and exports now read this way.",
+  },
+  lawn: {
+    improving: "Your lawn is getting healthier.",
+    steady: "Your lawn is holding steady.",
+    declining: "Your lawn has slipped lately.",
+    decliningNext: "Your technician looks for the cause at each visit.",
+    noTrendYet:
+      "A direction shows after {needed} visits within 120 days ({count, plural, =0 {none} other {# so far}}).",
+    noClearTrend: "Lately your lawn's score has moved up and down without a clear direction.",
+    basedOn: "Based on {count, plural, one {# visit} other {# visits}} in the last 120 days.",
+    up: "Up {points, plural, one {# point} other {# points}} since {date}.",
+    down: "Down {points, plural, one {# point} other {# points}} since {date}.",
+    same: "The same score as on {date}.",
+    upSmall: "A little higher than on {date} ({points, plural, one {# point} other {# points}}).",
+    downSmall: "A little lower than on {date} ({points, plural, one {# point} other {# points}}).",
+    heldAfterRise:
+      "Your lawn is {points, plural, one {# point} other {# points}} healthier than on {date} and has held there lately.",
+    heldAfterFall:
+      "Your lawn is {points, plural, one {# point} other {# points}} lower than on {date} and has held there lately.",
+    recoveringBelow:
+      "It is still {points, plural, one {# point} other {# points}} below where it was on {date}.",
+    slippingAbove:
+      "It is still {points, plural, one {# point} other {# points}} above where it was on {date}.",
+    backToStart: "It is back to the score it had on {date}.",
+  },
+  trend: {
+    improving: "Improving",
+    steady: "Steady",
+    declining: "Declining",
+    noTrendYet: "No trend yet",
+    noClearTrend: "No clear trend",
+    checks: "{count, plural, one {# check} other {# checks}}",
+  },
+  csv: {
+    records: {
+      applied_on: "Applied on",
+      applied_at_local: "Applied at (local time)",
+      customer: "Customer",
+      address: "Address",
+      zone: "Zone",
+      area_ft2: "Zone area (ft²)",
+      product: "Product",
+      registration_number: "EPA registration number",
+      rate: "Rate",
+      rate_unit: "Rate unit",
+      total_product_lb: "Product used (lb)",
+      total_product_gal: "Product used (gal)",
+      n_lb_per_1000ft2: "N (lb/1,000 ft²)",
+      wsn_lb_per_1000ft2: "Water-soluble N (lb/1,000 ft²)",
+      p2o5_lb_per_1000ft2: "P₂O₅ (lb/1,000 ft²)",
+      k2o_lb_per_1000ft2: "K₂O (lb/1,000 ft²)",
+      applicator: "Applicator",
+      applicator_license: "Applicator's certification (license) number",
+      wind_mph: "Wind (mph)",
+      temperature_f: "Temperature (°F)",
+      rule_set: "Fertilizer rule set",
+      findings: "Checks at recording",
+      override_reason: "Reason for the override",
+      override_category: "Kind of override",
+      keep_until: "Keep this record until",
+    },
+    book: {
+      property: "Property",
+      street: "Street",
+      city: "City",
+      technician: "Technician",
+      last_visit: "Last visit",
+      next_visit: "Next visit",
+      overdue: "Overdue",
+      property_index: "Sward Index",
+      trend: "Trend",
+      slope_per_30_days: "Trend (points per 30 days)",
+      alerts_high: "High alerts",
+      alerts_moderate: "Moderate alerts",
+      alerts_low: "Low alerts",
+      alert_kinds: "Alert kinds",
+      n_ytd_lb_per_1000: "N this year (lb/1,000 ft²)",
+      n_top_of_range_lb: "Top of the species' N range (lb/1,000 ft² a year)",
+      needs_attention: "Needs attention",
+    },
+    yes: "yes",
+    no: "no",
+  },
+  digest: {
+    subject:
+      "{count, plural, one {# new high-severity alert} other {# new high-severity alerts}} in {company}'s book",
+    line: "{kind} — {property}, {city}{zone}, raised {date}: {summary}",
+    act: "See the evidence and act on them",
+    when: "Sward checks every morning and when a visit is finished.",
+  },
+} as const;
+
+export type Messages = typeof en;
