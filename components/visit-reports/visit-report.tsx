@@ -4,7 +4,7 @@ import { ShieldAlert } from "lucide-react";
 
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { formatDate } from "@/lib/dates";
-import { PHOTO_FIGURES_EXPLAINED } from "@/lib/photos/words";
+import { PHOTO_COVER_EXPLAINED } from "@/lib/photos/words";
 import type { VisitReport } from "@/lib/reports/dto";
 
 import { PrintButton } from "./print-button";
@@ -72,7 +72,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
           ))}
         </div>
         {report.zones.some((z) => z.photos.length) ? (
-          <p className="mt-3 text-sm text-muted">{PHOTO_FIGURES_EXPLAINED}</p>
+          <p className="mt-3 text-sm text-muted">{PHOTO_COVER_EXPLAINED}</p>
         ) : null}
       </section>
 

@@ -6,6 +6,10 @@ import { LIGHTING, type Lighting } from "@/lib/photo-analysis/color";
 export const PHOTO_FIGURES_EXPLAINED =
   "Green canopy cover is the share of the photo where green leaves show (the pixel rule of Patrignani & Ochsner, 2015). DGCI rates how dark green those leaves are, from 0 (yellow) to 1 (very dark green; Karcher & Richardson, 2003). Yellowing grass counts as canopy while it still has a green tinge and lowers the DGCI; grass yellowed further, straw and dead grass count as uncovered.";
 
+/** The same for a homeowner: the green cover only, without the imaging index. */
+export const PHOTO_COVER_EXPLAINED =
+  "Green cover is the share of the photo where green leaves show, measured from the photo itself (the method of Patrignani & Ochsner, 2015). Yellowed grass, straw and dead grass count as uncovered.";
+
 /** The lighting caution of a photo, or null when its light let it be measured. */
 export function lightingCaution(photo: {
   lighting: Lighting;

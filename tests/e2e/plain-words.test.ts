@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { DESKTOP, launchBrowser } from "../helpers/browser";
 import { mintSessionCookie, SESSION_COOKIE, useE2eDatabase } from "../helpers/e2e-db";
 import { scanWords, type WordFinding } from "../helpers/house-words";
+import { doneCheck } from "../helpers/zone-checks";
 
 const BASE = inject("baseUrl");
 type Who = "manager" | "tech" | "owner1" | "owner2" | "owner3" | "otherManager" | "anonymous";
@@ -175,6 +176,39 @@ describe("plain words", () => {
     await page.getByRole("button", { name: /sign-in link/i }).click();
     await page.waitForLoadState("networkidle");
     await context.close();
+    // The visit report e-mail: tech1 checks every zone of a scheduled stop and finishes it.
+    const stop = await db
+      .selectFrom("visits")
+      .innerJoin("property_homeowners", "property_homeowners.property_id", "visits.property_id")
+      .innerJoin("users", "users.id", "visits.technician_id")
+      .select(["visits.id", "visits.property_id"])
+      .where("visits.status", "=", "scheduled")
+      .where("users.email", "=", "tech1@demo.sward.test")
+      .orderBy("visits.scheduled_for")
+      .executeTakeFirstOrThrow();
+    const stopZones = await db
+      .selectFrom("zones")
+      .select("id")
+      .where("property_id", "=", stop.property_id)
+      .where("archived_at", "is", null)
+      .execute();
+    const api = (method: string, path: string, body: unknown) =>
+      fetch(`${BASE}${path}`, {
+        method,
+        headers: { cookie: cookies.tech, origin: BASE, "content-type": "application/json" },
+        body: JSON.stringify(body),
+      });
+    for (const z of stopZones)
+      expect(
+        (
+          await api(
+            "PUT",
+            `/api/v1/visits/${stop.id}/zone-checks/${crypto.randomUUID()}`,
+            doneCheck(z.id),
+          )
+        ).status,
+      ).toBe(200);
+    expect((await api("POST", `/api/v1/visits/${stop.id}/finish`, {})).status).toBe(200);
     // The managers' digest of high alerts, as the morning job writes it.
     await db
       .updateTable("risk_alerts")

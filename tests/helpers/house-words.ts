@@ -22,7 +22,7 @@ const BRITISH_SPELLINGS: readonly (readonly [RegExp, string])[] = [
     /\b(behaviour|neighbour|favour|honour|labour|harbour|odour|vapour|savour|flavour)(s|ed|ing|hood|able|ite)?\b/i,
     "-or",
   ],
-  [/\b(analys|paralys|catalys)(e|es|ed|ing)\b/i, "-yze"],
+  [/\b(analys|paralys|catalys)(e|ed|ing)\b/i, "-yze"],
   [
     /\b(organ|recogn|minim|maxim|priorit|summar|util|author|optim|standard|visual|categor|custom|normal|real|apolog|final|initial|memor|sanit|stabil|item|synchron|character|emphas|critic|capital|harmon|general|special|local|neutral|equal|immun|mobil|steril|symbol|vapor|penal|legal|modern|computer|digit|central|personal|random|serial|pressur|winter)is(e|es|ed|ing|ation|ations|er|ers)\b/i,
     "-ize",
@@ -63,7 +63,7 @@ const INTERNAL_NAMES: readonly (readonly [RegExp, string])[] = [
   [/\b[a-z][a-z0-9]*(_[a-z0-9]+)+\b/, "a snake_case name or raw enum value"],
   [/\b(NaN|undefined|\[object Object\])\b/, "a program value"],
   [/Invalid input|expected \w+, received|Too (small|big): expected/i, "raw validator text"],
-  [/\(month-day\)|\btemperature f\b|\(n \d+\)/i, "notation for developers"],
+  [/\(month-day\)|\btemperature f\b/i, "notation for developers"],
 ];
 
 export interface WordFinding {

@@ -20,7 +20,7 @@ export default async function ProductsPage() {
     <>
       <h1 className="text-3xl font-bold">Products</h1>
       <p className="mt-1 mb-6 text-muted">
-        The catalogue technicians choose from. Analyses come from each product&apos;s label
+        The catalog technicians choose from. Each product&apos;s analysis comes from its label
         (guaranteed analysis, % by weight).
       </p>
       <HydrationBoundary state={dehydrate(queryClient)}>
