@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
-import { getTranslations } from "next-intl/server";
+import { NextIntlClientProvider } from "next-intl";
+import { getMessages, getTranslations } from "next-intl/server";
 
 import { CompanySettingsForm } from "@/components/settings/company-settings-form";
 import { requireActor } from "@/lib/auth/require";
@@ -13,17 +14,20 @@ export default async function SettingsPage() {
   const actor = await requireActor(["manager"]);
   const settings = await getCompanySettings(actor);
   const t = await getTranslations("settings");
+  const messages = await getMessages();
   return (
     <>
       <h1 className="text-3xl font-bold">{t("title")}</h1>
       <p className="mt-1 mb-6 max-w-prose text-muted">
         {t("intro", { company: settings.companyName })}
       </p>
-      <CompanySettingsForm
-        settings={settings}
-        locales={LOCALES.map((l) => ({ tag: l.tag, label: l.label }))}
-        timeZones={timeZoneChoices()}
-      />
+      <NextIntlClientProvider messages={{ settings: messages.settings }}>
+        <CompanySettingsForm
+          settings={settings}
+          locales={LOCALES.map((l) => ({ tag: l.tag, label: l.label }))}
+          timeZones={timeZoneChoices()}
+        />
+      </NextIntlClientProvider>
     </>
   );
 }
