@@ -207,7 +207,9 @@ describe("forms validate with their shared schema, in plain words", () => {
       stopOrder: -3,
       notes: "",
     });
-    expect(schedule.messages.stopOrder).toBe("The stop number must be 0 or more.");
+    // The bound of the schedule form (lib/visits/schemas.ts): stops are numbered from 1.
+    expect(schedule.messages.stopOrder).toBe("Stop number: 1 or more (the day's first stop is 1).");
+    expect(schedule.messages.stopOrder).not.toMatch(RAW);
     for (const typed of ["abc", "1,5"]) {
       const watering = await validate(formResolver(wateringSchema), {
         id: "5b0c0a52-6a0e-4a8e-9d3c-0c3f7f4a1b12",
