@@ -4,7 +4,7 @@ import Link from "next/link";
 
 import { formatDate, formatDateTime } from "@/lib/dates";
 import type { AlertDto } from "@/lib/risk-alerts/dto";
-import { ALERT_STATUSES, EVIDENCE_LABELS, evidenceValue } from "@/lib/risk/labels";
+import { ALERT_STATUSES, evidenceEntry } from "@/lib/risk/labels";
 
 import { RiskAlertActions } from "./risk-alert-actions";
 import { SeverityBadge } from "./severity-badge";
@@ -70,12 +70,15 @@ export function RiskAlertList({
               Evidence and source
             </summary>
             <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
-              {Object.entries(a.evidence.values).map(([k, v]) => (
-                <div key={k} className="contents">
-                  <dt className="text-muted">{EVIDENCE_LABELS[k] ?? k}</dt>
-                  <dd className="font-semibold">{evidenceValue(v)}</dd>
-                </div>
-              ))}
+              {Object.entries(a.evidence.values).map(([k, v]) => {
+                const entry = evidenceEntry(k, v);
+                return (
+                  <div key={k} className="contents">
+                    <dt className="text-muted">{entry.label}</dt>
+                    <dd className="font-semibold">{entry.value}</dd>
+                  </div>
+                );
+              })}
               <dt className="text-muted">Threshold</dt>
               <dd>{a.evidence.threshold}</dd>
               <dt className="text-muted">Window</dt>

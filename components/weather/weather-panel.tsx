@@ -42,7 +42,7 @@ export function WeatherPanel({ weather }: { weather: PropertyWeather }) {
             </dd>
           </div>
           <div className="rounded-xl border border-line bg-card p-3">
-            <dt className="text-sm text-muted">GDD since 1 January (base 50 °F)</dt>
+            <dt className="text-sm text-muted">GDD since January 1 (base 50 °F)</dt>
             <dd className="text-xl font-bold">
               {weather.gddSinceJan1F === null
                 ? "—"

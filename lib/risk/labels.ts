@@ -37,15 +37,15 @@ export const EVIDENCE_LABELS: Record<string, string> = {
   sameDirectionChecks: "Of the last 3 checks, mowed the same way",
   mattingSeen: "Matting seen",
   diseaseSeen: "Disease already showing",
-  tMean5dC: "5-day mean temperature (°C)",
+  tMean5dC: "5-day mean temperature",
   rhMean5dPct: "5-day mean humidity (%)",
   probabilityPct: "Probability (%)",
   highestIndex: "Highest index",
   on: "On",
-  tmaxC: "High (°C)",
-  tminC: "Low (°C)",
+  tmaxC: "High",
+  tminC: "Low",
   hoursRhAbove90: "Hours above 90 % humidity (hourly, the night after)",
-  nightMinC: "Night's low (°C)",
+  nightMinC: "Night's low",
   nightsJudged: "Nights judged on hourly humidity",
   nightsWithoutHours: "Nights without hourly humidity (not judged)",
   model: "Model",
@@ -86,6 +86,19 @@ const VALUE_WORDS: Record<string, string> = {
   cool: "cool-season",
   warm: "warm-season",
 };
+
+/** Evidence the models keep in °C (their published form): shown in °F first, °C alongside. */
+const CELSIUS_KEYS = new Set(["tMean5dC", "tmaxC", "tminC", "nightMinC"]);
+
+/** One evidence entry in words: its label and its value, temperatures in °F (°C). */
+export function evidenceEntry(key: string, v: unknown): { label: string; value: string } {
+  const label = EVIDENCE_LABELS[key] ?? key;
+  if (CELSIUS_KEYS.has(key) && typeof v === "number" && Number.isFinite(v)) {
+    const f = Math.round(((v * 9) / 5 + 32) * 10) / 10;
+    return { label, value: `${evidenceValue(f)} °F (${evidenceValue(v)} °C)` };
+  }
+  return { label, value: evidenceValue(v) };
+}
 
 export function evidenceValue(v: unknown): string {
   if (v === null || v === undefined) return "—";

@@ -172,7 +172,7 @@ describe("matted canopy alert", () => {
     await matted.waitFor({ timeout: 15_000 });
     expect(await matted.innerText()).toMatch(/Front lawn/);
     expect(await matted.innerText()).toMatch(
-      /Matted, laid-over grass seen while the disease models read dollar spot weather at 64 % \(25 °C, 80 % RH over 5 days\): a matted canopy holds moisture \(common practice\)/,
+      /Matted, laid-over grass seen while the disease models read dollar spot weather at 64 % \(77 °F, 80 % humidity over 5 days\): a matted canopy holds moisture \(common practice\)/,
     );
     await matted.getByText("Evidence and source").click();
     const evidence = await matted.innerText();

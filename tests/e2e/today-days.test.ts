@@ -61,4 +61,43 @@ describe("Today's day navigation", () => {
     }
     await context.close();
   });
+
+  it("a page that checks before it streams still answers 404 and redirects with their status", async () => {
+    // A loading state above a page sends 200 before the page runs: detail pages check the record
+    // first and stream their body after, so "not found" is a real 404 and a redirect a real 307.
+    const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
+    const page = await context.newPage();
+    await signIn(page, baseUrl, "manager@demo.sward.test");
+    await page.waitForURL("**/book");
+    const property = page.locator("[data-property]:visible").first();
+    await property.getByRole("link").first().click();
+    await page.waitForURL(/\/properties\/[0-9a-f-]+$/);
+    const propertyPath = new URL(page.url()).pathname;
+    const streamed = await page.request.get(propertyPath);
+    expect(streamed.status()).toBe(200);
+    expect(await streamed.text()).toContain("data-skeleton");
+    const missing = "00000000-0000-4000-8000-000000000000";
+    for (const path of [
+      `/properties/${missing}`,
+      `/properties/${missing}/zones/${missing}`,
+      `/visits/${missing}`,
+    ])
+      expect((await page.request.get(path, { maxRedirects: 0 })).status(), path).toBe(404);
+    // A manager opening a homeowner's page, a homeowner a list page: redirected, not 200.
+    expect((await page.request.get("/my-lawn", { maxRedirects: 0 })).status()).toBe(307);
+    await context.clearCookies();
+    await signIn(page, baseUrl, "owner1@demo.sward.test");
+    await page.waitForURL("**/my-lawn");
+    for (const path of [
+      "/book",
+      "/today",
+      "/risk-alerts",
+      "/records",
+      `/my-lawn/reports/${missing}`,
+    ])
+      expect((await page.request.get(path, { maxRedirects: 0 })).status(), path).toBe(
+        path.includes("reports") ? 404 : 307,
+      );
+    await context.close();
+  });
 });

@@ -46,6 +46,14 @@ const BRITISH_SPELLINGS: readonly (readonly [RegExp, string])[] = [
   [/\bmoult(s|ed|ing)?\b/i, "molt"],
 ];
 
+/** Day-before-month dates ("1 January", "2 Dec 2026"): US readers expect the month first. */
+const DATE_ORDER: readonly (readonly [RegExp, string])[] = [
+  [
+    /\b\d{1,2}(st|nd|rd|th)? (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Sept|Oct|Nov|Dec)[a-z]*\b/,
+    "month first (January 1, Dec 2)",
+  ],
+];
+
 /** Statistics and imaging jargon a homeowner should not meet (pages and e-mails for homeowners). */
 const HOMEOWNER_JARGON: readonly (readonly [RegExp, string])[] = [
   [/\br²|\br2\b|\bR-squared\b/i, "a correlation figure"],
@@ -92,6 +100,7 @@ export function scanWords(
   const lists: [readonly (readonly [RegExp, string])[], string][] = [
     [BRITISH_SPELLINGS, "British spelling"],
     [INTERNAL_NAMES, "internal"],
+    [DATE_ORDER, "British date order"],
   ];
   if (options.homeowner) lists.push([HOMEOWNER_JARGON, "jargon for a homeowner"]);
   for (const [list, kind] of lists)

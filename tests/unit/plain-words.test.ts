@@ -17,7 +17,7 @@ import { en } from "@/lib/i18n/messages/en";
 import { CARE_NOTES } from "@/lib/reference/care-notes";
 import { RECORD_FIELDS } from "@/lib/reference/record-fields";
 import { symptoms } from "@/lib/reference/symptoms";
-import { ALERT_KINDS, EVIDENCE_LABELS, evidenceValue } from "@/lib/risk/labels";
+import { ALERT_KINDS, EVIDENCE_LABELS, evidenceEntry, evidenceValue } from "@/lib/risk/labels";
 
 import { scanWords } from "../helpers/house-words";
 
@@ -80,6 +80,13 @@ describe("plain words at the source", () => {
         (f) => f.found,
       ),
     ).toEqual(expect.arrayContaining(["(n 6)", "r²", "DGCI"]));
+    // Day-before-month dates are caught; month-first dates and quantities pass.
+    expect(caught("GDD since 1 January; Wed, 2 Dec 2026; the 3rd March round")).toEqual([
+      "1 January",
+      "2 Dec",
+      "3rd March",
+    ]);
+    expect(caught("GDD since January 1; Wed, Dec 2, 2026; 3 zones, 12 in")).toEqual([]);
     // Addresses are not words: links and e-mail addresses pass.
     expect(caught("https://x.test/my_lawn?a_b=1 owner_1@demo.sward.test")).toEqual([]);
     // US words pass.
@@ -99,6 +106,11 @@ describe("plain words at the source", () => {
     // Evidence values: ISO dates in words, coded values in words.
     expect(evidenceValue("2026-07-08")).toBe("Jul 8, 2026");
     expect(evidenceValue("cool")).toBe("cool-season");
+    // Temperatures the models keep in °C read in °F first for a US reader (°F = °C × 9/5 + 32).
+    expect(evidenceEntry("tmaxC", 30)).toEqual({ label: "High", value: "86 °F (30 °C)" });
+    expect(evidenceEntry("tMean5dC", 24.6).value).toBe("76.3 °F (24.6 °C)");
+    expect(evidenceEntry("nightMinC", -5).value).toBe("23 °F (−5 °C)");
+    expect(evidenceEntry("rainIn", 0.4)).toEqual({ label: "Rain (in)", value: "0.4" });
     expect(evidenceValue(["2026-07-08", "2026-07-09"])).toBe("Jul 8, 2026; Jul 9, 2026");
   });
 });

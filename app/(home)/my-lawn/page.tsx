@@ -1,10 +1,13 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { Suspense } from "react";
 
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { LawnIndex } from "@/components/sward-index/lawn-index";
+import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { WateringLog } from "@/components/watering/watering-log";
+import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { visitReportPath } from "@/lib/paths";
@@ -17,6 +20,21 @@ export const metadata: Metadata = { title: "My lawn" };
 
 export default async function MyLawnPage() {
   const actor = await requireActor(["homeowner"], "/my-lawn");
+  // The title at once, the lawns (histories, reports, waterings) streamed in behind a skeleton.
+  return (
+    <>
+      <h1 className="text-3xl font-bold">My lawn</h1>
+      <p className="mt-1 mb-6 text-muted">
+        Cared for by {actor.companyName}. Visit reports and care notes appear here after each visit.
+      </p>
+      <Suspense fallback={<PageSkeleton cards={2} />}>
+        <MyLawns actor={actor} />
+      </Suspense>
+    </>
+  );
+}
+
+async function MyLawns({ actor }: { actor: Actor }) {
   const summaries = await listProperties(actor);
   const properties = await Promise.all(
     summaries.map(async (p) => ({
@@ -29,10 +47,6 @@ export default async function MyLawnPage() {
 
   return (
     <>
-      <h1 className="text-3xl font-bold">My lawn</h1>
-      <p className="mt-1 mb-6 text-muted">
-        Cared for by {actor.companyName}. Visit reports and care notes appear here after each visit.
-      </p>
       {properties.length === 0 ? (
         <p className="rounded-lg border border-line bg-card p-4">
           No property is linked to your sign-in yet. Ask {actor.companyName} to link your lawn.

@@ -2,9 +2,12 @@ import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import { ChevronLeft, ChevronRight } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
+import { Suspense } from "react";
 
 import { buttonClass } from "@/components/ui/button";
+import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { TodayList } from "@/components/visits/today-list";
+import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { addDays, formatDate, isIsoDate, todayIn } from "@/lib/dates";
 import { makeQueryClient } from "@/lib/query-client";
@@ -23,12 +26,6 @@ export default async function TodayPage({
   const today = todayIn(actor.companyTimeZone);
   const date = asked && isIsoDate(asked) ? asked : today;
   const dayHref = (d: string) => (d === today ? "/today" : `/today?date=${d}`);
-  const queryClient = makeQueryClient();
-  await queryClient.prefetchQuery({
-    queryKey: visitKeys.today(date),
-    queryFn: () => listTodayStops(actor, date),
-  });
-
   return (
     <>
       <h1 className="text-3xl font-bold">{date === today ? "Today" : formatDate(date)}</h1>
@@ -53,9 +50,23 @@ export default async function TodayPage({
           <ChevronRight className="size-5" aria-hidden="true" />
         </Link>
       </nav>
-      <HydrationBoundary state={dehydrate(queryClient)}>
-        <TodayList date={date} />
-      </HydrationBoundary>
+      {/* The role is checked and the day's heading sent first; the stops stream in after. */}
+      <Suspense fallback={<PageSkeleton cards={3} />}>
+        <Stops actor={actor} date={date} />
+      </Suspense>
     </>
+  );
+}
+
+async function Stops({ actor, date }: { actor: Actor; date: string }) {
+  const queryClient = makeQueryClient();
+  await queryClient.prefetchQuery({
+    queryKey: visitKeys.today(date),
+    queryFn: () => listTodayStops(actor, date),
+  });
+  return (
+    <HydrationBoundary state={dehydrate(queryClient)}>
+      <TodayList date={date} />
+    </HydrationBoundary>
   );
 }

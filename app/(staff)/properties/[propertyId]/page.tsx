@@ -2,6 +2,7 @@ import { ArrowLeft, PencilLine } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { Suspense } from "react";
 
 import { PropertyApplications } from "@/components/applications/property-applications";
 import { PhotoFigure } from "@/components/photos/photo-figure";
@@ -17,17 +18,20 @@ import { ZoneList } from "@/components/properties/zone-list";
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
 import { PropertyIndexSection } from "@/components/sward-index/property-index-section";
 import { buttonClass } from "@/components/ui/button";
+import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { PagedList } from "@/components/ui/paged-list";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
 import { WateringLog } from "@/components/watering/watering-log";
 import { WeatherPanel } from "@/components/weather/weather-panel";
 import { getNitrogenByZone, listPropertyApplications } from "@/lib/applications/queries";
+import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { listPendingInvitations } from "@/lib/invitations/queries";
 import { BOOK_PATH } from "@/lib/paths";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
+import type { PropertyDetailDto } from "@/lib/properties/dto";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
@@ -52,6 +56,16 @@ export default async function PropertyPage({
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
+  // Checked first, streamed after: a property out of scope answers 404 before anything is sent;
+  // the rest (weather refresh, histories) streams in behind the skeleton.
+  return (
+    <Suspense fallback={<PageSkeleton cards={4} />}>
+      <PropertyBody actor={actor} property={property} />
+    </Suspense>
+  );
+}
+
+async function PropertyBody({ actor, property }: { actor: Actor; property: PropertyDetailDto }) {
   // The weather reads come from the cache: bring it up to date first (the other reads meanwhile).
   const [visits, latestPhotos, waterings, [weather, scores], alerts] = await Promise.all([
     listVisits(actor, { propertyId: property.id }),

@@ -4,7 +4,9 @@ import { notFound } from "next/navigation";
 import { Suspense } from "react";
 
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
+import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { VisitRunner } from "@/components/visits/visit-runner";
+import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
 import { makeQueryClient } from "@/lib/query-client";
@@ -20,11 +22,22 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
   const actor = await requireActor(["manager", "technician"]);
   const parsed = visitIdParams.safeParse(await params);
   if (!parsed.success) notFound();
-  await fillVisitWeather(actor, parsed.data.visitId).catch(() => undefined);
-  const visit = await getVisit(actor, parsed.data.visitId).catch((err: unknown) => {
+  // Checked first, streamed after: a visit out of scope answers 404 before anything is sent; the
+  // day's weather (a call to the weather service on first open) and the alerts stream in after.
+  await getVisit(actor, parsed.data.visitId).catch((err: unknown) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
+  return (
+    <Suspense fallback={<PageSkeleton cards={4} />}>
+      <VisitBody actor={actor} visitId={parsed.data.visitId} />
+    </Suspense>
+  );
+}
+
+async function VisitBody({ actor, visitId }: { actor: Actor; visitId: string }) {
+  await fillVisitWeather(actor, visitId).catch(() => undefined);
+  const visit = await getVisit(actor, visitId);
   const alerts = (await listPropertyAlerts(actor, visit.propertyId)).filter(
     (a) => a.status !== "resolved",
   );

@@ -2,10 +2,13 @@ import { ArrowLeft } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { Suspense } from "react";
 
 import { BeforeAfter } from "@/components/photos/before-after";
 import { ZoneIndexSection } from "@/components/sward-index/zone-index-section";
+import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { ZoneStatusBadge } from "@/components/visits/status-badge";
+import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
@@ -43,14 +46,31 @@ export default async function ZoneHistoryPage({
     throw err;
   });
   if (history.propertyId !== raw.propertyId) notFound();
+  // Checked first, streamed after: a zone out of scope answers 404 before anything is sent.
+  return (
+    <Suspense fallback={<PageSkeleton cards={3} />}>
+      <ZoneHistoryBody actor={actor} zoneId={parsed.data.zoneId} history={history} />
+    </Suspense>
+  );
+}
+
+async function ZoneHistoryBody({
+  actor,
+  zoneId,
+  history,
+}: {
+  actor: Actor;
+  zoneId: string;
+  history: Awaited<ReturnType<typeof getZoneHistory>>;
+}) {
   const [photos, scores] = await Promise.all([
-    listZonePhotos(actor, parsed.data.zoneId),
+    listZonePhotos(actor, zoneId),
     // The Index history reads weather from the cache: bring it up to date first.
     refreshPropertyWeather(actor, history.propertyId).then(() =>
       getPropertyScoreHistory(actor, history.propertyId),
     ),
   ]);
-  const zoneScores = scores.zones.find((z) => z.zoneId === parsed.data.zoneId);
+  const zoneScores = scores.zones.find((z) => z.zoneId === zoneId);
 
   return (
     <>
