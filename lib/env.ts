@@ -43,6 +43,12 @@ const serviceFields = {
   WEATHER_ARCHIVE_URL: z.url().optional(),
   /** Open-Meteo's commercial API key (sent as `apikey`); the free API needs none. */
   WEATHER_API_KEY: z.string().optional(),
+  /**
+   * Origin of the US Census Bureau's geocoder (https://geocoding.geo.census.gov), which turns a
+   * property's address into its location; the demo and tests start a local fake that speaks the
+   * same API. Unset: managers type the coordinates or use the device's location.
+   */
+  GEOCODER_BASE_URL: z.url().optional(),
 };
 
 const needsBucket = {

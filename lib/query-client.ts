@@ -22,7 +22,7 @@ export function getQueryClient(): QueryClient {
   return browserClient;
 }
 
-class HttpError extends Error {
+export class HttpError extends Error {
   constructor(
     readonly status: number,
     readonly code: string,

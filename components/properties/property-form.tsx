@@ -1,20 +1,22 @@
 "use client";
 
 // Create or edit a property (manager). The zod schema that validates the route drives this form.
-import { LocateFixed } from "lucide-react";
+import { LocateFixed, MapPin } from "lucide-react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
 import type { PersonDto } from "@/lib/people/dto";
-import type { PropertyDetailDto } from "@/lib/properties/dto";
+import type { AddressMatchDto, GeocodeResult, PropertyDetailDto } from "@/lib/properties/dto";
 import { propertySchema } from "@/lib/properties/schemas";
-import { sendJson } from "@/lib/query-client";
+import { fetchJson, HttpError, sendJson } from "@/lib/query-client";
+import { findUsState, US_STATES, zipStateWarning } from "@/lib/reference/us-states";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
+import { proposeRuleSet } from "@/lib/rule-sets/propose";
 
 type FormIn = z.input<typeof propertySchema>;
 type FormOut = z.output<typeof propertySchema>;
@@ -33,11 +35,20 @@ export function PropertyForm({
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [locating, setLocating] = useState<string | null>(null);
+  const [lookup, setLookup] = useState<
+    | { kind: "idle" }
+    | { kind: "busy" }
+    | { kind: "matches"; address: string; matches: AddressMatchDto[] }
+    | { kind: "message"; text: string }
+  >({ kind: "idle" });
+  const [proposalNote, setProposalNote] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
     setValue,
     setError,
+    getValues,
+    control,
     formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, FormOut>({
     resolver: formResolver(propertySchema),
@@ -62,6 +73,66 @@ export function PropertyForm({
           notes: "",
         },
   });
+
+  const [region, postalCode, ruleSetId, latitude, longitude] = useWatch({
+    control,
+    name: ["region", "postalCode", "ruleSetId", "latitude", "longitude"],
+  });
+  const zipWarning = zipStateWarning(postalCode ?? "", region ?? "");
+  const proposal = proposeRuleSet(ruleSets, region ?? "");
+  const hasTypedCoordinates =
+    typeof latitude === "number" &&
+    Number.isFinite(latitude) &&
+    typeof longitude === "number" &&
+    Number.isFinite(longitude);
+
+  // A new state proposes its rule set (the manager may choose another afterwards).
+  function onStateChosen(code: string) {
+    const next = proposeRuleSet(ruleSets, code);
+    if (next?.kind === "state") {
+      setValue("ruleSetId", next.ruleSetId, { shouldValidate: true });
+      setProposalNote(next.reason);
+    } else setProposalNote(next ? next.reason : null);
+  }
+
+  async function findLocation() {
+    const { street, city, region: state, postalCode: zip } = getValues();
+    if (!street?.trim() || (!city?.trim() && !zip?.trim()))
+      return setLookup({
+        kind: "message",
+        text: "Type the street address and the town or ZIP code first, then look up the location.",
+      });
+    setLookup({ kind: "busy" });
+    const query = new URLSearchParams({
+      street: street ?? "",
+      city: city ?? "",
+      region: state ?? "",
+      postalCode: zip ?? "",
+    });
+    try {
+      const result = await fetchJson<GeocodeResult>(`/api/v1/geocode?${query}`);
+      setLookup(
+        result.status === "found"
+          ? { kind: "matches", address: result.address, matches: result.matches }
+          : { kind: "message", text: result.message },
+      );
+    } catch (err) {
+      setLookup({
+        kind: "message",
+        text:
+          err instanceof HttpError
+            ? err.message
+            : "No connection to Sward right now. Type the coordinates, or try again.",
+      });
+    }
+  }
+
+  function applyMatch(match: AddressMatchDto) {
+    setValue("latitude", match.latitude, { shouldValidate: true });
+    setValue("longitude", match.longitude, { shouldValidate: true });
+    setLookup({ kind: "idle" });
+    setLocating(`Location set from the address found: ${match.matchedAddress}.`);
+  }
 
   async function onSubmit(values: FormOut) {
     setMessage(null);
@@ -128,20 +199,45 @@ export function PropertyForm({
           <input id="city" {...register("city")} {...aria("city")} className={inputClass} />
         </Field>
         <Field id="region" label="State" error={err("region")}>
-          <input id="region" {...register("region")} {...aria("region")} className={inputClass} />
+          <select
+            id="region"
+            {...register("region", { onChange: (e) => onStateChosen(e.target.value) })}
+            {...aria("region")}
+            className={inputClass}
+          >
+            <option value="">Choose a state</option>
+            {region && !findUsState(region) ? (
+              <option value={region}>{region} (not a state code; choose one)</option>
+            ) : null}
+            {US_STATES.map((s) => (
+              <option key={s.code} value={s.code}>
+                {s.code} — {s.name}
+              </option>
+            ))}
+          </select>
         </Field>
-        <Field id="postalCode" label="ZIP code" error={err("postalCode")}>
+        <Field id="postalCode" label="ZIP code" hint="5 digits, or ZIP+4" error={err("postalCode")}>
           <input
             id="postalCode"
             inputMode="numeric"
+            autoComplete="postal-code"
+            maxLength={10}
             {...register("postalCode")}
             {...aria("postalCode")}
             className={inputClass}
           />
         </Field>
       </div>
+      {zipWarning && !errors.postalCode && !errors.region ? (
+        <p role="status" className="rounded-lg bg-sun-tint p-3 text-sm font-semibold">
+          {zipWarning}
+        </p>
+      ) : null}
       <fieldset className="space-y-3 rounded-xl border border-line p-4">
         <legend className="px-1 font-bold">Location</legend>
+        <p className="text-sm text-muted">
+          Where the lawn is: the weather and the season&apos;s rules are read for this point.
+        </p>
         <div className="grid gap-4 sm:grid-cols-2">
           <Field id="latitude" label="Latitude (°)" error={err("latitude")}>
             <input
@@ -162,10 +258,62 @@ export function PropertyForm({
             />
           </Field>
         </div>
-        <Button type="button" variant="secondary" onClick={useDeviceLocation}>
-          <LocateFixed className="size-5" aria-hidden="true" />
-          Use this device&apos;s location
-        </Button>
+        <div className="flex flex-wrap gap-2">
+          <Button
+            type="button"
+            variant="secondary"
+            onClick={findLocation}
+            disabled={lookup.kind === "busy"}
+          >
+            <MapPin className="size-5" aria-hidden="true" />
+            {lookup.kind === "busy"
+              ? "Looking up the address…"
+              : "Find the location from the address"}
+          </Button>
+          <Button type="button" variant="secondary" onClick={useDeviceLocation}>
+            <LocateFixed className="size-5" aria-hidden="true" />
+            Use this device&apos;s location
+          </Button>
+        </div>
+        {lookup.kind === "message" ? <p role="status">{lookup.text}</p> : null}
+        {lookup.kind === "matches" ? (
+          <div role="status" className="space-y-2 rounded-lg bg-sward-tint p-3">
+            <p className="font-semibold">
+              {lookup.matches.length === 1
+                ? "The address lookup found this place. Is it the property?"
+                : "The address lookup found these places. Choose the property's."}
+            </p>
+            <ul className="space-y-2">
+              {lookup.matches.map((m) => (
+                <li
+                  key={`${m.matchedAddress}-${m.latitude}-${m.longitude}`}
+                  className="flex flex-wrap items-center justify-between gap-2"
+                >
+                  <span>
+                    {m.matchedAddress}
+                    <span className="block text-sm text-muted">
+                      Latitude {m.latitude.toFixed(5)}°, longitude {m.longitude.toFixed(5)}°
+                    </span>
+                  </span>
+                  <Button type="button" onClick={() => applyMatch(m)}>
+                    {hasTypedCoordinates
+                      ? "Replace the coordinates with these"
+                      : "Use this location"}
+                  </Button>
+                </li>
+              ))}
+            </ul>
+            {hasTypedCoordinates ? (
+              <p className="text-sm">
+                The coordinates typed above ({Number(latitude).toFixed(5)}°,{" "}
+                {Number(longitude).toFixed(5)}°) stay until you choose to replace them.
+              </p>
+            ) : null}
+            <Button type="button" variant="secondary" onClick={() => setLookup({ kind: "idle" })}>
+              None of these
+            </Button>
+          </div>
+        ) : null}
         {locating ? <p role="status">{locating}</p> : null}
       </fieldset>
       <Field id="timeZone" label="Time zone" error={err("timeZone")}>
@@ -185,12 +333,15 @@ export function PropertyForm({
       <Field
         id="ruleSetId"
         label="Fertilizer rule set"
-        hint="The local rules every application here is checked against."
+        hint="The local rules every application here is checked against. Proposed from the state."
         error={err("ruleSetId")}
       >
         <select
           id="ruleSetId"
-          {...register("ruleSetId", { setValueAs: nullIfEmpty })}
+          {...register("ruleSetId", {
+            setValueAs: nullIfEmpty,
+            onChange: () => setProposalNote(null),
+          })}
           {...aria("ruleSetId")}
           className={inputClass}
         >
@@ -201,6 +352,25 @@ export function PropertyForm({
             </option>
           ))}
         </select>
+        {proposalNote ? (
+          <p role="status" className="text-sm">
+            {proposalNote}
+          </p>
+        ) : proposal?.kind === "state" && ruleSetId !== proposal.ruleSetId ? (
+          <p role="status" className="flex flex-wrap items-center gap-2 text-sm">
+            For {proposal.state.name}, “{proposal.ruleSetName}” is proposed; another is chosen.
+            <Button
+              type="button"
+              variant="secondary"
+              onClick={() => {
+                setValue("ruleSetId", proposal.ruleSetId, { shouldValidate: true });
+                setProposalNote(proposal.reason);
+              }}
+            >
+              Use the proposed rule set
+            </Button>
+          </p>
+        ) : null}
       </Field>
       <Field id="technicianId" label="Assigned technician" error={err("technicianId")}>
         <select

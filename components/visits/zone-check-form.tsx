@@ -8,6 +8,7 @@ import { useState } from "react";
 import { ApplicationPanel } from "@/components/applications/application-panel";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { Button } from "@/components/ui/button";
+import { CharacterCount } from "@/components/ui/character-count";
 import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Stepper } from "@/components/ui/stepper";
 import { ToggleChip } from "@/components/ui/toggle-chip";
@@ -24,6 +25,7 @@ import {
   SOIL_MOISTURE,
 } from "@/lib/reference/visit-options";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
+import { parseProbeReading, ZONE_CHECK_BOUNDS } from "@/lib/visits/zone-check-bounds";
 import { mowingConsistency, zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
 
 import { RatingPicker } from "./rating-picker";
@@ -88,6 +90,9 @@ export function ZoneCheckForm({
     onSaved,
   );
   const [localErrors, setLocalErrors] = useState<Record<string, string[]>>({});
+  // The probe reading as typed: a reading outside 0–100 % stays in the box with its message and is
+  // not saved (the last good reading stays saved), never clamped.
+  const [probeText, setProbeText] = useState<string | null>(null);
   const serverErrors = saveState.kind === "invalid" ? saveState.fieldErrors : {};
   const errorOf = (field: string) => localErrors[field]?.[0] ?? serverErrors[field]?.[0];
   const set = <K extends keyof ZoneCheckValues>(field: K, value: ZoneCheckValues[K]) => {
@@ -274,26 +279,29 @@ export function ZoneCheckForm({
               <label className="flex items-center gap-2">
                 <span className="text-sm">Probe reading (optional)</span>
                 <input
-                  type="number"
+                  type="text"
                   inputMode="decimal"
-                  min={0}
-                  max={100}
-                  step={0.5}
                   disabled={disabled}
-                  value={values.soilMoisturePct ?? ""}
-                  onChange={(e) =>
-                    set(
-                      "soilMoisturePct",
-                      e.target.value === ""
-                        ? null
-                        : Math.min(100, Math.max(0, Number(e.target.value))),
-                    )
-                  }
-                  className="min-h-tap w-24 rounded-lg border border-line px-2 text-right text-base"
+                  value={probeText ?? (values.soilMoisturePct ?? "").toString()}
+                  onChange={(e) => {
+                    setProbeText(e.target.value);
+                    const reading = parseProbeReading(e.target.value);
+                    if ("error" in reading)
+                      setLocalErrors((errs) => ({ ...errs, soilMoisturePct: [reading.error] }));
+                    else set("soilMoisturePct", reading.value);
+                  }}
+                  aria-invalid={errorOf("soilMoisturePct") ? true : undefined}
+                  aria-describedby={errorOf("soilMoisturePct") ? "probe-error" : undefined}
+                  className="min-h-tap w-24 rounded-lg border border-line px-2 text-right text-base aria-[invalid=true]:border-clay"
                   aria-label="Soil moisture probe reading in percent"
                 />
                 <span className="text-sm">%</span>
               </label>
+              {errorOf("soilMoisturePct") ? (
+                <p id="probe-error" className="font-semibold text-clay" role="alert">
+                  {errorOf("soilMoisturePct")}
+                </p>
+              ) : null}
             </div>
           </Section>
 
@@ -353,8 +361,8 @@ export function ZoneCheckForm({
                   value={values.heightBeforeMowingIn}
                   onChange={(v) => set("heightBeforeMowingIn", v)}
                   step={0.25}
-                  min={0.25}
-                  max={24}
+                  min={ZONE_CHECK_BOUNDS.heightBeforeMowingIn.min}
+                  max={ZONE_CHECK_BOUNDS.heightBeforeMowingIn.max}
                   startAt={Math.max(4, values.heightOfCutIn ?? 0)}
                   unit="in"
                   format={(v) => v.toFixed(2)}
@@ -381,12 +389,21 @@ export function ZoneCheckForm({
                 value={values.heightOfCutIn}
                 onChange={(v) => set("heightOfCutIn", v)}
                 step={0.25}
-                min={0}
-                max={12}
+                min={ZONE_CHECK_BOUNDS.heightOfCutIn.min}
+                max={ZONE_CHECK_BOUNDS.heightOfCutIn.max}
                 startAt={3}
                 unit="in"
                 format={(v) => v.toFixed(2)}
               />
+              <p className="mt-1 text-sm text-muted">
+                Accepted: {ZONE_CHECK_BOUNDS.heightOfCutIn.min}–
+                {ZONE_CHECK_BOUNDS.heightOfCutIn.max} in.
+              </p>
+              {errorOf("heightOfCutIn") ? (
+                <p className="mt-1 font-semibold text-clay" role="alert">
+                  {errorOf("heightOfCutIn")}
+                </p>
+              ) : null}
             </div>
             {reading ? (
               <p
@@ -449,11 +466,22 @@ export function ZoneCheckForm({
                 disabled={disabled}
                 onChange={(e) => set("notes", e.target.value)}
                 rows={3}
-                maxLength={4000}
+                aria-describedby="zone-notes-count"
+                aria-invalid={values.notes.length > ZONE_CHECK_BOUNDS.notesMax ? true : undefined}
                 placeholder="What stood out in this zone"
-                className="block w-full rounded-lg border border-line p-3 text-base"
+                className="block w-full rounded-lg border border-line p-3 text-base aria-[invalid=true]:border-clay"
               />
             </label>
+            <CharacterCount
+              id="zone-notes-count"
+              length={values.notes.length}
+              max={ZONE_CHECK_BOUNDS.notesMax}
+            />
+            {errorOf("notes") ? (
+              <p className="font-semibold text-clay" role="alert">
+                {errorOf("notes")}
+              </p>
+            ) : null}
           </Section>
 
           {canEdit ? (

@@ -44,3 +44,19 @@ export const SLOPE_LABEL: Record<Slope, string> = {
   moderate: "Moderate slope",
   steep: "Steep slope",
 };
+
+/** One place the geocoder matched for an address (lib/services/geocoder/contract.ts). */
+export interface AddressMatchDto {
+  /** As the service matched it, e.g. "14 QUILLWORT LN, LARKFIELD, NJ, 08561". */
+  matchedAddress: string;
+  latitude: number;
+  longitude: number;
+  state: string | null;
+  zip: string | null;
+}
+
+/** GET /api/v1/geocode: proposals the manager confirms on the property form. */
+export type GeocodeResult =
+  | { status: "found"; address: string; matches: AddressMatchDto[] }
+  | { status: "no_match"; address: string; matches: []; message: string }
+  | { status: "unavailable"; address: string; matches: []; message: string };

@@ -4,6 +4,7 @@ import { z } from "zod/mini";
 
 import { isValidTimeZone } from "@/lib/dates";
 import { grassSpeciesKeys } from "@/lib/reference/grass-species";
+import { findUsState, ZIP_PATTERN } from "@/lib/reference/us-states";
 
 export const propertyIdParams = z.object({ propertyId: z.uuid() });
 export const zoneIdParams = z.object({ zoneId: z.uuid() });
@@ -21,8 +22,25 @@ export const propertySchema = z.strictObject({
   name: text("Name", 200),
   street: text("Street address", 200),
   city: text("Town or city", 100),
-  region: text("State", 100),
-  postalCode: text("ZIP code", 20),
+  /** USPS two-letter code (lib/reference/us-states.ts); typed "nj" is kept as "NJ". */
+  region: z.string("State is required.").check(
+    z.trim(),
+    z.toUpperCase(),
+    z.minLength(1, "State is required."),
+    z.refine(
+      (v) => v === "" || findUsState(v) !== undefined,
+      "State: use the two-letter USPS code of a US state or territory, e.g. NJ.",
+    ),
+  ),
+  /** 12345 or 12345-6789. A ZIP whose first digits belong to another state is a warning on the form, not a refusal. */
+  postalCode: z.string("ZIP code is required.").check(
+    z.trim(),
+    z.minLength(1, "ZIP code is required."),
+    z.refine(
+      (v) => v === "" || ZIP_PATTERN.test(v),
+      "ZIP code: five digits, e.g. 08540, or ZIP+4, e.g. 08540-1234.",
+    ),
+  ),
   latitude: z
     .number("Enter the latitude as a number, e.g. 40.3342.")
     .check(

@@ -1,11 +1,12 @@
-// The service clients — mail (nodemailer over SMTP), the weather provider and photo storage —
-// built in one place from the validated configuration of lib/env.ts. Route handlers, mutations,
+// The service clients — mail (nodemailer over SMTP), the weather provider, the address geocoder
+// and photo storage — built in one place from the validated configuration of lib/env.ts. Route handlers, mutations,
 // the worker (jobs/worker.ts) and the demo seed all take them from services(); a test swaps any
 // of them for a fake with useServices(). No "server-only" here: the worker and scripts run it too.
 import path from "node:path";
 
 import { serviceEnv, type ServiceEnv } from "@/lib/env";
 
+import { censusGeocoder, type Geocoder } from "./geocoder/client";
 import { smtpMailer, type Mailer } from "./mail";
 import { localDiskStorage, s3Storage, type PhotoStorage } from "./storage";
 import { openMeteoProvider, type WeatherProvider } from "./weather/provider";
@@ -17,6 +18,8 @@ export interface Services {
   weather: WeatherProvider | null;
   /** The same service for moments a person is waiting (starting a visit): one try, 1.5 s. */
   quickWeather: WeatherProvider | null;
+  /** The Census Bureau's geocoder (one try, 5 s: a manager is waiting); null without GEOCODER_BASE_URL. */
+  geocoder: Geocoder | null;
   /** PHOTO_STORAGE=local (files under PHOTO_DIR) or s3. */
   photoStorage: PhotoStorage;
 }
@@ -35,6 +38,7 @@ export function createServices(env: ServiceEnv): Services {
     mailer: env.SMTP_URL ? smtpMailer(env.SMTP_URL) : null,
     weather: weather({}),
     quickWeather: weather({ timeoutMs: 1500, retries: 0 }),
+    geocoder: env.GEOCODER_BASE_URL ? censusGeocoder({ baseUrl: env.GEOCODER_BASE_URL }) : null,
     photoStorage:
       env.PHOTO_STORAGE === "s3"
         ? s3Storage({

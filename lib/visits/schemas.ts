@@ -4,6 +4,7 @@ import { z } from "zod/mini";
 
 import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 
+import { ZONE_CHECK_BOUNDS } from "./zone-check-bounds";
 import { zoneCheckFields } from "./zone-check-fields";
 import { mowingConsistency, zoneCheckCompleteness } from "./zone-check-rules";
 
@@ -40,8 +41,8 @@ export const listVisitsQuery = z.strictObject({
 export const SCHEDULE_AHEAD_DAYS = 548;
 /** The most stops one technician's day may number. */
 export const MAX_STOP_NUMBER = 200;
-/** Visit notes: the column's limit (characters). */
-export const VISIT_NOTES_MAX = 4000;
+/** Visit notes: the column's limit (characters); zone-check notes have the same. */
+export const VISIT_NOTES_MAX = ZONE_CHECK_BOUNDS.notesMax;
 
 /**
  * The window a visit date may fall in, seen from this device's clock: from yesterday (a time zone

@@ -6,6 +6,10 @@ import { z } from "zod/mini";
 
 import { symptomKeys } from "@/lib/reference/symptoms";
 
+import { PROBE_READING_MESSAGE, ZONE_CHECK_BOUNDS } from "./zone-check-bounds";
+
+const B = ZONE_CHECK_BOUNDS;
+
 const rating = z.nullable(
   z
     .int("Whole numbers only.")
@@ -49,14 +53,27 @@ export const zoneCheckFields = z.strictObject({
       ),
   ),
   soilMoisture: z.nullable(z.enum(["dry", "moist", "wet"])),
-  soilMoisturePct: z.nullable(z.number().check(z.gte(0), z.lte(100))),
+  soilMoisturePct: z.nullable(
+    z
+      .number("Soil moisture probe reading: enter a number, in %.")
+      .check(
+        z.gte(B.soilMoisturePct.min, PROBE_READING_MESSAGE),
+        z.lte(B.soilMoisturePct.max, PROBE_READING_MESSAGE),
+      ),
+  ),
   heightOfCutIn: z.nullable(
     z
-      .number()
+      .number("Height of cut: enter a number, in inches.")
       .check(
-        z.gte(0),
-        z.lte(12, "Height of cut above 12 in? Check the reading."),
-        z.multipleOf(0.05),
+        z.gte(
+          B.heightOfCutIn.min,
+          `Height of cut: at least ${B.heightOfCutIn.min} in (lawns are cut at 0.5–4 in); check the reading.`,
+        ),
+        z.lte(
+          B.heightOfCutIn.max,
+          `Height of cut: at most ${B.heightOfCutIn.max} in (lawns are cut at 0.5–4 in); check the reading.`,
+        ),
+        z.multipleOf(0.05, "Height of cut: use steps of 0.05 in."),
       ),
   ),
   /**
@@ -71,9 +88,15 @@ export const zoneCheckFields = z.strictObject({
       z
         .number("Enter the height before mowing as a number.")
         .check(
-          z.gt(0, "The height before mowing must be above 0 in."),
-          z.lte(24, "Grass over 24 in before mowing? Check the reading."),
-          z.multipleOf(0.05),
+          z.gte(
+            B.heightBeforeMowingIn.min,
+            `Height before mowing: at least ${B.heightBeforeMowingIn.min} in; check the reading.`,
+          ),
+          z.lte(
+            B.heightBeforeMowingIn.max,
+            `Height before mowing: at most ${B.heightBeforeMowingIn.max} in; check the reading.`,
+          ),
+          z.multipleOf(0.05, "Height before mowing: use steps of 0.05 in."),
         ),
     ),
   ),
@@ -86,7 +109,9 @@ export const zoneCheckFields = z.strictObject({
     z.maxLength(30),
     z.refine((list) => new Set(list.map((s) => s.key)).size === list.length, "Each symptom once."),
   ),
-  notes: z.string().check(z.maxLength(4000, "Keep notes under 4,000 characters.")),
+  notes: z
+    .string()
+    .check(z.maxLength(B.notesMax, "Zone notes: at most 4,000 characters; shorten them.")),
   skipReason: z.nullable(z.enum(["no_access", "construction", "dog_in_yard", "other"])),
   skipNote: z.string().check(z.maxLength(1000, "Keep the reason under 1,000 characters.")),
 });

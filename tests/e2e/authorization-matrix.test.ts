@@ -343,6 +343,23 @@ const CELLS: Cell[] = [
     leak: (t) => [t.productId],
   },
   {
+    key: "GET /api/v1/geocode",
+    case: "an address's location from the geocoder (the local fake): managers of any company, no book data",
+    path: () =>
+      `/api/v1/geocode?${new URLSearchParams({ street: "77 Bramblecote Road", city: "Larkfield", region: "NJ", postalCode: "08561" })}`,
+    allow: ["manager", "otherManager"],
+    marker: () => "BRAMBLECOTE RD, LARKFIELD, NJ, 08561",
+  },
+  {
+    key: "GET /api/v1/geocode",
+    case: "the targeted property's own address: the match reaches managers only",
+    path: (t) =>
+      `/api/v1/geocode?${new URLSearchParams({ street: t.street, city: "Larkfield", region: "NJ" })}`,
+    allow: ["manager", "otherManager"],
+    marker: () => "40.3342",
+    leak: () => ["40.3342", "QUILLWORT"],
+  },
+  {
     key: "GET /api/v1/rule-sets",
     path: () => "/api/v1/rule-sets",
     allow: ["assignedTech", "otherTech", "manager"],

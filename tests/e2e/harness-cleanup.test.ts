@@ -2,8 +2,8 @@
 // Ctrl-C (SIGINT to the terminal's process group), npm killed with SIGKILL, the demo itself killed
 // with SIGKILL (its watchdog), and a step that fails.
 // The demo runs for real under `npm run` — its own PostgreSQL cluster (port SWARD_PG_PORT + 20,
-// its own data folder), migrate, seed, the production server, the worker and the fake weather and
-// SMTP services on SWARD_E2E_PORT + 5…7 — and skips only the build, which the e2e setup made.
+// its own data folder), migrate, seed, the production server, the worker and the fake weather, SMTP
+// and geocoder services on SWARD_E2E_PORT + 5…8 — and skips only the build, which the e2e setup made.
 // While it runs, every process under npm and the postmaster are recorded; afterwards none may be
 // alive (process.kill(pid, 0); a zombie counts as ended) and no port may accept a connection.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
@@ -16,7 +16,13 @@ import { procStat } from "../harness/supervisor";
 
 const PG_PORT = Number(process.env.SWARD_PG_PORT ?? 54329) + 20;
 const WEB_PORT = Number(process.env.SWARD_E2E_PORT ?? 3100) + 5;
-const PORTS = { server: WEB_PORT, weather: WEB_PORT + 1, smtp: WEB_PORT + 2, postgres: PG_PORT };
+const PORTS = {
+  server: WEB_PORT,
+  weather: WEB_PORT + 1,
+  smtp: WEB_PORT + 2,
+  geocoder: WEB_PORT + 3,
+  postgres: PG_PORT,
+};
 const ARTIFACTS = path.resolve("tests/.artifacts/harness-demo");
 const cluster = crashCluster(String(PG_PORT), path.join(ARTIFACTS, "pg"));
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -28,6 +34,7 @@ function demoEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
     PORT: String(PORTS.server),
     SWARD_WEATHER_PORT: String(PORTS.weather),
     SWARD_SMTP_PORT: String(PORTS.smtp),
+    SWARD_GEOCODER_PORT: String(PORTS.geocoder),
     MAIL_INBOX_DIR: path.join(ARTIFACTS, "mail"),
     PHOTO_DIR: path.join(ARTIFACTS, "photos"),
     DATABASE_URL: cluster.url("sward"),
@@ -158,7 +165,7 @@ describe("npm run demo stops everything it started", () => {
     const started = [...demo.seen];
     // What the demo starts is really there: the checks below can fail.
     expect(await openPorts()).toEqual(Object.entries(PORTS).map(([n, p]) => `${n} ${p}`));
-    expect(started.length).toBeGreaterThanOrEqual(8); // node, watchdog, server, worker, 2 fakes (+ tsx's), postmaster
+    expect(started.length).toBeGreaterThanOrEqual(9); // node, watchdog, server, worker, 3 fakes (+ tsx's), postmaster
     const server = Number(/server PID (\d+)/.exec(demo.output())?.[1]);
     const worker = Number(/worker PID (\d+)/.exec(demo.output())?.[1]);
     expect(started).toEqual(expect.arrayContaining([server, worker, postmasterPid(cluster)]));

@@ -1,9 +1,10 @@
 // `npm run demo`: PostgreSQL on loopback, migrate, seed the invented scenario, build (unless the
 // build is up to date), and serve at http://localhost:3000 (listening on 127.0.0.1 only) with the
-// worker and the fake weather and SMTP services. Ctrl-C, SIGTERM (to this process or to npm), a
+// worker and the fake weather, geocoder and SMTP services. Ctrl-C, SIGTERM (to this process or to npm), a
 // failed step or the end of npm stop everything it started (tests/harness/supervisor.ts).
-// Environment: PORT, SWARD_PG_PORT / SWARD_PG_DATA, SWARD_WEATHER_PORT, SWARD_SMTP_PORT,
-// MAIL_INBOX_DIR, DATABASE_URL, AUTH_SECRET, WEATHER_BASE_URL, SMTP_URL.
+// Environment: PORT, SWARD_PG_PORT / SWARD_PG_DATA, SWARD_WEATHER_PORT, SWARD_GEOCODER_PORT,
+// SWARD_SMTP_PORT, MAIL_INBOX_DIR, DATABASE_URL, AUTH_SECRET, WEATHER_BASE_URL, GEOCODER_BASE_URL,
+// SMTP_URL.
 import { randomBytes } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import net from "node:net";
@@ -95,6 +96,14 @@ await sup.main(async () => {
       stdio: ["ignore", "ignore", "inherit"],
     });
 
+  // The local fake geocoder (the Census Bureau's address API, answering for the scenario's addresses).
+  const GEOCODER_PORT = Number(process.env.SWARD_GEOCODER_PORT ?? 3998);
+  const GEOCODER_BASE_URL = process.env.GEOCODER_BASE_URL ?? `http://127.0.0.1:${GEOCODER_PORT}`;
+  if (!process.env.GEOCODER_BASE_URL)
+    sup.start("geocoder fake", TSX, ["tests/harness/geocoder-fake.ts", String(GEOCODER_PORT)], {
+      stdio: ["ignore", "ignore", "inherit"],
+    });
+
   // The local fake SMTP service: every message lands in .data/mail (managers read it at /dev/mail, or `npm run mail:inbox`).
   const SMTP_PORT = Number(process.env.SWARD_SMTP_PORT ?? 2525);
   const SMTP_URL = process.env.SMTP_URL ?? `smtp://127.0.0.1:${SMTP_PORT}`;
@@ -128,6 +137,7 @@ await sup.main(async () => {
         AUTH_SECRET,
         AUTH_URL,
         WEATHER_BASE_URL,
+        GEOCODER_BASE_URL,
         SMTP_URL,
         MAIL_INBOX_DIR,
       },
@@ -155,6 +165,7 @@ await sup.main(async () => {
     Promise.all([
       waitForUrl(`${AUTH_URL}/sign-in`, 60_000),
       process.env.WEATHER_BASE_URL ? null : waitForUrl(`${WEATHER_BASE_URL}/health`, 60_000),
+      process.env.GEOCODER_BASE_URL ? null : waitForUrl(`${GEOCODER_BASE_URL}/health`, 60_000),
       MAIL_INBOX_DIR ? waitForPort(SMTP_PORT, 60_000) : null,
     ]),
     serverEnded,

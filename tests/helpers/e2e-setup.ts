@@ -1,5 +1,5 @@
 // E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
-// on 127.0.0.1, with the local fake weather and SMTP services beside it. Builds first when no build
+// on 127.0.0.1, with the local fake weather, geocoder and SMTP services beside it. Builds first when no build
 // exists or a source changed. Stops what it started afterwards, PostgreSQL too when it was not
 // running; the watchdog of tests/harness/supervisor.ts does so if vitest ends without a teardown.
 import { closeSync, openSync, rmSync } from "node:fs";
@@ -53,7 +53,13 @@ async function start(
   sup.start("weather fake", TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
+  // The fake geocoder: SWARD_GEOCODER_PORT, or the port after the weather fake's.
+  const geocoderPort = Number(process.env.SWARD_GEOCODER_PORT ?? PORT + 2);
+  sup.start("geocoder fake", TSX, ["tests/harness/geocoder-fake.ts", String(geocoderPort)], {
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
+  await waitForUrl(`http://127.0.0.1:${geocoderPort}/health`, 20_000);
   rmSync(MAIL_DIR, { recursive: true, force: true });
   const smtp = await startSmtpFake(0, MAIL_DIR);
   // The server's JSON log lines go to a file the log test reads (tests/e2e/security-logs.test.ts).
@@ -82,6 +88,7 @@ async function start(
         LOG_LEVEL: "info",
         PHOTO_DIR,
         WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
+        GEOCODER_BASE_URL: `http://127.0.0.1:${geocoderPort}`,
         SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
         MAIL_INBOX_DIR: MAIL_DIR,
       },

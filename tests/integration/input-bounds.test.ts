@@ -3,7 +3,9 @@
 // the unit; refused writes change no row. Dates: a visit from today to 18 months ahead, a watering
 // from a year back to today, a records range that runs forward. Numbers: the stop number. Warnings
 // a manager confirms: a second visit on a day, a feeding round inside the rule set's
-// no-fertilizer window (with the next allowed day).
+// no-fertilizer window (with the next allowed day). The zone check: the probe reading (0–100 %),
+// height of cut and height before mowing (lib/visits/zone-check-bounds.ts states the ranges'
+// sources), notes up to 4,000 characters.
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
@@ -11,10 +13,12 @@ import { inNoFertilizerWindow } from "@/lib/agronomy/rules";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
+import { startVisit } from "@/lib/visits/mutations";
 import { SCHEDULE_AHEAD_DAYS } from "@/lib/visits/schemas";
 import { WATERING_BACK_DAYS } from "@/lib/watering/schemas";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
+import { doneCheck, newId } from "../helpers/zone-checks";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
@@ -22,6 +26,7 @@ vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
 const visits = await import("@/app/api/v1/visits/route");
 const waterings = await import("@/app/api/v1/properties/[propertyId]/waterings/route");
 const records = await import("@/app/api/v1/records/applications/route");
+const zoneChecks = await import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/route");
 
 let c: TestCompany;
 const today = todayIn("America/New_York"); // the demo properties' zone
@@ -38,10 +43,11 @@ async function post(
   handler: (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>,
   body: unknown,
   params: Record<string, string> = {},
+  method = "POST",
 ): Promise<Answer> {
   const res = await handler(
     new Request("http://localhost/api", {
-      method: "POST",
+      method,
       body: JSON.stringify(body),
       headers: {
         origin: "http://localhost:3000",
@@ -274,5 +280,95 @@ describe("the records export", () => {
     expect(body.error.fieldErrors.to?.[0]).toBe(
       "To: on or after the From date (the range runs forward).",
     );
+  });
+});
+
+describe("the zone check", () => {
+  let visitId: string;
+  let zoneId: string;
+  beforeAll(async () => {
+    const tech1 = await c.actor("tech1");
+    const visit = await testDb()
+      .selectFrom("visits")
+      .innerJoin("zones", "zones.property_id", "visits.property_id")
+      .select(["visits.id", "zones.id as zoneId"])
+      .where("visits.company_id", "=", c.companyId)
+      .where("visits.technician_id", "=", tech1.userId)
+      .where("visits.status", "=", "scheduled")
+      .where("visits.scheduled_for", "=", today)
+      .executeTakeFirstOrThrow();
+    visitId = visit.id;
+    zoneId = visit.zoneId;
+    await startVisit(tech1, visitId, { latitude: null, longitude: null });
+  });
+
+  const row = () =>
+    testDb()
+      .selectFrom("zone_checks")
+      .select(["id", "version"])
+      .where("visit_id", "=", visitId)
+      .where("zone_id", "=", zoneId)
+      .executeTakeFirst();
+
+  /**
+   * Saves the zone's check (created at the first save, then edited from its latest version) with
+   * the values; the answer, and whether the stored row changed.
+   */
+  async function save(o: Record<string, unknown>) {
+    current = await c.actor("tech1");
+    const before = await row();
+    const answer = await post(
+      zoneChecks.PUT,
+      { ...doneCheck(zoneId), baseVersion: before?.version ?? 0, ...o },
+      { visitId, zoneCheckId: before?.id ?? newId() },
+      "PUT",
+    );
+    const after = await row();
+    return { ...answer, saved: after?.version !== before?.version };
+  }
+
+  it("probe reading: 0 and 100 % are kept; -5 and 250 % are 422 naming the field, nothing saved", async () => {
+    for (const ok of [0, 100])
+      expect(await save({ soilMoisturePct: ok })).toMatchObject({ status: 200, saved: true });
+    for (const bad of [-5, 250]) {
+      const r = await save({ soilMoisturePct: bad });
+      expect(r).toMatchObject({ status: 422, saved: false });
+      expect(r.fieldErrors.soilMoisturePct?.[0]).toMatch(
+        /^Soil moisture probe reading: between 0 and 100 %/,
+      );
+    }
+  });
+
+  it("height of cut: 0.25 and 6 in kept; 0 and 6.25 in refused with the unit", async () => {
+    for (const ok of [0.25, 6])
+      expect(await save({ heightOfCutIn: ok })).toMatchObject({ status: 200, saved: true });
+    const low = await save({ heightOfCutIn: 0 });
+    expect(low).toMatchObject({ status: 422, saved: false });
+    expect(low.fieldErrors.heightOfCutIn?.[0]).toBe(
+      "Height of cut: at least 0.25 in (lawns are cut at 0.5–4 in); check the reading.",
+    );
+    const high = await save({ heightOfCutIn: 6.25 });
+    expect(high.fieldErrors.heightOfCutIn?.[0]).toMatch(/^Height of cut: at most 6 in/);
+  });
+
+  it("height before mowing: 24 in kept; 24.25 in refused with the unit", async () => {
+    const mowed = { mowedToday: true, heightOfCutIn: 3 };
+    expect(await save({ ...mowed, heightBeforeMowingIn: 24 })).toMatchObject({
+      status: 200,
+      saved: true,
+    });
+    const tall = await save({ ...mowed, heightBeforeMowingIn: 24.25 });
+    expect(tall).toMatchObject({ status: 422, saved: false });
+    expect(tall.fieldErrors.heightBeforeMowingIn?.[0]).toBe(
+      "Height before mowing: at most 24 in; check the reading.",
+    );
+  });
+
+  it("notes: 4,000 characters kept whole; 4,001 refused (not cut), naming the field", async () => {
+    const kept = await save({ notes: "n".repeat(4000) });
+    expect(kept).toMatchObject({ status: 200, saved: true });
+    const long = await save({ notes: "n".repeat(4001) });
+    expect(long).toMatchObject({ status: 422, saved: false });
+    expect(long.fieldErrors.notes?.[0]).toBe("Zone notes: at most 4,000 characters; shorten them.");
   });
 });
