@@ -41,4 +41,4 @@ const nextConfig: NextConfig = {
 };
 
 // Words and formats in the company's locale (lib/i18n/, next-intl without locale routing).
-export default createNextIntlPlugin("./lib/i18n/request.ts")(nextConfig);
+export default createNextIntlPlugin("./lib/auth/request-locale.ts")(nextConfig);

@@ -42,7 +42,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   // Every page renders per request (the not-found page too), so Next can put this request's
   // Content-Security-Policy nonce (proxy.ts) on its scripts; a prerendered page would have none.
   await connection();
-  // The company's locale (lib/i18n/request.ts): the page's language, and the locale, time zone and
+  // The company's locale (lib/auth/request-locale.ts): the page's language, and the locale, time zone and
   // formats of client components. Words reach the client only where a page hands its namespace
   // to a provider of its own (the catalogue is not sent with every page).
   const locale = await getLocale();

@@ -1,6 +1,7 @@
 // A visit report for the homeowner: what was seen in each zone in plain words, what was applied
 // with its cautions and keep-off time, the photos, and the care notes that match what was seen.
 import { ShieldAlert } from "lucide-react";
+import { useTranslations } from "next-intl";
 
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { formatDate } from "@/lib/dates";
@@ -10,25 +11,33 @@ import type { VisitReport } from "@/lib/reports/dto";
 import { PrintButton } from "./print-button";
 
 export function VisitReportView({ report }: { report: VisitReport }) {
+  const t = useTranslations("report");
   return (
     <article className="space-y-8" aria-labelledby="report-title">
       <header className="space-y-1">
-        <p className="text-sm font-semibold text-muted">{report.companyName} · visit report</p>
+        <p className="text-sm font-semibold text-muted">
+          {t("kicker", { company: report.companyName })}
+        </p>
         <h1 id="report-title" className="text-3xl font-bold">
-          {report.propertyName}, {formatDate(report.date)}
+          {t("title", { property: report.propertyName, date: formatDate(report.date) })}
         </h1>
         <p className="text-muted">{report.address}</p>
         <p>
-          {report.technicianName ? `Your technician: ${report.technicianName}. ` : ""}
+          {report.technicianName ? `${t("technician", { name: report.technicianName })} ` : ""}
           {report.weather
-            ? `Weather that day: ${Math.round(report.weather.tmaxF)}/${Math.round(report.weather.tminF)} °F, ${report.weather.precipIn.toFixed(2)} in of rain.`
+            ? t("weather", {
+                high: Math.round(report.weather.tmaxF),
+                low: Math.round(report.weather.tminF),
+                rain: report.weather.precipIn.toFixed(2),
+              })
             : ""}
         </p>
         {report.propertyIndex !== null ? (
           <p className="text-lg">
-            Sward Index of your lawn at this visit:{" "}
-            <strong className="text-2xl text-sward">{Math.round(report.propertyIndex)}</strong> out
-            of 100.
+            {t.rich("index", {
+              score: Math.round(report.propertyIndex),
+              strong: (chunks) => <strong className="text-2xl text-sward">{chunks}</strong>,
+            })}
           </p>
         ) : null}
         <div className="pt-2">
@@ -38,7 +47,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
 
       <section aria-labelledby="seen-title">
         <h2 id="seen-title" className="mb-3 text-2xl font-bold">
-          What we saw
+          {t("seen")}
         </h2>
         <div className="space-y-4">
           {report.zones.map((z) => (
@@ -48,7 +57,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
             >
               <h3 className="text-xl font-bold">{z.name}</h3>
               {z.skipped ? (
-                <p className="mt-1">Not checked this time: {z.skipped.toLowerCase()}.</p>
+                <p className="mt-1">{t("notChecked", { reason: z.skipped.toLowerCase() })}</p>
               ) : (
                 <ul className="mt-1 list-disc space-y-1 pl-5">
                   {z.sentences.map((s) => (
@@ -59,7 +68,7 @@ export function VisitReportView({ report }: { report: VisitReport }) {
               {z.photos.length ? (
                 <ul
                   className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-3"
-                  aria-label={`Photos of ${z.name}`}
+                  aria-label={t("photosOf", { zone: z.name })}
                 >
                   {z.photos.map((p) => (
                     <li key={p.id}>
@@ -78,12 +87,10 @@ export function VisitReportView({ report }: { report: VisitReport }) {
 
       <section aria-labelledby="applied-title">
         <h2 id="applied-title" className="mb-3 text-2xl font-bold">
-          What we applied
+          {t("applied")}
         </h2>
         {report.applications.length === 0 ? (
-          <p className="rounded-lg border border-line bg-card p-4">
-            Nothing was applied at this visit.
-          </p>
+          <p className="rounded-lg border border-line bg-card p-4">{t("nothingApplied")}</p>
         ) : (
           <ul className="space-y-3">
             {report.applications.map((a, i) => (
@@ -92,16 +99,21 @@ export function VisitReportView({ report }: { report: VisitReport }) {
                 className="break-inside-avoid rounded-xl border border-line bg-card p-4"
               >
                 <p className="font-bold">
-                  {a.productName} on the {a.zoneName.toLowerCase()}
+                  {t("productOnZone", { product: a.productName, zone: a.zoneName.toLowerCase() })}
                 </p>
                 {a.nLb > 0 || a.p2o5Lb > 0 || a.k2oLb > 0 ? (
                   <p className="text-sm text-muted">
-                    Per 1,000 ft²: {a.nLb.toFixed(2)} lb nitrogen, {a.p2o5Lb.toFixed(2)} lb
-                    phosphate, {a.k2oLb.toFixed(2)} lb potash.
+                    {t("nutrients", {
+                      n: a.nLb.toFixed(2),
+                      p: a.p2o5Lb.toFixed(2),
+                      k: a.k2oLb.toFixed(2),
+                    })}
                   </p>
                 ) : null}
                 {a.isPesticide && a.registrationNumber ? (
-                  <p className="text-sm text-muted">Registration number {a.registrationNumber}.</p>
+                  <p className="text-sm text-muted">
+                    {t("registration", { number: a.registrationNumber })}
+                  </p>
                 ) : null}
                 {a.reentryGuidance ? (
                   <p className="mt-2 flex items-start gap-2 rounded-lg bg-sun-tint p-3 font-semibold">
@@ -110,26 +122,21 @@ export function VisitReportView({ report }: { report: VisitReport }) {
                   </p>
                 ) : null}
                 {a.labelCautions ? (
-                  <p className="mt-2 text-sm">From the label: {a.labelCautions}</p>
+                  <p className="mt-2 text-sm">{t("fromLabel", { cautions: a.labelCautions })}</p>
                 ) : null}
               </li>
             ))}
           </ul>
         )}
-        <p className="mt-3 text-sm text-muted">
-          The product label is the law: read it before handling any lawn product, and follow local
-          rules on fertilizer and pesticide use.
-        </p>
+        <p className="mt-3 text-sm text-muted">{t("labelIsLaw")}</p>
       </section>
 
       <section aria-labelledby="notes-title">
         <h2 id="notes-title" className="mb-3 text-2xl font-bold">
-          Care notes
+          {t("careNotes")}
         </h2>
         {report.careNotes.length === 0 ? (
-          <p className="rounded-lg border border-line bg-card p-4">
-            Nothing to change: keep mowing high and watering deeply when it is dry.
-          </p>
+          <p className="rounded-lg border border-line bg-card p-4">{t("noCareNotes")}</p>
         ) : (
           <ul className="space-y-3">
             {report.careNotes.map(({ note, because }) => (
@@ -138,9 +145,11 @@ export function VisitReportView({ report }: { report: VisitReport }) {
                 className="break-inside-avoid rounded-xl border border-line bg-card p-4"
               >
                 <h3 className="text-lg font-bold">{note.title}</h3>
-                <p className="mt-1 text-sm text-muted">Because we saw: {because.join("; ")}.</p>
+                <p className="mt-1 text-sm text-muted">
+                  {t("because", { findings: because.join("; ") })}
+                </p>
                 <p className="mt-2">{note.body}</p>
-                <p className="mt-1 text-sm text-muted">Source: {note.source}.</p>
+                <p className="mt-1 text-sm text-muted">{t("source", { source: note.source })}</p>
                 {note.cautions?.map((c) => (
                   <p
                     key={c}

@@ -15,6 +15,8 @@ export interface Homeowner {
   emailVerified: Date | null;
   companyId: string;
   companyName: string;
+  /** The company's locale: the words and dates of the e-mails it sends. */
+  companyLocale: string;
 }
 
 export interface LinkUser {

@@ -149,6 +149,7 @@ export async function findHomeowner(emailKey: string): Promise<Homeowner | undef
       "users.email_verified",
       "memberships.company_id",
       "companies.name as company_name",
+      "companies.locale as company_locale",
     ])
     .where("users.email", "=", emailKey)
     .where("users.disabled_at", "is", null)
@@ -163,6 +164,7 @@ export async function findHomeowner(emailKey: string): Promise<Homeowner | undef
       emailVerified: row.email_verified,
       companyId: row.company_id,
       companyName: row.company_name,
+      companyLocale: row.company_locale,
     }
   );
 }

@@ -8,9 +8,9 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
 
-import { signInLinkEmail } from "@/lib/auth/sign-in-email";
 import { appUrl, serverEnv } from "@/lib/env";
 import { sameOriginPath } from "@/lib/http/redirect";
+import { signInLinkEmail } from "@/lib/mail/sign-in-email";
 
 import type { Homeowner } from "./dto";
 import { markEmailVerified, storeSignInLink, takeVerificationToken } from "./mutations";
@@ -134,6 +134,7 @@ export async function queueSignInLink(params: {
     minutes: SIGN_IN_LINK_MINUTES,
     companyName: h.companyName,
     name: h.name,
+    locale: h.companyLocale,
   });
   const key = createHash("sha256").update(params.token).digest("hex").slice(0, 40);
   await storeSignInLink(

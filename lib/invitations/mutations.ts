@@ -62,7 +62,14 @@ async function propertyForInvitation(trx: Transaction<Database>, actor: Actor, p
   const property = await trx
     .selectFrom("properties as p")
     .innerJoin("companies as c", "c.id", "p.company_id")
-    .select(["p.id", "p.street", "p.city", "p.archived_at", "c.name as company_name"])
+    .select([
+      "p.id",
+      "p.street",
+      "p.city",
+      "p.archived_at",
+      "c.name as company_name",
+      "c.locale as company_locale",
+    ])
     .where("p.company_id", "=", actor.companyId)
     .where("p.id", "=", propertyId)
     .executeTakeFirst();
@@ -73,7 +80,7 @@ async function propertyForInvitation(trx: Transaction<Database>, actor: Actor, p
 async function queueInvitationMail(
   trx: Transaction<Database>,
   actor: Actor,
-  property: { street: string; city: string; company_name: string },
+  property: { street: string; city: string; company_name: string; company_locale: string },
   invitation: { email: string; name: string },
   token: string,
 ): Promise<void> {
@@ -84,6 +91,7 @@ async function queueInvitationMail(
     name: invitation.name,
     street: property.street,
     city: property.city,
+    locale: property.company_locale,
   });
   const key = createHash("sha256").update(token).digest("hex").slice(0, 40);
   await enqueueMail(trx, {

@@ -125,7 +125,7 @@ async function queueVisitReportMail(
       sessionId: "",
     };
     const report = await getVisitReport(homeowner, visitId, trx);
-    const mail = reportEmail(report, appUrl, h.name);
+    const mail = reportEmail(report, appUrl, h.name, actor.companyLocale);
     const isNew = await enqueueMail(trx, {
       companyId: actor.companyId,
       kind: "visit_report",

@@ -9,6 +9,7 @@ import type { Database } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
 import { notFound } from "@/lib/http/app-error";
+import { words } from "@/lib/i18n/translate";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { findSymptom } from "@/lib/reference/symptoms";
@@ -115,6 +116,7 @@ export async function getVisitReport(
       .execute(),
   ]);
   const checked = zones.filter((z) => checks.some((c) => c.zone_id === z.id));
+  const zoneWords = words(actor.companyLocale, "report.zone");
   const reportZones = checked.map((z) => {
     const c = checks.find((x) => x.zone_id === z.id)!;
     const values = valuesOf(c);
@@ -127,7 +129,7 @@ export async function getVisitReport(
             ? SKIP_REASONS[c.skip_reason]
             : "Not checked this time"
           : null,
-      sentences: c.status === "skipped" ? [] : zoneSentences(values, symptomName),
+      sentences: c.status === "skipped" ? [] : zoneSentences(values, symptomName, zoneWords),
       index: c.sward_index,
       photos: photos.filter((p) => p.zoneId === z.id),
     };

@@ -1,6 +1,9 @@
 // The visit report e-mail to a homeowner (pure): a short summary, the care-note titles, the
-// keep-off guidance of anything applied, photos as links, and one button to the report.
+// keep-off guidance of anything applied, photos as links, and one button to the report. Words
+// from the catalogue (lib/i18n/messages, "report" and "email"), the same the report page reads.
 import { formatDate } from "@/lib/dates";
+import { translator, words } from "@/lib/i18n/translate";
+import { emailButton, emailFrame } from "@/lib/mail/layout";
 import { visitReportPath } from "@/lib/paths";
 import type { VisitReport } from "@/lib/reports/dto";
 import { escapeHtml } from "@/lib/text";
@@ -20,47 +23,64 @@ export function reportEmail(
   >,
   appUrl: string,
   homeownerName: string,
+  locale?: string | null,
 ) {
+  const mail = words(locale, "report.mail");
+  const email = words(locale, "email");
   const base = appUrl.replace(/\/$/, "");
   const link = `${base}${visitReportPath(report.visitId)}`;
-  const subject = `Your lawn visit report — ${report.propertyName}, ${formatDate(report.date)}`;
+  const date = formatDate(report.date, locale ?? undefined);
+  const subject = mail("subject", { property: report.propertyName, date });
   const keepOff = [...new Set(report.applications.map((a) => a.reentryGuidance).filter(Boolean))];
+  const products = [...new Set(report.applications.map((a) => a.productName))].join(", ");
   const photos = report.zones.flatMap((z) =>
     z.photos.map((p) => ({ zone: z.name, url: `${base}${p.displayUrl}` })),
   );
   const score = report.propertyIndex === null ? null : Math.round(report.propertyIndex);
+  const visited = mail("visited", {
+    who: report.technicianName ?? report.companyName,
+    property: report.propertyName,
+    date,
+  });
+  // The Index sentence is the report page's own; <strong> marks the figure in both.
+  const index = (strong: (chunks: string) => string) =>
+    score === null
+      ? ""
+      : ` ${translator(locale, "report").markup("index", { score: String(score), strong })}`;
+  const hello = email("hello", { name: homeownerName });
+  const signOff = email("signOff", { company: report.companyName });
   const lines = [
-    `Hello ${homeownerName},`,
+    hello,
     "",
-    `${report.technicianName ?? report.companyName} visited ${report.propertyName} on ${formatDate(report.date)}.${score !== null ? ` Your lawn's Sward Index: ${score} out of 100.` : ""}`,
+    `${visited}${index((s) => s)}`,
     ...(report.applications.length
-      ? [
-          "",
-          `Applied: ${[...new Set(report.applications.map((a) => a.productName))].join(", ")}.`,
-          ...keepOff.map((k) => `Safety: ${k}`),
-        ]
+      ? ["", mail("appliedList", { products }), ...keepOff.map((k) => `${mail("safety")} ${k}`)]
       : []),
     ...(report.careNotes.length
-      ? ["", "Care notes for you:", ...report.careNotes.map((n) => `• ${n.note.title}`)]
+      ? ["", mail("careNotesForYou"), ...report.careNotes.map((n) => `• ${n.note.title}`)]
       : []),
-    ...(photos.length
-      ? ["", "Photos (sign in to see them):", ...photos.map((p) => `• ${p.zone}: ${p.url}`)]
-      : []),
+    ...(photos.length ? ["", mail("photos"), ...photos.map((p) => `• ${p.zone}: ${p.url}`)] : []),
     "",
-    `Read the full report: ${link}`,
-    "To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.",
+    `${mail("readFull")} ${link}`,
+    mail("howToSignIn"),
     "",
-    `— ${report.companyName}`,
+    signOff,
   ];
-  const html = `<div style="font-family:system-ui,sans-serif;color:#18211b;max-width:36rem">
-<p>Hello ${escapeHtml(homeownerName)},</p>
-<p>${escapeHtml(report.technicianName ?? report.companyName)} visited <strong>${escapeHtml(report.propertyName)}</strong> on ${escapeHtml(formatDate(report.date))}.${score !== null ? ` Your lawn's Sward Index: <strong>${score}</strong> out of 100.` : ""}</p>
-${report.applications.length ? `<p>Applied: ${escapeHtml([...new Set(report.applications.map((a) => a.productName))].join(", "))}.</p>${keepOff.map((k) => `<p style="background:#f6ecd6;padding:8px;border-radius:6px"><strong>Safety:</strong> ${escapeHtml(k)}</p>`).join("")}` : ""}
-${report.careNotes.length ? `<p>Care notes for you:</p><ul>${report.careNotes.map((n) => `<li>${escapeHtml(n.note.title)}</li>`).join("")}</ul>` : ""}
-${photos.length ? `<p>Photos (sign in to see them): ${photos.map((p) => `<a href="${escapeHtml(p.url)}">${escapeHtml(p.zone)}</a>`).join(" · ")}</p>` : ""}
-<p><a href="${escapeHtml(link)}" style="display:inline-block;background:#2f6b3a;color:#fff;padding:12px 18px;border-radius:8px;text-decoration:none;font-weight:bold">Read your visit report</a></p>
-<p style="color:#5b665e">To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.</p>
-<p>— ${escapeHtml(report.companyName)}</p>
-</div>`;
+  const html = emailFrame([
+    `<p>${escapeHtml(hello)}</p>`,
+    `<p>${escapeHtml(visited)}${index((s) => `<strong>${s}</strong>`)}</p>`,
+    report.applications.length
+      ? `<p>${escapeHtml(mail("appliedList", { products }))}</p>${keepOff.map((k) => `<p style="background:#f6ecd6;padding:8px;border-radius:6px"><strong>${escapeHtml(mail("safety"))}</strong> ${escapeHtml(k)}</p>`).join("")}`
+      : "",
+    report.careNotes.length
+      ? `<p>${escapeHtml(mail("careNotesForYou"))}</p><ul>${report.careNotes.map((n) => `<li>${escapeHtml(n.note.title)}</li>`).join("")}</ul>`
+      : "",
+    photos.length
+      ? `<p>${escapeHtml(mail("photos"))} ${photos.map((p) => `<a href="${escapeHtml(p.url)}">${escapeHtml(p.zone)}</a>`).join(" · ")}</p>`
+      : "",
+    emailButton(link, mail("button")),
+    `<p style="color:#5b665e">${escapeHtml(mail("howToSignIn"))}</p>`,
+    `<p>${escapeHtml(signOff)}</p>`,
+  ]);
   return { subject, text: lines.join("\n"), html };
 }

@@ -17,45 +17,52 @@ export interface CheckForWords {
   symptoms: { key: string; severity: 1 | 2 | 3; extentPct: number }[];
 }
 
-/** The 1–9 rating scale in words (9 ideal, 6 the lowest acceptable; NTEP guide, common practice). */
-function ratingWord(r: number): string {
-  if (r >= 9) return "excellent";
-  if (r === 8) return "very good";
-  if (r === 7) return "good";
-  if (r === 6) return "acceptable";
-  if (r === 5) return "fair";
-  return "poor";
-}
+/** The catalogue's "report.zone" words (lib/i18n/translate.ts `words`). */
+type ZoneWords = (key: string, values?: Record<string, string | number>) => string;
 
-const SEVERITY = { 1: "light", 2: "moderate", 3: "severe" } as const;
-
-export function zoneSentences(c: CheckForWords, symptomName: (key: string) => string): string[] {
+/**
+ * The sentences of one zone check in a homeowner's words. Ratings on the 1–9 scale read as words
+ * (9 ideal, 6 the lowest acceptable; NTEP guide, common practice): the catalogue's "rating".
+ */
+export function zoneSentences(
+  c: CheckForWords,
+  symptomName: (key: string) => string,
+  t: ZoneWords,
+): string[] {
   const out: string[] = [];
   const rated: [string, number | null][] = [
-    ["Overall", c.quality],
-    ["Color", c.color],
-    ["Thickness", c.density],
-    ["Evenness", c.uniformity],
+    [t("overall"), c.quality],
+    [t("color"), c.color],
+    [t("density"), c.density],
+    [t("uniformity"), c.uniformity],
   ];
   const parts = rated
     .filter(([, v]) => v !== null)
-    .map(([label, v]) => `${label} ${ratingWord(v!)} (${v} of 9)`);
+    .map(([label, v]) =>
+      t("rated", { label, word: t("rating", { value: Math.min(9, v!) }), value: v! }),
+    );
   if (parts.length) out.push(`${parts.join(", ")}.`);
-  if ((c.barePct ?? 0) > 0) out.push(`About ${c.barePct} % bare ground.`);
-  if ((c.weedsPct ?? 0) > 0) out.push(`About ${c.weedsPct} % weeds.`);
+  if ((c.barePct ?? 0) > 0) out.push(t("bare", { pct: c.barePct! }));
+  if ((c.weedsPct ?? 0) > 0) out.push(t("weeds", { pct: c.weedsPct! }));
   const mowing = [
-    c.heightOfCutIn !== null ? `cut at ${c.heightOfCutIn.toFixed(2).replace(/0$/, "")} in` : null,
-    c.mowingDirection === "same" ? "mowed the same way as last time" : null,
-    c.isMatted ? "grass matted and laid over" : null,
-    c.hasTornTips ? "torn leaf tips (a dull blade)" : null,
-    c.isScalped ? "scalped in places" : null,
-    c.hasClumpedClippings ? "clumps of clippings" : null,
+    c.heightOfCutIn !== null
+      ? t("cutAt", { inches: c.heightOfCutIn.toFixed(2).replace(/0$/, "") })
+      : null,
+    c.mowingDirection === "same" ? t("sameWay") : null,
+    c.isMatted ? t("matted") : null,
+    c.hasTornTips ? t("tornTips") : null,
+    c.isScalped ? t("scalped") : null,
+    c.hasClumpedClippings ? t("clumped") : null,
   ].filter(Boolean);
-  if (mowing.length) out.push(`Mowing: ${mowing.join(", ")}.`);
-  if (c.soilMoisture) out.push(`Soil ${c.soilMoisture}.`);
+  if (mowing.length) out.push(t("mowing", { parts: mowing.join(", ") }));
+  if (c.soilMoisture) out.push(t("soil", { moisture: c.soilMoisture }));
   for (const s of c.symptoms)
     out.push(
-      `Signs of ${symptomName(s.key).toLowerCase()} (${SEVERITY[s.severity]}, about ${s.extentPct} % of the zone).`,
+      t("symptom", {
+        name: symptomName(s.key).toLowerCase(),
+        severity: s.severity,
+        pct: s.extentPct,
+      }),
     );
   return out;
 }

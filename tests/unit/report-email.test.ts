@@ -69,7 +69,7 @@ describe("report e-mail", () => {
     expect(m.subject).toBe(
       "Your lawn visit report — <script>alert(1)</script> residence, Tue, Oct 20, 2026",
     );
-    expect(m.text).toMatch(/Your lawn's Sward Index: 78 out of 100/);
+    expect(m.text).toMatch(/Your lawn's Sward Index at this visit: 78 out of 100\./);
     expect(m.text).toMatch(/Safety: Keep off until watered in and the turf has dried\./);
     expect(m.text).toMatch(/• After today's feeding/);
     expect(m.text).toContain("http://localhost:3000/api/v1/photos/p/display");

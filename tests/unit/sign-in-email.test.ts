@@ -1,7 +1,7 @@
 // The sign-in link e-mail: the link in both parts, how long it works, and stored names rendered inert.
 import { describe, expect, it } from "vitest";
 
-import { signInLinkEmail } from "@/lib/auth/sign-in-email";
+import { signInLinkEmail } from "@/lib/mail/sign-in-email";
 
 describe("signInLinkEmail", () => {
   const link =

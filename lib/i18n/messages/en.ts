@@ -110,6 +110,84 @@ export const en = {
     act: "See the evidence and act on them",
     when: "Sward checks every morning and when a visit is finished.",
   },
+  email: {
+    hello: "Hello {name},",
+    helloNoName: "Hello,",
+    signOff: "— {company}",
+    buttonFallback: "If the button does not work, copy this address into your browser:",
+    signIn: {
+      subject: "Your sign-in link for {company}",
+      body: "Open this link to sign in and see your lawn's visit reports. It works once, within {minutes, plural, one {# minute} other {# minutes}}",
+      button: "Sign in to see your lawn",
+      ignore:
+        "If you did not ask to sign in, ignore this e-mail: nobody can sign in without the link.",
+    },
+    invitation: {
+      subject: "{company} invites you to follow your lawn",
+      intro:
+        "{company} keeps a journal of the lawn at {place}: what each visit found, what was applied and why, and what to do between visits.",
+      action:
+        "Open this link to accept the invitation. It works once, within {days, plural, one {# day} other {# days}}",
+      button: "See the invitation",
+      ignore:
+        "If you do not know this company or this lawn, ignore this e-mail: nothing is linked unless you accept.",
+    },
+  },
+  report: {
+    kicker: "{company} · visit report",
+    title: "{property}, {date}",
+    technician: "Your technician: {name}.",
+    weather: "Weather that day: {high}/{low} °F, {rain} in of rain.",
+    index: "Your lawn's Sward Index at this visit: <strong>{score}</strong> out of 100.",
+    seen: "What we saw",
+    notChecked: "Not checked this time: {reason}.",
+    photosOf: "Photos of {zone}",
+    applied: "What we applied",
+    nothingApplied: "Nothing was applied at this visit.",
+    productOnZone: "{product} on the {zone}",
+    nutrients: "Per 1,000 ft²: {n} lb nitrogen, {p} lb phosphate, {k} lb potash.",
+    registration: "Registration number {number}.",
+    fromLabel: "From the label: {cautions}",
+    labelIsLaw:
+      "The product label is the law: read it before handling any lawn product, and follow local rules on fertilizer and pesticide use.",
+    careNotes: "Care notes",
+    noCareNotes: "Nothing to change: keep mowing high and watering deeply when it is dry.",
+    because: "Because we saw: {findings}.",
+    source: "Source: {source}.",
+    mail: {
+      subject: "Your lawn visit report — {property}, {date}",
+      visited: "{who} visited {property} on {date}.",
+      appliedList: "Applied: {products}.",
+      safety: "Safety:",
+      careNotesForYou: "Care notes for you:",
+      photos: "Photos (sign in to see them):",
+      readFull: "Read the full report:",
+      button: "Read your visit report",
+      howToSignIn:
+        "To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.",
+    },
+    zone: {
+      overall: "Overall",
+      color: "Color",
+      density: "Thickness",
+      uniformity: "Evenness",
+      rated: "{label} {word} ({value} of 9)",
+      rating:
+        "{value, plural, =9 {excellent} =8 {very good} =7 {good} =6 {acceptable} =5 {fair} other {poor}}",
+      bare: "About {pct} % bare ground.",
+      weeds: "About {pct} % weeds.",
+      mowing: "Mowing: {parts}.",
+      cutAt: "cut at {inches} in",
+      sameWay: "mowed the same way as last time",
+      matted: "grass matted and laid over",
+      tornTips: "torn leaf tips (a dull blade)",
+      scalped: "scalped in places",
+      clumped: "clumps of clippings",
+      soil: "Soil {moisture, select, dry {dry} moist {moist} other {wet}}.",
+      symptom:
+        "Signs of {name} ({severity, plural, =1 {light} =2 {moderate} other {severe}}, about {pct} % of the zone).",
+    },
+  },
 } as const;
 
 export type Messages = typeof en;

@@ -46,7 +46,7 @@ export default async function DevMailPage({
   ]);
   // An invited address may belong to someone of another company: of its mail, only this
   // company's own invitations are shown.
-  const ourInvitation = invitationSubject(actor.companyName);
+  const ourInvitation = invitationSubject(actor.companyName, actor.companyLocale);
   const mails = (await readInbox(dir))
     .filter((m) =>
       m.to.some(
