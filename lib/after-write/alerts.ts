@@ -110,6 +110,9 @@ async function propertyRuleResults(
       .where("company_id", "=", companyId)
       .where("property_id", "=", propertyId)
       .where("archived_at", "is", null)
+      // The property page's order: evidence that names zones lists them the same way every time.
+      .orderBy("sort_order")
+      .orderBy("name")
       .execute(),
     executor
       .selectFrom("zone_checks")
