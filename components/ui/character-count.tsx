@@ -11,7 +11,7 @@ export function CharacterCount({ id, length, max }: { id: string; length: number
       }
     >
       {over
-        ? `${(length - max).toLocaleString("en-US")} characters over the ${max.toLocaleString("en-US")}-character limit`
+        ? `${(length - max).toLocaleString("en-US")} ${length - max === 1 ? "character" : "characters"} over the ${max.toLocaleString("en-US")}-character limit`
         : `${length.toLocaleString("en-US")} of ${max.toLocaleString("en-US")} characters`}
     </p>
   );
