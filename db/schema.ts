@@ -347,10 +347,24 @@ export interface AuditEventsTable {
   id: Generated<string>;
   company_id: string;
   actor_id: string | null;
-  entity: "visit" | "zone_check" | "property" | "zone" | "rule_set" | "application";
+  entity:
+    | "visit"
+    | "zone_check"
+    | "property"
+    | "zone"
+    | "rule_set"
+    | "application"
+    | "photo"
+    | "watering";
   entity_id: string;
   action: string;
   changes: ColumnType<Record<string, { from: unknown; to: unknown }>, string, string>;
+  /** The visit the event belongs to (its trail), when it belongs to one. */
+  visit_id: string | null;
+  /** The zone the event is about, when it is about one. */
+  zone_id: string | null;
+  /** Why: required for every correction of a finished visit (1–500 characters). */
+  reason: string | null;
   created_at: Generated<Date>;
 }
 
@@ -399,6 +413,8 @@ interface WateringsTable {
   precipitation_rate_in_per_h: number | null;
   entered_by_role: Role;
   notes: Generated<string>;
+  /** The visit it was recorded on, when it was recorded on one. */
+  visit_id: string | null;
   created_by: string | null;
   created_at: Generated<Date>;
 }

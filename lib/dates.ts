@@ -115,3 +115,19 @@ export function formatDateTime(
     timeZone,
   }).format(new Date(at));
 }
+
+/** "Dec 2, 2026, 3:05 PM" in en-US, in the given zone: a moment in a record (an audit trail). */
+export function formatDateTimeWithYear(
+  at: Date | string,
+  timeZone: string,
+  locale: string = DEFAULT_LOCALE,
+): string {
+  return new Intl.DateTimeFormat(locale, {
+    day: "numeric",
+    month: "short",
+    year: "numeric",
+    hour: "numeric",
+    minute: "2-digit",
+    timeZone,
+  }).format(new Date(at));
+}

@@ -188,7 +188,17 @@ export function ApplicationPanel({
   disabled,
   onRecorded,
   weather,
+  correctionReason = null,
+  entries,
 }: {
+  /** On a finished visit, the reason the manager gave for the correction (sent with the record). */
+  correctionReason?: string | null;
+  /** Correct and Delete for the applications listed, for whoever may (lib: the entry's author or a manager). */
+  entries?: {
+    canChange: (a: ApplicationDto) => boolean;
+    correct: (a: ApplicationDto) => void;
+    remove: (a: ApplicationDto) => void;
+  };
   visitId: string;
   zoneId: string;
   areaFt2: number;
@@ -352,6 +362,7 @@ export function ApplicationPanel({
           ...values,
           overrideReason: withOverride && values.overrideReason ? values.overrideReason : null,
           overrideCategory: withOverride ? (values.overrideCategory ?? null) : null,
+          ...(correctionReason ? { correctionReason } : {}),
         },
       );
       if (result.ok) {
@@ -414,6 +425,26 @@ export function ApplicationPanel({
                     ⚠ {f.message}
                   </p>
                 ))}
+              {entries?.canChange(a) ? (
+                <div className="mt-2 flex flex-wrap gap-2">
+                  <Button
+                    type="button"
+                    variant="secondary"
+                    onClick={() => entries.correct(a)}
+                    aria-label={`Correct the application of ${a.product.name}`}
+                  >
+                    Correct
+                  </Button>
+                  <Button
+                    type="button"
+                    variant="secondary"
+                    onClick={() => entries.remove(a)}
+                    aria-label={`Delete the application of ${a.product.name}`}
+                  >
+                    Delete
+                  </Button>
+                </div>
+              ) : null}
             </li>
           ))}
         </ul>

@@ -2,8 +2,10 @@
 
 // Photos on a zone check: drag and drop on a desktop; "Take photo" (rear camera) and "Choose from
 // library" on a phone; several at once, each with a progress bar (upload, then processing),
-// thumbnails at once, and a retry for a file that failed.
-import { Camera, ImagePlus, RefreshCw, Upload } from "lucide-react";
+// thumbnails at once; a file that failed can be dismissed, and retried only when a retry can
+// succeed (no connection, a server fault, a busy server — not a file that is not a photo or too
+// large). Photos already on the check can be deleted by whoever may (`canDelete`).
+import { Camera, ImagePlus, RefreshCw, Trash2, Upload, X } from "lucide-react";
 import { useCallback, useEffect, useRef, useState } from "react";
 import { useDropzone } from "react-dropzone";
 
@@ -23,7 +25,13 @@ interface QueueItem {
   status: "waiting" | "uploading" | "processing" | "done" | "error";
   progress: number;
   message?: string;
+  /** Sending the same file again can succeed (a network or server failure, not the file itself). */
+  retryable?: boolean;
 }
+
+/** Answers after which the same file can succeed: none (no connection), a conflict, busy, server faults. */
+const canRetryUpload = (status: number) =>
+  status === 0 || status === 408 || status === 409 || status === 429 || status >= 500;
 
 function send(
   url: string,
@@ -60,12 +68,19 @@ export function PhotoUploader({
   photos,
   onUploaded,
   disabled,
+  uploadQuery = "",
+  canDelete,
+  onDelete,
 }: {
   visitId: string;
   ensureSaved: () => Promise<string>;
   photos: PhotoDto[];
   onUploaded: (photo: PhotoDto) => void;
   disabled: boolean;
+  /** Added to the upload's address (a correction's reason on a finished visit). */
+  uploadQuery?: string;
+  canDelete?: (photo: PhotoDto) => boolean;
+  onDelete?: (photo: PhotoDto) => void;
 }) {
   const [queue, setQueue] = useState<QueueItem[]>([]);
   const [limit] = useState(() => createLimiter(PARALLEL));
@@ -80,7 +95,7 @@ export function PhotoUploader({
         try {
           const zoneCheckId = await ensureSaved();
           const { status, body } = await send(
-            `/api/v1/visits/${visitId}/zone-checks/${zoneCheckId}/photos`,
+            `/api/v1/visits/${visitId}/zone-checks/${zoneCheckId}/photos${uploadQuery}`,
             item.file,
             (progress) => patch(item.localId, { progress }),
             () => patch(item.localId, { status: "processing", progress: 100 }),
@@ -94,16 +109,17 @@ export function PhotoUploader({
               (status === 0
                 ? "No connection. The photo is still here; retry when you have signal."
                 : `The server answered ${status}.`);
-            patch(item.localId, { status: "error", message });
+            patch(item.localId, { status: "error", message, retryable: canRetryUpload(status) });
           }
         } catch (err) {
           patch(item.localId, {
             status: "error",
             message: err instanceof Error ? err.message : "Upload failed.",
+            retryable: true,
           });
         }
       }),
-    [ensureSaved, limit, onUploaded, visitId],
+    [ensureSaved, limit, onUploaded, uploadQuery, visitId],
   );
 
   // Previews are blob: URLs; free them when the uploader goes away.
@@ -151,6 +167,18 @@ export function PhotoUploader({
           {photos.map((p) => (
             <li key={p.id}>
               <PhotoFigure photo={p} />
+              {onDelete && canDelete?.(p) ? (
+                <Button
+                  type="button"
+                  variant="secondary"
+                  className="mt-1 w-full"
+                  onClick={() => onDelete(p)}
+                  aria-label={`Delete this photo (${Math.round(p.greenCoverPct)} % green cover)`}
+                >
+                  <Trash2 className="size-5" aria-hidden="true" />
+                  Delete photo
+                </Button>
+              ) : null}
             </li>
           ))}
         </ul>
@@ -223,7 +251,7 @@ export function PhotoUploader({
                   </>
                 )}
               </div>
-              {item.status === "error" && item.file.size > 0 && item.file.size <= MAX_BYTES ? (
+              {item.status === "error" && item.retryable ? (
                 <Button
                   type="button"
                   variant="secondary"
@@ -235,6 +263,17 @@ export function PhotoUploader({
                 >
                   <RefreshCw className="size-5" aria-hidden="true" />
                   Retry
+                </Button>
+              ) : null}
+              {item.status === "error" ? (
+                <Button
+                  type="button"
+                  variant="secondary"
+                  onClick={() => setQueue((q) => q.filter((x) => x.localId !== item.localId))}
+                  aria-label={`Dismiss ${item.file.name || "photo"}`}
+                >
+                  <X className="size-5" aria-hidden="true" />
+                  Dismiss
                 </Button>
               ) : null}
             </li>

@@ -15,15 +15,25 @@ export function useZoneCheckAutosave(
   serverCheck: ZoneCheckDto | undefined,
   canEdit: boolean,
   onSaved: (check: ZoneCheckDto) => void,
+  /** A finished visit's correction: its reason goes with every save (the server requires it). */
+  correctionReason: string | null = null,
 ) {
   const onSavedRef = useRef(onSaved);
+  const reasonRef = useRef(correctionReason);
   useEffect(() => {
     onSavedRef.current = onSaved;
-  }, [onSaved]);
+    reasonRef.current = correctionReason;
+  }, [onSaved, correctionReason]);
   const [store] = useState(
     () =>
       new ZoneCheckAutosave(visitId, zoneId, serverCheck, canEdit, {
-        send: (url, body, keepalive) => sendJson<ZoneCheckDto>("PUT", url, body, { keepalive }),
+        send: (url, body, keepalive) =>
+          sendJson<ZoneCheckDto>(
+            "PUT",
+            url,
+            reasonRef.current ? { ...(body as object), correctionReason: reasonRef.current } : body,
+            { keepalive },
+          ),
         storage: {
           read: () => readDraft(visitId, zoneId),
           write: (d) => writeDraft(visitId, zoneId, d),

@@ -19,6 +19,7 @@ import { visitKeys } from "@/lib/visits/query-keys";
 import { clearVisitDrafts } from "./draft-store";
 import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
 import { useMergeApplication, useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
+import { mayChange, useEntryDialogs } from "./visit-entries";
 import { VisitSummary } from "./visit-summary";
 import { ZoneCheckForm } from "./zone-check-form";
 
@@ -56,6 +57,7 @@ export function VisitRunner({
   const searchParams = useSearchParams();
   const [message, setMessage] = useState<string | null>(null);
   const [isBusy, setIsBusy] = useState(false);
+  const [correctionReason, setCorrectionReason] = useState("");
   if (!visit) return null;
 
   const zoneId = searchParams.get("zone");
@@ -165,46 +167,72 @@ export function VisitRunner({
           </p>
         </header>
         {visit.status === "completed" ? (
-          <p className="mb-4 rounded-lg bg-sun-tint p-3">
-            This visit is finished. Your changes are recorded in its audit trail.
-          </p>
+          <div className="mb-4 space-y-2 rounded-lg bg-sun-tint p-3">
+            <p>
+              This visit is finished. Your changes are recorded in its audit trail with the reason
+              you give here; nothing is saved without one.
+            </p>
+            <label className="block">
+              <span className="mb-1 block font-semibold">Reason for the correction (required)</span>
+              <input
+                type="text"
+                value={correctionReason}
+                onChange={(e) => setCorrectionReason(e.target.value)}
+                maxLength={500}
+                placeholder="What was wrong, e.g. misread in shade"
+                className="min-h-tap w-full rounded-lg border border-line bg-paper px-3"
+              />
+            </label>
+          </div>
         ) : null}
-        <ZoneCheckForm
-          key={zone.id}
-          visitId={visit.id}
-          zone={zone}
-          serverCheck={checkOf(zone.id)}
-          canEdit={visit.canEdit}
-          timeZone={visit.timeZone}
-          onSaved={mergeCheck}
-          photos={visit.photos.filter((p) => p.zoneId === zone.id)}
-          onPhotoUploaded={mergePhoto}
-          applications={visit.applications}
-          onApplicationRecorded={mergeApplication}
-          ruleSetId={visit.ruleSetId}
-          isManager={isManager}
-          weather={visit.weather?.status === "ok" ? visit.weather : null}
-          footer={
-            <div className="flex gap-2">
-              <Button
-                type="button"
-                variant="secondary"
-                className="flex-1"
-                onClick={() => openZone(null)}
-              >
-                All zones
-              </Button>
-              <Button
-                type="button"
-                className="flex-1"
-                onClick={() => openZone(next ? next.id : null)}
-              >
-                {next ? `Next: ${next.name}` : "Review and finish"}
-                <ArrowRight className="size-5" aria-hidden="true" />
-              </Button>
-            </div>
-          }
-        />
+        <ZoneEntries visit={visit} isManager={isManager}>
+          {(entries) => (
+            <ZoneCheckForm
+              key={zone.id}
+              visitId={visit.id}
+              zone={zone}
+              serverCheck={checkOf(zone.id)}
+              canEdit={visit.canEdit}
+              timeZone={visit.timeZone}
+              onSaved={(check) => {
+                mergeCheck(check);
+                if (visit.status === "completed")
+                  void queryClient.invalidateQueries({ queryKey: visitKeys.audit(visitId) });
+              }}
+              correctionReason={
+                visit.status === "completed" ? correctionReason.trim() || null : null
+              }
+              entries={entries}
+              photos={visit.photos.filter((p) => p.zoneId === zone.id)}
+              onPhotoUploaded={mergePhoto}
+              applications={visit.applications}
+              onApplicationRecorded={mergeApplication}
+              ruleSetId={visit.ruleSetId}
+              isManager={isManager}
+              weather={visit.weather?.status === "ok" ? visit.weather : null}
+              footer={
+                <div className="flex gap-2">
+                  <Button
+                    type="button"
+                    variant="secondary"
+                    className="flex-1"
+                    onClick={() => openZone(null)}
+                  >
+                    All zones
+                  </Button>
+                  <Button
+                    type="button"
+                    className="flex-1"
+                    onClick={() => openZone(next ? next.id : null)}
+                  >
+                    {next ? `Next: ${next.name}` : "Review and finish"}
+                    <ArrowRight className="size-5" aria-hidden="true" />
+                  </Button>
+                </div>
+              }
+            />
+          )}
+        </ZoneEntries>
       </>
     );
   }
@@ -265,6 +293,35 @@ export function VisitRunner({
           )}
         </div>
       ) : null}
+    </>
+  );
+}
+
+/** The Correct/Delete dialogs of a visit, handed to the zone form as callbacks. */
+function ZoneEntries({
+  visit,
+  isManager,
+  children,
+}: {
+  visit: VisitDetailDto;
+  isManager: boolean;
+  children: (entries: {
+    canChange: (authorId: string | null) => boolean;
+    deletePhoto: (photo: VisitDetailDto["photos"][number]) => void;
+    correctApplication: (a: VisitDetailDto["applications"][number]) => void;
+    deleteApplication: (a: VisitDetailDto["applications"][number]) => void;
+  }) => ReactNode;
+}) {
+  const { open, dialog } = useEntryDialogs(visit);
+  return (
+    <>
+      {dialog}
+      {children({
+        canChange: (authorId) => mayChange(visit, isManager, authorId),
+        deletePhoto: (photo) => open({ kind: "delete-photo", photo }),
+        correctApplication: (application) => open({ kind: "correct-application", application }),
+        deleteApplication: (application) => open({ kind: "delete-application", application }),
+      })}
     </>
   );
 }

@@ -1,9 +1,10 @@
 "use client";
 
-// A finished visit: what each zone check recorded, in words; for managers, corrections and
-// the audit trail of who changed what after the visit was finished.
+// A finished visit: what each zone check recorded, in words, with the zone's photos and
+// applications and the visit's waterings; for managers, corrections (each asks a reason, in a
+// dialog) and the audit trail of who changed what after the visit was finished, in words.
 import { useQuery } from "@tanstack/react-query";
-import { History, PencilLine } from "lucide-react";
+import { History, PencilLine, Trash2 } from "lucide-react";
 
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { Button } from "@/components/ui/button";
@@ -22,6 +23,7 @@ import type { AuditEventDto, VisitDetailDto, ZoneCheckDto } from "@/lib/visits/d
 import { visitKeys } from "@/lib/visits/query-keys";
 
 import { ZoneStatusBadge } from "./status-badge";
+import { ApplicationEntry, mayChange, useEntryDialogs, WateringEntries } from "./visit-entries";
 
 const SEVERITY = { 1: "light", 2: "moderate", 3: "severe" } as const;
 
@@ -120,7 +122,7 @@ function Facts({ check }: { check: ZoneCheckDto }) {
   );
 }
 
-function AuditTrail({ visitId, timeZone }: { visitId: string; timeZone: string }) {
+function AuditTrail({ visitId }: { visitId: string }) {
   const { data } = useQuery({
     queryKey: visitKeys.audit(visitId),
     queryFn: async () =>
@@ -133,21 +135,13 @@ function AuditTrail({ visitId, timeZone }: { visitId: string; timeZone: string }
         <History className="size-5" aria-hidden="true" />
         Audit trail
       </h2>
-      <ul className="space-y-2">
+      <ul className="space-y-2" aria-label="Audit trail">
         {data.map((e) => (
           <li key={e.id} className="rounded-lg border border-line bg-card p-3 text-sm">
-            <p className="font-semibold">
-              {new Date(e.at).toLocaleDateString("en-GB", { timeZone })}{" "}
-              {formatTime(e.at, timeZone)} · {e.actor ?? "someone"} ·{" "}
-              {e.action.replaceAll("_", " ")}
+            <p className="text-muted">
+              <time dateTime={e.at}>{e.when}</time>
             </p>
-            <ul className="mt-1">
-              {Object.entries(e.changes).map(([field, { from, to }]) => (
-                <li key={field}>
-                  {field}: {JSON.stringify(from)} → {JSON.stringify(to)}
-                </li>
-              ))}
-            </ul>
+            <p>{e.sentence}</p>
           </li>
         ))}
       </ul>
@@ -164,8 +158,10 @@ export function VisitSummary({
   isManager: boolean;
   onEditZone?: (zoneId: string) => void;
 }) {
+  const { open, dialog } = useEntryDialogs(visit);
   return (
     <>
+      {dialog}
       <p className="mb-4 rounded-lg bg-sward-tint p-3 text-sward-deep">
         Finished{visit.completedAt ? ` at ${formatTime(visit.completedAt, visit.timeZone)}` : ""}
         {visit.completedBy ? ` by ${visit.completedBy}` : ""}. {visit.checkedZones} of{" "}
@@ -203,9 +199,39 @@ export function VisitSummary({
                     .map((p) => (
                       <li key={p.id}>
                         <PhotoFigure photo={p} />
+                        {mayChange(visit, isManager, p.uploadedById) ? (
+                          <Button
+                            type="button"
+                            variant="secondary"
+                            className="mt-1 w-full"
+                            onClick={() => open({ kind: "delete-photo", photo: p })}
+                          >
+                            <Trash2 className="size-5" aria-hidden="true" />
+                            Delete photo
+                          </Button>
+                        ) : null}
                       </li>
                     ))}
                 </ul>
+              ) : null}
+              {visit.applications.some((a) => a.zoneId === zone.id) ? (
+                <>
+                  <h4 className="mt-3 font-semibold">Applications</h4>
+                  <ul className="mt-1 space-y-2" aria-label={`Applications on ${zone.name}`}>
+                    {visit.applications
+                      .filter((a) => a.zoneId === zone.id)
+                      .map((a) => (
+                        <ApplicationEntry
+                          key={a.id}
+                          application={a}
+                          timeZone={visit.timeZone}
+                          canChange={mayChange(visit, isManager, a.createdById)}
+                          onCorrect={() => open({ kind: "correct-application", application: a })}
+                          onDelete={() => open({ kind: "delete-application", application: a })}
+                        />
+                      ))}
+                  </ul>
+                </>
               ) : null}
               {onEditZone && check ? (
                 <Button
@@ -222,7 +248,13 @@ export function VisitSummary({
           );
         })}
       </ul>
-      {isManager ? <AuditTrail visitId={visit.id} timeZone={visit.timeZone} /> : null}
+      <WateringEntries
+        visit={visit}
+        isManager={isManager}
+        onCorrect={(w) => open({ kind: "correct-watering", watering: w })}
+        onDelete={(w) => open({ kind: "delete-watering", watering: w })}
+      />
+      {isManager ? <AuditTrail visitId={visit.id} /> : null}
     </>
   );
 }

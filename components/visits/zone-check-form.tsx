@@ -60,7 +60,18 @@ export function ZoneCheckForm({
   ruleSetId,
   isManager,
   weather,
+  correctionReason = null,
+  entries,
 }: {
+  /** On a finished visit: the reason for the manager's correction, sent with every save. */
+  correctionReason?: string | null;
+  /** Correct and Delete of this zone's photos and applications, for whoever may. */
+  entries?: {
+    canChange: (authorId: string | null) => boolean;
+    deletePhoto: (photo: PhotoDto) => void;
+    correctApplication: (a: ApplicationDto) => void;
+    deleteApplication: (a: ApplicationDto) => void;
+  };
   weather: {
     tmaxF: number;
     tminF?: number;
@@ -88,6 +99,7 @@ export function ZoneCheckForm({
     serverCheck,
     canEdit,
     onSaved,
+    correctionReason,
   );
   const [localErrors, setLocalErrors] = useState<Record<string, string[]>>({});
   // The probe reading as typed: a reading outside 0–100 % stays in the box with its message and is
@@ -312,6 +324,11 @@ export function ZoneCheckForm({
               photos={photos}
               onUploaded={onPhotoUploaded}
               disabled={disabled}
+              uploadQuery={
+                correctionReason ? `?correctionReason=${encodeURIComponent(correctionReason)}` : ""
+              }
+              canDelete={entries ? (p) => entries.canChange(p.uploadedById) : undefined}
+              onDelete={entries?.deletePhoto}
             />
           </Section>
 
@@ -327,6 +344,16 @@ export function ZoneCheckForm({
               disabled={disabled}
               onRecorded={onApplicationRecorded}
               weather={weather}
+              correctionReason={correctionReason}
+              entries={
+                entries
+                  ? {
+                      canChange: (a) => entries.canChange(a.createdById),
+                      correct: entries.correctApplication,
+                      remove: entries.deleteApplication,
+                    }
+                  : undefined
+              }
             />
           </Section>
 

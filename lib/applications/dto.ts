@@ -33,4 +33,6 @@ export interface ApplicationDto {
   overrideReason: string | null;
   overrideCategory: OverrideCategory | null;
   overrideBy: string | null;
+  /** Who recorded it: they may correct or delete it while the visit is open. */
+  createdById: string | null;
 }

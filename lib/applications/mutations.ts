@@ -5,11 +5,13 @@
 // reason. The client's id makes a retry harmless.
 import "server-only";
 
-import { sql } from "kysely";
+import { sql, type Transaction } from "kysely";
 
 import { db } from "@/db";
+import type { Database } from "@/db/schema";
 import { afterWrite } from "@/lib/after-write";
 import { NutrientInputError } from "@/lib/agronomy/nutrients";
+import { correctionReasonFor } from "@/lib/audit/correction";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
@@ -25,6 +27,61 @@ import { assessApplication, type Assessment } from "./assess";
 import type { ApplicationDto } from "./dto";
 import { getZoneNitrogenYearToDate, listVisitApplications } from "./queries";
 import type { ApplicationInput } from "./schemas";
+
+/** What an audit event says of an application (before and after), in the trail's field names. */
+interface ApplicationFacts {
+  product: string;
+  zone?: string;
+  rate_amount: number;
+  rate_unit: string;
+  applied_at: Date;
+  wind_mph: number | null;
+  temperature_f: number | null;
+  is_establishing: boolean;
+  is_repairing: boolean;
+  applicator_name: string;
+  applicator_licence: string;
+}
+
+function factsOf(f: ApplicationFacts) {
+  return {
+    rate: { amount: Number(f.rate_amount), unit: f.rate_unit },
+    appliedAt: new Date(f.applied_at).toISOString(),
+    windMph: f.wind_mph === null ? null : Number(f.wind_mph),
+    temperatureF: f.temperature_f === null ? null : Number(f.temperature_f),
+    isEstablishing: f.is_establishing,
+    isRepairing: f.is_repairing,
+    applicatorName: f.applicator_name,
+    applicatorLicence: f.applicator_licence,
+  } as Record<string, unknown>;
+}
+
+/**
+ * The changes an audit event keeps: every fact from null (added) or to null (removed), or only
+ * those that differ (corrected); the product's name always, as context (equal from and to when
+ * it did not change — lib/visits/audit-words.ts reads such an entry as the subject).
+ */
+function applicationFacts(
+  before: ApplicationFacts | null,
+  after: ApplicationFacts | null,
+): Record<string, { from: unknown; to: unknown }> {
+  const a = before ? factsOf(before) : {};
+  const b = after ? factsOf(after) : {};
+  const changes: Record<string, { from: unknown; to: unknown }> = {
+    product: { from: before?.product ?? null, to: after?.product ?? null },
+  };
+  if (before && after && before.product === after.product)
+    changes.product = { from: before.product, to: after.product };
+  if (before?.zone && after?.zone && before.zone !== after.zone)
+    changes.zone = { from: before.zone, to: after.zone };
+  for (const key of new Set([...Object.keys(a), ...Object.keys(b)])) {
+    const from = a[key] ?? null;
+    const to = b[key] ?? null;
+    if (!before || !after || JSON.stringify(from) !== JSON.stringify(to))
+      changes[key] = { from, to };
+  }
+  return changes;
+}
 
 const invalid = (fieldErrors: Record<string, string[]>, message = "Some values need attention.") =>
   new AppError("invalid_input", message, fieldErrors);
@@ -48,14 +105,8 @@ async function recordedApplication(
   return found;
 }
 
-export async function recordApplication(
-  actor: Actor,
-  visitId: string,
-  input: ApplicationInput,
-): Promise<ApplicationDto> {
-  const retried = await recordedApplication(actor, visitId, input.id);
-  if (retried) return retried; // a retry of a recorded application
-
+/** The visit an application is recorded on, with what its checks read (unlocked: checked again under the lock). */
+async function applicationVisit(actor: Actor, visitId: string) {
   const visit = await db()
     .selectFrom("visits")
     .innerJoin("properties", "properties.id", "visits.property_id")
@@ -79,9 +130,29 @@ export async function recordApplication(
   if (visit.status === "completed" && actor.role !== "manager")
     throw new AppError(
       "forbidden",
-      "This visit is finished and locked. Ask your manager to add the application.",
+      "This visit is finished and locked. Ask your manager to correct the application.",
     );
+  return visit;
+}
+type ApplicationVisit = Awaited<ReturnType<typeof applicationVisit>>;
 
+/** What an application's fields are checked against when it is corrected (its own row left out). */
+interface Correcting {
+  id: string;
+  appliedAt: Date;
+}
+
+/**
+ * The checks every application goes through, new or corrected: the zone and product of the
+ * company, the record's required fields, the time bound to the visit, the label and the rule set
+ * on that date. Refusals throw (422); what passes comes back with the row's computed columns.
+ */
+async function prepareApplication(
+  actor: Actor,
+  visit: ApplicationVisit,
+  input: Omit<ApplicationInput, "id">,
+  correcting: Correcting | null,
+) {
   const zone = await db()
     .selectFrom("zones")
     .selectAll()
@@ -130,7 +201,7 @@ export async function recordApplication(
   // The time of the record: within the visit, never any date a client sends (a date outside the
   // visit would move the blackout, the year's N and the legal record).
   const bound = bindAppliedAt(
-    input.appliedAt ? new Date(input.appliedAt) : null,
+    input.appliedAt ? new Date(input.appliedAt) : (correcting?.appliedAt ?? null),
     {
       startedAt: visit.started_at ? new Date(visit.started_at) : null,
       completedAt: visit.completed_at ? new Date(visit.completed_at) : null,
@@ -168,6 +239,7 @@ export async function recordApplication(
     .where("company_id", "=", actor.companyId)
     .where("zone_id", "=", zone.id)
     .where("product_id", "=", product.id)
+    .$if(correcting !== null, (q) => q.where("id", "!=", correcting!.id))
     .execute();
   let assessed: Assessment;
   try {
@@ -181,7 +253,12 @@ export async function recordApplication(
         isEstablishing: input.isEstablishing,
         isRepairing: input.isRepairing ?? false,
         soilTestOn: visit.p_soil_test_on,
-        yearToDateNLb: await getZoneNitrogenYearToDate(actor.companyId, zone.id, appliedOn),
+        yearToDateNLb: await getZoneNitrogenYearToDate(
+          actor.companyId,
+          zone.id,
+          appliedOn,
+          correcting?.id,
+        ),
         annualNRange: species
           ? { min: species.annualNitrogenLb.min, max: species.annualNitrogenLb.max }
           : null,
@@ -230,6 +307,58 @@ export async function recordApplication(
       { findings },
     );
 
+  return {
+    zone,
+    product,
+    bound,
+    refused,
+    columns: {
+      zone_id: zone.id,
+      product_id: product.id,
+      rate_amount: input.rateAmount,
+      rate_unit: input.rateUnit,
+      area_ft2: Number(zone.area_ft2),
+      product_total_lb: totals.lb,
+      product_total_gal: totals.gal,
+      n_lb_per_1000: per1000.nLb,
+      p2o5_lb_per_1000: per1000.p2o5Lb,
+      k2o_lb_per_1000: per1000.k2oLb,
+      wsn_lb_per_1000: per1000.wsnLb,
+      applied_on: appliedOn,
+      applied_at: appliedAt,
+      wind_mph: input.windMph,
+      temperature_f: input.temperatureF,
+      is_establishing: input.isEstablishing,
+      is_repairing: input.isRepairing ?? false,
+      applicator_name: input.applicatorName,
+      applicator_licence: input.applicatorLicence,
+      findings: JSON.stringify(findings),
+      override_reason: refused ? input.overrideReason : null,
+      override_category: refused ? (input.overrideCategory ?? null) : null,
+      override_by: refused ? actor.userId : null,
+    },
+  };
+}
+
+export async function recordApplication(
+  actor: Actor,
+  visitId: string,
+  input: ApplicationInput,
+): Promise<ApplicationDto> {
+  const retried = await recordedApplication(actor, visitId, input.id);
+  if (retried) return retried; // a retry of a recorded application
+
+  const visit = await applicationVisit(actor, visitId);
+  // An application added to a finished visit is a correction: it says why (422 before any work).
+  correctionReasonFor(visit, input.correctionReason);
+  const { zone, product, bound, refused, columns } = await prepareApplication(
+    actor,
+    visit,
+    input,
+    null,
+  );
+  const appliedAt = columns.applied_at;
+
   const inserted = await db()
     .transaction()
     .execute(async (trx) => {
@@ -242,35 +371,14 @@ export async function recordApplication(
           "conflict",
           "This visit was finished while the application was being recorded, so it was not saved. A manager can add it as a correction.",
         );
+      const reason = correctionReasonFor(locked, input.correctionReason);
       const row = await trx
         .insertInto("applications")
         .values({
           id: input.id,
           company_id: actor.companyId,
           visit_id: visitId,
-          zone_id: zone.id,
-          product_id: product.id,
-          rate_amount: input.rateAmount,
-          rate_unit: input.rateUnit,
-          area_ft2: Number(zone.area_ft2),
-          product_total_lb: totals.lb,
-          product_total_gal: totals.gal,
-          n_lb_per_1000: per1000.nLb,
-          p2o5_lb_per_1000: per1000.p2o5Lb,
-          k2o_lb_per_1000: per1000.k2oLb,
-          wsn_lb_per_1000: per1000.wsnLb,
-          applied_on: appliedOn,
-          applied_at: appliedAt,
-          wind_mph: input.windMph,
-          temperature_f: input.temperatureF,
-          is_establishing: input.isEstablishing,
-          is_repairing: input.isRepairing ?? false,
-          applicator_name: input.applicatorName,
-          applicator_licence: input.applicatorLicence,
-          findings: JSON.stringify(findings),
-          override_reason: refused ? input.overrideReason : null,
-          override_category: refused ? (input.overrideCategory ?? null) : null,
-          override_by: refused ? actor.userId : null,
+          ...columns,
           created_by: actor.userId,
         })
         // The same submission sent again while the first was being recorded: the first one wins.
@@ -279,11 +387,22 @@ export async function recordApplication(
         .returning("id")
         .executeTakeFirst();
       if (!row) return false;
+      const where = { visitId, zoneId: zone.id };
+      if (locked.status === "completed")
+        await recordAudit(trx, actor, {
+          entity: "application",
+          entityId: input.id,
+          action: "add_after_finish",
+          changes: applicationFacts(null, { product: product.name, ...columns }),
+          reason,
+          ...where,
+        });
       if (refused)
         await recordAudit(trx, actor, {
           entity: "application",
           entityId: input.id,
           action: "override_legal_limit",
+          ...where,
           changes: {
             category: { from: null, to: input.overrideCategory ?? null },
             reason: { from: null, to: input.overrideReason },
@@ -295,6 +414,7 @@ export async function recordApplication(
           entity: "application",
           entityId: input.id,
           action: "applied_at_differs",
+          ...where,
           changes: {
             appliedAt: { from: bound.expected.toISOString(), to: appliedAt.toISOString() },
           },
@@ -322,4 +442,168 @@ export async function recordApplication(
   const saved = (await listVisitApplications(actor, visitId)).find((a) => a.id === input.id);
   if (!saved) throw new Error("application missing after insert");
   return saved;
+}
+
+/**
+ * Who may correct or delete an application: on an open visit its author, or a manager; on a
+ * finished visit only a manager, with a reason (audited). Out of scope is 404; another
+ * technician's application on a visit in scope is 403.
+ */
+function assertMayChange(
+  actor: Actor,
+  visit: { status: string },
+  row: { created_by: string | null },
+  verb: "correct" | "delete",
+) {
+  assertEditable(actor, visit);
+  if (actor.role !== "manager" && row.created_by !== actor.userId)
+    throw new AppError(
+      "forbidden",
+      `Only the person who recorded this application, or a manager, can ${verb} it.`,
+    );
+}
+
+async function lockedApplication(trx: Transaction<Database>, actor: Actor, applicationId: string) {
+  const row = await trx
+    .selectFrom("applications")
+    .innerJoin("products", "products.id", "applications.product_id")
+    .innerJoin("zones", "zones.id", "applications.zone_id")
+    .selectAll("applications")
+    .select(["products.name as product_name", "zones.name as zone_name"])
+    .where("applications.company_id", "=", actor.companyId)
+    .where("applications.id", "=", applicationId)
+    .forUpdate("applications")
+    .executeTakeFirst();
+  if (!row) throw notFound("That application");
+  return row;
+}
+
+/** The application's visit, in scope (404 otherwise), before any work. */
+async function visitOfApplication(actor: Actor, applicationId: string) {
+  const row = await db()
+    .selectFrom("applications")
+    .innerJoin("visits", "visits.id", "applications.visit_id")
+    .select(["applications.visit_id", "applications.created_by"])
+    .where(visitInScope(actor))
+    .where("applications.company_id", "=", actor.companyId)
+    .where("applications.id", "=", applicationId)
+    .executeTakeFirst();
+  if (!row) throw notFound("That application");
+  return row;
+}
+
+/**
+ * Corrects an application: the whole record again, through the same checks as a new one (the
+ * time bound to the visit, the label, the rule set on that date, with this application's own N
+ * and product left out of the totals it is checked against). Audited with before → after.
+ */
+export async function correctApplication(
+  actor: Actor,
+  applicationId: string,
+  input: Omit<ApplicationInput, "id">,
+): Promise<ApplicationDto> {
+  const { visit_id: visitId, created_by } = await visitOfApplication(actor, applicationId);
+  const visit = await applicationVisit(actor, visitId);
+  assertMayChange(actor, visit, { created_by }, "correct");
+  correctionReasonFor(visit, input.correctionReason);
+  const current = await db()
+    .selectFrom("applications")
+    .select(["applied_at"])
+    .where("id", "=", applicationId)
+    .executeTakeFirstOrThrow();
+  const { zone, product, refused, columns } = await prepareApplication(actor, visit, input, {
+    id: applicationId,
+    appliedAt: new Date(current.applied_at),
+  });
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const locked = await lockVisit(trx, actor, visitId);
+      const before = await lockedApplication(trx, actor, applicationId);
+      assertMayChange(actor, locked, before, "correct");
+      if (locked.status !== visit.status)
+        throw new AppError(
+          "conflict",
+          "This visit changed while the application was being corrected. Open it again and retry.",
+        );
+      const reason = correctionReasonFor(locked, input.correctionReason);
+      await trx
+        .updateTable("applications")
+        .set(columns)
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", applicationId)
+        .execute();
+      const changes = applicationFacts(
+        { product: before.product_name, zone: before.zone_name, ...before },
+        { product: product.name, zone: zone.name, ...columns },
+      );
+      // A record already audited as it stands is not audited again (a retry of the same correction).
+      if (Object.entries(changes).some(([, c]) => JSON.stringify(c.from) !== JSON.stringify(c.to)))
+        await recordAudit(trx, actor, {
+          entity: "application",
+          entityId: applicationId,
+          action: locked.status === "completed" ? "edit_after_finish" : "edit",
+          changes,
+          reason,
+          visitId,
+          zoneId: zone.id,
+        });
+      if (refused)
+        await recordAudit(trx, actor, {
+          entity: "application",
+          entityId: applicationId,
+          action: "override_legal_limit",
+          changes: {
+            category: { from: null, to: input.overrideCategory ?? null },
+            reason: { from: null, to: input.overrideReason },
+          },
+          visitId,
+          zoneId: zone.id,
+        });
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: locked.status === "completed" ? "evaluate" : "keep",
+      });
+    });
+  const saved = (await listVisitApplications(actor, visitId)).find((a) => a.id === applicationId);
+  if (!saved) throw new Error("application missing after correction");
+  return saved;
+}
+
+/** Deletes an application (its author while the visit is open, a manager with a reason after); audited. */
+export async function deleteApplication(
+  actor: Actor,
+  applicationId: string,
+  correctionReason: string | null | undefined,
+): Promise<void> {
+  const { visit_id: visitId } = await visitOfApplication(actor, applicationId);
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      const before = await lockedApplication(trx, actor, applicationId);
+      assertMayChange(actor, visit, before, "delete");
+      const reason = correctionReasonFor(visit, correctionReason);
+      await trx
+        .deleteFrom("applications")
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", applicationId)
+        .execute();
+      await recordAudit(trx, actor, {
+        entity: "application",
+        entityId: applicationId,
+        action: visit.status === "completed" ? "delete_after_finish" : "delete",
+        changes: applicationFacts({ product: before.product_name, ...before }, null),
+        reason,
+        visitId,
+        zoneId: before.zone_id,
+      });
+      // The zone's N this year and the book follow at once; a finished visit's alerts too.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: visit.status === "completed" ? "evaluate" : "keep",
+      });
+    });
 }

@@ -66,6 +66,7 @@ export async function listVisitApplications(
     overrideReason: r.override_reason,
     overrideCategory: r.override_category,
     overrideBy: r.override_by_name,
+    createdById: r.created_by,
   }));
 }
 
@@ -74,15 +75,18 @@ export async function getZoneNitrogenYearToDate(
   companyId: string,
   zoneId: string,
   beforeDate: string,
+  /** An application being corrected: its own N does not count against it. */
+  exceptId?: string,
 ): Promise<number> {
-  const row = await db()
+  let query = db()
     .selectFrom("applications")
     .select((eb) => eb.fn.coalesce(eb.fn.sum<number>("n_lb_per_1000"), eb.lit(0)).as("n"))
     .where("company_id", "=", companyId)
     .where("zone_id", "=", zoneId)
     .where("applied_on", ">=", `${beforeDate.slice(0, 4)}-01-01`)
-    .where("applied_on", "<=", beforeDate)
-    .executeTakeFirstOrThrow();
+    .where("applied_on", "<=", beforeDate);
+  if (exceptId) query = query.where("id", "!=", exceptId);
+  const row = await query.executeTakeFirstOrThrow();
   return Number(row.n);
 }
 

@@ -1,6 +1,8 @@
 // Application input, shared by the route and the form (zod/mini: the form's bundle stays small).
 import { z } from "zod/mini";
 
+import { correctionReasonField } from "@/lib/audit/correction";
+
 import { OVERRIDE_CATEGORIES, RATE_UNITS } from "./units";
 
 export const applicationSchema = z.strictObject({
@@ -27,5 +29,12 @@ export const applicationSchema = z.strictObject({
   overrideCategory: z.optional(
     z.nullable(z.enum(OVERRIDE_CATEGORIES, "Choose why the override applies.")),
   ),
+  /** Why, when the visit is finished (a correction): required then (lib/audit/correction.ts). */
+  correctionReason: correctionReasonField,
 });
 export type ApplicationInput = z.infer<typeof applicationSchema>;
+
+/** A correction carries the whole record again, under the application's own id (the path's). */
+export const applicationCorrectionSchema = z.omit(applicationSchema, { id: true });
+
+export const applicationIdParams = z.object({ applicationId: z.uuid() });

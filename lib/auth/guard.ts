@@ -133,7 +133,11 @@ export function createGuards(resolveActor: () => Promise<Actor | null>) {
           );
           let json: unknown;
           try {
-            json = JSON.parse(new TextDecoder().decode(bytes));
+            // A DELETE may come without a body: it is then an empty object.
+            json =
+              bytes.length === 0 && request.method === "DELETE"
+                ? {}
+                : JSON.parse(new TextDecoder().decode(bytes));
           } catch {
             throw new AppError("invalid_input", "The request body must be JSON.");
           }

@@ -22,6 +22,8 @@ export interface PhotoDto {
   height: number;
   displayUrl: string;
   thumbUrl: string;
+  /** Who took it (staff only): they may delete it while the visit is open. */
+  uploadedById: string | null;
   /** Staff only (null for homeowners). */
   capturedLocal: string | null;
   gps: { latitude: number; longitude: number } | null;

@@ -26,6 +26,7 @@ export function toPhotoDto(row: PhotoRow, actor: Actor): PhotoDto {
     displayUrl: `/api/v1/photos/${row.id}/display`,
     thumbUrl: `/api/v1/photos/${row.id}/thumb`,
     capturedLocal: isStaff ? row.captured_local : null,
+    uploadedById: isStaff ? row.uploaded_by : null,
     gps:
       isStaff && row.gps_latitude !== null && row.gps_longitude !== null
         ? { latitude: row.gps_latitude, longitude: row.gps_longitude }

@@ -5,9 +5,12 @@ import "server-only";
 
 import { db } from "@/db";
 import { afterWrite } from "@/lib/after-write";
+import { correctionReasonFor } from "@/lib/audit/correction";
+import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { log } from "@/lib/log";
 import { MEASURED_BY } from "@/lib/photo-analysis/color";
 import type { PhotoStorage } from "@/lib/services/storage";
 import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
@@ -17,7 +20,12 @@ import type { ProcessedPhoto } from "./process";
 import { findZoneCheckPhoto } from "./queries";
 
 /** Checks that the actor may add a photo to this zone check, before any work is done. */
-export async function assertCanAddPhoto(actor: Actor, visitId: string, zoneCheckId: string) {
+export async function assertCanAddPhoto(
+  actor: Actor,
+  visitId: string,
+  zoneCheckId: string,
+  correctionReason?: string | null,
+) {
   const row = await db()
     .selectFrom("visits")
     .innerJoin("zone_checks", "zone_checks.visit_id", "visits.id")
@@ -40,6 +48,8 @@ export async function assertCanAddPhoto(actor: Actor, visitId: string, zoneCheck
       "forbidden",
       "This visit is finished and locked. Ask your manager to add the photo.",
     );
+  // A photo added to a finished visit is a correction: it says why, before the upload is read.
+  correctionReasonFor({ status: row.status }, correctionReason);
   return row;
 }
 
@@ -49,8 +59,9 @@ export async function addPhoto(
   zoneCheckId: string,
   photo: ProcessedPhoto,
   storage: PhotoStorage,
+  correctionReason?: string | null,
 ): Promise<{ photo: PhotoDto; isNew: boolean }> {
-  const target = await assertCanAddPhoto(actor, visitId, zoneCheckId);
+  const target = await assertCanAddPhoto(actor, visitId, zoneCheckId, correctionReason);
   const existing = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (existing) return { photo: existing, isNew: false };
 
@@ -71,6 +82,7 @@ export async function addPhoto(
       // is seen here (a technician's photo is then refused, as it would be on a finished visit).
       const locked = await lockVisit(trx, actor, visitId);
       assertEditable(actor, locked);
+      const reason = correctionReasonFor(locked, correctionReason);
       const row = await trx
         .insertInto("photos")
         .values({
@@ -101,6 +113,15 @@ export async function addPhoto(
         .onConflict((oc) => oc.columns(["zone_check_id", "content_hash"]).doNothing())
         .returning("id")
         .executeTakeFirst();
+      if (row && locked.status === "completed")
+        await recordAudit(trx, actor, {
+          entity: "photo",
+          entityId: row.id,
+          action: "add_after_finish",
+          reason,
+          visitId,
+          zoneId: target.zone_id,
+        });
       if (row)
         await afterWrite(trx, {
           companyId: actor.companyId,
@@ -110,8 +131,92 @@ export async function addPhoto(
         });
       return row !== undefined;
     });
+  // A deletion of the same photo elsewhere may have removed the shared files between the check
+  // above and the row's commit (keys are content hashes): put them back, the bytes are in hand.
+  if (!(await storage.has(displayKey)))
+    await storage.put(displayKey, photo.display.data, "image/webp");
+  if (!(await storage.has(thumbKey))) await storage.put(thumbKey, photo.thumb.data, "image/webp");
   const saved = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (!saved) throw new Error("photo row missing after insert");
   // A retry that raced the first upload finds the row the first one wrote: 200, not a second 201.
   return { photo: saved, isNew: inserted };
+}
+
+/**
+ * Deletes a photo: its uploader while the visit is open, a manager (with a reason, audited) after
+ * it is finished. The row, the check's Index without it, the book and (on a finished visit) the
+ * alerts change in one transaction; the files are removed after the commit, unless another photo
+ * row still points at them (the same picture on another check shares its content-hash keys). A
+ * removal that fails leaves an unreferenced file behind and is logged; nothing reads it.
+ */
+export async function deletePhoto(
+  actor: Actor,
+  photoId: string,
+  correctionReason: string | null | undefined,
+  storage: PhotoStorage,
+): Promise<void> {
+  const found = await db()
+    .selectFrom("photos")
+    .innerJoin("visits", "visits.id", "photos.visit_id")
+    .select(["photos.visit_id"])
+    .where(visitInScope(actor))
+    .where("photos.company_id", "=", actor.companyId)
+    .where("photos.id", "=", photoId)
+    .executeTakeFirst();
+  if (!found) throw notFound("That photo");
+  const keys = await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, found.visit_id);
+      const photo = await trx
+        .selectFrom("photos")
+        .selectAll()
+        .where("company_id", "=", actor.companyId)
+        .where("id", "=", photoId)
+        .forUpdate()
+        .executeTakeFirst();
+      if (!photo) throw notFound("That photo");
+      assertEditable(actor, visit);
+      if (actor.role !== "manager" && photo.uploaded_by !== actor.userId)
+        throw new AppError(
+          "forbidden",
+          "Only the person who took this photo, or a manager, can delete it.",
+        );
+      const reason = correctionReasonFor(visit, correctionReason);
+      await trx.deleteFrom("photos").where("id", "=", photoId).execute();
+      await recordAudit(trx, actor, {
+        entity: "photo",
+        entityId: photoId,
+        action: visit.status === "completed" ? "delete_after_finish" : "delete",
+        changes: {
+          greenCoverPct: { from: Number(photo.green_cover_pct), to: null },
+        },
+        reason,
+        visitId: photo.visit_id,
+        zoneId: photo.zone_id,
+      });
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: photo.property_id,
+        recheckIndexOf: [photo.zone_check_id], // the photo's cover and color leave the Index
+        alerts: visit.status === "completed" ? "evaluate" : "keep",
+      });
+      return [photo.display_key, photo.thumb_key];
+    });
+  await removeUnreferencedFiles(keys, storage);
+}
+
+/** Removes stored files no photo row points at any more (after the deleting transaction committed). */
+export async function removeUnreferencedFiles(keys: string[], storage: PhotoStorage) {
+  for (const key of keys) {
+    const still = await db()
+      .selectFrom("photos")
+      .select("id")
+      .where((eb) => eb.or([eb("display_key", "=", key), eb("thumb_key", "=", key)]))
+      .executeTakeFirst();
+    if (still) continue;
+    await storage.remove(key).catch((err: unknown) => {
+      log.warn({ key, error: String(err) }, "photo file not removed");
+    });
+  }
 }

@@ -1,9 +1,10 @@
 // Object storage for photo derivatives behind one small interface, with two drivers:
 // the local disk (default; a git-ignored folder) and S3 (any S3-compatible service).
 import { randomUUID } from "node:crypto";
-import { mkdir, open, readFile, rename } from "node:fs/promises";
+import { mkdir, open, readFile, rename, unlink } from "node:fs/promises";
 import path from "node:path";
 import {
+  DeleteObjectCommand,
   GetObjectCommand,
   HeadObjectCommand,
   NoSuchKey,
@@ -16,6 +17,8 @@ export interface PhotoStorage {
   put(key: string, body: Buffer, contentType: string): Promise<void>;
   get(key: string): Promise<Buffer | null>;
   has(key: string): Promise<boolean>;
+  /** Removes a key; removing one that is not there is harmless. */
+  remove(key: string): Promise<void>;
 }
 
 const SAFE_KEY = /^[a-z0-9-]+(\/[a-z0-9.-]+)+$/;
@@ -71,6 +74,13 @@ export function localDiskStorage(root: string): PhotoStorage {
     async has(key) {
       return (await this.get(key)) !== null;
     },
+    async remove(key) {
+      try {
+        await unlink(file(key));
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code !== "ENOENT") throw err;
+      }
+    },
   };
 }
 
@@ -124,6 +134,10 @@ export function s3Storage(options: {
           return false;
         throw err;
       }
+    },
+    async remove(key) {
+      assertKey(key);
+      await client.send(new DeleteObjectCommand({ Bucket: options.bucket, Key: key }));
     },
   };
 }

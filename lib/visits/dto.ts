@@ -3,6 +3,7 @@ import type { PlannedService, VisitStatus } from "@/db/schema";
 import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
+import type { WateringDto } from "@/lib/watering/dto";
 
 import type { ZoneCheckInput } from "./schemas";
 
@@ -58,6 +59,10 @@ export interface VisitDetailDto extends VisitSummaryDto {
   checks: ZoneCheckDto[];
   photos: PhotoDto[];
   applications: ApplicationDto[];
+  /** Waterings recorded on this visit. */
+  waterings: WateringDto[];
+  /** The signed-in person: their own entries can be corrected and deleted while the visit is open. */
+  viewerId: string;
   /** Staff may edit: technicians until the visit is finished, managers always (audited). */
   canEdit: boolean;
 }
@@ -95,4 +100,11 @@ export interface AuditEventDto {
   entityId: string;
   action: string;
   changes: Record<string, { from: unknown; to: unknown }>;
+  /** Why (every correction of a finished visit has one). */
+  reason: string | null;
+  zoneName: string | null;
+  /** When, in words: "Dec 2, 2026, 3:05 PM" (the company's locale, the property's time zone). */
+  when: string;
+  /** The event as a sentence (lib/visits/audit-words.ts). */
+  sentence: string;
 }

@@ -12,13 +12,16 @@ import { afterWrite } from "@/lib/after-write";
 import { indexColumns } from "@/lib/after-write/check-index";
 import { inNoFertilizerWindow, monthDayWords } from "@/lib/agronomy/rules";
 import { nextFertilizerDate, putsDownNOrP, usDate } from "@/lib/agronomy/season";
+import { correctionReasonFor } from "@/lib/audit/correction";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { removeUnreferencedFiles } from "@/lib/photos/mutations";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { PhotoFigures } from "@/lib/scoring/from-check";
+import type { PhotoStorage } from "@/lib/services/storage";
 import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 import { fillVisitWeather } from "@/lib/weather/mutations";
 
@@ -269,6 +272,8 @@ export async function saveZoneCheck(
   visitId: string,
   zoneCheckId: string,
   request: ZoneCheckRequest,
+  /** Required when the visit is finished (a manager's correction). */
+  correctionReason?: string | null,
 ): Promise<ZoneCheckDto> {
   return db()
     .transaction()
@@ -327,11 +332,13 @@ export async function saveZoneCheck(
         });
 
       let saved: ZoneCheck;
+      const audited = { visitId, zoneId: input.zoneId };
       if (!existing) {
         if (zone.archived_at)
           throw new AppError("invalid_input", "Some values need attention.", {
             zoneId: ["That zone is archived."],
           });
+        const reason = correctionReasonFor(visit, correctionReason);
         const inserted = await trx
           .insertInto("zone_checks")
           .values({
@@ -345,8 +352,19 @@ export async function saveZoneCheck(
           .onConflict((oc) => oc.doNothing())
           .returningAll()
           .executeTakeFirst();
-        if (inserted) saved = inserted;
-        else {
+        if (inserted) {
+          saved = inserted;
+          // A zone checked after the visit was finished: a correction, with its reason.
+          if (visit.status === "completed")
+            await recordAudit(trx, actor, {
+              entity: "zone_check",
+              entityId: zoneCheckId,
+              action: "add_after_finish",
+              changes: diffValues({ ...valuesOf(inserted), status: "draft" }, valuesOf(inserted)),
+              reason,
+              ...audited,
+            });
+        } else {
           // Either the same check arrived twice at once, or another device checked this zone.
           const other = await trx
             .selectFrom("zone_checks")
@@ -369,6 +387,7 @@ export async function saveZoneCheck(
       } else {
         if (sameValues(existing, input))
           return toZoneCheckDto(existing, await nameOf(existing.updated_by));
+        const reason = correctionReasonFor(visit, correctionReason);
         saved = await trx
           .updateTable("zone_checks")
           .set({
@@ -387,6 +406,8 @@ export async function saveZoneCheck(
             entityId: zoneCheckId,
             action: "edit_after_finish",
             changes: diffValues(valuesOf(existing), valuesOf(saved)),
+            reason,
+            ...audited,
           });
         }
       }
@@ -431,6 +452,7 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
         entityId: visitId,
         action: "cancel",
         changes: { status: { from: visit.status, to: "cancelled" } },
+        visitId,
       });
       // Its checks no longer count: the Index, the book and the alerts follow.
       await afterWrite(trx, {
@@ -440,4 +462,62 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
       });
     });
   return getVisit(actor, visitId);
+}
+
+/**
+ * Removes a zone check (and its photos: the files go after the commit unless another photo row
+ * shares them). While the visit is open: anyone who may work on the visit (its technician, a
+ * manager); after it is finished: a manager with a reason. Audited either way — a check that is
+ * removed leaves its values in the trail.
+ */
+export async function deleteZoneCheck(
+  actor: Actor,
+  visitId: string,
+  zoneCheckId: string,
+  correctionReason: string | null | undefined,
+  storage: PhotoStorage,
+): Promise<void> {
+  const keys = await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      const check = await trx
+        .selectFrom("zone_checks")
+        .selectAll()
+        .where("company_id", "=", actor.companyId)
+        .where("visit_id", "=", visitId)
+        .where("id", "=", zoneCheckId)
+        .forUpdate()
+        .executeTakeFirst();
+      if (!check) throw notFound("That zone check");
+      assertEditable(actor, visit);
+      const reason = correctionReasonFor(visit, correctionReason);
+      const photos = await trx
+        .deleteFrom("photos")
+        .where("zone_check_id", "=", zoneCheckId)
+        .returning(["display_key", "thumb_key"])
+        .execute();
+      await trx.deleteFrom("zone_checks").where("id", "=", zoneCheckId).execute();
+      const before = valuesOf(check);
+      await recordAudit(trx, actor, {
+        entity: "zone_check",
+        entityId: zoneCheckId,
+        action: visit.status === "completed" ? "delete_after_finish" : "delete",
+        changes: Object.fromEntries(
+          Object.entries(before)
+            .filter(([key, value]) => key !== "zoneId" && value !== null && value !== "")
+            .map(([key, value]) => [key, { from: value, to: null }]),
+        ),
+        reason,
+        visitId,
+        zoneId: check.zone_id,
+      });
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: visit.status === "completed" ? "evaluate" : "keep",
+      });
+      return photos.flatMap((p) => [p.display_key, p.thumb_key]);
+    });
+  await removeUnreferencedFiles(keys, storage);
 }

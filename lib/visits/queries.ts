@@ -11,7 +11,9 @@ import { notFound } from "@/lib/http/app-error";
 import { listVisitPhotos } from "@/lib/photos/queries";
 import { toZoneDto, ZONE_COLUMNS } from "@/lib/properties/map";
 import { findZoneInScope } from "@/lib/properties/queries";
+import { listVisitWaterings } from "@/lib/watering/queries";
 
+import { auditWords } from "./audit-words";
 import type {
   AuditEventDto,
   TodayStopDto,
@@ -132,6 +134,8 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     checks: checks.map((c) => toZoneCheckDto(c, c.updated_by_name)),
     photos: await listVisitPhotos(actor, visitId),
     applications: await listVisitApplications(actor, visitId),
+    waterings: await listVisitWaterings(actor, visitId),
+    viewerId: actor.userId,
     canEdit:
       actor.role === "manager" ||
       (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
@@ -245,9 +249,18 @@ export async function getZoneHistory(
 
 export async function listVisitAudit(actor: Actor, visitId: string): Promise<AuditEventDto[]> {
   if (actor.role !== "manager") return [];
+  const visit = await db()
+    .selectFrom("visits")
+    .innerJoin("properties", "properties.id", "visits.property_id")
+    .select("properties.time_zone")
+    .where(visitInScope(actor))
+    .where("visits.id", "=", visitId)
+    .executeTakeFirst();
+  if (!visit) return [];
   const rows = await db()
     .selectFrom("audit_events")
     .leftJoin("users", "users.id", "audit_events.actor_id")
+    .leftJoin("zones", "zones.id", "audit_events.zone_id")
     .select([
       "audit_events.id",
       "audit_events.created_at",
@@ -256,34 +269,37 @@ export async function listVisitAudit(actor: Actor, visitId: string): Promise<Aud
       "audit_events.entity_id",
       "audit_events.action",
       "audit_events.changes",
+      "audit_events.reason",
+      "zones.name as zone_name",
     ])
     .where("audit_events.company_id", "=", actor.companyId)
-    .where((eb) =>
-      eb.or([
-        eb.and([
-          eb("audit_events.entity", "=", "visit"),
-          eb("audit_events.entity_id", "=", visitId),
-        ]),
-        eb.and([
-          eb("audit_events.entity", "=", "zone_check"),
-          eb(
-            "audit_events.entity_id",
-            "in",
-            eb.selectFrom("zone_checks").select("id").where("visit_id", "=", visitId),
-          ),
-        ]),
-      ]),
-    )
+    .where("audit_events.visit_id", "=", visitId)
     .orderBy("audit_events.created_at", "desc")
     .orderBy("audit_events.id", "desc")
     .execute();
-  return rows.map((r) => ({
-    id: String(r.id),
-    at: new Date(r.created_at).toISOString(),
-    actor: r.name,
-    entity: r.entity,
-    entityId: r.entity_id,
-    action: r.action,
-    changes: r.changes,
-  }));
+  return rows.map((r) => {
+    const facts = {
+      at: new Date(r.created_at).toISOString(),
+      actor: r.name,
+      entity: r.entity,
+      action: r.action,
+      changes: r.changes,
+      reason: r.reason,
+      zoneName: r.zone_name,
+    };
+    const words = auditWords(facts, { timeZone: visit.time_zone, locale: actor.companyLocale });
+    return {
+      id: String(r.id),
+      at: facts.at,
+      actor: r.name,
+      entity: r.entity,
+      entityId: r.entity_id,
+      action: r.action,
+      changes: r.changes,
+      reason: r.reason,
+      zoneName: r.zone_name,
+      when: words.when,
+      sentence: words.sentence,
+    };
+  });
 }

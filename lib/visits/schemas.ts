@@ -2,10 +2,11 @@
 // the forms' bundles stay small; the server parses the same schemas).
 import { z } from "zod/mini";
 
+import { correctionReasonField } from "@/lib/audit/correction";
 import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 
 import { ZONE_CHECK_BOUNDS } from "./zone-check-bounds";
-import { zoneCheckFields } from "./zone-check-fields";
+import { zoneCheckFields, type ZoneCheckRequest } from "./zone-check-fields";
 import { mowingConsistency, zoneCheckCompleteness } from "./zone-check-rules";
 
 export { zoneCheckFields } from "./zone-check-fields";
@@ -104,15 +105,20 @@ export const startVisitSchema = z
     }),
   );
 
-export const zoneCheckSchema = zoneCheckFields.check(
-  z.superRefine((check, ctx) => {
-    for (const [field, message] of Object.entries({
-      ...zoneCheckCompleteness(check),
-      ...mowingConsistency(check),
-    }))
-      ctx.addIssue({ code: "custom", path: [field], message });
-  }),
-);
+const wholeCheck = z.superRefine((check: ZoneCheckRequest, ctx) => {
+  for (const [field, message] of Object.entries({
+    ...zoneCheckCompleteness(check),
+    ...mowingConsistency(check),
+  }))
+    ctx.addIssue({ code: "custom", path: [field], message });
+});
+
+export const zoneCheckSchema = zoneCheckFields.check(wholeCheck);
+
+/** The PUT's body: the check, and on a finished visit the reason for the correction. */
+export const zoneCheckBodySchema = z
+  .extend(zoneCheckFields, { correctionReason: correctionReasonField })
+  .check(wholeCheck);
 export type { ZoneCheckInput, ZoneCheckRequest } from "./zone-check-fields";
 
 /** Finishing takes no input: notes belong to the zone checks, the office note to the visit. */

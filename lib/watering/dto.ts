@@ -9,5 +9,9 @@ export interface WateringDto {
   precipitationRateInPerHour: number | null;
   enteredBy: string | null;
   enteredByRole: "manager" | "technician" | "homeowner";
+  /** Who entered it (their own entries can be corrected and deleted). */
+  enteredById: string | null;
+  /** The visit it was recorded on, if any. */
+  visitId: string | null;
   notes: string;
 }

@@ -2,6 +2,7 @@
 // (zod/mini: shared by the route and the watering form, whose bundle stays small).
 import { z } from "zod/mini";
 
+import { correctionReasonField } from "@/lib/audit/correction";
 import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 
 /** How far back a watering may be logged: a year (the water balance reads two weeks). */
@@ -43,6 +44,10 @@ export const wateringSchema = z
         .check(z.positive("The rate must be above 0."), z.lte(10)),
     ),
     notes: z.string().check(z.trim(), z.maxLength(1000)),
+    /** The visit it is recorded on (staff), if any. */
+    visitId: z.optional(z.nullable(z.uuid("A visit id must be a UUID."))),
+    /** Why, when it changes a finished visit (a correction): required then. */
+    correctionReason: correctionReasonField,
   })
   .check(
     z.superRefine((w, ctx) => {
@@ -66,3 +71,5 @@ export const wateringSchema = z
     }),
   );
 export type WateringInput = z.infer<typeof wateringSchema>;
+
+export const wateringIdParams = z.object({ wateringId: z.uuid() });

@@ -83,6 +83,34 @@ interface Cell {
 
 const ownerSide: Persona[] = ["owner", "assignedTech", "manager"];
 let checkEveryZone: (t: Targets) => Promise<void>; // set up in beforeAll
+/** An entry of the visit (or, for waterings, the homeowner's own) made for a correct/delete cell; set up in beforeAll. */
+let makeEntry: (
+  kind: "application" | "photo" | "zoneCheck" | "watering",
+  t: Targets,
+) => Promise<string>;
+/** Entries waiting for a correct/delete cell: each allowed person who succeeds uses up the first. */
+const queued: Record<string, string[]> = {};
+const nextOf = (key: string) => queued[key]?.[0] ?? randomUUID();
+const usedOne = (key: string) => () => {
+  queued[key]?.shift();
+};
+const queue =
+  (key: string, kind: Parameters<typeof makeEntry>[0], count: number) => async (t: Targets) => {
+    queued[key] = [];
+    for (let i = 0; i < count; i++) queued[key].push(await makeEntry(kind, t));
+  };
+const applicationBody = (t: Targets) => ({
+  zoneId: t.zoneId,
+  productId: t.productId,
+  rateAmount: 1,
+  rateUnit: "lb/1000ft2",
+  windMph: null,
+  temperatureF: null,
+  isEstablishing: false,
+  applicatorName: "",
+  applicatorLicence: "",
+  overrideReason: null,
+});
 const CELLS: Cell[] = [
   // Public endpoints.
   { key: "PAGE /", path: () => "/", allow: PERSONAS, isPublic: true },
@@ -625,6 +653,73 @@ const CELLS: Cell[] = [
     }),
     allow: ["assignedTech", "manager"],
   },
+  // Corrections and deletions while the visit is open: the entry's author (tech1, the assigned
+  // technician) or a manager. Each cell makes its own entries (one per allowed person for a delete).
+  {
+    key: "PUT /api/v1/applications/[applicationId]",
+    path: () => `/api/v1/applications/${nextOf("putApplication")}`,
+    method: "PUT",
+    before: queue("putApplication", "application", 1),
+    body: (t) => applicationBody(t),
+    allow: ["assignedTech", "manager"],
+  },
+  {
+    key: "DELETE /api/v1/applications/[applicationId]",
+    path: () => `/api/v1/applications/${nextOf("deleteApplication")}`,
+    method: "DELETE",
+    before: queue("deleteApplication", "application", 2),
+    body: () => ({}),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+    after: usedOne("deleteApplication"),
+  },
+  {
+    key: "DELETE /api/v1/photos/[photoId]",
+    path: () => `/api/v1/photos/${nextOf("deletePhoto")}`,
+    method: "DELETE",
+    before: queue("deletePhoto", "photo", 2),
+    body: () => ({}),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+    after: usedOne("deletePhoto"),
+  },
+  {
+    key: "DELETE /api/v1/visits/[visitId]/zone-checks/[zoneCheckId]",
+    path: (t) => `/api/v1/visits/${t.visitId}/zone-checks/${nextOf("deleteZoneCheck")}`,
+    method: "DELETE",
+    before: queue("deleteZoneCheck", "zoneCheck", 2),
+    body: () => ({}),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+    after: usedOne("deleteZoneCheck"),
+  },
+  {
+    key: "PUT /api/v1/waterings/[wateringId]",
+    path: () => `/api/v1/waterings/${nextOf("putWatering")}`,
+    method: "PUT",
+    before: queue("putWatering", "watering", 1),
+    body: (t) => ({
+      id: nextOf("putWatering"),
+      zoneId: null,
+      wateredOn: t.today,
+      depthIn: 0.6,
+      runMinutes: null,
+      precipitationRateInPerHour: null,
+      notes: "",
+    }),
+    allow: ["owner", "manager"], // the homeowner's own entry; the technician did not log it (403)
+    mustSucceed: true,
+  },
+  {
+    key: "DELETE /api/v1/waterings/[wateringId]",
+    path: () => `/api/v1/waterings/${nextOf("deleteWatering")}`,
+    method: "DELETE",
+    before: queue("deleteWatering", "watering", 2),
+    body: () => ({}),
+    allow: ["owner", "manager"],
+    mustSucceed: true,
+    after: usedOne("deleteWatering"),
+  },
   {
     key: "POST /api/v1/visits/[visitId]/finish",
     path: (t) => `/api/v1/visits/${t.visitId}/finish`,
@@ -864,6 +959,108 @@ beforeAll(async () => {
     today,
   };
   const { saveZoneCheck } = await import("@/lib/visits/mutations");
+  makeEntry = async (kind, targets) => {
+    const id = randomUUID();
+    const tech1 = c.userIds["tech1"]!;
+    if (kind === "application") {
+      await db
+        .insertInto("applications")
+        .values({
+          id,
+          company_id: c.companyId,
+          visit_id: targets.visitId,
+          zone_id: targets.zoneId,
+          product_id: targets.productId,
+          rate_amount: 1,
+          rate_unit: "lb/1000ft2",
+          area_ft2: 1000,
+          product_total_lb: 1,
+          product_total_gal: null,
+          n_lb_per_1000: 0,
+          p2o5_lb_per_1000: 0,
+          k2o_lb_per_1000: 0,
+          wsn_lb_per_1000: 0,
+          applied_on: targets.today,
+          applied_at: new Date(),
+          wind_mph: null,
+          temperature_f: null,
+          findings: "[]",
+          override_reason: null,
+          override_category: null,
+          override_by: null,
+          created_by: tech1,
+        })
+        .execute();
+    } else if (kind === "photo") {
+      const hash = randomUUID().replaceAll("-", "");
+      await db
+        .insertInto("photos")
+        .values({
+          id,
+          company_id: c.companyId,
+          visit_id: targets.visitId,
+          zone_check_id: targets.zoneCheckId,
+          zone_id: targets.zoneId,
+          property_id: targets.propertyId,
+          content_hash: hash,
+          original_format: "jpeg",
+          original_bytes: 1000,
+          width: 320,
+          height: 240,
+          display_key: `${c.companyId}/${hash}-display.webp`,
+          display_width: 320,
+          display_height: 240,
+          thumb_key: `${c.companyId}/${hash}-thumb.webp`,
+          green_cover_pct: 50,
+          dgci: 0.5,
+          measured_by: "canopy-rule-2015",
+          dark_pct: 0,
+          clipped_pct: 0,
+          captured_local: null,
+          gps_latitude: null,
+          gps_longitude: null,
+          uploaded_by: tech1,
+        })
+        .execute();
+    } else if (kind === "zoneCheck") {
+      // A zone of the visit without a check yet (finishing checks every zone again).
+      const free = await db
+        .selectFrom("zones")
+        .select("id")
+        .where("property_id", "=", targets.propertyId)
+        .where("archived_at", "is", null)
+        .where((eb) =>
+          eb.not(
+            eb.exists(
+              eb
+                .selectFrom("zone_checks")
+                .select("zone_checks.id")
+                .whereRef("zone_checks.zone_id", "=", "zones.id")
+                .where("zone_checks.visit_id", "=", targets.visitId),
+            ),
+          ),
+        )
+        .executeTakeFirstOrThrow();
+      await saveZoneCheck(await c.actor("tech1"), targets.visitId, id, doneCheck(free.id));
+    } else {
+      await db
+        .insertInto("waterings")
+        .values({
+          id,
+          company_id: c.companyId,
+          property_id: targets.propertyId,
+          zone_id: null,
+          watered_on: targets.today,
+          depth_in: 0.5,
+          run_minutes: null,
+          precipitation_rate_in_per_h: null,
+          entered_by_role: "homeowner",
+          created_by: c.userIds["owner1"]!,
+        })
+        .execute();
+    }
+    return id;
+  };
   checkEveryZone = async (targets) => {
     const tech = await c.actor("tech1");
     const open = await db

@@ -62,6 +62,8 @@ const body = (extra: Record<string, unknown> = {}) => ({
   applicatorName: "",
   applicatorLicence: "",
   overrideReason: null,
+  // An application added to a finished visit is a correction and says why (an open visit's ignores it).
+  correctionReason: "entered after the visit",
   ...extra,
 });
 

@@ -50,8 +50,10 @@ function filesIn(dir: string): string[] {
 }
 
 async function post(body: Buffer | Uint8Array, checkIndex = 0, type = "image/jpeg") {
+  // Uploads after the visit is finished are a manager's corrections: they carry a reason (an
+  // open visit's upload ignores it).
   return upload.POST(
-    new Request("http://localhost/api/x", {
+    new Request("http://localhost/api/x?correctionReason=added%20from%20the%20office", {
       method: "POST",
       body: new Uint8Array(body),
       headers: { origin: "http://localhost:3000", host: "localhost", "content-type": type },
@@ -341,6 +343,9 @@ describe("the photo storage comes from lib/services (a fake injected with useSer
       async has(key) {
         return files.has(key);
       },
+      async remove(key) {
+        files.delete(key);
+      },
     };
     const before = filesIn(STORE).length;
     const restore = useServices({ photoStorage: recording });
@@ -363,6 +368,7 @@ describe("the photo storage comes from lib/services (a fake injected with useSer
       },
       get: async () => null,
       has: async () => false,
+      remove: async () => undefined,
     };
     const count = async () =>
       (await testDb().selectFrom("photos").select("id").where("visit_id", "=", visitId).execute())

@@ -265,11 +265,21 @@ describe("finishing, locking and the audit trail", () => {
       }),
     ).rejects.toMatchObject({ code: "forbidden" });
 
-    const edited = await saveZoneCheck(manager, visit.id, checkId, {
-      ...doneCheck(front!.id),
-      quality: 5,
-      baseVersion: saved.version,
-    });
+    // A manager's correction needs its reason (422 without one).
+    await expect(
+      saveZoneCheck(manager, visit.id, checkId, {
+        ...doneCheck(front!.id),
+        quality: 5,
+        baseVersion: saved.version,
+      }),
+    ).rejects.toMatchObject({ code: "invalid_input" });
+    const edited = await saveZoneCheck(
+      manager,
+      visit.id,
+      checkId,
+      { ...doneCheck(front!.id), quality: 5, baseVersion: saved.version },
+      "rated in full sun, re-rated",
+    );
     expect(edited.quality).toBe(5);
     const audit = await listVisitAudit(manager, visit.id);
     const edit = audit.find((a) => a.action === "edit_after_finish");
@@ -278,6 +288,8 @@ describe("finishing, locking and the audit trail", () => {
       entity: "zone_check",
       entityId: checkId,
       changes: { quality: { from: 7, to: 5 } },
+      reason: "rated in full sun, re-rated",
+      sentence: `${front!.name} · overall quality 7 → 5 — corrected by ${manager.name}: rated in full sun, re-rated`,
     });
     expect(audit.find((a) => a.action === "finish")).toMatchObject({ actor: tech1.name });
     expect(await listVisitAudit(tech1, visit.id)).toEqual([]);

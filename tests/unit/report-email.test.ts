@@ -38,6 +38,7 @@ const report = {
           thumbUrl: "/api/v1/photos/p/thumb",
           capturedLocal: null,
           gps: null,
+          uploadedById: null,
         },
       ],
     },

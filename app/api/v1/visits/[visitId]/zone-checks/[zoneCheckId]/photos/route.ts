@@ -5,7 +5,9 @@
 // The body is read only inside the photo limiter (at most two uploads at once per process), and
 // then streamed to a temporary file with the byte limit enforced as it arrives (413 at once, the
 // file removed); the photo is processed from that file, which is removed afterwards whatever
-// happens. Uploads beyond the limit wait with their bodies unread.
+// happens. Uploads beyond the limit wait with their bodies unread. On a finished visit (a
+// manager's correction) `?correctionReason=` says why; without one: 422 before the body is read.
+import { correctionOnlySchema } from "@/lib/audit/correction";
 import { route } from "@/lib/auth/guards";
 import { streamBodyToFile } from "@/lib/http/stream-to-file";
 import { limitPhotoWork } from "@/lib/photos/limiter";
@@ -15,9 +17,15 @@ import { services } from "@/lib/services";
 import { zoneCheckParams } from "@/lib/visits/schemas";
 
 export const POST = route(
-  { access: ["manager", "technician"], params: zoneCheckParams, resource: "That zone check" },
-  async ({ actor, params, request }) => {
-    await assertCanAddPhoto(actor, params.visitId, params.zoneCheckId); // before reading or decoding anything
+  {
+    access: ["manager", "technician"],
+    params: zoneCheckParams,
+    query: correctionOnlySchema,
+    resource: "That zone check",
+  },
+  async ({ actor, params, query, request }) => {
+    // Before reading or decoding anything.
+    await assertCanAddPhoto(actor, params.visitId, params.zoneCheckId, query.correctionReason);
     const processed = await limitPhotoWork(async () => {
       const upload = await streamBodyToFile(request, PHOTO_LIMITS.maxBytes, "The photo");
       try {
@@ -32,6 +40,7 @@ export const POST = route(
       params.zoneCheckId,
       processed,
       services().photoStorage,
+      query.correctionReason,
     );
     return Response.json(photo, {
       status: isNew ? 201 : 200,
