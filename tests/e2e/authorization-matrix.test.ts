@@ -992,7 +992,7 @@ beforeAll(async () => {
         })
         .execute();
     } else if (kind === "photo") {
-      const hash = randomUUID().replaceAll("-", "");
+      const hash = `${randomUUID()}${randomUUID()}`.replaceAll("-", ""); // 64 hex digits, as a SHA-256
       await db
         .insertInto("photos")
         .values({
