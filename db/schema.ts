@@ -24,6 +24,8 @@ export type PlannedService =
   | "soil_sampling"
   | "liming";
 export type VisitStatus = "scheduled" | "in_progress" | "completed" | "cancelled";
+/** Why a canceled visit did not happen (null for visits canceled before outcomes were kept). */
+export type CancelKind = "cancelled" | "rained_out";
 export type ZoneCheckStatus = "draft" | "done" | "skipped";
 export type SoilMoisture = "dry" | "moist" | "wet";
 export type MowingDirection = "same" | "changed" | "unknown";
@@ -160,6 +162,9 @@ interface UsersTable {
   image: string | null;
   disabled_at: NullableTimestamp;
   created_at: Generated<Date>;
+  /** The applicator's name and license number this person last recorded on a pesticide application. */
+  applicator_name: Generated<string>;
+  applicator_license: Generated<string>;
 }
 
 interface MembershipsTable {
@@ -304,6 +309,13 @@ interface VisitsTable {
   updated_at: Generated<Date>;
   /** Weather of the visit day as known when the visit started, or { status: "unavailable" }. */
   weather: ColumnType<Record<string, unknown> | null, string | null | undefined, string | null>;
+  /** A canceled stop: rained out or canceled, the reason given, who and when. */
+  cancel_kind: CancelKind | null;
+  cancel_reason: Generated<string>;
+  cancelled_at: NullableTimestamp;
+  cancelled_by: string | null;
+  /** The visit scheduled in place of this canceled one. */
+  rescheduled_visit_id: string | null;
 }
 
 interface ZoneChecksTable {

@@ -2,9 +2,9 @@
 
 // Applications on a zone: the form with live nutrient maths and rule checks, the cautions, and
 // the applications already recorded here. The server recomputes everything and decides.
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { CircleAlert, FlaskConical, TriangleAlert } from "lucide-react";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod/mini";
 
@@ -28,6 +28,7 @@ import {
   rateUnitsFor,
 } from "@/lib/applications/units";
 import { todayIn } from "@/lib/dates";
+import { meKeys } from "@/lib/people/query-keys";
 import { analysisOf, type ProductDto } from "@/lib/products/dto";
 import { productKeys } from "@/lib/products/query-keys";
 import { fetchJson, sendJson } from "@/lib/query-client";
@@ -225,6 +226,13 @@ export function ApplicationPanel({
     queryKey: ruleSetKeys.list(),
     queryFn: async () => (await fetchJson<{ items: RuleSetDto[] }>("/api/v1/rule-sets")).items,
   });
+  // The applicator this person last recorded, remembered on their account (GET /api/v1/me/applicator).
+  const queryClient = useQueryClient();
+  const remembered = useQuery({
+    queryKey: meKeys.applicator(),
+    queryFn: () => fetchJson<{ name: string; license: string }>("/api/v1/me/applicator"),
+    staleTime: Infinity,
+  });
   const [isOpen, setIsOpen] = useState(false);
   const [targetN, setTargetN] = useState("");
   const [serverFindings, setServerFindings] = useState<RuleFinding[] | null>(null);
@@ -237,6 +245,7 @@ export function ApplicationPanel({
     setError,
     setValue,
     control,
+    getValues,
     formState: { errors, isSubmitting: isSaving },
   } = useForm<FormIn, unknown, FormOut>({
     resolver,
@@ -250,8 +259,8 @@ export function ApplicationPanel({
       windMph: weather?.windMph ?? null,
       isEstablishing: false,
       isRepairing: false,
-      applicatorName: "",
-      applicatorLicence: "",
+      applicatorName: remembered.data?.name ?? "",
+      applicatorLicence: remembered.data?.license ?? "",
       overrideReason: "",
       overrideCategory: null,
     },
@@ -270,6 +279,14 @@ export function ApplicationPanel({
       ],
     });
   const forgetServerFindings = () => setServerFindings(null);
+  // Remembered values that arrive after the form opened fill only fields still empty.
+  const rememberedName = remembered.data?.name ?? "";
+  const rememberedLicense = remembered.data?.license ?? "";
+  useEffect(() => {
+    if (rememberedName && !getValues("applicatorName")) setValue("applicatorName", rememberedName);
+    if (rememberedLicense && !getValues("applicatorLicence"))
+      setValue("applicatorLicence", rememberedLicense);
+  }, [rememberedName, rememberedLicense, getValues, setValue]);
 
   const product = products.data?.find((p) => p.id === productId);
   const ruleSet = ruleSets.data?.find((r) => r.id === ruleSetId) ?? null;
@@ -367,6 +384,14 @@ export function ApplicationPanel({
       );
       if (result.ok) {
         onRecorded(result.data);
+        // The server remembered what was typed (a field left empty keeps the old value).
+        queryClient.setQueryData(
+          meKeys.applicator(),
+          (old: { name: string; license: string } | undefined) => ({
+            name: values.applicatorName || (old?.name ?? ""),
+            license: values.applicatorLicence || (old?.license ?? ""),
+          }),
+        );
         setServerFindings(null);
         setIsOpen(false);
         setTargetN("");
@@ -623,6 +648,11 @@ export function ApplicationPanel({
                   className={inputClass}
                 />
               </Field>
+              <p className="text-sm text-muted sm:col-span-2">
+                {rememberedName || rememberedLicense
+                  ? "Filled in from your last record. A change here is remembered for your next one."
+                  : "Remembered for your next application once recorded."}
+              </p>
             </div>
           ) : null}
           {message ? (

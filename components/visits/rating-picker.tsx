@@ -13,12 +13,15 @@ export function RatingPicker({
   value,
   onChange,
   error,
+  lastValue,
 }: {
   id: string;
   label: string;
   value: number | null;
   onChange: (v: number | null) => void;
   error?: string;
+  /** The zone's last check's rating (undefined: no last check to compare with). */
+  lastValue?: number | null;
 }) {
   const hintId = `${id}-hint`;
   return (
@@ -31,6 +34,14 @@ export function RatingPicker({
       </legend>
       <p id={hintId} className="text-sm text-muted">
         9 ideal · {RATING_SCALE.acceptable} lowest acceptable
+        {lastValue !== undefined ? (
+          <>
+            {" · "}
+            <span className="font-semibold text-ink">
+              last check: {lastValue === null ? "not rated" : lastValue}
+            </span>
+          </>
+        ) : null}
       </p>
       <div className="space-y-2">
         <ChoiceGroup

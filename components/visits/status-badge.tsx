@@ -1,8 +1,16 @@
 // Visit and zone-check status in words with an icon.
 import clsx from "clsx";
-import { Ban, CheckCircle2, CircleDashed, Clock, PencilLine, XCircle } from "lucide-react";
+import {
+  Ban,
+  CheckCircle2,
+  CircleDashed,
+  Clock,
+  CloudRain,
+  PencilLine,
+  XCircle,
+} from "lucide-react";
 
-import type { VisitStatus, ZoneCheckStatus } from "@/db/schema";
+import type { CancelKind, VisitStatus, ZoneCheckStatus } from "@/db/schema";
 
 const VISIT = {
   scheduled: { label: "Not started", icon: Clock, tone: "bg-paper text-ink ring-1 ring-line" },
@@ -10,6 +18,8 @@ const VISIT = {
   completed: { label: "Finished", icon: CheckCircle2, tone: "bg-sward-tint text-sward-deep" },
   cancelled: { label: "Canceled", icon: XCircle, tone: "bg-clay-tint text-clay" },
 } as const;
+
+const RAINED_OUT = { label: "Rained out", icon: CloudRain, tone: "bg-rain-tint text-ink" } as const;
 
 const ZONE = {
   none: { label: "Not started", icon: CircleDashed, tone: "bg-paper text-ink ring-1 ring-line" },
@@ -32,8 +42,17 @@ function Badge({ label, icon: Icon, tone }: { label: string; icon: typeof Clock;
   );
 }
 
-export const VisitStatusBadge = ({ status }: { status: VisitStatus }) => (
-  <Badge {...VISIT[status]} />
+export const VisitStatusBadge = ({
+  status,
+  cancelKind,
+}: {
+  status: VisitStatus;
+  /** A canceled stop's outcome: "rained_out" reads "Rained out". */
+  cancelKind?: CancelKind | null;
+}) => (
+  <Badge
+    {...(status === "cancelled" && cancelKind === "rained_out" ? RAINED_OUT : VISIT[status])}
+  />
 );
 export const ZoneStatusBadge = ({ status }: { status: ZoneCheckStatus | null }) => (
   <Badge {...ZONE[status ?? "none"]} />

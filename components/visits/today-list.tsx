@@ -1,7 +1,7 @@
 "use client";
 
 // The technician's stops for a day, in order, with the last visit and what it found.
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
 
@@ -12,8 +12,11 @@ import type { TodayStopDto } from "@/lib/visits/dto";
 import { visitKeys } from "@/lib/visits/query-keys";
 
 import { VisitStatusBadge } from "./status-badge";
+import { CallOffStop, StopOutcome } from "./stop-outcome";
 
-export function TodayList({ date }: { date: string }) {
+export function TodayList({ date, timeZone }: { date: string; timeZone: string }) {
+  const queryClient = useQueryClient();
+  const refresh = () => queryClient.invalidateQueries({ queryKey: visitKeys.all });
   const { data, error, isPending } = useQuery({
     queryKey: visitKeys.today(date),
     queryFn: async () =>
@@ -34,14 +37,16 @@ export function TodayList({ date }: { date: string }) {
     );
 
   const done = data.filter((s) => s.status === "completed").length;
+  const calledOff = data.filter((s) => s.status === "cancelled").length;
   return (
     <>
       <p className="mb-4 font-semibold">
-        {done} of {data.length} stops finished
+        {done} of {data.length - calledOff} stops finished
+        {calledOff ? ` · ${calledOff} called off` : ""}
       </p>
       <ol className="space-y-3" aria-label="Stops">
         {data.map((stop, index) => (
-          <li key={stop.id}>
+          <li key={stop.id} className="space-y-2">
             <Link
               href={`/visits/${stop.id}`}
               className="block rounded-xl border border-line bg-card p-4 no-underline shadow-sm hover:border-sward"
@@ -56,7 +61,7 @@ export function TodayList({ date }: { date: string }) {
                 <div className="min-w-0 flex-1">
                   <div className="flex flex-wrap items-center justify-between gap-2">
                     <p className="text-lg font-bold text-ink">{stop.propertyName}</p>
-                    <VisitStatusBadge status={stop.status} />
+                    <VisitStatusBadge status={stop.status} cancelKind={stop.outcome?.kind} />
                   </div>
                   <p className="mt-1 flex items-center gap-1.5 text-muted">
                     <MapPin className="size-4 shrink-0" aria-hidden="true" />
@@ -86,6 +91,16 @@ export function TodayList({ date }: { date: string }) {
                 <ChevronRight className="mt-2 size-6 shrink-0 text-muted" aria-hidden="true" />
               </div>
             </Link>
+            {stop.outcome ? (
+              <StopOutcome
+                visit={stop}
+                timeZone={timeZone}
+                canReschedule
+                onRescheduled={() => void refresh()}
+              />
+            ) : (
+              <CallOffStop visit={stop} onDone={() => void refresh()} />
+            )}
           </li>
         ))}
       </ol>

@@ -3,7 +3,7 @@
 // Running a visit on a phone: start it, go zone by zone, finish. The zone in progress is kept in
 // the URL (?zone=…) so a reload lands on the same zone with its draft.
 import { useQueryClient } from "@tanstack/react-query";
-import { ArrowLeft, ArrowRight, CheckCheck, MapPin, Play } from "lucide-react";
+import { ArrowLeft, ArrowRight, CheckCheck, List, MapPin, Play } from "lucide-react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useState, type ReactNode } from "react";
 
@@ -18,6 +18,7 @@ import { visitKeys } from "@/lib/visits/query-keys";
 
 import { clearVisitDrafts } from "./draft-store";
 import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
+import { CallOffStop, StopOutcome } from "./stop-outcome";
 import { useMergeApplication, useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
 import { mayChange, useEntryDialogs } from "./visit-entries";
 import { VisitSummary } from "./visit-summary";
@@ -102,7 +103,7 @@ export function VisitRunner({
     <header className="mb-4 space-y-1">
       <div className="flex flex-wrap items-center gap-2">
         <h1 className="text-2xl font-bold sm:text-3xl">{visit.propertyName}</h1>
-        <VisitStatusBadge status={visit.status} />
+        <VisitStatusBadge status={visit.status} cancelKind={visit.outcome?.kind} />
       </div>
       <p className="flex items-center gap-1.5 text-muted">
         <MapPin className="size-4 shrink-0" aria-hidden="true" />
@@ -210,25 +211,30 @@ export function VisitRunner({
               ruleSetId={visit.ruleSetId}
               isManager={isManager}
               weather={visit.weather?.status === "ok" ? visit.weather : null}
+              lastCheck={visit.lastChecks.find((c) => c.zoneId === zone.id)}
               footer={
-                <div className="flex gap-2">
+                <>
                   <Button
                     type="button"
                     variant="secondary"
-                    className="flex-1"
+                    // On a phone the link above the zone's name leads back; the bar keeps Next wide.
+                    className="hidden shrink-0 sm:inline-flex"
                     onClick={() => openZone(null)}
                   >
+                    <List className="size-5" aria-hidden="true" />
                     All zones
                   </Button>
                   <Button
                     type="button"
-                    className="flex-1"
+                    className="min-w-0 flex-1 px-3"
                     onClick={() => openZone(next ? next.id : null)}
                   >
-                    {next ? `Next: ${next.name}` : "Review and finish"}
-                    <ArrowRight className="size-5" aria-hidden="true" />
+                    <span className="truncate">
+                      {next ? `Next: ${next.name}` : "Review and finish"}
+                    </span>
+                    <ArrowRight className="size-5 shrink-0" aria-hidden="true" />
                   </Button>
-                </div>
+                </>
               }
             />
           )}
@@ -249,7 +255,9 @@ export function VisitRunner({
           <li key={z.id}>
             <button
               type="button"
-              disabled={visit.status === "scheduled" || !visit.canEdit}
+              disabled={
+                visit.status === "scheduled" || visit.status === "cancelled" || !visit.canEdit
+              }
               onClick={() => openZone(z.id)}
               className="flex min-h-tap w-full items-center justify-between gap-3 rounded-xl border border-line bg-card p-4 text-left shadow-sm hover:border-sward disabled:opacity-60"
             >
@@ -269,7 +277,29 @@ export function VisitRunner({
           {message}
         </p>
       ) : null}
-      {visit.canEdit ? (
+      <div className="mt-6">
+        {visit.outcome ? (
+          <StopOutcome
+            visit={visit}
+            timeZone={visit.timeZone}
+            canReschedule
+            onRescheduled={(next) => {
+              void queryClient.invalidateQueries({ queryKey: visitKeys.all });
+              router.push(`/visits/${next.id}`);
+            }}
+          />
+        ) : visit.canEdit ? (
+          <CallOffStop
+            visit={visit}
+            onDone={(next) => {
+              setVisit(next);
+              void queryClient.invalidateQueries({ queryKey: visitKeys.all });
+              router.refresh(); // the alerts follow the canceled visit
+            }}
+          />
+        ) : null}
+      </div>
+      {visit.canEdit && (visit.status === "scheduled" || visit.status === "in_progress") ? (
         <div className="sticky bottom-[5.25rem] z-10 mt-6 rounded-xl border border-line bg-card p-2 shadow-lg md:bottom-2">
           {visit.status === "scheduled" ? (
             <Button type="button" className="w-full text-lg" onClick={start} disabled={isBusy}>

@@ -24,10 +24,11 @@ import {
   SKIP_REASONS,
   SOIL_MOISTURE,
 } from "@/lib/reference/visit-options";
-import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
+import type { LastZoneCheckDto, ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
 import { parseProbeReading, ZONE_CHECK_BOUNDS } from "@/lib/visits/zone-check-bounds";
 import { mowingConsistency, zoneCheckCompleteness } from "@/lib/visits/zone-check-rules";
 
+import { LastCheck } from "./last-check";
 import { RatingPicker } from "./rating-picker";
 import { SaveStatus } from "./save-status";
 import { SymptomPicker } from "./symptom-picker";
@@ -62,6 +63,7 @@ export function ZoneCheckForm({
   weather,
   correctionReason = null,
   entries,
+  lastCheck,
 }: {
   /** On a finished visit: the reason for the manager's correction, sent with every save. */
   correctionReason?: string | null;
@@ -72,6 +74,8 @@ export function ZoneCheckForm({
     correctApplication: (a: ApplicationDto) => void;
     deleteApplication: (a: ApplicationDto) => void;
   };
+  /** The zone's last check at an earlier finished visit, to compare with. */
+  lastCheck?: LastZoneCheckDto;
   weather: {
     tmaxF: number;
     tminF?: number;
@@ -225,6 +229,7 @@ export function ZoneCheckForm({
       ) : (
         <>
           <Section title="Ratings">
+            {lastCheck ? <LastCheck check={lastCheck} /> : null}
             {(Object.entries(RATING_FIELDS) as [keyof typeof RATING_FIELDS, string][]).map(
               ([field, label]) => (
                 <RatingPicker
@@ -234,6 +239,9 @@ export function ZoneCheckForm({
                   value={values[field]}
                   onChange={(v) => set(field, v)}
                   error={errorOf(field)}
+                  lastValue={
+                    lastCheck && lastCheck.status === "done" ? lastCheck[field] : undefined
+                  }
                 />
               ),
             )}
@@ -411,6 +419,11 @@ export function ZoneCheckForm({
                   {species.heightOfCutIn.max} in
                 </p>
               ) : null}
+              {lastCheck && lastCheck.heightOfCutIn !== null ? (
+                <p className="mb-2 text-sm font-semibold">
+                  Last check: {lastCheck.heightOfCutIn.toFixed(2)} in
+                </p>
+              ) : null}
               <Stepper
                 label="Height of cut"
                 value={values.heightOfCutIn}
@@ -531,9 +544,24 @@ export function ZoneCheckForm({
           ) : null}
         </>
       )}
-      <div className="sticky bottom-[5.25rem] z-10 space-y-2 rounded-xl border border-line bg-card p-2 shadow-lg md:bottom-2">
-        <SaveStatus state={saveState} onRetry={() => store.retryNow()} timeZone={timeZone} />
-        {footer}
+      {/* One row on a phone (status beside the buttons) so the rating area keeps at least 70 % of
+          a 390×844 screen with the bottom navigation (tests/e2e/stop-outcomes.test.ts measures it). */}
+      <div
+        data-save-bar
+        className="sticky bottom-[5.25rem] z-10 flex flex-wrap items-center gap-2 rounded-xl border border-line bg-card p-1.5 shadow-lg md:bottom-2"
+      >
+        <div
+          className={
+            saveState.kind === "retrying" ||
+            saveState.kind === "invalid" ||
+            saveState.kind === "locked"
+              ? "basis-full" // a problem to read and act on: a row of its own
+              : "min-w-0 flex-[1_1_6.5rem] empty:hidden"
+          }
+        >
+          <SaveStatus state={saveState} onRetry={() => store.retryNow()} timeZone={timeZone} />
+        </div>
+        {footer ? <div className="flex min-w-0 flex-[1_1_13rem] gap-2">{footer}</div> : null}
       </div>
     </fieldset>
   );

@@ -397,6 +397,17 @@ export async function recordApplication(
           reason,
           ...where,
         });
+      // The applicator typed on a record is remembered on the account of whoever recorded it, and
+      // fills the next application's form (a field left empty keeps the remembered value).
+      if (input.applicatorName || input.applicatorLicence)
+        await trx
+          .updateTable("users")
+          .set({
+            ...(input.applicatorName ? { applicator_name: input.applicatorName } : {}),
+            ...(input.applicatorLicence ? { applicator_license: input.applicatorLicence } : {}),
+          })
+          .where("id", "=", actor.userId)
+          .execute();
       if (refused)
         await recordAudit(trx, actor, {
           entity: "application",

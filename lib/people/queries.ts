@@ -56,3 +56,15 @@ export async function listCompanyEmailAddresses(actor: Actor): Promise<Set<strin
     .execute();
   return new Set(people.map((p) => p.email));
 }
+
+/** The applicator's name and license number the actor last recorded (empty until the first). */
+export async function getRememberedApplicator(
+  actor: Actor,
+): Promise<{ name: string; license: string }> {
+  const row = await db()
+    .selectFrom("users")
+    .select(["applicator_name", "applicator_license"])
+    .where("id", "=", actor.userId)
+    .executeTakeFirst();
+  return { name: row?.applicator_name ?? "", license: row?.applicator_license ?? "" };
+}

@@ -108,3 +108,14 @@ export async function findZoneCheckPhoto(
     .executeTakeFirst();
   return row ? toPhotoDto(row, actor) : undefined;
 }
+
+/** The photos of the given zone checks, oldest first, within the actor's reach. */
+export async function listCheckPhotos(actor: Actor, zoneCheckIds: string[]): Promise<PhotoDto[]> {
+  if (zoneCheckIds.length === 0) return [];
+  const rows = await scopedPhotos(actor)
+    .where("photos.zone_check_id", "in", zoneCheckIds)
+    .orderBy("photos.created_at")
+    .limit(500)
+    .execute();
+  return rows.map((r) => toPhotoDto(r, actor));
+}

@@ -6,8 +6,9 @@
 // How events are stored (lib/audit/record.ts): `changes` maps a field to { from, to }; an entry
 // whose from and to are equal is context (the product an application was of), not a change; an
 // added entry has from null, a removed one to null. Actions: add_after_finish, edit,
-// edit_after_finish, delete, delete_after_finish, and the older finish, cancel,
-// override_legal_limit, applied_at_differs.
+// edit_after_finish, delete, delete_after_finish, rain_out and cancel (a stop called off, its
+// reason in the event's reason), reschedule, and the older finish, override_legal_limit,
+// applied_at_differs.
 import { OVERRIDE_CATEGORY_LABEL, RATE_UNIT_LABEL } from "@/lib/applications/units";
 import { formatDateTimeWithYear, formatShortDate, isIsoDate } from "@/lib/dates";
 import { translator } from "@/lib/i18n/translate";
@@ -175,7 +176,14 @@ export function auditWords(
           ? t("visitFinished")
           : action === "cancel"
             ? t("visitCanceled")
-            : `${t("visitChanged")}${changeWords(changes, opts) ? `: ${changeWords(changes, opts)}` : ""}`;
+            : action === "rain_out"
+              ? t("visitRainedOut")
+              : action === "reschedule"
+                ? t("visitRescheduled", {
+                    from: valueWords("scheduledFor", changes.scheduledFor?.from, opts),
+                    to: valueWords("scheduledFor", changes.scheduledFor?.to, opts),
+                  })
+                : `${t("visitChanged")}${changeWords(changes, opts) ? `: ${changeWords(changes, opts)}` : ""}`;
       break;
     case "zone_check":
       what = kind === "add" ? t("checkAdded") : kind === "delete" ? t("checkRemoved") : changed();

@@ -1,5 +1,5 @@
 // Visit and zone-check data as it leaves the server.
-import type { PlannedService, VisitStatus } from "@/db/schema";
+import type { CancelKind, PlannedService, VisitStatus } from "@/db/schema";
 import type { ApplicationDto } from "@/lib/applications/dto";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
@@ -33,6 +33,41 @@ export interface VisitSummaryDto {
   completedAt: string | null;
   checkedZones: number;
   zoneCount: number;
+  /** Zone checks saved on this visit, drafts included. */
+  savedChecks: number;
+  /** Set when the stop was called off as a whole (status "cancelled"). */
+  outcome: StopOutcomeDto | null;
+}
+
+/** A canceled stop: rained out or canceled, why, by whom, and what replaced it. */
+interface StopOutcomeDto {
+  /** Null for a visit canceled before outcomes were kept. */
+  kind: CancelKind | null;
+  reason: string;
+  at: string | null;
+  by: string | null;
+  /** Zone checks saved before the stop was called off: kept with the visit, not counted. */
+  keptChecks: number;
+  rescheduled: { visitId: string; scheduledFor: string } | null;
+  /** The day offered for a new visit (lib/visits/next-free-day.ts), while not rescheduled. */
+  nextFreeDay: string | null;
+}
+
+/** A zone's last check at an earlier finished visit, shown beside today's ratings. */
+export interface LastZoneCheckDto {
+  zoneId: string;
+  visitId: string;
+  visitedOn: string;
+  checkedBy: string | null;
+  status: ZoneCheckDto["status"];
+  quality: number | null;
+  color: number | null;
+  density: number | null;
+  uniformity: number | null;
+  heightOfCutIn: number | null;
+  notes: string;
+  skipReason: ZoneCheckDto["skipReason"];
+  photo: { thumbUrl: string; displayUrl: string; width: number; height: number } | null;
 }
 
 export interface VisitDetailDto extends VisitSummaryDto {
@@ -63,6 +98,8 @@ export interface VisitDetailDto extends VisitSummaryDto {
   waterings: WateringDto[];
   /** The signed-in person: their own entries can be corrected and deleted while the visit is open. */
   viewerId: string;
+  /** Each zone's last check at an earlier finished visit of the property (none: not listed). */
+  lastChecks: LastZoneCheckDto[];
   /** Staff may edit: technicians until the visit is finished, managers always (audited). */
   canEdit: boolean;
 }

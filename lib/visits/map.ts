@@ -129,12 +129,19 @@ export type VisitSummaryRow = Pick<
   | "technician_id"
   | "started_at"
   | "completed_at"
+  | "cancel_kind"
+  | "cancel_reason"
+  | "cancelled_at"
 > &
   Pick<Property, "street" | "city"> & {
     property_name: string;
     technician_name: string | null;
     checked_zones: number | string | null;
     zone_count: number | string | null;
+    saved_checks: number | string | null;
+    cancelled_by_name: string | null;
+    rescheduled_visit_id: string | null;
+    rescheduled_for: string | null;
   };
 
 export function toVisitSummaryDto(r: VisitSummaryRow): VisitSummaryDto {
@@ -152,5 +159,21 @@ export function toVisitSummaryDto(r: VisitSummaryRow): VisitSummaryDto {
     completedAt: r.completed_at ? new Date(r.completed_at).toISOString() : null,
     checkedZones: Number(r.checked_zones ?? 0),
     zoneCount: Number(r.zone_count ?? 0),
+    savedChecks: Number(r.saved_checks ?? 0),
+    outcome:
+      r.status === "cancelled"
+        ? {
+            kind: r.cancel_kind,
+            reason: r.cancel_reason,
+            at: r.cancelled_at ? new Date(r.cancelled_at).toISOString() : null,
+            by: r.cancelled_by_name,
+            keptChecks: Number(r.saved_checks ?? 0),
+            rescheduled:
+              r.rescheduled_visit_id && r.rescheduled_for
+                ? { visitId: r.rescheduled_visit_id, scheduledFor: r.rescheduled_for }
+                : null,
+            nextFreeDay: null, // filled by the queries that offer one (withNextFreeDays)
+          }
+        : null,
   };
 }

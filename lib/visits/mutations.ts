@@ -1,4 +1,5 @@
-// Visit writes: schedule, start, save a zone check (idempotent, versioned), cancel. Finishing a
+// Visit writes: schedule, start, save a zone check (idempotent, versioned), call a stop off
+// (rained out or canceled, with a reason), reschedule it. Finishing a
 // visit publishes its visit report (lib/reports/mutations.ts). Every write re-checks scope inside
 // its transaction (out of scope = not found) and ends with afterWrite in that transaction.
 import "server-only";
@@ -27,6 +28,7 @@ import { fillVisitWeather } from "@/lib/weather/mutations";
 
 import type { VisitDetailDto, ZoneCheckDto } from "./dto";
 import { diffValues, toColumns, toZoneCheckDto, valuesOf } from "./map";
+import { nextFreeDay } from "./next-free-day";
 import { getVisit } from "./queries";
 import {
   SCHEDULE_AHEAD_DAYS,
@@ -34,6 +36,7 @@ import {
   type ZoneCheckInput,
   type ZoneCheckRequest,
 } from "./schemas";
+import { CANCEL_KINDS, type CancelVisitInput, type RescheduleVisitInput } from "./stop-outcomes";
 import { mowingConsistency } from "./zone-check-rules";
 
 export async function scheduleVisit(
@@ -430,18 +433,39 @@ export async function saveZoneCheck(
     });
 }
 
-export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
+/**
+ * Calls a stop off as a whole — rained out or canceled — with the reason the person gave. Zone
+ * checks already saved are kept with the visit (never deleted), but a canceled visit's checks
+ * count nowhere: not in the Index, the book or alerts (every read leaves canceled visits out), so
+ * afterWrite re-evaluates them in this transaction. A replay of the same call changes nothing.
+ */
+export async function cancelVisit(
+  actor: Actor,
+  visitId: string,
+  input: CancelVisitInput,
+): Promise<VisitDetailDto> {
+  const words = CANCEL_KINDS[input.outcome].label.toLowerCase();
   await db()
     .transaction()
     .execute(async (trx) => {
       const visit = await lockVisit(trx, actor, visitId);
-      if (visit.status === "cancelled") return;
+      if (visit.status === "cancelled") {
+        if (visit.cancel_kind === input.outcome && visit.cancel_reason === input.reason) return;
+        throw new AppError(
+          "conflict",
+          `This stop was already ${visit.cancel_kind ? CANCEL_KINDS[visit.cancel_kind].label.toLowerCase() : "canceled"}${visit.cancel_reason ? ` (${visit.cancel_reason})` : ""}; it can no longer be changed.`,
+        );
+      }
       if (visit.status === "completed")
-        throw new AppError("conflict", "A finished visit cannot be canceled.");
+        throw new AppError("conflict", `A finished visit cannot be ${words}.`);
       await trx
         .updateTable("visits")
         .set({
           status: "cancelled",
+          cancel_kind: input.outcome,
+          cancel_reason: input.reason,
+          cancelled_at: sql<Date>`now()`,
+          cancelled_by: actor.userId,
           version: sql<number>`version + 1`,
           updated_at: sql<Date>`now()`,
         })
@@ -450,11 +474,16 @@ export async function cancelVisit(actor: Actor, visitId: string): Promise<VisitD
       await recordAudit(trx, actor, {
         entity: "visit",
         entityId: visitId,
-        action: "cancel",
-        changes: { status: { from: visit.status, to: "cancelled" } },
+        action: input.outcome === "rained_out" ? "rain_out" : "cancel",
+        changes: {
+          status: { from: visit.status, to: "cancelled" },
+          outcome: { from: null, to: input.outcome },
+        },
+        reason: input.reason,
         visitId,
       });
-      // Its checks no longer count: the Index, the book and the alerts follow.
+      // Its checks no longer count: the Index, the book (next visit, last checks) and the alerts
+      // follow.
       await afterWrite(trx, {
         companyId: actor.companyId,
         propertyId: visit.property_id,
@@ -520,4 +549,130 @@ export async function deleteZoneCheck(
       return photos.flatMap((p) => [p.display_key, p.thumb_key]);
     });
   await removeUnreferencedFiles(keys, storage);
+}
+
+/**
+ * A new visit in place of a stop that was rained out or canceled: same property, technician,
+ * service, stop number and office note, on the day chosen (the page offers the next free day).
+ * Once per canceled stop; the canceled visit keeps a link to its replacement.
+ */
+export async function rescheduleVisit(
+  actor: Actor,
+  visitId: string,
+  input: RescheduleVisitInput,
+): Promise<VisitDetailDto> {
+  const newId = randomUUID();
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const visit = await lockVisit(trx, actor, visitId);
+      if (visit.status !== "cancelled")
+        throw new AppError(
+          "conflict",
+          "Only a stop that was rained out or canceled can be rescheduled this way.",
+        );
+      if (visit.rescheduled_visit_id) {
+        const replacement = await trx
+          .selectFrom("visits")
+          .select("scheduled_for")
+          .where("id", "=", visit.rescheduled_visit_id)
+          .executeTakeFirst();
+        throw new AppError(
+          "conflict",
+          `This stop was already rescheduled${replacement ? ` for ${usDate(replacement.scheduled_for)}` : ""}.`,
+        );
+      }
+      const property = await trx
+        .selectFrom("properties")
+        .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
+        .select([
+          "properties.name",
+          "properties.archived_at",
+          "properties.time_zone",
+          "rule_sets.name as rule_set_name",
+          "rule_sets.pro_no_fertilizer_after",
+          "rule_sets.pro_no_fertilizer_before",
+        ])
+        .where("properties.company_id", "=", actor.companyId)
+        .where("properties.id", "=", visit.property_id)
+        .executeTakeFirstOrThrow();
+      if (property.archived_at)
+        throw new AppError("conflict", "That property is archived; it has no more visits.");
+      const today = todayIn(property.time_zone);
+      const taken = (
+        await trx
+          .selectFrom("visits")
+          .select("scheduled_for")
+          .where("company_id", "=", actor.companyId)
+          .where("property_id", "=", visit.property_id)
+          .where("status", "!=", "cancelled")
+          .where("scheduled_for", ">=", today)
+          .execute()
+      ).map((v) => v.scheduled_for);
+      const window =
+        property.pro_no_fertilizer_after && property.pro_no_fertilizer_before
+          ? ([property.pro_no_fertilizer_after, property.pro_no_fertilizer_before] as const)
+          : null;
+      const offer = nextFreeDay({
+        today,
+        taken,
+        window,
+        putsDownNOrP: putsDownNOrP(visit.planned_service),
+        aheadDays: SCHEDULE_AHEAD_DAYS,
+      });
+      const orOffer = offer ? ` The next free day is ${usDate(offer)}.` : "";
+      const refuse = (message: string) =>
+        new AppError("invalid_input", "Some values need attention.", {
+          scheduledFor: [`Date: ${message}${orOffer}`],
+        });
+      if (input.scheduledFor < today)
+        throw refuse(`the new visit is today (${usDate(today)}) or a later day, not in the past.`);
+      if (input.scheduledFor > addDays(today, SCHEDULE_AHEAD_DAYS))
+        throw refuse(
+          `at most 18 months ahead (${usDate(addDays(today, SCHEDULE_AHEAD_DAYS))} or earlier).`,
+        );
+      if (taken.includes(input.scheduledFor))
+        throw refuse(`${property.name} already has a visit on ${usDate(input.scheduledFor)}.`);
+      if (
+        window &&
+        putsDownNOrP(visit.planned_service) &&
+        inNoFertilizerWindow(input.scheduledFor.slice(5), window)
+      )
+        throw refuse(
+          `${usDate(input.scheduledFor)} is inside the no-fertilizer window of ${property.rule_set_name}: no fertilizer with nitrogen or phosphorus after ${monthDayWords(window[0])} or before ${monthDayWords(window[1])}.`,
+        );
+      await trx
+        .insertInto("visits")
+        .values({
+          id: newId,
+          company_id: actor.companyId,
+          property_id: visit.property_id,
+          // A stop a technician started without being assigned goes to them.
+          technician_id: visit.technician_id ?? (actor.role === "technician" ? actor.userId : null),
+          scheduled_for: input.scheduledFor,
+          stop_order: visit.stop_order,
+          planned_service: visit.planned_service,
+          notes: visit.notes,
+          created_by: actor.userId,
+        })
+        .execute();
+      await trx
+        .updateTable("visits")
+        .set({ rescheduled_visit_id: newId, updated_at: sql<Date>`now()` })
+        .where("id", "=", visitId)
+        .execute();
+      await recordAudit(trx, actor, {
+        entity: "visit",
+        entityId: visitId,
+        action: "reschedule",
+        changes: { scheduledFor: { from: visit.scheduled_for, to: input.scheduledFor } },
+      });
+      // The book shows the next visit.
+      await afterWrite(trx, {
+        companyId: actor.companyId,
+        propertyId: visit.property_id,
+        alerts: "keep",
+      });
+    });
+  return getVisit(actor, newId);
 }

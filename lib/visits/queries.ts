@@ -4,11 +4,13 @@ import "server-only";
 import type { z } from "zod";
 
 import { db } from "@/db";
+import { putsDownNOrP } from "@/lib/agronomy/season";
 import { listVisitApplications } from "@/lib/applications/queries";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
+import { addDays, todayIn } from "@/lib/dates";
 import { notFound } from "@/lib/http/app-error";
-import { listVisitPhotos } from "@/lib/photos/queries";
+import { listCheckPhotos, listVisitPhotos } from "@/lib/photos/queries";
 import { toZoneDto, ZONE_COLUMNS } from "@/lib/properties/map";
 import { findZoneInScope } from "@/lib/properties/queries";
 import { listVisitWaterings } from "@/lib/watering/queries";
@@ -16,13 +18,15 @@ import { listVisitWaterings } from "@/lib/watering/queries";
 import { auditWords } from "./audit-words";
 import type {
   AuditEventDto,
+  LastZoneCheckDto,
   TodayStopDto,
   VisitDetailDto,
   VisitSummaryDto,
   ZoneHistoryEntryDto,
 } from "./dto";
 import { concernsOf, toVisitSummaryDto, toZoneCheckDto, valuesOf } from "./map";
-import type { listVisitsQuery } from "./schemas";
+import { nextFreeDay } from "./next-free-day";
+import { SCHEDULE_AHEAD_DAYS, type listVisitsQuery } from "./schemas";
 
 function visitSummaries() {
   return db()
@@ -33,6 +37,12 @@ function visitSummaries() {
         .onRef("properties.company_id", "=", "visits.company_id"),
     )
     .leftJoin("users as tech", "tech.id", "visits.technician_id")
+    .leftJoin("users as canceller", "canceller.id", "visits.cancelled_by")
+    .leftJoin("visits as replacement", (j) =>
+      j
+        .onRef("replacement.id", "=", "visits.rescheduled_visit_id")
+        .onRef("replacement.company_id", "=", "visits.company_id"),
+    )
     .select((eb) => [
       "visits.id",
       "visits.property_id",
@@ -53,6 +63,17 @@ function visitSummaries() {
       "visits.weather",
       "visits.version",
       "visits.company_id",
+      "visits.cancel_kind",
+      "visits.cancel_reason",
+      "visits.cancelled_at",
+      "canceller.name as cancelled_by_name",
+      "visits.rescheduled_visit_id",
+      "replacement.scheduled_for as rescheduled_for",
+      eb
+        .selectFrom("zone_checks")
+        .select((e) => e.fn.countAll<number>().as("n"))
+        .whereRef("zone_checks.visit_id", "=", "visits.id")
+        .as("saved_checks"),
       eb
         .selectFrom("zone_checks")
         .select((e) => e.fn.countAll<number>().as("n"))
@@ -85,7 +106,134 @@ export async function listVisits(
     .orderBy("visits.id")
     .limit(500)
     .execute();
-  return rows.map(toVisitSummaryDto);
+  return withNextFreeDays(actor, rows.map(toVisitSummaryDto));
+}
+
+/**
+ * Offers the next free day (lib/visits/next-free-day.ts) on each canceled stop not yet rescheduled:
+ * from today in the property's time zone, past the property's other visits, outside the rule
+ * set's no-fertilizer window for a round with nitrogen or phosphorus.
+ */
+async function withNextFreeDays<T extends VisitSummaryDto>(
+  actor: Actor,
+  visits: T[],
+): Promise<T[]> {
+  const open = visits.filter((v) => v.outcome && !v.outcome.rescheduled);
+  if (open.length === 0) return visits;
+  const propertyIds = [...new Set(open.map((v) => v.propertyId))];
+  const properties = await db()
+    .selectFrom("properties")
+    .leftJoin("rule_sets", "rule_sets.id", "properties.rule_set_id")
+    .select([
+      "properties.id",
+      "properties.time_zone",
+      "rule_sets.pro_no_fertilizer_after",
+      "rule_sets.pro_no_fertilizer_before",
+    ])
+    .where("properties.company_id", "=", actor.companyId)
+    .where("properties.id", "in", propertyIds)
+    .execute();
+  const earliest = addDays(todayIn("UTC"), -1); // no time zone is a day behind that
+  const taken = await db()
+    .selectFrom("visits")
+    .select(["property_id", "scheduled_for"])
+    .where("company_id", "=", actor.companyId)
+    .where("property_id", "in", propertyIds)
+    .where("status", "!=", "cancelled")
+    .where("scheduled_for", ">=", earliest)
+    .execute();
+  return visits.map((v) => {
+    const property = properties.find((p) => p.id === v.propertyId);
+    if (!v.outcome || v.outcome.rescheduled || !property) return v;
+    const window =
+      property.pro_no_fertilizer_after && property.pro_no_fertilizer_before
+        ? ([property.pro_no_fertilizer_after, property.pro_no_fertilizer_before] as const)
+        : null;
+    const day = nextFreeDay({
+      today: todayIn(property.time_zone),
+      taken: taken.filter((t) => t.property_id === v.propertyId).map((t) => t.scheduled_for),
+      window,
+      putsDownNOrP: putsDownNOrP(v.plannedService),
+      aheadDays: SCHEDULE_AHEAD_DAYS,
+    });
+    return { ...v, outcome: { ...v.outcome, nextFreeDay: day } };
+  });
+}
+
+/**
+ * Each zone's last check at an earlier finished visit of the same property (the newest by visit
+ * date, then by finish), with who checked it and its first photo: what today's check is compared
+ * with. The visit was already found in the actor's scope.
+ */
+async function listLastZoneChecks(
+  actor: Actor,
+  visit: { id: string; propertyId: string; scheduledFor: string },
+): Promise<LastZoneCheckDto[]> {
+  const rows = await db()
+    .selectFrom("zone_checks")
+    .innerJoin("visits", (j) =>
+      j
+        .onRef("visits.id", "=", "zone_checks.visit_id")
+        .onRef("visits.company_id", "=", "zone_checks.company_id"),
+    )
+    .leftJoin("users as checker", "checker.id", "zone_checks.updated_by")
+    .leftJoin("users as tech", "tech.id", "visits.technician_id")
+    .distinctOn("zone_checks.zone_id")
+    .select([
+      "zone_checks.id",
+      "zone_checks.zone_id",
+      "zone_checks.visit_id",
+      "zone_checks.status",
+      "zone_checks.quality",
+      "zone_checks.color",
+      "zone_checks.density",
+      "zone_checks.uniformity",
+      "zone_checks.height_of_cut_in",
+      "zone_checks.notes",
+      "zone_checks.skip_reason",
+      "visits.scheduled_for",
+      "checker.name as checker_name",
+      "tech.name as technician_name",
+    ])
+    .where("zone_checks.company_id", "=", actor.companyId)
+    .where("visits.property_id", "=", visit.propertyId)
+    .where("visits.status", "=", "completed")
+    .where("visits.id", "!=", visit.id)
+    .where("visits.scheduled_for", "<=", visit.scheduledFor)
+    .where("zone_checks.status", "in", ["done", "skipped"])
+    .orderBy("zone_checks.zone_id")
+    .orderBy("visits.scheduled_for", "desc")
+    .orderBy("visits.completed_at", "desc")
+    .execute();
+  const photos = await listCheckPhotos(
+    actor,
+    rows.map((r) => r.id),
+  );
+  return rows.map((r) => {
+    const photo = photos.find((p) => p.zoneCheckId === r.id);
+    return {
+      zoneId: r.zone_id,
+      visitId: r.visit_id,
+      visitedOn: r.scheduled_for,
+      checkedBy: r.checker_name ?? r.technician_name,
+      status: r.status,
+      quality: r.quality,
+      color: r.color,
+      density: r.density,
+      uniformity: r.uniformity,
+      heightOfCutIn: r.height_of_cut_in === null ? null : Number(r.height_of_cut_in),
+      notes: r.notes,
+      skipReason: r.skip_reason,
+      photo: photo
+        ? {
+            thumbUrl: photo.thumbUrl,
+            displayUrl: photo.displayUrl,
+            width: photo.width,
+            height: photo.height,
+          }
+        : null,
+    };
+  });
 }
 
 export async function getVisit(actor: Actor, visitId: string): Promise<VisitDetailDto> {
@@ -122,8 +270,9 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     .orderBy("name")
     .execute();
 
+  const [summary] = await withNextFreeDays(actor, [toVisitSummaryDto(row)]);
   return {
-    ...toVisitSummaryDto(row),
+    ...summary!,
     notes: row.notes,
     timeZone: row.time_zone,
     ruleSetId: row.rule_set_id,
@@ -136,6 +285,11 @@ export async function getVisit(actor: Actor, visitId: string): Promise<VisitDeta
     applications: await listVisitApplications(actor, visitId),
     waterings: await listVisitWaterings(actor, visitId),
     viewerId: actor.userId,
+    lastChecks: await listLastZoneChecks(actor, {
+      id: row.id,
+      propertyId: row.property_id,
+      scheduledFor: row.scheduled_for,
+    }),
     canEdit:
       actor.role === "manager" ||
       (actor.role === "technician" && row.status !== "completed" && row.status !== "cancelled"),
@@ -149,10 +303,8 @@ export async function listTodayStops(
   technicianId?: string,
 ): Promise<TodayStopDto[]> {
   const techId = actor.role === "technician" ? actor.userId : technicianId;
-  let q = visitSummaries()
-    .where(visitInScope(actor))
-    .where("visits.scheduled_for", "=", date)
-    .where("visits.status", "!=", "cancelled");
+  // Canceled stops stay on the day, with their outcome (rained out, canceled) and the day offered.
+  let q = visitSummaries().where(visitInScope(actor)).where("visits.scheduled_for", "=", date);
   if (techId) q = q.where("visits.technician_id", "=", techId);
   const rows = await q.orderBy("visits.stop_order").orderBy("properties.name").execute();
   if (rows.length === 0) return [];
@@ -189,7 +341,7 @@ export async function listTodayStops(
         .execute()
     : [];
 
-  return rows.map((r) => {
+  const stops = rows.map((r) => {
     const last = previous.find((p) => p.property_id === r.property_id);
     const concerns = last
       ? checks
@@ -198,6 +350,7 @@ export async function listTodayStops(
       : [];
     return { ...toVisitSummaryDto(r), lastVisitOn: last?.scheduled_for ?? null, concerns };
   });
+  return withNextFreeDays(actor, stops);
 }
 
 /** Every check of a zone, newest first. The zone must be within the actor's property scope. */

@@ -37,7 +37,8 @@ interface Targets {
   street: string;
   zoneId: string;
   visitId: string; // scheduled at the property for tech1; started, checked and finished by the matrix
-  cancelVisitId: string; // another scheduled visit, for cancel
+  cancelVisitId: string; // another scheduled visit, for cancel (rained out) and reschedule
+  rescheduleOn: string; // a free day for the rained-out stop
   completedVisitId: string;
   alertId: string;
   productId: string;
@@ -271,6 +272,12 @@ const CELLS: Cell[] = [
 
   // Reads.
   { key: "GET /api/v1/me", path: () => "/api/v1/me", allow: SIGNED_IN, leak: () => [] },
+  {
+    key: "GET /api/v1/me/applicator",
+    path: () => "/api/v1/me/applicator",
+    allow: ["assignedTech", "otherTech", "manager", "otherManager"],
+    leak: () => [],
+  },
   {
     key: "GET /api/v1/people",
     path: () => "/api/v1/people",
@@ -580,10 +587,21 @@ const CELLS: Cell[] = [
   },
   {
     key: "POST /api/v1/visits/[visitId]/cancel",
+    case: "a stop rained out with a reason (the same call again is a replay)",
     path: (t) => `/api/v1/visits/${t.cancelVisitId}/cancel`,
     method: "POST",
-    body: () => ({}),
-    allow: ["manager"],
+    body: () => ({ outcome: "rained_out", reason: "Rain on the matrix walk" }),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "POST /api/v1/visits/[visitId]/reschedule",
+    case: "the rained-out stop rescheduled (once: the second allowed person gets 409)",
+    path: (t) => `/api/v1/visits/${t.cancelVisitId}/reschedule`,
+    method: "POST",
+    body: (t) => ({ scheduledFor: t.rescheduleOn }),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
   },
   {
     key: "POST /api/v1/alerts/[alertId]/acknowledge",
@@ -826,7 +844,7 @@ beforeAll(async () => {
     { scheduleVisit },
     { acceptInvitation, inviteHomeowner },
     { invitationTokenFor },
-    { todayIn },
+    { addDays, todayIn },
   ] = await Promise.all([
     import("../helpers/factories"),
     import("@/fixtures/demo/scenario"),
@@ -894,6 +912,20 @@ beforeAll(async () => {
     notes: "",
     confirmSameDay: true,
   });
+  // A day the property has no visit, not a Sunday: the rained-out stop's new day.
+  const taken = new Set(
+    (
+      await db
+        .selectFrom("visits")
+        .select("scheduled_for")
+        .where("property_id", "=", propertyId)
+        .where("status", "!=", "cancelled")
+        .execute()
+    ).map((v) => v.scheduled_for),
+  );
+  let rescheduleOn = addDays(today, 1);
+  while (taken.has(rescheduleOn) || new Date(`${rescheduleOn}T00:00:00Z`).getUTCDay() === 0)
+    rescheduleOn = addDays(rescheduleOn, 1);
   const extraEmail = `matrix-extra-${randomUUID().slice(0, 8)}@test.sward.test`;
   await inviteHomeowner(manager, propertyId, { email: extraEmail, name: "Matrix Extra" });
   await acceptInvitation(await invitationTokenFor(db, extraEmail), {
@@ -920,6 +952,7 @@ beforeAll(async () => {
     zoneId: zone.id,
     visitId: visit.id,
     cancelVisitId,
+    rescheduleOn,
     completedVisitId: completed.id,
     alertId: alert.id,
     productId: product.id,

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import { ScheduleVisitForm } from "@/components/visits/schedule-visit-form";
 import { VisitStatusBadge } from "@/components/visits/status-badge";
+import { RefreshingStopOutcome } from "@/components/visits/stop-outcome";
 import { TeamActivity } from "@/components/visits/team-activity";
 import { requireActor } from "@/lib/auth/require";
 import { getTeamActivity } from "@/lib/book/queries";
@@ -77,8 +78,13 @@ export default async function VisitsPage({
                           {PLANNED_SERVICES[v.plannedService]} · {v.checkedZones} of {v.zoneCount}{" "}
                           zones
                         </span>
-                        <VisitStatusBadge status={v.status} />
+                        <VisitStatusBadge status={v.status} cancelKind={v.outcome?.kind} />
                       </Link>
+                      {v.outcome ? (
+                        <div className="mt-1">
+                          <RefreshingStopOutcome visit={v} timeZone={actor.companyTimeZone} />
+                        </div>
+                      ) : null}
                     </li>
                   ))}
               </ol>

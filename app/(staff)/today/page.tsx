@@ -66,7 +66,7 @@ async function Stops({ actor, date }: { actor: Actor; date: string }) {
   });
   return (
     <HydrationBoundary state={dehydrate(queryClient)}>
-      <TodayList date={date} />
+      <TodayList date={date} timeZone={actor.companyTimeZone} />
     </HydrationBoundary>
   );
 }

@@ -116,6 +116,8 @@ export const en = {
     removedBy: "removed by {actor}",
     visitFinished: "Visit finished",
     visitCanceled: "Visit canceled",
+    visitRainedOut: "Stop rained out",
+    visitRescheduled: "Visit rescheduled from {from} to {to}",
     visitChanged: "Visit changed",
     checkAdded: "zone check",
     checkRemoved: "zone check",

@@ -9,6 +9,8 @@ import { VisitRunner } from "@/components/visits/visit-runner";
 import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
+import { getRememberedApplicator } from "@/lib/people/queries";
+import { meKeys } from "@/lib/people/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
 import { listPropertyAlerts } from "@/lib/risk-alerts/queries";
 import { getVisit } from "@/lib/visits/queries";
@@ -43,6 +45,7 @@ async function VisitBody({ actor, visitId }: { actor: Actor; visitId: string }) 
   );
   const queryClient = makeQueryClient();
   queryClient.setQueryData(visitKeys.detail(visit.id), visit);
+  queryClient.setQueryData(meKeys.applicator(), await getRememberedApplicator(actor));
 
   return (
     <HydrationBoundary state={dehydrate(queryClient)}>
