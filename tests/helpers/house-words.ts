@@ -49,7 +49,7 @@ const BRITISH_SPELLINGS: readonly (readonly [RegExp, string])[] = [
 /** Day-before-month dates ("1 January", "2 Dec 2026"): US readers expect the month first. */
 const DATE_ORDER: readonly (readonly [RegExp, string])[] = [
   [
-    /\b\d{1,2}(st|nd|rd|th)? (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Sept|Oct|Nov|Dec)[a-z]*\b/,
+    /\b\d{1,2}(st|nd|rd|th)? (January|February|March|April|May|June|July|August|September|October|November|December|Jan|Feb|Mar|Apr|Jun|Jul|Aug|Sept?|Oct|Nov|Dec)\b/,
     "month first (January 1, Dec 2)",
   ],
 ];

@@ -86,7 +86,9 @@ describe("plain words at the source", () => {
       "2 Dec",
       "3rd March",
     ]);
-    expect(caught("GDD since January 1; Wed, Dec 2, 2026; 3 zones, 12 in")).toEqual([]);
+    expect(
+      caught("GDD since January 1; Wed, Dec 2, 2026; 3 zones, 12 in; 57 Marrowfield Road"),
+    ).toEqual([]);
     // Addresses are not words: links and e-mail addresses pass.
     expect(caught("https://x.test/my_lawn?a_b=1 owner_1@demo.sward.test")).toEqual([]);
     // US words pass.
