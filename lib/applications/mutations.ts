@@ -349,7 +349,9 @@ export async function recordApplication(
   if (retried) return retried; // a retry of a recorded application
 
   const visit = await applicationVisit(actor, visitId);
-  // An application added to a finished visit is a correction: it says why (422 before any work).
+  // A technician may not write to a finished visit at all (403, before asking for a reason); a
+  // manager's application added to it is a correction: it says why (422 before any work).
+  assertEditable(actor, visit);
   correctionReasonFor(visit, input.correctionReason);
   const { zone, product, bound, refused, columns } = await prepareApplication(
     actor,

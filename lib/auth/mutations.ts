@@ -2,9 +2,10 @@
 import "server-only";
 
 import { randomBytes } from "node:crypto";
-import { sql } from "kysely";
+import { sql, type Transaction } from "kysely";
 
 import { db } from "@/db";
+import type { Database } from "@/db/schema";
 import { enqueueMail, type OutgoingMail } from "@/lib/mail/outbox";
 
 import type { LinkUser } from "./dto";
@@ -69,6 +70,14 @@ export async function storeSignInLink(
       await trx.insertInto("verification_tokens").values(token).execute();
       await enqueueMail(trx, mail);
     });
+}
+
+/** A link's token (hashed) in the caller's transaction: the one that queues its e-mail. */
+export async function storeLinkToken(
+  trx: Transaction<Database>,
+  token: { identifier: string; token: string; expires: Date },
+): Promise<void> {
+  await trx.insertInto("verification_tokens").values(token).execute();
 }
 
 /** Deleting as it is read makes a link single-use, even when opened twice at once. */

@@ -6,14 +6,21 @@
 import "server-only";
 
 import { createHash } from "node:crypto";
+import type { Transaction } from "kysely";
 import type { Adapter, AdapterUser } from "next-auth/adapters";
 
+import type { Database } from "@/db/schema";
 import { appUrl, serverEnv } from "@/lib/env";
 import { sameOriginPath } from "@/lib/http/redirect";
 import { signInLinkEmail } from "@/lib/mail/sign-in-email";
 
 import type { Homeowner } from "./dto";
-import { markEmailVerified, storeSignInLink, takeVerificationToken } from "./mutations";
+import {
+  markEmailVerified,
+  storeLinkToken,
+  storeSignInLink,
+  takeVerificationToken,
+} from "./mutations";
 import { findHomeowner as findHomeownerByKey, findUserById } from "./queries";
 import { normaliseEmail } from "./throttle";
 import { hashedToken, newLinkToken } from "./tokens";
@@ -23,6 +30,13 @@ export { hashedToken } from "./tokens";
 export { countRecentLinkRequests } from "./queries";
 
 export const SIGN_IN_LINK_MINUTES = 15;
+/**
+ * How long the one-time link in a visit report e-mail signs its homeowner in. Longer than a link
+ * asked for on the sign-in page (read within minutes) because a report is read when the e-mail is
+ * opened, often the evening after the visit; the same single-use token, stored as its hash, and the
+ * same confirmation step. Afterwards the report's plain address still works through sign-in.
+ */
+export const REPORT_LINK_HOURS = 72;
 export const SIGN_IN_LINK_PROVIDER = "nodemailer";
 
 export function findHomeowner(email: string): Promise<Homeowner | undefined> {
@@ -89,6 +103,38 @@ export function confirmationUrl(callbackUrl: string): string {
   return `${origin}/sign-in/link?${query.toString()}`;
 }
 
+/** Auth.js's e-mail callback for a token, sending the person on to `path` (same origin only). */
+function callbackFor(emailKey: string, token: string, path: string): string {
+  const origin = appUrl();
+  const callback = new URL(`${origin}/api/auth/callback/${SIGN_IN_LINK_PROVIDER}`);
+  callback.search = new URLSearchParams({
+    callbackUrl: `${origin}${sameOriginPath(path) ?? "/"}`,
+    token,
+    email: emailKey,
+  }).toString();
+  return callback.toString();
+}
+
+/**
+ * The one-time sign-in link of a visit report e-mail, made inside the transaction that queues the
+ * e-mail (so a token never exists without its message): it opens `path` (the report) signed in,
+ * once, within REPORT_LINK_HOURS.
+ */
+export async function reportSignInLink(
+  trx: Transaction<Database>,
+  email: string,
+  path: string,
+): Promise<string> {
+  const emailKey = normaliseEmail(email);
+  const token = newLinkToken();
+  await storeLinkToken(trx, {
+    identifier: emailKey,
+    token: hashedToken(token, serverEnv().AUTH_SECRET),
+    expires: new Date(Date.now() + REPORT_LINK_HOURS * 3_600_000),
+  });
+  return confirmationUrl(callbackFor(emailKey, token, path));
+}
+
 /**
  * Issues a sign-in link for an e-mail address when it belongs to an active homeowner, and does
  * nothing otherwise. Runs after the response has been sent (requestSignInLinkAction), so the
@@ -98,16 +144,9 @@ export function confirmationUrl(callbackUrl: string): string {
 export async function issueSignInLink(emailKey: string, redirectTo: string): Promise<boolean> {
   if (!(await findHomeowner(emailKey))) return false;
   const token = newLinkToken();
-  const origin = appUrl();
-  const callback = new URL(`${origin}/api/auth/callback/${SIGN_IN_LINK_PROVIDER}`);
-  callback.search = new URLSearchParams({
-    callbackUrl: `${origin}${sameOriginPath(redirectTo) ?? "/"}`,
-    token,
-    email: emailKey,
-  }).toString();
   await queueSignInLink({
     identifier: emailKey,
-    url: callback.toString(),
+    url: callbackFor(emailKey, token, redirectTo),
     token,
     expires: new Date(Date.now() + SIGN_IN_LINK_MINUTES * 60_000),
     secret: serverEnv().AUTH_SECRET,

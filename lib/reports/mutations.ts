@@ -13,10 +13,12 @@ import { afterWrite } from "@/lib/after-write";
 import { refreshAlertWeather } from "@/lib/after-write/alerts";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
+import { REPORT_LINK_HOURS, reportSignInLink } from "@/lib/auth/sign-in-link";
 import { appOrigin, serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/http/app-error";
 import { log } from "@/lib/log";
 import { enqueueMail } from "@/lib/mail/outbox";
+import { visitReportPath } from "@/lib/paths";
 import { services } from "@/lib/services";
 import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 import type { VisitDetailDto } from "@/lib/visits/dto";
@@ -125,7 +127,12 @@ async function queueVisitReportMail(
       sessionId: "",
     };
     const report = await getVisitReport(homeowner, visitId, trx);
-    const mail = reportEmail(report, appUrl, h.name, actor.companyLocale);
+    // The button signs this homeowner in once and opens the report: no second e-mail to ask for.
+    const signedLink = {
+      url: await reportSignInLink(trx, h.email, visitReportPath(visitId)),
+      hours: REPORT_LINK_HOURS,
+    };
+    const mail = reportEmail(report, appUrl, h.name, actor.companyLocale, signedLink);
     const isNew = await enqueueMail(trx, {
       companyId: actor.companyId,
       kind: "visit_report",

@@ -24,11 +24,14 @@ export function reportEmail(
   appUrl: string,
   homeownerName: string,
   locale?: string | null,
+  /** The one-time sign-in link that opens the report (lib/auth/sign-in-link.ts reportSignInLink). */
+  signedLink?: { url: string; hours: number },
 ) {
   const mail = words(locale, "report.mail");
   const email = words(locale, "email");
   const base = appUrl.replace(/\/$/, "");
   const link = `${base}${visitReportPath(report.visitId)}`;
+  const button = signedLink?.url ?? link;
   const date = formatDate(report.date, locale ?? undefined);
   const subject = mail("subject", { property: report.propertyName, date });
   const keepOff = [...new Set(report.applications.map((a) => a.reentryGuidance).filter(Boolean))];
@@ -61,7 +64,14 @@ export function reportEmail(
       : []),
     ...(photos.length ? ["", mail("photos"), ...photos.map((p) => `• ${p.zone}: ${p.url}`)] : []),
     "",
-    `${mail("readFull")} ${link}`,
+    ...(signedLink
+      ? [
+          `${mail("readFull", { hours: signedLink.hours })} ${signedLink.url}`,
+          "",
+          mail("linkOnce", { hours: signedLink.hours }),
+          link,
+        ]
+      : [link]),
     mail("howToSignIn"),
     "",
     signOff,
@@ -78,7 +88,10 @@ export function reportEmail(
     photos.length
       ? `<p>${escapeHtml(mail("photos"))} ${photos.map((p) => `<a href="${escapeHtml(p.url)}">${escapeHtml(p.zone)}</a>`).join(" · ")}</p>`
       : "",
-    emailButton(link, mail("button")),
+    emailButton(button, mail("button")),
+    signedLink
+      ? `<p style="color:#5b665e">${escapeHtml(mail("linkOnce", { hours: signedLink.hours }))} <a href="${escapeHtml(link)}">${escapeHtml(link)}</a></p>`
+      : `<p style="color:#5b665e"><a href="${escapeHtml(link)}">${escapeHtml(link)}</a></p>`,
     `<p style="color:#5b665e">${escapeHtml(mail("howToSignIn"))}</p>`,
     `<p>${escapeHtml(signOff)}</p>`,
   ]);

@@ -253,6 +253,27 @@ describe("the homeowner's report e-mail and sign-in link", () => {
     const reportUrl = linkIn(report.text, /https?:\/\/\S+\/my-lawn\/reports\/[0-9a-f-]+/);
     reportPath = new URL(reportUrl).pathname;
 
+    // The e-mail's button signs owner1 in once and opens the report: no second e-mail to ask for.
+    const signed = linkIn(report.text, /https?:\/\/\S+\/sign-in\/link\?\S+/);
+    expect(report.text).toMatch(/signs you in once, within 72 hours/);
+    const direct = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
+    const directPage = await direct.newPage();
+    await directPage.goto(signed);
+    await directPage.getByRole("heading", { name: "Finish signing in" }).waitFor();
+    await directPage.getByRole("button", { name: "Continue to my lawn" }).click();
+    await directPage.waitForURL(`**${reportPath}`);
+    await directPage.getByRole("heading", { level: 1, name: /Oyelaran residence/ }).waitFor();
+    await snap(directPage, "mail-00-report-from-its-email-link", true);
+    await direct.close();
+    // Used once: the same button again signs no one in.
+    const reused = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
+    const reusedPage = await reused.newPage();
+    await reusedPage.goto(signed);
+    await reusedPage.getByRole("button", { name: "Continue to my lawn" }).click();
+    await reusedPage.waitForURL(/\/sign-in\?.*error=Verification/);
+    expect((await reusedPage.request.get(reportPath, { maxRedirects: 0 })).status()).toBe(307);
+    await reused.close();
+
     const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
     const page = await context.newPage();
     await page.goto(reportUrl);

@@ -6,6 +6,8 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
+import { addDays, todayIn } from "@/lib/dates";
+
 import { DESKTOP, launchBrowser } from "../helpers/browser";
 import { mintSessionCookie, SESSION_COOKIE, useE2eDatabase } from "../helpers/e2e-db";
 import { scanWords, type WordFinding } from "../helpers/house-words";
@@ -178,16 +180,38 @@ describe("plain words", () => {
     await page.getByRole("button", { name: /sign-in link/i }).click();
     await page.waitForLoadState("networkidle");
     await context.close();
-    // The visit report e-mail: tech1 checks every zone of a scheduled stop and finishes it.
-    const stop = await db
-      .selectFrom("visits")
-      .innerJoin("property_homeowners", "property_homeowners.property_id", "visits.property_id")
-      .innerJoin("users", "users.id", "visits.technician_id")
-      .select(["visits.id", "visits.property_id"])
-      .where("visits.status", "=", "scheduled")
-      .where("users.email", "=", "tech1@demo.sward.test")
-      .orderBy("visits.scheduled_for")
+    // The visit report e-mail: a visit of its own (tomorrow, at tech1's Kowalczyk lawn, so no
+    // other test's stop or homeowner's latest report changes), every zone checked, finished.
+    const kowalczyk = await db
+      .selectFrom("properties")
+      .innerJoin("companies", "companies.id", "properties.company_id")
+      .select("properties.id")
+      .where("companies.slug", "=", "larkmoor-lawn")
+      .where("properties.name", "=", "Kowalczyk residence")
       .executeTakeFirstOrThrow();
+    const tech1 = (
+      await db
+        .selectFrom("users")
+        .select("id")
+        .where("email", "=", "tech1@demo.sward.test")
+        .executeTakeFirstOrThrow()
+    ).id;
+    const stop = { id: crypto.randomUUID(), property_id: kowalczyk.id };
+    const scheduled = await fetch(`${BASE}/api/v1/visits`, {
+      method: "POST",
+      headers: { cookie: cookies.manager, origin: BASE, "content-type": "application/json" },
+      body: JSON.stringify({
+        id: stop.id,
+        propertyId: stop.property_id,
+        scheduledFor: addDays(todayIn("America/New_York"), 1),
+        technicianId: tech1,
+        plannedService: "inspection",
+        stopOrder: 1,
+        notes: "",
+        confirmSameDay: true,
+      }),
+    });
+    expect(scheduled.status).toBe(201);
     const stopZones = await db
       .selectFrom("zones")
       .select("id")

@@ -160,6 +160,7 @@ describe("a write shows in the book and the alerts at once", () => {
           density: 2,
           hasTornTips: true,
           baseVersion: check.version,
+          correctionReason: "Torn tips missed at the visit; the crew's photos show them.",
         },
       },
     );
@@ -188,7 +189,11 @@ describe("a write shows in the book and the alerts at once", () => {
     const photo = (await call(
       photos.POST,
       { visitId, zoneCheckId: check.id },
-      { method: "POST", bytes: new Uint8Array(bare) },
+      {
+        method: "POST",
+        bytes: new Uint8Array(bare),
+        url: `/api/x?correctionReason=${encodeURIComponent("The bare patch's photo was left out.")}`,
+      },
     )) as { greenCoverPct: number };
     expect(photo.greenCoverPct).toBeLessThan(5);
 
@@ -232,6 +237,7 @@ describe("a write shows in the book and the alerts at once", () => {
           applicatorLicence: "",
           overrideReason: "Test of the book's N to date.",
           overrideCategory: "research_plot",
+          correctionReason: "Recorded on paper at the visit; entered afterwards.",
         },
       },
     );

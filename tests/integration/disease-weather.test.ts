@@ -224,6 +224,7 @@ describe("warm- and cool-season grasses", () => {
         applicatorName: "",
         applicatorLicence: "",
         overrideReason: null,
+        correctionReason: "Recorded on paper on the hot day; entered afterwards.",
       });
       await evaluate(key);
     }

@@ -49,8 +49,13 @@ const row = () =>
     .where("id", "=", checkId)
     .executeTakeFirstOrThrow();
 
+/** A manager's correction of the finished visit's check: it carries its reason. */
 async function put(body: Record<string, unknown>) {
-  return call(zoneCheck.PUT, { visitId, zoneCheckId: checkId }, { method: "PUT", body });
+  return call(
+    zoneCheck.PUT,
+    { visitId, zoneCheckId: checkId },
+    { method: "PUT", body: { correctionReason: "Readings taken again at the lawn.", ...body } },
+  );
 }
 
 async function mowingAlert() {

@@ -59,11 +59,19 @@ let checks: { id: string; zone_id: string }[];
 
 async function post(zoneCheckId: string, bytes: Buffer) {
   const res = await upload.POST(
-    new Request("http://localhost/api/x", {
-      method: "POST",
-      body: new Uint8Array(bytes),
-      headers: { origin: "http://localhost:3000", host: "localhost", "content-type": "image/png" },
-    }),
+    // The visit is finished: a photo added to it is a manager's correction, with its reason.
+    new Request(
+      `http://localhost/api/x?correctionReason=${encodeURIComponent("Photo taken at the visit, uploaded later.")}`,
+      {
+        method: "POST",
+        body: new Uint8Array(bytes),
+        headers: {
+          origin: "http://localhost:3000",
+          host: "localhost",
+          "content-type": "image/png",
+        },
+      },
+    ),
     { params: Promise.resolve({ visitId, zoneCheckId }) },
   );
   expect(res.status).toBe(201);

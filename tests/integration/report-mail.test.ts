@@ -6,6 +6,8 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 
+import { REPORT_LINK_HOURS } from "@/lib/auth/sign-in-link";
+import { hashedToken } from "@/lib/auth/tokens";
 import { deliverPendingMail } from "@/lib/mail/outbox";
 import { finishVisit } from "@/lib/reports/mutations";
 import { smtpMailer } from "@/lib/services/mail";
@@ -66,6 +68,26 @@ describe("the visit report e-mail", () => {
     expect(queued[0]!.subject).toMatch(/^Your lawn visit report — Haddad residence, /);
     expect(queued[0]!.text_body).toMatch(/Change the mowing direction every few mowings/);
     expect(queued[0]!.html_body).toContain(`/my-lawn/reports/${visit.id}`);
+    // The button is a one-time sign-in link to the report, made in the finish's transaction: its
+    // token is stored only as a hash, for this homeowner, expiring in REPORT_LINK_HOURS.
+    const signed = /https?:\/\/\S+\/sign-in\/link\?\S+/.exec(queued[0]!.text_body)?.[0] ?? "";
+    const params = new URL(signed).searchParams;
+    expect(new URL(params.get("callbackUrl")!).pathname).toBe(`/my-lawn/reports/${visit.id}`);
+    expect(params.get("email")).toBe(c.emails["owner2"]);
+    const token = params.get("token")!;
+    expect(token).toMatch(/^[0-9a-f]{64}$/);
+    const rows = await testDb()
+      .selectFrom("verification_tokens")
+      .selectAll()
+      .where("identifier", "=", c.emails["owner2"]!)
+      .execute();
+    expect(rows.map((r) => r.token)).toContain(hashedToken(token, process.env.AUTH_SECRET!));
+    expect(rows.map((r) => r.token)).not.toContain(token);
+    const row = rows.find((r) => r.token === hashedToken(token, process.env.AUTH_SECRET!))!;
+    const hoursLeft = (new Date(row.expires).getTime() - Date.now()) / 3_600_000;
+    expect(hoursLeft).toBeGreaterThan(REPORT_LINK_HOURS - 1);
+    expect(hoursLeft).toBeLessThanOrEqual(REPORT_LINK_HOURS);
+    expect(queued[0]!.html_body).toContain(`href="${signed.replaceAll("&", "&amp;")}"`);
 
     // The SMTP service is down: delivery fails and the message stays pending.
     const port = smtp.port;

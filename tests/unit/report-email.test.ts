@@ -78,7 +78,25 @@ describe("report e-mail", () => {
     expect(m.html).toContain(
       'href="http://localhost:3000/my-lawn/reports/11111111-1111-4111-8111-111111111111"',
     );
+    // Without a one-time link (a preview), the button opens the report's own address.
+    expect(m.text).not.toMatch(/signs you in once/);
     expect(m.html).not.toContain("<script>");
     expect(m.html).toContain("&lt;script&gt;");
+  });
+
+  it("with a one-time link, the button signs in and opens the report; the plain address stays", () => {
+    const signed = "http://localhost:3000/sign-in/link?callbackUrl=x&token=t&email=e";
+    const m = reportEmail(report, "http://localhost:3000", "Samir Haddad", "en-US", {
+      url: signed,
+      hours: 72,
+    });
+    expect(m.html).toContain(`href="${signed.replaceAll("&", "&amp;")}"`);
+    expect(m.html.match(/Read your visit report/g)).toHaveLength(1);
+    expect(m.text).toContain(
+      `Read the full report (this link signs you in once, within 72 hours): ${signed}`,
+    );
+    expect(m.text).toContain(
+      "http://localhost:3000/my-lawn/reports/11111111-1111-4111-8111-111111111111",
+    );
   });
 });

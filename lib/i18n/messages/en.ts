@@ -243,10 +243,12 @@ export const en = {
       safety: "Safety:",
       careNotesForYou: "Care notes for you:",
       photos: "Photos (sign in to see them):",
-      readFull: "Read the full report:",
+      readFull: "Read the full report (this link signs you in once, within {hours} hours):",
       button: "Read your visit report",
+      linkOnce:
+        "The button signs you in once, within {hours} hours — no password needed. After that, the report stays at this address:",
       howToSignIn:
-        "To sign in, enter this e-mail address and we will send you a one-time sign-in link — no password needed.",
+        "To sign in there, enter this e-mail address and we will send you a one-time sign-in link.",
     },
     zone: {
       overall: "Overall",
