@@ -180,23 +180,24 @@ describe("plain words", () => {
     await page.getByRole("button", { name: /sign-in link/i }).click();
     await page.waitForLoadState("networkidle");
     await context.close();
-    // The visit report e-mail: a visit of its own (tomorrow, at tech1's Kowalczyk lawn, so no
-    // other test's stop or homeowner's latest report changes), every zone checked, finished.
-    const kowalczyk = await db
+    // The visit report e-mail: a visit of its own (tomorrow, at tech2's Brandvold lawn, whose
+    // homeowner's latest report no other test reads), every zone checked, finished.
+    const brandvold = await db
       .selectFrom("properties")
       .innerJoin("companies", "companies.id", "properties.company_id")
       .select("properties.id")
       .where("companies.slug", "=", "larkmoor-lawn")
-      .where("properties.name", "=", "Kowalczyk residence")
+      .where("properties.name", "=", "Brandvold residence")
       .executeTakeFirstOrThrow();
-    const tech1 = (
+    const tech2 = (
       await db
         .selectFrom("users")
         .select("id")
-        .where("email", "=", "tech1@demo.sward.test")
+        .where("email", "=", "tech2@demo.sward.test")
         .executeTakeFirstOrThrow()
     ).id;
-    const stop = { id: crypto.randomUUID(), property_id: kowalczyk.id };
+    const tech2Cookie = await mintSessionCookie(tech2);
+    const stop = { id: crypto.randomUUID(), property_id: brandvold.id };
     const scheduled = await fetch(`${BASE}/api/v1/visits`, {
       method: "POST",
       headers: { cookie: cookies.manager, origin: BASE, "content-type": "application/json" },
@@ -204,7 +205,7 @@ describe("plain words", () => {
         id: stop.id,
         propertyId: stop.property_id,
         scheduledFor: addDays(todayIn("America/New_York"), 1),
-        technicianId: tech1,
+        technicianId: tech2,
         plannedService: "inspection",
         stopOrder: 1,
         notes: "",
@@ -221,7 +222,7 @@ describe("plain words", () => {
     const api = (method: string, path: string, body: unknown) =>
       fetch(`${BASE}${path}`, {
         method,
-        headers: { cookie: cookies.tech, origin: BASE, "content-type": "application/json" },
+        headers: { cookie: tech2Cookie, origin: BASE, "content-type": "application/json" },
         body: JSON.stringify(body),
       });
     for (const z of stopZones)
