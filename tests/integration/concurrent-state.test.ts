@@ -26,10 +26,17 @@ const propertyRoute = await import("@/app/api/v1/properties/[propertyId]/route")
 let c: TestCompany;
 beforeAll(async () => {
   c = await createTestCompany();
-  // No rule set on the test lawns: these cases are about order, not about legal limits.
+  // No rule set on the test lawns and no label limits on the products: these cases are about
+  // order, not about legal limits (sixteen feedings of one zone, on top of the demo's history that
+  // moves with the day the tests run, would reach the label's yearly maximum).
   await testDb()
     .updateTable("properties")
     .set({ rule_set_id: null })
+    .where("company_id", "=", c.companyId)
+    .execute();
+  await testDb()
+    .updateTable("products")
+    .set({ label_max_rate: null, label_max_yearly: null, label_min_interval_days: null })
     .where("company_id", "=", c.companyId)
     .execute();
 });
