@@ -90,9 +90,8 @@ describe("landing pages by role", () => {
       const { context, page } = await freshPage(c.viewport);
       await signIn(page, baseUrl, c.email);
       await page.waitForURL(`**${c.path}`);
-      await expect(
-        page.getByRole("heading", { level: 1, name: c.heading, exact: true }).isVisible(),
-      ).resolves.toBe(true);
+      // The list pages stream their rows behind a skeleton: wait for the page, not the first paint.
+      await page.getByRole("heading", { level: 1, name: c.heading, exact: true }).waitFor();
       const api = await page.request.get("/api/v1/properties");
       expect(api.status()).toBe(200);
       const names = ((await api.json()) as { items: { name: string }[] }).items

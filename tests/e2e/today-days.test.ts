@@ -48,7 +48,6 @@ describe("Today's day navigation", () => {
     const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });
     const page = await context.newPage();
     for (const [email, path] of [
-      ["tech1@demo.sward.test", "/today"],
       ["manager@demo.sward.test", "/book"],
       ["owner1@demo.sward.test", "/my-lawn"],
     ] as const) {

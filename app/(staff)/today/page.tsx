@@ -2,10 +2,8 @@ import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import { ChevronLeft, ChevronRight } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
-import { Suspense } from "react";
 
 import { buttonClass } from "@/components/ui/button";
-import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { TodayList } from "@/components/visits/today-list";
 import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
@@ -50,10 +48,10 @@ export default async function TodayPage({
           <ChevronRight className="size-5" aria-hidden="true" />
         </Link>
       </nav>
-      {/* The role is checked and the day's heading sent first; the stops stream in after. */}
-      <Suspense fallback={<PageSkeleton cards={3} />}>
-        <Stops actor={actor} date={date} />
-      </Suspense>
+      {/* Rendered with the page, not streamed: the field app's first screen must show its stops
+          without waiting on a client-side reveal (a streamed boundary stayed hidden under the
+          seasons suite's shifted clocks). */}
+      <Stops actor={actor} date={date} />
     </>
   );
 }

@@ -4,7 +4,6 @@ import { notFound } from "next/navigation";
 import { Suspense } from "react";
 
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
-import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { VisitRunner } from "@/components/visits/visit-runner";
 import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
@@ -24,17 +23,13 @@ export default async function VisitPage({ params }: { params: Promise<{ visitId:
   const actor = await requireActor(["manager", "technician"]);
   const parsed = visitIdParams.safeParse(await params);
   if (!parsed.success) notFound();
-  // Checked first, streamed after: a visit out of scope answers 404 before anything is sent; the
-  // day's weather (a call to the weather service on first open) and the alerts stream in after.
+  // Checked first: a visit out of scope answers 404 before the day's weather is fetched.
   await getVisit(actor, parsed.data.visitId).catch((err: unknown) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  return (
-    <Suspense fallback={<PageSkeleton cards={4} />}>
-      <VisitBody actor={actor} visitId={parsed.data.visitId} />
-    </Suspense>
-  );
+  // Rendered with the page, not streamed (as Today): the visit runner is the field app's screen.
+  return <VisitBody actor={actor} visitId={parsed.data.visitId} />;
 }
 
 async function VisitBody({ actor, visitId }: { actor: Actor; visitId: string }) {
