@@ -53,8 +53,9 @@ async function start(
   sup.start("weather fake", TSX, ["tests/harness/weather-fake.ts", String(weatherPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
-  // The fake geocoder: SWARD_GEOCODER_PORT, or the port after the weather fake's.
-  const geocoderPort = Number(process.env.SWARD_GEOCODER_PORT ?? PORT + 2);
+  // The fake geocoder: SWARD_GEOCODER_PORT, or E2E + 4 (+1 is the weather fake; +2 and +3 are
+  // the seasons suite's own server and weather fake).
+  const geocoderPort = Number(process.env.SWARD_GEOCODER_PORT ?? PORT + 4);
   sup.start("geocoder fake", TSX, ["tests/harness/geocoder-fake.ts", String(geocoderPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
