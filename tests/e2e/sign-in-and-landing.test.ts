@@ -99,10 +99,9 @@ describe("landing pages by role", () => {
         .sort();
       expect(names).toEqual([...("api" in c && c.api ? c.api : c.expected)].sort());
       // Visible on the page (the book summary also names properties in a table that starts closed).
+      // My lawn checks the account first, then streams its body: wait for each name to show.
       for (const name of c.expected)
-        await expect(
-          page.getByText(name, { exact: true }).filter({ visible: true }).first().isVisible(),
-        ).resolves.toBe(true);
+        await page.getByText(name, { exact: true }).filter({ visible: true }).first().waitFor();
       const visible = "api" in c && c.api ? c.api : c.expected;
       const others = demoCompany.properties
         .concat(otherCompany.properties)
