@@ -4,6 +4,7 @@ import type { Browser, Locator } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
 import { demoCompany } from "@/fixtures/demo/scenario";
+
 import { DESKTOP, launchBrowser, PHONE, signIn } from "../helpers/browser";
 import { snap } from "../helpers/screenshots";
 
