@@ -48,6 +48,13 @@ export function useZoneCheckAutosave(
   // Subscribe first, so the snapshot that start() publishes is seen.
   const snapshot = useSyncExternalStore(store.subscribe, store.getSnapshot, store.getSnapshot);
 
+  // A correction changed before its reason was given was refused (422, kept on the device): send
+  // it as soon as the reason is there, without waiting for another change.
+  // (save() sends nothing when no change waits.)
+  useEffect(() => {
+    if (correctionReason) store.retryNow();
+  }, [correctionReason, store]);
+
   useEffect(() => {
     store.start();
     const flushIfHidden = () => document.visibilityState === "hidden" && store.flush();

@@ -21,7 +21,7 @@ import { VisitStatusBadge, ZoneStatusBadge } from "./status-badge";
 import { CallOffStop, StopOutcome } from "./stop-outcome";
 import { useMergeApplication, useMergePhoto, useMergeZoneCheck, useVisit } from "./use-visit";
 import { mayChange, useEntryDialogs } from "./visit-entries";
-import { VisitSummary } from "./visit-summary";
+import { AuditTrail, VisitSummary } from "./visit-summary";
 import { ZoneCheckForm } from "./zone-check-form";
 
 function currentPosition(): Promise<{ latitude: number | null; longitude: number | null }> {
@@ -58,6 +58,9 @@ export function VisitRunner({
   const searchParams = useSearchParams();
   const [message, setMessage] = useState<string | null>(null);
   const [isBusy, setIsBusy] = useState(false);
+  // A finished visit's correction reason: typed, then committed when the field is left (or on
+  // Enter), so a half-typed reason is never the one saved in the audit trail.
+  const [reasonDraft, setReasonDraft] = useState("");
   const [correctionReason, setCorrectionReason] = useState("");
   if (!visit) return null;
 
@@ -177,8 +180,12 @@ export function VisitRunner({
               <span className="mb-1 block font-semibold">Reason for the correction (required)</span>
               <input
                 type="text"
-                value={correctionReason}
-                onChange={(e) => setCorrectionReason(e.target.value)}
+                value={reasonDraft}
+                onChange={(e) => setReasonDraft(e.target.value)}
+                onBlur={() => setCorrectionReason(reasonDraft)}
+                onKeyDown={(e) => {
+                  if (e.key === "Enter") setCorrectionReason(reasonDraft);
+                }}
                 maxLength={500}
                 placeholder="What was wrong, e.g. misread in shade"
                 className="min-h-tap w-full rounded-lg border border-line bg-paper px-3"
@@ -299,6 +306,8 @@ export function VisitRunner({
           />
         ) : null}
       </div>
+      {/* Edits and deletions on the open visit, the stop called off or moved: in words. */}
+      {isManager ? <AuditTrail visitId={visit.id} /> : null}
       {visit.canEdit && (visit.status === "scheduled" || visit.status === "in_progress") ? (
         <div className="sticky bottom-[5.25rem] z-10 mt-6 rounded-xl border border-line bg-card p-2 shadow-lg md:bottom-2">
           {visit.status === "scheduled" ? (

@@ -122,7 +122,8 @@ function Facts({ check }: { check: ZoneCheckDto }) {
   );
 }
 
-function AuditTrail({ visitId }: { visitId: string }) {
+/** The visit's audit events in words (managers): corrections, deletions, a stop called off or moved. */
+export function AuditTrail({ visitId }: { visitId: string }) {
   const { data } = useQuery({
     queryKey: visitKeys.audit(visitId),
     queryFn: async () =>

@@ -138,6 +138,17 @@ describe("a stop called off from Today on a phone", () => {
     });
     await snap(page, "stop-outcomes-03-rescheduled");
     await context.close();
+
+    // The manager reads both events in the called-off visit's audit trail, in words.
+    const office = await phoneAs("manager");
+    const managerPage = await office.newPage();
+    await managerPage.goto(`/visits/${visit.id}`);
+    const trail = managerPage.getByRole("list", { name: "Audit trail" });
+    await trail.getByText(`Stop rained out — by Luis Arroyo: ${reason}`).waitFor();
+    await trail.getByText(/^Visit rescheduled from .+ to .+ — by Luis Arroyo$/).waitFor();
+    expect(await seriousViolations(managerPage, "a rained-out visit's audit trail")).toEqual([]);
+    await snap(managerPage, "stop-outcomes-04-audit-trail");
+    await office.close();
   });
 });
 

@@ -160,6 +160,52 @@ describe("correcting a finished visit", () => {
   });
 });
 
+describe("correcting a finished visit's zone check", () => {
+  it("a rating changed before the reason is kept, and sent once the reason is given", async () => {
+    const { visitId, checkId } = await openVisit();
+    await db
+      .updateTable("visits")
+      .set({ status: "completed", completed_at: new Date(), completed_by: c.userIds["tech1"]! })
+      .where("id", "=", visitId)
+      .execute();
+    const page = await pageAs("manager", PHONE, `/visits/${visitId}`);
+    await page.getByRole("button", { name: "Correct this check" }).first().click();
+    await page.getByRole("heading", { level: 1, name: zone.name }).waitFor();
+
+    // Color 7 → 4 with no reason yet: refused by the server, kept on the page, said in words.
+    await page
+      .getByRole("radiogroup", { name: "Color, below acceptable", exact: true })
+      .getByRole("radio", { name: "4", exact: true })
+      .click();
+    await page
+      .getByText(/a correction needs its reason/)
+      .first()
+      .waitFor();
+    const color = async () =>
+      (
+        await db
+          .selectFrom("zone_checks")
+          .select("color")
+          .where("id", "=", checkId)
+          .executeTakeFirstOrThrow()
+      ).color;
+    expect(await color()).toBe(7);
+
+    // The reason, then leaving the field: the waiting change goes without touching the rating again.
+    await page.getByLabel("Reason for the correction (required)").fill("misread in shade");
+    await page.getByLabel("Reason for the correction (required)").press("Tab");
+    await expect.poll(color, { timeout: 10_000 }).toBe(4);
+    const events = await db
+      .selectFrom("audit_events")
+      .select(["reason", "action"])
+      .where("visit_id", "=", visitId)
+      .execute();
+    expect(events).toEqual([{ reason: "misread in shade", action: "edit_after_finish" }]);
+    await snap(page, "visit-corrections-03-check-reason-after");
+    await page.context().close();
+  });
+});
+
 describe("an open visit on a phone", () => {
   it("the technician deletes their own photo; a file that is not a photo can be dismissed and offers no retry", async () => {
     const { visitId, checkId } = await openVisit();
