@@ -1,19 +1,11 @@
 // Rate units of an application and the override categories (no zod here: client components
 // import it).
 import { RATE_UNITS } from "@/lib/agronomy/nutrients";
+import { en } from "@/lib/i18n/messages/en";
 
 export { RATE_UNITS };
 
-export const RATE_UNIT_LABEL: Record<(typeof RATE_UNITS)[number], string> = {
-  "lb/1000ft2": "lb / 1,000 ft²",
-  "oz/1000ft2": "oz (weight) / 1,000 ft²",
-  "floz/1000ft2": "fl oz / 1,000 ft²",
-  "gal/1000ft2": "gal / 1,000 ft²",
-  "kg/ha": "kg / ha",
-  "g/m2": "g / m²",
-  "lb/acre": "lb / acre",
-  "L/ha": "L / ha",
-};
+export const RATE_UNIT_LABEL: Record<(typeof RATE_UNITS)[number], string> = en.terms.rateUnits;
 
 /** Units a product can be measured in: a liquid by volume only; a dry product by weight, or by volume when its density is known. */
 export function rateUnitsFor(product: {
@@ -34,9 +26,5 @@ export const OVERRIDE_CATEGORIES = [
 ] as const;
 export type OverrideCategory = (typeof OVERRIDE_CATEGORIES)[number];
 
-export const OVERRIDE_CATEGORY_LABEL: Record<OverrideCategory, string> = {
-  documented_exemption: "Documented exemption (on file)",
-  research_plot: "Research or trial plot",
-  regulator_permission: "Written permission from the regulator",
-  other: "Other (explained in the reason)",
-};
+export const OVERRIDE_CATEGORY_LABEL: Record<OverrideCategory, string> =
+  en.terms.overrideCategories;

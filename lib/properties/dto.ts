@@ -1,5 +1,6 @@
 // What property data leaves the server: camelCase, no internal columns.
 import type { Slope, SunExposure } from "@/db/schema";
+import { en } from "@/lib/i18n/messages/en";
 import type { GrassSeason } from "@/lib/reference/grass-species";
 
 export interface PropertySummaryDto {
@@ -33,17 +34,9 @@ export interface PropertyDetailDto extends PropertySummaryDto {
   notes: string;
 }
 
-export const SUN_EXPOSURE_LABEL: Record<SunExposure, string> = {
-  full_sun: "Full sun",
-  part_shade: "Part shade",
-  shade: "Shade",
-};
+export const SUN_EXPOSURE_LABEL: Record<SunExposure, string> = en.terms.sunExposure;
 
-export const SLOPE_LABEL: Record<Slope, string> = {
-  flat: "Flat",
-  moderate: "Moderate slope",
-  steep: "Steep slope",
-};
+export const SLOPE_LABEL: Record<Slope, string> = en.terms.slope;
 
 /** One place the geocoder matched for an address (lib/services/geocoder/contract.ts). */
 export interface AddressMatchDto {

@@ -1,85 +1,19 @@
 // Names of alert kinds, severities and statuses in words (shared by pages and e-mails).
 import { formatShortDate, isIsoDate } from "@/lib/dates";
+import { en } from "@/lib/i18n/messages/en";
 
 import type { AlertKind, Severity } from "./rules";
 
-export const ALERT_KINDS: Record<AlertKind, string> = {
-  matted_canopy: "Matted canopy: fungus risk",
-  dollar_spot_weather: "Dollar spot weather",
-  brown_patch_weather: "Brown patch weather",
-  pythium_weather: "Pythium blight weather",
-  drought_stress: "Drought stress",
-  heat_feeding: "Feeding under heat stress",
-  over_application: "Over-application",
-  blackout_application: "Application in a blackout period",
-  mowing_too_short: "Mowing too short",
-  torn_tips: "Torn tips (dull blade)",
-  declining_index: "Declining Index",
-  late_season_feeding: "Late-season feeding due",
-};
+export const ALERT_KINDS: Record<AlertKind, string> = en.terms.alertKinds;
 
-export const SEVERITIES: Record<Severity, string> = {
-  high: "High",
-  moderate: "Moderate",
-  low: "Low",
-};
-export const ALERT_STATUSES = {
-  open: "Open",
-  acknowledged: "Acknowledged",
-  resolved: "Resolved",
-} as const;
+export const SEVERITIES: Record<Severity, string> = en.terms.severities;
+export const ALERT_STATUSES = en.terms.alertStatuses;
 
 export const alertKindLabel = (kind: string) =>
   (ALERT_KINDS as Record<string, string>)[kind] ?? kind;
 
 /** The evidence values of the rules, in words (unknown keys show as they are). */
-export const EVIDENCE_LABELS: Record<string, string> = {
-  sameDirectionChecks: "Of the last 3 checks, mowed the same way",
-  mattingSeen: "Matting seen",
-  diseaseSeen: "Disease already showing",
-  tMean5dC: "5-day mean temperature",
-  rhMean5dPct: "5-day mean humidity (%)",
-  probabilityPct: "Probability (%)",
-  highestIndex: "Highest index",
-  on: "On",
-  tmaxC: "High",
-  tminC: "Low",
-  hoursRhAbove90: "Hours above 90 % humidity (hourly, the night after)",
-  nightMinC: "Night's low",
-  nightsJudged: "Nights judged on hourly humidity",
-  nightsWithoutHours: "Nights without hourly humidity (not judged)",
-  model: "Model",
-  builtOn: "Model built on",
-  practice: "Basis",
-  coolSeasonZones: "Cool-season zones",
-  days: "Days looked at",
-  balance14In: "14-day water balance (in)",
-  forecastRainIn: "Rain forecast, next 3 days (in)",
-  wiltSeen: "Wilt seen",
-  appliedOn: "Applied on",
-  nLb: "N applied (lb / 1,000 ft²)",
-  highestF: "Highest temperature (°F)",
-  rainIn: "Rain (in)",
-  yearToDateNLb: "N this year (lb / 1,000 ft²)",
-  speciesMaxLb: "Top of the species' range (lb / 1,000 ft² a year)",
-  limitBreaches: "Applications over a limit",
-  applications: "Applications",
-  dates: "Dates",
-  heightOfCutIn: "Height of cut (in)",
-  mowedToday: "Mowed today",
-  heightBeforeMowingIn: "Height before mowing (in)",
-  removedPct: "Share of the blade taken off (%)",
-  speciesMinIn: "Bottom of the species' home-lawn range (in)",
-  scalped: "Scalping seen",
-  tornTipsSeen: "Torn tips seen",
-  slopePer30Days: "Trend (points per 30 days)",
-  ciLowPer30Days: "90 % interval, low end (points per 30 days)",
-  ciHighPer30Days: "90 % interval, high end (points per 30 days)",
-  r2: "Share of the change the trend explains (r², 0–1)",
-  n: "Checks",
-  nSinceSep1Lb: "N since September 1 (lb / 1,000 ft²)",
-  season: "Grass type",
-};
+export const EVIDENCE_LABELS: Record<string, string> = en.terms.evidence;
 
 /** Words for coded evidence values (grass type, model names …); anything else as it is. */
 const VALUE_WORDS: Record<string, string> = {

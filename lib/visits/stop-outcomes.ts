@@ -4,15 +4,14 @@ import { z } from "zod/mini";
 
 import type { CancelKind } from "@/db/schema";
 import { isIsoDate } from "@/lib/dates";
+import { en } from "@/lib/i18n/messages/en";
 
 /** The reason's bounds (characters), as the column's check has them. */
 const CANCEL_REASON_MIN = 3;
 export const CANCEL_REASON_MAX = 500;
 
-export const CANCEL_KINDS: Record<CancelKind, { label: string; done: string }> = {
-  rained_out: { label: "Rained out", done: "Rained out" },
-  cancelled: { label: "Canceled", done: "Canceled" },
-};
+export const CANCEL_KINDS: Record<CancelKind, { label: string; done: string }> =
+  en.terms.cancelKinds;
 
 export const cancelVisitSchema = z.strictObject({
   outcome: z.enum(["rained_out", "cancelled"], "Outcome: choose Rained out or Canceled."),
