@@ -173,6 +173,8 @@ interface MembershipsTable {
   user_id: string;
   role: Role;
   created_at: Generated<Date>;
+  /** Stops a day the technician can do (the week's capacity bar). */
+  daily_stop_capacity: Generated<number>;
 }
 
 /** OAuth/e-mail provider accounts, as Auth.js models them. */

@@ -54,6 +54,16 @@ export function formatDate(date: IsoDate, locale: string = DEFAULT_LOCALE): stri
   }).format(new Date(`${date}T00:00:00Z`));
 }
 
+/** "Wed, Dec 2" in en-US: a day of a week shown with its week (the schedule's columns). */
+export function formatWeekDay(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
+  return new Intl.DateTimeFormat(locale, {
+    weekday: "short",
+    day: "numeric",
+    month: "short",
+    timeZone: "UTC",
+  }).format(new Date(`${date}T00:00:00Z`));
+}
+
 /** "Dec 2, 2026" in en-US: a date in running text or a table cell. */
 export function formatShortDate(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
   return new Intl.DateTimeFormat(locale, {

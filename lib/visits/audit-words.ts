@@ -183,7 +183,9 @@ export function auditWords(
                     from: valueWords("scheduledFor", changes.scheduledFor?.from, opts),
                     to: valueWords("scheduledFor", changes.scheduledFor?.to, opts),
                   })
-                : `${t("visitChanged")}${changeWords(changes, opts) ? `: ${changeWords(changes, opts)}` : ""}`;
+                : action === "move" || action === "rain_delay"
+                  ? t(action === "move" ? "visitMoved" : "visitRainDelayed", { changes: changed() })
+                  : `${t("visitChanged")}${changeWords(changes, opts) ? `: ${changeWords(changes, opts)}` : ""}`;
       break;
     case "zone_check":
       what = kind === "add" ? t("checkAdded") : kind === "delete" ? t("checkRemoved") : changed();

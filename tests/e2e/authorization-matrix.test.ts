@@ -39,6 +39,10 @@ interface Targets {
   visitId: string; // scheduled at the property for tech1; started, checked and finished by the matrix
   cancelVisitId: string; // another scheduled visit, for cancel (rained out) and reschedule
   rescheduleOn: string; // a free day for the rained-out stop
+  moveVisitId: string; // a stop weeks ahead, moved on the week's schedule
+  moveTo: string;
+  rainDay: string; // a day weeks ahead with one stop of tech1, rained out on the schedule
+  tech1Id: string;
   completedVisitId: string;
   alertId: string;
   productId: string;
@@ -269,9 +273,24 @@ const CELLS: Cell[] = [
     hidden: ["otherManager"],
     marker: (t) => t.propertyName,
   },
+  {
+    key: "PAGE /schedule",
+    path: () => "/schedule",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.propertyName,
+  },
 
   // Reads.
   { key: "GET /api/v1/me", path: () => "/api/v1/me", allow: SIGNED_IN, leak: () => [] },
+  {
+    key: "GET /api/v1/schedule",
+    case: "this week: the property's stops of today",
+    path: () => "/api/v1/schedule",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.propertyName,
+  },
   {
     key: "GET /api/v1/me/applicator",
     path: () => "/api/v1/me/applicator",
@@ -604,6 +623,33 @@ const CELLS: Cell[] = [
     mustSucceed: true,
   },
   {
+    key: "POST /api/v1/schedule/moves",
+    case: "a stop weeks ahead moved to another day (confirmed)",
+    path: () => "/api/v1/schedule/moves",
+    method: "POST",
+    body: (t) => ({ visitIds: [t.moveVisitId], toDate: t.moveTo, confirm: true }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "POST /api/v1/schedule/rain-delays",
+    case: "tech1's day weeks ahead rained out (another company has nothing there: 422)",
+    path: () => "/api/v1/schedule/rain-delays",
+    method: "POST",
+    body: (t) => ({ date: t.rainDay, technicianId: t.tech1Id, confirm: true }),
+    allow: ["manager"],
+    refusedAs: [422],
+    mustSucceed: true,
+  },
+  {
+    key: "PUT /api/v1/schedule/technicians/[technicianId]/capacity",
+    path: (t) => `/api/v1/schedule/technicians/${t.tech1Id}/capacity`,
+    method: "PUT",
+    body: () => ({ capacity: 10 }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
     key: "POST /api/v1/alerts/[alertId]/acknowledge",
     path: (t) => `/api/v1/alerts/${t.alertId}/acknowledge`,
     method: "POST",
@@ -926,6 +972,25 @@ beforeAll(async () => {
   let rescheduleOn = addDays(today, 1);
   while (taken.has(rescheduleOn) || new Date(`${rescheduleOn}T00:00:00Z`).getUTCDay() === 0)
     rescheduleOn = addDays(rescheduleOn, 1);
+  // A stop weeks ahead to move, and another on a day to rain out (Wednesdays: working days).
+  let moveDay = addDays(today, 35);
+  while (new Date(`${moveDay}T00:00:00Z`).getUTCDay() !== 3) moveDay = addDays(moveDay, 1);
+  const moveVisitId = randomUUID();
+  const rainDay = addDays(moveDay, 7);
+  for (const [id, day] of [
+    [moveVisitId, moveDay],
+    [randomUUID(), rainDay],
+  ] as const)
+    await scheduleVisit(manager, {
+      id,
+      propertyId,
+      scheduledFor: day,
+      technicianId: c.userIds["tech1"]!,
+      plannedService: "inspection",
+      stopOrder: 1,
+      notes: "",
+      confirmSameDay: true,
+    });
   const extraEmail = `matrix-extra-${randomUUID().slice(0, 8)}@test.sward.test`;
   await inviteHomeowner(manager, propertyId, { email: extraEmail, name: "Matrix Extra" });
   await acceptInvitation(await invitationTokenFor(db, extraEmail), {
@@ -953,6 +1018,10 @@ beforeAll(async () => {
     visitId: visit.id,
     cancelVisitId,
     rescheduleOn,
+    moveVisitId,
+    moveTo: addDays(moveDay, 1),
+    rainDay,
+    tech1Id: c.userIds["tech1"]!,
     completedVisitId: completed.id,
     alertId: alert.id,
     productId: product.id,

@@ -79,6 +79,7 @@ beforeAll(async () => {
     "/book",
     "/book?sort=index&dir=asc",
     "/visits",
+    "/schedule",
     "/risk-alerts",
     "/risk-alerts?status=resolved",
     "/products",

@@ -67,6 +67,7 @@ describe("role walks", () => {
         ["property", propertyUrl, "Okafor residence"],
         ["zone-history", historyUrl, "Front lawn: history"],
         ["visits", "/visits", "Visits"],
+        ["schedule", "/schedule", "Week schedule"],
         ...(visitUrl ? ([["visit", visitUrl, /./]] as const) : []),
         ["risk-alerts", "/risk-alerts", "Risk alerts"],
         ["products", "/products", "Products"],

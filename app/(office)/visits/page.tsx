@@ -53,6 +53,9 @@ export default async function VisitsPage({
         >
           Next day →
         </Link>
+        <Link href={`/schedule?week=${date}`} className={buttonClass("quiet", "no-underline")}>
+          Week view
+        </Link>
       </nav>
       <div className="grid gap-8 lg:grid-cols-[1fr_24rem]">
         <section aria-label="Visits of the day">

@@ -264,6 +264,8 @@ export const en = {
     visitRainedOut: "Stop rained out",
     visitRescheduled: "Visit rescheduled from {from} to {to}",
     visitChanged: "Visit changed",
+    visitMoved: "Stop moved on the schedule: {changes}",
+    visitRainDelayed: "Stop moved by a rain delay: {changes}",
     checkAdded: "zone check",
     checkRemoved: "zone check",
     checkUnchanged: "zone check saved again, nothing changed",
@@ -286,6 +288,9 @@ export const en = {
     anApplication: "an application",
     fields: {
       status: "status",
+      scheduledFor: "day",
+      technician: "technician",
+      stopOrder: "stop number",
       quality: "overall quality",
       color: "color",
       density: "density",
