@@ -165,6 +165,10 @@ interface UsersTable {
   /** The applicator's name and license number this person last recorded on a pesticide application. */
   applicator_name: Generated<string>;
   applicator_license: Generated<string>;
+  /** The technician's applicator license on record: number, category, expiry ('' / null: none). */
+  license_number: Generated<string>;
+  license_category: Generated<string>;
+  license_expires_on: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 interface MembershipsTable {
@@ -228,7 +232,10 @@ interface SignInLinkRequestsTable {
 interface HomeownerInvitationsTable {
   id: Generated<string>;
   company_id: string;
-  property_id: string;
+  /** The property a homeowner is invited to; null for a staff invitation. */
+  property_id: string | null;
+  /** Who the person becomes on accepting: a homeowner of the property, or staff of the company. */
+  role: Generated<Role>;
   email: string;
   name: string;
   /** sha256 of the token and AUTH_SECRET; the token itself travels only in the e-mail. */
@@ -369,7 +376,8 @@ export interface AuditEventsTable {
     | "rule_set"
     | "application"
     | "photo"
-    | "watering";
+    | "watering"
+    | "person";
   entity_id: string;
   action: string;
   changes: ColumnType<Record<string, { from: unknown; to: unknown }>, string, string>;

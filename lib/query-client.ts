@@ -65,7 +65,7 @@ export type SendResult<T> =
 
 /** POST/PUT/DELETE JSON to a route of ours. Network failures come back as status 0, never thrown. */
 export async function sendJson<T>(
-  method: "POST" | "PUT" | "DELETE",
+  method: "POST" | "PUT" | "PATCH" | "DELETE",
   url: string,
   body?: unknown,
   init: { keepalive?: boolean } = {},

@@ -9,6 +9,7 @@ import {
   Gavel,
   Settings,
   Trees,
+  Users,
 } from "lucide-react";
 
 import type { Role } from "@/db/schema";
@@ -25,6 +26,7 @@ export function staffNav(role: Role): NavItem[] {
         { href: "/products", label: "Products", icon: FlaskConical },
         { href: "/rule-sets", label: "Rule sets", icon: Gavel },
         { href: "/records", label: "Records", icon: FileSpreadsheet },
+        { href: "/people", label: "People", icon: Users },
         { href: "/settings", label: "Settings", icon: Settings },
       ]
     : [

@@ -15,7 +15,7 @@ import { correctionReasonFor } from "@/lib/audit/correction";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
-import { todayIn } from "@/lib/dates";
+import { formatDate, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
@@ -103,6 +103,41 @@ async function recordedApplication(
   const found = (await listVisitApplications(actor, visitId)).find((a) => a.id === id);
   if (!found) throw notFound("That application");
   return found;
+}
+
+/**
+ * A technician records a pesticide application only under an applicator license on record that
+ * is good on the day of the application (the license the People page keeps). Every pesticide in
+ * our product data is one whose commercial application needs a certified applicator (US EPA,
+ * 40 CFR 171: certification of pesticide applicators; state rules extend it to general-use
+ * products applied for hire), so no license on record is refused as an expired one is.
+ */
+async function assertLicensedApplicator(actor: Actor, appliedOn: string): Promise<void> {
+  const license = await db()
+    .selectFrom("users")
+    .select(["license_number", "license_category", "license_expires_on"])
+    .where("id", "=", actor.userId)
+    .executeTakeFirst();
+  if (!license?.license_number || !license.license_expires_on)
+    throw invalid(
+      {
+        applicatorLicence: [
+          "Applicator license: none is on record for you. Ask your manager to record your license on the People page before applying a pesticide.",
+        ],
+      },
+      "A pesticide application needs an applicator license on record.",
+    );
+  if (license.license_expires_on < appliedOn) {
+    const expired = formatDate(license.license_expires_on, actor.companyLocale);
+    throw invalid(
+      {
+        applicatorLicence: [
+          `Applicator license ${license.license_number} expired on ${expired}. A pesticide cannot be recorded under it; renew it and ask your manager to update it on the People page.`,
+        ],
+      },
+      `Applicator license ${license.license_number} expired on ${expired}.`,
+    );
+  }
 }
 
 /** The visit an application is recorded on, with what its checks read (unlocked: checked again under the lock). */
@@ -226,6 +261,8 @@ async function prepareApplication(
   }
   const appliedAt = bound.at;
   const appliedOn = todayIn(visit.time_zone, appliedAt);
+  if (product.isPesticide && actor.role === "technician")
+    await assertLicensedApplicator(actor, appliedOn);
   const species = findGrassSpecies(zone.grass_species);
   const weather = visit.weather as {
     status?: string;

@@ -2,7 +2,8 @@
 
 // The invited person's confirmation (a public server action, built with the guard; the form works
 // before its script loads). A new account is signed in with the password just chosen; an existing
-// homeowner account goes on to My lawn (signing in first when this browser is not theirs).
+// homeowner account goes on to My lawn (signing in first when this browser is not theirs); a new
+// technician or manager lands where their role does (Today, the book).
 import { AuthError } from "next-auth";
 import { redirect } from "next/navigation";
 
@@ -20,8 +21,6 @@ export interface AcceptInvitationState {
   fieldErrors?: Record<string, string[]>;
 }
 
-const MY_LAWN = landingPath("homeowner");
-
 const acceptGuarded = action(
   { access: "public", input: acceptInvitationSchema },
   async ({ actor, input }) => {
@@ -30,15 +29,20 @@ const acceptGuarded = action(
       password: input.password,
     });
     log.info(
-      { event: "invitation_accepted", createdAccount: accepted.createdAccount },
-      "homeowner invitation accepted",
+      {
+        event: "invitation_accepted",
+        createdAccount: accepted.createdAccount,
+        role: accepted.role,
+      },
+      "invitation accepted",
     );
+    const landing = landingPath(accepted.role);
     if (accepted.createdAccount && input.password) {
       try {
         await signIn("credentials", {
           email: accepted.email,
           password: input.password,
-          redirectTo: MY_LAWN,
+          redirectTo: landing,
         });
       } catch (err) {
         // The account exists and the property is linked; a refused sign-in (e.g. throttled) only
@@ -48,8 +52,8 @@ const acceptGuarded = action(
     }
     redirect(
       actor?.userId === accepted.userId
-        ? MY_LAWN
-        : `/sign-in?callbackUrl=${encodeURIComponent(MY_LAWN)}`,
+        ? landing
+        : `/sign-in?callbackUrl=${encodeURIComponent(landing)}`,
     );
   },
 );

@@ -12,6 +12,11 @@ export interface InvitationDto {
   sendCount: number;
 }
 
+/** A pending invitation of a technician or a manager (the People page). */
+export interface StaffInvitationDto extends InvitationDto {
+  role: "manager" | "technician";
+}
+
 /** What the invited person sees on opening the link (only ever shown to the holder of the token). */
 export type InvitationView =
   | { state: "unknown" }
@@ -24,6 +29,9 @@ export type InvitationView =
       companyName: string;
       email: string;
       name: string;
+      /** What accepting makes them: a homeowner of the property below, or staff of the company. */
+      role: "homeowner" | "technician" | "manager";
+      /** The property (empty for a staff invitation). */
       street: string;
       city: string;
       expiresAt: string;

@@ -13,7 +13,7 @@ import { createHash } from "node:crypto";
 import { sql, type Transaction } from "kysely";
 
 import { db } from "@/db";
-import type { Database } from "@/db/schema";
+import type { Database, Role } from "@/db/schema";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { hashPassword } from "@/lib/auth/password";
@@ -22,11 +22,11 @@ import { appUrl, serverEnv } from "@/lib/env";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { enqueueMail } from "@/lib/mail/outbox";
 
-import type { InvitationDto } from "./dto";
-import { invitationEmail } from "./email";
-import { INVITATION_COLUMNS, toInvitationDto } from "./map";
+import type { InvitationDto, StaffInvitationDto } from "./dto";
+import { invitationEmail, staffInvitationEmail } from "./email";
+import { INVITATION_COLUMNS, toInvitationDto, type InvitationRow } from "./map";
 import { INVITATION_DAYS } from "./rules";
-import type { InvitationInput } from "./schemas";
+import type { InvitationInput, StaffInvitationInput } from "./schemas";
 
 export const INVITATION_MAIL_KIND = "homeowner_invitation";
 
@@ -37,11 +37,17 @@ export const INVITATION_MESSAGES = {
     "This e-mail address already has a Sward account that cannot be added to this property. Ask the company to invite another address.",
   passwordNeeded: "Choose a password for your new account.",
   race: "Someone accepted an invitation for this address at the same moment. Open the link again.",
+  emailInUse:
+    "That e-mail address is already in use by a Sward account. Invite another address, or re-enable the person if they were disabled.",
+  staffUnavailable:
+    "This e-mail address has a Sward account already, so this invitation cannot make another. Ask the company to invite another address.",
 } as const;
+
+export const STAFF_INVITATION_MAIL_KIND = "staff_invitation";
 
 function requireManager(actor: Actor): void {
   if (actor.role !== "manager")
-    throw new AppError("forbidden", "Only a manager can invite homeowners.");
+    throw new AppError("forbidden", "Only a manager can invite people.");
 }
 
 /** A fresh token, its stored hash and its expiry. */
@@ -233,6 +239,8 @@ export async function revokeInvitation(
 export interface AcceptedInvitation {
   email: string;
   userId: string;
+  /** The role the person has now (where they land). */
+  role: Role;
   /** True when the address had no account and one was made with the chosen password. */
   createdAccount: boolean;
 }
@@ -258,9 +266,12 @@ export async function acceptInvitation(
         .where("accepted_at", "is", null)
         .where("revoked_at", "is", null)
         .where("expires_at", ">", sql<Date>`now()`)
-        .returning(["id", "company_id", "property_id", "email", "name"])
+        .returning(["id", "company_id", "property_id", "email", "name", "role"])
         .executeTakeFirst();
       if (!invitation) throw new AppError("not_found", INVITATION_MESSAGES.unusable);
+      if (invitation.role !== "homeowner" || !invitation.property_id)
+        return joinStaff(trx, { ...invitation, role: invitation.role }, input);
+      const propertyId = invitation.property_id;
       const user = await trx
         .selectFrom("users")
         .leftJoin("memberships", "memberships.user_id", "users.id")
@@ -306,7 +317,7 @@ export async function acceptInvitation(
       await trx
         .insertInto("property_homeowners")
         .values({
-          property_id: invitation.property_id,
+          property_id: propertyId,
           user_id: userId,
           company_id: invitation.company_id,
         })
@@ -322,7 +333,7 @@ export async function acceptInvitation(
         { companyId: invitation.company_id, userId },
         {
           entity: "property",
-          entityId: invitation.property_id,
+          entityId: propertyId,
           action: "link_homeowner",
           changes: {
             homeowner: { from: null, to: invitation.email },
@@ -330,6 +341,235 @@ export async function acceptInvitation(
           },
         },
       );
-      return { email: invitation.email, userId, createdAccount };
+      return { email: invitation.email, userId, createdAccount, role: "homeowner" as const };
+    });
+}
+
+/**
+ * A staff invitation's confirmation (the token already claimed in `trx`): a new account of the
+ * inviting company with the invited role and the password chosen. An address that has an account
+ * by now (made since the invitation was sent) is refused and nothing is written.
+ */
+async function joinStaff(
+  trx: Transaction<Database>,
+  invitation: { id: string; company_id: string; email: string; name: string; role: Role },
+  input: { name?: string; password?: string },
+): Promise<AcceptedInvitation> {
+  const existing = await trx
+    .selectFrom("users")
+    .select("id")
+    .where("email", "=", invitation.email)
+    .executeTakeFirst();
+  if (existing) throw new AppError("conflict", INVITATION_MESSAGES.staffUnavailable);
+  if (!input.password)
+    throw new AppError("invalid_input", INVITATION_MESSAGES.passwordNeeded, {
+      password: [INVITATION_MESSAGES.passwordNeeded],
+    });
+  const passwordHash = await hashPassword(input.password);
+  const created = await trx
+    .insertInto("users")
+    .values({
+      email: invitation.email,
+      name: input.name?.trim() || invitation.name,
+      password_hash: passwordHash,
+      email_verified: sql<Date>`now()`,
+    })
+    .onConflict((oc) => oc.column("email").doNothing())
+    .returning("id")
+    .executeTakeFirst();
+  if (!created) throw new AppError("conflict", INVITATION_MESSAGES.race);
+  await trx
+    .insertInto("memberships")
+    .values({ company_id: invitation.company_id, user_id: created.id, role: invitation.role })
+    .execute();
+  await trx
+    .updateTable("homeowner_invitations")
+    .set({ accepted_user_id: created.id })
+    .where("id", "=", invitation.id)
+    .execute();
+  await recordAudit(
+    trx,
+    { companyId: invitation.company_id, userId: created.id },
+    {
+      entity: "person",
+      entityId: created.id,
+      action: "join_staff",
+      changes: {
+        role: { from: null, to: invitation.role },
+        invitation: { from: invitation.id, to: "accepted" },
+      },
+    },
+  );
+  return {
+    email: invitation.email,
+    userId: created.id,
+    createdAccount: true,
+    role: invitation.role,
+  };
+}
+
+// ── Staff invitations (technicians and managers): the same table, token, e-mail outbox and
+// confirmation page as homeowner invitations; no property. Unlike a homeowner's, an address
+// already in use by any Sward account is refused in words, because staff accounts are made here.
+
+const STAFF_INVITATION_COLUMNS = [...INVITATION_COLUMNS, "role"] as const;
+
+function toStaffInvitationDto(row: InvitationRow & { role: Role }): StaffInvitationDto {
+  return { ...toInvitationDto(row), role: row.role === "manager" ? "manager" : "technician" };
+}
+
+async function companyForInvitation(trx: Transaction<Database>, actor: Actor) {
+  return trx
+    .selectFrom("companies")
+    .select(["name", "locale"])
+    .where("id", "=", actor.companyId)
+    .executeTakeFirstOrThrow();
+}
+
+async function queueStaffInvitationMail(
+  trx: Transaction<Database>,
+  actor: Actor,
+  invitation: { email: string; name: string; role: Role },
+  token: string,
+): Promise<void> {
+  const company = await companyForInvitation(trx, actor);
+  const mail = staffInvitationEmail({
+    link: invitationUrl(token),
+    days: INVITATION_DAYS,
+    companyName: company.name,
+    name: invitation.name,
+    role: invitation.role === "manager" ? "manager" : "technician",
+    locale: company.locale,
+  });
+  const key = createHash("sha256").update(token).digest("hex").slice(0, 40);
+  await enqueueMail(trx, {
+    companyId: actor.companyId,
+    kind: STAFF_INVITATION_MAIL_KIND,
+    dedupeKey: `${STAFF_INVITATION_MAIL_KIND}:${key}`,
+    to: invitation.email,
+    ...mail,
+  });
+}
+
+/** Invites a technician or a manager; inviting an address with a pending staff invitation sends a new link in its place. */
+export async function inviteStaff(
+  actor: Actor,
+  input: StaffInvitationInput,
+): Promise<StaffInvitationDto> {
+  requireManager(actor);
+  const { token, tokenHash, expiresAt } = newInvitationToken();
+  return db()
+    .transaction()
+    .execute(async (trx) => {
+      const inUse = await trx
+        .selectFrom("users")
+        .select("id")
+        .where("email", "=", input.email)
+        .executeTakeFirst();
+      if (inUse)
+        throw new AppError("conflict", INVITATION_MESSAGES.emailInUse, {
+          email: [INVITATION_MESSAGES.emailInUse],
+        });
+      const row = await trx
+        .insertInto("homeowner_invitations")
+        .values({
+          company_id: actor.companyId,
+          property_id: null,
+          role: input.role,
+          email: input.email,
+          name: input.name,
+          token_hash: tokenHash,
+          expires_at: expiresAt,
+          invited_by: actor.userId,
+        })
+        .onConflict((oc) =>
+          oc
+            .columns(["company_id", "email"])
+            .where("property_id", "is", null)
+            .where("accepted_at", "is", null)
+            .where("revoked_at", "is", null)
+            .doUpdateSet({
+              name: input.name,
+              role: input.role,
+              token_hash: tokenHash,
+              expires_at: expiresAt,
+              invited_by: actor.userId,
+              sent_at: sql<Date>`now()`,
+              send_count: sql<number>`homeowner_invitations.send_count + 1`,
+            }),
+        )
+        .returning([...STAFF_INVITATION_COLUMNS])
+        .executeTakeFirstOrThrow();
+      await queueStaffInvitationMail(trx, actor, row, token);
+      await recordAudit(trx, actor, {
+        entity: "person",
+        entityId: row.id,
+        action: "invite_staff",
+        changes: { invitation: { from: null, to: { email: row.email, role: row.role } } },
+      });
+      return toStaffInvitationDto(row);
+    });
+}
+
+/** Sends a pending staff invitation again with a new link (the old one stops working). */
+export async function resendStaffInvitation(
+  actor: Actor,
+  invitationId: string,
+): Promise<StaffInvitationDto> {
+  requireManager(actor);
+  const { token, tokenHash, expiresAt } = newInvitationToken();
+  return db()
+    .transaction()
+    .execute(async (trx) => {
+      const row = await trx
+        .updateTable("homeowner_invitations")
+        .set({
+          token_hash: tokenHash,
+          expires_at: expiresAt,
+          sent_at: sql<Date>`now()`,
+          send_count: sql<number>`send_count + 1`,
+        })
+        .where("company_id", "=", actor.companyId)
+        .where("property_id", "is", null)
+        .where("id", "=", invitationId)
+        .where("accepted_at", "is", null)
+        .where("revoked_at", "is", null)
+        .returning([...STAFF_INVITATION_COLUMNS])
+        .executeTakeFirst();
+      if (!row) throw notFound("That invitation");
+      await queueStaffInvitationMail(trx, actor, row, token);
+      await recordAudit(trx, actor, {
+        entity: "person",
+        entityId: row.id,
+        action: "resend_invitation",
+        changes: { invitation: { from: { id: row.id }, to: { id: row.id, email: row.email } } },
+      });
+      return toStaffInvitationDto(row);
+    });
+}
+
+/** Withdraws a pending staff invitation: its link stops working at once. */
+export async function revokeStaffInvitation(actor: Actor, invitationId: string): Promise<void> {
+  requireManager(actor);
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const row = await trx
+        .updateTable("homeowner_invitations")
+        .set({ revoked_at: sql<Date>`now()`, revoked_by: actor.userId })
+        .where("company_id", "=", actor.companyId)
+        .where("property_id", "is", null)
+        .where("id", "=", invitationId)
+        .where("accepted_at", "is", null)
+        .where("revoked_at", "is", null)
+        .returning(["id", "email", "role"])
+        .executeTakeFirst();
+      if (!row) throw notFound("That invitation");
+      await recordAudit(trx, actor, {
+        entity: "person",
+        entityId: row.id,
+        action: "revoke_invitation",
+        changes: { invitation: { from: { email: row.email, role: row.role }, to: null } },
+      });
     });
 }

@@ -30,6 +30,7 @@ export async function listPendingInvitations(
     .select([...INVITATION_COLUMNS])
     .where("company_id", "=", actor.companyId)
     .where("property_id", "=", propertyId)
+    .where("role", "=", "homeowner")
     .where("accepted_at", "is", null)
     .where("revoked_at", "is", null)
     .orderBy("sent_at", "desc")
@@ -47,12 +48,13 @@ export async function viewInvitation(token: string): Promise<InvitationView> {
   if (!/^[0-9a-f]{64}$/.test(token)) return { state: "unknown" };
   const row = await db()
     .selectFrom("homeowner_invitations as i")
-    .innerJoin("properties as p", "p.id", "i.property_id")
+    .leftJoin("properties as p", "p.id", "i.property_id")
     .innerJoin("companies as c", "c.id", "i.company_id")
     .select([
       "i.company_id",
       "i.email",
       "i.name",
+      "i.role",
       "i.expires_at",
       "i.accepted_at",
       "i.revoked_at",
@@ -74,9 +76,13 @@ export async function viewInvitation(token: string): Promise<InvitationView> {
     .select(["users.disabled_at", "memberships.company_id", "memberships.role"])
     .where("users.email", "=", row.email)
     .executeTakeFirst();
+  // A staff invitation always makes a new account; a homeowner's may join an existing one.
   const account = !user
     ? "new"
-    : user.company_id === row.company_id && user.role === "homeowner" && !user.disabled_at
+    : row.role === "homeowner" &&
+        user.company_id === row.company_id &&
+        user.role === "homeowner" &&
+        !user.disabled_at
       ? "homeowner"
       : "unavailable";
   return {
@@ -84,8 +90,9 @@ export async function viewInvitation(token: string): Promise<InvitationView> {
     companyName,
     email: row.email,
     name: row.name,
-    street: row.street,
-    city: row.city,
+    role: row.role,
+    street: row.street ?? "",
+    city: row.city ?? "",
     expiresAt: row.expires_at.toISOString(),
     timeZone: row.time_zone,
     account,

@@ -24,6 +24,15 @@ export const invitationSchema = z.strictObject({
 });
 export type InvitationInput = z.infer<typeof invitationSchema>;
 
+/** A manager's invitation of a technician or a manager (the People page). */
+export const staffInvitationSchema = z.strictObject({
+  ...invitationSchema.shape,
+  role: z.enum(["technician", "manager"], "Role: choose technician or manager."),
+});
+export type StaffInvitationInput = z.infer<typeof staffInvitationSchema>;
+
+export const staffInvitationParams = z.object({ invitationId: z.uuid() });
+
 export const invitationParams = z.object({ propertyId: z.uuid(), invitationId: z.uuid() });
 
 /** What the invited person posts: the token from the link; a name and password when the address has no account yet. */

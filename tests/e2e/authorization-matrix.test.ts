@@ -54,6 +54,10 @@ interface Targets {
   invitationId: string; // a pending invitation to the property, for the resend cell
   invitationEmail: string;
   revokeInvitationId: string; // another, for the withdraw cell
+  staffInvitationId: string; // a pending staff invitation, for the resend cell
+  staffRevokeInvitationId: string; // another, for the withdraw cell
+  spareTechId: string; // a technician of the company made for the People cells (role, license, reassign)
+  assignedTechId: string; // tech1
   zoneCheckId: string;
   photoId: string;
   ownerEmail: string;
@@ -66,7 +70,7 @@ interface Cell {
   key: string; // "GET /api/v1/…[param]" as the file system names it, "PAGE /…" or "ACTION file#name"
   case?: string;
   path: (t: Targets) => string;
-  method?: "GET" | "POST" | "PUT" | "DELETE";
+  method?: "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
   body?: (t: Targets) => unknown;
   bytes?: () => Promise<Buffer>;
   allow: readonly Persona[];
@@ -238,6 +242,15 @@ const CELLS: Cell[] = [
     hidden: ["otherManager"],
     marker: (t) => t.ruleSetName,
     leak: (t) => [t.ruleSetId],
+  },
+  {
+    key: "PAGE /people",
+    path: () => "/people",
+    // Each manager sees their own company's people; nothing of the other company's.
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.ownerEmail,
+    leak: (t) => [t.ownerEmail, t.propertyName],
   },
   {
     key: "PAGE /settings",
@@ -577,6 +590,62 @@ const CELLS: Cell[] = [
     mustSucceed: true,
   },
   {
+    key: "POST /api/v1/people/invitations",
+    path: () => "/api/v1/people/invitations",
+    method: "POST",
+    body: () => ({
+      email: `matrix-staff-${randomUUID().slice(0, 8)}@test.sward.test`,
+      name: "Matrix Staff",
+      role: "technician",
+    }),
+    // Each manager invites into their own company.
+    allow: ["manager", "otherManager"],
+    mustSucceed: true,
+  },
+  {
+    key: "POST /api/v1/people/invitations/[invitationId]/resend",
+    path: (t) => `/api/v1/people/invitations/${t.staffInvitationId}/resend`,
+    method: "POST",
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "DELETE /api/v1/people/invitations/[invitationId]",
+    path: (t) => `/api/v1/people/invitations/${t.staffRevokeInvitationId}`,
+    method: "DELETE",
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "PATCH /api/v1/people/[personId]",
+    path: (t) => `/api/v1/people/${t.spareTechId}`,
+    method: "PATCH",
+    body: () => ({ role: "technician", disabled: false }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "PUT /api/v1/people/[personId]/license",
+    path: (t) => `/api/v1/people/${t.spareTechId}/license`,
+    method: "PUT",
+    body: () => ({ number: "MATRIX-1", category: "Turf", expiresOn: "2030-01-31" }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "GET /api/v1/people/reassign",
+    path: (t) => `/api/v1/people/reassign?from=${t.spareTechId}`,
+    allow: ["manager"],
+  },
+  {
+    key: "POST /api/v1/people/reassign",
+    path: () => "/api/v1/people/reassign",
+    method: "POST",
+    body: (t) => ({ fromTechnicianId: t.spareTechId, toTechnicianId: t.assignedTechId }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
     key: "DELETE /api/v1/properties/[propertyId]/homeowners/[userId]",
     path: (t) => `/api/v1/properties/${t.propertyId}/homeowners/${t.extraOwnerId}`,
     method: "DELETE",
@@ -895,7 +964,7 @@ beforeAll(async () => {
     { otherCompany },
     { evaluateProperty },
     { scheduleVisit },
-    { acceptInvitation, inviteHomeowner },
+    { acceptInvitation, inviteHomeowner, inviteStaff },
     { invitationTokenFor },
     { addDays, todayIn },
   ] = await Promise.all([
@@ -1017,6 +1086,24 @@ beforeAll(async () => {
     .select("id")
     .where("email", "=", extraEmail)
     .executeTakeFirstOrThrow();
+  const spareEmail = `matrix-spare-${randomUUID().slice(0, 8)}@test.sward.test`;
+  await inviteStaff(manager, { email: spareEmail, name: "Matrix Spare", role: "technician" });
+  const spare = await acceptInvitation(
+    await invitationTokenFor(db, spareEmail, "staff_invitation"),
+    {
+      password: "matrix-spare-password-2026",
+    },
+  );
+  const staffInvitation = await inviteStaff(manager, {
+    email: `matrix-staff-invited-${randomUUID().slice(0, 8)}@test.sward.test`,
+    name: "Matrix Staff Invited",
+    role: "manager",
+  });
+  const staffToRevoke = await inviteStaff(manager, {
+    email: `matrix-staff-withdrawn-${randomUUID().slice(0, 8)}@test.sward.test`,
+    name: "Matrix Staff Withdrawn",
+    role: "technician",
+  });
   t = {
     propertyId,
     propertyName: property.name,
@@ -1040,6 +1127,10 @@ beforeAll(async () => {
     invitationId: invitation.id,
     invitationEmail,
     revokeInvitationId: toRevoke.id,
+    staffInvitationId: staffInvitation.id,
+    staffRevokeInvitationId: staffToRevoke.id,
+    spareTechId: spare.userId,
+    assignedTechId: c.userIds["tech1"]!,
     zoneCheckId: randomUUID(),
     photoId: randomUUID(),
     ownerEmail: c.emails["owner1"]!,

@@ -86,6 +86,7 @@ beforeAll(async () => {
     "/rule-sets",
     "/records",
     "/settings",
+    "/people",
     "/properties/new",
     "/dev/mail",
     ...properties.map((p) => `/properties/${p.id}`),

@@ -74,6 +74,7 @@ describe("role walks", () => {
         ["rule-sets", "/rule-sets", "Rule sets"],
         ["records", "/records", "Application records"],
         ["settings", "/settings", "Company settings"],
+        ["people", "/people", "People"],
         ["new-property", "/properties/new", "New property"],
       ]);
       expect(found).toEqual([]);

@@ -282,8 +282,11 @@ describe("POST /api/v1/visits/:visitId/reschedule", () => {
 });
 
 describe("the applicator remembered per person", () => {
+  // A technician's applicator license on record (People page) fills their records; the applicator
+  // typed on a record is remembered for someone without one (here the manager, who records on a
+  // technician's visit).
   it("a pesticide record's applicator fills the next one; a changed value replaces it", async () => {
-    current = tech2;
+    current = manager;
     const empty = await applicatorRoute.GET(new Request("http://localhost/api/v1/me/applicator"), {
       params: Promise.resolve({}),
     });
@@ -322,7 +325,7 @@ describe("the applicator remembered per person", () => {
       at: string,
       zoneId: string,
     ) =>
-      call(tech2, applicationsRoute.POST, visitId, {
+      call(manager, applicationsRoute.POST, visitId, {
         id: randomUUID(),
         zoneId,
         productId: product.id,
@@ -348,11 +351,11 @@ describe("the applicator remembered per person", () => {
           params: Promise.resolve({}),
         })
       ).json();
-    current = tech2;
+    current = manager;
     expect(await remembered()).toEqual({ name: "Priya Nandakumar", license: "NJ-DEMO-61207" });
-    // Someone else's remembered applicator is untouched.
+    // Someone else's is untouched: tech1's record starts from their license on record (the demo's).
     current = tech1;
-    expect(await remembered()).toEqual({ name: "", license: "" });
+    expect(await remembered()).toEqual({ name: "Luis Arroyo", license: "DEMO-CA-10482" });
 
     // A changed license number replaces the remembered one.
     const second = await record(
@@ -361,7 +364,7 @@ describe("the applicator remembered per person", () => {
       zones[1]!.id,
     );
     expect(second.status).toBe(201);
-    current = tech2;
+    current = manager;
     expect(await remembered()).toEqual({ name: "Priya Nandakumar", license: "NJ-DEMO-61299" });
   });
 });

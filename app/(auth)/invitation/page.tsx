@@ -24,20 +24,35 @@ export default async function InvitationPage({
   let title: string;
   let body: React.ReactNode;
   if (view.state === "pending") {
-    title = `${view.companyName} invites you`;
+    const isStaff = view.role !== "homeowner";
+    title = isStaff
+      ? `${view.companyName} invites you to join its team`
+      : `${view.companyName} invites you`;
     body = (
       <>
-        <p className="mb-4">
-          Follow the lawn at <strong>{view.street}</strong>, {view.city}: what each visit found,
-          what was applied and why, and what to do between visits.
-        </p>
+        {isStaff ? (
+          <p className="mb-4">
+            You are invited as{" "}
+            <strong>{view.role === "manager" ? "a manager" : "a technician"}</strong>
+            {view.role === "manager"
+              ? ": the book of properties, the visits, the people and the records."
+              : ": your stops of the day, zone checks and applications."}
+          </p>
+        ) : (
+          <p className="mb-4">
+            Follow the lawn at <strong>{view.street}</strong>, {view.city}: what each visit found,
+            what was applied and why, and what to do between visits.
+          </p>
+        )}
         <p className="mb-5 text-muted">
           For <strong className="break-words text-ink">{view.email}</strong> · this link works until{" "}
           {formatDateTime(view.expiresAt, view.timeZone)}.
         </p>
         {view.account === "unavailable" ? (
           <p role="alert" className="rounded-lg border border-clay bg-clay-tint p-3 text-clay">
-            This e-mail address already has a Sward account that cannot be added to this property.
+            {isStaff
+              ? "This e-mail address already has a Sward account, so this invitation cannot make another."
+              : "This e-mail address already has a Sward account that cannot be added to this property."}{" "}
             Ask {view.companyName} to invite another address.
           </p>
         ) : (

@@ -3,6 +3,7 @@ import { ChevronLeft, ChevronRight } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 
+import { LicenseNotice } from "@/components/people/license-notice";
 import { OfflineReady } from "@/components/pwa/offline-ready";
 import { buttonClass } from "@/components/ui/button";
 import { TodayList } from "@/components/visits/today-list";
@@ -31,6 +32,7 @@ export default async function TodayPage({
       <p className="mt-1 text-muted">
         {date === today ? formatDate(date) : date < today ? "A past day" : "A coming day"}
       </p>
+      <LicenseNotice actor={actor} />
       <nav aria-label="Other days" className="mt-3 mb-4 flex flex-wrap gap-2">
         <Link
           href={dayHref(addDays(date, -1))}

@@ -364,6 +364,16 @@ export const en = {
       ignore:
         "If you do not know this company or this lawn, ignore this e-mail: nothing is linked unless you accept.",
     },
+    staffInvitation: {
+      subject: "{company} invites you to join its team on Sward",
+      intro:
+        "{company} invites you to Sward as {role, select, manager {a manager} other {a technician}}: {role, select, manager {the book of properties, the visits, the people and the records} other {your stops of the day, zone checks and applications}}.",
+      action:
+        "Open this link to set your password and sign in. It works once, within {days, plural, one {# day} other {# days}}",
+      button: "Accept and set a password",
+      ignore:
+        "If you do not know this company, ignore this e-mail: no account is made unless you accept.",
+    },
   },
   report: {
     kicker: "{company} · visit report",
