@@ -1,4 +1,5 @@
 // A visit report as its readers see it (lib/reports/queries.ts).
+import type { PlannedService } from "@/db/schema";
 import type { PhotoDto } from "@/lib/photos/dto";
 
 import type { MatchedNote } from "./care-notes";
@@ -33,4 +34,11 @@ export interface VisitReport {
     reentryGuidance: string;
   }[];
   careNotes: MatchedNote[];
+  /** The property's next scheduled visit after this one (its day and planned service), if any. */
+  nextVisit: NextVisit | null;
+}
+
+export interface NextVisit {
+  date: string;
+  service: PlannedService;
 }

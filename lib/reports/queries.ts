@@ -18,7 +18,7 @@ import { propertyIndex } from "@/lib/scoring/sward-index";
 import { valuesOf } from "@/lib/visits/map";
 
 import { matchCareNotes } from "./care-notes";
-import type { VisitReport } from "./dto";
+import type { NextVisit, VisitReport } from "./dto";
 import { zoneSentences } from "./words";
 
 const symptomName = (k: string) => findSymptom(k)?.name ?? k;
@@ -70,7 +70,7 @@ export async function getVisitReport(
     .where("visits.status", "=", "completed")
     .executeTakeFirst();
   if (!visit) throw notFound("That report");
-  const [zones, checks, applications, photos, alerts] = await Promise.all([
+  const [zones, checks, applications, photos, alerts, nextVisit] = await Promise.all([
     executor
       .selectFrom("zones")
       .selectAll()
@@ -114,6 +114,7 @@ export async function getVisitReport(
       .where("property_id", "=", visit.property_id)
       .where("status", "!=", "resolved")
       .execute(),
+    findNextVisit(actor, visit.property_id, visit.scheduled_for, executor),
   ]);
   const checked = zones.filter((z) => checks.some((c) => c.zone_id === z.id));
   const zoneWords = words(actor.companyLocale, "report.zone");
@@ -212,5 +213,33 @@ export async function getVisitReport(
           weather?.status === "ok" && weather.tmaxF !== undefined ? { tmaxF: weather.tmaxF } : null,
       },
     ),
+    nextVisit,
   };
+}
+
+/**
+ * The property's next scheduled visit (not started, not called off) strictly after `after`, or on
+ * or after `from`: its day and planned service; null when none is scheduled. Scoped like every read.
+ */
+export async function findNextVisit(
+  actor: Actor,
+  propertyId: string,
+  after: string,
+  executor: Kysely<Database> = db(),
+  { inclusive = false }: { inclusive?: boolean } = {},
+): Promise<NextVisit | null> {
+  const row = await executor
+    .selectFrom("visits")
+    .innerJoin("properties", "properties.id", "visits.property_id")
+    .select(["visits.scheduled_for", "visits.planned_service"])
+    .where(propertyInScope(actor))
+    .where("visits.company_id", "=", actor.companyId)
+    .where("visits.property_id", "=", propertyId)
+    .where("visits.status", "=", "scheduled")
+    .where("visits.scheduled_for", inclusive ? ">=" : ">", after)
+    .orderBy("visits.scheduled_for")
+    .orderBy("visits.stop_order")
+    .limit(1)
+    .executeTakeFirst();
+  return row ? { date: row.scheduled_for, service: row.planned_service } : null;
 }

@@ -20,6 +20,7 @@ export function reportEmail(
     | "zones"
     | "applications"
     | "careNotes"
+    | "nextVisit"
   >,
   appUrl: string,
   homeownerName: string,
@@ -50,6 +51,12 @@ export function reportEmail(
     score === null
       ? ""
       : ` ${translator(locale, "report").markup("index", { score: String(score), strong })}`;
+  const next = report.nextVisit
+    ? mail("nextVisit", {
+        service: words(locale, "terms.plannedServices")(report.nextVisit.service),
+        date: formatDate(report.nextVisit.date, locale ?? undefined),
+      })
+    : null;
   const hello = email("hello", { name: homeownerName });
   const signOff = email("signOff", { company: report.companyName });
   const lines = [
@@ -63,6 +70,7 @@ export function reportEmail(
       ? ["", mail("careNotesForYou"), ...report.careNotes.map((n) => `• ${n.note.title}`)]
       : []),
     ...(photos.length ? ["", mail("photos"), ...photos.map((p) => `• ${p.zone}: ${p.url}`)] : []),
+    ...(next ? ["", next] : []),
     "",
     ...(signedLink
       ? [
@@ -88,6 +96,7 @@ export function reportEmail(
     photos.length
       ? `<p>${escapeHtml(mail("photos"))} ${photos.map((p) => `<a href="${escapeHtml(p.url)}">${escapeHtml(p.zone)}</a>`).join(" · ")}</p>`
       : "",
+    next ? `<p>${escapeHtml(next)}</p>` : "",
     emailButton(button, mail("button")),
     signedLink
       ? `<p style="color:#5b665e">${escapeHtml(mail("linkOnce", { hours: signedLink.hours }))} <a href="${escapeHtml(link)}">${escapeHtml(link)}</a></p>`

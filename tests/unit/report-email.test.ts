@@ -62,6 +62,7 @@ const report = {
       because: ["Front lawn: fed today"],
     },
   ],
+  nextVisit: null,
 };
 
 describe("report e-mail", () => {
@@ -98,5 +99,20 @@ describe("report e-mail", () => {
     expect(m.text).toContain(
       "http://localhost:3000/my-lawn/reports/11111111-1111-4111-8111-111111111111",
     );
+  });
+
+  it("names the next scheduled visit and its planned service, and nothing when none is scheduled", () => {
+    // Nov 10, 2026 is a Tuesday (calendar).
+    const m = reportEmail(
+      { ...report, nextVisit: { date: "2026-11-10", service: "fall_feeding" } },
+      "http://localhost:3000",
+      "Samir Haddad",
+      "en-US",
+    );
+    expect(m.text).toContain("Next visit: Fall feeding on Tue, Nov 10, 2026.");
+    expect(m.html).toContain("Next visit: Fall feeding on Tue, Nov 10, 2026.");
+    const none = reportEmail(report, "http://localhost:3000", "Samir Haddad", "en-US");
+    expect(none.text).not.toContain("Next visit");
+    expect(none.html).not.toContain("Next visit");
   });
 });

@@ -6,13 +6,14 @@ import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { LawnIndex } from "@/components/sward-index/lawn-index";
 import { PageSkeleton } from "@/components/ui/page-skeleton";
+import { NextVisitNote } from "@/components/visit-reports/next-visit-note";
 import { WateringLog } from "@/components/watering/watering-log";
 import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { visitReportPath } from "@/lib/paths";
 import { getProperty, listProperties } from "@/lib/properties/queries";
-import { listReports } from "@/lib/reports/queries";
+import { findNextVisit, listReports } from "@/lib/reports/queries";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
 import { listWaterings } from "@/lib/watering/queries";
 
@@ -42,6 +43,9 @@ async function MyLawns({ actor }: { actor: Actor }) {
       scores: await getPropertyScoreHistory(actor, p.id, { weather: false }),
       reports: await listReports(actor, p.id),
       waterings: await listWaterings(actor, p.id, { limit: 30 }),
+      nextVisit: await findNextVisit(actor, p.id, todayIn(p.timeZone), undefined, {
+        inclusive: true,
+      }),
     })),
   );
 
@@ -55,6 +59,7 @@ async function MyLawns({ actor }: { actor: Actor }) {
         properties.map((property) => (
           <section key={property.id} className="mb-10" aria-label={property.name}>
             <PropertyHeader property={property} as="h2" />
+            <NextVisitNote visit={property.nextVisit} locale={actor.companyLocale} />
             <LawnIndex history={property.scores} locale={actor.companyLocale} />
             <h3 className="mb-2 text-xl font-bold">Visit reports</h3>
             {property.reports.length ? (

@@ -409,6 +409,7 @@ export const en = {
         "The button signs you in once, within {hours} hours — no password needed. After that, the report stays at this address:",
       howToSignIn:
         "To sign in there, enter this e-mail address and we will send you a one-time sign-in link.",
+      nextVisit: "Next visit: {service} on {date}.",
     },
     zone: {
       overall: "Overall",
