@@ -86,21 +86,29 @@ export function PeopleAdmin({
   );
 }
 
-function LicenseWords({ person, locale }: { person: DirectoryPersonDto; locale: string }) {
+function LicenseWords({
+  person,
+  locale,
+  capital = false,
+}: {
+  person: DirectoryPersonDto;
+  locale: string;
+  capital?: boolean;
+}) {
   const license = person.license;
-  if (!license) return <>no applicator license on record</>;
+  if (!license) return <>{capital ? "No" : "no"} applicator license on record</>;
   const on = formatDate(license.expiresOn, locale);
+  const what = `${capital ? "Applicator" : "applicator"} license ${license.number}`;
   if (license.standing === "expired")
     return (
       <>
-        applicator license {license.number} expired on {on}; pesticide applications are refused
-        until it is renewed
+        {what} expired on {on}; pesticide applications are refused until it is renewed
       </>
     );
   if (license.standing === "expiring")
     return (
       <>
-        applicator license {license.number} expires on {on} (
+        {what} expires on {on} (
         {license.daysLeft === 0
           ? "today"
           : `in ${license.daysLeft} ${license.daysLeft === 1 ? "day" : "days"}`}
@@ -109,7 +117,7 @@ function LicenseWords({ person, locale }: { person: DirectoryPersonDto; locale: 
     );
   return (
     <>
-      applicator license {license.number} good through {on}
+      {what} good through {on}
     </>
   );
 }
@@ -405,14 +413,10 @@ function PersonRow({
               {person.license?.standing === "valid" ? null : (
                 <AlertTriangle className="size-4" aria-hidden="true" />
               )}
-              {person.license ? (
-                <>
-                  License {person.license.category ? `(${person.license.category}) ` : ""}—{" "}
-                  <LicenseWords person={person} locale={locale} />
-                </>
-              ) : (
-                <LicenseWords person={person} locale={locale} />
-              )}
+              <span>
+                <LicenseWords person={person} locale={locale} capital />
+                {person.license?.category ? ` · ${person.license.category}` : ""}
+              </span>
             </p>
           ) : null}
           {person.role === "homeowner" && person.properties.length ? (
