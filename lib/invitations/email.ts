@@ -44,8 +44,8 @@ export function invitationEmail(input: {
   return { subject, text, html };
 }
 
-/** The subject of a company's staff invitation e-mails. */
-const staffInvitationSubject = (companyName: string, locale?: string | null) =>
+/** The subject of a company's staff invitation e-mails (the development inbox recognises them by it). */
+export const staffInvitationSubject = (companyName: string, locale?: string | null) =>
   words(locale, "email")("staffInvitation.subject", { company: companyName });
 
 /** The invitation e-mail to a technician or a manager: who invites them, as what, one button. */

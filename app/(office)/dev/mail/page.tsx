@@ -6,7 +6,7 @@ import { Fragment } from "react";
 import { requireActor } from "@/lib/auth/require";
 import { formatDateTime } from "@/lib/dates";
 import { devInboxDir } from "@/lib/env";
-import { invitationSubject } from "@/lib/invitations/email";
+import { invitationSubject, staffInvitationSubject } from "@/lib/invitations/email";
 import { listInvitedAddresses } from "@/lib/invitations/queries";
 import { readInbox } from "@/lib/mail/inbox-folder";
 import { listCompanyEmailAddresses } from "@/lib/people/queries";
@@ -46,13 +46,16 @@ export default async function DevMailPage({
   ]);
   // An invited address may belong to someone of another company: of its mail, only this
   // company's own invitations are shown.
-  const ourInvitation = invitationSubject(actor.companyName, actor.companyLocale);
+  const ourInvitations = new Set([
+    invitationSubject(actor.companyName, actor.companyLocale),
+    staffInvitationSubject(actor.companyName, actor.companyLocale),
+  ]);
   const mails = (await readInbox(dir))
     .filter((m) =>
       m.to.some(
         (t) =>
           ours.has(t.toLowerCase()) ||
-          (invited.has(t.toLowerCase()) && m.subject === ourInvitation),
+          (invited.has(t.toLowerCase()) && ourInvitations.has(m.subject)),
       ),
     )
     .reverse()
