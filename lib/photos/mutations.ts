@@ -5,6 +5,7 @@ import "server-only";
 
 import { db } from "@/db";
 import { afterWrite } from "@/lib/after-write";
+import { bindAppliedAt } from "@/lib/applications/applied-at";
 import { correctionReasonFor } from "@/lib/audit/correction";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
@@ -19,6 +20,45 @@ import type { PhotoDto } from "./dto";
 import type { ProcessedPhoto } from "./process";
 import { findZoneCheckPhoto } from "./queries";
 
+/**
+ * The device's capture time, bound to the visit as an application's time is
+ * (lib/applications/applied-at.ts: from two hours before the start to two hours after the finish,
+ * never beyond a few minutes ahead of the server's clock), written like the camera's own EXIF
+ * time: the wall-clock time at the property, "YYYY-MM-DD HH:MM:SS". 422 naming the field otherwise.
+ */
+function deviceCaptureLocal(
+  capturedAt: string,
+  visit: { started_at: Date | null; completed_at: Date | null; time_zone: string },
+  now: Date,
+): string {
+  const bound = bindAppliedAt(
+    new Date(capturedAt),
+    { startedAt: visit.started_at, completedAt: visit.completed_at },
+    now,
+  );
+  if (!bound.ok)
+    throw new AppError("invalid_input", "Some values need attention.", {
+      capturedAt: [
+        `The photo's time must fall within the visit: between ${bound.from.toISOString()} and ${bound.to.toISOString()} (check the phone's clock).`,
+      ],
+    });
+  const parts = Object.fromEntries(
+    new Intl.DateTimeFormat("en-US", {
+      timeZone: visit.time_zone,
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      second: "2-digit",
+      hourCycle: "h23",
+    })
+      .formatToParts(bound.at)
+      .map((p) => [p.type, p.value]),
+  );
+  return `${parts.year}-${parts.month}-${parts.day} ${parts.hour}:${parts.minute}:${parts.second}`;
+}
+
 /** Checks that the actor may add a photo to this zone check, before any work is done. */
 export async function assertCanAddPhoto(
   actor: Actor,
@@ -29,9 +69,13 @@ export async function assertCanAddPhoto(
   const row = await db()
     .selectFrom("visits")
     .innerJoin("zone_checks", "zone_checks.visit_id", "visits.id")
+    .innerJoin("properties", "properties.id", "visits.property_id")
     .select([
       "visits.status",
       "visits.property_id",
+      "visits.started_at",
+      "visits.completed_at",
+      "properties.time_zone",
       "zone_checks.zone_id",
       "zone_checks.status as check_status",
     ])
@@ -60,10 +104,16 @@ export async function addPhoto(
   photo: ProcessedPhoto,
   storage: PhotoStorage,
   correctionReason?: string | null,
+  /** When the device took it (a photo queued offline arrives later and without EXIF). */
+  capturedAt?: string | null,
+  now: Date = new Date(),
 ): Promise<{ photo: PhotoDto; isNew: boolean }> {
   const target = await assertCanAddPhoto(actor, visitId, zoneCheckId, correctionReason);
+  // A replay of the same photo answers with the stored one (before any other decision).
   const existing = await findZoneCheckPhoto(zoneCheckId, photo.contentHash, actor);
   if (existing) return { photo: existing, isNew: false };
+  const capturedLocal =
+    photo.capturedLocal ?? (capturedAt ? deviceCaptureLocal(capturedAt, target, now) : null);
 
   const prefix = `${actor.companyId}/${photo.contentHash}`;
   const displayKey = `${prefix}-display.webp`;
@@ -105,7 +155,7 @@ export async function addPhoto(
           measured_by: MEASURED_BY,
           dark_pct: photo.darkPct,
           clipped_pct: photo.clippedPct,
-          captured_local: photo.capturedLocal,
+          captured_local: capturedLocal,
           gps_latitude: photo.gps?.latitude ?? null,
           gps_longitude: photo.gps?.longitude ?? null,
           uploaded_by: actor.userId,

@@ -13,6 +13,7 @@ import { afterWrite } from "@/lib/after-write";
 import { indexColumns } from "@/lib/after-write/check-index";
 import { inNoFertilizerWindow, monthDayWords } from "@/lib/agronomy/rules";
 import { nextFertilizerDate, putsDownNOrP, usDate } from "@/lib/agronomy/season";
+import { CLOCK_SKEW_MS } from "@/lib/applications/applied-at";
 import { correctionReasonFor } from "@/lib/audit/correction";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
@@ -180,11 +181,34 @@ export async function scheduleVisit(
   return getVisit(actor, id);
 }
 
+/**
+ * The device's moment of Start (a start queued offline is sent later): accepted from a working
+ * day before now up to the clock difference the applications allow (lib/applications/applied-at.ts),
+ * 422 naming the field otherwise. Without one, the server's clock.
+ */
+const START_LOOKBACK_MS = 24 * 3_600_000;
+function boundStartedAt(requested: string | undefined, now: Date): Date | null {
+  if (!requested) return null;
+  const at = new Date(requested);
+  if (
+    at.getTime() > now.getTime() + CLOCK_SKEW_MS ||
+    at.getTime() < now.getTime() - START_LOOKBACK_MS
+  )
+    throw new AppError("invalid_input", "Some values need attention.", {
+      startedAt: [
+        "The start time must be within the last 24 hours and not in the future (check the phone's clock).",
+      ],
+    });
+  return at;
+}
+
 export async function startVisit(
   actor: Actor,
   visitId: string,
-  location: { latitude: number | null; longitude: number | null },
+  location: { latitude: number | null; longitude: number | null; startedAt?: string },
+  now: Date = new Date(),
 ): Promise<VisitDetailDto> {
+  const startedAt = boundStartedAt(location.startedAt, now);
   await db()
     .transaction()
     .execute(async (trx) => {
@@ -195,7 +219,7 @@ export async function startVisit(
         .updateTable("visits")
         .set({
           status: "in_progress",
-          started_at: sql<Date>`now()`,
+          started_at: startedAt ?? sql<Date>`now()`,
           started_by: actor.userId,
           start_latitude: location.latitude,
           start_longitude: location.longitude,

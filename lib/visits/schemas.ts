@@ -97,6 +97,8 @@ export const startVisitSchema = z
   .strictObject({
     latitude: z._default(z.nullable(z.number().check(z.gte(-90), z.lte(90))), null),
     longitude: z._default(z.nullable(z.number().check(z.gte(-180), z.lte(180))), null),
+    /** When the technician tapped Start on the device (a start queued offline arrives later). */
+    startedAt: z.optional(z.iso.datetime({ offset: true, error: "Use a date and time." })),
   })
   .check(
     z.refine((v) => (v.latitude === null) === (v.longitude === null), {

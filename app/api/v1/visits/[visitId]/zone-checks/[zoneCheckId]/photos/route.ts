@@ -7,6 +7,10 @@
 // file removed); the photo is processed from that file, which is removed afterwards whatever
 // happens. Uploads beyond the limit wait with their bodies unread. On a finished visit (a
 // manager's correction) `?correctionReason=` says why; without one: 422 before the body is read.
+// A photo queued on the device while offline says when it was taken with `?capturedAt=` (ISO
+// 8601, bound to the visit's times like an application's; used when the file has no EXIF time).
+import { z } from "zod/mini";
+
 import { correctionOnlySchema } from "@/lib/audit/correction";
 import { route } from "@/lib/auth/guards";
 import { streamBodyToFile } from "@/lib/http/stream-to-file";
@@ -20,7 +24,11 @@ export const POST = route(
   {
     access: ["manager", "technician"],
     params: zoneCheckParams,
-    query: correctionOnlySchema,
+    query: z.extend(correctionOnlySchema, {
+      capturedAt: z.optional(
+        z.iso.datetime({ offset: true, error: "Use a date and time with its offset (ISO 8601)." }),
+      ),
+    }),
     resource: "That zone check",
   },
   async ({ actor, params, query, request }) => {
@@ -41,6 +49,7 @@ export const POST = route(
       processed,
       services().photoStorage,
       query.correctionReason,
+      query.capturedAt ?? null,
     );
     return Response.json(photo, {
       status: isNew ? 201 : 200,
