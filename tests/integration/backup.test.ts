@@ -208,7 +208,10 @@ describe("db:backup and db:restore", () => {
       if (withChecksum) await fs.copyFile(`${dump}.sha256`, `${file}.sha256`);
       return file;
     };
-    const cut = Math.floor(bytes.length * 0.7);
+    // Cut inside the data, which a custom-format archive keeps after its table of contents: the
+    // last kilobyte is always data (70 % of the file landed in the table of contents once the
+    // schema's DDL outgrew the test data, and then --list already refuses the archive).
+    const cut = bytes.length - 1000;
     const flipped = Buffer.from(bytes);
     for (let i = bytes.length - 2000; i < bytes.length - 1600; i++) flipped[i] = flipped[i]! ^ 0x5a;
 
