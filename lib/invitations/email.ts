@@ -10,6 +10,44 @@ import { escapeHtml } from "@/lib/text";
 export const invitationSubject = (companyName: string, locale?: string | null) =>
   words(locale, "email")("invitation.subject", { company: companyName });
 
+/** The words of one invitation e-mail, already in the reader's language. */
+interface InvitationWords {
+  subject: string;
+  greeting: string;
+  intro: string;
+  action: string;
+  button: string;
+  buttonFallback: string;
+  ignore: string;
+  signOff: string;
+}
+
+/** Lays out an invitation e-mail (both kinds): text and escaped HTML with one button. */
+function invitationMessage(link: string, w: InvitationWords) {
+  const text = [
+    w.greeting,
+    "",
+    w.intro,
+    "",
+    `${w.action}:`,
+    link,
+    "",
+    w.ignore,
+    "",
+    w.signOff,
+  ].join("\n");
+  const html = emailFrame([
+    `<p>${escapeHtml(w.greeting)}</p>`,
+    `<p>${escapeHtml(w.intro)}</p>`,
+    `<p>${escapeHtml(w.action)}.</p>`,
+    emailButton(link, w.button),
+    `<p style="color:#5b665e;word-break:break-all">${escapeHtml(w.buttonFallback)}<br>${escapeHtml(link)}</p>`,
+    `<p style="color:#5b665e">${escapeHtml(w.ignore)}</p>`,
+    `<p>${escapeHtml(w.signOff)}</p>`,
+  ]);
+  return { subject: w.subject, text, html };
+}
+
 export function invitationEmail(input: {
   link: string;
   days: number;
@@ -20,28 +58,19 @@ export function invitationEmail(input: {
   locale?: string | null;
 }) {
   const t = words(input.locale, "email");
-  const subject = invitationSubject(input.companyName, input.locale);
-  const greeting = input.name ? t("hello", { name: input.name }) : t("helloNoName");
-  const intro = t("invitation.intro", {
-    company: input.companyName,
-    place: `${input.street}, ${input.city}`,
+  return invitationMessage(input.link, {
+    subject: invitationSubject(input.companyName, input.locale),
+    greeting: input.name ? t("hello", { name: input.name }) : t("helloNoName"),
+    intro: t("invitation.intro", {
+      company: input.companyName,
+      place: `${input.street}, ${input.city}`,
+    }),
+    action: t("invitation.action", { days: input.days }),
+    button: t("invitation.button"),
+    buttonFallback: t("buttonFallback"),
+    ignore: t("invitation.ignore"),
+    signOff: t("signOff", { company: input.companyName }),
   });
-  const action = t("invitation.action", { days: input.days });
-  const ignore = t("invitation.ignore");
-  const signOff = t("signOff", { company: input.companyName });
-  const text = [greeting, "", intro, "", `${action}:`, input.link, "", ignore, "", signOff].join(
-    "\n",
-  );
-  const html = emailFrame([
-    `<p>${escapeHtml(greeting)}</p>`,
-    `<p>${escapeHtml(intro)}</p>`,
-    `<p>${escapeHtml(action)}.</p>`,
-    emailButton(input.link, t("invitation.button")),
-    `<p style="color:#5b665e;word-break:break-all">${escapeHtml(t("buttonFallback"))}<br>${escapeHtml(input.link)}</p>`,
-    `<p style="color:#5b665e">${escapeHtml(ignore)}</p>`,
-    `<p>${escapeHtml(signOff)}</p>`,
-  ]);
-  return { subject, text, html };
 }
 
 /** The subject of a company's staff invitation e-mails (the development inbox recognises them by it). */
@@ -58,23 +87,14 @@ export function staffInvitationEmail(input: {
   locale?: string | null;
 }) {
   const t = words(input.locale, "email");
-  const subject = staffInvitationSubject(input.companyName, input.locale);
-  const greeting = input.name ? t("hello", { name: input.name }) : t("helloNoName");
-  const intro = t("staffInvitation.intro", { company: input.companyName, role: input.role });
-  const action = t("staffInvitation.action", { days: input.days });
-  const ignore = t("staffInvitation.ignore");
-  const signOff = t("signOff", { company: input.companyName });
-  const text = [greeting, "", intro, "", `${action}:`, input.link, "", ignore, "", signOff].join(
-    "\n",
-  );
-  const html = emailFrame([
-    `<p>${escapeHtml(greeting)}</p>`,
-    `<p>${escapeHtml(intro)}</p>`,
-    `<p>${escapeHtml(action)}.</p>`,
-    emailButton(input.link, t("staffInvitation.button")),
-    `<p style="color:#5b665e;word-break:break-all">${escapeHtml(t("buttonFallback"))}<br>${escapeHtml(input.link)}</p>`,
-    `<p style="color:#5b665e">${escapeHtml(ignore)}</p>`,
-    `<p>${escapeHtml(signOff)}</p>`,
-  ]);
-  return { subject, text, html };
+  return invitationMessage(input.link, {
+    subject: staffInvitationSubject(input.companyName, input.locale),
+    greeting: input.name ? t("hello", { name: input.name }) : t("helloNoName"),
+    intro: t("staffInvitation.intro", { company: input.companyName, role: input.role }),
+    action: t("staffInvitation.action", { days: input.days }),
+    button: t("staffInvitation.button"),
+    buttonFallback: t("buttonFallback"),
+    ignore: t("staffInvitation.ignore"),
+    signOff: t("signOff", { company: input.companyName }),
+  });
 }

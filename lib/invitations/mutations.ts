@@ -10,7 +10,7 @@
 import "server-only";
 
 import { createHash } from "node:crypto";
-import { sql, type Transaction } from "kysely";
+import { sql, type Transaction, type UpdateObject } from "kysely";
 
 import { db } from "@/db";
 import type { Database, Role } from "@/db/schema";
@@ -44,6 +44,8 @@ export const INVITATION_MESSAGES = {
 } as const;
 
 export const STAFF_INVITATION_MAIL_KIND = "staff_invitation";
+
+const STAFF_INVITATION_COLUMNS = [...INVITATION_COLUMNS, "role"] as const;
 
 function requireManager(actor: Actor): void {
   if (actor.role !== "manager")
@@ -167,6 +169,45 @@ export async function inviteHomeowner(
     });
 }
 
+/** A fresh link for a pending invitation: new token, new expiry, one more sending. */
+function renewedLink(tokenHash: string, expiresAt: Date) {
+  return {
+    token_hash: tokenHash,
+    expires_at: expiresAt,
+    sent_at: sql<Date>`now()`,
+    send_count: sql<number>`send_count + 1`,
+  };
+}
+
+/**
+ * Updates the company's pending invitation `invitationId` — of `propertyId`, or a staff one when
+ * it is null — and returns it; 404 when there is no such pending invitation (accepted, withdrawn,
+ * another company's or another property's).
+ */
+async function updatePendingInvitation(
+  trx: Transaction<Database>,
+  actor: Actor,
+  scope: { propertyId: string | null; invitationId: string },
+  set: UpdateObject<Database, "homeowner_invitations">,
+) {
+  const row = await trx
+    .updateTable("homeowner_invitations")
+    .set(set)
+    .where("company_id", "=", actor.companyId)
+    .where((eb) =>
+      scope.propertyId === null
+        ? eb("property_id", "is", null)
+        : eb("property_id", "=", scope.propertyId),
+    )
+    .where("id", "=", scope.invitationId)
+    .where("accepted_at", "is", null)
+    .where("revoked_at", "is", null)
+    .returning([...STAFF_INVITATION_COLUMNS])
+    .executeTakeFirst();
+  if (!row) throw notFound("That invitation");
+  return row;
+}
+
 /** Sends a pending invitation again with a new link (the old one stops working) and a new expiry. */
 export async function resendInvitation(
   actor: Actor,
@@ -179,22 +220,12 @@ export async function resendInvitation(
     .transaction()
     .execute(async (trx) => {
       const property = await propertyForInvitation(trx, actor, propertyId);
-      const row = await trx
-        .updateTable("homeowner_invitations")
-        .set({
-          token_hash: tokenHash,
-          expires_at: expiresAt,
-          sent_at: sql<Date>`now()`,
-          send_count: sql<number>`send_count + 1`,
-        })
-        .where("company_id", "=", actor.companyId)
-        .where("property_id", "=", propertyId)
-        .where("id", "=", invitationId)
-        .where("accepted_at", "is", null)
-        .where("revoked_at", "is", null)
-        .returning([...INVITATION_COLUMNS])
-        .executeTakeFirst();
-      if (!row) throw notFound("That invitation");
+      const row = await updatePendingInvitation(
+        trx,
+        actor,
+        { propertyId, invitationId },
+        renewedLink(tokenHash, expiresAt),
+      );
       await queueInvitationMail(trx, actor, property, row, token);
       await recordAudit(trx, actor, {
         entity: "property",
@@ -216,17 +247,12 @@ export async function revokeInvitation(
   await db()
     .transaction()
     .execute(async (trx) => {
-      const row = await trx
-        .updateTable("homeowner_invitations")
-        .set({ revoked_at: sql<Date>`now()`, revoked_by: actor.userId })
-        .where("company_id", "=", actor.companyId)
-        .where("property_id", "=", propertyId)
-        .where("id", "=", invitationId)
-        .where("accepted_at", "is", null)
-        .where("revoked_at", "is", null)
-        .returning(["id", "email"])
-        .executeTakeFirst();
-      if (!row) throw notFound("That invitation");
+      const row = await updatePendingInvitation(
+        trx,
+        actor,
+        { propertyId, invitationId },
+        { revoked_at: sql<Date>`now()`, revoked_by: actor.userId },
+      );
       await recordAudit(trx, actor, {
         entity: "property",
         entityId: propertyId,
@@ -290,29 +316,8 @@ export async function acceptInvitation(
           throw new AppError("conflict", INVITATION_MESSAGES.unavailable);
         userId = user.id;
       } else {
-        if (!input.password)
-          throw new AppError("invalid_input", INVITATION_MESSAGES.passwordNeeded, {
-            password: [INVITATION_MESSAGES.passwordNeeded],
-          });
-        const passwordHash = await hashPassword(input.password);
-        const created = await trx
-          .insertInto("users")
-          .values({
-            email: invitation.email,
-            name: input.name?.trim() || invitation.name,
-            password_hash: passwordHash,
-            email_verified: sql<Date>`now()`,
-          })
-          .onConflict((oc) => oc.column("email").doNothing())
-          .returning("id")
-          .executeTakeFirst();
-        if (!created) throw new AppError("conflict", INVITATION_MESSAGES.race);
-        userId = created.id;
+        userId = await createInvitedAccount(trx, { ...invitation, role: "homeowner" }, input);
         createdAccount = true;
-        await trx
-          .insertInto("memberships")
-          .values({ company_id: invitation.company_id, user_id: userId, role: "homeowner" })
-          .execute();
       }
       await trx
         .insertInto("property_homeowners")
@@ -346,21 +351,16 @@ export async function acceptInvitation(
 }
 
 /**
- * A staff invitation's confirmation (the token already claimed in `trx`): a new account of the
- * inviting company with the invited role and the password chosen. An address that has an account
- * by now (made since the invitation was sent) is refused and nothing is written.
+ * The account an invitation makes for an address that has none: the password the person chose
+ * (required), the name they gave or the invited one, the address verified by the link, and the
+ * membership with the invited role. Two confirmations for one address at once: one wins, the other
+ * is told to open the link again.
  */
-async function joinStaff(
+async function createInvitedAccount(
   trx: Transaction<Database>,
-  invitation: { id: string; company_id: string; email: string; name: string; role: Role },
+  invitation: { company_id: string; email: string; name: string; role: Role },
   input: { name?: string; password?: string },
-): Promise<AcceptedInvitation> {
-  const existing = await trx
-    .selectFrom("users")
-    .select("id")
-    .where("email", "=", invitation.email)
-    .executeTakeFirst();
-  if (existing) throw new AppError("conflict", INVITATION_MESSAGES.staffUnavailable);
+): Promise<string> {
   if (!input.password)
     throw new AppError("invalid_input", INVITATION_MESSAGES.passwordNeeded, {
       password: [INVITATION_MESSAGES.passwordNeeded],
@@ -382,6 +382,26 @@ async function joinStaff(
     .insertInto("memberships")
     .values({ company_id: invitation.company_id, user_id: created.id, role: invitation.role })
     .execute();
+  return created.id;
+}
+
+/**
+ * A staff invitation's confirmation (the token already claimed in `trx`): a new account of the
+ * inviting company with the invited role and the password chosen. An address that has an account
+ * by now (made since the invitation was sent) is refused and nothing is written.
+ */
+async function joinStaff(
+  trx: Transaction<Database>,
+  invitation: { id: string; company_id: string; email: string; name: string; role: Role },
+  input: { name?: string; password?: string },
+): Promise<AcceptedInvitation> {
+  const existing = await trx
+    .selectFrom("users")
+    .select("id")
+    .where("email", "=", invitation.email)
+    .executeTakeFirst();
+  if (existing) throw new AppError("conflict", INVITATION_MESSAGES.staffUnavailable);
+  const created = { id: await createInvitedAccount(trx, invitation, input) };
   await trx
     .updateTable("homeowner_invitations")
     .set({ accepted_user_id: created.id })
@@ -411,8 +431,6 @@ async function joinStaff(
 // ── Staff invitations (technicians and managers): the same table, token, e-mail outbox and
 // confirmation page as homeowner invitations; no property. Unlike a homeowner's, an address
 // already in use by any Sward account is refused in words, because staff accounts are made here.
-
-const STAFF_INVITATION_COLUMNS = [...INVITATION_COLUMNS, "role"] as const;
 
 function toStaffInvitationDto(row: InvitationRow & { role: Role }): StaffInvitationDto {
   return { ...toInvitationDto(row), role: row.role === "manager" ? "manager" : "technician" };
@@ -521,22 +539,12 @@ export async function resendStaffInvitation(
   return db()
     .transaction()
     .execute(async (trx) => {
-      const row = await trx
-        .updateTable("homeowner_invitations")
-        .set({
-          token_hash: tokenHash,
-          expires_at: expiresAt,
-          sent_at: sql<Date>`now()`,
-          send_count: sql<number>`send_count + 1`,
-        })
-        .where("company_id", "=", actor.companyId)
-        .where("property_id", "is", null)
-        .where("id", "=", invitationId)
-        .where("accepted_at", "is", null)
-        .where("revoked_at", "is", null)
-        .returning([...STAFF_INVITATION_COLUMNS])
-        .executeTakeFirst();
-      if (!row) throw notFound("That invitation");
+      const row = await updatePendingInvitation(
+        trx,
+        actor,
+        { propertyId: null, invitationId },
+        renewedLink(tokenHash, expiresAt),
+      );
       await queueStaffInvitationMail(trx, actor, row, token);
       await recordAudit(trx, actor, {
         entity: "person",
@@ -554,17 +562,12 @@ export async function revokeStaffInvitation(actor: Actor, invitationId: string):
   await db()
     .transaction()
     .execute(async (trx) => {
-      const row = await trx
-        .updateTable("homeowner_invitations")
-        .set({ revoked_at: sql<Date>`now()`, revoked_by: actor.userId })
-        .where("company_id", "=", actor.companyId)
-        .where("property_id", "is", null)
-        .where("id", "=", invitationId)
-        .where("accepted_at", "is", null)
-        .where("revoked_at", "is", null)
-        .returning(["id", "email", "role"])
-        .executeTakeFirst();
-      if (!row) throw notFound("That invitation");
+      const row = await updatePendingInvitation(
+        trx,
+        actor,
+        { propertyId: null, invitationId },
+        { revoked_at: sql<Date>`now()`, revoked_by: actor.userId },
+      );
       await recordAudit(trx, actor, {
         entity: "person",
         entityId: row.id,
