@@ -308,15 +308,28 @@ export async function setDailyCapacity(
   return db()
     .transaction()
     .execute(async (trx) => {
-      const row = await trx
-        .updateTable("memberships")
-        .set({ daily_stop_capacity: capacity })
+      const before = await trx
+        .selectFrom("memberships")
+        .select("daily_stop_capacity")
         .where("company_id", "=", actor.companyId)
         .where("role", "=", "technician")
         .where("user_id", "=", technicianId)
-        .returning(["daily_stop_capacity"])
+        .forUpdate()
         .executeTakeFirst();
-      if (!row) throw notFound("That technician");
-      return { technicianId, capacity: row.daily_stop_capacity };
+      if (!before) throw notFound("That technician");
+      await trx
+        .updateTable("memberships")
+        .set({ daily_stop_capacity: capacity })
+        .where("company_id", "=", actor.companyId)
+        .where("user_id", "=", technicianId)
+        .execute();
+      if (before.daily_stop_capacity !== capacity)
+        await recordAudit(trx, actor, {
+          entity: "person",
+          entityId: technicianId,
+          action: "set_capacity",
+          changes: { dailyStopCapacity: { from: before.daily_stop_capacity, to: capacity } },
+        });
+      return { technicianId, capacity };
     });
 }

@@ -252,6 +252,27 @@ describe("moving stops", () => {
       { method: "PUT", params: { technicianId: tech } },
     );
     expect(set).toEqual({ status: 200, body: { technicianId: tech, capacity: 2 } });
+    // The change is in the audit trail, once: setting the same number again records nothing.
+    await send(
+      manager,
+      capacityRoute.PUT,
+      { capacity: 2 },
+      { method: "PUT", params: { technicianId: tech } },
+    );
+    const trail = await db
+      .selectFrom("audit_events")
+      .select(["action", "changes", "actor_id"])
+      .where("entity", "=", "person")
+      .where("entity_id", "=", tech)
+      .where("action", "=", "set_capacity")
+      .execute();
+    expect(trail).toEqual([
+      {
+        action: "set_capacity",
+        changes: { dailyStopCapacity: { from: 10, to: 2 } },
+        actor_id: c.userIds["manager"],
+      },
+    ]);
     const day = dayAhead(100, 4);
     const stops = await Promise.all([
       stopAt("oyelaran", day, "tech2", 1),
