@@ -3,8 +3,10 @@
 // (lib/auth/scope.ts) and themselves; homeowners nobody.
 import "server-only";
 
+import type { Kysely } from "kysely";
+
 import { db } from "@/db";
-import type { Role } from "@/db/schema";
+import type { Database, Role } from "@/db/schema";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
 import { todayIn } from "@/lib/dates";
@@ -213,17 +215,24 @@ export async function getPeopleDirectory(actor: Actor): Promise<PeopleDirectoryD
   };
 }
 
-/** A technician of the actor's company (any status), or not found. */
-async function findCompanyTechnician(actor: Actor, userId: string) {
-  const row = await db()
+/**
+ * A technician of the actor's company, or undefined: any status, or only one who can be given
+ * stops (`active`: not disabled). Runs on the caller's transaction when given one.
+ */
+export async function findCompanyTechnician(
+  actor: Actor,
+  userId: string,
+  opts: { active?: boolean; trx?: Kysely<Database> } = {},
+) {
+  let q = (opts.trx ?? db())
     .selectFrom("memberships")
     .innerJoin("users", "users.id", "memberships.user_id")
-    .select(["users.id", "users.name", "users.disabled_at"])
+    .select(["users.id", "users.name", "users.disabled_at", "memberships.daily_stop_capacity"])
     .where("memberships.company_id", "=", actor.companyId)
     .where("memberships.role", "=", "technician")
-    .where("users.id", "=", userId)
-    .executeTakeFirst();
-  return row;
+    .where("users.id", "=", userId);
+  if (opts.active) q = q.where("users.disabled_at", "is", null);
+  return q.executeTakeFirst();
 }
 
 /** What moving a technician's properties to another would move: properties and future scheduled stops. */

@@ -16,6 +16,7 @@ import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, formatDate, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { findCompanyTechnician } from "@/lib/people/queries";
 import { SCHEDULE_AHEAD_DAYS } from "@/lib/visits/schemas";
 
 import type { MovePreviewDto } from "./dto";
@@ -90,15 +91,7 @@ const toPlanStop = (r: LockedStop): PlanStop => ({
 });
 
 async function activeTechnician(trx: Trx, actor: Actor, technicianId: string) {
-  const tech = await trx
-    .selectFrom("memberships")
-    .innerJoin("users", "users.id", "memberships.user_id")
-    .select(["users.id", "users.name", "memberships.daily_stop_capacity"])
-    .where("memberships.company_id", "=", actor.companyId)
-    .where("memberships.role", "=", "technician")
-    .where("users.disabled_at", "is", null)
-    .where("users.id", "=", technicianId)
-    .executeTakeFirst();
+  const tech = await findCompanyTechnician(actor, technicianId, { active: true, trx });
   if (!tech)
     throw new AppError("invalid_input", "Some values need attention.", {
       technicianId: ["Technician: choose one of your technicians."],

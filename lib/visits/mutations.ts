@@ -20,6 +20,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { findCompanyTechnician } from "@/lib/people/queries";
 import { removeUnreferencedFiles } from "@/lib/photos/mutations";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { PhotoFigures } from "@/lib/scoring/from-check";
@@ -124,15 +125,10 @@ export async function scheduleVisit(
           { warnings: Object.keys(warnings) },
         );
       if (input.technicianId) {
-        const tech = await trx
-          .selectFrom("memberships")
-          .innerJoin("users", "users.id", "memberships.user_id")
-          .select("users.id")
-          .where("memberships.company_id", "=", actor.companyId)
-          .where("memberships.role", "=", "technician")
-          .where("users.disabled_at", "is", null)
-          .where("users.id", "=", input.technicianId)
-          .executeTakeFirst();
+        const tech = await findCompanyTechnician(actor, input.technicianId, {
+          active: true,
+          trx,
+        });
         if (!tech)
           throw new AppError("invalid_input", "Some values need attention.", {
             technicianId: ["Choose one of your technicians."],

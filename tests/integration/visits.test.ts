@@ -135,6 +135,32 @@ describe("scope of visits", () => {
     await expect(getProperty(tech1, okafor)).rejects.toMatchObject({ code: "not_found" });
   });
 
+  it("a visit goes only to an active technician of the company, in words", async () => {
+    const refused = {
+      code: "invalid_input",
+      fieldErrors: { technicianId: ["Choose one of your technicians."] },
+    };
+    const otherManager = await other.actor("manager");
+    // A manager, a homeowner, another company's person: not one of your technicians.
+    for (const person of [manager, owner1, otherManager])
+      await expect(freshVisit("haddad", person)).rejects.toMatchObject(refused);
+    // A disabled technician neither.
+    await testDb()
+      .updateTable("users")
+      .set({ disabled_at: new Date() })
+      .where("id", "=", tech2.userId)
+      .execute();
+    try {
+      await expect(freshVisit("okafor", tech2)).rejects.toMatchObject(refused);
+    } finally {
+      await testDb()
+        .updateTable("users")
+        .set({ disabled_at: null })
+        .where("id", "=", tech2.userId)
+        .execute();
+    }
+  });
+
   it("a zone of another property cannot be checked on this visit", async () => {
     const visit = await freshVisit("haddad");
     const foreignZone = (await getProperty(manager, c.propertyIds["oyelaran"]!)).zones[0]!.id;
