@@ -16,6 +16,7 @@ import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, formatDate, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { translator } from "@/lib/i18n/translate";
 import { findCompanyTechnician } from "@/lib/people/queries";
 import { SCHEDULE_AHEAD_DAYS } from "@/lib/visits/schemas";
 
@@ -106,15 +107,21 @@ function warningWords(
   locale: string,
 ): string {
   const day = formatDate(toDate, locale);
+  const t = translator(locale, "schedule");
   switch (w.kind) {
     case "same_day":
-      return `${w.propertyName} already has a visit on ${day}.`;
+      return t("warnings.sameDay", { property: w.propertyName, day });
     case "blackout":
-      return `${w.propertyName}: ${day} is inside its no-fertilizer window, and this round puts down nitrogen or phosphorus.`;
+      return t("warnings.blackout", { property: w.propertyName, day });
     case "over_capacity":
-      return `${technicianName ?? "The technician"} would have ${w.count} stops on ${day}, more than the ${w.capacity} a day set for them.`;
+      return t("warnings.overCapacity", {
+        technician: technicianName ?? t("warnings.someTechnician"),
+        count: w.count,
+        capacity: w.capacity,
+        day,
+      });
     case "not_working_day":
-      return `${day} is a Sunday, not a working day.`;
+      return t("warnings.notWorkingDay", { day });
   }
 }
 

@@ -335,6 +335,18 @@ export const en = {
       skipped: "skipped",
     },
   },
+  schedule: {
+    // The warnings a move on the week schedule shows before it is confirmed.
+    warnings: {
+      sameDay: "{property} already has a visit on {day}.",
+      blackout:
+        "{property}: {day} is inside its no-fertilizer window, and this round puts down nitrogen or phosphorus.",
+      overCapacity:
+        "{technician} would have {count, plural, one {# stop} other {# stops}} on {day}, more than the {capacity, number} a day set for them.",
+      someTechnician: "The technician",
+      notWorkingDay: "{day} is a Sunday, not a working day.",
+    },
+  },
   digest: {
     subject:
       "{count, plural, one {# new high-severity alert} other {# new high-severity alerts}} in {company}'s book",
