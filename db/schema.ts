@@ -264,7 +264,6 @@ interface PropertiesTable {
   time_zone: string;
   technician_id: string | null;
   rule_set_id: string | null;
-  p_soil_test_on: ColumnType<string | null, string | null | undefined, string | null>;
   notes: Generated<string>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
@@ -377,7 +376,8 @@ export interface AuditEventsTable {
     | "application"
     | "photo"
     | "watering"
-    | "person";
+    | "person"
+    | "soil_test";
   entity_id: string;
   action: string;
   changes: ColumnType<Record<string, { from: unknown; to: unknown }>, string, string>;
@@ -438,6 +438,33 @@ interface WateringsTable {
   /** The visit it was recorded on, when it was recorded on one. */
   visit_id: string | null;
   created_by: string | null;
+  created_at: Generated<Date>;
+}
+
+interface SoilTestsTable {
+  id: string;
+  company_id: string;
+  property_id: string;
+  /** One zone's sample, or null for the whole property. */
+  zone_id: string | null;
+  sampled_on: ColumnType<string, string, string>;
+  lab: string;
+  depth_in: number;
+  extractant: "mehlich3" | "bray1" | "olsen" | "ammonium_acetate" | "other";
+  ph: number | null;
+  buffer_ph: number | null;
+  buffer_method: "mehlich" | "smp" | "sikora" | "adams_evans" | "other" | null;
+  organic_matter_pct: number | null;
+  p_ppm: number | null;
+  k_ppm: number | null;
+  ca_ppm: number | null;
+  mg_ppm: number | null;
+  s_ppm: number | null;
+  lab_lime_lb_per_1000: number | null;
+  /** The lab report's own word on phosphorus (needed or not), when it gives one. */
+  lab_p_needed: boolean | null;
+  notes: Generated<string>;
+  recorded_by: string | null;
   created_at: Generated<Date>;
 }
 
@@ -583,6 +610,7 @@ export interface Database {
   products: ProductsTable;
   applications: ApplicationsTable;
   waterings: WateringsTable;
+  soil_tests: SoilTestsTable;
   weather_days: WeatherDaysTable;
   risk_alerts: RiskAlertsTable;
   risk_alert_events: RiskAlertEventsTable;

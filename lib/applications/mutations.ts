@@ -20,6 +20,7 @@ import { AppError, notFound } from "@/lib/http/app-error";
 import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { toRuleSetDto } from "@/lib/rule-sets/map";
+import { phosphorusSoilTestOn } from "@/lib/soil-tests/queries";
 import { assertEditable, lockVisit } from "@/lib/visit-state/lock";
 
 import { bindAppliedAt } from "./applied-at";
@@ -154,7 +155,6 @@ async function applicationVisit(actor: Actor, visitId: string) {
       "visits.completed_at",
       "visits.weather",
       "properties.time_zone",
-      "properties.p_soil_test_on",
       "rule_sets.id as rule_set_id",
     ])
     .where(visitInScope(actor))
@@ -289,7 +289,13 @@ async function prepareApplication(
         appliedOn,
         isEstablishing: input.isEstablishing,
         isRepairing: input.isRepairing ?? false,
-        soilTestOn: visit.p_soil_test_on,
+        soilTestOn: await phosphorusSoilTestOn(
+          db(),
+          actor.companyId,
+          visit.property_id,
+          zone.id,
+          appliedOn,
+        ),
         yearToDateNLb: await getZoneNitrogenYearToDate(
           actor.companyId,
           zone.id,

@@ -94,7 +94,7 @@ const ownerSide: Persona[] = ["owner", "assignedTech", "manager"];
 let checkEveryZone: (t: Targets) => Promise<void>; // set up in beforeAll
 /** An entry of the visit (or, for waterings, the homeowner's own) made for a correct/delete cell; set up in beforeAll. */
 let makeEntry: (
-  kind: "application" | "photo" | "zoneCheck" | "watering",
+  kind: "application" | "photo" | "zoneCheck" | "watering" | "soilTest",
   t: Targets,
 ) => Promise<string>;
 /** Entries waiting for a correct/delete cell: each allowed person who succeeds uses up the first. */
@@ -108,6 +108,26 @@ const queue =
     queued[key] = [];
     for (let i = 0; i < count; i++) queued[key].push(await makeEntry(kind, t));
   };
+/** A soil test of the whole property, its lab named uniquely (one sample per lab, date and zone). */
+const soilTestBody = (t: Targets) => ({
+  zoneId: null,
+  sampledOn: t.today,
+  lab: `Matrix lab ${randomUUID()}`,
+  sampleDepthIn: 4,
+  extractant: "mehlich3",
+  ph: 6.1,
+  bufferPh: null,
+  bufferMethod: null,
+  organicMatterPct: null,
+  pPpm: 18,
+  kPpm: null,
+  caPpm: null,
+  mgPpm: null,
+  sPpm: null,
+  labLimeLbPer1000: null,
+  labPhosphorusNeeded: null,
+  notes: "",
+});
 const applicationBody = (t: Targets) => ({
   zoneId: t.zoneId,
   productId: t.productId,
@@ -336,6 +356,11 @@ const CELLS: Cell[] = [
     key: "GET /api/v1/properties/[propertyId]/waterings",
     path: (t) => `/api/v1/properties/${t.propertyId}/waterings`,
     allow: ownerSide,
+  },
+  {
+    key: "GET /api/v1/properties/[propertyId]/soil-tests",
+    path: (t) => `/api/v1/properties/${t.propertyId}/soil-tests`,
+    allow: ["assignedTech", "manager"],
   },
   {
     key: "GET /api/v1/zones/[zoneId]/checks",
@@ -658,6 +683,34 @@ const CELLS: Cell[] = [
       notes: "",
     }),
     allow: ownerSide,
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/soil-tests",
+    path: (t) => `/api/v1/properties/${t.propertyId}/soil-tests`,
+    method: "POST",
+    body: (t) => ({ ...soilTestBody(t), id: randomUUID() }),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "POST /api/v1/properties/[propertyId]/soil-tests/import",
+    path: (t) => `/api/v1/properties/${t.propertyId}/soil-tests/import`,
+    method: "POST",
+    body: (t) => ({
+      csv: `sampled_on,lab,depth_in,extractant,ph\n${t.today},Matrix import ${randomUUID()},4,mehlich3,6.1`,
+    }),
+    allow: ["assignedTech", "manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "DELETE /api/v1/soil-tests/[soilTestId]",
+    path: () => `/api/v1/soil-tests/${nextOf("deleteSoilTest")}`,
+    method: "DELETE",
+    before: queue("deleteSoilTest", "soilTest", 1),
+    body: () => ({}),
+    allow: ["manager"],
+    mustSucceed: true,
+    after: usedOne("deleteSoilTest"),
   },
   {
     key: "POST /api/v1/visits",
@@ -1235,6 +1288,32 @@ beforeAll(async () => {
         )
         .executeTakeFirstOrThrow();
       await saveZoneCheck(await c.actor("tech1"), targets.visitId, id, doneCheck(free.id));
+    } else if (kind === "soilTest") {
+      await db
+        .insertInto("soil_tests")
+        .values({
+          id,
+          company_id: c.companyId,
+          property_id: targets.propertyId,
+          zone_id: null,
+          sampled_on: targets.today,
+          lab: `Matrix lab ${id}`,
+          depth_in: 4,
+          extractant: "mehlich3",
+          ph: 6.2,
+          buffer_ph: null,
+          buffer_method: null,
+          organic_matter_pct: null,
+          p_ppm: 20,
+          k_ppm: null,
+          ca_ppm: null,
+          mg_ppm: null,
+          s_ppm: null,
+          lab_lime_lb_per_1000: null,
+          lab_p_needed: null,
+          recorded_by: c.userIds["manager"]!,
+        })
+        .execute();
     } else {
       await db
         .insertInto("waterings")

@@ -13,6 +13,7 @@ import { inNoFertilizerWindow } from "@/lib/agronomy/rules";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
 import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
+import { SOIL_TEST_BACK_DAYS } from "@/lib/soil-tests/schemas";
 import { startVisit } from "@/lib/visits/mutations";
 import { SCHEDULE_AHEAD_DAYS } from "@/lib/visits/schemas";
 import { WATERING_BACK_DAYS } from "@/lib/watering/schemas";
@@ -25,6 +26,7 @@ vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
 
 const visits = await import("@/app/api/v1/visits/route");
 const waterings = await import("@/app/api/v1/properties/[propertyId]/waterings/route");
+const soilTests = await import("@/app/api/v1/properties/[propertyId]/soil-tests/route");
 const records = await import("@/app/api/v1/records/applications/route");
 const zoneChecks = await import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/route");
 
@@ -260,6 +262,95 @@ describe("logging a watering", () => {
     );
     const none = await post(waterings.POST, watering({ depthIn: 0 }), params());
     expect(none.fieldErrors.depthIn?.[0]).toBe("Depth: above 0 in.");
+  });
+});
+
+describe("recording a soil test", () => {
+  let n = 0;
+  const soilTest = (o: Record<string, unknown>) => ({
+    id: randomUUID(),
+    zoneId: null,
+    sampledOn: addDays(today, -1),
+    lab: `Bounds lab ${++n}`, // one sample per lab, date and zone
+    sampleDepthIn: 4,
+    extractant: "mehlich3",
+    ph: 6.2,
+    bufferPh: null,
+    bufferMethod: null,
+    organicMatterPct: null,
+    pPpm: 20,
+    kPpm: null,
+    caPpm: null,
+    mgPpm: null,
+    sPpm: null,
+    labLimeLbPer1000: null,
+    labPhosphorusNeeded: null,
+    notes: "",
+    ...o,
+  });
+  const params = () => ({ propertyId: c.propertyIds["haddad"]! });
+  const cases: [string, Record<string, unknown>, Record<string, unknown>, string][] = [
+    [
+      "sampledOn",
+      { sampledOn: today },
+      { sampledOn: addDays(today, 1) },
+      "Date sampled: not in the future",
+    ],
+    [
+      "sampledOn",
+      { sampledOn: addDays(today, -SOIL_TEST_BACK_DAYS) },
+      { sampledOn: addDays(today, -SOIL_TEST_BACK_DAYS - 1) },
+      "Date sampled: within the last ten years",
+    ],
+    ["ph", { ph: 10 }, { ph: 10.01 }, "Soil pH: at most 10."],
+    ["ph", { ph: 3 }, { ph: 2.99 }, "Soil pH: at least 3."],
+    [
+      "bufferPh",
+      { bufferPh: 8, bufferMethod: "smp" },
+      { bufferPh: 8.01, bufferMethod: "smp" },
+      "Buffer pH: at most 8.",
+    ],
+    ["kPpm", { kPpm: 20_000 }, { kPpm: 20_000.01 }, "Potassium (K): at most 20,000 ppm."],
+    ["pPpm", { pPpm: 0 }, { pPpm: -0.01 }, "Phosphorus (P): at least 0 ppm."],
+    [
+      "organicMatterPct",
+      { organicMatterPct: 100 },
+      { organicMatterPct: 100.01 },
+      "Organic matter: at most 100 %.",
+    ],
+    [
+      "sampleDepthIn",
+      { sampleDepthIn: 12 },
+      { sampleDepthIn: 12.01 },
+      "Sample depth: at most 12 in.",
+    ],
+    [
+      "sampleDepthIn",
+      { sampleDepthIn: 1 },
+      { sampleDepthIn: 0.99 },
+      "Sample depth: at least 1 in.",
+    ],
+    [
+      "labLimeLbPer1000",
+      { labLimeLbPer1000: 500 },
+      { labLimeLbPer1000: 500.01 },
+      "Lab's lime recommendation: at most 500 lb per 1,000 ft².",
+    ],
+    [
+      "notes",
+      { notes: "n".repeat(1000) },
+      { notes: "n".repeat(1001) },
+      "Notes: at most 1,000 characters.",
+    ],
+  ];
+  it.each(cases)("%s: %j accepted, %j refused in words", async (field, ok, refused, words) => {
+    current = await c.actor("tech1");
+    expect((await post(soilTests.POST, soilTest(ok), params())).status).toBe(201);
+    const answer = await post(soilTests.POST, soilTest(refused), params());
+    expect(answer.status).toBe(422);
+    expect(answer.fieldErrors[field]?.[0]).toMatch(
+      new RegExp(`^${words.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}`),
+    );
   });
 });
 

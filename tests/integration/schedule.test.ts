@@ -13,6 +13,7 @@ import { scheduleVisit } from "@/lib/visits/mutations";
 import { listVisitAudit } from "@/lib/visits/queries";
 
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
+import { callRoute, type RouteAnswer } from "../helpers/route-call";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
@@ -42,34 +43,18 @@ beforeAll(async () => {
   [manager, tech1] = await Promise.all([c.actor("manager"), c.actor("tech1")]);
 });
 
-interface Answer {
-  status: number;
-  body: Record<string, unknown> & {
-    items?: { moves: { stopId: string; stopOrder: number }[]; warnings: string[] }[];
-    error?: { code: string; message: string; fieldErrors?: Record<string, string[]> };
-  };
-}
+type Answer = RouteAnswer<{
+  items?: { moves: { stopId: string; stopOrder: number }[]; warnings: string[] }[];
+}>;
 
 async function send(
   as: Actor | null,
-  handler: (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>,
+  handler: Parameters<typeof callRoute>[0],
   body: unknown,
-  { method = "POST", params = {} }: { method?: string; params?: Record<string, string> } = {},
+  opts: { method?: string; params?: Record<string, string> } = {},
 ): Promise<Answer> {
   current = as;
-  const res = await handler(
-    new Request("http://localhost/api", {
-      method,
-      body: JSON.stringify(body),
-      headers: {
-        origin: "http://localhost:3000",
-        host: "localhost",
-        "content-type": "application/json",
-      },
-    }),
-    { params: Promise.resolve(params) },
-  );
-  return { status: res.status, body: (await res.json()) as Answer["body"] };
+  return callRoute(handler, body, opts);
 }
 
 const stopAt = (

@@ -25,6 +25,27 @@ export const en = {
       declining_index: "Declining Index",
       late_season_feeding: "Late-season feeding due",
     },
+    soilExtractants: {
+      mehlich3: "Mehlich-3",
+      bray1: "Bray P1",
+      olsen: "Olsen",
+      ammonium_acetate: "Ammonium acetate",
+      other: "Other",
+    },
+    bufferMethods: {
+      mehlich: "Mehlich",
+      smp: "SMP",
+      sikora: "Sikora",
+      adams_evans: "Adams-Evans",
+      other: "Other",
+    },
+    soilElements: {
+      p: "Phosphorus (P)",
+      k: "Potassium (K)",
+      ca: "Calcium (Ca)",
+      mg: "Magnesium (Mg)",
+      s: "Sulfur (S)",
+    },
     severities: {
       high: "High",
       moderate: "Moderate",

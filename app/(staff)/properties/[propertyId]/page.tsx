@@ -1,5 +1,7 @@
 import { ArrowLeft, PencilLine } from "lucide-react";
 import type { Metadata } from "next";
+import { NextIntlClientProvider } from "next-intl";
+import { getMessages } from "next-intl/server";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
@@ -16,6 +18,7 @@ import {
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
+import { SoilTests } from "@/components/soil-tests/soil-tests";
 import { PropertyIndexSection } from "@/components/sward-index/property-index-section";
 import { buttonClass } from "@/components/ui/button";
 import { PageSkeleton } from "@/components/ui/page-skeleton";
@@ -37,6 +40,7 @@ import { propertyIdParams } from "@/lib/properties/schemas";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import { listPropertyAlerts } from "@/lib/risk-alerts/queries";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
+import { listSoilTests } from "@/lib/soil-tests/queries";
 import { listVisits } from "@/lib/visits/queries";
 import { listWaterings } from "@/lib/watering/queries";
 import { refreshPropertyWeather } from "@/lib/weather/mutations";
@@ -80,9 +84,11 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
     listPropertyAlerts(actor, property.id),
   ]);
   const year = todayIn(property.timeZone).slice(0, 4);
-  const [nitrogen, applications] = await Promise.all([
+  const [nitrogen, applications, soilTests, messages] = await Promise.all([
     getNitrogenByZone(actor, property.id, year),
     listPropertyApplications(actor, property.id, year),
+    listSoilTests(actor, property.id),
+    getMessages(),
   ]);
   const isManager = actor.role === "manager";
   // The page's sections, in page order, for the "On this page" links.
@@ -95,6 +101,7 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
     ["weather", "Weather and water"],
     ["applications", "Applications"],
     ["watering", "Watering log"],
+    ["soil", "Soil tests"],
     ...(isManager ? ([["homeowners", "Homeowners"]] as [string, string][]) : []),
   ];
   const invitations = isManager ? await listPendingInvitations(actor, property.id) : [];
@@ -277,6 +284,30 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
           waterings={waterings}
           canAdd={!property.isArchived}
         />
+      </section>
+
+      <section id="soil" aria-labelledby="soil-title" className="scroll-mt-4">
+        <h2 id="soil-title" className="mt-10 mb-3 text-2xl font-bold">
+          Soil tests
+        </h2>
+        <NextIntlClientProvider
+          messages={{
+            terms: {
+              soilExtractants: messages.terms.soilExtractants,
+              bufferMethods: messages.terms.bufferMethods,
+              soilElements: messages.terms.soilElements,
+            },
+          }}
+        >
+          <SoilTests
+            propertyId={property.id}
+            zones={property.zones}
+            today={todayIn(property.timeZone)}
+            tests={soilTests}
+            canRecord={!property.isArchived}
+            canDelete={isManager}
+          />
+        </NextIntlClientProvider>
       </section>
 
       {isManager ? (
