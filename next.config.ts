@@ -1,9 +1,11 @@
+import { withSerwist } from "@serwist/turbopack";
 import type { NextConfig } from "next";
 import createNextIntlPlugin from "next-intl/plugin";
 
 import {
   COMMON_SECURITY_HEADERS,
   RESOURCE_CONTENT_SECURITY_POLICY,
+  SERVICE_WORKER_CONTENT_SECURITY_POLICY,
 } from "./lib/http/security-headers";
 
 const nextConfig: NextConfig = {
@@ -32,6 +34,14 @@ const nextConfig: NextConfig = {
         source: "/api/:path*",
         headers: [{ key: "Content-Security-Policy", value: RESOURCE_CONTENT_SECURITY_POLICY }],
       },
+      // The service worker (app/sw.ts): the browser checks it for a new version on every visit.
+      {
+        source: "/serwist/:path*",
+        headers: [
+          { key: "Content-Security-Policy", value: SERVICE_WORKER_CONTENT_SECURITY_POLICY },
+          { key: "Cache-Control", value: "no-cache" },
+        ],
+      },
       {
         source: "/_next/static/:path*",
         headers: [{ key: "Content-Security-Policy", value: RESOURCE_CONTENT_SECURITY_POLICY }],
@@ -41,4 +51,5 @@ const nextConfig: NextConfig = {
 };
 
 // Words and formats in the company's locale (lib/i18n/, next-intl without locale routing).
-export default createNextIntlPlugin("./lib/auth/request-locale.ts")(nextConfig);
+// The service worker is bundled by esbuild (app/serwist/[path]/route.ts), kept outside the bundle.
+export default createNextIntlPlugin("./lib/auth/request-locale.ts")(withSerwist(nextConfig));

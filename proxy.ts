@@ -1,5 +1,5 @@
 // Runs before every page and every server-action post (not for /api, static files or prefetches;
-// those get their headers from next.config.ts).
+// the service worker or icons; those get their headers from next.config.ts).
 //  - Pages: a fresh nonce and the Content-Security-Policy built on it, set on the request (Next
 //    reads the policy there and puts the nonce on its own scripts) and on the response; HSTS where
 //    the app is served over https.
@@ -46,7 +46,7 @@ export const config = {
   matcher: [
     { source: "/:path*", has: [{ type: "header", key: "next-action" }] },
     {
-      source: "/((?!api/|_next/static|_next/image|icon.svg|robots.txt).*)",
+      source: "/((?!api/|_next/static|_next/image|icon.svg|robots.txt|serwist/|icons/).*)",
       missing: [
         { type: "header", key: "next-router-prefetch" },
         { type: "header", key: "purpose", value: "prefetch" },

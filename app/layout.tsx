@@ -30,6 +30,8 @@ const sward = localFont({
 export const metadata: Metadata = {
   title: { default: "Sward", template: "%s · Sward" },
   description: "Turf health journal for lawn-care companies",
+  // app/manifest.ts and app/apple-icon.png are linked by Next; iPhones read their own tags too.
+  appleWebApp: { capable: true, title: "Sward", statusBarStyle: "default" },
 };
 
 export const viewport: Viewport = {

@@ -1,12 +1,29 @@
-// Sign-out as a plain form post, so it works before hydration too.
-import { LogOut } from "lucide-react";
+"use client";
 
+// Sign-out as a plain form post, so it works before hydration too. Once the page has loaded, the
+// phone's kept data (cached field pages, the outbox, drafts: components/pwa/device-data.ts) is
+// deleted first — phones are shared. A sign-out posted before hydration leaves it, and the next
+// person's first page deletes it (components/pwa/device-owner.tsx).
+import { LogOut } from "lucide-react";
+import { useRef, type FormEvent } from "react";
+
+import { clearDeviceData } from "@/components/pwa/device-data";
 import { buttonClass } from "@/components/ui/button";
 import { signOutAction } from "@/lib/auth/actions";
 
 export function SignOutButton({ compact = false }: { compact?: boolean }) {
+  const cleared = useRef(false);
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    if (cleared.current) return; // the second submit: the action runs
+    event.preventDefault();
+    const form = event.currentTarget;
+    void clearDeviceData().finally(() => {
+      cleared.current = true;
+      form.requestSubmit();
+    });
+  };
   return (
-    <form action={signOutAction}>
+    <form action={signOutAction} onSubmit={onSubmit}>
       <button
         type="submit"
         className={buttonClass("quiet", compact ? "px-3" : "w-full justify-start")}

@@ -3,6 +3,7 @@ import type { LucideIcon } from "lucide-react";
 import type { ReactNode } from "react";
 
 import { SignOutButton } from "@/components/auth/sign-out-button";
+import { DeviceOwner } from "@/components/pwa/device-owner";
 import { SwardMark } from "@/components/ui/sward-mark";
 import type { Actor } from "@/lib/auth/actor";
 
@@ -33,6 +34,7 @@ export function AppShell({
 }) {
   return (
     <div className="min-h-dvh md:flex">
+      <DeviceOwner userId={actor.userId} />
       <aside className="no-print hidden w-64 shrink-0 flex-col border-r border-line bg-card p-4 md:flex">
         <div className="mb-6 flex items-center gap-2">
           <SwardMark />

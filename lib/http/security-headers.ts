@@ -26,6 +26,13 @@ export function pageContentSecurityPolicy(nonce: string, options: { isDev: boole
   ].join("; ");
 }
 
+/**
+ * The service worker's own script (/serwist/sw.js): a worker's policy is the one its script is
+ * served with. It fetches and stores this site's pages and data, and loads nothing else.
+ */
+export const SERVICE_WORKER_CONTENT_SECURITY_POLICY =
+  "default-src 'none'; connect-src 'self'; frame-ancestors 'none'";
+
 /** JSON, CSV, photos and static files: nothing in them may run or be framed. */
 export const RESOURCE_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'";
 

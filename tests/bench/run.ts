@@ -1,7 +1,8 @@
 // `npm run bench`: against the book that `npm run bench:seed` built (sward_bench), builds and starts
 // the production server on 127.0.0.1 and prints a table of figures (also written as JSON under
 // tests/.artifacts/bench/): API latencies under autocannon, a zone-check save, the daily risk
-// sweep, compressed JavaScript per page measured in Chromium, Lighthouse scores, and EXPLAIN of
+// sweep, compressed JavaScript per page measured in Chromium, the offline field app's open time
+// and storage (tests/bench/offline.ts), Lighthouse scores, and EXPLAIN of
 // the book query. Budgets are printed beside each figure; this is a benchmark, not a test.
 // Everything it starts (PostgreSQL when it was not running, the build, the server, the sweep and
 // Lighthouse runs) stops on Ctrl-C, SIGTERM, a failure or the end of npm (tests/harness/supervisor.ts).
@@ -19,6 +20,7 @@ import { launchBrowser } from "../helpers/browser";
 import { passwordSignIn } from "../helpers/password-sign-in";
 import { waitForUrl } from "../helpers/processes";
 import { doneCheck } from "../helpers/zone-checks";
+import { measureOffline } from "./offline";
 import { BENCH_MANAGER, benchDatabaseUrl, benchHomeowner, benchTechnician } from "./seed";
 
 const PORT = Number(process.env.SWARD_BENCH_PORT ?? 3200);
@@ -402,8 +404,31 @@ async function main(): Promise<number> {
       );
       await context.close();
     }
-    await browser.close();
     json["javascriptKb"] = jsKb;
+
+    // The field app with no signal (tests/bench/offline.ts): storage after Today saved the day,
+    // and the visit page's offline open time with the CPU slowed four times.
+    console.log("\nOffline field app (phone size, CPU ×4, no network)");
+    const offline = await measureOffline(browser, BASE, tech);
+    await browser.close();
+    json["offline"] = offline;
+    const median = (v: number[]) => [...v].sort((a, b) => a - b)[v.length >> 1]!;
+    record(
+      `offline: visit page shown, DOMContentLoaded (median of ${offline.openMs.length})`,
+      `${ms(median(offline.openMs))} (${offline.openMs.map((v) => v.toFixed(0)).join(", ")} ms)`,
+      "< 1 s",
+      median(offline.openMs) < 1000,
+    );
+    record(
+      `offline: visit page loaded, load event (median of ${offline.loadMs.length})`,
+      `${ms(median(offline.loadMs))}`,
+    );
+    record(
+      `offline: storage used after saving the day (${offline.stops} stops, app shell included)`,
+      `${offline.storageMb.toFixed(1)} MB`,
+      "< 25 MB",
+      offline.storageMb < 25,
+    );
 
     // Lighthouse 12 (mobile emulation), median of 3 runs per page.
     console.log("\nLighthouse (mobile, median of 3)");

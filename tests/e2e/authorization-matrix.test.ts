@@ -146,6 +146,13 @@ const CELLS: Cell[] = [
   { key: "PAGE /sign-in", path: () => "/sign-in", allow: PERSONAS, isPublic: true },
   { key: "PAGE /sign-in/link", path: () => "/sign-in/link", allow: PERSONAS, isPublic: true },
   {
+    key: "PAGE /offline",
+    case: "the service worker's page for no signal: it says nothing about anyone",
+    path: () => "/offline",
+    allow: PERSONAS,
+    isPublic: true,
+  },
+  {
     key: "PAGE /invitation",
     case: "an invitation link: what it shows is for whoever holds the token",
     path: () => `/invitation?token=${"0".repeat(64)}`,

@@ -4,6 +4,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 
 import { LicenseNotice } from "@/components/people/license-notice";
+import { OfflineReady } from "@/components/pwa/offline-ready";
 import { buttonClass } from "@/components/ui/button";
 import { TodayList } from "@/components/visits/today-list";
 import type { Actor } from "@/lib/auth/actor";
@@ -50,6 +51,12 @@ export default async function TodayPage({
           <ChevronRight className="size-5" aria-hidden="true" />
         </Link>
       </nav>
+      <OfflineReady
+        date={date}
+        today={today}
+        userId={actor.userId}
+        timeZone={actor.companyTimeZone}
+      />
       {/* Rendered with the page, not streamed: the field app's first screen must show its stops
           without waiting on a client-side reveal (a streamed boundary stayed hidden under the
           seasons suite's shifted clocks). */}

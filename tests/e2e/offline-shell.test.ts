@@ -1,0 +1,201 @@
+// The installable field app with no signal (app/sw.ts, components/pwa/): on a phone-sized
+// Chromium, a technician opens Today with a signal and waits for "Ready offline"; with the network
+// cut, Today, a stop's visit page and a zone of it still open from what the phone kept, and an
+// office page shows the offline page. The manifest is linked and its icons served; signing out
+// (or another person signing in) deletes the kept field data; a new service worker version
+// offers "Reload".
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+
+import { launchBrowser, PHONE, signIn } from "../helpers/browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const FIELD_CACHE = /^sward-field-/;
+
+const newPhone = () =>
+  browser.newContext({ viewport: PHONE, baseURL: baseUrl, serviceWorkers: "allow" });
+
+async function cacheNames(page: Page): Promise<string[]> {
+  return page.evaluate(() => caches.keys());
+}
+
+/** Every address kept in the field caches (pathname + search). */
+async function keptUrls(page: Page): Promise<string[]> {
+  return page.evaluate(async () => {
+    const out: string[] = [];
+    for (const name of await caches.keys()) {
+      if (!name.startsWith("sward-field-")) continue;
+      const cache = await caches.open(name);
+      for (const req of await cache.keys()) {
+        const u = new URL(req.url);
+        out.push(u.pathname + u.search);
+      }
+    }
+    return out;
+  });
+}
+
+async function signInReady(context: BrowserContext, email: string): Promise<Page> {
+  const page = await context.newPage();
+  await signIn(page, baseUrl, email);
+  await page.waitForURL("**/today");
+  await page.getByText(/^Ready offline — \d+ stops?, saved \d{1,2}:\d{2} [AP]M$/).waitFor({
+    timeout: 90_000,
+  });
+  return page;
+}
+
+describe("the field app with no signal", () => {
+  it(
+    "Today, a stop and a zone open offline; an office page shows the offline page",
+    { timeout: 150_000 },
+    async () => {
+      const context = await newPhone();
+      const page = await signInReady(context, "tech1@demo.sward.test");
+      const stopLinks = page.getByRole("list", { name: "Stops" }).getByRole("link");
+      const stopCount = await stopLinks.count();
+      expect(stopCount).toBeGreaterThan(0);
+      const href = (await stopLinks.first().getAttribute("href"))!;
+      const visitId = href.split("/").pop()!;
+      const visit = await page.evaluate(async (id) => {
+        const res = await fetch(`/api/v1/visits/${id}`);
+        return (await res.json()) as {
+          propertyName: string;
+          zones: { id: string; name: string }[];
+        };
+      }, visitId);
+      expect(await cacheNames(page)).toEqual(
+        expect.arrayContaining(["sward-field-pages", "sward-field-data"]),
+      );
+      expect(await keptUrls(page)).toEqual(
+        expect.arrayContaining(["/today", href, `/api/v1/visits/${visitId}`, "/api/v1/products"]),
+      );
+
+      await context.setOffline(true);
+      await page.reload();
+      await page.getByRole("heading", { level: 1, name: "Today" }).waitFor();
+      expect(await stopLinks.count()).toBe(stopCount);
+      await page.getByText(/^No signal — working from the copy saved at/).waitFor();
+
+      await stopLinks.first().click();
+      await page.waitForURL(`**${href}`);
+      await page.getByRole("heading", { level: 1, name: visit.propertyName }).waitFor();
+      await page.getByRole("list", { name: "Zones of this visit" }).waitFor();
+
+      const zone = visit.zones[0]!;
+      await page.goto(`${href}?zone=${zone.id}`);
+      await page.getByRole("heading", { level: 1, name: zone.name }).waitFor();
+      await page.getByText(`Zone 1 of ${visit.zones.length}`).waitFor();
+
+      // Not a field page: nothing kept, and the network is gone — the offline page.
+      await page.goto("/risk-alerts");
+      await page.getByRole("heading", { level: 1, name: "No connection" }).waitFor();
+      await page.getByText("What you enter is kept on this phone", { exact: false }).waitFor();
+
+      await context.setOffline(false);
+      await context.close();
+    },
+  );
+
+  it("answers redirects and 404s unchanged and keeps neither", { timeout: 150_000 }, async () => {
+    const context = await newPhone();
+    const page = await signInReady(context, "tech1@demo.sward.test");
+    const missing = "/visits/00000000-0000-4000-8000-000000000000";
+    const statuses = await page.evaluate(async (path) => {
+      const notFound = await fetch(path);
+      const api = await fetch(`/api/v1${path}`);
+      return [notFound.status, api.status];
+    }, missing);
+    expect(statuses).toEqual([404, 404]);
+    expect((await keptUrls(page)).filter((u) => u.includes(missing.slice(8)))).toEqual([]);
+    // Signed out, Today redirects to sign-in through the worker.
+    await context.clearCookies();
+    await page.goto("/today");
+    await page.waitForURL("**/sign-in**");
+    await context.close();
+  });
+
+  it("serves the manifest with its icons, linked from the page; the worker's script is never cached", async () => {
+    const context = await newPhone();
+    const page = await context.newPage();
+    await page.goto("/sign-in");
+    const link = await page.locator('link[rel="manifest"]').getAttribute("href");
+    expect(link).toBe("/manifest.webmanifest");
+    expect(await page.locator('link[rel="apple-touch-icon"]').count()).toBe(1);
+    const res = await page.request.get(link!);
+    expect(res.status()).toBe(200);
+    const manifest = (await res.json()) as {
+      start_url: string;
+      display: string;
+      icons: { src: string; sizes: string; type: string }[];
+    };
+    expect(manifest).toMatchObject({ start_url: "/today", display: "standalone" });
+    for (const icon of manifest.icons) {
+      const r = await page.request.get(icon.src);
+      expect(r.status(), icon.src).toBe(200);
+      expect(r.headers()["content-type"], icon.src).toBe("image/png");
+    }
+    const sw = await page.request.get("/serwist/sw.js");
+    expect(sw.status()).toBe(200);
+    expect(sw.headers()["content-type"]).toMatch(/javascript/);
+    expect(sw.headers()["cache-control"]).toBe("no-cache");
+    expect(sw.headers()["content-security-policy"]).toContain("connect-src 'self'");
+    await context.close();
+  });
+
+  it(
+    "signing out deletes every kept field response; so does another person signing in",
+    { timeout: 150_000 },
+    async () => {
+      const context = await newPhone();
+      const page = await signInReady(context, "tech1@demo.sward.test");
+      expect((await keptUrls(page)).length).toBeGreaterThan(3);
+      await page.evaluate(() => localStorage.setItem("sward:zone-check:x:y", "{}"));
+      await page.getByRole("button", { name: "Sign out" }).click();
+      await page.waitForURL("**/sign-in**");
+      expect((await cacheNames(page)).filter((n) => FIELD_CACHE.test(n))).toEqual([]);
+      expect(await page.evaluate(() => localStorage.getItem("sward:zone-check:x:y"))).toBeNull();
+
+      // tech1 again, then tech2 on the same phone without signing out.
+      const again = await signInReady(context, "tech1@demo.sward.test");
+      const tech1Urls = (await keptUrls(again)).filter((u) => u.startsWith("/visits/"));
+      expect(tech1Urls.length).toBeGreaterThan(0);
+      await context.clearCookies();
+      const other = await signInReady(context, "tech2@demo.sward.test");
+      const kept = await keptUrls(other);
+      for (const u of tech1Urls) expect(kept, u).not.toContain(u);
+      await context.close();
+    },
+  );
+
+  it("offers a new version with a Reload button", { timeout: 150_000 }, async () => {
+    const context = await newPhone();
+    const page = await signInReady(context, "tech1@demo.sward.test");
+    // A second version of the worker, as after a deploy: the browser installs a worker whose
+    // script address changed, and it waits while the current one controls the page.
+    await page.evaluate(async () => {
+      await navigator.serviceWorker.register("/serwist/sw.js?version=2", { scope: "/" });
+    });
+    const banner = page.getByRole("status").filter({ hasText: "A new version of Sward is ready" });
+    await banner.waitFor({ timeout: 60_000 });
+    expect(await page.evaluate(() => navigator.serviceWorker.controller?.scriptURL)).not.toContain(
+      "version=2",
+    );
+    const reloaded = page.waitForEvent("load");
+    await banner.getByRole("button", { name: "Reload" }).click();
+    await reloaded;
+    await page.getByRole("heading", { level: 1, name: "Today" }).waitFor();
+    expect(await page.evaluate(() => navigator.serviceWorker.controller?.scriptURL)).toContain(
+      "version=2",
+    );
+    await context.close();
+  });
+});
