@@ -8,7 +8,6 @@ export interface StopRef {
 }
 export interface VisitRef {
   id: string;
-  status: string;
   photos: { thumbUrl: string }[];
   lastChecks: { photo: { thumbUrl: string } | null }[];
 }
@@ -26,13 +25,15 @@ export function stopUrls(stop: StopRef): string[] {
   return [`/visits/${stop.id}`, `/api/v1/visits/${stop.id}`];
 }
 
-/** What a visit's detail points to: photo thumbnails (this visit's, each zone's last check's) and,
- * for a finished visit, the audit trail its summary shows. */
+/** What a visit's detail points to: the photo thumbnails (this visit's, each zone's last
+ * check's). Only what a technician may read: a finished visit's audit trail is the managers'
+ * (GET /api/v1/visits/:id/audit answers a technician 403), so it is not fetched ahead; asking for
+ * it made every day with a finished stop "saved with gaps". */
 export function visitUrls(visit: VisitRef): string[] {
-  const thumbs = [
-    ...visit.photos.map((p) => p.thumbUrl),
-    ...visit.lastChecks.flatMap((c) => (c.photo ? [c.photo.thumbUrl] : [])),
+  return [
+    ...new Set([
+      ...visit.photos.map((p) => p.thumbUrl),
+      ...visit.lastChecks.flatMap((c) => (c.photo ? [c.photo.thumbUrl] : [])),
+    ]),
   ];
-  const audit = visit.status === "completed" ? [`/api/v1/visits/${visit.id}/audit`] : [];
-  return [...new Set([...thumbs, ...audit])];
 }

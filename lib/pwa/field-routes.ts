@@ -13,7 +13,7 @@ const FIELD_PAGE = new RegExp(`^/(?:today|visits/${UUID})/?$`, "i");
 /** The reads behind those pages (components/visits, components/applications). */
 const FIELD_DATA = [
   /^\/api\/v1\/today$/,
-  new RegExp(`^/api/v1/visits/${UUID}(?:/audit)?$`, "i"),
+  new RegExp(`^/api/v1/visits/${UUID}$`, "i"),
   /^\/api\/v1\/products$/,
   /^\/api\/v1\/rule-sets$/,
   /^\/api\/v1\/me\/applicator$/,

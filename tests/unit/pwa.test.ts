@@ -1,5 +1,6 @@
 // The installable app and what its service worker may keep (lib/pwa/, app/manifest.ts,
 // public/icons). Offline behaviour in a browser: tests/e2e/offline-shell.test.ts.
+import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
@@ -7,6 +8,47 @@ import { describe, expect, it } from "vitest";
 import manifest from "@/app/manifest";
 import { dayUrls, SHARED_URLS, stopUrls, visitUrls } from "@/lib/pwa/day-urls";
 import { isFieldData, isFieldPage, isSignInPath, isVisitPage } from "@/lib/pwa/field-routes";
+
+/** The roles a GET of `url` is open to, read from its route file: `access: [...]` of a route
+ * handler (ROLES: every role), `requireActor([...])` of a page (app/(staff) pages). */
+function rolesFor(url: string): string[] {
+  const { pathname } = new URL(url, "http://localhost");
+  const parts = pathname.split("/").filter(Boolean);
+  const api = parts[0] === "api";
+  const find = (dir: string, rest: string[]): string | null => {
+    if (rest.length === 0) {
+      const file = path.join(dir, api ? "route.ts" : "page.tsx");
+      return existsSync(file) ? file : null;
+    }
+    const [head, ...tail] = rest as [string, ...string[]];
+    for (const entry of readdirSync(dir, { withFileTypes: true })) {
+      if (!entry.isDirectory()) continue;
+      const group = /^\(.+\)$/.test(entry.name);
+      const dynamic = /^\[[^.\]]+\]$/.test(entry.name);
+      const next = path.join(dir, entry.name);
+      const hit = group
+        ? find(next, rest)
+        : entry.name === head || dynamic
+          ? find(next, tail)
+          : null;
+      if (hit) return hit;
+    }
+    return null;
+  };
+  const file = find(path.resolve("app"), parts);
+  if (!file) throw new Error(`no route file for ${url}`);
+  const src = readFileSync(file, "utf8");
+  if (api) {
+    const get = src.slice(src.indexOf("export const GET"));
+    if (/access:\s*ROLES\b/.test(get)) return ["manager", "technician", "homeowner"];
+    const m = /access:\s*\[([^\]]*)\]/.exec(get);
+    if (!m) throw new Error(`no access list in ${file}`);
+    return [...m[1]!.matchAll(/"(\w+)"/g)].map((x) => x[1]!);
+  }
+  const m = /requireActor\(\s*\[([^\]]*)\]/.exec(src);
+  if (!m) throw new Error(`no requireActor in ${file}`);
+  return [...m[1]!.matchAll(/"(\w+)"/g)].map((x) => x[1]!);
+}
 
 const VISIT = "0b7a3c4e-9d2f-4e61-8a55-1f2e3d4c5b6a";
 const PHOTO = "6f1e2d3c-4b5a-4978-8a6b-5c4d3e2f1a0b";
@@ -39,7 +81,6 @@ describe("what the service worker may keep (lib/pwa/field-routes.ts)", () => {
     for (const p of [
       "/api/v1/today",
       `/api/v1/visits/${VISIT}`,
-      `/api/v1/visits/${VISIT}/audit`,
       "/api/v1/products",
       "/api/v1/rule-sets",
       "/api/v1/me/applicator",
@@ -53,6 +94,7 @@ describe("what the service worker may keep (lib/pwa/field-routes.ts)", () => {
       "/api/v1/me",
       `/api/v1/photos/${PHOTO}/display`,
       `/api/v1/visits/${VISIT}/finish`,
+      `/api/v1/visits/${VISIT}/audit`,
       "/api/v1/visits",
       "/api/auth/session",
       "/api/v1/records/applications",
@@ -80,7 +122,6 @@ describe("the day's addresses fetched ahead on Today (lib/pwa/day-urls.ts)", () 
     expect(
       visitUrls({
         id: VISIT,
-        status: "scheduled",
         photos: [],
         lastChecks: [
           { photo: { thumbUrl: thumb } },
@@ -89,8 +130,9 @@ describe("the day's addresses fetched ahead on Today (lib/pwa/day-urls.ts)", () 
         ],
       }),
     ).toEqual([thumb]);
-    expect(visitUrls({ id: VISIT, status: "completed", photos: [], lastChecks: [] })).toEqual([
-      `/api/v1/visits/${VISIT}/audit`,
+    // A finished visit: its thumbnails only, never the managers' audit trail.
+    expect(visitUrls({ id: VISIT, photos: [{ thumbUrl: thumb }], lastChecks: [] })).toEqual([
+      thumb,
     ]);
   });
 
@@ -100,12 +142,29 @@ describe("the day's addresses fetched ahead on Today (lib/pwa/day-urls.ts)", () 
       ...SHARED_URLS,
       ...stopUrls({ id: VISIT }),
       `/api/v1/photos/${PHOTO}/thumb`,
-      `/api/v1/visits/${VISIT}/audit`,
     ];
     for (const url of all) {
       const { pathname } = new URL(url, "http://localhost");
       expect(isFieldPage(pathname) || isFieldData(pathname), url).toBe(true);
     }
+  });
+
+  it("every address fetched ahead is one a technician may read (its route's own access list)", () => {
+    // Today is the technician's page: an address a technician is refused can never be saved, and
+    // one such address left every day with a finished stop "saved with gaps" (the audit trail).
+    const all = [
+      ...dayUrls("2026-12-04", "2026-12-03"),
+      ...SHARED_URLS,
+      ...stopUrls({ id: VISIT }),
+      ...visitUrls({
+        id: VISIT,
+        photos: [{ thumbUrl: `/api/v1/photos/${PHOTO}/thumb` }],
+        lastChecks: [{ photo: { thumbUrl: `/api/v1/photos/${PHOTO}/thumb` } }],
+      }),
+    ];
+    for (const url of all) expect(rolesFor(url), url).toContain("technician");
+    // The check itself refuses what a technician may not read.
+    expect(rolesFor(`/api/v1/visits/${VISIT}/audit`)).toEqual(["manager"]);
   });
 });
 
