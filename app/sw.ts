@@ -43,7 +43,7 @@ declare const self: ServiceWorkerGlobalScope;
 
 /** Seconds the network has before the kept copy answers (a weak signal in a back yard). */
 const NETWORK_TIMEOUT_S = 4;
-/** A day of stops, with room: a week of field pages and their data at most. */
+/** A long day of stops (each visit one page, whatever its zone), with room: a week at most. */
 const keepFor = (maxEntries: number) =>
   new ExpirationPlugin({ maxEntries, maxAgeSeconds: 7 * 24 * 60 * 60 });
 /** Only complete answers are kept; a redirect or a 404 is passed on, never stored. */
@@ -76,7 +76,7 @@ const serwist = new Serwist({
         cacheName: FIELD_CACHES.pages,
         networkTimeoutSeconds: NETWORK_TIMEOUT_S,
         matchOptions: { ignoreSearch: true, ignoreVary: true },
-        plugins: [onlyOk(), keepFor(60)],
+        plugins: [onlyOk(), keepFor(150)],
       }),
     },
     // Today (each day is its own address).
@@ -86,7 +86,7 @@ const serwist = new Serwist({
         cacheName: FIELD_CACHES.pages,
         networkTimeoutSeconds: NETWORK_TIMEOUT_S,
         matchOptions: { ignoreVary: true },
-        plugins: [onlyOk(), keepFor(60)],
+        plugins: [onlyOk(), keepFor(150)],
       }),
     },
     // The same screens as React Server Component payloads (in-app navigation). A payload depends
