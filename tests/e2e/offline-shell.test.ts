@@ -8,6 +8,9 @@ import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 
 import { launchBrowser, PHONE, signIn } from "../helpers/browser";
+import { mintSessionCookie, SESSION_COOKIE, useE2eDatabase } from "../helpers/e2e-db";
+import type { TestCompany } from "../helpers/factories";
+import { snap } from "../helpers/screenshots";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -43,13 +46,22 @@ async function keptUrls(page: Page): Promise<string[]> {
   });
 }
 
+const READY = /^Ready offline — \d+ stops?, saved \d{1,2}:\d{2} [AP]M$/;
+
+/** Waits for Today's save-ahead to end in "Ready offline"; a save that ends otherwise fails the
+ * test at once with what the status said (not after the whole wait). */
+async function waitReady(page: Page, timeout = 90_000): Promise<void> {
+  const settled = page.locator('[data-offline-status]:not([data-offline-status="working"])');
+  await settled.waitFor({ timeout });
+  const text = (await settled.locator("p").textContent())?.trim() ?? "";
+  expect(text, "Today's offline status").toMatch(READY);
+}
+
 async function signInReady(context: BrowserContext, email: string): Promise<Page> {
   const page = await context.newPage();
   await signIn(page, baseUrl, email);
   await page.waitForURL("**/today");
-  await page.getByText(/^Ready offline — \d+ stops?, saved \d{1,2}:\d{2} [AP]M$/).waitFor({
-    timeout: 90_000,
-  });
+  await waitReady(page);
   return page;
 }
 
@@ -198,4 +210,178 @@ describe("the field app with no signal", () => {
     );
     await context.close();
   });
+});
+
+// A day of many stops and stops that fail, on a company of the test's own (its technician's day
+// is not the demo's): Today's save-ahead stays within its limits (lib/pwa/save-ahead.ts), ends,
+// says which stops it could not keep, and keeps them on "Retry" once they answer.
+describe("saving a long day ahead", () => {
+  const STOPS = 24;
+  let c: TestCompany;
+
+  beforeAll(async () => {
+    useE2eDatabase();
+    const { createTestCompany } = await import("../helpers/factories");
+    const { scheduleVisit } = await import("@/lib/visits/mutations");
+    const { todayIn } = await import("@/lib/dates");
+    c = await createTestCompany();
+    const manager = await c.actor("manager");
+    const today = todayIn(manager.companyTimeZone);
+    const keys = Object.keys(c.propertyIds);
+    for (let i = 0; i < STOPS; i += 1) {
+      await scheduleVisit(manager, {
+        propertyId: c.propertyIds[keys[i % keys.length]!]!,
+        scheduledFor: today,
+        technicianId: c.userIds["tech1"]!,
+        plannedService: "inspection",
+        stopOrder: i + 1,
+        notes: "",
+        confirmSameDay: true,
+      });
+    }
+  }, 120_000);
+
+  /** tech1 of the test's company on a fresh phone, `script` run in every page before its own. */
+  async function techPhone(script?: { fail: string; hang: string }): Promise<Page> {
+    const context = await newPhone();
+    const cookie = await mintSessionCookie(c.userIds["tech1"]!);
+    await context.addCookies([
+      { name: SESSION_COOKIE, value: cookie.split("=").slice(1).join("="), url: baseUrl },
+    ]);
+    // Counts the save-ahead's requests in flight (its own addresses, not the router's ?_rsc=
+    // prefetches) and, when asked, fails one stop's page with a 500 and leaves another stop's
+    // detail unanswered until the request is given up; `window.__liftFailures` ends both.
+    await context.addInitScript((s) => {
+      const w = window as unknown as {
+        __saveAhead: { now: number; most: number; urls: string[] };
+        __liftFailures?: boolean;
+      };
+      w.__saveAhead = { now: 0, most: 0, urls: [] };
+      const original = window.fetch.bind(window);
+      const own = /^\/(?:visits\/[0-9a-f-]+$|api\/v1\/(?:visits|photos|products|rule-sets|me)\/?)/;
+      window.fetch = (input, init) => {
+        const url =
+          typeof input === "string" ? input : input instanceof URL ? input.href : input.url;
+        const path = new URL(url, location.href);
+        const counted = own.test(path.pathname) && !path.search.includes("_rsc");
+        if (counted) {
+          w.__saveAhead.now += 1;
+          w.__saveAhead.most = Math.max(w.__saveAhead.most, w.__saveAhead.now);
+          w.__saveAhead.urls.push(path.pathname);
+        }
+        let answer: Promise<Response>;
+        if (s && !w.__liftFailures && path.pathname === `/visits/${s.fail}`) {
+          answer = Promise.resolve(new Response("Server error", { status: 500 }));
+        } else if (s && !w.__liftFailures && path.pathname === `/api/v1/visits/${s.hang}`) {
+          answer = new Promise((_, reject) =>
+            init?.signal?.addEventListener("abort", () =>
+              reject(new DOMException("The operation was aborted.", "AbortError")),
+            ),
+          );
+        } else answer = original(input, init);
+        return counted
+          ? answer.finally(() => {
+              w.__saveAhead.now -= 1;
+            })
+          : answer;
+      };
+    }, script);
+    const page = await context.newPage();
+    await page.goto("/today");
+    return page;
+  }
+
+  const dayStops = async (page: Page) =>
+    (
+      await page.evaluate(
+        async () =>
+          (await (await fetch("/api/v1/today")).json()) as {
+            items: { id: string; propertyName: string }[];
+          },
+      )
+    ).items;
+
+  const seen = (page: Page) =>
+    page.evaluate(
+      () => (window as unknown as { __saveAhead: { most: number; urls: string[] } }).__saveAhead,
+    );
+
+  it(
+    `saves a day of ${STOPS} stops, a few requests at a time, and says so`,
+    { timeout: 150_000 },
+    async () => {
+      const page = await techPhone();
+      await waitReady(page);
+      const stops = await dayStops(page);
+      // The demo's own stops of the day and the test's.
+      expect(stops.length).toBeGreaterThanOrEqual(STOPS);
+      await page.getByText(`Ready offline — ${stops.length} stops, saved`).waitFor();
+      const kept = await keptUrls(page);
+      for (const s of stops) {
+        expect(kept, s.id).toContain(`/visits/${s.id}`);
+        expect(kept, s.id).toContain(`/api/v1/visits/${s.id}`);
+      }
+      const { most, urls } = await seen(page);
+      // lib/pwa/save-ahead.ts: SAVE_AHEAD_LIMITS.concurrency = 3.
+      expect(most).toBeGreaterThan(0);
+      expect(most).toBeLessThanOrEqual(3);
+      // Each stop's page and detail once; the managers' audit trail never.
+      for (const s of stops) expect(urls.filter((u) => u === `/visits/${s.id}`)).toHaveLength(1);
+      expect(urls.filter((u) => u.endsWith("/audit"))).toEqual([]);
+
+      // Back on Today a moment later with the same stops: nothing fetched again.
+      const before = urls.length;
+      await page.reload();
+      await waitReady(page);
+      expect((await seen(page)).urls).toEqual([]); // only the list, to compare the stops
+      expect(before).toBeGreaterThan(STOPS * 2);
+      await page.context().close();
+    },
+  );
+
+  it(
+    "a stop whose page fails and one that never answers: the rest are saved, the two are named, Retry keeps them",
+    { timeout: 150_000 },
+    async () => {
+      // Two stops at different properties (the list is read on a phone with no failures).
+      const probe = await techPhone();
+      await waitReady(probe);
+      const stops = await dayStops(probe);
+      await probe.context().close();
+      const byName = new Map(stops.map((s) => [s.propertyName, s]));
+      const [failing, hanging] = [...byName.values()] as [
+        (typeof stops)[number],
+        (typeof stops)[number],
+      ];
+      const page = await techPhone({ fail: failing.id, hang: hanging.id });
+      const status = page.locator('[data-offline-status]:not([data-offline-status="working"])');
+      await status.waitFor({ timeout: 90_000 });
+      const text = (await status.locator("p").textContent())?.trim() ?? "";
+      expect(text).toMatch(
+        new RegExp(
+          `^${stops.length - 2} of ${stops.length} stops ready offline, saved \\d{1,2}:\\d{2} [AP]M — 2 could not be saved: `,
+        ),
+      );
+      expect(text).toContain(failing.propertyName);
+      expect(text).toContain(hanging.propertyName);
+      const kept = await keptUrls(page);
+      expect(kept).not.toContain(`/visits/${failing.id}`);
+      expect(kept).not.toContain(`/api/v1/visits/${hanging.id}`);
+      expect((await seen(page)).most).toBeLessThanOrEqual(3);
+      await snap(page, "offline-partial-phone");
+
+      // The signal is back: Retry saves the two.
+      await page.evaluate(() => {
+        (window as unknown as { __liftFailures: boolean }).__liftFailures = true;
+      });
+      await status.getByRole("button", { name: "Retry" }).click();
+      await page
+        .getByText(`Ready offline — ${stops.length} stops, saved`)
+        .waitFor({ timeout: 90_000 });
+      expect(await keptUrls(page)).toEqual(
+        expect.arrayContaining([`/visits/${failing.id}`, `/api/v1/visits/${hanging.id}`]),
+      );
+      await page.context().close();
+    },
+  );
 });
