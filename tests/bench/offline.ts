@@ -8,6 +8,10 @@ import type { Browser } from "playwright-core";
 
 export interface OfflineFigures {
   stops: number;
+  /** Today's status once the save ended ("Ready offline — 5 stops, saved …" or what it missed). */
+  status: string;
+  /** Tap on Today → the save's status settled (the day saved, or what it could not keep). */
+  saveMs: number;
   storageMb: number;
   /** Navigation start → DOMContentLoaded (the server-rendered visit shown), per run. */
   openMs: number[];
@@ -15,7 +19,8 @@ export interface OfflineFigures {
   loadMs: number[];
 }
 
-const READY = /^(Ready offline — \d+ stops?|Saved for offline use with gaps)/;
+/** Today's offline status once the save ended (components/pwa/offline-ready.tsx). */
+const SETTLED = '[data-offline-status]:not([data-offline-status="working"])';
 
 export async function measureOffline(
   browser: Browser,
@@ -36,8 +41,12 @@ export async function measureOffline(
       })),
     );
     const page = await context.newPage();
+    const t0 = Date.now();
     await page.goto(`${base}/today`);
-    await page.getByText(READY).waitFor({ timeout: 180_000 });
+    const settled = page.locator(SETTLED);
+    await settled.waitFor({ timeout: 180_000 });
+    const saveMs = Date.now() - t0;
+    const status = (await settled.locator("p").textContent())?.trim() ?? "";
     const stopLinks = page.getByRole("list", { name: "Stops" }).getByRole("link");
     const stops = await stopLinks.count();
     const href = await stopLinks.first().getAttribute("href");
@@ -63,7 +72,7 @@ export async function measureOffline(
       loadMs.push(nav.loaded);
     }
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 1 });
-    return { stops, storageMb: usage / 1024 / 1024, openMs, loadMs };
+    return { stops, status, saveMs, storageMb: usage / 1024 / 1024, openMs, loadMs };
   } finally {
     await context.close();
   }

@@ -423,6 +423,13 @@ async function main(): Promise<number> {
       `offline: visit page loaded, load event (median of ${offline.loadMs.length})`,
       `${ms(median(offline.loadMs))}`,
     );
+    console.log(`  Today said: ${offline.status}`);
+    record(
+      `offline: the day saved ahead on Today (${offline.stops} stops, with a signal)`,
+      `${ms(offline.saveMs)}`,
+      "< 60 s (SAVE_AHEAD_LIMITS)",
+      offline.saveMs < 60_000 && /^Ready offline/.test(offline.status),
+    );
     record(
       `offline: storage used after saving the day (${offline.stops} stops, app shell included)`,
       `${offline.storageMb.toFixed(1)} MB`,
