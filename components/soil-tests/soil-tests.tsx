@@ -512,10 +512,14 @@ function ImportSoilTests({ propertyId }: { propertyId: string }) {
               {preview.added} new
               {preview.alreadyRecorded ? `, ${preview.alreadyRecorded} recorded already` : ""}.
             </p>
-            <Button onClick={confirm} disabled={busy || preview.added === 0}>
-              <Upload className="size-5" aria-hidden="true" /> Import {preview.added}{" "}
-              {preview.added === 1 ? "soil test" : "soil tests"}
-            </Button>
+            {preview.added === 0 ? (
+              <p className="font-semibold">Nothing new to import.</p>
+            ) : (
+              <Button onClick={confirm} disabled={busy}>
+                <Upload className="size-5" aria-hidden="true" /> Import {preview.added}{" "}
+                {preview.added === 1 ? "soil test" : "soil tests"}
+              </Button>
+            )}
           </div>
         ) : null}
         {done ? (
