@@ -22,8 +22,8 @@
 /** Pure cores: computations with no database, no network, no server-only code. */
 const PURE = [
   "^lib/agronomy/[^/]+\\.ts$",
-  "^lib/scoring/(weights|sward-index|trend|student-t|available-nitrogen|from-check|history|words)\\.ts$",
-  "^lib/risk/(rules|models|lifecycle|labels)\\.ts$",
+  "^lib/scoring/(bands|weights|sward-index|trend|student-t|available-nitrogen|from-check|history|words)\\.ts$",
+  "^lib/risk/(rules|models|lifecycle|labels|pressure-areas)\\.ts$",
   "^lib/photo-analysis/(color|analyze)\\.ts$",
   "^lib/weather/derived\\.ts$",
   "^lib/reports/(care-notes|words)\\.ts$",
