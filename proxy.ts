@@ -10,7 +10,11 @@
 import { NextResponse, type NextRequest } from "next/server";
 
 import { isSameSiteWrite } from "@/lib/http/origin";
-import { pageContentSecurityPolicy, STRICT_TRANSPORT_SECURITY } from "@/lib/http/security-headers";
+import {
+  mapServiceOrigin,
+  pageContentSecurityPolicy,
+  STRICT_TRANSPORT_SECURITY,
+} from "@/lib/http/security-headers";
 
 function newNonce(): string {
   const bytes = crypto.getRandomValues(new Uint8Array(16));
@@ -31,6 +35,7 @@ export function proxy(request: NextRequest): NextResponse {
   const nonce = newNonce();
   const policy = pageContentSecurityPolicy(nonce, {
     isDev: process.env.NODE_ENV === "development",
+    mapOrigin: mapServiceOrigin(process.env.MAP_STYLE_URL),
   });
   const headers = new Headers(request.headers);
   headers.set("x-nonce", nonce);

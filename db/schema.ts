@@ -46,6 +46,10 @@ interface CompaniesTable {
   time_zone: Generated<string>;
   /** BCP 47 language-region (lib/i18n/locales.ts): words, dates and units of screens, e-mails, exports. */
   locale: Generated<string>;
+  /** Pressure areas (lib/risk/pressure-areas.ts): Eps1 in miles, Eps2 in days, MinPts in properties. */
+  pressure_distance_mi: Generated<number>;
+  pressure_days: Generated<number>;
+  pressure_min_properties: Generated<number>;
   created_at: Generated<Date>;
 }
 
@@ -505,6 +509,15 @@ type AlertEventAction =
   | "cleared"
   | "returned";
 
+/** Pressure areas the managers' digest has named (lib/risk-alerts/digest.ts): each key once. */
+interface PressureAreaNoticesTable {
+  company_id: string;
+  area_key: string;
+  kind: string;
+  noticed_on: ColumnType<string, string, string>;
+  created_at: Generated<Date>;
+}
+
 interface RiskAlertsTable {
   id: Generated<string>;
   company_id: string;
@@ -616,6 +629,7 @@ export interface Database {
   risk_alert_events: RiskAlertEventsTable;
   property_summaries: PropertySummariesTable;
   mail_outbox: MailOutboxTable;
+  pressure_area_notices: PressureAreaNoticesTable;
 }
 
 export type Property = Selectable<PropertiesTable>;

@@ -11,7 +11,7 @@ import { log } from "@/lib/log";
 import { MAIL_QUEUE, registerMailOutbox } from "@/lib/mail/jobs";
 import { deliverPendingMail } from "@/lib/mail/outbox";
 import { remeasurePhotos } from "@/lib/photos/remeasure";
-import { queueHighAlertDigests } from "@/lib/risk-alerts/digest";
+import { queueHighAlertDigests, queuePressureAreaDigests } from "@/lib/risk-alerts/digest";
 import {
   DAILY_AT,
   queueDigest,
@@ -46,12 +46,12 @@ await registerRiskSweep(boss, async ({ companyId }) => {
   return result;
 });
 await registerAlertDigest(boss, async ({ companyId }) => {
-  const result = await queueHighAlertDigests(db, {
-    appUrl,
-    companyIds: companyId ? [companyId] : undefined,
-  });
-  if (result.messages) {
-    log.info({ ...result, companyId }, "alert digest queued");
+  const companyIds = companyId ? [companyId] : undefined;
+  const result = await queueHighAlertDigests(db, { appUrl, companyIds });
+  // New pressure areas are named in their own message, once each.
+  const areas = await queuePressureAreaDigests(db, { appUrl, companyIds });
+  if (result.messages || areas.messages) {
+    log.info({ ...result, pressureAreas: areas.areas, companyId }, "alert digest queued");
     await boss.send(MAIL_QUEUE, { reason: "digest" });
   }
   return result;

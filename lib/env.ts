@@ -49,6 +49,16 @@ const serviceFields = {
    * same API. Unset: managers type the coordinates or use the device's location.
    */
   GEOCODER_BASE_URL: z.url().optional(),
+  /**
+   * The map's base style: the URL of a MapLibre style document (style specification v8) from a
+   * hosted map service, `{key}` in it replaced by MAP_API_KEY, e.g.
+   * https://maps.example.com/styles/basic/style.json?key={key}. The demo and tests start a local
+   * fake with a plain style (tests/harness/map-tiles-fake.ts). Unset: the map draws the book on a
+   * plain background. Its origin is allowed in the pages' Content-Security-Policy (proxy.ts).
+   */
+  MAP_STYLE_URL: z.url().optional(),
+  /** The map service's key; it reaches the browser in the style URL, so restrict it to the app's origin at the service. */
+  MAP_API_KEY: z.string().optional(),
 };
 
 const needsBucket = {
@@ -157,6 +167,13 @@ export function serverEnv(): ServerEnv {
 
 /** The app's public origin for links in e-mails (see appOrigin). */
 export const appUrl = (): string => appOrigin(serviceEnv());
+
+/** The map's base style URL with its key, or null when no map service is configured. */
+export function mapStyleUrl(): string | null {
+  const { MAP_STYLE_URL, MAP_API_KEY } = serviceEnv();
+  if (!MAP_STYLE_URL) return null;
+  return MAP_STYLE_URL.replaceAll("{key}", encodeURIComponent(MAP_API_KEY ?? ""));
+}
 
 /** The development inbox's folder, or undefined: only ever set on a loopback app address (checked above). */
 export const devInboxDir = (): string | undefined => serviceEnv().MAIL_INBOX_DIR;

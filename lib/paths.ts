@@ -4,6 +4,9 @@
 /** The manager's book: every property the company serves. */
 export const BOOK_PATH = "/book";
 
+/** The book on a map (the same filters as the book). */
+export const BOOK_MAP_PATH = "/book/map";
+
 /** Risk alerts across the viewer's reach. */
 export const RISK_ALERTS_PATH = "/risk-alerts";
 

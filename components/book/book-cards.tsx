@@ -9,6 +9,8 @@ import type { BookRow } from "@/lib/book/dto";
 import type { BookSort } from "@/lib/book/schemas";
 import { formatDate } from "@/lib/dates";
 
+import { CheckSoonBadge } from "./check-soon-badge";
+
 const SORT_LABEL: Record<BookSort, string> = {
   attention: "Needs attention",
   index: "Sward Index",
@@ -93,6 +95,7 @@ export function BookCards({
               </p>
             </div>
             <div className="mt-2 flex flex-wrap items-center gap-2">
+              {r.checkSoon ? <CheckSoonBadge /> : null}
               <TrendBadge word={r.trendWord} n={r.trendN} />
               {r.trendSlope !== null && r.trendWord ? (
                 <span className="text-sm text-muted">

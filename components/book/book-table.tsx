@@ -12,6 +12,8 @@ import type { BookRow } from "@/lib/book/dto";
 import type { BookSort } from "@/lib/book/schemas";
 import { formatDate } from "@/lib/dates";
 
+import { CheckSoonBadge } from "./check-soon-badge";
+
 const features = tableFeatures({});
 const helper = createColumnHelper<typeof features, BookRow>();
 const short = (d: string | null) => (d ? formatDate(d).replace(/^\w+, /, "") : "—");
@@ -28,6 +30,11 @@ const columns = helper.columns([
         <div className="text-sm text-muted">
           {info.row.original.street}, {info.row.original.city}
         </div>
+        {info.row.original.checkSoon ? (
+          <div className="mt-1">
+            <CheckSoonBadge />
+          </div>
+        ) : null}
       </div>
     ),
   }),

@@ -4,22 +4,14 @@ import { Download } from "lucide-react";
 import Link from "next/link";
 
 import { buttonClass } from "@/components/ui/button";
-import { inputClass } from "@/components/ui/field";
-import { FilterSelect } from "@/components/ui/filter-select";
 import type { BookRow } from "@/lib/book/dto";
 import { BOOK_SORTS, type BookQuery } from "@/lib/book/schemas";
 import { BOOK_PATH } from "@/lib/paths";
-import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
 
 import { BookCards } from "./book-cards";
+import { BookFilters, bookFilterValues } from "./book-filters";
 import { BookTable } from "./book-table";
 
-const TRENDS = [
-  ["declining", "Declining"],
-  ["steady", "Steady"],
-  ["improving", "Improving"],
-  ["none", "No clear trend"],
-] as const;
 const NATURAL: Record<string, "asc" | "desc"> = {
   attention: "desc",
   name: "asc",
@@ -43,14 +35,7 @@ export function BookView({
   total: number;
   technicians: { id: string; name: string }[];
 }) {
-  const filters = {
-    q: query.q,
-    technician: query.technician,
-    trend: query.trend,
-    kind: query.kind,
-    severity: query.severity,
-    overdue: query.overdue,
-  };
+  const filters = bookFilterValues(query);
   const params = (extra: Record<string, string | undefined>) => {
     const p = new URLSearchParams();
     for (const [k, v] of Object.entries({
@@ -76,73 +61,13 @@ export function BookView({
       <h2 id="book-table-title" className="sr-only">
         Properties in the book
       </h2>
-      <form
-        method="get"
+      <BookFilters
+        query={query}
+        technicians={technicians}
         action={BOOK_PATH}
-        className="mb-3 grid grid-cols-2 gap-3 rounded-xl border border-line bg-card p-3 sm:p-4 lg:grid-cols-4"
-        aria-label="Filter the book"
-      >
-        <label className="col-span-2 space-y-1 lg:col-span-1">
-          <span className="block text-sm font-semibold">Search</span>
-          <input
-            name="q"
-            defaultValue={query.q ?? ""}
-            maxLength={80}
-            className={inputClass}
-            placeholder="Name, street, town or ZIP"
-          />
-        </label>
-        <FilterSelect
-          name="technician"
-          label="Technician"
-          value={query.technician}
-          any="Anyone"
-          options={technicians.map((t) => [t.id, t.name] as const)}
-        />
-        <FilterSelect
-          name="trend"
-          label="Trend"
-          value={query.trend}
-          any="Any trend"
-          options={TRENDS}
-        />
-        <FilterSelect
-          name="kind"
-          label="Alert kind"
-          value={query.kind}
-          any="Any"
-          options={Object.entries(ALERT_KINDS)}
-        />
-        <FilterSelect
-          name="severity"
-          label="Alert severity"
-          value={query.severity}
-          any="Any"
-          options={Object.entries(SEVERITIES).map(([k, v]) => [k, `${v} open`] as const)}
-        />
-        <label className="flex min-h-tap items-end gap-2 pb-2">
-          <input
-            type="checkbox"
-            name="overdue"
-            value="1"
-            defaultChecked={query.overdue === "1"}
-            className="size-5"
-          />
-          <span className="font-semibold">Overdue only</span>
-        </label>
-        {query.sort !== "attention" ? <input type="hidden" name="sort" value={query.sort} /> : null}
-        {query.dir ? <input type="hidden" name="dir" value={query.dir} /> : null}
-        <div className="flex items-end gap-2">
-          <button type="submit" className={buttonClass("primary", "w-full")}>
-            Show
-          </button>
-          {isFiltered ? (
-            <Link href={BOOK_PATH} className={buttonClass("quiet", "no-underline")}>
-              Clear
-            </Link>
-          ) : null}
-        </div>
-      </form>
+        keepSort
+        isFiltered={isFiltered}
+      />
       <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
         <p role="status" className="font-semibold">
           {total} {total === 1 ? "property" : "properties"}

@@ -12,6 +12,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { addDays, daysBetween, todayIn } from "@/lib/dates";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
+import { LOW_INDEX } from "@/lib/scoring/bands";
 import {
   MIN_CHECKS_FOR_CORRELATION,
   NITROGEN_WINDOW_DAYS,
@@ -21,7 +22,6 @@ import {
 } from "@/lib/scoring/history";
 
 const OVERDUE_AFTER_DAYS = 35;
-const LOW_INDEX = 60;
 const ATTENTION = {
   declining: 100,
   high: 30,

@@ -3,10 +3,11 @@ import type { Selectable } from "kysely";
 
 import type { Property, PropertySummariesTable } from "@/db/schema";
 
-import type { BookRow } from "./dto";
+import type { BookMapDto, BookRow } from "./dto";
 
 export type BookPageRow = Selectable<PropertySummariesTable> &
-  Pick<Property, "id" | "name" | "street" | "city" | "technician_id"> & {
+  Pick<Property, "id" | "name" | "street" | "city" | "technician_id"> &
+  Partial<Pick<Property, "latitude" | "longitude">> & {
     technician_name: string | null;
   };
 
@@ -32,4 +33,47 @@ export const toBookRow = (r: BookPageRow): BookRow => ({
   nMaxLb: r.n_max_lb,
   attentionScore: r.attention_score,
   reasons: r.attention_reasons,
+  checkSoon: false,
 });
+
+/** Coordinates to 5 decimals (about 1 m), which is all a map point needs. */
+const round5 = (x: number) => Math.round(x * 1e5) / 1e5;
+
+export interface BookMapRow {
+  id: string;
+  name: string;
+  latitude: number;
+  longitude: number;
+  latest_index: number | null;
+  alerts_high: number;
+  alerts_moderate: number;
+  alerts_low: number;
+  alert_kinds: string[];
+}
+
+/** Rows → the map's compact points, each kind named once in `kinds`. */
+export function toBookMap(rows: BookMapRow[], checkSoon: Set<string>): BookMapDto {
+  const kinds: string[] = [];
+  const kindAt = new Map<string, number>();
+  const position = (kind: string) => {
+    let i = kindAt.get(kind);
+    if (i === undefined) {
+      i = kinds.push(kind) - 1;
+      kindAt.set(kind, i);
+    }
+    return i;
+  };
+  return {
+    kinds,
+    points: rows.map((r) => [
+      r.id,
+      r.name,
+      round5(r.latitude),
+      round5(r.longitude),
+      r.latest_index === null ? null : Math.round(r.latest_index),
+      [r.alerts_high, r.alerts_moderate, r.alerts_low],
+      r.alert_kinds.map(position),
+      checkSoon.has(r.id) ? 1 : 0,
+    ]),
+  };
+}

@@ -12,10 +12,11 @@ import { propertyInScope } from "@/lib/auth/scope";
 import { addDays, isIsoDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { hasControlCharacters } from "@/lib/http/control-characters";
+import { findCheckSoon } from "@/lib/pressure-areas/queries";
 import { escapeLike } from "@/lib/text";
 
-import type { BookRow } from "./dto";
-import { toBookRow } from "./map";
+import type { BookMapDto, BookRow } from "./dto";
+import { toBookMap, toBookRow } from "./map";
 import type { BookQuery, BookSort } from "./schemas";
 import { technicianActivity } from "./team";
 
@@ -170,7 +171,18 @@ export async function listBook(
     : q.after
       ? Number((await count.executeTakeFirstOrThrow()).n)
       : 0;
-  return { ...toPage(rows, q), total };
+  const page = toPage(rows, q);
+  const checkSoon = await findCheckSoon(
+    actor,
+    rows.map((r) => ({
+      id: r.id,
+      lat: r.latitude,
+      lng: r.longitude,
+      lastVisitOn: r.last_visit_on,
+    })),
+  );
+  for (const row of page.rows) row.checkSoon = checkSoon.has(row.propertyId);
+  return { ...page, total };
 }
 
 /** The query of one page (also compiled by the benchmark for EXPLAIN). */
@@ -187,6 +199,8 @@ export function bookPageQuery(actor: Actor, q: BookQuery) {
       "properties.street",
       "properties.city",
       "properties.technician_id",
+      "properties.latitude",
+      "properties.longitude",
       "tech.name as technician_name",
     ])
     .select(sort.expr.as("sort_value"))
@@ -228,6 +242,40 @@ export async function* listBookRows(actor: Actor, q: BookQuery): AsyncGenerator<
     if (!page.nextCursor) return;
     after = page.nextCursor;
   }
+}
+
+/**
+ * Every property of the filtered book for the map (no paging: the whole view at once, in name
+ * order), with the "Check soon" flag of the pressure areas (lib/pressure-areas/read.ts).
+ */
+export async function listBookMap(actor: Actor, q: BookQuery): Promise<BookMapDto> {
+  if (actor.role !== "manager") throw new AppError("forbidden", "The book is for managers.");
+  const rows = await baseQuery(actor, q)
+    .select([
+      "properties.id",
+      "properties.name",
+      "properties.latitude",
+      "properties.longitude",
+      "ps.latest_index",
+      "ps.alerts_high",
+      "ps.alerts_moderate",
+      "ps.alerts_low",
+      "ps.alert_kinds",
+      "ps.last_visit_on",
+    ])
+    .orderBy(sql`lower(properties.name)`)
+    .orderBy("properties.id")
+    .execute();
+  const checkSoon = await findCheckSoon(
+    actor,
+    rows.map((r) => ({
+      id: r.id,
+      lat: r.latitude,
+      lng: r.longitude,
+      lastVisitOn: r.last_visit_on,
+    })),
+  );
+  return toBookMap(rows, checkSoon);
 }
 
 /** Each technician's last eight weeks (managers). */

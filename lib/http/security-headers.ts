@@ -6,15 +6,32 @@
 // own inline and bundle scripts when the request carries the policy — proxy.ts) and what those
 // load ('strict-dynamic'); no plugins, no <base>, forms and frames only to this site, never framed.
 // Styles keep 'unsafe-inline': React's style attributes need it, and CSS cannot run script.
+// The map (MapLibre GL) fetches its style, tiles and images from the map service's origin
+// (`mapOrigin`, from MAP_STYLE_URL) and runs its worker from a blob: URL (worker-src).
 
-export function pageContentSecurityPolicy(nonce: string, options: { isDev: boolean }): string {
+/** The origin of the map service's style URL, or null when unset or not an http(s) URL. */
+export function mapServiceOrigin(styleUrl: string | undefined): string | null {
+  if (!styleUrl) return null;
+  try {
+    const url = new URL(styleUrl);
+    return url.protocol === "https:" || url.protocol === "http:" ? url.origin : null;
+  } catch {
+    return null;
+  }
+}
+
+export function pageContentSecurityPolicy(
+  nonce: string,
+  options: { isDev: boolean; mapOrigin?: string | null },
+): string {
+  const map = options.mapOrigin ? ` ${options.mapOrigin}` : "";
   return [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${options.isDev ? " 'unsafe-eval'" : ""}`,
     "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' blob: data:",
+    `img-src 'self' blob: data:${map}`,
     "font-src 'self'",
-    "connect-src 'self'",
+    `connect-src 'self'${map}`,
     "worker-src 'self' blob:",
     "manifest-src 'self'",
     "media-src 'self' blob:",

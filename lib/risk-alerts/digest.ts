@@ -6,10 +6,11 @@ import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 
 import type { Database } from "@/db/schema";
-import { formatDate } from "@/lib/dates";
+import { formatDate, todayIn } from "@/lib/dates";
 import { translator } from "@/lib/i18n/translate";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { RISK_ALERTS_PATH } from "@/lib/paths";
+import { readPressureAreas, readPressureSettings } from "@/lib/pressure-areas/read";
 import { alertKindLabel } from "@/lib/risk/labels";
 import { escapeHtml } from "@/lib/text";
 
@@ -129,5 +130,103 @@ function digestEmail(
     .join(
       "",
     )}</ul><p><a href="${escapeHtml(link)}">${escapeHtml(t("act"))}</a></p><p>${escapeHtml(t("when"))}</p>`;
+  return { subject, text, html };
+}
+
+/**
+ * The managers' e-mail naming each new pressure area once (lib/pressure-areas/read.ts): the areas
+ * of today are read in the transaction; each key not yet in pressure_area_notices is inserted
+ * there (`on conflict do nothing`, so two digests at once name an area once) and named in one
+ * message per manager, enqueued in the same transaction.
+ */
+export async function queuePressureAreaDigests(
+  executor: Kysely<Database>,
+  options: { appUrl: string; companyIds?: string[]; today?: string },
+): Promise<{ messages: number; areas: number }> {
+  let companies = executor.selectFrom("companies").select(["id", "name", "locale", "time_zone"]);
+  if (options.companyIds)
+    companies = options.companyIds.length
+      ? companies.where("id", "in", options.companyIds)
+      : companies.where((eb) => eb.val(false));
+  const result = { messages: 0, areas: 0 };
+  for (const company of await companies.execute()) {
+    await executor.transaction().execute(async (trx) => {
+      const today = options.today ?? todayIn(company.time_zone);
+      const settings = await readPressureSettings(trx, company.id);
+      const areas = await readPressureAreas(trx, company.id, today, settings);
+      if (!areas.length) return;
+      const managers = await trx
+        .selectFrom("memberships")
+        .innerJoin("users", "users.id", "memberships.user_id")
+        .select(["users.id", "users.email"])
+        .where("memberships.company_id", "=", company.id)
+        .where("memberships.role", "=", "manager")
+        .where("users.disabled_at", "is", null)
+        .execute();
+      if (!managers.length) return; // named when the company has a manager again
+      const inserted = await trx
+        .insertInto("pressure_area_notices")
+        .values(
+          areas.map((a) => ({
+            company_id: company.id,
+            area_key: a.key,
+            kind: a.kind,
+            noticed_on: today,
+          })),
+        )
+        .onConflict((oc) => oc.columns(["company_id", "area_key"]).doNothing())
+        .returning("area_key")
+        .execute();
+      const fresh = new Set(inserted.map((r) => r.area_key));
+      const named = areas.filter((a) => fresh.has(a.key));
+      if (!named.length) return;
+      const mail = pressureAreaEmail(named, company, settings.days, options.appUrl);
+      const batch = createHash("sha256")
+        .update(named.map((a) => a.key).join(","))
+        .digest("hex")
+        .slice(0, 24);
+      for (const m of managers) {
+        await enqueueMail(trx, {
+          companyId: company.id,
+          kind: "pressure_area_digest",
+          dedupeKey: `pressure_area_digest:${batch}:${m.id}`,
+          to: m.email,
+          ...mail,
+        });
+        result.messages++;
+      }
+      result.areas += named.length;
+    });
+  }
+  return result;
+}
+
+function pressureAreaEmail(
+  areas: Awaited<ReturnType<typeof readPressureAreas>>,
+  company: { name: string; locale: string },
+  days: number,
+  appUrl: string,
+) {
+  const t = translator(company.locale, "digest");
+  const link = `${appUrl.replace(/\/$/, "")}${RISK_ALERTS_PATH}#pressure-areas`;
+  const line = (a: (typeof areas)[number], esc: (s: string) => string) => {
+    const members = a.properties.filter((p) => p.isMember);
+    const soon = a.properties.filter((p) => p.checkSoon).length;
+    return t("areaLine", {
+      kind: esc(a.kindLabel),
+      count: String(members.length),
+      properties: esc(members.map((p) => p.name).join(", ")),
+      first: esc(formatDate(a.firstOn, company.locale)),
+      latest: esc(formatDate(a.latestOn, company.locale)),
+      checkSoon: soon ? esc(t("areaCheckSoon", { count: soon, days: String(days) })) : "",
+    });
+  };
+  const subject = t("areasSubject", { count: areas.length, company: company.name });
+  const text = `${subject}.\n\n${areas.map((a) => `• ${line(a, (s) => s)}.`).join("\n")}\n\n${t("areasAct")}: ${link}\n\n${t("areasWhat")}`;
+  const html = `<p>${escapeHtml(subject)}.</p><ul>${areas
+    .map((a) => `<li>${line(a, escapeHtml)}.</li>`)
+    .join(
+      "",
+    )}</ul><p><a href="${escapeHtml(link)}">${escapeHtml(t("areasAct"))}</a></p><p>${escapeHtml(t("areasWhat"))}</p>`;
   return { subject, text, html };
 }

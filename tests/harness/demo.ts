@@ -1,10 +1,10 @@
 // `npm run demo`: PostgreSQL on loopback, migrate, seed the invented scenario, build (unless the
 // build is up to date), and serve at http://localhost:3000 (listening on 127.0.0.1 only) with the
-// worker and the fake weather, geocoder and SMTP services. Ctrl-C, SIGTERM (to this process or to npm), a
+// worker and the fake weather, geocoder, map tiles and SMTP services. Ctrl-C, SIGTERM (to this process or to npm), a
 // failed step or the end of npm stop everything it started (tests/harness/supervisor.ts).
 // Environment: PORT, SWARD_PG_PORT / SWARD_PG_DATA, SWARD_WEATHER_PORT, SWARD_GEOCODER_PORT,
-// SWARD_SMTP_PORT, MAIL_INBOX_DIR, DATABASE_URL, AUTH_SECRET, WEATHER_BASE_URL, GEOCODER_BASE_URL,
-// SMTP_URL.
+// SWARD_MAP_TILES_PORT, SWARD_SMTP_PORT, MAIL_INBOX_DIR, DATABASE_URL, AUTH_SECRET, WEATHER_BASE_URL,
+// GEOCODER_BASE_URL, MAP_STYLE_URL / MAP_API_KEY, SMTP_URL.
 import { randomBytes } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import net from "node:net";
@@ -13,6 +13,7 @@ import { DEMO_PASSWORD, demoScenario } from "@/fixtures/demo/scenario";
 
 import { isBuildStale } from "../helpers/build";
 import { waitForUrl } from "../helpers/processes";
+import { FAKE_STYLE_PATH } from "./map-tiles-fake";
 import { StepFailed, Supervisor } from "./supervisor";
 
 process.chdir(new URL("../..", import.meta.url).pathname);
@@ -104,6 +105,17 @@ await sup.main(async () => {
       stdio: ["ignore", "ignore", "inherit"],
     });
 
+  // The local fake map service (a plain MapLibre style with county and state outlines).
+  const MAP_TILES_PORT = Number(process.env.SWARD_MAP_TILES_PORT ?? 3997);
+  const MAP_TILES_ORIGIN = `http://127.0.0.1:${MAP_TILES_PORT}`;
+  const MAP_STYLE_URL =
+    process.env.MAP_STYLE_URL ?? `${MAP_TILES_ORIGIN}${FAKE_STYLE_PATH}?key={key}`;
+  const MAP_API_KEY = process.env.MAP_STYLE_URL ? process.env.MAP_API_KEY : "sward-demo-map-key";
+  if (!process.env.MAP_STYLE_URL)
+    sup.start("map tiles fake", TSX, ["tests/harness/map-tiles-fake.ts", String(MAP_TILES_PORT)], {
+      stdio: ["ignore", "ignore", "inherit"],
+    });
+
   // The local fake SMTP service: every message lands in .data/mail (managers read it at /dev/mail, or `npm run mail:inbox`).
   const SMTP_PORT = Number(process.env.SWARD_SMTP_PORT ?? 2525);
   const SMTP_URL = process.env.SMTP_URL ?? `smtp://127.0.0.1:${SMTP_PORT}`;
@@ -138,6 +150,8 @@ await sup.main(async () => {
         AUTH_URL,
         WEATHER_BASE_URL,
         GEOCODER_BASE_URL,
+        MAP_STYLE_URL,
+        MAP_API_KEY,
         SMTP_URL,
         MAIL_INBOX_DIR,
       },
@@ -166,6 +180,7 @@ await sup.main(async () => {
       waitForUrl(`${AUTH_URL}/sign-in`, 60_000),
       process.env.WEATHER_BASE_URL ? null : waitForUrl(`${WEATHER_BASE_URL}/health`, 60_000),
       process.env.GEOCODER_BASE_URL ? null : waitForUrl(`${GEOCODER_BASE_URL}/health`, 60_000),
+      process.env.MAP_STYLE_URL ? null : waitForUrl(`${MAP_TILES_ORIGIN}/health`, 60_000),
       MAIL_INBOX_DIR ? waitForPort(SMTP_PORT, 60_000) : null,
     ]),
     serverEnded,

@@ -6,6 +6,7 @@ import { closeSync, openSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 
+import { FAKE_STYLE_PATH } from "../harness/map-tiles-fake";
 import { startSmtpFake } from "../harness/smtp-fake";
 import { Supervisor } from "../harness/supervisor";
 import { isBuildStale } from "./build";
@@ -15,6 +16,7 @@ const PORT = Number(process.env.SWARD_E2E_PORT ?? 3100);
 const MAIL_DIR = path.resolve("tests/.artifacts/mail-e2e");
 const AUTH_SECRET = "e2e-tests-only-secret-0123456789abcdefghijkl";
 const PHOTO_DIR = "tests/.artifacts/photos-e2e";
+const E2E_MAP_API_KEY = "e2e-map-key";
 const SERVER_LOG = path.resolve("tests/.artifacts/e2e-server.log");
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   const sup = new Supervisor("e2e setup", false);
@@ -59,7 +61,13 @@ async function start(
   sup.start("geocoder fake", TSX, ["tests/harness/geocoder-fake.ts", String(geocoderPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
+  // The fake map service: SWARD_MAP_TILES_PORT, or E2E + 5.
+  const mapTilesPort = Number(process.env.SWARD_MAP_TILES_PORT ?? PORT + 5);
+  sup.start("map tiles fake", TSX, ["tests/harness/map-tiles-fake.ts", String(mapTilesPort)], {
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
+  await waitForUrl(`http://127.0.0.1:${mapTilesPort}/health`, 20_000);
   await waitForUrl(`http://127.0.0.1:${geocoderPort}/health`, 20_000);
   rmSync(MAIL_DIR, { recursive: true, force: true });
   const smtp = await startSmtpFake(0, MAIL_DIR);
@@ -90,6 +98,8 @@ async function start(
         PHOTO_DIR,
         WEATHER_BASE_URL: `http://127.0.0.1:${weatherPort}`,
         GEOCODER_BASE_URL: `http://127.0.0.1:${geocoderPort}`,
+        MAP_STYLE_URL: `http://127.0.0.1:${mapTilesPort}${FAKE_STYLE_PATH}?key={key}`,
+        MAP_API_KEY: E2E_MAP_API_KEY,
         SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
         MAIL_INBOX_DIR: MAIL_DIR,
       },

@@ -1,7 +1,8 @@
-import { Plus } from "lucide-react";
+import { Map as MapIcon, Plus } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 
+import { bookFilterSearch } from "@/components/book/book-filters";
 import { BookIndexSummary } from "@/components/book/book-index-summary";
 import { BookView } from "@/components/book/book-view";
 import { buttonClass } from "@/components/ui/button";
@@ -9,6 +10,7 @@ import { requireActor } from "@/lib/auth/require";
 import { listBook } from "@/lib/book/queries";
 import { bookQuery } from "@/lib/book/schemas";
 import { AppError } from "@/lib/http/app-error";
+import { BOOK_MAP_PATH } from "@/lib/paths";
 import { listPeople } from "@/lib/people/queries";
 import { getBookScoring } from "@/lib/scoring/queries";
 
@@ -38,10 +40,19 @@ export default async function BookPage({
     <>
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h1 className="text-3xl font-bold">Book</h1>
-        <Link href="/properties/new" className={buttonClass("primary", "no-underline")}>
-          <Plus className="size-5" aria-hidden="true" />
-          Add property
-        </Link>
+        <div className="flex flex-wrap gap-2">
+          <Link
+            href={`${BOOK_MAP_PATH}${bookFilterSearch(query)}`}
+            className={buttonClass("secondary", "no-underline")}
+          >
+            <MapIcon className="size-5" aria-hidden="true" />
+            Show on a map
+          </Link>
+          <Link href="/properties/new" className={buttonClass("primary", "no-underline")}>
+            <Plus className="size-5" aria-hidden="true" />
+            Add property
+          </Link>
+        </div>
       </div>
       <p className="mt-1 mb-6 text-muted">Every property {actor.companyName} serves.</p>
       <BookView

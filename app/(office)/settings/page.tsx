@@ -3,16 +3,21 @@ import { NextIntlClientProvider } from "next-intl";
 import { getMessages, getTranslations } from "next-intl/server";
 
 import { CompanySettingsForm } from "@/components/settings/company-settings-form";
+import { PressureSettingsForm } from "@/components/settings/pressure-settings-form";
 import { requireActor } from "@/lib/auth/require";
 import { getCompanySettings } from "@/lib/company-settings/queries";
 import { LOCALES } from "@/lib/i18n/locales";
+import { getPressureSettings } from "@/lib/pressure-areas/queries";
 import { timeZoneChoices } from "@/lib/time-zones";
 
 export const metadata: Metadata = { title: "Company settings" };
 
 export default async function SettingsPage() {
   const actor = await requireActor(["manager"]);
-  const settings = await getCompanySettings(actor);
+  const [settings, pressure] = await Promise.all([
+    getCompanySettings(actor),
+    getPressureSettings(actor),
+  ]);
   const t = await getTranslations("settings");
   const messages = await getMessages();
   return (
@@ -27,6 +32,7 @@ export default async function SettingsPage() {
           locales={LOCALES.map((l) => ({ tag: l.tag, label: l.label }))}
           timeZones={timeZoneChoices()}
         />
+        <PressureSettingsForm settings={pressure} />
       </NextIntlClientProvider>
     </>
   );

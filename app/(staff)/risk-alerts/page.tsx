@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 
+import { PressureAreaList } from "@/components/risk-alerts/pressure-area-list";
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
 import { buttonClass } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
@@ -8,6 +9,7 @@ import { FilterSelect } from "@/components/ui/filter-select";
 import { requireActor } from "@/lib/auth/require";
 import { RISK_ALERTS_PATH } from "@/lib/paths";
 import { listPeople } from "@/lib/people/queries";
+import { listPressureAreas } from "@/lib/pressure-areas/queries";
 import { listAlerts } from "@/lib/risk-alerts/queries";
 import { alertFilters } from "@/lib/risk-alerts/schemas";
 import { ALERT_KINDS, SEVERITIES } from "@/lib/risk/labels";
@@ -37,9 +39,11 @@ export default async function RiskAlertsPage({
     technician: first(raw.technician),
     area: first(raw.area),
   });
-  const [alerts, technicians] = await Promise.all([
+  const [alerts, technicians, pressure] = await Promise.all([
     listAlerts(actor, filters),
     actor.role === "manager" ? listPeople(actor, "technician") : Promise.resolve([]),
+    // Areas span the whole book: managers only.
+    actor.role === "manager" ? listPressureAreas(actor) : Promise.resolve(null),
   ]);
   const isFiltered = Object.values(filters).some((v) => v !== undefined);
   const counts = {
@@ -57,6 +61,8 @@ export default async function RiskAlertsPage({
           : "Risks raised on your properties"}
         , with their evidence. Checked when a visit is finished and every morning.
       </p>
+      {pressure ? <PressureAreaList view={pressure} /> : null}
+      {pressure ? <h2 className="mb-3 text-2xl font-bold">Every risk alert</h2> : null}
       <form
         method="get"
         className="mb-4 grid grid-cols-2 gap-3 rounded-xl border border-line bg-card p-3 sm:p-4 lg:grid-cols-3"

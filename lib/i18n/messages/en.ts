@@ -186,6 +186,18 @@ export const en = {
     save: "Save settings",
     saving: "Saving…",
     saved: "Saved. Screens, e-mails and exports now read this way.",
+    pressureTitle: "Pressure areas",
+    pressureIntro:
+      "Open alerts of one kind (dollar spot, brown patch or Pythium weather, drought stress) on nearby properties at about the same time make a pressure area on the Alerts page, the map and the managers' digest.",
+    pressureDistance: "Distance between properties (mi)",
+    pressureDistanceHint: "Properties this close to each other count as neighbors: 0.1 to 25 mi.",
+    pressureDays: "Days between alerts",
+    pressureDaysHint: "Alerts raised this many days apart or closer count together: 1 to 30 days.",
+    pressureMinProperties: "Fewest properties",
+    pressureMinPropertiesHint:
+      "An area needs at least this many properties with the alert: 2 to 20.",
+    pressureSave: "Save pressure-area settings",
+    pressureSaved: "Saved. The Alerts page, the map and the book use these now.",
   },
   lawn: {
     improving: "Your lawn is getting healthier.",
@@ -374,6 +386,15 @@ export const en = {
     line: "{kind} — {property}, {city}{zone}, raised {date}: {summary}",
     act: "See the evidence and act on them",
     when: "Sward checks every morning and when a visit is finished.",
+    areasSubject:
+      "{count, plural, one {# new pressure area} other {# new pressure areas}} in {company}'s book",
+    areaLine:
+      "{kind}: {count} properties ({properties}), alerts raised {first} to {latest}{checkSoon}",
+    areaCheckSoon:
+      "; {count, plural, one {# property has} other {# properties have}} had no visit in {days} days: check soon",
+    areasAct: "See the areas and their evidence",
+    areasWhat:
+      "A pressure area is open alerts of one kind on nearby properties at about the same time. Weather-based alerts call for a look at the lawn; follow the product label and local rules before any treatment.",
   },
   email: {
     hello: "Hello {name},",

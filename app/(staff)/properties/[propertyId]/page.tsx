@@ -7,6 +7,7 @@ import { notFound } from "next/navigation";
 import { Suspense } from "react";
 
 import { PropertyApplications } from "@/components/applications/property-applications";
+import { CheckSoonBadge } from "@/components/book/check-soon-badge";
 import { PhotoFigure } from "@/components/photos/photo-figure";
 import { NitrogenToDate } from "@/components/properties/nitrogen-to-date";
 import {
@@ -32,8 +33,9 @@ import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
 import { listPendingInvitations } from "@/lib/invitations/queries";
-import { BOOK_PATH } from "@/lib/paths";
+import { BOOK_PATH, RISK_ALERTS_PATH } from "@/lib/paths";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
+import { findPropertyCheckSoon } from "@/lib/pressure-areas/queries";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
@@ -71,18 +73,21 @@ export default async function PropertyPage({
 
 async function PropertyBody({ actor, property }: { actor: Actor; property: PropertyDetailDto }) {
   // The weather reads come from the cache: bring it up to date first (the other reads meanwhile).
-  const [visits, latestPhotos, waterings, [weather, scores], alerts] = await Promise.all([
-    listVisits(actor, { propertyId: property.id }),
-    listLatestPhotoPerZone(actor, property.id),
-    listWaterings(actor, property.id),
-    refreshPropertyWeather(actor, property.id).then(() =>
-      Promise.all([
-        getPropertyWeather(actor, property.id),
-        getPropertyScoreHistory(actor, property.id),
-      ]),
-    ),
-    listPropertyAlerts(actor, property.id),
-  ]);
+  const [visits, latestPhotos, waterings, [weather, scores], alerts, checkSoon] = await Promise.all(
+    [
+      listVisits(actor, { propertyId: property.id }),
+      listLatestPhotoPerZone(actor, property.id),
+      listWaterings(actor, property.id),
+      refreshPropertyWeather(actor, property.id).then(() =>
+        Promise.all([
+          getPropertyWeather(actor, property.id),
+          getPropertyScoreHistory(actor, property.id),
+        ]),
+      ),
+      listPropertyAlerts(actor, property.id),
+      findPropertyCheckSoon(actor, property.id),
+    ],
+  );
   const year = todayIn(property.timeZone).slice(0, 4);
   const [nitrogen, applications, soilTests, messages] = await Promise.all([
     getNitrogenByZone(actor, property.id, year),
@@ -121,6 +126,19 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
         </p>
       ) : null}
       <PropertyHeader property={property} />
+      {checkSoon ? (
+        <div className="mb-4 rounded-lg bg-rain-tint p-3" role="note">
+          <CheckSoonBadge />
+          <p className="mt-1">
+            This property lies in a {checkSoon.kindLabel.toLowerCase()} pressure area (alerts from{" "}
+            {formatDate(checkSoon.firstOn)} to {formatDate(checkSoon.latestOn)}) and has had no
+            visit in the last {checkSoon.days} days.{" "}
+            <Link href={`${RISK_ALERTS_PATH}#pressure-areas`} className="font-semibold text-sward">
+              See the area
+            </Link>
+          </p>
+        </div>
+      ) : null}
       {isManager ? (
         <div className="mb-6 flex flex-wrap gap-2">
           <Link
