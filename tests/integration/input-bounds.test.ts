@@ -29,6 +29,7 @@ const waterings = await import("@/app/api/v1/properties/[propertyId]/waterings/r
 const soilTests = await import("@/app/api/v1/properties/[propertyId]/soil-tests/route");
 const records = await import("@/app/api/v1/records/applications/route");
 const zoneChecks = await import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/route");
+const pressureSettings = await import("@/app/api/v1/company-settings/pressure-areas/route");
 
 let c: TestCompany;
 const today = todayIn("America/New_York"); // the demo properties' zone
@@ -461,5 +462,51 @@ describe("the zone check", () => {
     const long = await save({ notes: "n".repeat(4001) });
     expect(long).toMatchObject({ status: 422, saved: false });
     expect(long.fieldErrors.notes?.[0]).toBe("Zone notes: at most 4,000 characters; shorten them.");
+  });
+});
+
+describe("pressure-area settings", () => {
+  const settings = async () =>
+    testDb()
+      .selectFrom("companies")
+      .select(["pressure_distance_mi", "pressure_days", "pressure_min_properties"])
+      .where("id", "=", c.companyId)
+      .executeTakeFirstOrThrow();
+  const put = (body: Record<string, unknown>) =>
+    post(pressureSettings.PUT, { distanceMi: 1, days: 7, minProperties: 3, ...body }, {}, "PUT");
+
+  it("distance 0.1 and 25 mi, days 1 and 30, properties 2 and 20 are kept; one step past each is refused, naming the field and the unit", async () => {
+    current = await c.actor("manager");
+    for (const ok of [
+      { distanceMi: 0.1 },
+      { distanceMi: 25 },
+      { days: 1 },
+      { days: 30 },
+      { minProperties: 2 },
+      { minProperties: 20 },
+    ])
+      expect((await put(ok)).status, JSON.stringify(ok)).toBe(200);
+    const before = await settings();
+    for (const [body, field, message] of [
+      [{ distanceMi: 0.09 }, "distanceMi", /^Distance: at least 0.1 mi\.$/],
+      [{ distanceMi: 25.01 }, "distanceMi", /^Distance: at most 25 mi\.$/],
+      [{ distanceMi: 0.125 }, "distanceMi", /^Distance: in hundredths of a mile/],
+      [{ distanceMi: "" }, "distanceMi", /^Distance: a number of miles/],
+      [{ days: 0 }, "days", /^Days: at least 1 day\.$/],
+      [{ days: 31 }, "days", /^Days: at most 30 days\.$/],
+      [{ days: 2.5 }, "days", /^Days: a whole number/],
+      [{ minProperties: 1 }, "minProperties", /^Properties: at least 2\.$/],
+      [{ minProperties: 21 }, "minProperties", /^Properties: at most 20\.$/],
+    ] as const) {
+      const answer = await put(body);
+      expect(answer.status, JSON.stringify(body)).toBe(422);
+      expect(answer.fieldErrors[field]?.[0], JSON.stringify(body)).toMatch(message);
+    }
+    expect(await settings()).toEqual(before);
+  });
+
+  it("a technician cannot change them", async () => {
+    current = await c.actor("tech1");
+    expect((await put({ distanceMi: 2 })).status).toBe(403);
   });
 });
