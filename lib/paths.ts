@@ -7,6 +7,9 @@ export const BOOK_PATH = "/book";
 /** The book on a map (the same filters as the book). */
 export const BOOK_MAP_PATH = "/book/map";
 
+/** MapLibre GL's worker script, served from this origin. */
+export const BOOK_MAP_WORKER_PATH = "/book/map/worker";
+
 /** Risk alerts across the viewer's reach. */
 export const RISK_ALERTS_PATH = "/risk-alerts";
 

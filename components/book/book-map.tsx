@@ -11,6 +11,7 @@ import type { Map as MapLibreMap, StyleSpecification } from "maplibre-gl";
 import { useEffect, useRef, useState } from "react";
 
 import type { BookMapDto } from "@/lib/book/dto";
+import { BOOK_MAP_WORKER_PATH } from "@/lib/paths";
 import { alertKindLabel } from "@/lib/risk/labels";
 import { circleRing } from "@/lib/risk/pressure-areas";
 import { BAND_STYLE, INDEX_BANDS, indexBand, type IndexBand } from "@/lib/scoring/bands";
@@ -101,6 +102,8 @@ export function BookMap({
     (async () => {
       const maplibre = await import("maplibre-gl");
       if (cancelled || !container.current) return;
+      // The worker script from this origin (app/(office)/book/map/worker/route.ts).
+      maplibre.setWorkerUrl(BOOK_MAP_WORKER_PATH);
       const points: GeoJSON.FeatureCollection<GeoJSON.Point> = {
         type: "FeatureCollection",
         features: data.points.map(([id, name, lat, lng, index, alerts, kinds, checkSoon]) => {

@@ -9,6 +9,7 @@
 import { randomBytes, randomUUID } from "node:crypto";
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
+import { gzipSync } from "node:zlib";
 import autocannon from "autocannon";
 import { sql } from "kysely";
 
@@ -192,6 +193,28 @@ async function main(): Promise<number> {
         ok,
       );
     }
+    // The book's map: every property at once, and how many bytes it is compressed.
+    console.log("\nBook map API (the whole book)");
+    const mapBody = await fetch(`${BASE}/api/v1/book/map`, {
+      headers: { cookie: manager, "accept-encoding": "gzip" },
+    });
+    const mapJson = (await mapBody.clone().json()) as { points: unknown[] };
+    const mapRaw = Buffer.from(await mapBody.arrayBuffer()).byteLength;
+    const mapGzip = gzipSync(JSON.stringify(mapJson)).byteLength;
+    const map = await cannon("book map", `${BASE}/api/v1/book/map`, manager);
+    json["book map"] = {
+      ...map,
+      points: mapJson.points.length,
+      jsonBytes: mapRaw,
+      gzipBytes: mapGzip,
+    };
+    record(
+      `book map: all ${mapJson.points.length} properties`,
+      `p50 ${ms(map.latency.p50)}, p97.5 ${ms(map.latency.p97_5)}, ${map.requests.average.toFixed(0)} req/s, errors ${map.errors + map.timeouts}, non-2xx ${map.non2xx}; ${(mapRaw / 1000).toFixed(1)} kB JSON, ${(mapGzip / 1000).toFixed(1)} kB gzip`,
+      "p50 < 100 ms, < 200 kB gzip",
+      map.latency.p50 < 100 && mapGzip < 200_000 && map.non2xx === 0,
+    );
+
     const ratio =
       book["book: page 100 (keyset)"]!.latency.p50 / book["book: first page"]!.latency.p50;
     json["page100ToPage1"] = ratio;
@@ -333,6 +356,30 @@ async function main(): Promise<number> {
       `${(sweep.ms / 1000).toFixed(1)} s, peak memory ${sweep.maxRssMb.toFixed(0)} MB`,
       "< 60 s",
       sweep.ms < 60_000,
+    );
+
+    // Pressure areas over a season's alerts (the pure core) and as the pages read them.
+    console.log("\nPressure areas");
+    const pressure = await lastJsonLine<{
+      properties: number;
+      seasonAlerts: number;
+      seasonAreas: number;
+      coreMs: number;
+      liveAreas: number;
+      readMedianMs: number;
+    }>("pressure areas", ["node_modules/.bin/tsx", "tests/bench/pressure-areas.ts"], {
+      DATABASE_URL: benchDatabaseUrl(),
+    });
+    json["pressure areas"] = pressure;
+    record(
+      `pressure areas: a season's alerts (${pressure.seasonAlerts.toLocaleString("en-US")} for ${pressure.properties} properties)`,
+      `${(pressure.coreMs / 1000).toFixed(2)} s, ${pressure.seasonAreas} areas`,
+      "< 2 s",
+      pressure.coreMs < 2000,
+    );
+    record(
+      "pressure areas: the pages' read (live alerts)",
+      `median ${ms(pressure.readMedianMs)}, ${pressure.liveAreas} areas`,
     );
 
     // Compressed JavaScript on a cold load, as Chromium received it.
