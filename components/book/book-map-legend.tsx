@@ -18,8 +18,8 @@ export function BookMapLegend() {
           <li key={band} className="flex items-center gap-2">
             <IndexBandShape band={band} />
             <span>
-              <span className="font-semibold">{BAND_STYLE[band].word}</span> — Sward Index{" "}
-              {BAND_STYLE[band].range}
+              <span className="font-semibold">{BAND_STYLE[band].word}</span> —{" "}
+              {band === "none" ? BAND_STYLE[band].range : `Sward Index ${BAND_STYLE[band].range}`}
             </span>
           </li>
         ))}

@@ -137,60 +137,107 @@ export function stDbscan(
 ): number[] {
   const eps1 = settings.distanceMi;
   const eps2 = settings.days;
-  // Grid: rows one Eps1 of latitude high, columns one Eps1 wide at the data's highest latitude.
+  const n = points.length;
+  // Grid: rows one Eps1 of latitude high, columns one Eps1 wide at the data's highest latitude,
+  // and (with a finite Eps2) slices Eps2 days long; a neighbour lies in the 3 × 3 (× 3) around.
   const epsLatDeg = (eps1 / EARTH_RADIUS_MI) * (180 / Math.PI);
   const maxAbsLat = points.reduce((m, p) => Math.max(m, Math.abs(p.lat)), 0);
   const epsLngDeg = epsLatDeg / Math.max(Math.cos(rad(Math.min(maxAbsLat + epsLatDeg, 89))), 1e-6);
-  const cellOf = (p: { lat: number; lng: number }) =>
-    [Math.floor(p.lat / epsLatDeg), Math.floor(p.lng / epsLngDeg)] as const;
-  const grid = new Map<string, number[]>();
+  const timed = Number.isFinite(eps2) && eps2 > 0;
+  const row = new Int32Array(n);
+  const col = new Int32Array(n);
+  const slice = new Int32Array(n);
+  const latR = new Float64Array(n);
+  const lngR = new Float64Array(n);
+  const cosLat = new Float64Array(n);
+  const day = new Float64Array(n);
+  const property = new Int32Array(n);
+  const propertyIndex = new Map<string, number>();
+  // Cell keys as numbers (rows and columns stay far below 10⁶ for any latitude and Eps1 ≥ 0.1 mi).
+  const cellKey = (r: number, c: number, t: number) => (r * 2_000_003 + c) * 4_096 + t;
+  const grid = new Map<number, number[]>();
   points.forEach((p, i) => {
-    const [r, c] = cellOf(p);
-    const key = `${r}:${c}`;
+    row[i] = Math.floor(p.lat / epsLatDeg);
+    col[i] = Math.floor(p.lng / epsLngDeg);
+    slice[i] = timed ? Math.floor(p.day / eps2) : 0;
+    latR[i] = rad(p.lat);
+    lngR[i] = rad(p.lng);
+    cosLat[i] = Math.cos(latR[i]!);
+    day[i] = p.day;
+    let k = propertyIndex.get(p.propertyId);
+    if (k === undefined) propertyIndex.set(p.propertyId, (k = propertyIndex.size));
+    property[i] = k;
+    const key = cellKey(row[i]!, col[i]!, slice[i]!);
     const cell = grid.get(key);
     if (cell) cell.push(i);
     else grid.set(key, [i]);
   });
+  // The haversine of Eps1: h ≤ sin²(Eps1 / 2R) ⇔ great-circle distance ≤ Eps1 (same formula as
+  // greatCircleMiles, without the square root and arcsine per pair).
+  const hMax = Math.sin(eps1 / EARTH_RADIUS_MI / 2) ** 2;
+  const dt = timed ? [-1, 0, 1] : [0];
 
   /** Def. 1 with ST-DBSCAN's two distances: within Eps1 miles and Eps2 days (the point itself included). */
+  const epsRad = eps1 / EARTH_RADIUS_MI;
   const neighbourhood = (i: number): number[] => {
-    const p = points[i]!;
-    const [r, c] = cellOf(p);
     const out: number[] = [];
+    const di = day[i]!;
+    const li = latR[i]!;
     for (let dr = -1; dr <= 1; dr++)
       for (let dc = -1; dc <= 1; dc++)
-        for (const j of grid.get(`${r + dr}:${c + dc}`) ?? []) {
-          const q = points[j]!;
-          if (Math.abs(q.day - p.day) <= eps2 && greatCircleMiles(p, q) <= eps1) out.push(j);
+        for (const ds of dt) {
+          const cell = grid.get(cellKey(row[i]! + dr, col[i]! + dc, slice[i]! + ds));
+          if (!cell) continue;
+          for (const j of cell) {
+            if (Math.abs(day[j]! - di) > eps2 || Math.abs(latR[j]! - li) > epsRad) continue;
+            const h =
+              Math.sin((latR[j]! - li) / 2) ** 2 +
+              cosLat[i]! * cosLat[j]! * Math.sin((lngR[j]! - lngR[i]!) / 2) ** 2;
+            if (h <= hMax) out.push(j);
+          }
         }
-    return out.sort((a, b) => a - b);
+    return out;
   };
   /** The core point condition (Def. 2), MinPts counted in distinct properties. */
-  const isCore = (n: number[]) =>
-    new Set(n.map((j) => points[j]!.propertyId)).size >= settings.minProperties;
+  const seen = new Int32Array(propertyIndex.size).fill(-1);
+  let stamp = 0;
+  const isCore = (neighbours: number[]) => {
+    if (neighbours.length < settings.minProperties) return false;
+    stamp++;
+    let distinct = 0;
+    for (const j of neighbours)
+      if (seen[property[j]!] !== stamp) {
+        seen[property[j]!] = stamp;
+        if (++distinct >= settings.minProperties) return true;
+      }
+    return false;
+  };
 
-  const labels: (number | undefined)[] = points.map(() => undefined);
+  const UNVISITED = -2;
+  const labels = new Int32Array(n).fill(UNVISITED);
   let cluster = 0;
-  for (let i = 0; i < points.length; i++) {
-    if (labels[i] !== undefined) continue;
+  for (let i = 0; i < n; i++) {
+    if (labels[i] !== UNVISITED) continue;
     const seeds = neighbourhood(i);
     if (!isCore(seeds)) {
       labels[i] = NOISE; // may become a border point of a later cluster
       continue;
     }
     labels[i] = cluster;
-    const queue = [...seeds];
+    const queue: number[] = [];
+    for (const j of seeds) if (labels[j] === UNVISITED || labels[j] === NOISE) queue.push(j);
     for (let k = 0; k < queue.length; k++) {
       const j = queue[k]!;
       if (labels[j] === NOISE) labels[j] = cluster; // border point (Def. 3: reachable, not core)
-      if (labels[j] !== undefined) continue;
+      if (labels[j] !== UNVISITED) continue;
       labels[j] = cluster;
       const more = neighbourhood(j);
-      if (isCore(more)) queue.push(...more);
+      if (isCore(more))
+        for (const m of more) if (labels[m] === UNVISITED || labels[m] === NOISE) queue.push(m);
     }
     cluster++;
   }
-  return labels.map((l) => l ?? NOISE);
+  return Array.from(labels);
 }
 
 /** Pressure areas among the alerts: per kind, the ST-DBSCAN clusters, sorted by latest day (newest first). */

@@ -35,5 +35,5 @@ export const BAND_STYLE: Record<
     shape: "diamond",
   },
   low: { word: "Low", range: `below ${LOW_INDEX}`, color: "#a8321f", shape: "square" },
-  none: { word: "Not rated yet", range: "no Index", color: "#4f5a52", shape: "ring" },
+  none: { word: "Not rated yet", range: "no Index yet", color: "#4f5a52", shape: "ring" },
 };

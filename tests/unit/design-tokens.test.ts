@@ -29,6 +29,13 @@ describe("design tokens", () => {
     ["rain on rain tint (water)", palette.rain.DEFAULT, palette.rain.tint],
     ["ink on sun tint", palette.ink, palette.sun.tint],
     ["ink on rain tint", palette.ink, palette.rain.tint],
+    ["rain on card (check soon in tables)", palette.rain.DEFAULT, palette.card],
+    // The book map's markers on the base map's background (tests/harness/map-tiles-fake.ts,
+    // components/book/book-map.tsx): held to the text ratio though graphics need only 3:1.
+    ["good marker on the map", palette.sward.DEFAULT, "#eef0e6"],
+    ["fair marker on the map", palette.sun.DEFAULT, "#eef0e6"],
+    ["low marker on the map", palette.clay.DEFAULT, "#eef0e6"],
+    ["not-rated marker on the map", palette.muted, "#eef0e6"],
     ["white on clay", "#ffffff", palette.clay.DEFAULT],
     ["white on muted (disabled button)", "#ffffff", palette.muted],
   ];
