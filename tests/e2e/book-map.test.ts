@@ -98,6 +98,7 @@ describe("the book on a map", () => {
 
       // Click the Okafor lawn's point: its popup, then the property.
       const okafor = demoCompany.properties.find((p) => p.key === "okafor")!;
+      await page.locator("[data-book-map]").scrollIntoViewIfNeeded();
       const at = await page.evaluate(
         ([lng, lat]) => {
           const el = document.querySelector("[data-book-map]") as HTMLElement & {
@@ -122,7 +123,7 @@ describe("the book on a map", () => {
       await page.getByRole("heading", { name: okafor.name }).waitFor();
       expect(errors).toEqual([]);
       await context.close();
-    });
+    }, 90_000);
   }
 
   it("lists the demo's pressure area on the Alerts page with its evidence; axe finds nothing serious on the new pages", async () => {
@@ -148,7 +149,7 @@ describe("the book on a map", () => {
     violations.push(...(await seriousViolations(page, "settings")));
     expect(violations).toEqual([]);
     await context.close();
-  });
+  }, 120_000);
 
   it("a technician sees no pressure areas on Alerts and cannot open the map", async () => {
     const context = await browser.newContext({ viewport: PHONE, baseURL: baseUrl });

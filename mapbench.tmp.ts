@@ -1,0 +1,13 @@
+import { gzipSync } from "node:zlib";
+import autocannon from "autocannon";
+import { passwordSignIn } from "./tests/helpers/password-sign-in";
+const BASE = "http://localhost:3816";
+const s = await passwordSignIn(BASE, "manager@bench.sward.test", "meadow-demo-2026");
+const cookie = s.cookie;
+for (let i = 0; i < 10; i++) await fetch(`${BASE}/api/v1/book/map`, { headers: { cookie } });
+const res = await fetch(`${BASE}/api/v1/book/map`, { headers: { cookie } });
+const text = await res.text();
+const body = JSON.parse(text);
+console.log("points", body.points.length, "json bytes", text.length, "gzip bytes", gzipSync(text).byteLength);
+const r: any = await autocannon({ url: `${BASE}/api/v1/book/map`, connections: 10, duration: 10, headers: { cookie } });
+console.log(JSON.stringify({ p50: r.latency.p50, p90: r.latency.p90, p97_5: r.latency.p97_5, p99: r.latency.p99, rps: r.requests.average, errors: r.errors, non2xx: r.non2xx }));
