@@ -34,7 +34,7 @@ export function PressureAreaList({ view }: { view: PressureAreasView }) {
         {miles(settings.distanceMi)} of each other and {settings.days}{" "}
         {settings.days === 1 ? "day" : "days"} of each other, raised since {formatDate(view.since)}.
         Change these on the{" "}
-        <Link href="/settings#pressure-settings" className="font-semibold text-sward">
+        <Link href="/settings#pressure-settings" className="font-semibold text-sward underline">
           settings page
         </Link>
         .
@@ -88,7 +88,7 @@ export function PressureAreaList({ view }: { view: PressureAreasView }) {
                     {nearby.map((p, i) => (
                       <span key={p.id}>
                         {i ? ", " : ""}
-                        <Link href={`/properties/${p.id}`} className="text-sward">
+                        <Link href={`/properties/${p.id}`} className="text-sward underline">
                           {p.name}
                         </Link>
                         {p.checkSoon ? " (check soon)" : ""}

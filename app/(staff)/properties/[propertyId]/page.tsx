@@ -133,7 +133,10 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
             This property lies in a {checkSoon.kindLabel.toLowerCase()} pressure area (alerts from{" "}
             {formatDate(checkSoon.firstOn)} to {formatDate(checkSoon.latestOn)}) and has had no
             visit in the last {checkSoon.days} days.{" "}
-            <Link href={`${RISK_ALERTS_PATH}#pressure-areas`} className="font-semibold text-sward">
+            <Link
+              href={`${RISK_ALERTS_PATH}#pressure-areas`}
+              className="font-semibold text-sward underline"
+            >
               See the area
             </Link>
           </p>
