@@ -3,7 +3,7 @@
 // with SIGKILL (its watchdog), and a step that fails.
 // The demo runs for real under `npm run` — its own PostgreSQL cluster (port SWARD_PG_PORT + 20,
 // its own data folder), migrate, seed, the production server, the worker and the fake weather, SMTP
-// and geocoder services on SWARD_E2E_PORT + 5…8 — and skips only the build, which the e2e setup made.
+// geocoder and map services on SWARD_E2E_PORT + 5…8 and + 12 — and skips only the build, which the e2e setup made.
 // While it runs, every process under npm and the postmaster are recorded; afterwards none may be
 // alive (process.kill(pid, 0); a zombie counts as ended) and no port may accept a connection.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
@@ -21,6 +21,7 @@ const PORTS = {
   weather: WEB_PORT + 1,
   smtp: WEB_PORT + 2,
   geocoder: WEB_PORT + 3,
+  mapTiles: WEB_PORT + 7,
   postgres: PG_PORT,
 };
 const ARTIFACTS = path.resolve("tests/.artifacts/harness-demo");
@@ -35,6 +36,7 @@ function demoEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
     SWARD_WEATHER_PORT: String(PORTS.weather),
     SWARD_SMTP_PORT: String(PORTS.smtp),
     SWARD_GEOCODER_PORT: String(PORTS.geocoder),
+    SWARD_MAP_TILES_PORT: String(PORTS.mapTiles),
     MAIL_INBOX_DIR: path.join(ARTIFACTS, "mail"),
     PHOTO_DIR: path.join(ARTIFACTS, "photos"),
     DATABASE_URL: cluster.url("sward"),

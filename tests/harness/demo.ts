@@ -106,7 +106,7 @@ await sup.main(async () => {
     });
 
   // The local fake map service (a plain MapLibre style with county and state outlines).
-  const MAP_TILES_PORT = Number(process.env.SWARD_MAP_TILES_PORT ?? 3997);
+  const MAP_TILES_PORT = Number(process.env.SWARD_MAP_TILES_PORT ?? 3996);
   const MAP_TILES_ORIGIN = `http://127.0.0.1:${MAP_TILES_PORT}`;
   const MAP_STYLE_URL =
     process.env.MAP_STYLE_URL ?? `${MAP_TILES_ORIGIN}${FAKE_STYLE_PATH}?key={key}`;

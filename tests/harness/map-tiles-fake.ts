@@ -94,7 +94,7 @@ function startFakeMapTiles(port: number): Promise<http.Server> {
 }
 
 if (process.argv[1]?.endsWith("map-tiles-fake.ts")) {
-  const port = Number(process.argv[2] ?? 3997);
+  const port = Number(process.argv[2] ?? 3996);
   await startFakeMapTiles(port);
   console.log(`map tiles fake listening on http://127.0.0.1:${port}`);
 }

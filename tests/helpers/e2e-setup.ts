@@ -61,8 +61,9 @@ async function start(
   sup.start("geocoder fake", TSX, ["tests/harness/geocoder-fake.ts", String(geocoderPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
-  // The fake map service: SWARD_MAP_TILES_PORT, or E2E + 5.
-  const mapTilesPort = Number(process.env.SWARD_MAP_TILES_PORT ?? PORT + 5);
+  // The fake map service: SWARD_MAP_TILES_PORT, or E2E + 11 (+5…+9 are the demo that the
+  // harness-cleanup test runs, +10 the routing fake, +12 the demo's own map service).
+  const mapTilesPort = Number(process.env.SWARD_MAP_TILES_PORT ?? PORT + 11);
   sup.start("map tiles fake", TSX, ["tests/harness/map-tiles-fake.ts", String(mapTilesPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
