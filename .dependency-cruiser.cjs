@@ -28,6 +28,7 @@ const PURE = [
   "^lib/weather/derived\\.ts$",
   "^lib/reports/(care-notes|words)\\.ts$",
   "^lib/i18n/(locales|translate|messages/[^/]+)\\.ts$",
+  "^lib/routing/[^/]+\\.ts$",
 ];
 /** What a pure core may import besides packages: other pure cores and pure data. */
 const PURE_MAY_IMPORT = [
