@@ -59,6 +59,14 @@ const serviceFields = {
   MAP_STYLE_URL: z.url().optional(),
   /** The map service's key; it reaches the browser in the style URL, so restrict it to the app's origin at the service. */
   MAP_API_KEY: z.string().optional(),
+  /**
+   * Origin of a routing service that speaks the open-source OSRM engine's Table API (self-hosted
+   * or hosted); the demo and tests start a local fake that speaks the same API. Unset: the day's
+   * route uses the great-circle estimate, shown as "estimated".
+   */
+  ROUTING_BASE_URL: z.url().optional(),
+  /** A hosted routing service's key, sent as a bearer token; a self-hosted engine needs none. */
+  ROUTING_API_KEY: z.string().optional(),
 };
 
 const needsBucket = {

@@ -1,5 +1,5 @@
-// The service clients — mail (nodemailer over SMTP), the weather provider, the address geocoder
-// and photo storage — built in one place from the validated configuration of lib/env.ts. Route handlers, mutations,
+// The service clients — mail (nodemailer over SMTP), the weather provider, the address geocoder,
+// the routing service and photo storage — built in one place from the validated configuration of lib/env.ts. Route handlers, mutations,
 // the worker (jobs/worker.ts) and the demo seed all take them from services(); a test swaps any
 // of them for a fake with useServices(). No "server-only" here: the worker and scripts run it too.
 import path from "node:path";
@@ -8,6 +8,7 @@ import { serviceEnv, type ServiceEnv } from "@/lib/env";
 
 import { censusGeocoder, type Geocoder } from "./geocoder/client";
 import { smtpMailer, type Mailer } from "./mail";
+import { osrmRouting, type RoutingService } from "./routing/client";
 import { localDiskStorage, s3Storage, type PhotoStorage } from "./storage";
 import { openMeteoProvider, type WeatherProvider } from "./weather/provider";
 
@@ -20,6 +21,8 @@ export interface Services {
   quickWeather: WeatherProvider | null;
   /** The Census Bureau's geocoder (one try, 5 s: a manager is waiting); null without GEOCODER_BASE_URL. */
   geocoder: Geocoder | null;
+  /** OSRM's Table API (one try, 2.5 s: a technician is waiting); null without ROUTING_BASE_URL. */
+  routing: RoutingService | null;
   /** PHOTO_STORAGE=local (files under PHOTO_DIR) or s3. */
   photoStorage: PhotoStorage;
 }
@@ -39,6 +42,9 @@ export function createServices(env: ServiceEnv): Services {
     weather: weather({}),
     quickWeather: weather({ timeoutMs: 1500, retries: 0 }),
     geocoder: env.GEOCODER_BASE_URL ? censusGeocoder({ baseUrl: env.GEOCODER_BASE_URL }) : null,
+    routing: env.ROUTING_BASE_URL
+      ? osrmRouting({ baseUrl: env.ROUTING_BASE_URL, apiKey: env.ROUTING_API_KEY })
+      : null,
     photoStorage:
       env.PHOTO_STORAGE === "s3"
         ? s3Storage({

@@ -2,8 +2,8 @@
 // Ctrl-C (SIGINT to the terminal's process group), npm killed with SIGKILL, the demo itself killed
 // with SIGKILL (its watchdog), and a step that fails.
 // The demo runs for real under `npm run` — its own PostgreSQL cluster (port SWARD_PG_PORT + 20,
-// its own data folder), migrate, seed, the production server, the worker and the fake weather, SMTP
-// geocoder and map services on SWARD_E2E_PORT + 5…8 and + 12 — and skips only the build, which the e2e setup made.
+// its own data folder), migrate, seed, the production server, the worker and the fake weather, SMTP,
+// geocoder, routing and map services on SWARD_E2E_PORT + 5…9 and + 12 — and skips only the build, which the e2e setup made.
 // While it runs, every process under npm and the postmaster are recorded; afterwards none may be
 // alive (process.kill(pid, 0); a zombie counts as ended) and no port may accept a connection.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
@@ -21,6 +21,7 @@ const PORTS = {
   weather: WEB_PORT + 1,
   smtp: WEB_PORT + 2,
   geocoder: WEB_PORT + 3,
+  routing: WEB_PORT + 4,
   mapTiles: WEB_PORT + 7,
   postgres: PG_PORT,
 };
@@ -36,6 +37,7 @@ function demoEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
     SWARD_WEATHER_PORT: String(PORTS.weather),
     SWARD_SMTP_PORT: String(PORTS.smtp),
     SWARD_GEOCODER_PORT: String(PORTS.geocoder),
+    SWARD_ROUTING_PORT: String(PORTS.routing),
     SWARD_MAP_TILES_PORT: String(PORTS.mapTiles),
     MAIL_INBOX_DIR: path.join(ARTIFACTS, "mail"),
     PHOTO_DIR: path.join(ARTIFACTS, "photos"),

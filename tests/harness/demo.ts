@@ -1,10 +1,10 @@
 // `npm run demo`: PostgreSQL on loopback, migrate, seed the invented scenario, build (unless the
 // build is up to date), and serve at http://localhost:3000 (listening on 127.0.0.1 only) with the
-// worker and the fake weather, geocoder, map tiles and SMTP services. Ctrl-C, SIGTERM (to this process or to npm), a
+// worker and the fake weather, geocoder, routing, map tiles and SMTP services. Ctrl-C, SIGTERM (to this process or to npm), a
 // failed step or the end of npm stop everything it started (tests/harness/supervisor.ts).
 // Environment: PORT, SWARD_PG_PORT / SWARD_PG_DATA, SWARD_WEATHER_PORT, SWARD_GEOCODER_PORT,
-// SWARD_MAP_TILES_PORT, SWARD_SMTP_PORT, MAIL_INBOX_DIR, DATABASE_URL, AUTH_SECRET, WEATHER_BASE_URL,
-// GEOCODER_BASE_URL, MAP_STYLE_URL / MAP_API_KEY, SMTP_URL.
+// SWARD_ROUTING_PORT, SWARD_MAP_TILES_PORT, SWARD_SMTP_PORT, MAIL_INBOX_DIR, DATABASE_URL, AUTH_SECRET,
+// WEATHER_BASE_URL, GEOCODER_BASE_URL, ROUTING_BASE_URL, MAP_STYLE_URL / MAP_API_KEY, SMTP_URL.
 import { randomBytes } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import net from "node:net";
@@ -105,6 +105,14 @@ await sup.main(async () => {
       stdio: ["ignore", "ignore", "inherit"],
     });
 
+  // The local fake routing service (OSRM's Table API: great-circle distance × the US road factor).
+  const ROUTING_PORT = Number(process.env.SWARD_ROUTING_PORT ?? 3997);
+  const ROUTING_BASE_URL = process.env.ROUTING_BASE_URL ?? `http://127.0.0.1:${ROUTING_PORT}`;
+  if (!process.env.ROUTING_BASE_URL)
+    sup.start("routing fake", TSX, ["tests/harness/routing-fake.ts", String(ROUTING_PORT)], {
+      stdio: ["ignore", "ignore", "inherit"],
+    });
+
   // The local fake map service (a plain MapLibre style with county and state outlines).
   const MAP_TILES_PORT = Number(process.env.SWARD_MAP_TILES_PORT ?? 3996);
   const MAP_TILES_ORIGIN = `http://127.0.0.1:${MAP_TILES_PORT}`;
@@ -152,6 +160,8 @@ await sup.main(async () => {
         GEOCODER_BASE_URL,
         MAP_STYLE_URL,
         MAP_API_KEY,
+        ROUTING_BASE_URL,
+        ROUTING_API_KEY: process.env.ROUTING_API_KEY,
         SMTP_URL,
         MAIL_INBOX_DIR,
       },
@@ -181,6 +191,7 @@ await sup.main(async () => {
       process.env.WEATHER_BASE_URL ? null : waitForUrl(`${WEATHER_BASE_URL}/health`, 60_000),
       process.env.GEOCODER_BASE_URL ? null : waitForUrl(`${GEOCODER_BASE_URL}/health`, 60_000),
       process.env.MAP_STYLE_URL ? null : waitForUrl(`${MAP_TILES_ORIGIN}/health`, 60_000),
+      process.env.ROUTING_BASE_URL ? null : waitForUrl(`${ROUTING_BASE_URL}/health`, 60_000),
       MAIL_INBOX_DIR ? waitForPort(SMTP_PORT, 60_000) : null,
     ]),
     serverEnded,

@@ -1,5 +1,5 @@
 // E2E suite: a fresh, seeded database (sward_e2e) and the production build served by `next start`
-// on 127.0.0.1, with the local fake weather, geocoder and SMTP services beside it. Builds first when no build
+// on 127.0.0.1, with the local fake weather, geocoder, routing and SMTP services beside it. Builds first when no build
 // exists or a source changed. Stops what it started afterwards, PostgreSQL too when it was not
 // running; the watchdog of tests/harness/supervisor.ts does so if vitest ends without a teardown.
 import { closeSync, openSync, rmSync } from "node:fs";
@@ -67,8 +67,15 @@ async function start(
   sup.start("map tiles fake", TSX, ["tests/harness/map-tiles-fake.ts", String(mapTilesPort)], {
     stdio: ["ignore", "ignore", "inherit"],
   });
+  // The fake routing service (OSRM's Table API): SWARD_ROUTING_PORT, or E2E + 10 (+5…+9 are the
+  // demo that e2e/harness-cleanup.test.ts runs beside this server).
+  const routingPort = Number(process.env.SWARD_ROUTING_PORT ?? PORT + 10);
+  sup.start("routing fake", TSX, ["tests/harness/routing-fake.ts", String(routingPort)], {
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   await waitForUrl(`http://127.0.0.1:${weatherPort}/health`, 20_000);
   await waitForUrl(`http://127.0.0.1:${mapTilesPort}/health`, 20_000);
+  await waitForUrl(`http://127.0.0.1:${routingPort}/health`, 20_000);
   await waitForUrl(`http://127.0.0.1:${geocoderPort}/health`, 20_000);
   rmSync(MAIL_DIR, { recursive: true, force: true });
   const smtp = await startSmtpFake(0, MAIL_DIR);
@@ -101,6 +108,7 @@ async function start(
         GEOCODER_BASE_URL: `http://127.0.0.1:${geocoderPort}`,
         MAP_STYLE_URL: `http://127.0.0.1:${mapTilesPort}${FAKE_STYLE_PATH}?key={key}`,
         MAP_API_KEY: E2E_MAP_API_KEY,
+        ROUTING_BASE_URL: `http://127.0.0.1:${routingPort}`,
         SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
         MAIL_INBOX_DIR: MAIL_DIR,
       },
