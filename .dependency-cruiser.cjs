@@ -29,6 +29,7 @@ const PURE = [
   "^lib/reports/(care-notes|words)\\.ts$",
   "^lib/i18n/(locales|translate|messages/[^/]+)\\.ts$",
   "^lib/routing/[^/]+\\.ts$",
+  "^lib/day-route/(plan|dto|links)\\.ts$",
 ];
 /** What a pure core may import besides packages: other pure cores and pure data. */
 const PURE_MAY_IMPORT = [

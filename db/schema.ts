@@ -51,6 +51,10 @@ interface CompaniesTable {
   pressure_days: Generated<number>;
   pressure_min_properties: Generated<number>;
   created_at: Generated<Date>;
+  /** Where a day's route starts and ends (the technician's own start point takes its place). */
+  yard_address: Generated<string>;
+  yard_latitude: number | null;
+  yard_longitude: number | null;
 }
 
 type PhosphorusRule = "allowed" | "soil_test_or_establishment";
@@ -183,6 +187,10 @@ interface MembershipsTable {
   created_at: Generated<Date>;
   /** Stops a day the technician can do (the week's capacity bar). */
   daily_stop_capacity: Generated<number>;
+  /** The technician's own start point of a day's route (home, a second yard); null: the company's yard. */
+  start_label: Generated<string>;
+  start_latitude: number | null;
+  start_longitude: number | null;
 }
 
 /** OAuth/e-mail provider accounts, as Auth.js models them. */
@@ -269,6 +277,10 @@ interface PropertiesTable {
   technician_id: string | null;
   rule_set_id: string | null;
   notes: Generated<string>;
+  /** E.164, e.g. +16095550142 (lib/reference/us-phone.ts). */
+  customer_phone: string | null;
+  /** Gate code, dog in the yard: shown on the technician's stop. */
+  access_notes: Generated<string>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
@@ -381,7 +393,8 @@ export interface AuditEventsTable {
     | "photo"
     | "watering"
     | "person"
-    | "soil_test";
+    | "soil_test"
+    | "company";
   entity_id: string;
   action: string;
   changes: ColumnType<Record<string, { from: unknown; to: unknown }>, string, string>;

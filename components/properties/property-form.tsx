@@ -12,8 +12,9 @@ import { applyFieldErrors, Field, inputClass, nullIfEmpty } from "@/components/u
 import { formResolver } from "@/components/ui/form-resolver";
 import type { PersonDto } from "@/lib/people/dto";
 import type { AddressMatchDto, GeocodeResult, PropertyDetailDto } from "@/lib/properties/dto";
-import { propertySchema } from "@/lib/properties/schemas";
+import { ACCESS_NOTES_MAX, propertySchema } from "@/lib/properties/schemas";
 import { fetchJson, HttpError, sendJson } from "@/lib/query-client";
+import { formatUsPhone } from "@/lib/reference/us-phone";
 import { findUsState, US_STATES, zipStateWarning } from "@/lib/reference/us-states";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 import { proposeRuleSet } from "@/lib/rule-sets/propose";
@@ -65,12 +66,16 @@ export function PropertyForm({
           ruleSetId: property.ruleSet?.id ?? null,
           technicianId: property.technician?.id ?? null,
           notes: property.notes,
+          customerPhone: property.customerPhone ? formatUsPhone(property.customerPhone) : "",
+          accessNotes: property.accessNotes,
         }
       : {
           timeZone: "America/New_York",
           ruleSetId: ruleSets[0]?.id ?? null,
           technicianId: null,
           notes: "",
+          customerPhone: "",
+          accessNotes: "",
         },
   });
 
@@ -386,6 +391,36 @@ export function PropertyForm({
             </option>
           ))}
         </select>
+      </Field>
+      <Field
+        id="customerPhone"
+        label="Customer phone (for the technician's Call button)"
+        error={err("customerPhone")}
+      >
+        <input
+          id="customerPhone"
+          type="tel"
+          autoComplete="off"
+          inputMode="tel"
+          placeholder="(609) 555-0142"
+          {...register("customerPhone")}
+          {...aria("customerPhone")}
+          className={inputClass}
+        />
+      </Field>
+      <Field
+        id="accessNotes"
+        label="Access notes (shown on the technician's stop: gate code, dog in the yard)"
+        error={err("accessNotes")}
+      >
+        <textarea
+          id="accessNotes"
+          rows={2}
+          maxLength={ACCESS_NOTES_MAX}
+          {...register("accessNotes")}
+          {...aria("accessNotes")}
+          className={inputClass}
+        />
       </Field>
       <Field id="notes" label="Office notes (not shown to the homeowner)" error={err("notes")}>
         <textarea id="notes" rows={3} {...register("notes")} className={inputClass} />

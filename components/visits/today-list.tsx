@@ -5,6 +5,7 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
 
+import { StopRouteTools } from "@/components/day-route/stop-route-tools";
 import { formatDate } from "@/lib/dates";
 import { fetchJson } from "@/lib/query-client";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
@@ -91,6 +92,7 @@ export function TodayList({ date, timeZone }: { date: string; timeZone: string }
                 <ChevronRight className="mt-2 size-6 shrink-0 text-muted" aria-hidden="true" />
               </div>
             </Link>
+            <StopRouteTools stop={stop} date={date} order={data.map((s) => s.id)} />
             {stop.outcome ? (
               <StopOutcome
                 visit={stop}

@@ -32,6 +32,10 @@ export interface PropertyDetailDto extends PropertySummaryDto {
   homeowners: { id: string; name: string; email: string }[];
   /** Office notes; staff only, empty for a homeowner. */
   notes: string;
+  /** E.164 (+16095550142); staff only, null for a homeowner. */
+  customerPhone: string | null;
+  /** Gate code, dog in the yard; staff only, empty for a homeowner. */
+  accessNotes: string;
 }
 
 export const SUN_EXPOSURE_LABEL: Record<SunExposure, string> = en.terms.sunExposure;

@@ -11,6 +11,7 @@ import { afterWrite } from "@/lib/after-write";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { AppError, notFound } from "@/lib/http/app-error";
+import { usPhoneE164 } from "@/lib/reference/us-phone";
 
 import type { PropertyDetailDto, ZoneDto } from "./dto";
 import { toZoneDto, ZONE_COLUMNS } from "./map";
@@ -64,6 +65,8 @@ function propertyColumns(input: PropertyInput) {
     rule_set_id: input.ruleSetId,
     technician_id: input.technicianId,
     notes: input.notes,
+    customer_phone: input.customerPhone ? usPhoneE164(input.customerPhone) : null,
+    access_notes: input.accessNotes,
   };
 }
 

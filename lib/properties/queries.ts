@@ -35,6 +35,8 @@ function selectSummary<O>(query: PropertyQuery<O>) {
       "rule_sets.name as rule_set_name",
       "properties.archived_at",
       "properties.notes",
+      "properties.customer_phone",
+      "properties.access_notes",
       eb
         .selectFrom("zones")
         .select((z) => z.fn.countAll<number>().as("n"))
@@ -127,5 +129,7 @@ export async function getProperty(actor: Actor, propertyId: string): Promise<Pro
     zones: zones.map(toZoneDto),
     homeowners,
     notes: actor.role === "homeowner" ? "" : row.notes,
+    customerPhone: actor.role === "homeowner" ? null : row.customer_phone,
+    accessNotes: actor.role === "homeowner" ? "" : row.access_notes,
   };
 }

@@ -4,7 +4,11 @@ import { z } from "zod/mini";
 
 import { isValidTimeZone } from "@/lib/dates";
 import { grassSpeciesKeys } from "@/lib/reference/grass-species";
+import { usPhoneE164 } from "@/lib/reference/us-phone";
 import { findUsState, ZIP_PATTERN } from "@/lib/reference/us-states";
+
+/** The bound of a property's access notes (also a database check). */
+export const ACCESS_NOTES_MAX = 500;
 
 export const propertyIdParams = z.object({ propertyId: z.uuid() });
 export const zoneIdParams = z.object({ zoneId: z.uuid() });
@@ -58,6 +62,28 @@ export const propertySchema = z.strictObject({
   technicianId: z.nullable(z.uuid("Choose a technician.")),
   notes: z._default(
     z.string().check(z.trim(), z.maxLength(4000, "Keep notes under 4,000 characters.")),
+    "",
+  ),
+  /** Empty, or a US number (lib/reference/us-phone.ts); stored in E.164 form. */
+  customerPhone: z._default(
+    z.string().check(
+      z.trim(),
+      z.maxLength(30, "Customer phone: a US number of 10 digits, e.g. (609) 555-0142."),
+      z.refine(
+        (v) => v === "" || usPhoneE164(v) !== null,
+        "Customer phone: a US number of 10 digits, e.g. (609) 555-0142.",
+      ),
+    ),
+    "",
+  ),
+  /** Shown on the technician's stop: gate code, dog in the yard. */
+  accessNotes: z._default(
+    z
+      .string()
+      .check(
+        z.trim(),
+        z.maxLength(ACCESS_NOTES_MAX, `Access notes: at most ${ACCESS_NOTES_MAX} characters.`),
+      ),
     "",
   ),
 });

@@ -185,7 +185,11 @@ export function auditWords(
                   })
                 : action === "move" || action === "rain_delay"
                   ? t(action === "move" ? "visitMoved" : "visitRainDelayed", { changes: changed() })
-                  : `${t("visitChanged")}${changeWords(changes, opts) ? `: ${changeWords(changes, opts)}` : ""}`;
+                  : action === "reorder" || action === "driving_order"
+                    ? t(action === "reorder" ? "visitReordered" : "visitRouted", {
+                        changes: changed(),
+                      })
+                    : `${t("visitChanged")}${changeWords(changes, opts) ? `: ${changeWords(changes, opts)}` : ""}`;
       break;
     case "zone_check":
       what = kind === "add" ? t("checkAdded") : kind === "delete" ? t("checkRemoved") : changed();

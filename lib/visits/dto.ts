@@ -107,6 +107,12 @@ export interface VisitDetailDto extends VisitSummaryDto {
 export interface TodayStopDto extends VisitSummaryDto {
   lastVisitOn: string | null;
   concerns: string[];
+  /** For the Directions link (lib/day-route/links.ts). */
+  location: { latitude: number; longitude: number };
+  /** E.164, for the Call link; null when the property has none. */
+  customerPhone: string | null;
+  /** Gate code, dog in the yard. */
+  accessNotes: string;
 }
 
 export interface ZoneHistoryEntryDto {

@@ -51,6 +51,10 @@ function visitSummaries() {
       "properties.city",
       "properties.time_zone",
       "properties.rule_set_id",
+      "properties.latitude",
+      "properties.longitude",
+      "properties.customer_phone",
+      "properties.access_notes",
       "visits.scheduled_for",
       "visits.stop_order",
       "visits.planned_service",
@@ -348,7 +352,14 @@ export async function listTodayStops(
           .filter((c) => c.visit_id === last.id)
           .flatMap((c) => concernsOf(c.zone_name, valuesOf(c)))
       : [];
-    return { ...toVisitSummaryDto(r), lastVisitOn: last?.scheduled_for ?? null, concerns };
+    return {
+      ...toVisitSummaryDto(r),
+      lastVisitOn: last?.scheduled_for ?? null,
+      concerns,
+      location: { latitude: r.latitude, longitude: r.longitude },
+      customerPhone: r.customer_phone,
+      accessNotes: r.access_notes,
+    };
   });
   return withNextFreeDays(actor, stops);
 }

@@ -115,6 +115,8 @@ describe("the book", () => {
       ruleSetId: null,
       technicianId: null,
       notes: "",
+      customerPhone: "",
+      accessNotes: "",
     });
     expect((await listBook(manager, q())).total).toBe(before + 1);
     for (const text of ["QUILLFEATHER", "brackenridge", "08599"]) {

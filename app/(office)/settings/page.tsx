@@ -4,6 +4,7 @@ import { getMessages, getTranslations } from "next-intl/server";
 
 import { CompanySettingsForm } from "@/components/settings/company-settings-form";
 import { PressureSettingsForm } from "@/components/settings/pressure-settings-form";
+import { YardForm } from "@/components/settings/yard-form";
 import { requireActor } from "@/lib/auth/require";
 import { getCompanySettings } from "@/lib/company-settings/queries";
 import { LOCALES } from "@/lib/i18n/locales";
@@ -33,6 +34,7 @@ export default async function SettingsPage() {
           timeZones={timeZoneChoices()}
         />
         <PressureSettingsForm settings={pressure} />
+        <YardForm yard={settings.yard} />
       </NextIntlClientProvider>
     </>
   );

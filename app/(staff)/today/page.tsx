@@ -3,6 +3,7 @@ import { ChevronLeft, ChevronRight } from "lucide-react";
 import type { Metadata } from "next";
 import Link from "next/link";
 
+import { DayRouteSummary } from "@/components/day-route/day-route-summary";
 import { LicenseNotice } from "@/components/people/license-notice";
 import { OfflineReady } from "@/components/pwa/offline-ready";
 import { buttonClass } from "@/components/ui/button";
@@ -60,6 +61,7 @@ export default async function TodayPage({
       {/* Rendered with the page, not streamed: the field app's first screen must show its stops
           without waiting on a client-side reveal (a streamed boundary stayed hidden under the
           seasons suite's shifted clocks). */}
+      <DayRouteSummary date={date} />
       <Stops actor={actor} date={date} />
     </>
   );

@@ -198,6 +198,19 @@ export const en = {
       "An area needs at least this many properties with the alert: 2 to 20.",
     pressureSave: "Save pressure-area settings",
     pressureSaved: "Saved. The Alerts page, the map and the book use these now.",
+    yard: {
+      title: "The yard",
+      intro:
+        "Each technician's day on Today starts here and ends back here, unless the technician has a start point of their own. Without a yard, routes run from the first stop to the last.",
+      address: "Yard address (as people should read it)",
+      latitude: "Latitude",
+      longitude: "Longitude",
+      locationHint:
+        "Decimal degrees, e.g. 40.3342 and -74.7391. Leave both empty to clear the yard.",
+      save: "Save the yard",
+      saved: "Saved. Today's routes start and end at the yard.",
+      cleared: "Saved. No yard is set: routes run from the first stop to the last.",
+    },
   },
   lawn: {
     improving: "Your lawn is getting healthier.",
@@ -299,6 +312,8 @@ export const en = {
     visitChanged: "Visit changed",
     visitMoved: "Stop moved on the schedule: {changes}",
     visitRainDelayed: "Stop moved by a rain delay: {changes}",
+    visitReordered: "Stop order changed by hand: {changes}",
+    visitRouted: "Stop put in driving order: {changes}",
     checkAdded: "zone check",
     checkRemoved: "zone check",
     checkUnchanged: "zone check saved again, nothing changed",
