@@ -6,7 +6,7 @@ export interface RouteLegDto {
   seconds: number;
 }
 
-export interface RouteStopDto {
+interface RouteStopDto {
   visitId: string;
   propertyName: string;
   /** The drive to this stop from the start (or the previous stop); null for the first stop of an open route. */

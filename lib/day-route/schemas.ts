@@ -15,7 +15,6 @@ export const dayRouteQuery = z.strictObject({
   /** Managers: whose day. Technicians: their own, always. */
   technicianId: z.optional(z.uuid("Technician: choose one of your technicians.")),
 });
-export type DayRouteQuery = z.infer<typeof dayRouteQuery>;
 
 /** "Put in driving order": the stops not yet started, in the computed order. */
 export const drivingOrderSchema = z.strictObject({

@@ -114,7 +114,7 @@ function orOptMove(problem: RouteProblem, order: number[], current: number): num
 }
 
 /** Improves `order` by 2-opt and Or-opt moves until neither shortens it. */
-export function improveRoute(problem: RouteProblem, order: readonly number[]): PlannedRoute {
+function improveRoute(problem: RouteProblem, order: readonly number[]): PlannedRoute {
   let best = [...order];
   let cost = pathCost(problem, best);
   for (;;) {

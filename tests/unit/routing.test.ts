@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 
 import {
   ASSUMED_SPEED_M_PER_S,
+  EARTH_MEAN_RADIUS_M,
   estimatedMatrix,
   haversineMeters,
   METERS_PER_MILE,
@@ -38,9 +39,13 @@ describe("great-circle distance (haversine)", () => {
     expect(Math.round((radians * 180 * 60) / Math.PI)).toBe(2144);
   });
 
+  it("uses the GRS 80 mean radius R1 = 6,371,008.8 m (Moritz 1980)", () => {
+    expect(EARTH_MEAN_RADIUS_M).toBe(6_371_008.8);
+  });
+
   it("one degree of latitude along a meridian is 111.195 km on the mean sphere (2πR/360)", () => {
     const d = haversineMeters({ latitude: 40, longitude: -75 }, { latitude: 41, longitude: -75 });
-    expect(d).toBeCloseTo((2 * Math.PI * 6_371_008.8) / 360, 3);
+    expect(d).toBeCloseTo((2 * Math.PI * EARTH_MEAN_RADIUS_M) / 360, 3);
   });
 
   it("is zero for one point, symmetric, and half the circumference for antipodes", () => {
@@ -50,7 +55,7 @@ describe("great-circle distance (haversine)", () => {
     expect(haversineMeters(a, b)).toBeCloseTo(haversineMeters(b, a), 9);
     expect(
       haversineMeters({ latitude: 0, longitude: 0 }, { latitude: 0, longitude: 180 }),
-    ).toBeCloseTo(Math.PI * 6_371_008.8, 3);
+    ).toBeCloseTo(Math.PI * EARTH_MEAN_RADIUS_M, 3);
   });
 
   it("the estimate: great-circle × 1.2 (Ballou, Rahardja & Sakai 2002, US) at 30 mph (our assumption)", () => {

@@ -7,7 +7,7 @@ import { estimatedMatrix, type LatLng, type TravelMatrix } from "@/lib/routing/g
 
 import { matrixFromTable, osrmErrorSchema, osrmTableSchema, tableRequestPath } from "./contract";
 
-export class RoutingUnavailable extends Error {
+class RoutingUnavailable extends Error {
   constructor(message: string) {
     super(message);
     this.name = "RoutingUnavailable";
