@@ -5,13 +5,15 @@
 // a manager confirms: a second visit on a day, a feeding round inside the rule set's
 // no-fertilizer window (with the next allowed day). The zone check: the probe reading (0–100 %),
 // height of cut and height before mowing (lib/visits/zone-check-bounds.ts states the ranges'
-// sources), notes up to 4,000 characters.
+// sources), notes up to 4,000 characters. The day's route: a property's customer phone (a US
+// number) and access notes (500 characters), the yard's coordinates, the length of a day's order.
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 
 import { inNoFertilizerWindow } from "@/lib/agronomy/rules";
 import type { Actor } from "@/lib/auth/actor";
 import { addDays, todayIn } from "@/lib/dates";
+import { DAY_ORDER_MAX_STOPS } from "@/lib/day-route/schemas";
 import { SHIPPED_RULE_SETS } from "@/lib/reference/rule-sets";
 import { SOIL_TEST_BACK_DAYS } from "@/lib/soil-tests/schemas";
 import { startVisit } from "@/lib/visits/mutations";
@@ -30,6 +32,9 @@ const soilTests = await import("@/app/api/v1/properties/[propertyId]/soil-tests/
 const records = await import("@/app/api/v1/records/applications/route");
 const zoneChecks = await import("@/app/api/v1/visits/[visitId]/zone-checks/[zoneCheckId]/route");
 const pressureSettings = await import("@/app/api/v1/company-settings/pressure-areas/route");
+const propertyRoute = await import("@/app/api/v1/properties/[propertyId]/route");
+const yardRoute = await import("@/app/api/v1/company-settings/yard/route");
+const orderRoute = await import("@/app/api/v1/today/order/route");
 
 let c: TestCompany;
 const today = todayIn("America/New_York"); // the demo properties' zone
@@ -508,5 +513,110 @@ describe("pressure-area settings", () => {
   it("a technician cannot change them", async () => {
     current = await c.actor("tech1");
     expect((await put({ distanceMi: 2 })).status).toBe(403);
+  });
+});
+
+describe("the day's route: a property's phone and access notes, the yard, the day's order", () => {
+  /** The Okafor property as its form would send it, with `over` changed. */
+  async function property(over: Record<string, unknown>) {
+    const p = await testDb()
+      .selectFrom("properties")
+      .selectAll()
+      .where("id", "=", c.propertyIds["okafor"]!)
+      .executeTakeFirstOrThrow();
+    return {
+      name: p.name,
+      street: p.street,
+      city: p.city,
+      region: p.region,
+      postalCode: p.postal_code,
+      latitude: p.latitude,
+      longitude: p.longitude,
+      timeZone: p.time_zone,
+      ruleSetId: p.rule_set_id,
+      technicianId: p.technician_id,
+      notes: p.notes,
+      ...over,
+    };
+  }
+  const stored = async () =>
+    testDb()
+      .selectFrom("properties")
+      .select(["customer_phone", "access_notes"])
+      .where("id", "=", c.propertyIds["okafor"]!)
+      .executeTakeFirstOrThrow();
+  const put = async (over: Record<string, unknown>) =>
+    post(propertyRoute.PUT, await property(over), { propertyId: c.propertyIds["okafor"]! }, "PUT");
+
+  it("customer phone: a 10-digit US number kept in E.164; 9 digits, an area code starting with 1 and another country refused", async () => {
+    current = await c.actor("manager");
+    expect((await put({ customerPhone: "(609) 555-0185" })).status).toBe(200);
+    expect((await stored()).customer_phone).toBe("+16095550185");
+    for (const [customerPhone, message] of [
+      ["609-555-018", /^Customer phone: a US number of 10 digits/],
+      ["(109) 555-0185", /^Customer phone: a US number of 10 digits/],
+      ["+44 20 7946 0958", /^Customer phone: a US number of 10 digits/],
+      ["609-555-0185\u0000", /control characters/],
+    ] as const) {
+      const answer = await put({ customerPhone });
+      expect(answer.status, customerPhone).toBe(422);
+      expect(answer.fieldErrors.customerPhone?.[0], customerPhone).toMatch(message);
+    }
+    expect((await stored()).customer_phone).toBe("+16095550185");
+    expect((await put({ customerPhone: "" })).status).toBe(200);
+    expect((await stored()).customer_phone).toBeNull();
+  });
+
+  it("access notes: 500 characters kept whole; 501 refused naming the field", async () => {
+    current = await c.actor("manager");
+    expect((await put({ accessNotes: "g".repeat(500) })).status).toBe(200);
+    const long = await put({ accessNotes: "g".repeat(501) });
+    expect(long.status).toBe(422);
+    expect(long.fieldErrors.accessNotes?.[0]).toBe("Access notes: at most 500 characters.");
+    expect((await stored()).access_notes).toBe("g".repeat(500));
+  });
+
+  it("yard: latitude 90 and longitude −180 accepted; 90.01 and −180.01 refused; one coordinate without the other refused", async () => {
+    current = await c.actor("manager");
+    const yard = (o: Record<string, unknown>) => ({
+      address: "61 Tanager Road",
+      latitude: 40.3,
+      longitude: -74.7,
+      ...o,
+    });
+    expect(
+      (await post(yardRoute.PUT, yard({ latitude: 90, longitude: -180 }), {}, "PUT")).status,
+    ).toBe(200);
+    const north = await post(yardRoute.PUT, yard({ latitude: 90.01 }), {}, "PUT");
+    expect(north.fieldErrors.latitude?.[0]).toBe("Yard latitude: between -90 and 90.");
+    const west = await post(yardRoute.PUT, yard({ longitude: -180.01 }), {}, "PUT");
+    expect(west.fieldErrors.longitude?.[0]).toBe("Yard longitude: between -180 and 180.");
+    const half = await post(yardRoute.PUT, yard({ longitude: null }), {}, "PUT");
+    expect(half.status).toBe(422);
+    expect(half.fieldErrors.longitude?.[0]).toMatch(
+      /both the latitude and the longitude, or neither/,
+    );
+    const address = await post(yardRoute.PUT, yard({ address: "a".repeat(201) }), {}, "PUT");
+    expect(address.fieldErrors.address?.[0]).toBe("Yard address: at most 200 characters.");
+    const row = await testDb()
+      .selectFrom("companies")
+      .select(["yard_latitude", "yard_longitude"])
+      .where("id", "=", c.companyId)
+      .executeTakeFirstOrThrow();
+    expect(row).toEqual({ yard_latitude: 90, yard_longitude: -180 });
+  });
+
+  it(`the day's order: at most ${DAY_ORDER_MAX_STOPS} stops in one list; none refused`, async () => {
+    current = await c.actor("tech1");
+    const many = Array.from({ length: DAY_ORDER_MAX_STOPS + 1 }, () => randomUUID());
+    const long = await post(orderRoute.PUT, { date: today, visitIds: many }, {}, "PUT");
+    expect(long.fieldErrors.visitIds?.[0]).toBe(
+      `Stops: at most ${DAY_ORDER_MAX_STOPS} in one day.`,
+    );
+    // The last accepted length is checked against the day: 100 ids that are not its stops → 409.
+    const atBound = await post(orderRoute.PUT, { date: today, visitIds: many.slice(1) }, {}, "PUT");
+    expect(atBound.status).toBe(409);
+    const none = await post(orderRoute.PUT, { date: today, visitIds: [] }, {}, "PUT");
+    expect(none.fieldErrors.visitIds?.[0]).toBe("Stops: list the day's stops, first to last.");
   });
 });
