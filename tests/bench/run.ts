@@ -22,6 +22,7 @@ import { passwordSignIn } from "../helpers/password-sign-in";
 import { waitForUrl } from "../helpers/processes";
 import { doneCheck } from "../helpers/zone-checks";
 import { measureOffline } from "./offline";
+import { drawDays, printRoutingFigures, routingFigures } from "./routing.bench";
 import { BENCH_MANAGER, benchDatabaseUrl, benchHomeowner, benchTechnician } from "./seed";
 
 const PORT = Number(process.env.SWARD_BENCH_PORT ?? 3200);
@@ -117,6 +118,29 @@ async function main(): Promise<number> {
   );
   console.log(
     `bench: book of ${counts.rows[0]!.properties} properties, ${Number(counts.rows[0]!.checks).toLocaleString("en-US")} zone checks`,
+  );
+
+  // The day's route (lib/routing/order.ts) on days drawn from the book's own properties (a yard
+  // and 25 stops; a yard and 9 stops for the exhaustive comparison), before the server starts.
+  const pool = await db
+    .selectFrom("properties")
+    .select(["latitude", "longitude"])
+    .where("company_id", "=", company.id)
+    .execute();
+  const routing = routingFigures(drawDays(200, 25, 25, pool), drawDays(30, 9, 9, pool));
+  json["routing"] = routing;
+  const [orderingLine, gapLine] = printRoutingFigures(routing);
+  record(
+    "route ordering, 25 stops",
+    orderingLine!.replace(/^route ordering, 25 stops: /, "").replace(/ \(budget.*$/, ""),
+    "p50 < 50 ms",
+    routing.ordering25.p50Ms < 50,
+  );
+  record(
+    "route vs exhaustive best, 9 stops",
+    gapLine!.replace(/^route vs exhaustive best, 9 stops: /, "").replace(/ \(budget.*$/, ""),
+    "within 10 %",
+    routing.gap9.maxPct <= 10,
   );
 
   if (!process.argv.includes("--no-build"))

@@ -92,6 +92,9 @@ interface Cell {
 
 const ownerSide: Persona[] = ["owner", "assignedTech", "manager"];
 let checkEveryZone: (t: Targets) => Promise<void>; // set up in beforeAll
+/** tech1's stops of today, read just before the cell that reorders them (set up in beforeAll). */
+let readTech1Day: (t: Targets) => Promise<void>;
+let tech1Day: string[] = [];
 /** An entry of the visit (or, for waterings, the homeowner's own) made for a correct/delete cell; set up in beforeAll. */
 let makeEntry: (
   kind: "application" | "photo" | "zoneCheck" | "watering" | "soilTest",
@@ -315,6 +318,14 @@ const CELLS: Cell[] = [
     mustSucceed: true,
   },
   {
+    key: "PUT /api/v1/company-settings/yard",
+    path: () => "/api/v1/company-settings/yard",
+    method: "PUT",
+    body: () => ({ address: "61 Tanager Road, Larkfield", latitude: 40.305, longitude: -74.73 }),
+    allow: ["manager", "otherManager"],
+    mustSucceed: true,
+  },
+  {
     key: "PAGE /today",
     path: () => "/today",
     allow: ["assignedTech"],
@@ -424,6 +435,35 @@ const CELLS: Cell[] = [
     allow: ["assignedTech", "manager"],
     hidden: ["otherTech", "otherManager"],
     marker: (t) => t.propertyId,
+  },
+  {
+    key: "GET /api/v1/today/route",
+    case: "tech1's day: their own, or a manager naming them (another company's manager: 422)",
+    path: (t) => `/api/v1/today/route?date=${t.today}&technicianId=${t.tech1Id}`,
+    allow: ["assignedTech", "manager"],
+    refusedAs: [422],
+    marker: (t) => t.propertyName,
+  },
+  {
+    key: "POST /api/v1/today/route",
+    case: "tech1's day put in driving order",
+    path: () => "/api/v1/today/route",
+    method: "POST",
+    body: (t) => ({ date: t.today, technicianId: t.tech1Id }),
+    allow: ["assignedTech", "manager"],
+    refusedAs: [422],
+    mustSucceed: true,
+  },
+  {
+    key: "PUT /api/v1/today/order",
+    case: "tech1's day in reverse order, set by hand",
+    path: () => "/api/v1/today/order",
+    method: "PUT",
+    before: (t) => readTech1Day(t),
+    body: (t) => ({ date: t.today, technicianId: t.tech1Id, visitIds: tech1Day }),
+    allow: ["assignedTech", "manager"],
+    refusedAs: [422],
+    mustSucceed: true,
   },
   {
     key: "GET /api/v1/alerts",
@@ -1247,6 +1287,18 @@ beforeAll(async () => {
     today,
   };
   const { saveZoneCheck } = await import("@/lib/visits/mutations");
+  readTech1Day = async (targets) => {
+    const rows = await db
+      .selectFrom("visits")
+      .select("id")
+      .where("company_id", "=", c.companyId)
+      .where("technician_id", "=", targets.tech1Id)
+      .where("scheduled_for", "=", targets.today)
+      .orderBy("stop_order", "desc")
+      .orderBy("id")
+      .execute();
+    tech1Day = rows.map((r) => r.id);
+  };
   makeEntry = async (kind, targets) => {
     const id = randomUUID();
     const tech1 = c.userIds["tech1"]!;
