@@ -11,6 +11,9 @@ import type { TodayStopDto } from "@/lib/visits/dto";
 
 import { useDayRoute, useSetStopOrder } from "./use-day-route";
 
+/** The id of the stop's name on its card (components/visits/today-list.tsx). */
+export const stopNameId = (visitId: string) => `stop-name-${visitId}`;
+
 export function StopRouteTools({
   stop,
   date,
@@ -21,6 +24,10 @@ export function StopRouteTools({
   /** The day's stops as listed, first to last. */
   order: string[];
 }) {
+  // The buttons are named by what they do; the stop they act on is their description, the stop's
+  // name on its card (a name with the property's would make "the link named Kowalczyk residence"
+  // ambiguous on the page).
+  const nameId = stopNameId(stop.id);
   const { data: route } = useDayRoute(date);
   const setOrder = useSetStopOrder(date);
   const index = order.indexOf(stop.id);
@@ -54,7 +61,7 @@ export function StopRouteTools({
           target="_blank"
           rel="noopener noreferrer"
           className={buttonClass("secondary", "no-underline")}
-          aria-label={`Directions to ${stop.propertyName}`}
+          aria-describedby={nameId}
         >
           <Navigation className="size-5" aria-hidden="true" />
           Directions
@@ -63,7 +70,7 @@ export function StopRouteTools({
           <a
             href={telHref(stop.customerPhone)}
             className={buttonClass("secondary", "no-underline")}
-            aria-label={`Call ${stop.propertyName}, ${formatUsPhone(stop.customerPhone)}`}
+            aria-describedby={nameId}
           >
             <Phone className="size-5" aria-hidden="true" />
             Call {formatUsPhone(stop.customerPhone)}
@@ -74,20 +81,20 @@ export function StopRouteTools({
           variant="quiet"
           disabled={index <= 0 || setOrder.isPending}
           onClick={() => move(-1)}
-          aria-label={`Move ${stop.propertyName} up`}
+          aria-describedby={nameId}
         >
           <ArrowUp className="size-5" aria-hidden="true" />
-          Up
+          Move up
         </Button>
         <Button
           type="button"
           variant="quiet"
           disabled={index < 0 || index >= order.length - 1 || setOrder.isPending}
           onClick={() => move(1)}
-          aria-label={`Move ${stop.propertyName} down`}
+          aria-describedby={nameId}
         >
           <ArrowDown className="size-5" aria-hidden="true" />
-          Down
+          Move down
         </Button>
       </div>
       {setOrder.error ? (

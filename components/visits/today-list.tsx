@@ -5,7 +5,7 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
 
-import { StopRouteTools } from "@/components/day-route/stop-route-tools";
+import { stopNameId, StopRouteTools } from "@/components/day-route/stop-route-tools";
 import { formatDate } from "@/lib/dates";
 import { fetchJson } from "@/lib/query-client";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
@@ -61,7 +61,9 @@ export function TodayList({ date, timeZone }: { date: string; timeZone: string }
                 </span>
                 <div className="min-w-0 flex-1">
                   <div className="flex flex-wrap items-center justify-between gap-2">
-                    <p className="text-lg font-bold text-ink">{stop.propertyName}</p>
+                    <p id={stopNameId(stop.id)} className="text-lg font-bold text-ink">
+                      {stop.propertyName}
+                    </p>
                     <VisitStatusBadge status={stop.status} cancelKind={stop.outcome?.kind} />
                   </div>
                   <p className="mt-1 flex items-center gap-1.5 text-muted">

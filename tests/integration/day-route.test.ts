@@ -60,6 +60,12 @@ type Handler = (
   ctx: { params: Promise<Record<string, string>> },
 ) => Promise<Response>;
 
+/** A route's answer: the DTO or { changed }, or an error with its field messages. */
+type Answer = Record<string, unknown> & {
+  changed?: number;
+  error: { message: string; fieldErrors: Record<string, string[]> };
+};
+
 async function call(
   as: Actor | null,
   handler: Handler,
@@ -76,13 +82,13 @@ async function call(
     }),
     { params: Promise.resolve({}) },
   );
-  return { status: res.status, body: (await res.json()) as Record<string, any> };
+  return { status: res.status, body: (await res.json()) as Answer };
 }
 
 const readRoute = async (as: Actor, query = `?date=${today}`) => {
   const r = await call(as, routeRoute.GET as Handler, "GET", undefined, query);
   expect(r.status).toBe(200);
-  return r.body as DayRouteDto;
+  return r.body as unknown as DayRouteDto;
 };
 
 async function storedOrder(technicianKey: string): Promise<string[]> {
@@ -173,7 +179,7 @@ describe("the day's route", () => {
       visitIds: [ids[0], ids[0], ids[1]],
     });
     expect(twice.status).toBe(422);
-    expect(twice.body.error.fieldErrors.visitIds[0]).toMatch(/each stop of the day once/);
+    expect(twice.body.error.fieldErrors.visitIds?.[0]).toMatch(/each stop of the day once/);
     expect((await readRoute(tech1)).stops.map((s) => s.visitId)).toEqual(swapped);
   });
 
@@ -208,7 +214,7 @@ describe("the day's route", () => {
       `?date=${today}`,
     );
     expect(noTech.status).toBe(422);
-    expect(noTech.body.error.fieldErrors.technicianId[0]).toMatch(/whose day/);
+    expect(noTech.body.error.fieldErrors.technicianId?.[0]).toMatch(/whose day/);
     const asManager = await readRoute(manager, `?date=${today}&technicianId=${c.userIds.tech1}`);
     expect(asManager.stops).toHaveLength(3);
     const foreign = await call(
