@@ -70,17 +70,12 @@ export function YardForm({ yard }: { yard: CompanySettingsDto["yard"] }) {
         />
       </Field>
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field
-          id="yard-latitude"
-          label={t("latitude")}
-          hint={t("locationHint")}
-          error={errors.latitude?.message}
-        >
+        <Field id="yard-latitude" label={t("latitude")} error={errors.latitude?.message}>
           <input
             id="yard-latitude"
             inputMode="decimal"
             className={inputClass}
-            aria-describedby="yard-latitude-hint"
+            aria-describedby="yard-location-hint"
             aria-invalid={errors.latitude ? true : undefined}
             {...register("latitude", { setValueAs: numberOrNull })}
           />
@@ -90,11 +85,15 @@ export function YardForm({ yard }: { yard: CompanySettingsDto["yard"] }) {
             id="yard-longitude"
             inputMode="decimal"
             className={inputClass}
+            aria-describedby="yard-location-hint"
             aria-invalid={errors.longitude ? true : undefined}
             {...register("longitude", { setValueAs: numberOrNull })}
           />
         </Field>
       </div>
+      <p id="yard-location-hint" className="-mt-3 text-sm text-muted">
+        {t("locationHint")}
+      </p>
       {message ? (
         <p role="status" className="font-semibold">
           {message}
