@@ -5,7 +5,10 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
 
+import { useWaitingOps } from "@/components/offline/use-outbox";
+import { WaitingLine } from "@/components/offline/waiting-line";
 import { formatDate } from "@/lib/dates";
+import { visitStatus } from "@/lib/offline/overlay";
 import { fetchJson } from "@/lib/query-client";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { TodayStopDto } from "@/lib/visits/dto";
@@ -17,6 +20,8 @@ import { CallOffStop, StopOutcome } from "./stop-outcome";
 export function TodayList({ date, timeZone }: { date: string; timeZone: string }) {
   const queryClient = useQueryClient();
   const refresh = () => queryClient.invalidateQueries({ queryKey: visitKeys.all });
+  // What each stop still has waiting on this phone (lib/offline).
+  const waiting = useWaitingOps();
   const { data, error, isPending } = useQuery({
     queryKey: visitKeys.today(date),
     queryFn: async () =>
@@ -61,7 +66,13 @@ export function TodayList({ date, timeZone }: { date: string; timeZone: string }
                 <div className="min-w-0 flex-1">
                   <div className="flex flex-wrap items-center justify-between gap-2">
                     <p className="text-lg font-bold text-ink">{stop.propertyName}</p>
-                    <VisitStatusBadge status={stop.status} cancelKind={stop.outcome?.kind} />
+                    <VisitStatusBadge
+                      status={visitStatus(
+                        stop,
+                        waiting.filter((op) => op.visitId === stop.id),
+                      )}
+                      cancelKind={stop.outcome?.kind}
+                    />
                   </div>
                   <p className="mt-1 flex items-center gap-1.5 text-muted">
                     <MapPin className="size-4 shrink-0" aria-hidden="true" />
@@ -91,6 +102,7 @@ export function TodayList({ date, timeZone }: { date: string; timeZone: string }
                 <ChevronRight className="mt-2 size-6 shrink-0 text-muted" aria-hidden="true" />
               </div>
             </Link>
+            <WaitingLine ops={waiting.filter((op) => op.visitId === stop.id)} timeZone={timeZone} />
             {stop.outcome ? (
               <StopOutcome
                 visit={stop}
