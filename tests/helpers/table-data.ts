@@ -54,6 +54,10 @@ export async function fillEmptyTables(db: Kysely<unknown>): Promise<void> {
   await sql`insert into weather_days (cell, day, tmax_c, tmin_c, precip_mm) values ('40.7:-74.0', date '2026-06-01', 27.5, 16.0, 3.2)`.execute(
     db,
   );
+  await sql`insert into pressure_area_notices (company_id, area_key, kind, noticed_on)
+            select id, 'check-area', 'dollar_spot_weather', date '2026-06-01' from companies`.execute(
+    db,
+  );
   await sql`update properties set notes = ${'Gate code "4471"; dog\'s name: Ôscar\tback\\slash\nsecond line — 🌱'}
              where id = (select id from properties order by name limit 1)`.execute(db);
 }
