@@ -475,14 +475,15 @@ function ImportSoilTests({ propertyId }: { propertyId: string }) {
       </summary>
       <div className="mt-3 space-y-3 text-sm">
         <p>
-          One row a sample, with a header row. Required columns: <code>sampled_on</code> (2026-04-15
-          or 4/15/2026), <code>lab</code>, <code>depth_in</code>, <code>extractant</code>{" "}
-          (Mehlich-3, Bray P1, Olsen, ammonium acetate or other). Optional: <code>zone</code> (a
-          zone&apos;s name; blank for the whole property), <code>ph</code>, <code>buffer_ph</code>,{" "}
-          <code>buffer_method</code>, <code>organic_matter_pct</code>, <code>p_ppm</code>,{" "}
-          <code>k_ppm</code>, <code>ca_ppm</code>, <code>mg_ppm</code>, <code>s_ppm</code>,{" "}
-          <code>lab_lime_lb_per_1000</code>, <code>lab_p_needed</code> (yes or no),{" "}
-          <code>notes</code>. Every row is checked first; if one is wrong, nothing is imported.
+          One row a sample, with a header row. Required columns: <strong>Sampled on</strong>{" "}
+          (2026-04-15 or 4/15/2026), <strong>Lab</strong>, <strong>Depth (in)</strong>,{" "}
+          <strong>Extractant</strong> (Mehlich-3, Bray P1, Olsen, ammonium acetate or other).
+          Optional: <strong>Zone</strong> (a zone&apos;s name; blank for the whole property),{" "}
+          <strong>pH</strong>, <strong>Buffer pH</strong>, <strong>Buffer method</strong>,{" "}
+          <strong>Organic matter (%)</strong>, <strong>P (ppm)</strong>, <strong>K (ppm)</strong>,{" "}
+          <strong>Ca (ppm)</strong>, <strong>Mg (ppm)</strong>, <strong>S (ppm)</strong>,{" "}
+          <strong>Lab lime (lb per 1,000 ft²)</strong>, <strong>Lab P needed</strong> (yes or no),{" "}
+          <strong>Notes</strong>. Every row is checked first; if one is wrong, nothing is imported.
         </p>
         <label htmlFor={fileId} className="block font-semibold">
           Choose the file

@@ -30,6 +30,26 @@ const SOIL_TEST_CSV_COLUMNS = {
   notes: "notes",
 } as const;
 type Column = keyof typeof SOIL_TEST_CSV_COLUMNS;
+/** Each column's header as people write it (and as errors name it); it reads back as the column. */
+const SOIL_TEST_CSV_HEADERS: Record<Column, string> = {
+  sampled_on: "Sampled on",
+  lab: "Lab",
+  zone: "Zone",
+  depth_in: "Depth (in)",
+  extractant: "Extractant",
+  ph: "pH",
+  buffer_ph: "Buffer pH",
+  buffer_method: "Buffer method",
+  organic_matter_pct: "Organic matter (%)",
+  p_ppm: "P (ppm)",
+  k_ppm: "K (ppm)",
+  ca_ppm: "Ca (ppm)",
+  mg_ppm: "Mg (ppm)",
+  s_ppm: "S (ppm)",
+  lab_lime_lb_per_1000: "Lab lime (lb per 1,000 ft²)",
+  lab_p_needed: "Lab P needed",
+  notes: "Notes",
+};
 const REQUIRED: Column[] = ["sampled_on", "lab", "depth_in", "extractant"];
 const NUMBER_COLUMNS: Column[] = [
   "depth_in",
@@ -54,6 +74,7 @@ const columnOf = (header: string): Column | undefined => {
     .replace(/%/g, "pct")
     .replace(/[^a-z0-9]+/g, "_")
     .replace(/^_|_$/g, "");
+  if (key.startsWith("lab_lime")) return "lab_lime_lb_per_1000";
   return key in SOIL_TEST_CSV_COLUMNS ? (key as Column) : undefined;
 };
 
@@ -122,7 +143,8 @@ export function parseSoilTestCsv(
   const errors: string[] = [];
   if (unknown.length)
     errors.push(`Unknown columns: ${unknown.map((h) => `"${h}"`).join(", ")}. See the format.`);
-  if (missing.length) errors.push(`Missing columns: ${missing.join(", ")}.`);
+  if (missing.length)
+    errors.push(`Missing columns: ${missing.map((c) => SOIL_TEST_CSV_HEADERS[c]).join(", ")}.`);
   if (body.length > SOIL_TEST_IMPORT_MAX_ROWS)
     errors.push(
       `The file has ${body.length} rows; import at most ${SOIL_TEST_IMPORT_MAX_ROWS} at a time.`,
@@ -154,19 +176,20 @@ export function parseSoilTestCsv(
     if (zone) {
       const id = zoneByName.get(zone.toLowerCase());
       if (id) candidate.zoneId = id;
-      else rowErrors.push(`zone: "${zone}" is not a zone of this property.`);
+      else rowErrors.push(`Zone: "${zone}" is not a zone of this property.`);
     }
     for (const c of NUMBER_COLUMNS) {
       const text = value(c).replace(/,/g, "");
       const n = text === "" ? null : Number(text);
-      if (n !== null && !Number.isFinite(n)) rowErrors.push(`${c}: "${value(c)}" is not a number.`);
+      if (n !== null && !Number.isFinite(n))
+        rowErrors.push(`${SOIL_TEST_CSV_HEADERS[c]}: "${value(c)}" is not a number.`);
       candidate[SOIL_TEST_CSV_COLUMNS[c]] = n;
     }
     const p = squash(value("lab_p_needed"));
     if (p) {
       if (["yes", "y", "true", "1"].includes(p)) candidate.labPhosphorusNeeded = true;
       else if (["no", "n", "false", "0"].includes(p)) candidate.labPhosphorusNeeded = false;
-      else rowErrors.push(`lab_p_needed: use yes, no or leave it blank.`);
+      else rowErrors.push(`Lab P needed: use yes, no or leave it blank.`);
     }
     if (rowErrors.length === 0) {
       const parsed = z.safeParse(soilTestSchema, candidate, { error: plainErrors });

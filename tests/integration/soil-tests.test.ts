@@ -260,9 +260,9 @@ describe("importing a lab's CSV file", () => {
       "The file has rows that need attention; nothing was imported.",
     );
     expect(bad.body.error!.fieldErrors!.csv).toEqual([
-      'Row 3: zone: "Side strip" is not a zone of this property.',
-      'Row 4: p_ppm: "abc" is not a number.',
-      "Row 4: lab_p_needed: use yes, no or leave it blank.",
+      'Row 3: Zone: "Side strip" is not a zone of this property.',
+      'Row 4: P (ppm): "abc" is not a number.',
+      "Row 4: Lab P needed: use yes, no or leave it blank.",
     ]);
     expect(await count()).toBe(before);
   });
@@ -271,7 +271,7 @@ describe("importing a lab's CSV file", () => {
     const missing = await importCsv(manager, "Date,Lab,pH\n2026-01-01,X,6");
     expect(missing.body.error!.fieldErrors!.csv).toEqual([
       'Unknown columns: "Date". See the format.',
-      "Missing columns: sampled_on, depth_in, extractant.",
+      "Missing columns: Sampled on, Depth (in), Extractant.",
     ]);
     const empty = await importCsv(manager, header);
     expect(empty.body.error!.fieldErrors!.csv).toEqual([
