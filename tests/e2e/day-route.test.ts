@@ -98,7 +98,7 @@ describe("the day's route on Today", () => {
     await route.getByRole("button", { name: "Put in driving order" }).waitFor();
     await snap(page, "route-03-moved-by-hand");
     await context.close();
-  });
+  }, 120_000);
 
   it("a manager sets the yard on Settings (desktop)", async () => {
     const context = await browser.newContext({ viewport: DESKTOP, baseURL: baseUrl });
@@ -116,5 +116,5 @@ describe("the day's route on Today", () => {
     await snap(page, "route-04-settings-yard-desktop");
     expect(await seriousViolations(page)).toEqual([]);
     await context.close();
-  });
+  }, 90_000);
 });
