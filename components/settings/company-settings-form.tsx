@@ -10,6 +10,7 @@ import { useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { HydratedForm } from "@/components/ui/hydrated-form";
 import type { CompanySettingsDto } from "@/lib/company-settings/dto";
 import { companySettingsSchema, type CompanySettingsInput } from "@/lib/company-settings/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -53,7 +54,7 @@ export function CompanySettingsForm({
     router.refresh();
   });
   return (
-    <form
+    <HydratedForm
       onSubmit={onSubmit}
       className="max-w-xl space-y-5 rounded-xl border border-line bg-card p-4"
       noValidate
@@ -138,6 +139,6 @@ export function CompanySettingsForm({
       <Button type="submit" disabled={isSubmitting}>
         {isSubmitting ? t("saving") : t("save")}
       </Button>
-    </form>
+    </HydratedForm>
   );
 }

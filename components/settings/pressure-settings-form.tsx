@@ -9,6 +9,7 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { HydratedForm } from "@/components/ui/hydrated-form";
 import type { PressureSettingsDto } from "@/lib/pressure-areas/dto";
 import { pressureSettingsSchema, type PressureSettingsInput } from "@/lib/pressure-areas/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -58,7 +59,7 @@ export function PressureSettingsForm({ settings }: { settings: PressureSettingsD
     </Field>
   );
   return (
-    <form
+    <HydratedForm
       id="pressure-settings"
       onSubmit={onSubmit}
       className="mt-8 max-w-xl space-y-5 rounded-xl border border-line bg-card p-4"
@@ -85,6 +86,6 @@ export function PressureSettingsForm({ settings }: { settings: PressureSettingsD
       <Button type="submit" disabled={isSubmitting}>
         {isSubmitting ? t("saving") : t("pressureSave")}
       </Button>
-    </form>
+    </HydratedForm>
   );
 }

@@ -9,8 +9,9 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod/mini";
 
 import { Button } from "@/components/ui/button";
-import { applyFieldErrors, Field, inputClass } from "@/components/ui/field";
+import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { HydratedForm } from "@/components/ui/hydrated-form";
 import type { CompanySettingsDto } from "@/lib/company-settings/dto";
 import { yardSchema } from "@/lib/company-settings/schemas";
 import { sendJson } from "@/lib/query-client";
@@ -18,9 +19,6 @@ import { sendJson } from "@/lib/query-client";
 const resolver = formResolver(yardSchema);
 type FormIn = z.input<typeof yardSchema>;
 type FormOut = z.output<typeof yardSchema>;
-
-/** An empty number field is null (no yard), not NaN. */
-const numberOrNull = (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v));
 
 export function YardForm({ yard }: { yard: CompanySettingsDto["yard"] }) {
   const t = useTranslations("settings.yard");
@@ -48,7 +46,7 @@ export function YardForm({ yard }: { yard: CompanySettingsDto["yard"] }) {
     router.refresh();
   });
   return (
-    <form
+    <HydratedForm
       onSubmit={onSubmit}
       aria-labelledby="yard-heading"
       className="mt-6 max-w-xl space-y-5 rounded-xl border border-line bg-card p-4"
@@ -102,6 +100,6 @@ export function YardForm({ yard }: { yard: CompanySettingsDto["yard"] }) {
       <Button type="submit" disabled={isSubmitting}>
         {t("save")}
       </Button>
-    </form>
+    </HydratedForm>
   );
 }
