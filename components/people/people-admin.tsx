@@ -11,6 +11,7 @@ import {
   Ban,
   Clock,
   Mail,
+  MapPin,
   PencilLine,
   RotateCcw,
   Send,
@@ -360,6 +361,7 @@ function PersonRow({
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [isEditingLicense, setIsEditingLicense] = useState(false);
+  const [isEditingStart, setIsEditingStart] = useState(false);
 
   async function change(body: { role?: "manager" | "technician"; disabled?: boolean }) {
     setMessage(null);
@@ -419,6 +421,14 @@ function PersonRow({
               </span>
             </p>
           ) : null}
+          {person.role === "technician" ? (
+            <p className="inline-flex items-center gap-1 text-sm text-muted">
+              <MapPin className="size-4" aria-hidden="true" />
+              {person.startPoint
+                ? `Day starts and ends at ${person.startPoint.address || "their start point"}`
+                : "Day starts and ends at the yard"}
+            </p>
+          ) : null}
           {person.role === "homeowner" && person.properties.length ? (
             <p className="text-sm">
               {person.properties.map((p, n) => (
@@ -445,6 +455,16 @@ function PersonRow({
                 >
                   <PencilLine className="size-5" aria-hidden="true" />
                   License
+                </Button>
+                <Button
+                  type="button"
+                  variant="secondary"
+                  onClick={() => setIsEditingStart((v) => !v)}
+                  aria-label={`Start point of ${person.name}`}
+                  aria-expanded={isEditingStart}
+                >
+                  <MapPin className="size-5" aria-hidden="true" />
+                  Start point
                 </Button>
                 <Button
                   type="button"
@@ -505,7 +525,103 @@ function PersonRow({
           }}
         />
       ) : null}
+      {isEditingStart ? (
+        <StartPointForm
+          person={person}
+          onDone={() => {
+            setIsEditingStart(false);
+            router.refresh();
+          }}
+        />
+      ) : null}
     </li>
+  );
+}
+
+/** A number typed in a coordinate field: empty is null; what does not read as a number is sent as
+ * typed, so the server's message names the field. */
+const coordinate = (typed: string): number | string | null => {
+  const t = typed.trim();
+  if (t === "") return null;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : t;
+};
+
+function StartPointForm({ person, onDone }: { person: DirectoryPersonDto; onDone: () => void }) {
+  const [values, setValues] = useState({
+    address: person.startPoint?.address ?? "",
+    latitude: person.startPoint ? String(person.startPoint.latitude) : "",
+    longitude: person.startPoint ? String(person.startPoint.longitude) : "",
+  });
+  const [errors, setErrors] = useState<Record<string, string[]>>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [isSaving, setIsSaving] = useState(false);
+  const base = `start-${person.id}`;
+
+  async function save(event: React.FormEvent) {
+    event.preventDefault();
+    setIsSaving(true);
+    setMessage(null);
+    const result = await sendJson("PUT", `/api/v1/people/${person.id}/start-point`, {
+      address: values.address,
+      latitude: coordinate(values.latitude),
+      longitude: coordinate(values.longitude),
+    });
+    setIsSaving(false);
+    if (!result.ok) {
+      setErrors(result.error.fieldErrors ?? {});
+      setMessage(result.error.message);
+      return;
+    }
+    onDone();
+  }
+  const field = (key: keyof typeof values) => ({
+    id: `${base}-${key}`,
+    value: values[key],
+    onChange: (e: React.ChangeEvent<HTMLInputElement>) =>
+      setValues((v) => ({ ...v, [key]: e.target.value })),
+    "aria-invalid": errors[key] ? true : undefined,
+    className: inputClass,
+    autoComplete: "off",
+  });
+
+  return (
+    <form
+      onSubmit={save}
+      className="mt-3 grid gap-3 border-t border-line pt-3 md:grid-cols-3"
+      noValidate
+      aria-label={`Start point of ${person.name}`}
+    >
+      <Field
+        id={`${base}-address`}
+        label="Address"
+        hint="As the technician reads it"
+        error={errors.address?.[0]}
+      >
+        <input {...field("address")} />
+      </Field>
+      <Field id={`${base}-latitude`} label="Latitude" error={errors.latitude?.[0]}>
+        <input {...field("latitude")} inputMode="decimal" />
+      </Field>
+      <Field id={`${base}-longitude`} label="Longitude" error={errors.longitude?.[0]}>
+        <input {...field("longitude")} inputMode="decimal" />
+      </Field>
+      <p className="text-sm text-muted md:col-span-3">
+        Where this technician&rsquo;s day on Today starts and ends, when it is not the yard (a
+        technician who drives from home). Decimal degrees, e.g. 40.3342 and -74.7391; clear both to
+        start from the yard again.
+      </p>
+      {message ? (
+        <p role="alert" className="font-semibold text-clay md:col-span-3">
+          {message}
+        </p>
+      ) : null}
+      <div className="flex gap-2 md:col-span-3">
+        <Button type="submit" disabled={isSaving}>
+          Save start point
+        </Button>
+      </div>
+    </form>
   );
 }
 

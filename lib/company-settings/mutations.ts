@@ -4,6 +4,7 @@ import "server-only";
 import { db } from "@/db";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
+import { halfGivenPlace } from "@/lib/day-route/schemas";
 import { AppError, notFound } from "@/lib/http/app-error";
 
 import type { CompanySettingsDto } from "./dto";
@@ -30,12 +31,8 @@ export async function saveCompanySettings(
 export async function saveYard(actor: Actor, input: YardInput): Promise<CompanySettingsDto> {
   if (actor.role !== "manager")
     throw new AppError("forbidden", "Only a manager can change the company's settings.");
-  if ((input.latitude === null) !== (input.longitude === null))
-    throw new AppError("invalid_input", "Some values need attention.", {
-      [input.latitude === null ? "latitude" : "longitude"]: [
-        "Yard location: give both the latitude and the longitude, or neither.",
-      ],
-    });
+  const half = halfGivenPlace("Yard", input);
+  if (half) throw new AppError("invalid_input", "Some values need attention.", half);
   return db()
     .transaction()
     .execute(async (trx) => {

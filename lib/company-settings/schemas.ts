@@ -3,6 +3,7 @@
 import { z } from "zod/mini";
 
 import { isValidTimeZone } from "@/lib/dates";
+import { placeSchema } from "@/lib/day-route/schemas";
 import { isSupportedLocale } from "@/lib/i18n/locales";
 
 export const companySettingsSchema = z.strictObject({
@@ -26,26 +27,5 @@ export type CompanySettingsInput = z.output<typeof companySettingsSchema>;
  * location. Both coordinates empty (null) clear it; then routes are open unless a technician has
  * a start point.
  */
-export const yardSchema = z.strictObject({
-  address: z._default(
-    z.string().check(z.trim(), z.maxLength(200, "Yard address: at most 200 characters.")),
-    "",
-  ),
-  latitude: z.nullable(
-    z
-      .number("Yard latitude: a number between -90 and 90, e.g. 40.3342.")
-      .check(
-        z.gte(-90, "Yard latitude: between -90 and 90."),
-        z.lte(90, "Yard latitude: between -90 and 90."),
-      ),
-  ),
-  longitude: z.nullable(
-    z
-      .number("Yard longitude: a number between -180 and 180, e.g. -74.7391.")
-      .check(
-        z.gte(-180, "Yard longitude: between -180 and 180."),
-        z.lte(180, "Yard longitude: between -180 and 180."),
-      ),
-  ),
-});
+export const yardSchema = placeSchema("Yard");
 export type YardInput = z.output<typeof yardSchema>;

@@ -32,6 +32,15 @@ export interface DirectoryPersonDto {
   license: LicenseDto | null;
   /** Technicians: the properties they are assigned; homeowners: their properties. */
   properties: { id: string; name: string; street: string }[];
+  /** Technicians: their own start point (takes the yard's place on their Today), or null. */
+  startPoint: StartPointDto | null;
+}
+
+/** Where a technician's day starts and ends, when not at the company's yard. */
+export interface StartPointDto {
+  address: string;
+  latitude: number;
+  longitude: number;
 }
 
 /** A pending invitation on the People page (staff, or a homeowner to a property). */

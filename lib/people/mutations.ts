@@ -12,6 +12,7 @@ import { afterWrite } from "@/lib/after-write";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { todayIn } from "@/lib/dates";
+import { halfGivenPlace, type PlaceInput } from "@/lib/day-route/schemas";
 import { AppError, notFound } from "@/lib/http/app-error";
 
 import type { ReassignCountDto } from "./dto";
@@ -24,6 +25,7 @@ export const PEOPLE_MESSAGES = {
     "You cannot take away your own manager access or disable yourself: ask another manager.",
   staffOnly: "Role: only technicians and managers can change role.",
   licenseTechniciansOnly: "Applicator licenses are kept for technicians.",
+  startPointTechniciansOnly: "Start points are kept for technicians: a manager's day has no route.",
   licenseIncomplete: "License: give the number and the expiry date, or clear all three fields.",
   sameTechnician: "To: choose a different technician than the one the properties come from.",
   disabledTarget: "To: that technician's account is disabled; re-enable it or choose another.",
@@ -177,6 +179,57 @@ export async function setLicense(
             to: clearing
               ? null
               : { number: input.number, category: input.category, expiresOn: input.expiresOn },
+          },
+        },
+      });
+    });
+}
+
+/**
+ * A technician's own start point (audited): their Today's route starts and ends there instead of
+ * at the company's yard. Both coordinates empty clear it (the yard again).
+ */
+export async function setStartPoint(
+  actor: Actor,
+  personId: string,
+  input: PlaceInput,
+): Promise<void> {
+  requireManager(actor);
+  const half = halfGivenPlace("Start point", input);
+  if (half) throw new AppError("invalid_input", "Some values need attention.", half);
+  const clearing = input.latitude === null;
+  await db()
+    .transaction()
+    .execute(async (trx) => {
+      const person = await lockPerson(trx, actor, personId);
+      if (person.role !== "technician")
+        throw new AppError("invalid_input", PEOPLE_MESSAGES.startPointTechniciansOnly);
+      const before = await trx
+        .selectFrom("memberships")
+        .select(["start_label", "start_latitude", "start_longitude"])
+        .where("company_id", "=", actor.companyId)
+        .where("user_id", "=", personId)
+        .executeTakeFirstOrThrow();
+      await trx
+        .updateTable("memberships")
+        .set({
+          start_label: clearing ? "" : input.address,
+          start_latitude: input.latitude,
+          start_longitude: input.longitude,
+        })
+        .where("company_id", "=", actor.companyId)
+        .where("user_id", "=", personId)
+        .execute();
+      const place = (label: string, lat: number | null, lng: number | null) =>
+        lat === null ? null : { address: label, location: [lat, lng] };
+      await recordAudit(trx, actor, {
+        entity: "person",
+        entityId: personId,
+        action: clearing ? "clear_start_point" : "set_start_point",
+        changes: {
+          startPoint: {
+            from: place(before.start_label, before.start_latitude, before.start_longitude),
+            to: place(input.address, input.latitude, input.longitude),
           },
         },
       });

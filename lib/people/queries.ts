@@ -137,6 +137,9 @@ export async function getPeopleDirectory(actor: Actor): Promise<PeopleDirectoryD
         "users.license_category",
         "users.license_expires_on",
         "memberships.role",
+        "memberships.start_label",
+        "memberships.start_latitude",
+        "memberships.start_longitude",
       ])
       .where("memberships.company_id", "=", actor.companyId)
       .orderBy("users.name")
@@ -199,6 +202,10 @@ export async function getPeopleDirectory(actor: Actor): Promise<PeopleDirectoryD
       isYou: p.id === actor.userId,
       license: p.role === "technician" ? toLicenseDto(p, today) : null,
       properties: p.role === "manager" ? [] : (propertiesOf.get(p.id) ?? []),
+      startPoint:
+        p.role === "technician" && p.start_latitude !== null && p.start_longitude !== null
+          ? { address: p.start_label, latitude: p.start_latitude, longitude: p.start_longitude }
+          : null,
     })),
     invitations: invitations.map((i) => ({
       id: i.id,

@@ -733,6 +733,14 @@ const CELLS: Cell[] = [
     mustSucceed: true,
   },
   {
+    key: "PUT /api/v1/people/[personId]/start-point",
+    path: (t) => `/api/v1/people/${t.spareTechId}/start-point`,
+    method: "PUT",
+    body: () => ({ address: "Matrix start", latitude: 40.3, longitude: -74.7 }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
     key: "GET /api/v1/people/reassign",
     path: (t) => `/api/v1/people/reassign?from=${t.spareTechId}`,
     allow: ["manager"],

@@ -163,3 +163,39 @@ describe("the technician's license warning", () => {
     await context.close();
   }, 60_000);
 });
+
+describe("a technician's start point", () => {
+  it("a manager sets it on People at phone size; the technician's Today starts from it", async () => {
+    const office = await browser.newContext({ viewport: PHONE, baseURL: BASE });
+    const page = await office.newPage();
+    await signIn(page, BASE, c.emails["manager"]!, password);
+    await page.waitForURL(/\/book/);
+    await page.goto("/people");
+    const name = c.scenario.people.find((p) => p.key === "tech1")!.name;
+    await page.getByRole("button", { name: `Start point of ${name}` }).click();
+    const form = page.getByRole("form", { name: `Start point of ${name}` });
+    await form.getByLabel("Address").fill("Home, 14 Reed Lane");
+    await form.getByLabel("Latitude").fill("40.3189");
+    await form.getByRole("button", { name: "Save start point" }).click();
+    // Half a location is refused with the field named, and nothing is lost.
+    await form
+      .getByText("Start point location: give both the latitude and the longitude, or neither.")
+      .waitFor();
+    expect(await form.getByLabel("Address").inputValue()).toBe("Home, 14 Reed Lane");
+    await form.getByLabel("Longitude").fill("-74.7012");
+    await form.getByRole("button", { name: "Save start point" }).click();
+    await page.getByText("Day starts and ends at Home, 14 Reed Lane").waitFor();
+    await snap(page, "people-start-point-phone");
+    expect(await seriousViolations(page)).toEqual([]);
+
+    const field = await browser.newContext({ viewport: PHONE, baseURL: BASE });
+    const tech = await field.newPage();
+    await signIn(tech, BASE, c.emails["tech1"]!, password);
+    await tech.waitForURL(/\/today/);
+    await tech
+      .getByRole("region", { name: "Route" })
+      .getByText("From your start point (Home, 14 Reed Lane) and back.")
+      .waitFor();
+    await Promise.all([office.close(), field.close()]);
+  }, 120_000);
+});

@@ -16,12 +16,14 @@ import { listVisitAudit } from "@/lib/visits/queries";
 
 import { startFakeRouting } from "../harness/routing-fake";
 import { createTestCompany, testDb, type TestCompany } from "../helpers/factories";
+import { callRoute } from "../helpers/route-call";
 
 let current: Actor | null = null;
 vi.mock("@/lib/auth/session", () => ({ getActor: async () => current }));
 
 const routeRoute = await import("@/app/api/v1/today/route/route");
 const orderRoute = await import("@/app/api/v1/today/order/route");
+const startPointRoute = await import("@/app/api/v1/people/[personId]/start-point/route");
 
 let c: TestCompany;
 let manager: Actor;
@@ -255,5 +257,96 @@ describe("the day's route", () => {
     expect(bad.status).toBe(422);
     const nul = await call(tech1, routeRoute.POST as Handler, "POST", { date: "2026-12-03\u0000" });
     expect(nul.status).toBe(422);
+  });
+
+  it("a manager sets, refuses, and clears a technician's start point on People; the route follows", async () => {
+    const put = (as: Actor | null, personId: string, body: unknown) => {
+      current = as;
+      return callRoute(startPointRoute.PUT as Handler, body, {
+        method: "PUT",
+        params: { personId },
+      });
+    };
+    const tech1Id = c.userIds.tech1!;
+    const saved = await put(manager, tech1Id, {
+      address: "Home, 14 Reed Lane",
+      latitude: 40.3189,
+      longitude: -74.7012,
+    });
+    expect(saved.status).toBe(200);
+    expect((await readRoute(tech1)).start).toEqual({
+      kind: "start_point",
+      label: "Home, 14 Reed Lane",
+    });
+    const audit = await db
+      .selectFrom("audit_events")
+      .select(["action", "changes"])
+      .where("entity_id", "=", tech1Id)
+      .where("action", "like", "%start_point")
+      .orderBy("id")
+      .execute();
+    expect(audit.map((a) => a.action)).toEqual(["set_start_point"]);
+    expect(audit[0]!.changes).toEqual({
+      startPoint: {
+        from: null,
+        to: { address: "Home, 14 Reed Lane", location: [40.3189, -74.7012] },
+      },
+    });
+
+    // Refusals name the field and keep what was saved.
+    const half = await put(manager, tech1Id, { address: "", latitude: 40.1, longitude: null });
+    expect(half.status).toBe(422);
+    expect(half.body.error?.fieldErrors?.longitude?.[0]).toBe(
+      "Start point location: give both the latitude and the longitude, or neither.",
+    );
+    const far = await put(manager, tech1Id, { address: "", latitude: 95, longitude: -74.7 });
+    expect(far.body.error?.fieldErrors?.latitude?.[0]).toBe(
+      "Start point latitude: between -90 and 90.",
+    );
+    const text = await put(manager, tech1Id, { address: "", latitude: "forty", longitude: -74.7 });
+    expect(text.status).toBe(422);
+    const nul = await put(manager, tech1Id, {
+      address: "Home\u0000",
+      latitude: 40,
+      longitude: -74,
+    });
+    expect(nul.status).toBe(422);
+    const long = await put(manager, tech1Id, {
+      address: "x".repeat(201),
+      latitude: 40,
+      longitude: -74,
+    });
+    expect(long.body.error?.fieldErrors?.address?.[0]).toBe(
+      "Start point address: at most 200 characters.",
+    );
+    // A manager has no route; a technician cannot set anyone's; a person of no company of ours.
+    expect(
+      (await put(manager, c.userIds.manager!, { address: "", latitude: 40, longitude: -74 }))
+        .status,
+    ).toBe(422);
+    expect((await put(tech1, tech1Id, { address: "", latitude: 40, longitude: -74 })).status).toBe(
+      403,
+    );
+    expect(
+      (
+        await put(manager, "00000000-0000-4000-8000-000000000000", {
+          address: "",
+          latitude: 40,
+          longitude: -74,
+        })
+      ).status,
+    ).toBe(404);
+    expect((await readRoute(tech1)).start).toEqual({
+      kind: "start_point",
+      label: "Home, 14 Reed Lane",
+    });
+
+    // Cleared: the yard again.
+    const cleared = await put(manager, tech1Id, { address: "", latitude: null, longitude: null });
+    expect(cleared.status).toBe(200);
+    expect((await readRoute(tech1)).start).toEqual({
+      kind: "yard",
+      label: "61 Tanager Road, Larkfield",
+    });
   });
 });

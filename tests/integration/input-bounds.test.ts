@@ -34,6 +34,7 @@ const zoneChecks = await import("@/app/api/v1/visits/[visitId]/zone-checks/[zone
 const pressureSettings = await import("@/app/api/v1/company-settings/pressure-areas/route");
 const propertyRoute = await import("@/app/api/v1/properties/[propertyId]/route");
 const yardRoute = await import("@/app/api/v1/company-settings/yard/route");
+const startPointRoute = await import("@/app/api/v1/people/[personId]/start-point/route");
 const orderRoute = await import("@/app/api/v1/today/order/route");
 
 let c: TestCompany;
@@ -604,6 +605,47 @@ describe("the day's route: a property's phone and access notes, the yard, the da
       .where("id", "=", c.companyId)
       .executeTakeFirstOrThrow();
     expect(row).toEqual({ yard_latitude: 90, yard_longitude: -180 });
+  });
+
+  it("a technician's start point: latitude −90 and longitude 180 accepted; −90.01 and 180.01 refused; one coordinate without the other refused", async () => {
+    current = await c.actor("manager");
+    const params = { personId: c.userIds["tech1"]! };
+    const start = (o: Record<string, unknown>) => ({
+      address: "Home, 14 Reed Lane",
+      latitude: 40.3,
+      longitude: -74.7,
+      ...o,
+    });
+    expect(
+      (await post(startPointRoute.PUT, start({ latitude: -90, longitude: 180 }), params, "PUT"))
+        .status,
+    ).toBe(200);
+    const south = await post(startPointRoute.PUT, start({ latitude: -90.01 }), params, "PUT");
+    expect(south.fieldErrors.latitude?.[0]).toBe("Start point latitude: between -90 and 90.");
+    const east = await post(startPointRoute.PUT, start({ longitude: 180.01 }), params, "PUT");
+    expect(east.fieldErrors.longitude?.[0]).toBe("Start point longitude: between -180 and 180.");
+    const half = await post(startPointRoute.PUT, start({ latitude: null }), params, "PUT");
+    expect(half.fieldErrors.latitude?.[0]).toMatch(
+      /both the latitude and the longitude, or neither/,
+    );
+    const row = await testDb()
+      .selectFrom("memberships")
+      .select(["start_latitude", "start_longitude"])
+      .where("company_id", "=", c.companyId)
+      .where("user_id", "=", params.personId)
+      .executeTakeFirstOrThrow();
+    expect(row).toEqual({ start_latitude: -90, start_longitude: 180 });
+    // Back to the yard, so the day's route cases below start from it.
+    expect(
+      (
+        await post(
+          startPointRoute.PUT,
+          start({ address: "", latitude: null, longitude: null }),
+          params,
+          "PUT",
+        )
+      ).status,
+    ).toBe(200);
   });
 
   it(`the day's order: at most ${DAY_ORDER_MAX_STOPS} stops in one list; none refused`, async () => {
