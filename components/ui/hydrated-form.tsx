@@ -9,7 +9,7 @@ import { useSyncExternalStore, type ComponentProps } from "react";
 const noSubscription = () => () => {};
 
 /** False in the server's HTML and during hydration, true once the page runs in the browser. */
-export function useHydrated(): boolean {
+function useHydrated(): boolean {
   return useSyncExternalStore(
     noSubscription,
     () => true,

@@ -37,7 +37,7 @@ export interface DirectoryPersonDto {
 }
 
 /** Where a technician's day starts and ends, when not at the company's yard. */
-export interface StartPointDto {
+interface StartPointDto {
   address: string;
   latitude: number;
   longitude: number;
