@@ -4,6 +4,7 @@
 // the applications already recorded here. The server recomputes everything and decides.
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { CircleAlert, FlaskConical, TriangleAlert } from "lucide-react";
+import { useTranslations } from "next-intl";
 import { useEffect, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod/mini";
@@ -28,6 +29,8 @@ import {
   rateUnitsFor,
 } from "@/lib/applications/units";
 import { todayIn } from "@/lib/dates";
+import { outbox, requestBackgroundSync } from "@/lib/offline/client";
+import type { OutboxOp } from "@/lib/offline/db";
 import { meKeys } from "@/lib/people/query-keys";
 import { analysisOf, type ProductDto } from "@/lib/products/dto";
 import { productKeys } from "@/lib/products/query-keys";
@@ -191,7 +194,10 @@ export function ApplicationPanel({
   weather,
   correctionReason = null,
   entries,
+  waiting = [],
 }: {
+  /** The visit's operations waiting in the phone's outbox (applications recorded offline). */
+  waiting?: OutboxOp[];
   /** On a finished visit, the reason the manager gave for the correction (sent with the record). */
   correctionReason?: string | null;
   /** Correct and Delete for the applications listed, for whoever may (lib: the entry's author or a manager). */
@@ -233,6 +239,7 @@ export function ApplicationPanel({
     queryFn: () => fetchJson<{ name: string; license: string }>("/api/v1/me/applicator"),
     staleTime: Infinity,
   });
+  const tOffline = useTranslations("offline");
   const [isOpen, setIsOpen] = useState(false);
   const [targetN, setTargetN] = useState("");
   const [serverFindings, setServerFindings] = useState<RuleFinding[] | null>(null);
@@ -372,18 +379,30 @@ export function ApplicationPanel({
   const record = (withOverride: boolean) =>
     handleSubmit(async (values) => {
       setMessage(null);
-      const result = await sendJson<ApplicationDto>(
-        "POST",
-        `/api/v1/visits/${visitId}/applications`,
-        {
-          ...values,
-          overrideReason: withOverride && values.overrideReason ? values.overrideReason : null,
-          overrideCategory: withOverride ? (values.overrideCategory ?? null) : null,
-          ...(correctionReason ? { correctionReason } : {}),
-        },
-      );
-      if (result.ok) {
-        onRecorded(result.data);
+      const body = {
+        ...values,
+        overrideReason: withOverride && values.overrideReason ? values.overrideReason : null,
+        overrideCategory: withOverride ? (values.overrideCategory ?? null) : null,
+        ...(correctionReason ? { correctionReason } : {}),
+      };
+      // With no signal the application waits in the outbox with the moment it was recorded (the
+      // server binds it to the visit and runs the same checks when it arrives).
+      const queue = async () => {
+        await outbox().enqueue({
+          kind: "application",
+          visitId,
+          zoneId,
+          clientId: values.id,
+          payload: { ...body, appliedAt: body.appliedAt ?? new Date().toISOString() },
+        });
+        requestBackgroundSync();
+      };
+      const result: Awaited<ReturnType<typeof sendJson<ApplicationDto>>> = navigator.onLine
+        ? await sendJson<ApplicationDto>("POST", `/api/v1/visits/${visitId}/applications`, body)
+        : { ok: false, status: 0, error: { code: "offline", message: "" } };
+      if (result.ok || result.status === 0) {
+        if (result.ok) onRecorded(result.data);
+        else await queue();
         // The server remembered what was typed (a field left empty keeps the old value).
         queryClient.setQueryData(
           meKeys.applicator(),
@@ -414,6 +433,12 @@ export function ApplicationPanel({
     });
 
   const here = applications.filter((a) => a.zoneId === zoneId);
+  const waitingHere = waiting.filter(
+    (op) =>
+      op.kind === "application" &&
+      op.zoneId === zoneId &&
+      !applications.some((a) => a.id === op.clientId),
+  );
   const shownFindings = serverFindings ?? liveFindings;
   const isRefusedNow = shownFindings.some((f) => f.severity === "refusal");
   const isLabelRefusedNow = shownFindings.some(
@@ -423,6 +448,30 @@ export function ApplicationPanel({
 
   return (
     <div className="space-y-3">
+      {waitingHere.length ? (
+        <ul className="space-y-2" aria-label="Applications waiting to send">
+          {waitingHere.map((op) => {
+            const queued = products.data?.find((p) => p.id === op.payload["productId"]);
+            const amount = Number(op.payload["rateAmount"]);
+            const unit = op.payload["rateUnit"] as RateUnit;
+            return (
+              <li key={op.seq} className="rounded-lg border border-rain bg-rain-tint p-3 text-sm">
+                <p className="font-bold">
+                  {queued?.name ?? "—"}: {amount} {RATE_UNIT_LABEL[unit]}
+                </p>
+                {queued ? (
+                  <p>
+                    {f2(nutrientsPer1000(analysisOf(queued), { amount, unit }).nLb)} lb N per 1,000
+                    ft²
+                  </p>
+                ) : null}
+                <p className="font-semibold">{tOffline("applicationWaiting")}</p>
+                {op.held ? <p className="text-clay">{op.held.message}</p> : null}
+              </li>
+            );
+          })}
+        </ul>
+      ) : null}
       {here.length ? (
         <ul className="space-y-2" aria-label="Applications on this zone">
           {here.map((a) => (

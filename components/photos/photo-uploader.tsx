@@ -5,11 +5,18 @@
 // thumbnails at once; a file that failed can be dismissed, and retried only when a retry can
 // succeed (no connection, a server fault, a busy server — not a file that is not a photo or too
 // large). Photos already on the check can be deleted by whoever may (`canDelete`).
+// With no signal (or when the upload finds none) a photo is drawn at display size on the phone and
+// queued in the outbox (lib/offline) with the moment it was taken; it shows as a thumbnail marked
+// "Waiting to send" until the server has it.
 import { Camera, ImagePlus, RefreshCw, Trash2, Upload, X } from "lucide-react";
-import { useCallback, useEffect, useRef, useState } from "react";
+import { useTranslations } from "next-intl";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { useDropzone } from "react-dropzone";
 
 import { Button } from "@/components/ui/button";
+import { outbox, requestBackgroundSync } from "@/lib/offline/client";
+import type { OutboxOp } from "@/lib/offline/db";
+import { downscalePhoto } from "@/lib/offline/downscale";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { createLimiter } from "@/lib/photos/limiter";
 
@@ -62,9 +69,38 @@ function send(
   });
 }
 
+/** A queued photo's thumbnail, from its blob on the phone. */
+function WaitingPhoto({ op, label }: { op: OutboxOp; label: string }) {
+  // Freed once drawn (the picture stays on screen).
+  const url = useMemo(() => (op.blob ? URL.createObjectURL(op.blob) : null), [op.blob]);
+  return (
+    <figure
+      className="overflow-hidden rounded-lg border border-rain bg-rain-tint"
+      data-waiting-photo
+    >
+      {url ? (
+        // eslint-disable-next-line @next/next/no-img-element -- a photo kept on the phone (blob: URL)
+        <img
+          src={url}
+          alt=""
+          onLoad={() => URL.revokeObjectURL(url)}
+          className="aspect-[4/3] w-full object-cover"
+        />
+      ) : null}
+      <figcaption className="p-2 text-sm font-semibold">
+        {label}
+        {op.held ? <span className="block text-clay">{op.held.message}</span> : null}
+      </figcaption>
+    </figure>
+  );
+}
+
 export function PhotoUploader({
   visitId,
+  zoneId,
   ensureSaved,
+  ensureQueued,
+  waiting = [],
   photos,
   onUploaded,
   disabled,
@@ -73,7 +109,12 @@ export function PhotoUploader({
   onDelete,
 }: {
   visitId: string;
+  zoneId: string;
   ensureSaved: () => Promise<string>;
+  /** The zone check's id once its save waits in the outbox (a photo queued offline follows it). */
+  ensureQueued: () => Promise<string>;
+  /** This zone's photos waiting in the outbox. */
+  waiting?: OutboxOp[];
   photos: PhotoDto[];
   onUploaded: (photo: PhotoDto) => void;
   disabled: boolean;
@@ -82,11 +123,41 @@ export function PhotoUploader({
   canDelete?: (photo: PhotoDto) => boolean;
   onDelete?: (photo: PhotoDto) => void;
 }) {
+  const t = useTranslations("offline");
   const [queue, setQueue] = useState<QueueItem[]>([]);
+  const [queuedNote, setQueuedNote] = useState(false);
   const [limit] = useState(() => createLimiter(PARALLEL));
   const cameraInput = useRef<HTMLInputElement>(null);
   const patch = (localId: string, change: Partial<QueueItem>) =>
     setQueue((q) => q.map((item) => (item.localId === localId ? { ...item, ...change } : item)));
+
+  const correctionReason = new URLSearchParams(uploadQuery).get("correctionReason");
+  /** Keeps the photo on the phone (display size) in the outbox; false when it could not be. */
+  const queueOnPhone = useCallback(
+    async (file: File): Promise<boolean> => {
+      try {
+        const capturedAt = new Date().toISOString();
+        const zoneCheckId = await ensureQueued();
+        const blob = await downscalePhoto(file);
+        await outbox().enqueue({
+          kind: "photo",
+          visitId,
+          zoneId,
+          clientId: crypto.randomUUID(),
+          payload: { zoneCheckId, ...(correctionReason ? { correctionReason } : {}) },
+          blob,
+          capturedAt,
+        });
+        requestBackgroundSync();
+        setQueuedNote(true);
+        void outbox().replay();
+        return true;
+      } catch {
+        return false;
+      }
+    },
+    [correctionReason, ensureQueued, visitId, zoneId],
+  );
 
   const upload = useCallback(
     (item: QueueItem) =>
@@ -103,6 +174,9 @@ export function PhotoUploader({
           if (status === 200 || status === 201) {
             patch(item.localId, { status: "done" });
             onUploaded(body as PhotoDto);
+          } else if (status === 0 && (await queueOnPhone(item.file))) {
+            // No signal after all: the outbox has it now.
+            setQueue((q) => q.filter((x) => x.localId !== item.localId));
           } else {
             const message =
               (body as { error?: { message?: string } } | null)?.error?.message ??
@@ -119,7 +193,7 @@ export function PhotoUploader({
           });
         }
       }),
-    [ensureSaved, limit, onUploaded, uploadQuery, visitId],
+    [ensureSaved, limit, onUploaded, queueOnPhone, uploadQuery, visitId],
   );
 
   // Previews are blob: URLs; free them when the uploader goes away.
@@ -131,6 +205,11 @@ export function PhotoUploader({
 
   const add = useCallback(
     (files: File[]) => {
+      if (!navigator.onLine) {
+        for (const file of files)
+          if (file.size > 0 && file.size <= MAX_BYTES) void queueOnPhone(file);
+        return;
+      }
       const items = files.map<QueueItem>((file) => ({
         localId: crypto.randomUUID(),
         file,
@@ -148,7 +227,7 @@ export function PhotoUploader({
       setQueue((q) => [...q, ...items]);
       for (const item of items) if (item.status === "waiting") void upload(item);
     },
-    [upload],
+    [queueOnPhone, upload],
   );
 
   const { getRootProps, getInputProps, isDragActive, open } = useDropzone({
@@ -160,8 +239,23 @@ export function PhotoUploader({
   });
   const pending = queue.filter((q) => q.status !== "done");
 
+  const waitingPhotos = waiting.filter((op) => op.kind === "photo" && op.zoneId === zoneId);
   return (
     <div className="space-y-3">
+      {waitingPhotos.length ? (
+        <ul className="grid grid-cols-2 gap-3" aria-label="Photos waiting to send">
+          {waitingPhotos.map((op) => (
+            <li key={op.seq}>
+              <WaitingPhoto op={op} label={t("photoWaiting")} />
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {queuedNote && waitingPhotos.length ? (
+        <p className="text-sm text-muted" role="status">
+          {t("photoQueued")}
+        </p>
+      ) : null}
       {photos.length ? (
         <ul className="grid grid-cols-2 gap-3" aria-label="Photos of this zone check">
           {photos.map((p) => (

@@ -1,4 +1,7 @@
-// The device copy of zone-check drafts (localStorage), so a reload or a dead battery loses nothing.
+// The device copy of zone-check drafts, in the phone's IndexedDB store (lib/offline/db.ts), so a
+// reload, a closed tab or a dead battery loses nothing. Drafts an earlier version kept in
+// localStorage are moved over once, the first time their zone is opened.
+import { draftKey, offlineDb } from "@/lib/offline/db";
 import type { ZoneCheckValues } from "@/lib/visits/dto";
 
 export interface DeviceDraft {
@@ -10,28 +13,56 @@ export interface DeviceDraft {
   savedLocallyAt: string;
 }
 
-const key = (visitId: string, zoneId: string) => `sward:zone-check:${visitId}:${zoneId}`;
+const legacyKey = (visitId: string, zoneId: string) => `sward:zone-check:${visitId}:${zoneId}`;
 
-export function readDraft(visitId: string, zoneId: string): DeviceDraft | null {
+function takeLegacyDraft(visitId: string, zoneId: string): DeviceDraft | null {
   try {
-    const raw = window.localStorage.getItem(key(visitId, zoneId));
+    const raw = window.localStorage.getItem(legacyKey(visitId, zoneId));
     return raw ? (JSON.parse(raw) as DeviceDraft) : null;
   } catch {
     return null;
   }
 }
 
-export function writeDraft(visitId: string, zoneId: string, draft: DeviceDraft): boolean {
-  try {
-    window.localStorage.setItem(key(visitId, zoneId), JSON.stringify(draft));
-    return true;
-  } catch {
-    return false; // storage full or disabled: the server copy still saves
+export async function readDraft(visitId: string, zoneId: string): Promise<DeviceDraft | null> {
+  const key = draftKey(visitId, zoneId);
+  const row = await offlineDb().drafts.get(key);
+  const legacy = takeLegacyDraft(visitId, zoneId);
+  if (legacy && (!row || legacy.savedLocallyAt > row.savedLocallyAt)) {
+    // Moved once: written to IndexedDB first, then removed from localStorage.
+    await offlineDb().drafts.put({ ...legacy, key, visitId, zoneId });
+    try {
+      window.localStorage.removeItem(legacyKey(visitId, zoneId));
+    } catch {
+      /* kept there too; the newer copy wins next time */
+    }
+    return legacy;
   }
+  if (legacy) {
+    try {
+      window.localStorage.removeItem(legacyKey(visitId, zoneId));
+    } catch {
+      /* nothing to remove */
+    }
+  }
+  if (!row) return null;
+  const { key: _k, visitId: _v, zoneId: _z, ...draft } = row;
+  return draft;
+}
+
+export function writeDraft(visitId: string, zoneId: string, draft: DeviceDraft): void {
+  void offlineDb()
+    .drafts.put({ ...draft, key: draftKey(visitId, zoneId), visitId, zoneId })
+    .catch(() => undefined); // storage full or disabled: the outbox and the server copy still save
 }
 
 /** Forgets every device copy of a visit's zone checks (after the visit is finished). */
 export function clearVisitDrafts(visitId: string): void {
+  void offlineDb()
+    .drafts.where("visitId")
+    .equals(visitId)
+    .delete()
+    .catch(() => undefined);
   try {
     const prefix = `sward:zone-check:${visitId}:`;
     const keys = Array.from({ length: window.localStorage.length }, (_, i) =>

@@ -2,6 +2,7 @@
 
 // Where the zone check stands with the server, in words and an icon (never colour alone).
 import { CheckCircle2, CircleAlert, CloudOff, CloudUpload, Lock, RefreshCw } from "lucide-react";
+import { useTranslations } from "next-intl";
 
 import type { SaveState } from "./zone-check-autosave";
 
@@ -14,6 +15,7 @@ export function SaveStatus({
   onRetry: () => void;
   timeZone: string;
 }) {
+  const t = useTranslations("offline");
   const base = "flex items-center gap-2 rounded-lg px-3 py-1.5 text-sm font-semibold";
   switch (state.kind) {
     case "idle":
@@ -36,6 +38,13 @@ export function SaveStatus({
             minute: "2-digit",
             timeZone,
           }).format(new Date(state.at))}
+        </p>
+      );
+    case "waiting":
+      return (
+        <p className={`${base} bg-rain-tint text-ink`} role="status">
+          <CloudOff className="size-5 shrink-0 text-rain" aria-hidden="true" />
+          {t("savedWaiting")}
         </p>
       );
     case "retrying":

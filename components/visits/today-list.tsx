@@ -6,7 +6,10 @@ import { ChevronRight, MapPin, TriangleAlert } from "lucide-react";
 import Link from "next/link";
 
 import { stopNameId, StopRouteTools } from "@/components/day-route/stop-route-tools";
+import { useWaitingOps } from "@/components/offline/use-outbox";
+import { WaitingLine } from "@/components/offline/waiting-line";
 import { formatDate } from "@/lib/dates";
+import { visitStatus } from "@/lib/offline/overlay";
 import { fetchJson } from "@/lib/query-client";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import type { TodayStopDto } from "@/lib/visits/dto";
@@ -18,6 +21,8 @@ import { CallOffStop, StopOutcome } from "./stop-outcome";
 export function TodayList({ date, timeZone }: { date: string; timeZone: string }) {
   const queryClient = useQueryClient();
   const refresh = () => queryClient.invalidateQueries({ queryKey: visitKeys.all });
+  // What each stop still has waiting on this phone (lib/offline).
+  const waiting = useWaitingOps();
   const { data, error, isPending } = useQuery({
     queryKey: visitKeys.today(date),
     queryFn: async () =>
@@ -64,7 +69,13 @@ export function TodayList({ date, timeZone }: { date: string; timeZone: string }
                     <p id={stopNameId(stop.id)} className="text-lg font-bold text-ink">
                       {stop.propertyName}
                     </p>
-                    <VisitStatusBadge status={stop.status} cancelKind={stop.outcome?.kind} />
+                    <VisitStatusBadge
+                      status={visitStatus(
+                        stop,
+                        waiting.filter((op) => op.visitId === stop.id),
+                      )}
+                      cancelKind={stop.outcome?.kind}
+                    />
                   </div>
                   <p className="mt-1 flex items-center gap-1.5 text-muted">
                     <MapPin className="size-4 shrink-0" aria-hidden="true" />
@@ -94,6 +105,7 @@ export function TodayList({ date, timeZone }: { date: string; timeZone: string }
                 <ChevronRight className="mt-2 size-6 shrink-0 text-muted" aria-hidden="true" />
               </div>
             </Link>
+            <WaitingLine ops={waiting.filter((op) => op.visitId === stop.id)} timeZone={timeZone} />
             <StopRouteTools stop={stop} date={date} order={data.map((s) => s.id)} />
             {stop.outcome ? (
               <StopOutcome

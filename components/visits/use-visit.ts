@@ -17,59 +17,57 @@ export function useVisit(visitId: string) {
   });
 }
 
+/** A visit with a saved zone check in it (newer versions only replace older ones). */
+export function withCheck(visit: VisitDetailDto, check: ZoneCheckDto): VisitDetailDto {
+  const known = visit.checks.find((c) => c.id === check.id || c.zoneId === check.zoneId);
+  if (known && known.id === check.id && known.version > check.version) return visit;
+  const checks = known
+    ? visit.checks.map((c) => (c === known ? check : c))
+    : [...visit.checks, check];
+  const checkedZones = checks.filter((c) => c.status !== "draft").length;
+  return {
+    ...visit,
+    checks,
+    checkedZones,
+    status: visit.status === "scheduled" ? "in_progress" : visit.status,
+  };
+}
+
+/** A visit with an uploaded photo in it. */
+export function withPhoto(visit: VisitDetailDto, photo: PhotoDto): VisitDetailDto {
+  return visit.photos.some((p) => p.id === photo.id)
+    ? visit
+    : { ...visit, photos: [...visit.photos, photo] };
+}
+
+/** A visit with a recorded application in it. */
+export function withApplication(
+  visit: VisitDetailDto,
+  application: ApplicationDto,
+): VisitDetailDto {
+  return visit.applications.some((a) => a.id === application.id)
+    ? visit
+    : {
+        ...visit,
+        applications: [...visit.applications, application],
+        status: visit.status === "scheduled" ? "in_progress" : visit.status,
+      };
+}
+
+function useMerge<T>(visitId: string, merge: (visit: VisitDetailDto, item: T) => VisitDetailDto) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    (item: T) =>
+      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) =>
+        visit ? merge(visit, item) : visit,
+      ),
+    [queryClient, visitId, merge],
+  );
+}
+
 /** Merges a saved zone check into the cached visit (no refetch needed). */
-export function useMergeZoneCheck(visitId: string) {
-  const queryClient = useQueryClient();
-  return useCallback(
-    (check: ZoneCheckDto) => {
-      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) => {
-        if (!visit) return visit;
-        const checks = visit.checks.some((c) => c.id === check.id || c.zoneId === check.zoneId)
-          ? visit.checks.map((c) => (c.id === check.id || c.zoneId === check.zoneId ? check : c))
-          : [...visit.checks, check];
-        const checkedZones = checks.filter((c) => c.status !== "draft").length;
-        return {
-          ...visit,
-          checks,
-          checkedZones,
-          status: visit.status === "scheduled" ? "in_progress" : visit.status,
-        };
-      });
-    },
-    [queryClient, visitId],
-  );
-}
-
+export const useMergeZoneCheck = (visitId: string) => useMerge(visitId, withCheck);
 /** Adds an uploaded photo to the cached visit. */
-export function useMergePhoto(visitId: string) {
-  const queryClient = useQueryClient();
-  return useCallback(
-    (photo: PhotoDto) => {
-      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) =>
-        visit && !visit.photos.some((p) => p.id === photo.id)
-          ? { ...visit, photos: [...visit.photos, photo] }
-          : visit,
-      );
-    },
-    [queryClient, visitId],
-  );
-}
-
+export const useMergePhoto = (visitId: string) => useMerge(visitId, withPhoto);
 /** Adds a recorded application to the cached visit. */
-export function useMergeApplication(visitId: string) {
-  const queryClient = useQueryClient();
-  return useCallback(
-    (application: ApplicationDto) => {
-      queryClient.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (visit) =>
-        visit && !visit.applications.some((a) => a.id === application.id)
-          ? {
-              ...visit,
-              applications: [...visit.applications, application],
-              status: visit.status === "scheduled" ? "in_progress" : visit.status,
-            }
-          : visit,
-      );
-    },
-    [queryClient, visitId],
-  );
-}
+export const useMergeApplication = (visitId: string) => useMerge(visitId, withApplication);

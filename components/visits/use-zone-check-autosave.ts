@@ -1,13 +1,64 @@
 "use client";
 
-// React binding of ZoneCheckAutosave: one store per zone check, browser storage and fetch.
+// React binding of ZoneCheckAutosave: one store per zone check; the device copy in IndexedDB and
+// every save through the outbox (lib/offline), which keeps it when there is no signal.
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 
-import { sendJson } from "@/lib/query-client";
+import { outbox, requestBackgroundSync } from "@/lib/offline/client";
+import type { SendResult } from "@/lib/query-client";
 import type { ZoneCheckDto } from "@/lib/visits/dto";
 
 import { readDraft, writeDraft } from "./draft-store";
 import { ZoneCheckAutosave } from "./zone-check-autosave";
+
+/** The zone check's operation in the outbox, sent now when it can be. */
+async function sendThroughOutbox(
+  visitId: string,
+  zoneId: string,
+  url: string,
+  body: Record<string, unknown>,
+): Promise<SendResult<ZoneCheckDto>> {
+  const { baseVersion, ...payload } = body;
+  const clientId = url.split("/").pop()!;
+  const outcome = await outbox().submit({
+    kind: "zone-check",
+    visitId,
+    zoneId,
+    clientId,
+    baseVersion: typeof baseVersion === "number" ? baseVersion : 0,
+    payload,
+  });
+  switch (outcome.kind) {
+    case "applied":
+    case "already-applied":
+      return { ok: true, status: 200, data: outcome.data as ZoneCheckDto };
+    case "held": {
+      const { held } = outcome;
+      const status = held.reason === "conflict" ? 409 : held.reason === "refused" ? 422 : 403;
+      return {
+        ok: false,
+        status,
+        error: {
+          code: held.reason,
+          message: held.message,
+          fieldErrors: held.fieldErrors,
+          details: held.current === undefined ? undefined : { current: held.current },
+        },
+      };
+    }
+    case "retry":
+    case "waiting":
+      requestBackgroundSync();
+      return {
+        ok: false,
+        status: 0,
+        error: {
+          code: navigator.onLine ? "offline" : "waiting",
+          message: outcome.message ?? "No connection.",
+        },
+      };
+  }
+}
 
 export function useZoneCheckAutosave(
   visitId: string,
@@ -24,16 +75,33 @@ export function useZoneCheckAutosave(
     onSavedRef.current = onSaved;
     reasonRef.current = correctionReason;
   }, [onSaved, correctionReason]);
+  const withReason = (body: unknown) =>
+    (reasonRef.current
+      ? { ...(body as object), correctionReason: reasonRef.current }
+      : body) as Record<string, unknown>;
   const [store] = useState(
     () =>
       new ZoneCheckAutosave(visitId, zoneId, serverCheck, canEdit, {
-        send: (url, body, keepalive) =>
-          sendJson<ZoneCheckDto>(
-            "PUT",
-            url,
-            reasonRef.current ? { ...(body as object), correctionReason: reasonRef.current } : body,
-            { keepalive },
-          ),
+        send: (url, body) => sendThroughOutbox(visitId, zoneId, url, withReason(body)),
+        queue: async (url, body) => {
+          const { baseVersion, ...payload } = withReason(body);
+          await outbox().enqueue({
+            kind: "zone-check",
+            visitId,
+            zoneId,
+            clientId: url.split("/").pop()!,
+            baseVersion: typeof baseVersion === "number" ? baseVersion : 0,
+            payload,
+          });
+        },
+        onTookTheirs: (theirs) => {
+          void outbox()
+            .waiting(visitId)
+            .then((ops) => {
+              const held = ops.find((o) => o.kind === "zone-check" && o.zoneId === zoneId);
+              if (held) void outbox().takeTheirs(held.seq!, theirs as never);
+            });
+        },
         storage: {
           read: () => readDraft(visitId, zoneId),
           write: (d) => writeDraft(visitId, zoneId, d),
@@ -57,17 +125,23 @@ export function useZoneCheckAutosave(
 
   useEffect(() => {
     store.start();
+    // Sent later by the outbox (network back, another tab): the form hears of it.
+    const stop = outbox().subscribe((event) => {
+      if (event.type === "applied" && event.op.kind === "zone-check" && event.op.zoneId === zoneId)
+        store.acknowledge(event.data as ZoneCheckDto);
+    });
     const flushIfHidden = () => document.visibilityState === "hidden" && store.flush();
     const flush = () => store.flush();
     document.addEventListener("visibilitychange", flushIfHidden);
     window.addEventListener("pagehide", flush);
     return () => {
+      stop();
       document.removeEventListener("visibilitychange", flushIfHidden);
       window.removeEventListener("pagehide", flush);
       store.flush();
       store.dispose();
     };
-  }, [store]);
+  }, [store, zoneId]);
 
   return { ...snapshot, store };
 }

@@ -4,12 +4,18 @@
 // the URL (?zone=…) so a reload lands on the same zone with its draft.
 import { useQueryClient } from "@tanstack/react-query";
 import { ArrowLeft, ArrowRight, CheckCheck, List, MapPin, Play } from "lucide-react";
+import { useLocale, useTranslations } from "next-intl";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useState, type ReactNode } from "react";
 
+import { HeldOps } from "@/components/offline/held-ops";
+import { useWaitingOps } from "@/components/offline/use-outbox";
+import { WaitingLine } from "@/components/offline/waiting-line";
 import { Button } from "@/components/ui/button";
 import { formatAreaFt2 } from "@/components/ui/format";
-import { formatDate } from "@/lib/dates";
+import { formatDate, formatTime } from "@/lib/dates";
+import { outbox, requestBackgroundSync } from "@/lib/offline/client";
+import { visitStatus, zonesLeft, zoneStatuses } from "@/lib/offline/overlay";
 import { sendJson } from "@/lib/query-client";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
@@ -62,6 +68,9 @@ export function VisitRunner({
   // Enter), so a half-typed reason is never the one saved in the audit trail.
   const [reasonDraft, setReasonDraft] = useState("");
   const [correctionReason, setCorrectionReason] = useState("");
+  const waiting = useWaitingOps(visitId);
+  const t = useTranslations("offline");
+  const locale = useLocale();
   if (!visit) return null;
 
   const zoneId = searchParams.get("zone");
@@ -69,31 +78,65 @@ export function VisitRunner({
   const checkOf = (id: string) => visit.checks.find((c) => c.zoneId === id);
   const openZone = (id: string | null) =>
     router.replace(id ? `${pathname}?zone=${id}` : pathname, { scroll: true });
-  const remaining = visit.zones.filter((z) => !checkOf(z.id) || checkOf(z.id)?.status === "draft");
+  // What the phone has queued, laid over the server's copy (lib/offline/overlay.ts).
+  const zoneStatus = zoneStatuses(visit, waiting);
+  const remaining = zonesLeft(visit, waiting);
+  const status = visitStatus(visit, waiting);
+  const queuedStart = waiting.find((op) => op.kind === "start");
+  const queuedFinish = waiting.find((op) => op.kind === "finish");
+  const waitingOf = (zoneId: string) => waiting.filter((op) => op.zoneId === zoneId).length;
   const setVisit = (next: VisitDetailDto) =>
     queryClient.setQueryData(visitKeys.detail(visitId), next);
+  const zoneName = (id: string | null) => visit.zones.find((z) => z.id === id)?.name ?? "—";
+  const waitingBar = (
+    <>
+      <HeldOps ops={waiting} zoneName={zoneName} onOpenZone={(id) => openZone(id)} />
+      <WaitingLine
+        ops={waiting}
+        timeZone={visit.timeZone}
+        onSendNow={() => void outbox().replay({ now: true })}
+        className="mb-4"
+      />
+    </>
+  );
+
+  /** Queues an operation the server could not take now (no signal); the outbox sends it later. */
+  async function queue(kind: "start" | "finish", payload: Record<string, unknown>) {
+    await outbox().enqueue({ kind, visitId, zoneId: null, clientId: visitId, payload });
+    requestBackgroundSync();
+  }
 
   async function start() {
     setIsBusy(true);
     setMessage(null);
-    const result = await sendJson<VisitDetailDto>(
-      "POST",
-      `/api/v1/visits/${visitId}/start`,
-      await currentPosition(),
-    );
+    const body = { ...(await currentPosition()), startedAt: new Date().toISOString() };
+    const result = navigator.onLine
+      ? await sendJson<VisitDetailDto>("POST", `/api/v1/visits/${visitId}/start`, body)
+      : null;
     setIsBusy(false);
-    if (result.ok) {
+    if (result?.ok) {
       setVisit(result.data);
       if (result.data.zones[0]) openZone(result.data.zones[0].id);
+    } else if (!result || result.status === 0) {
+      await queue("start", body);
+      if (visit?.zones[0]) openZone(visit.zones[0].id);
     } else setMessage(result.error.message);
   }
 
   async function finish() {
     setIsBusy(true);
     setMessage(null);
+    // Behind anything still queued for this visit: the server sees the zones first.
+    if (!navigator.onLine || waiting.length) {
+      await queue("finish", {});
+      void outbox().replay({ now: true });
+      setIsBusy(false);
+      return;
+    }
     const result = await sendJson<VisitDetailDto>("POST", `/api/v1/visits/${visitId}/finish`, {});
     setIsBusy(false);
-    if (result.ok) {
+    if (!result.ok && result.status === 0) await queue("finish", {});
+    else if (result.ok) {
       clearVisitDrafts(visitId);
       setVisit(result.data);
       void queryClient.invalidateQueries({ queryKey: visitKeys.all });
@@ -106,7 +149,7 @@ export function VisitRunner({
     <header className="mb-4 space-y-1">
       <div className="flex flex-wrap items-center gap-2">
         <h1 className="text-2xl font-bold sm:text-3xl">{visit.propertyName}</h1>
-        <VisitStatusBadge status={visit.status} cancelKind={visit.outcome?.kind} />
+        <VisitStatusBadge status={status} cancelKind={visit.outcome?.kind} />
       </div>
       <p className="flex items-center gap-1.5 text-muted">
         <MapPin className="size-4 shrink-0" aria-hidden="true" />
@@ -164,12 +207,13 @@ export function VisitRunner({
           </p>
           <div className="flex flex-wrap items-center gap-2">
             <h1 className="text-2xl font-bold">{zone.name}</h1>
-            <ZoneStatusBadge status={checkOf(zone.id)?.status ?? null} />
+            <ZoneStatusBadge status={zoneStatus.get(zone.id) ?? null} />
           </div>
           <p className="text-muted">
             {formatAreaFt2(zone.areaFt2)} · {species?.name ?? zone.grassSpecies.name}
           </p>
         </header>
+        {waitingBar}
         {visit.status === "completed" ? (
           <div className="mb-4 space-y-2 rounded-lg bg-sun-tint p-3">
             <p>
@@ -219,6 +263,7 @@ export function VisitRunner({
               isManager={isManager}
               weather={visit.weather?.status === "ok" ? visit.weather : null}
               lastCheck={visit.lastChecks.find((c) => c.zoneId === zone.id)}
+              waiting={waiting}
               footer={
                 <>
                   <Button
@@ -253,6 +298,22 @@ export function VisitRunner({
   return (
     <>
       {header}
+      {waitingBar}
+      {queuedStart && visit.status === "scheduled" ? (
+        <p className="mb-4 rounded-lg border border-line bg-card p-3" role="status">
+          {t("startWaiting", {
+            time: formatTime(String(queuedStart.payload["startedAt"]), visit.timeZone, locale),
+          })}
+        </p>
+      ) : null}
+      {queuedFinish ? (
+        <p
+          className="mb-4 rounded-lg border border-rain bg-rain-tint p-3 font-semibold"
+          role="status"
+        >
+          {t("finishWaiting")}
+        </p>
+      ) : null}
       {visit.notes ? (
         <p className="mb-4 rounded-lg border border-line bg-card p-3">Office note: {visit.notes}</p>
       ) : null}
@@ -262,9 +323,7 @@ export function VisitRunner({
           <li key={z.id}>
             <button
               type="button"
-              disabled={
-                visit.status === "scheduled" || visit.status === "cancelled" || !visit.canEdit
-              }
+              disabled={status === "scheduled" || status === "cancelled" || !visit.canEdit}
               onClick={() => openZone(z.id)}
               className="flex min-h-tap w-full items-center justify-between gap-3 rounded-xl border border-line bg-card p-4 text-left shadow-sm hover:border-sward disabled:opacity-60"
             >
@@ -274,7 +333,14 @@ export function VisitRunner({
                   {formatAreaFt2(z.areaFt2)} · {z.grassSpecies.name}
                 </span>
               </span>
-              <ZoneStatusBadge status={checkOf(z.id)?.status ?? null} />
+              <span className="flex shrink-0 flex-col items-end gap-1">
+                <ZoneStatusBadge status={zoneStatus.get(z.id) ?? null} />
+                {waitingOf(z.id) ? (
+                  <span className="text-sm font-semibold text-rain">
+                    {t("zoneWaiting", { count: waitingOf(z.id) })}
+                  </span>
+                ) : null}
+              </span>
             </button>
           </li>
         ))}
@@ -308,9 +374,9 @@ export function VisitRunner({
       </div>
       {/* Edits and deletions on the open visit, the stop called off or moved: in words. */}
       {isManager ? <AuditTrail visitId={visit.id} /> : null}
-      {visit.canEdit && (visit.status === "scheduled" || visit.status === "in_progress") ? (
+      {visit.canEdit && (status === "scheduled" || status === "in_progress") ? (
         <div className="sticky bottom-[5.25rem] z-10 mt-6 rounded-xl border border-line bg-card p-2 shadow-lg md:bottom-2">
-          {visit.status === "scheduled" ? (
+          {status === "scheduled" ? (
             <Button type="button" className="w-full text-lg" onClick={start} disabled={isBusy}>
               <Play className="size-5" aria-hidden="true" />
               {isBusy ? "Starting…" : "Start visit"}
@@ -320,7 +386,7 @@ export function VisitRunner({
               type="button"
               className="w-full text-lg"
               onClick={finish}
-              disabled={isBusy || remaining.length > 0}
+              disabled={isBusy || remaining.length > 0 || !!queuedFinish}
             >
               <CheckCheck className="size-5" aria-hidden="true" />
               {remaining.length > 0

@@ -1,7 +1,9 @@
 // Autosave for one zone check, as a small store outside React (unit-tested on its own):
-// every change is kept on the device at once and sent to the server after a short pause;
-// failed saves are retried with back-off; a stale version becomes a visible conflict; an
-// acknowledged save never drops what was typed while it was in flight.
+// every change is kept on the device at once (the draft, and the zone check's operation in the
+// outbox, lib/offline) and sent to the server after a short pause; failed saves are retried with
+// back-off; a stale version becomes a visible conflict; an acknowledged save never drops what was
+// typed while it was in flight. With no signal the change waits in the outbox, which sends it
+// when the network is back even if this form is gone (`acknowledge` hears of it).
 import type { SendResult } from "@/lib/query-client";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
 import { emptyZoneCheck } from "@/lib/visits/zone-check-rules";
@@ -14,6 +16,8 @@ export type SaveState =
   | { kind: "saving" }
   | { kind: "saved"; at: string }
   | { kind: "retrying"; message: string; inSeconds: number }
+  /** No signal: kept in the phone's outbox, sent when the network is back. */
+  | { kind: "waiting" }
   | { kind: "invalid"; message: string; fieldErrors: Record<string, string[]> }
   | { kind: "conflict"; message: string; current: ZoneCheckDto }
   | { kind: "locked"; message: string };
@@ -28,7 +32,14 @@ export interface AutosaveSnapshot {
 
 export interface AutosaveDeps {
   send: (url: string, body: unknown, keepalive: boolean) => Promise<SendResult<ZoneCheckDto>>;
-  storage: { read(): DeviceDraft | null; write(draft: DeviceDraft): void };
+  storage: {
+    read(): DeviceDraft | null | Promise<DeviceDraft | null>;
+    write(draft: DeviceDraft): void;
+  };
+  /** Keeps the change in the outbox at once, without waiting for the server (optional in tests). */
+  queue?: (url: string, body: unknown) => Promise<void>;
+  /** The person took the server's copy of a conflict: the phone's queued copy goes. */
+  onTookTheirs?: (theirs: ZoneCheckDto) => void;
   newId: () => string;
   setTimer: (fn: () => void, ms: number) => unknown;
   clearTimer: (handle: unknown) => void;
@@ -99,6 +110,15 @@ export class ZoneCheckAutosave {
   /** Reads the device copy (call once mounted, in the browser). */
   start(): void {
     const stored = this.deps.storage.read();
+    if (stored instanceof Promise)
+      void stored.then(
+        (draft) => this.load(draft),
+        () => this.load(null),
+      );
+    else this.load(stored);
+  }
+
+  private load(stored: DeviceDraft | null): void {
     const local = stored ? withCurrentFields(stored, this.zoneId) : null;
     const serverVersion = this.serverCheck?.version ?? 0;
     if (local && !local.isDirty && local.baseVersion > serverVersion) {
@@ -159,6 +179,7 @@ export class ZoneCheckAutosave {
     this.draft.values = change(this.draft.values);
     this.draft.isDirty = true;
     this.persist();
+    void this.queue();
     const keep =
       this.snapshot.saveState.kind === "conflict" || this.snapshot.saveState.kind === "locked";
     this.set({
@@ -178,6 +199,7 @@ export class ZoneCheckAutosave {
       this.draft.values = valuesFrom(theirs);
       this.draft.isDirty = false;
       this.persist();
+      this.deps.onTookTheirs?.(theirs);
       this.deps.onSaved(theirs);
       this.set({ values: this.draft.values, saveState: { kind: "saved", at: theirs.updatedAt } });
     } else {
@@ -206,6 +228,41 @@ export class ZoneCheckAutosave {
       } else await new Promise((r) => setTimeout(r, 250));
     }
     throw new Error("The zone check could not be saved yet; try again in a moment.");
+  }
+
+  /**
+   * Resolves with the check's id once its operation waits in the outbox (or the server has it):
+   * a photo taken with no signal is queued behind it.
+   */
+  async ensureQueued(): Promise<string> {
+    if (!this.draft.id) this.draft.id = this.deps.newId();
+    if (this.draft.baseVersion > 0 && !this.draft.isDirty) return this.draft.id;
+    this.draft.isDirty = true;
+    this.persist();
+    await this.queue();
+    return this.draft.id;
+  }
+
+  /**
+   * The outbox sent this check (from this form or later, from any page or tab): take its version;
+   * the form shows "Saved" when nothing newer waits.
+   */
+  acknowledge(check: ZoneCheckDto): void {
+    if (check.id !== this.draft.id || check.version <= this.draft.baseVersion) return;
+    this.draft.baseVersion = check.version;
+    if (sameValues(this.draft.values, valuesFrom(check))) this.draft.isDirty = false;
+    this.persist();
+    this.deps.onSaved(check);
+    const kind = this.snapshot.saveState.kind;
+    if (this.isInFlight || kind === "conflict" || kind === "locked") return;
+    if (this.draft.isDirty) {
+      this.set({ saveState: { kind: "pending" } });
+      this.schedule(DEBOUNCE_MS);
+    } else {
+      this.attempt = 0;
+      this.deps.clearTimer(this.timer);
+      this.set({ saveState: { kind: "saved", at: check.updatedAt } });
+    }
   }
 
   retryNow(): void {
@@ -280,6 +337,12 @@ export class ZoneCheckAutosave {
     } else {
       const wait = RETRY_SECONDS[Math.min(this.attempt, RETRY_SECONDS.length - 1)]!;
       this.attempt++;
+      if (result.status === 0 && result.error.code === "waiting") {
+        // In the outbox: it goes when the network is back; the timer only looks again.
+        this.set({ saveState: { kind: "waiting" } });
+        this.schedule(wait * 1000);
+        return;
+      }
       this.set({
         saveState: {
           kind: "retrying",
@@ -289,6 +352,16 @@ export class ZoneCheckAutosave {
       });
       this.schedule(wait * 1000);
     }
+  }
+
+  private async queue(): Promise<void> {
+    if (!this.deps.queue || !this.canEdit || !this.draft.id) return;
+    await this.deps
+      .queue(`/api/v1/visits/${this.visitId}/zone-checks/${this.draft.id}`, {
+        ...this.draft.values,
+        baseVersion: this.draft.baseVersion,
+      })
+      .catch(() => undefined); // the draft is kept; the next save queues it again
   }
 
   private schedule(ms: number): void {

@@ -6,6 +6,7 @@ import { Ban, CheckCircle2, RotateCcw } from "lucide-react";
 import { useState } from "react";
 
 import { ApplicationPanel } from "@/components/applications/application-panel";
+import { ConflictPanel } from "@/components/offline/conflict-panel";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { Button } from "@/components/ui/button";
 import { CharacterCount } from "@/components/ui/character-count";
@@ -13,6 +14,7 @@ import { ChoiceGroup } from "@/components/ui/choice-group";
 import { Stepper } from "@/components/ui/stepper";
 import { ToggleChip } from "@/components/ui/toggle-chip";
 import type { ApplicationDto } from "@/lib/applications/dto";
+import type { OutboxOp } from "@/lib/offline/db";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ZoneDto } from "@/lib/properties/dto";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
@@ -64,7 +66,10 @@ export function ZoneCheckForm({
   correctionReason = null,
   entries,
   lastCheck,
+  waiting = [],
 }: {
+  /** This visit's operations waiting in the phone's outbox. */
+  waiting?: OutboxOp[];
   /** On a finished visit: the reason for the manager's correction, sent with every save. */
   correctionReason?: string | null;
   /** Correct and Delete of this zone's photos and applications, for whoever may. */
@@ -161,29 +166,12 @@ export function ZoneCheckForm({
         </p>
       ) : null}
       {saveState.kind === "conflict" ? (
-        <div
-          role="alert"
-          className="space-y-3 rounded-xl border-2 border-clay bg-clay-tint p-4 text-ink"
-        >
-          <p className="font-bold text-clay">{saveState.message}</p>
-          <p>
-            Their version: overall quality {saveState.current.quality ?? "—"}, color{" "}
-            {saveState.current.color ?? "—"}, {saveState.current.symptoms.length} symptom(s). Yours
-            is on screen.
-          </p>
-          <div className="flex flex-wrap gap-2">
-            <Button type="button" onClick={() => store.resolveConflict("mine")}>
-              Keep mine
-            </Button>
-            <Button
-              type="button"
-              variant="secondary"
-              onClick={() => store.resolveConflict("theirs")}
-            >
-              Use theirs
-            </Button>
-          </div>
-        </div>
+        <ConflictPanel
+          theirs={saveState.current}
+          mine={values}
+          onKeepMine={() => store.resolveConflict("mine")}
+          onUseTheirs={() => store.resolveConflict("theirs")}
+        />
       ) : null}
       {isSkipped ? (
         <Section title="Zone skipped">
@@ -328,7 +316,10 @@ export function ZoneCheckForm({
           <Section title="Photos">
             <PhotoUploader
               visitId={visitId}
+              zoneId={zone.id}
               ensureSaved={() => store.ensureSaved()}
+              ensureQueued={() => store.ensureQueued()}
+              waiting={waiting}
               photos={photos}
               onUploaded={onPhotoUploaded}
               disabled={disabled}
@@ -351,6 +342,7 @@ export function ZoneCheckForm({
               isManager={isManager}
               disabled={disabled}
               onRecorded={onApplicationRecorded}
+              waiting={waiting}
               weather={weather}
               correctionReason={correctionReason}
               entries={
