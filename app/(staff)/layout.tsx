@@ -1,6 +1,8 @@
 // Pages for managers and technicians alike (the day's stops, a visit, a property, risk alerts).
 // Manager-only pages live in app/(office). Not the security boundary: every read is scoped again in
 // the data-access layer.
+import { NextIntlClientProvider } from "next-intl";
+import { getMessages } from "next-intl/server";
 import type { ReactNode } from "react";
 
 import { AppShell } from "@/components/shell/app-shell";
@@ -10,10 +12,18 @@ import { requireActor } from "@/lib/auth/require";
 
 export default async function StaffLayout({ children }: { children: ReactNode }) {
   const actor = await requireActor(["manager", "technician"]);
+  const messages = await getMessages();
+  const { fields, blank, yes, no, symptoms } = messages.audit;
   return (
-    <AppShell actor={actor} nav={staffNav(actor.role)}>
-      <OutboxSync />
-      {children}
-    </AppShell>
+    // The words of what waits on the phone (lib/offline) and of a conflict's fields, on every
+    // staff page: the outbox works from any of them.
+    <NextIntlClientProvider
+      messages={{ offline: messages.offline, audit: { fields, blank, yes, no, symptoms } }}
+    >
+      <AppShell actor={actor} nav={staffNav(actor.role)}>
+        <OutboxSync />
+        {children}
+      </AppShell>
+    </NextIntlClientProvider>
   );
 }

@@ -1,6 +1,9 @@
 // The device copy of zone-check drafts, in the phone's IndexedDB store (lib/offline/db.ts), so a
-// reload, a closed tab or a dead battery loses nothing. Drafts an earlier version kept in
-// localStorage are moved over once, the first time their zone is opened.
+// reload, a closed tab or a dead battery loses nothing. IndexedDB writes are asynchronous and a
+// page being unloaded can cut the last one short, so when the page goes away with changes not yet
+// acknowledged the draft is also handed over synchronously to localStorage (`handOverDraft`);
+// the next read moves it into IndexedDB when it is the newer copy — as it does, once, with the
+// drafts earlier versions kept in localStorage.
 import { draftKey, offlineDb } from "@/lib/offline/db";
 import type { ZoneCheckValues } from "@/lib/visits/dto";
 
@@ -54,6 +57,16 @@ export function writeDraft(visitId: string, zoneId: string, draft: DeviceDraft):
   void offlineDb()
     .drafts.put({ ...draft, key: draftKey(visitId, zoneId), visitId, zoneId })
     .catch(() => undefined); // storage full or disabled: the outbox and the server copy still save
+}
+
+/** At pagehide: a synchronous copy of a draft with unacknowledged changes (moved back on read). */
+export function handOverDraft(visitId: string, zoneId: string, draft: DeviceDraft | null): void {
+  if (!draft?.isDirty) return;
+  try {
+    window.localStorage.setItem(legacyKey(visitId, zoneId), JSON.stringify(draft));
+  } catch {
+    /* storage full or disabled: the IndexedDB copy is all there is */
+  }
 }
 
 /** Forgets every device copy of a visit's zone checks (after the visit is finished). */

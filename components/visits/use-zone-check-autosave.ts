@@ -8,7 +8,7 @@ import { outbox, requestBackgroundSync } from "@/lib/offline/client";
 import type { SendResult } from "@/lib/query-client";
 import type { ZoneCheckDto } from "@/lib/visits/dto";
 
-import { readDraft, writeDraft } from "./draft-store";
+import { handOverDraft, readDraft, writeDraft } from "./draft-store";
 import { ZoneCheckAutosave } from "./zone-check-autosave";
 
 /** The zone check's operation in the outbox, sent now when it can be. */
@@ -60,6 +60,10 @@ async function sendThroughOutbox(
   }
 }
 
+/** A finished visit's correction reason goes with every save (the server requires it). */
+const withReason = (reason: string | null, body: unknown) =>
+  (reason ? { ...(body as object), correctionReason: reason } : body) as Record<string, unknown>;
+
 export function useZoneCheckAutosave(
   visitId: string,
   zoneId: string,
@@ -75,16 +79,13 @@ export function useZoneCheckAutosave(
     onSavedRef.current = onSaved;
     reasonRef.current = correctionReason;
   }, [onSaved, correctionReason]);
-  const withReason = (body: unknown) =>
-    (reasonRef.current
-      ? { ...(body as object), correctionReason: reasonRef.current }
-      : body) as Record<string, unknown>;
   const [store] = useState(
     () =>
       new ZoneCheckAutosave(visitId, zoneId, serverCheck, canEdit, {
-        send: (url, body) => sendThroughOutbox(visitId, zoneId, url, withReason(body)),
+        send: (url, body) =>
+          sendThroughOutbox(visitId, zoneId, url, withReason(reasonRef.current, body)),
         queue: async (url, body) => {
-          const { baseVersion, ...payload } = withReason(body);
+          const { baseVersion, ...payload } = withReason(reasonRef.current, body);
           await outbox().enqueue({
             kind: "zone-check",
             visitId,
@@ -127,11 +128,17 @@ export function useZoneCheckAutosave(
     store.start();
     // Sent later by the outbox (network back, another tab): the form hears of it.
     const stop = outbox().subscribe((event) => {
-      if (event.type === "applied" && event.op.kind === "zone-check" && event.op.zoneId === zoneId)
-        store.acknowledge(event.data as ZoneCheckDto);
+      if (event.type === "held" || event.type === "applied") {
+        if (event.op.kind !== "zone-check" || event.op.zoneId !== zoneId) return;
+        if (event.type === "applied") store.acknowledge(event.data as ZoneCheckDto);
+        else if (event.op.held) store.refused(event.op.held);
+      }
     });
-    const flushIfHidden = () => document.visibilityState === "hidden" && store.flush();
-    const flush = () => store.flush();
+    const flush = () => {
+      handOverDraft(visitId, zoneId, store.deviceDraft);
+      store.flush();
+    };
+    const flushIfHidden = () => document.visibilityState === "hidden" && flush();
     document.addEventListener("visibilitychange", flushIfHidden);
     window.addEventListener("pagehide", flush);
     return () => {
@@ -141,7 +148,7 @@ export function useZoneCheckAutosave(
       store.flush();
       store.dispose();
     };
-  }, [store, zoneId]);
+  }, [store, visitId, zoneId]);
 
   return { ...snapshot, store };
 }

@@ -90,7 +90,12 @@ export function VisitRunner({
   const zoneName = (id: string | null) => visit.zones.find((z) => z.id === id)?.name ?? "—";
   const waitingBar = (
     <>
-      <HeldOps ops={waiting} zoneName={zoneName} onOpenZone={(id) => openZone(id)} />
+      <HeldOps
+        // The open zone's own conflict is settled in its form, side by side.
+        ops={waiting.filter((op) => !(op.kind === "zone-check" && op.zoneId === zoneId))}
+        zoneName={zoneName}
+        onOpenZone={(id) => openZone(id)}
+      />
       <WaitingLine
         ops={waiting}
         timeZone={visit.timeZone}

@@ -169,6 +169,11 @@ export class ZoneCheckAutosave {
 
   getSnapshot = (): AutosaveSnapshot => this.snapshot;
 
+  /** The device copy as it stands (handed over synchronously when the page goes away). */
+  get deviceDraft(): DeviceDraft {
+    return { ...this.draft, savedLocallyAt: new Date().toISOString() };
+  }
+
   get hasUnsavedChanges(): boolean {
     return this.draft.isDirty;
   }
@@ -263,6 +268,37 @@ export class ZoneCheckAutosave {
       this.deps.clearTimer(this.timer);
       this.set({ saveState: { kind: "saved", at: check.updatedAt } });
     }
+  }
+
+  /**
+   * The outbox's replay of this check was refused (sent later, from any page): the same states a
+   * refusal of this form's own save shows — a conflict with both copies, a fix, or a lock.
+   */
+  refused(held: {
+    reason: string;
+    message: string;
+    current?: unknown;
+    fieldErrors?: Record<string, string[]>;
+  }): void {
+    if (this.isInFlight) return; // this form's own save reports it
+    this.deps.clearTimer(this.timer);
+    if (held.reason === "conflict" && held.current)
+      this.set({
+        saveState: {
+          kind: "conflict",
+          message: held.message,
+          current: held.current as ZoneCheckDto,
+        },
+      });
+    else if (held.reason === "refused")
+      this.set({
+        saveState: {
+          kind: "invalid",
+          message: held.message,
+          fieldErrors: held.fieldErrors ?? {},
+        },
+      });
+    else this.set({ saveState: { kind: "locked", message: held.message } });
   }
 
   retryNow(): void {

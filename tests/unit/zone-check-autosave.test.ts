@@ -61,6 +61,8 @@ function harness(
   return { deps, sent, saved, timers, runTimers, storage: () => storage, ok };
 }
 
+const dataOf = (r: SendResult<ZoneCheckDto>) => (r as { data: ZoneCheckDto }).data;
+
 describe("ZoneCheckAutosave", () => {
   it("a draft kept on the phone before the mowing fields existed loads, shows, and saves", async () => {
     // Exactly what an earlier form wrote to localStorage: every field of that day, none since.
@@ -277,5 +279,75 @@ describe("ZoneCheckAutosave", () => {
       message: "This visit is finished and locked.",
     });
     expect(h.storage()?.values.quality).toBe(2); // still on the device
+  });
+
+  it("with no signal the change waits in the outbox (queued at once, at every change), and the form says so", async () => {
+    const h = harness([
+      () => ({ ok: false, status: 0, error: { code: "waiting", message: "No connection." } }),
+    ]);
+    const queued: unknown[] = [];
+    h.deps.queue = async (_url, body) => void queued.push(body);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 4 }));
+    store.update((v) => ({ ...v, color: 5 }));
+    expect(queued).toEqual([
+      expect.objectContaining({ quality: 4, baseVersion: 0 }),
+      expect.objectContaining({ quality: 4, color: 5, baseVersion: 0 }),
+    ]);
+    h.timers.shift()!.fn(); // the pause after the last change
+    await new Promise((r) => setTimeout(r, 0));
+    expect(store.getSnapshot().saveState).toEqual({ kind: "waiting" });
+    expect(h.timers.at(-1)?.ms).toBe(2000); // looks again (the outbox also sends when online)
+    await h.runTimers();
+    expect(store.getSnapshot().saveState.kind).toBe("saved");
+  });
+
+  it("sent later by the outbox (from another page or tab): the form takes its version and says Saved", async () => {
+    const h = harness([
+      () => ({ ok: false, status: 0, error: { code: "waiting", message: "No connection." } }),
+    ]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 4 }));
+    h.timers.at(-1)!.fn();
+    await new Promise((r) => setTimeout(r, 0));
+    const sentLater = dataOf(h.ok({ ...store.getSnapshot().values, baseVersion: 0 }));
+    store.acknowledge(sentLater);
+    expect(store.getSnapshot().saveState).toEqual({ kind: "saved", at: sentLater.updatedAt });
+    expect(h.storage()).toMatchObject({ isDirty: false, baseVersion: 1 });
+    expect(h.saved).toEqual([sentLater]);
+    store.acknowledge(sentLater); // told twice (this tab and another): once is enough
+    expect(h.saved).toHaveLength(1);
+  });
+
+  it("refused later by the outbox as a conflict: both copies kept, the person chooses", () => {
+    const h = harness([]);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 5 }));
+    const theirs = dataOf(h.ok({ ...store.getSnapshot().values, quality: 9, baseVersion: 0 }));
+    store.refused({ reason: "conflict", message: "Changed elsewhere.", current: theirs });
+    expect(store.getSnapshot()).toMatchObject({
+      values: { quality: 5 },
+      saveState: { kind: "conflict", current: { quality: 9 } },
+    });
+  });
+
+  it("reads a device copy kept in IndexedDB (asynchronously) before the form opens", async () => {
+    const h = harness([]);
+    const draft: DeviceDraft = {
+      id: "22222222-2222-4222-8222-222222222222",
+      values: { ...emptyZoneCheck(ZONE), quality: 3 } as DeviceDraft["values"],
+      baseVersion: 0,
+      isDirty: true,
+      savedLocallyAt: "x",
+    };
+    h.deps.storage = { read: async () => draft, write: () => undefined };
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    expect(store.getSnapshot().isReady).toBe(false);
+    await new Promise((r) => setTimeout(r, 0));
+    expect(store.getSnapshot()).toMatchObject({ isReady: true, values: { quality: 3 } });
   });
 });

@@ -272,6 +272,8 @@ export const en = {
       application: "Application",
       finish: "Finish",
     },
+    signOutWaiting:
+      "{count, plural, one {# change has} other {# changes have}} not reached Sward yet and will be deleted from this phone. Sign out anyway?",
     conflictTitle: "This zone check was changed on another device while this phone had changes.",
     conflictField: "Field",
     conflictTheirs: "On Sward now ({who})",
