@@ -3,6 +3,7 @@
 // "3 changes and 2 photos waiting — last tried 10:42 AM": what the phone still has to send.
 import { CloudUpload } from "lucide-react";
 import { useLocale, useTranslations } from "next-intl";
+import { useEffect, useState } from "react";
 
 import { formatTime } from "@/lib/dates";
 import type { OutboxOp } from "@/lib/offline/db";
@@ -22,6 +23,26 @@ function useWaitingWords(ops: OutboxOp[], timeZone: string): string | null {
     : t("waiting", { what });
 }
 
+/** With a signal, a change is on its way for a moment: it counts as waiting only after this long. */
+const SETTLE_MS = 4000;
+
+/**
+ * What really waits: everything when offline; with a signal, what failed a try, was refused, or
+ * has not gone within a few seconds (a tap on a rating is not announced as "waiting" every time).
+ */
+function useReallyWaiting(ops: OutboxOp[]): OutboxOp[] {
+  const [now, setNow] = useState(() => Date.now());
+  useEffect(() => {
+    if (!ops.length) return;
+    const timer = setInterval(() => setNow(Date.now()), 1000);
+    return () => clearInterval(timer);
+  }, [ops.length]);
+  if (typeof navigator !== "undefined" && !navigator.onLine) return ops;
+  return ops.filter(
+    (op) => op.attempts > 0 || op.state === "held" || now - Date.parse(op.createdAt) >= SETTLE_MS,
+  );
+}
+
 export function WaitingLine({
   ops,
   timeZone,
@@ -34,7 +55,7 @@ export function WaitingLine({
   className?: string;
 }) {
   const t = useTranslations("offline");
-  const words = useWaitingWords(ops, timeZone);
+  const words = useWaitingWords(useReallyWaiting(ops), timeZone);
   if (!words) return null;
   return (
     <div

@@ -47,16 +47,25 @@ async function sendThroughOutbox(
       };
     }
     case "retry":
-    case "waiting":
+    case "waiting": {
       requestBackgroundSync();
+      // Online but behind a change of this visit that Sward refused: that one is settled first.
+      const blocked =
+        navigator.onLine && (await outbox().waiting(visitId)).some((op) => op.state === "held");
       return {
         ok: false,
         status: 0,
         error: {
           code: navigator.onLine ? "offline" : "waiting",
-          message: outcome.message ?? "No connection.",
+          message: blocked
+            ? "Waiting behind a change Sward refused (above)."
+            : (outcome.message ??
+              (navigator.onLine
+                ? "Waiting for an earlier change of this visit to reach Sward."
+                : "No connection.")),
         },
       };
+    }
   }
 }
 

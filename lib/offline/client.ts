@@ -48,12 +48,36 @@ const fetchTransport: Transport = {
     ),
 };
 
+/** This page's id; it holds a Web Lock of that name while it is open. */
+const PAGE_LOCK = "sward-outbox-page:";
+let pageId: string | null = null;
+
+function holdPageLock(): string {
+  const id = crypto.randomUUID();
+  // Held until the page goes away (the promise never settles); the browser then releases it.
+  void navigator.locks
+    ?.request(`${PAGE_LOCK}${id}`, () => new Promise<never>(() => undefined))
+    .catch(() => undefined);
+  return id;
+}
+
+async function isPageOpen(id: string): Promise<boolean> {
+  if (!navigator.locks?.query) return true; // cannot tell: the outbox waits out SENDING_STALE_MS
+  const { held = [] } = await navigator.locks.query();
+  return held.some((lock) => lock.name === `${PAGE_LOCK}${id}`);
+}
+
 let shared: Outbox | null = null;
 
 /** The page's one outbox (created on first use, in the browser only). */
 export function outbox(): Outbox {
   if (shared) return shared;
-  const box = new Outbox(offlineDb(), fetchTransport, { isOnline: () => navigator.onLine });
+  pageId ??= holdPageLock();
+  const box = new Outbox(offlineDb(), fetchTransport, {
+    isOnline: () => navigator.onLine,
+    pageId,
+    isClaimerAlive: isPageOpen,
+  });
   shared = box;
   // What another tab sent reaches this one's screens too.
   if ("BroadcastChannel" in window) {

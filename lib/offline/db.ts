@@ -30,6 +30,8 @@ export interface OutboxOp {
   lastTriedAt: string | null;
   lastError: string | null;
   state: OpState;
+  /** The page that put it on the wire (while `sending`). */
+  claimedBy?: string;
   nextAttemptAt: number;
   held?: Held;
 }

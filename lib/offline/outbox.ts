@@ -27,7 +27,10 @@ export type OutboxEvent =
 /** What became of one submitted operation by the end of a replay. */
 export type Outcome = Verdict | { kind: "waiting"; message: string | null };
 
-/** An operation on the wire longer than this is taken to be lost with its page (tab closed). */
+/**
+ * An operation on the wire longer than this is taken to be lost with its page (tab closed), when
+ * the browser cannot say whether that page is still open (`isClaimerAlive`).
+ */
 const SENDING_STALE_MS: Record<OpKind, number> = {
   start: 30_000,
   "zone-check": 30_000,
@@ -88,7 +91,14 @@ export class Outbox {
   constructor(
     readonly db: OfflineDb,
     private readonly transport: Transport,
-    private readonly deps: { now?: () => number; isOnline?: () => boolean } = {},
+    private readonly deps: {
+      now?: () => number;
+      isOnline?: () => boolean;
+      /** This page's id, written on what it puts on the wire. */
+      pageId?: string;
+      /** Whether the page that put an operation on the wire is still open (Web Locks). */
+      isClaimerAlive?: (pageId: string) => Promise<boolean>;
+    } = {},
   ) {}
 
   private now(): number {
@@ -195,11 +205,22 @@ export class Outbox {
   private async drain(cutShort: boolean): Promise<void> {
     if (this.deps.isOnline && !this.deps.isOnline()) return;
     const now = this.now();
+    // A page that closed (or reloaded) while sending left its operation `sending`: taken back at
+    // once when the browser says that page is gone, else after a while.
+    const orphans = new Set<number>();
+    for (const op of await this.db.ops.toArray()) {
+      if (op.state !== "sending") continue;
+      const claimer = op.claimedBy;
+      if (claimer && claimer !== this.deps.pageId && this.deps.isClaimerAlive)
+        if (!(await this.deps.isClaimerAlive(claimer))) orphans.add(op.seq!);
+    }
     await this.db.transaction("rw", this.db.ops, async () => {
       for (const op of await this.db.ops.toArray()) {
         const stale =
           op.state === "sending" &&
-          (!op.lastTriedAt || Date.parse(op.lastTriedAt) < now - SENDING_STALE_MS[op.kind]);
+          (orphans.has(op.seq!) ||
+            !op.lastTriedAt ||
+            Date.parse(op.lastTriedAt) < now - SENDING_STALE_MS[op.kind]);
         if (stale || (cutShort && op.state === "queued" && op.nextAttemptAt > now))
           await this.db.ops.update(op.seq!, { state: "queued", nextAttemptAt: 0 });
       }
@@ -222,7 +243,11 @@ export class Outbox {
     const claimed = await this.db.transaction("rw", this.db.ops, async () => {
       const row = await this.db.ops.get(op.seq!);
       if (!row || row.state !== "queued") return null;
-      await this.db.ops.update(op.seq!, { state: "sending", lastTriedAt: triedAt });
+      await this.db.ops.update(op.seq!, {
+        state: "sending",
+        lastTriedAt: triedAt,
+        claimedBy: this.deps.pageId,
+      });
       return row;
     });
     if (!claimed) return "next";

@@ -455,6 +455,29 @@ describe("Outbox on IndexedDB", () => {
     expect(server.sent).toHaveLength(1);
   });
 
+  it("an operation left 'sending' by a page that has since closed (a reload) goes at once; one of a page still open waits", async () => {
+    const server = fakeServer();
+    const open = new Set(["other-tab"]);
+    const box = new Outbox(db, server.transport, {
+      pageId: "this-page",
+      isClaimerAlive: async (id) => open.has(id),
+    });
+    const a = await box.enqueue(zoneCheck({ quality: 6 }));
+    const b = await box.enqueue({
+      kind: "start",
+      visitId: OTHER_VISIT,
+      zoneId: null,
+      clientId: OTHER_VISIT,
+      payload: {},
+    });
+    const now = new Date().toISOString();
+    await db.ops.update(a.seq!, { state: "sending", lastTriedAt: now, claimedBy: "reloaded-page" });
+    await db.ops.update(b.seq!, { state: "sending", lastTriedAt: now, claimedBy: "other-tab" });
+    await box.replay();
+    expect(server.sent.map((s) => s.url.split("/").pop())).toEqual([CHECK]);
+    expect((await box.waiting()).map((o) => o.state)).toEqual(["sending"]);
+  });
+
   it("the person's choice on a refused operation: send again or drop, nothing dropped otherwise", async () => {
     const server = fakeServer();
     const box = new Outbox(db, server.transport);
