@@ -1,9 +1,11 @@
 // Autosave for one zone check, as a small store outside React (unit-tested on its own):
-// every change is kept on the device at once (the draft, and the zone check's operation in the
-// outbox, lib/offline) and sent to the server after a short pause; failed saves are retried with
-// back-off; a stale version becomes a visible conflict; an acknowledged save never drops what was
-// typed while it was in flight. With no signal the change waits in the outbox, which sends it
-// when the network is back even if this form is gone (`acknowledge` hears of it).
+// every change is kept on the device at once as the draft (one IndexedDB write, nothing else), and
+// becomes the zone check's operation in the outbox (lib/offline) after a short pause — when it is
+// sent — or at once when the page is hidden or closing (`flush`); a tap never writes the outbox,
+// whose every write re-reads the waiting counts on screen. Failed saves are retried with back-off;
+// a stale version becomes a visible conflict; an acknowledged save never drops what was typed
+// while it was in flight. With no signal the change waits in the outbox, which sends it when the
+// network is back even if this form is gone (`acknowledge` hears of it).
 import type { SendResult } from "@/lib/query-client";
 import type { ZoneCheckDto, ZoneCheckValues } from "@/lib/visits/dto";
 import { emptyZoneCheck } from "@/lib/visits/zone-check-rules";
@@ -36,7 +38,10 @@ export interface AutosaveDeps {
     read(): DeviceDraft | null | Promise<DeviceDraft | null>;
     write(draft: DeviceDraft): void;
   };
-  /** Keeps the change in the outbox at once, without waiting for the server (optional in tests). */
+  /**
+   * Keeps the change in the outbox without waiting for the server: when the page goes away with a
+   * save on the wire, and before a photo is queued behind the check (optional in tests).
+   */
   queue?: (url: string, body: unknown) => Promise<void>;
   /** The person took the server's copy of a conflict: the phone's queued copy goes. */
   onTookTheirs?: (theirs: ZoneCheckDto) => void;
@@ -183,8 +188,8 @@ export class ZoneCheckAutosave {
     if (!this.draft.id) this.draft.id = this.deps.newId();
     this.draft.values = change(this.draft.values);
     this.draft.isDirty = true;
+    // The draft only: the outbox gets the change with the save after the pause (or at `flush`).
     this.persist();
-    void this.queue();
     const keep =
       this.snapshot.saveState.kind === "conflict" || this.snapshot.saveState.kind === "locked";
     this.set({
@@ -307,11 +312,18 @@ export class ZoneCheckAutosave {
     void this.save();
   }
 
-  /** Sends what is pending now (page hidden or closing). */
+  /**
+   * Page hidden or closing: what is pending goes into the outbox now and is sent when it can be.
+   * With a save already on the wire the newer copy is queued behind it (that save's answer may
+   * never reach this page). A conflict or a lock keeps the draft as it is: the person settles it.
+   */
   flush(): void {
-    if (!this.draft.isDirty) return;
+    if (!this.draft.isDirty || !this.canEdit) return;
+    const kind = this.snapshot.saveState.kind;
+    if (kind === "conflict" || kind === "locked") return;
     this.deps.clearTimer(this.timer);
-    void this.save(true);
+    if (this.isInFlight) void this.queue();
+    else void this.save(true);
   }
 
   dispose(): void {

@@ -281,7 +281,7 @@ describe("ZoneCheckAutosave", () => {
     expect(h.storage()?.values.quality).toBe(2); // still on the device
   });
 
-  it("with no signal the change waits in the outbox (queued at once, at every change), and the form says so", async () => {
+  it("with no signal the change waits in the outbox (queued with the save after the pause, not at each tap), and the form says so", async () => {
     const h = harness([
       () => ({ ok: false, status: 0, error: { code: "waiting", message: "No connection." } }),
     ]);
@@ -291,16 +291,76 @@ describe("ZoneCheckAutosave", () => {
     store.start();
     store.update((v) => ({ ...v, quality: 4 }));
     store.update((v) => ({ ...v, color: 5 }));
-    expect(queued).toEqual([
-      expect.objectContaining({ quality: 4, baseVersion: 0 }),
-      expect.objectContaining({ quality: 4, color: 5, baseVersion: 0 }),
-    ]);
-    h.timers.shift()!.fn(); // the pause after the last change
+    // Each tap is the draft on the device, nothing more: the outbox is not written per tap.
+    expect(h.storage()).toMatchObject({ values: { quality: 4, color: 5 }, isDirty: true });
+    expect(queued).toEqual([]);
+    expect(h.sent).toEqual([]);
+    h.timers.shift()!.fn(); // the pause after the last change: one save, through the outbox
     await new Promise((r) => setTimeout(r, 0));
+    expect(h.sent).toEqual([expect.objectContaining({ quality: 4, color: 5, baseVersion: 0 })]);
     expect(store.getSnapshot().saveState).toEqual({ kind: "waiting" });
     expect(h.timers.at(-1)?.ms).toBe(2000); // looks again (the outbox also sends when online)
     await h.runTimers();
     expect(store.getSnapshot().saveState.kind).toBe("saved");
+  });
+
+  it("a page hidden or closing mid-pause sends what is pending at once; with a save on the wire it queues the newer copy behind it", async () => {
+    let answer!: (r: SendResult<ZoneCheckDto>) => void;
+    const h = harness([]);
+    const queued: Record<string, unknown>[] = [];
+    h.deps.queue = async (_url, body) => void queued.push(body as Record<string, unknown>);
+    const send = h.deps.send;
+    h.deps.send = (url, body, keepalive) =>
+      h.sent.length === 0
+        ? new Promise((resolve) => {
+            h.sent.push(body as Record<string, unknown>);
+            answer = resolve;
+          })
+        : send(url, body, keepalive);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 4 }));
+    store.flush(); // hidden before the pause ended: sent now, the timer dropped
+    expect(h.timers).toEqual([]);
+    expect(h.sent).toEqual([expect.objectContaining({ quality: 4 })]);
+    store.update((v) => ({ ...v, quality: 5 }));
+    store.flush(); // closing while the first save is on the wire: the newer copy is queued
+    await new Promise((r) => setTimeout(r, 0));
+    expect(queued).toEqual([expect.objectContaining({ quality: 5, baseVersion: 0 })]);
+    answer(h.ok(h.sent[0]!));
+    await new Promise((r) => setTimeout(r, 0));
+    await h.runTimers();
+    // The page stayed open after all: the newer copy went too, on the version the first got.
+    expect(h.sent.at(-1)).toMatchObject({ quality: 5, baseVersion: 1 });
+    expect(store.getSnapshot().saveState.kind).toBe("saved");
+    expect(store.hasUnsavedChanges).toBe(false);
+  });
+
+  it("a page hidden during a conflict queues nothing: the phone's copy stays as the draft until the person chooses", async () => {
+    const h = harness([
+      () => ({
+        ok: false,
+        status: 409,
+        error: {
+          code: "conflict",
+          message: "Changed on another device.",
+          details: { current: dataOf(h.ok({ ...emptyZoneCheck(ZONE), quality: 2 })) },
+        },
+      }),
+    ]);
+    const queued: unknown[] = [];
+    h.deps.queue = async (_url, body) => void queued.push(body);
+    const store = new ZoneCheckAutosave("v", ZONE, undefined, true, h.deps);
+    store.start();
+    store.update((v) => ({ ...v, quality: 8 }));
+    await h.runTimers();
+    expect(store.getSnapshot().saveState.kind).toBe("conflict");
+    store.update((v) => ({ ...v, quality: 9 }));
+    store.flush();
+    await new Promise((r) => setTimeout(r, 0));
+    expect(queued).toEqual([]);
+    expect(h.sent).toHaveLength(1);
+    expect(h.storage()).toMatchObject({ values: { quality: 9 }, isDirty: true });
   });
 
   it("sent later by the outbox (from another page or tab): the form takes its version and says Saved", async () => {
