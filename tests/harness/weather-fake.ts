@@ -61,7 +61,13 @@ export function startFakeWeather(port: number): Promise<http.Server> {
       return refuse(`Parameter 'start_date' or 'end_date' is out of allowed range`);
     if (Date.parse(end) - Date.parse(start) > 800 * 86_400_000)
       return refuse("Too many days requested");
-    send(200, fakeOpenMeteo(lat, lon, start, end, { archive, today }));
+    const answer = fakeOpenMeteo(lat, lon, start, end, { archive, today });
+    // Like the real service: only the blocks asked for (the monthly normals ask for daily only).
+    if (!q.get("hourly")) {
+      const { hourly: _hourly, ...daily } = answer;
+      return send(200, daily);
+    }
+    send(200, answer);
   });
   return new Promise((resolve) => server.listen(port, "127.0.0.1", () => resolve(server)));
 }

@@ -50,6 +50,33 @@ describe("weather", () => {
     ).toBe(true);
   });
 
+  it("monthly normals: each month's mean of (max + min) / 2 over the last three full years of the archive", async () => {
+    const provider = openMeteoProvider({ baseUrl: base });
+    const { monthlyMeanC, years } = await provider.normals(40.33, -74.74);
+    const last = new Date().getUTCFullYear() - 1;
+    expect(years).toEqual([last - 2, last]);
+    expect(monthlyMeanC).toHaveLength(12);
+    // The same days read through daily(): July of the three years, averaged by hand.
+    const julys = (
+      await Promise.all(
+        [last - 2, last - 1, last].map((y) =>
+          provider.daily(40.33, -74.74, `${y}-07-01`, `${y}-07-31`),
+        ),
+      )
+    ).flat();
+    expect(julys).toHaveLength(93);
+    const julyMean = julys.reduce((s, d) => s + (d.tmaxC + d.tminC) / 2, 0) / julys.length;
+    expect(monthlyMeanC[6]).toBeCloseTo(julyMean, 1);
+    // Central New Jersey (NOAA 1991–2020 normals, from memory: January about 0 °C, July about
+    // 25 °C): the fake's climate is in that neighbourhood.
+    expect(monthlyMeanC[0]).toBeGreaterThan(-6);
+    expect(monthlyMeanC[0]).toBeLessThan(6);
+    expect(monthlyMeanC[6]).toBeGreaterThan(20);
+    expect(monthlyMeanC[6]).toBeLessThan(30);
+    // A refused location is a WeatherUnavailable naming the service's reason.
+    await expect(provider.normals(95, -74)).rejects.toThrow(/Latitude must be in range/);
+  });
+
   it("a service that is down gives WeatherUnavailable after retries; the cache still answers", async () => {
     const down = openMeteoProvider({
       baseUrl: "http://127.0.0.1:9",

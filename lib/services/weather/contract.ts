@@ -154,5 +154,37 @@ export function daysFromOpenMeteo(
   return days;
 }
 
+/** The daily variables of the monthly normals: the day's mean is (max + min) / 2. */
+export const OPEN_METEO_NORMALS_DAILY = ["temperature_2m_max", "temperature_2m_min"] as const;
+
+/** An archive answer asked for daily temperatures only (no hourly block). */
+export const openMeteoTemperaturesSchema = z.object({
+  utc_offset_seconds: z.number().int(),
+  daily: z.object({
+    time: z.array(localDate).max(800),
+    temperature_2m_max: series,
+    temperature_2m_min: series,
+  }),
+});
+
+/**
+ * Twelve monthly mean air temperatures (°C, January first) from daily history: each day's mean is
+ * (max + min) / 2 (the averaging of gdd.ts), each month the mean of its days over all years given.
+ * Null when a month has no day.
+ */
+export function monthlyMeansFromDays(
+  days: { date: string; tmaxC: number; tminC: number }[],
+): number[] | null {
+  const sum = new Array<number>(12).fill(0);
+  const count = new Array<number>(12).fill(0);
+  for (const d of days) {
+    const m = Number(d.date.slice(5, 7)) - 1;
+    sum[m]! += (d.tmaxC + d.tminC) / 2;
+    count[m]! += 1;
+  }
+  if (count.some((c) => c === 0)) return null;
+  return sum.map((s, i) => round(s / count[i]!, 2));
+}
+
 /** Open-Meteo's error answer: `{ "error": true, "reason": "…" }`. */
 export const openMeteoErrorSchema = z.object({ error: z.literal(true), reason: z.string() });

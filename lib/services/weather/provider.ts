@@ -11,10 +11,13 @@ import { addDays } from "@/lib/dates";
 import {
   daysFromOpenMeteo,
   localToday,
+  monthlyMeansFromDays,
   OPEN_METEO_DAILY,
   OPEN_METEO_HOURLY,
+  OPEN_METEO_NORMALS_DAILY,
   openMeteoErrorSchema,
   openMeteoResponseSchema,
+  openMeteoTemperaturesSchema,
   type WeatherDayInput,
 } from "./contract";
 
@@ -27,7 +30,16 @@ export class WeatherUnavailable extends Error {
 
 export interface WeatherProvider {
   daily(lat: number, lon: number, start: string, end: string): Promise<WeatherDayInput[]>;
+  /**
+   * Monthly normals: the mean air temperature (°C) of each month, January first, averaged over
+   * the last `NORMALS_YEARS` full calendar years of the same service's daily history (the archive
+   * endpoint, daily maximum and minimum only). What growth potential reads for the months ahead.
+   */
+  normals(lat: number, lon: number): Promise<{ monthlyMeanC: number[]; years: [number, number] }>;
 }
+
+/** How many past full years the monthly normals average. */
+export const NORMALS_YEARS = 3;
 
 /** Days further back than this come from the archive (the forecast endpoint keeps 92). */
 const FORECAST_PAST_DAYS = 60;
@@ -72,15 +84,7 @@ export function openMeteoProvider(options: {
   const forecastBase = `${origin(options.baseUrl)}/v1/forecast`;
   const archiveBase = `${origin(options.archiveUrl ?? options.baseUrl)}/v1/archive`;
 
-  async function getDays(
-    base: string,
-    lat: number,
-    lon: number,
-    start: string,
-    end: string,
-    archive: boolean,
-  ): Promise<WeatherDayInput[]> {
-    const url = `${base}?${openMeteoQuery(lat, lon, start, end, apiKey)}`;
+  async function getJson(url: string): Promise<unknown> {
     let lastError = "no attempt";
     for (let attempt = 0; attempt <= retries; attempt++) {
       if (attempt > 0) await new Promise((r) => setTimeout(r, backoffMs * 3 ** (attempt - 1)));
@@ -100,12 +104,7 @@ export function openMeteoProvider(options: {
             `the weather service answered ${response.status}${reason.success ? ` (${reason.data.reason})` : ""}`,
           );
         }
-        const parsed = openMeteoResponseSchema.safeParse(body);
-        if (!parsed.success)
-          throw new WeatherUnavailable("the weather service sent data Sward could not read");
-        return daysFromOpenMeteo(parsed.data, localToday(parsed.data.utc_offset_seconds, now()), {
-          archive,
-        }).filter((d) => d.date >= start && d.date <= end);
+        return body;
       } catch (err) {
         if (err instanceof WeatherUnavailable) throw err;
         lastError =
@@ -115,6 +114,61 @@ export function openMeteoProvider(options: {
       }
     }
     throw new WeatherUnavailable(lastError);
+  }
+
+  // Past years do not change: one answer per place (to about 1 km) and years for the process.
+  const normalsMemo = new Map<
+    string,
+    Promise<{ monthlyMeanC: number[]; years: [number, number] }>
+  >();
+
+  async function fetchNormals(lat: number, lon: number, first: number, last: number) {
+    const days: { date: string; tmaxC: number; tminC: number }[] = [];
+    for (let year = first; year <= last; year++) {
+      const params = new URLSearchParams({
+        latitude: lat.toFixed(4),
+        longitude: lon.toFixed(4),
+        start_date: `${year}-01-01`,
+        end_date: `${year}-12-31`,
+        daily: OPEN_METEO_NORMALS_DAILY.join(","),
+        timezone: "auto",
+        wind_speed_unit: "ms",
+      });
+      if (apiKey) params.set("apikey", apiKey);
+      const parsed = openMeteoTemperaturesSchema.safeParse(
+        await getJson(`${archiveBase}?${params.toString()}`),
+      );
+      if (!parsed.success)
+        throw new WeatherUnavailable("the weather service sent data Sward could not read");
+      const d = parsed.data.daily;
+      d.time.forEach((date, i) => {
+        const tmax = d.temperature_2m_max[i];
+        const tmin = d.temperature_2m_min[i];
+        if (typeof tmax === "number" && typeof tmin === "number")
+          days.push({ date, tmaxC: tmax, tminC: tmin });
+      });
+    }
+    const monthlyMeanC = monthlyMeansFromDays(days);
+    if (!monthlyMeanC)
+      throw new WeatherUnavailable("the weather service's history left a month without days");
+    return { monthlyMeanC, years: [first, last] as [number, number] };
+  }
+
+  async function getDays(
+    base: string,
+    lat: number,
+    lon: number,
+    start: string,
+    end: string,
+    archive: boolean,
+  ): Promise<WeatherDayInput[]> {
+    const url = `${base}?${openMeteoQuery(lat, lon, start, end, apiKey)}`;
+    const parsed = openMeteoResponseSchema.safeParse(await getJson(url));
+    if (!parsed.success)
+      throw new WeatherUnavailable("the weather service sent data Sward could not read");
+    return daysFromOpenMeteo(parsed.data, localToday(parsed.data.utc_offset_seconds, now()), {
+      archive,
+    }).filter((d) => d.date >= start && d.date <= end);
   }
 
   return {
@@ -132,6 +186,18 @@ export function openMeteoProvider(options: {
       const to = end < lastForecastDay ? end : lastForecastDay;
       if (from <= to) days.push(...(await getDays(forecastBase, lat, lon, from, to, false)));
       return days;
+    },
+    normals(lat, lon) {
+      const last = new Date(now()).getUTCFullYear() - 1;
+      const first = last - NORMALS_YEARS + 1;
+      const key = `${lat.toFixed(2)},${lon.toFixed(2)},${first}-${last}`;
+      let answer = normalsMemo.get(key);
+      if (!answer) {
+        answer = fetchNormals(lat, lon, first, last);
+        normalsMemo.set(key, answer);
+        answer.catch(() => normalsMemo.delete(key));
+      }
+      return answer;
     },
   };
 }
