@@ -276,6 +276,8 @@ interface PropertiesTable {
   time_zone: string;
   technician_id: string | null;
   rule_set_id: string | null;
+  /** The season program the property follows (lib/programs), or none. */
+  program_id: Generated<string | null>;
   notes: Generated<string>;
   /** E.164, e.g. +16095550142 (lib/reference/us-phone.ts). */
   customer_phone: string | null;
@@ -304,6 +306,11 @@ interface ZonesTable {
   sun_exposure: SunExposure;
   is_irrigated: boolean;
   slope: Slope;
+  /** How the zone is fed in its property's program. */
+  program_method: Generated<ProgramMethod>;
+  /** The season (year) the zone is left out of its program, with the reason; both or neither. */
+  program_excluded_year: Generated<number | null>;
+  program_excluded_reason: Generated<string | null>;
   sort_order: Generated<number>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
@@ -394,6 +401,7 @@ export interface AuditEventsTable {
     | "watering"
     | "person"
     | "soil_test"
+    | "program"
     | "company";
   entity_id: string;
   action: string;
@@ -456,6 +464,54 @@ interface WateringsTable {
   visit_id: string | null;
   created_by: string | null;
   created_at: Generated<Date>;
+}
+
+export type ProgramMethod = "granular" | "liquid";
+export type ProgramRoundKind =
+  | "feeding"
+  | "pre_emergence"
+  | "grub_control"
+  | "weed_control"
+  | "aeration_overseeding"
+  | "lime"
+  | "soil_sampling"
+  | "fall_feeding";
+export type ProgramWindowKind = "dates" | "gdd" | "soil_temperature" | "air_temperature";
+export type ProgramTarget = "lb" | "growth_potential" | "none";
+
+interface ProgramsTable {
+  id: string;
+  company_id: string;
+  name: string;
+  grass_season: "cool" | "warm";
+  notes: Generated<string>;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+interface ProgramRoundsTable {
+  id: string;
+  company_id: string;
+  program_id: string;
+  /** 1, 2, … in the season's order. */
+  position: number;
+  kind: ProgramRoundKind;
+  window_kind: ProgramWindowKind;
+  /** MM-DD, every year (window_kind "dates"). */
+  start_md: string | null;
+  end_md: string | null;
+  /** Base of the growing degree days, °F (window_kind "gdd"). */
+  trigger_base_f: number | null;
+  /** GDD (°F·days) or a temperature (°F) that opens the window. */
+  trigger_value: number | null;
+  /** Days the window stays open after its trigger. */
+  window_days: number | null;
+  granular_product_id: string | null;
+  granular_target: ProgramTarget;
+  granular_n_lb: number | null;
+  liquid_product_id: string | null;
+  liquid_target: ProgramTarget;
+  liquid_n_lb: number | null;
 }
 
 interface SoilTestsTable {
@@ -637,6 +693,8 @@ export interface Database {
   applications: ApplicationsTable;
   waterings: WateringsTable;
   soil_tests: SoilTestsTable;
+  programs: ProgramsTable;
+  program_rounds: ProgramRoundsTable;
   weather_days: WeatherDaysTable;
   risk_alerts: RiskAlertsTable;
   risk_alert_events: RiskAlertEventsTable;

@@ -45,11 +45,15 @@ const parse = <S extends Schema>(schema: S, input: unknown) =>
   z.safeParse(schema, input, { error: plainErrors });
 
 function invalid(error: z.core.$ZodError, message = "Some values need attention."): AppError {
-  return new AppError(
-    "invalid_input",
-    message,
-    z.flattenError(error).fieldErrors as Record<string, string[]>,
-  );
+  const fieldErrors = z.flattenError(error).fieldErrors as Record<string, string[]>;
+  // A nested field (a program's rounds.2.endMd) is also named by its whole path, so a form of
+  // repeated rows can put the message beside the row's own field.
+  for (const issue of error.issues) {
+    if (issue.path.length < 2) continue;
+    const key = issue.path.map(String).join(".");
+    (fieldErrors[key] ??= []).push(issue.message);
+  }
+  return new AppError("invalid_input", message, fieldErrors);
 }
 
 /** The largest JSON body a route reads unless it says otherwise: the largest form (a product with

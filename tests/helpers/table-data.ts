@@ -58,6 +58,16 @@ export async function fillEmptyTables(db: Kysely<unknown>): Promise<void> {
             select id, 'check-area', 'dollar_spot_weather', date '2026-06-01' from companies`.execute(
     db,
   );
+  // Season programs: the demo seeds two per company; a company without any gets one here.
+  await sql`insert into programs (id, company_id, name, grass_season)
+            select gen_random_uuid(), id, 'Check program', 'cool' from companies c
+             where not exists (select 1 from programs p where p.company_id = c.id)`.execute(db);
+  await sql`insert into program_rounds (id, company_id, program_id, position, kind, window_kind,
+              start_md, end_md, granular_target, liquid_target)
+            select gen_random_uuid(), company_id, id, 1, 'lime', 'dates', '03-01', '03-31', 'none', 'none'
+              from programs p where not exists (select 1 from program_rounds r where r.program_id = p.id)`.execute(
+    db,
+  );
   await sql`update properties set notes = ${'Gate code "4471"; dog\'s name: Ôscar\tback\\slash\nsecond line — 🌱'}
              where id = (select id from properties order by name limit 1)`.execute(db);
 }

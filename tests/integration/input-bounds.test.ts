@@ -36,6 +36,8 @@ const propertyRoute = await import("@/app/api/v1/properties/[propertyId]/route")
 const yardRoute = await import("@/app/api/v1/company-settings/yard/route");
 const startPointRoute = await import("@/app/api/v1/people/[personId]/start-point/route");
 const orderRoute = await import("@/app/api/v1/today/order/route");
+const programsRoute = await import("@/app/api/v1/programs/route");
+const zoneProgramRoute = await import("@/app/api/v1/zones/[zoneId]/program/route");
 
 let c: TestCompany;
 const today = todayIn("America/New_York"); // the demo properties' zone
@@ -358,6 +360,167 @@ describe("recording a soil test", () => {
     expect(answer.fieldErrors[field]?.[0]).toMatch(
       new RegExp(`^${words.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}`),
     );
+  });
+});
+
+describe("a season program", () => {
+  let n = 0;
+  let productId = "";
+  const round = (o: Record<string, unknown>) => ({
+    kind: "feeding",
+    windowKind: "dates",
+    startMd: "04-01",
+    endMd: "04-30",
+    triggerBaseF: null,
+    triggerValue: null,
+    windowDays: null,
+    granular: { productId, target: "lb", nLb: 0.5 },
+    liquid: { productId: null, target: "none", nLb: null },
+    ...o,
+  });
+  const program = (o: Record<string, unknown>, r: Record<string, unknown> = {}) => ({
+    id: randomUUID(),
+    name: `Bounds program ${++n}`,
+    grassSeason: "cool",
+    notes: "",
+    rounds: [round(r)],
+    ...o,
+  });
+  const gdd = {
+    windowKind: "gdd",
+    startMd: null,
+    endMd: null,
+    triggerBaseF: 50,
+    triggerValue: 200,
+    windowDays: 21,
+  };
+  // [field, accepted program, refused program, words]: round fields are named rounds.0.<field>.
+  const cases: [string, Record<string, unknown>, Record<string, unknown>, string][] = [
+    [
+      "name",
+      program({ name: "n".repeat(80) }),
+      program({ name: "n".repeat(81) }),
+      "Name: at most 80 characters.",
+    ],
+    [
+      "notes",
+      program({ notes: "n".repeat(1000) }),
+      program({ notes: "n".repeat(1001) }),
+      "Notes: at most 1,000 characters.",
+    ],
+    [
+      "rounds.0.granular.nLb",
+      program({}, { granular: { productId: "P", target: "lb", nLb: 3 } }),
+      program({}, { granular: { productId: "P", target: "lb", nLb: 3.01 } }),
+      "Granular N: at most 3 lb per 1,000 ft².",
+    ],
+    [
+      "rounds.0.granular.nLb",
+      program({}, { granular: { productId: "P", target: "lb", nLb: 0.01 } }),
+      program({}, { granular: { productId: "P", target: "lb", nLb: 0 } }),
+      "Granular N: more than 0 lb per 1,000 ft².",
+    ],
+    [
+      "rounds.0.endMd",
+      program({}, { startMd: "04-30", endMd: "04-30" }),
+      program({}, { startMd: "04-30", endMd: "04-29" }),
+      "Window to: on or after the window's first day",
+    ],
+    [
+      "rounds.0.startMd",
+      program({}, { startMd: "02-29", endMd: "03-01" }),
+      program({}, { startMd: "02-30", endMd: "03-01" }),
+      "Window from: a month and day like 04-15",
+    ],
+    [
+      "rounds.0.triggerBaseF",
+      program({}, { ...gdd, triggerBaseF: 70 }),
+      program({}, { ...gdd, triggerBaseF: 70.1 }),
+      "GDD base: at most 70 °F.",
+    ],
+    [
+      "rounds.0.triggerValue",
+      program({}, { ...gdd, triggerValue: 6000 }),
+      program({}, { ...gdd, triggerValue: 6000.1 }),
+      "Trigger: at most 6,000.",
+    ],
+    [
+      "rounds.0.triggerValue",
+      program(
+        {},
+        { ...gdd, windowKind: "soil_temperature", triggerBaseF: null, triggerValue: 110 },
+      ),
+      program(
+        {},
+        { ...gdd, windowKind: "soil_temperature", triggerBaseF: null, triggerValue: 110.1 },
+      ),
+      "Trigger: a temperature of at most 110 °F.",
+    ],
+    [
+      "rounds.0.windowDays",
+      program({}, { ...gdd, windowDays: 120 }),
+      program({}, { ...gdd, windowDays: 121 }),
+      "Days open: at most 120 days.",
+    ],
+    [
+      "rounds",
+      program({ rounds: Array.from({ length: 30 }, () => round({})) }),
+      program({ rounds: Array.from({ length: 31 }, () => round({})) }),
+      "Rounds: at most 30 in one program.",
+    ],
+  ];
+  const withProduct = (body: Record<string, unknown>) =>
+    JSON.parse(
+      JSON.stringify({ ...body, id: randomUUID() })
+        .replaceAll('"P"', JSON.stringify(productId))
+        .replaceAll('"productId":""', `"productId":${JSON.stringify(productId)}`),
+    ) as Record<string, unknown>;
+  it.each(cases)(
+    "%s: accepted at the bound, refused past it in words",
+    async (field, ok, refused, words) => {
+      current = await c.actor("manager");
+      productId ||= (
+        await testDb()
+          .selectFrom("products")
+          .select("id")
+          .where("company_id", "=", c.companyId)
+          .where("name", "like", "Larkmoor Steadyfeed%")
+          .executeTakeFirstOrThrow()
+      ).id;
+      const accepted = await post(programsRoute.POST, withProduct(ok));
+      expect(accepted.status, JSON.stringify(accepted.fieldErrors)).toBe(201);
+      const answer = await post(programsRoute.POST, withProduct(refused));
+      expect(answer.status).toBe(422);
+      expect(answer.fieldErrors[field]?.[0]).toMatch(
+        new RegExp(`^${words.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}`),
+      );
+    },
+  );
+
+  it("a zone left out: the reason up to 200 characters, the year 2000–2100", async () => {
+    current = await c.actor("manager");
+    const zoneId = (
+      await testDb()
+        .selectFrom("zones")
+        .select("id")
+        .where("property_id", "=", c.propertyIds["haddad"]!)
+        .executeTakeFirstOrThrow()
+    ).id;
+    const put = (body: unknown) => post(zoneProgramRoute.PUT, body, { zoneId }, "PUT");
+    const left = (year: number, reason: string) => ({
+      method: "granular",
+      excludedYear: year,
+      excludedReason: reason,
+    });
+    expect((await put(left(2100, "r".repeat(200)))).status).toBe(200);
+    const long = await put(left(2100, "r".repeat(201)));
+    expect(long.status).toBe(422);
+    expect(long.fieldErrors["excludedReason"]?.[0]).toBe("Reason: at most 200 characters.");
+    const late = await put(left(2101, "New sod"));
+    expect(late.fieldErrors["excludedYear"]?.[0]).toBe("Left out for: 2100 or earlier.");
+    expect(
+      (await put({ method: "granular", excludedYear: null, excludedReason: null })).status,
+    ).toBe(200);
   });
 });
 
