@@ -74,6 +74,15 @@ export function formatShortDate(date: IsoDate, locale: string = DEFAULT_LOCALE):
   }).format(new Date(`${date}T00:00:00Z`));
 }
 
+/** "Dec 2" in en-US: a day of a season whose year is said once nearby (a program's round windows). */
+export function formatMonthDay(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
+  return new Intl.DateTimeFormat(locale, {
+    day: "numeric",
+    month: "short",
+    timeZone: "UTC",
+  }).format(new Date(`${date}T00:00:00Z`));
+}
+
 /** "12/02/2026" in en-US: a date in a spreadsheet cell (the form a US spreadsheet reads as a date). */
 export function formatNumericDate(date: IsoDate, locale: string = DEFAULT_LOCALE): string {
   return new Intl.DateTimeFormat(locale, {

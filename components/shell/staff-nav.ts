@@ -3,6 +3,7 @@
 import {
   Bell,
   CalendarDays,
+  CalendarRange,
   ClipboardList,
   FileSpreadsheet,
   FlaskConical,
@@ -23,6 +24,7 @@ export function staffNav(role: Role): NavItem[] {
         { href: BOOK_PATH, label: "Book", icon: Trees, also: ["/properties"] },
         { href: RISK_ALERTS_PATH, label: "Risk alerts", icon: Bell },
         { href: "/visits", label: "Visits", icon: ClipboardList },
+        { href: "/programs", label: "Programs", icon: CalendarRange },
         { href: "/products", label: "Products", icon: FlaskConical },
         { href: "/rule-sets", label: "Rule sets", icon: Gavel },
         { href: "/records", label: "Records", icon: FileSpreadsheet },

@@ -49,6 +49,8 @@ interface Targets {
   productName: string;
   ruleSetId: string;
   ruleSetName: string;
+  programId: string; // a season program of the company (the property follows it)
+  programName: string;
   zoneName: string;
   extraOwnerId: string; // a homeowner linked only for the unlink cell
   invitationId: string; // a pending invitation to the property, for the resend cell
@@ -92,6 +94,8 @@ interface Cell {
 
 const ownerSide: Persona[] = ["owner", "assignedTech", "manager"];
 let checkEveryZone: (t: Targets) => Promise<void>; // set up in beforeAll
+/** A new program of the company no property follows, for the delete cell (set up in beforeAll). */
+let makeProgram: () => Promise<string>;
 /** tech1's stops of today, read just before the cell that reorders them (set up in beforeAll). */
 let readTech1Day: (t: Targets) => Promise<void>;
 let tech1Day: string[] = [];
@@ -264,6 +268,14 @@ const CELLS: Cell[] = [
     allow: ["manager"],
     hidden: ["otherManager"],
     marker: () => "Application records",
+  },
+  {
+    key: "PAGE /programs",
+    path: () => "/programs",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.programName,
+    leak: (t) => [t.programId],
   },
   {
     key: "PAGE /rule-sets",
@@ -541,6 +553,27 @@ const CELLS: Cell[] = [
     marker: (t) => t.ruleSetId,
     leak: (t) => [t.ruleSetId],
   },
+  {
+    key: "GET /api/v1/programs",
+    path: () => "/api/v1/programs",
+    allow: ["manager"],
+    hidden: ["otherManager"],
+    marker: (t) => t.programId,
+    leak: (t) => [t.programId],
+  },
+  {
+    key: "GET /api/v1/programs/[programId]",
+    path: (t) => `/api/v1/programs/${t.programId}`,
+    allow: ["manager"],
+    marker: (t) => t.programName,
+    leak: (t) => [t.programId, t.programName],
+  },
+  {
+    key: "GET /api/v1/properties/[propertyId]/program",
+    path: (t) => `/api/v1/properties/${t.propertyId}/program`,
+    allow: ["assignedTech", "manager"],
+    marker: (t) => t.programId,
+  },
 
   // Writes on the company's records (valid bodies: what a denied person sends would have worked for someone allowed).
   {
@@ -598,6 +631,51 @@ const CELLS: Cell[] = [
     body: () => ruleSetBody(`Matrix rules ${randomUUID().slice(0, 6)}`),
     allow: ["manager", "otherManager"],
     leak: () => [],
+  },
+  {
+    key: "POST /api/v1/programs",
+    path: () => "/api/v1/programs",
+    method: "POST",
+    body: () => programBody(randomUUID()),
+    allow: ["manager", "otherManager"],
+    leak: () => [],
+  },
+  {
+    key: "PUT /api/v1/programs/[programId]",
+    path: (t) => `/api/v1/programs/${t.programId}`,
+    method: "PUT",
+    body: (t) => programBody(t.programId, t.programName),
+    allow: ["manager"],
+    leak: (t) => [t.programId],
+    mustSucceed: true,
+  },
+  {
+    key: "DELETE /api/v1/programs/[programId]",
+    path: () => `/api/v1/programs/${nextOf("deleteProgram")}`,
+    method: "DELETE",
+    before: async () => {
+      queued["deleteProgram"] = [await makeProgram()];
+    },
+    body: () => ({}),
+    allow: ["manager"],
+    mustSucceed: true,
+    after: usedOne("deleteProgram"),
+  },
+  {
+    key: "PUT /api/v1/properties/[propertyId]/program",
+    path: (t) => `/api/v1/properties/${t.propertyId}/program`,
+    method: "PUT",
+    body: (t) => ({ programId: t.programId }),
+    allow: ["manager"],
+    mustSucceed: true,
+  },
+  {
+    key: "PUT /api/v1/zones/[zoneId]/program",
+    path: (t) => `/api/v1/zones/${t.zoneId}/program`,
+    method: "PUT",
+    body: () => ({ method: "granular", excludedYear: null, excludedReason: null }),
+    allow: ["manager"],
+    mustSucceed: true,
   },
   {
     key: "PUT /api/v1/rule-sets/[ruleSetId]",
@@ -1040,6 +1118,30 @@ const CELLS: Cell[] = [
   },
 ];
 
+/** A valid season program: one lime round (no nitrogen), named uniquely. */
+function programBody(id: string, name = `Matrix program ${randomUUID().slice(0, 6)}`) {
+  const none = { productId: null, target: "none", nLb: null };
+  return {
+    id,
+    name,
+    grassSeason: "cool",
+    notes: "",
+    rounds: [
+      {
+        kind: "lime",
+        windowKind: "dates",
+        startMd: "03-01",
+        endMd: "03-31",
+        triggerBaseF: null,
+        triggerValue: null,
+        windowDays: null,
+        granular: none,
+        liquid: none,
+      },
+    ],
+  };
+}
+
 function ruleSetBody(name: string) {
   return {
     name,
@@ -1158,6 +1260,13 @@ beforeAll(async () => {
     .select(["id", "name"])
     .where("company_id", "=", c.companyId)
     .executeTakeFirstOrThrow();
+  // The program the property follows (the demo seeds it).
+  const program = await db
+    .selectFrom("programs")
+    .innerJoin("properties", "properties.program_id", "programs.id")
+    .select(["programs.id", "programs.name"])
+    .where("properties.id", "=", propertyId)
+    .executeTakeFirstOrThrow();
   const today = todayIn(property.time_zone);
   const cancelVisitId = randomUUID();
   await scheduleVisit(manager, {
@@ -1258,6 +1367,8 @@ beforeAll(async () => {
     productName: product.name,
     ruleSetId: ruleSet.id,
     ruleSetName: ruleSet.name,
+    programId: program.id,
+    programName: program.name,
     zoneName: zone.name,
     extraOwnerId: extra.id,
     invitationId: invitation.id,
@@ -1306,6 +1417,12 @@ beforeAll(async () => {
       .orderBy("id")
       .execute();
     tech1Day = rows.map((r) => r.id);
+  };
+  makeProgram = async () => {
+    const { createProgram } = await import("@/lib/programs/mutations");
+    const id = randomUUID();
+    await createProgram(manager, programBody(id) as Parameters<typeof createProgram>[1]);
+    return id;
   };
   makeEntry = async (kind, targets) => {
     const id = randomUUID();

@@ -114,6 +114,43 @@ export const en = {
       soil_sampling: "Soil sampling",
       liming: "Lime",
     },
+    // Season programs (lib/programs): what a round does, how its window opens, its nitrogen target,
+    // how a zone is fed, and why a zone's round plans the nitrogen it does.
+    programRoundKinds: {
+      feeding: "Feeding",
+      pre_emergence: "Pre-emergence",
+      grub_control: "Grub control",
+      weed_control: "Weed control",
+      aeration_overseeding: "Aeration and overseeding",
+      lime: "Lime",
+      soil_sampling: "Soil sampling",
+      fall_feeding: "Fall feeding",
+    },
+    programWindowKinds: {
+      dates: "Dates",
+      gdd: "Growing degree days",
+      soil_temperature: "Soil temperature",
+      air_temperature: "Air temperature",
+    },
+    programTargets: {
+      lb: "lb N per 1,000 ft²",
+      growth_potential: "From growth potential",
+      none: "No nitrogen",
+    },
+    programMethods: {
+      granular: "Granular",
+      liquid: "Liquid",
+    },
+    planReasons: {
+      fixed: "Fixed target",
+      growth_potential: "By growth potential",
+      capped: "Held at the per-application limit",
+      no_fertilizer_window: "Inside the no-fertilizer window",
+      no_nitrogen: "No nitrogen in this round",
+      no_window: "The trigger is not reached in the normals",
+      no_weather: "Waiting for the weather service",
+      excluded: "Zone left out this season",
+    },
     skipReasons: {
       no_access: "No access",
       construction: "Construction",

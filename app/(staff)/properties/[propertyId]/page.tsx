@@ -9,6 +9,7 @@ import { Suspense } from "react";
 import { PropertyApplications } from "@/components/applications/property-applications";
 import { CheckSoonBadge } from "@/components/book/check-soon-badge";
 import { PhotoFigure } from "@/components/photos/photo-figure";
+import { SeasonPlan } from "@/components/programs/season-plan";
 import { NitrogenToDate } from "@/components/properties/nitrogen-to-date";
 import {
   AddZone,
@@ -36,12 +37,15 @@ import { listPendingInvitations } from "@/lib/invitations/queries";
 import { BOOK_PATH, RISK_ALERTS_PATH } from "@/lib/paths";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
 import { findPropertyCheckSoon } from "@/lib/pressure-areas/queries";
+import { listPrograms } from "@/lib/programs/queries";
+import { getSeasonPlan } from "@/lib/programs/season-plan";
 import type { PropertyDetailDto } from "@/lib/properties/dto";
 import { getProperty } from "@/lib/properties/queries";
 import { propertyIdParams } from "@/lib/properties/schemas";
 import { PLANNED_SERVICES } from "@/lib/reference/visit-options";
 import { listPropertyAlerts } from "@/lib/risk-alerts/queries";
 import { getPropertyScoreHistory } from "@/lib/scoring/queries";
+import { services } from "@/lib/services";
 import { listSoilTests } from "@/lib/soil-tests/queries";
 import { listVisits } from "@/lib/visits/queries";
 import { listWaterings } from "@/lib/watering/queries";
@@ -89,17 +93,20 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
     ],
   );
   const year = todayIn(property.timeZone).slice(0, 4);
-  const [nitrogen, applications, soilTests, messages] = await Promise.all([
+  const isManager = actor.role === "manager";
+  const [nitrogen, applications, soilTests, messages, seasonPlan, programs] = await Promise.all([
     getNitrogenByZone(actor, property.id, year),
     listPropertyApplications(actor, property.id, year),
     listSoilTests(actor, property.id),
     getMessages(),
+    getSeasonPlan(actor, property.id, services().quickWeather),
+    isManager ? listPrograms(actor) : Promise.resolve([]),
   ]);
-  const isManager = actor.role === "manager";
   // The page's sections, in page order, for the "On this page" links.
   const sections: [string, string][] = [
     ["alerts", "Risk alerts"],
     ["zones", "Zones"],
+    ["program", "Season program"],
     ["index", "Sward Index"],
     ...(latestPhotos.length ? ([["photos", "Photos"]] as [string, string][]) : []),
     ["visits", "Visits"],
@@ -225,6 +232,27 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
             <AddZone propertyId={property.id} />
           </div>
         ) : null}
+      </section>
+
+      <section id="program" aria-labelledby="program-title" className="scroll-mt-4">
+        <h2 id="program-title" className="mt-10 mb-3 text-2xl font-bold">
+          Season program
+        </h2>
+        <NextIntlClientProvider
+          messages={{
+            terms: {
+              programRoundKinds: messages.terms.programRoundKinds,
+              programMethods: messages.terms.programMethods,
+              planReasons: messages.terms.planReasons,
+            },
+          }}
+        >
+          <SeasonPlan
+            plan={seasonPlan}
+            programs={programs.map((p) => ({ id: p.id, name: p.name }))}
+            canManage={isManager && !property.isArchived}
+          />
+        </NextIntlClientProvider>
       </section>
 
       <div id="index" className="mt-10 scroll-mt-4">
