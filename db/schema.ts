@@ -466,7 +466,7 @@ interface WateringsTable {
   created_at: Generated<Date>;
 }
 
-export type ProgramMethod = "granular" | "liquid";
+type ProgramMethod = "granular" | "liquid";
 export type ProgramRoundKind =
   | "feeding"
   | "pre_emergence"
@@ -476,7 +476,7 @@ export type ProgramRoundKind =
   | "lime"
   | "soil_sampling"
   | "fall_feeding";
-export type ProgramWindowKind = "dates" | "gdd" | "soil_temperature" | "air_temperature";
+type ProgramWindowKind = "dates" | "gdd" | "soil_temperature" | "air_temperature";
 export type ProgramTarget = "lb" | "growth_potential" | "none";
 
 interface ProgramsTable {

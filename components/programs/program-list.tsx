@@ -14,7 +14,7 @@ import { sendJson } from "@/lib/query-client";
 
 import { ProgramEditor, type ProgramProduct } from "./program-editor";
 
-export function windowWords(w: ProgramWindowDto): string {
+function windowWords(w: ProgramWindowDto): string {
   switch (w.kind) {
     case "dates":
       return `${monthDayWords(w.startMd)} to ${monthDayWords(w.endMd)}`;

@@ -20,7 +20,7 @@
 import { addDays, daysBetween, type IsoDate } from "@/lib/dates";
 import type { GrassSeason } from "@/lib/reference/grass-species";
 
-export const GROWTH_POTENTIAL = {
+const GROWTH_POTENTIAL = {
   cool: { optimumC: 20, sigmaC: 5.5 },
   warm: { optimumC: 31, sigmaC: 7 },
 } as const;
@@ -37,7 +37,7 @@ export function growthPotential(meanC: number, season: GrassSeason): number {
 export type MonthlyMeansC = readonly number[];
 
 /** The mean temperature (°C) the model reads for a day: its daily value if known, else its month's normal. */
-export function meanTemperatureOn(
+function meanTemperatureOn(
   date: IsoDate,
   normals: MonthlyMeansC,
   daily?: ReadonlyMap<IsoDate, number>,

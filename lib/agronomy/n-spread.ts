@@ -28,7 +28,7 @@ import { inNoFertilizerWindow } from "./rules";
 type SunExposure = "full_sun" | "part_shade" | "shade";
 
 /** Share of the unshaded target by sun exposure (common practice, see above). */
-export const SHADE_FACTOR: Record<SunExposure, number> = {
+const SHADE_FACTOR: Record<SunExposure, number> = {
   full_sun: 1,
   part_shade: 0.75,
   shade: 0.5,

@@ -18,7 +18,6 @@ import {
   productLbPer1000,
   rateForNitrogen,
   type ProductAnalysis,
-  type Rate,
   type RateUnit,
 } from "@/lib/agronomy/nutrients";
 import { addDays, type IsoDate } from "@/lib/dates";
@@ -66,7 +65,7 @@ export interface RoundWindow {
 
 const f2c = (f: number) => ((f - 32) * 5) / 9;
 
-export function roundWindows(
+function roundWindows(
   year: number,
   rounds: readonly ProgramRoundDto[],
   normals: MonthlyMeansC | null,

@@ -22,11 +22,11 @@ export const PROGRAM_WINDOW_KINDS = [
   "air_temperature",
 ] as const;
 export const PROGRAM_TARGETS = ["lb", "growth_potential", "none"] as const;
-export const PROGRAM_METHODS = ["granular", "liquid"] as const;
+const PROGRAM_METHODS = ["granular", "liquid"] as const;
 /** The most rounds one program holds. */
 export const PROGRAM_MAX_ROUNDS = 30;
 /** The most lb N per 1,000 ft² a round's fixed target may name (above any label's single rate). */
-export const PROGRAM_MAX_N_LB = 3;
+const PROGRAM_MAX_N_LB = 3;
 
 /** "04-15": a month and day that exist (February 29 allowed). */
 const isMonthDay = (md: string) => /^\d{2}-\d{2}$/.test(md) && isIsoDate(`2024-${md}`);
@@ -53,7 +53,7 @@ const methodSchema = (method: string) =>
     ),
   });
 
-export const programRoundSchema = z
+const programRoundSchema = z
   .strictObject({
     kind: z.enum(PROGRAM_ROUND_KINDS, "Round: choose what the round does."),
     windowKind: z.enum(

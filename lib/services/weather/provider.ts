@@ -39,7 +39,7 @@ export interface WeatherProvider {
 }
 
 /** How many past full years the monthly normals average. */
-export const NORMALS_YEARS = 3;
+const NORMALS_YEARS = 3;
 
 /** Days further back than this come from the archive (the forecast endpoint keeps 92). */
 const FORECAST_PAST_DAYS = 60;
