@@ -43,7 +43,8 @@ export function ProgramList({
     const product = productName(m.productId);
     const target =
       m.target === "lb" ? `${m.nLb?.toFixed(2)} lb N / 1,000 ft²` : t(`programTargets.${m.target}`);
-    return product ? `${product}, ${target.toLowerCase()}` : target;
+    // "From growth potential" reads in lower case after the product; "lb N" keeps its capital.
+    return product ? `${product}, ${m.target === "lb" ? target : target.toLowerCase()}` : target;
   };
   async function remove(program: ProgramDto) {
     if (!window.confirm(`Delete the program ${program.name}?`)) return;

@@ -115,7 +115,10 @@ describe("season programs", () => {
     );
     // Fall feeding: the window runs to Dec 10, nitrogen only until Dec 1 (New Jersey).
     expect(rows[2]).toMatch(/2\. Fall feedingNov 1 – Dec 10nitrogen by Dec 1/);
-    await page.getByText("Read and follow the product label: the label is the law.").waitFor();
+    await page
+      .locator("#program")
+      .getByText("Read and follow the product label: the label is the law.")
+      .waitFor();
     await page.getByRole("heading", { level: 2, name: "Season program" }).scrollIntoViewIfNeeded();
     expect(await seriousViolations(page, "season plan")).toEqual([]);
     await snap(page, "programs-property-phone");
