@@ -92,7 +92,7 @@ describe("season programs", () => {
     expect(text).toMatch(/Granular: Autumn Anchor 20-0-10, from growth potential/);
     await snap(page, "programs-created-desktop", true);
     await context.close();
-  });
+  }, 120_000);
 
   it("phone: the property follows it and shows each zone's planned N; its technician sees the same", async () => {
     const context = await browser.newContext({ viewport: PHONE, baseURL: BASE });
@@ -144,5 +144,5 @@ describe("season programs", () => {
       .allTextContents();
     expect(techRows).toEqual(rows);
     await tech.close();
-  });
+  }, 120_000);
 });
