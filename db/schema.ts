@@ -105,6 +105,9 @@ export type RateUnitValue =
 type OverrideCategoryValue =
   "documented_exemption" | "research_plot" | "regulator_permission" | "other";
 
+type PreEmergenceActiveValue =
+  "prodiamine" | "dithiopyr" | "pendimethalin" | "siduron" | "mesotrione" | "other";
+
 interface ProductsTable {
   id: Generated<string>;
   company_id: string;
@@ -126,6 +129,12 @@ interface ProductsTable {
   label_max_yearly: number | null;
   label_min_interval_days: number | null;
   n_release: Generated<NitrogenRelease>;
+  /** A pre-emergence herbicide's active ingredient class (lib/agronomy/seeding.ts); null: not one. */
+  pre_emergence_active: Generated<PreEmergenceActiveValue | null>;
+  /** The label's days between this pre-emergence and seeding the same turf; null: not entered. */
+  seeding_interval_days: Generated<number | null>;
+  /** The grass species key of a seed product; null: not seed. */
+  seed_species: Generated<string | null>;
   archived_at: NullableTimestamp;
   created_at: Generated<Date>;
 }

@@ -19,7 +19,8 @@ import {
   type RateUnit,
 } from "@/lib/agronomy/nutrients";
 import type { RuleFinding } from "@/lib/agronomy/rules";
-import { assessApplication, labelUnitLb } from "@/lib/applications/assess";
+import { seedRate, seedToLoadLb } from "@/lib/agronomy/seeding";
+import { assessApplication, labelUnitLb, treatmentOf } from "@/lib/applications/assess";
 import type { ApplicationDto } from "@/lib/applications/dto";
 import { applicationSchema } from "@/lib/applications/schemas";
 import {
@@ -28,13 +29,14 @@ import {
   RATE_UNIT_LABEL,
   rateUnitsFor,
 } from "@/lib/applications/units";
-import { todayIn } from "@/lib/dates";
+import { formatDate, todayIn } from "@/lib/dates";
 import { outbox, requestBackgroundSync } from "@/lib/offline/client";
 import type { OutboxOp } from "@/lib/offline/db";
 import { meKeys } from "@/lib/people/query-keys";
 import { analysisOf, type ProductDto } from "@/lib/products/dto";
 import { productKeys } from "@/lib/products/query-keys";
 import { fetchJson, sendJson } from "@/lib/query-client";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 import type { RuleSetDto } from "@/lib/rule-sets/dto";
 import { ruleSetKeys } from "@/lib/rule-sets/query-keys";
 
@@ -135,6 +137,34 @@ function Maths({
       </table>
       {load}
     </div>
+  );
+}
+
+/** The species' seed rate for this kind of seeding and the seed to load for the zone. */
+function SeedRateHint({
+  speciesKey,
+  areaFt2,
+  isEstablishing,
+}: {
+  speciesKey: string;
+  areaFt2: number;
+  isEstablishing: boolean;
+}) {
+  const t = useTranslations("seeding");
+  const range = seedRate(speciesKey, isEstablishing ? "new" : "overseed");
+  if (!range) return null;
+  return (
+    <p role="status" className="rounded-lg bg-sward-tint p-3 text-sm" data-seed-rate>
+      {t("formHint", {
+        kind: isEstablishing ? "new" : "overseed",
+        species: findGrassSpecies(speciesKey)?.name ?? speciesKey,
+        min: range.min,
+        max: range.max,
+        loadMin: seedToLoadLb(range.min, areaFt2),
+        loadMax: seedToLoadLb(range.max, areaFt2),
+        area: areaFt2,
+      })}
+    </p>
   );
 }
 
@@ -332,6 +362,12 @@ export function ApplicationPanel({
               }
             : null,
         },
+        // This visit's seed and pre-emergence products on the zone (the server adds the year's).
+        zoneTreatments: applications.flatMap((a) => {
+          const p = a.zoneId === zoneId ? products.data?.find((x) => x.id === a.product.id) : null;
+          return p ? [treatmentOf(p, a.appliedOn)] : [];
+        }),
+        formatDate: (d) => formatDate(d),
         sameProductOnZone: applications
           .filter((a) => a.zoneId === zoneId && a.product.id === product.id)
           .map((a) => ({
@@ -620,6 +656,13 @@ export function ApplicationPanel({
               </select>
             </Field>
           </div>
+          {product?.seedSpecies ? (
+            <SeedRateHint
+              speciesKey={product.seedSpecies}
+              areaFt2={areaFt2}
+              isEstablishing={isEstablishing ?? false}
+            />
+          ) : null}
           {product && hasRate ? (
             <Maths product={product} amount={rateAmount} unit={unit} areaFt2={areaFt2} />
           ) : null}

@@ -11,11 +11,22 @@ import type { z } from "zod/mini";
 import { Button } from "@/components/ui/button";
 import { applyFieldErrors, Field, inputClass, numberOrNull } from "@/components/ui/field";
 import { formResolver } from "@/components/ui/form-resolver";
+import { PRE_EMERGENCE_ACTIVES, SEED_SPECIES_KEYS } from "@/lib/agronomy/seeding";
 import { RATE_UNIT_LABEL, rateUnitsFor } from "@/lib/applications/units";
 import type { ProductDto } from "@/lib/products/dto";
 import { productSchema } from "@/lib/products/schemas";
+import { findGrassSpecies } from "@/lib/reference/grass-species";
 
 import { useSaveProduct } from "./use-products";
+
+const PRE_EMERGENCE_LABEL: Record<(typeof PRE_EMERGENCE_ACTIVES)[number], string> = {
+  prodiamine: "Prodiamine",
+  dithiopyr: "Dithiopyr",
+  pendimethalin: "Pendimethalin",
+  siduron: "Siduron (labeled at seeding)",
+  mesotrione: "Mesotrione (labeled at seeding)",
+  other: "Another active (enter the label's days)",
+};
 
 type FormIn = z.input<typeof productSchema>;
 type FormOut = z.output<typeof productSchema>;
@@ -49,6 +60,9 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
           labelRateUnit: null,
           labelMaxYearly: null,
           labelMinIntervalDays: null,
+          preEmergenceActive: null,
+          seedingIntervalDays: null,
+          seedSpecies: null,
         },
   });
   const p = product ? `product-${product.id}` : "product-new";
@@ -212,6 +226,55 @@ export function ProductEditor({ product, onDone }: { product?: ProductDto; onDon
             id={`${p}-labelinterval`}
             inputMode="numeric"
             {...register("labelMinIntervalDays", { setValueAs: numberOrNull })}
+            className={inputClass}
+          />
+        </Field>
+      </fieldset>
+      <fieldset className="grid gap-3 rounded-lg border border-line p-3 sm:grid-cols-3">
+        <legend className="px-1 font-bold">Seed and pre-emergence</legend>
+        <Field id={`${p}-seed`} label="Seed of (a seed product)" error={err("seedSpecies")}>
+          <select
+            id={`${p}-seed`}
+            {...register("seedSpecies", { setValueAs: (v: string | null) => (v ? v : null) })}
+            className={inputClass}
+          >
+            <option value="">Not seed</option>
+            {SEED_SPECIES_KEYS.map((k) => (
+              <option key={k} value={k}>
+                {findGrassSpecies(k)?.name ?? k}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field
+          id={`${p}-pre`}
+          label="Pre-emergence herbicide: active ingredient"
+          error={err("preEmergenceActive")}
+        >
+          <select
+            id={`${p}-pre`}
+            {...register("preEmergenceActive", {
+              setValueAs: (v: string | null) => (v ? v : null),
+            })}
+            className={inputClass}
+          >
+            <option value="">Not a pre-emergence</option>
+            {PRE_EMERGENCE_ACTIVES.map((k) => (
+              <option key={k} value={k}>
+                {PRE_EMERGENCE_LABEL[k]}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field
+          id={`${p}-seedinterval`}
+          label="Days between it and seeding (from the label)"
+          error={err("seedingIntervalDays")}
+        >
+          <input
+            id={`${p}-seedinterval`}
+            inputMode="numeric"
+            {...register("seedingIntervalDays", { setValueAs: numberOrNull })}
             className={inputClass}
           />
         </Field>

@@ -21,6 +21,7 @@ import {
   mowingTooShort,
   overApplication,
   pythiumWeather,
+  seedingConflict,
   tornTips,
   type ApplicationFacts,
   type CheckFacts,
@@ -103,7 +104,7 @@ async function propertyRuleResults(
     .executeTakeFirstOrThrow();
   const today = todayIn(property.time_zone);
   const year = at.slice(0, 4);
-  const [zones, checks, applications, waterings] = await Promise.all([
+  const [zones, checks, applications, seedingApplications, waterings] = await Promise.all([
     executor
       .selectFrom("zones")
       .select(["id", "name", "grass_species"])
@@ -157,6 +158,34 @@ async function propertyRuleResults(
         executor.selectFrom("zones").select("id").where("property_id", "=", propertyId),
       )
       .where("applications.applied_on", ">=", `${year}-01-01`)
+      .where("applications.applied_on", "<=", at)
+      .execute(),
+    // Seed and pre-emergence products on the zones in the 12 months to the day (the conflict
+    // rule; the longest interval is under a year).
+    executor
+      .selectFrom("applications")
+      .innerJoin("products", "products.id", "applications.product_id")
+      .select([
+        "applications.zone_id",
+        "applications.applied_on",
+        "products.name as product_name",
+        "products.pre_emergence_active",
+        "products.seeding_interval_days",
+        "products.seed_species",
+      ])
+      .where("applications.company_id", "=", companyId)
+      .where(
+        "applications.zone_id",
+        "in",
+        executor.selectFrom("zones").select("id").where("property_id", "=", propertyId),
+      )
+      .where((eb) =>
+        eb.or([
+          eb("products.pre_emergence_active", "is not", null),
+          eb("products.seed_species", "is not", null),
+        ]),
+      )
+      .where("applications.applied_on", ">", addDays(at, -366))
       .where("applications.applied_on", "<=", at)
       .execute(),
     executor
@@ -245,6 +274,19 @@ async function propertyRuleResults(
         apps,
         at,
         firstForbiddenDay(property.pro_no_fertilizer_after),
+      ),
+      seedingConflict(
+        seedingApplications
+          .filter((a) => a.zone_id === z.id)
+          .map((a) => ({
+            date: a.applied_on,
+            productName: a.product_name,
+            preEmergence: a.pre_emergence_active
+              ? { active: a.pre_emergence_active, labelIntervalDays: a.seeding_interval_days }
+              : null,
+            seedSpecies: a.seed_species,
+          })),
+        at,
       ),
     ];
     for (const result of zoneResults) results.push({ zoneId: z.id, result });

@@ -66,7 +66,9 @@ type FindingKey =
   | "label_yearly"
   | "label_interval"
   | "label_missing"
-  | "label_conditions";
+  | "label_conditions"
+  | "seeding_conflict"
+  | "seed_rate";
 
 export interface RuleFinding {
   key: FindingKey;

@@ -27,6 +27,8 @@
 // and summer annual weeds.
 import type { GrassSpecies } from "@/lib/reference/grass-species";
 
+import type { RuleFinding } from "./rules";
+
 export interface SeedRate {
   /** lb of seed per 1,000 ft², lowest and highest of the table's range. */
   min: number;
@@ -122,7 +124,7 @@ export function seedingWindow(soilTempF: number, season: GrassSpecies["season"])
 //   herbicide and seeding method effects on seedling growth of Kentucky bluegrass", Weed
 //   Technology 19(1), 2005. Slit seeding is the longer and is how overseeding is usually done.
 // - siduron: the one older pre-emergence labelled for use at seeding of cool-season grasses
-//   (0 days; not on bermudagrass); mesotrione: labelled at seeding of many cool-season grasses
+//   (0 days; not on bermudagrass); mesotrione: labeled at seeding of many cool-season grasses
 //   (0 days) — both per the product label, from memory of their labels.
 // - any other active: no typical value; the label's interval must be entered on the product.
 // The same interval is read after seeding (a pre-emergence on a zone seeded within it stops the
@@ -149,8 +151,8 @@ export const TYPICAL_SEEDING_INTERVAL: Readonly<
   prodiamine: { days: 112, source: WEED_TECH_2005 },
   pendimethalin: { days: 70, source: WEED_TECH_2005 },
   dithiopyr: { days: 77, source: WEED_TECH_2005 },
-  siduron: { days: 0, source: "Per the product label (labelled at seeding; from memory)" },
-  mesotrione: { days: 0, source: "Per the product label (labelled at seeding; from memory)" },
+  siduron: { days: 0, source: "Per the product label (labeled at seeding; from memory)" },
+  mesotrione: { days: 0, source: "Per the product label (labeled at seeding; from memory)" },
   other: { days: null, source: "Per the product label" },
 };
 
@@ -232,4 +234,86 @@ export function soilTempEstimateF(days: { tmaxF: number; tminF: number }[]): num
   const last = days.slice(-5);
   if (last.length < 5) return null;
   return last.reduce((s, d) => s + (d.tmaxF + d.tminF) / 2, 0) / last.length;
+}
+
+/** Species keys a seed product may name: those with a seed rate. */
+export const SEED_SPECIES_KEYS = Object.keys(SEEDING_RATES) as [string, ...string[]];
+
+const fmtLb = (x: number) => String(Math.round(x * 100) / 100);
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
+
+export interface SeedingCheckInput {
+  /** This application: its day, product and rate in lb of product per 1,000 ft². */
+  application: ZoneTreatment & { productLbPer1000: number };
+  /** The zone's other applications (any product) with what their products are. */
+  others: ZoneTreatment[];
+  zone: { speciesKey: string; areaFt2: number };
+  /** First establishment (a new seeding) rather than overseeding an existing lawn. */
+  isEstablishing: boolean;
+  /** Dates as people read them (lib/dates.ts formatDate with the company's locale). */
+  formatDate: (iso: string) => string;
+}
+
+/**
+ * What the application form and the record say of a seed or pre-emergence application: the
+ * conflict with a seeding or pre-emergence on the zone within the interval (a warning with the
+ * other's date and product), and a seed rate outside the table's range for the zone's species.
+ * Warnings only: the product label decides, and Sward defers to it.
+ */
+export function seedingFindings(i: SeedingCheckInput): RuleFinding[] {
+  const a = i.application;
+  if (a.seedSpecies === null && a.preEmergence === null) return [];
+  const findings: RuleFinding[] = [];
+  const conflicts = seedingConflicts([a, ...i.others]).filter(
+    (c) =>
+      (a.seedSpecies !== null &&
+        c.seeding.date === a.date &&
+        c.seeding.productName === a.productName) ||
+      (a.preEmergence !== null &&
+        c.preEmergence.date === a.date &&
+        c.preEmergence.productName === a.productName),
+  );
+  const c = conflicts[0];
+  if (c) {
+    const isSeeding = a.seedSpecies !== null;
+    const other = isSeeding ? c.preEmergence : c.seeding;
+    const days = Math.abs(c.daysApart);
+    const when =
+      days === 0
+        ? "the same day"
+        : `${plural(days, "day")} ${(isSeeding ? c.daysApart > 0 : c.daysApart < 0) ? "before" : "after"} this`;
+    const interval = c.intervalFromLabel
+      ? `the label asks for ${plural(c.intervalDays, "day")} between it and seeding`
+      : `about ${plural(c.intervalDays, "day")} between it and seeding is typical for ${c.preEmergence.active} (${c.source}); the product label decides`;
+    findings.push({
+      key: "seeding_conflict",
+      severity: "warning",
+      basis: "label",
+      source: c.intervalFromLabel ? `Product label: ${c.preEmergence.productName}` : c.source,
+      value: `${other.productName} on ${other.date}`,
+      limit: c.intervalDays,
+      message: isSeeding
+        ? `Pre-emergence herbicide ${other.productName} was applied to this zone on ${i.formatDate(other.date)}, ${when}: ${interval}. The seed may not come up; follow the product label.`
+        : `This zone was seeded with ${other.productName} on ${i.formatDate(other.date)}, ${when}: this pre-emergence herbicide can stop the seedlings — ${interval}. Follow the product label.`,
+    });
+  }
+  if (a.seedSpecies !== null) {
+    const kind: SeedingKind = i.isEstablishing ? "new" : "overseed";
+    const species = a.seedSpecies;
+    const range = seedRate(species, kind);
+    if (range) {
+      const reading = readSeedRate(a.productLbPer1000, range);
+      if (reading !== "within")
+        findings.push({
+          key: "seed_rate",
+          severity: "warning",
+          basis: "species",
+          source: SEEDING_RATES[species]!.source,
+          value: Math.round(a.productLbPer1000 * 100) / 100,
+          limit: `${fmtLb(range.min)}–${fmtLb(range.max)}`,
+          message: `${fmtLb(a.productLbPer1000)} lb of seed per 1,000 ft² is ${reading} the ${fmtLb(range.min)}–${fmtLb(range.max)} lb usual for ${kind === "new" ? "a new seeding" : "overseeding"} of this species (${fmtLb(seedToLoadLb(range.min, i.zone.areaFt2))}–${fmtLb(seedToLoadLb(range.max, i.zone.areaFt2))} lb for the zone's ${i.zone.areaFt2.toLocaleString("en-US")} ft²). Follow the seed label.`,
+        });
+    }
+  }
+  return findings;
 }

@@ -16,6 +16,7 @@ import {
   type RuleFinding,
   type RuleSetLimits,
 } from "@/lib/agronomy/rules";
+import { seedingFindings, type ZoneTreatment } from "@/lib/agronomy/seeding";
 import { analysisOf, type ProductDto } from "@/lib/products/dto";
 
 import { RATE_UNIT_LABEL } from "./units";
@@ -31,6 +32,24 @@ export interface AssessmentInput {
   >;
   /** Other applications of this product on the same zone (for the label's yearly maximum and interval). */
   sameProductOnZone: { appliedOn: string; productLbPer1000: number }[];
+  /** The zone's other applications, for the seeding checks (absent: not checked). */
+  zoneTreatments?: ZoneTreatment[];
+  /** The zone's grass species key (the seed rate check). */
+  zoneSpecies?: string;
+  /** Dates in words for the seeding warnings (default: as stored). */
+  formatDate?: (iso: string) => string;
+}
+
+/** A product as the seeding checks see it. */
+export function treatmentOf(product: ProductDto, date: string): ZoneTreatment {
+  return {
+    date,
+    productName: product.name,
+    preEmergence: product.preEmergenceActive
+      ? { active: product.preEmergenceActive, labelIntervalDays: product.seedingIntervalDays }
+      : null,
+    seedSpecies: product.seedSpecies,
+  };
 }
 
 export interface Assessment {
@@ -83,6 +102,16 @@ export function assessApplication(i: AssessmentInput): Assessment {
     ),
   );
   findings.push(...labelConditions(i.product.name, i.product.labelCautions, i.facts.weather));
+  if (i.zoneTreatments)
+    findings.push(
+      ...seedingFindings({
+        application: { ...treatmentOf(i.product, i.facts.appliedOn), productLbPer1000: lb },
+        others: i.zoneTreatments,
+        zone: { speciesKey: i.zoneSpecies ?? "", areaFt2: i.areaFt2 },
+        isEstablishing: i.facts.isEstablishing,
+        formatDate: i.formatDate ?? ((d) => d),
+      }),
+    );
   return {
     per1000,
     totals,

@@ -15,7 +15,7 @@ import { correctionReasonFor } from "@/lib/audit/correction";
 import { recordAudit } from "@/lib/audit/record";
 import type { Actor } from "@/lib/auth/actor";
 import { visitInScope } from "@/lib/auth/scope";
-import { formatDate, todayIn } from "@/lib/dates";
+import { addDays, formatDate, todayIn } from "@/lib/dates";
 import { AppError, notFound } from "@/lib/http/app-error";
 import { toProductDto } from "@/lib/products/map";
 import { findGrassSpecies } from "@/lib/reference/grass-species";
@@ -278,6 +278,30 @@ async function prepareApplication(
     .where("product_id", "=", product.id)
     .$if(correcting !== null, (q) => q.where("id", "!=", correcting!.id))
     .execute();
+  // The zone's applications of seed and pre-emergence products in the year around this one
+  // (the longest interval is under a year), for the seeding checks (lib/agronomy/seeding.ts).
+  const seedingRows = await db()
+    .selectFrom("applications")
+    .innerJoin("products", "products.id", "applications.product_id")
+    .select([
+      "applications.applied_on",
+      "products.name",
+      "products.pre_emergence_active",
+      "products.seeding_interval_days",
+      "products.seed_species",
+    ])
+    .where("applications.company_id", "=", actor.companyId)
+    .where("applications.zone_id", "=", zone.id)
+    .where((eb) =>
+      eb.or([
+        eb("products.pre_emergence_active", "is not", null),
+        eb("products.seed_species", "is not", null),
+      ]),
+    )
+    .where("applications.applied_on", ">", addDays(appliedOn, -366))
+    .where("applications.applied_on", "<", addDays(appliedOn, 366))
+    .$if(correcting !== null, (q) => q.where("applications.id", "!=", correcting!.id))
+    .execute();
   let assessed: Assessment;
   try {
     assessed = assessApplication({
@@ -314,6 +338,16 @@ async function prepareApplication(
               }
             : null,
       },
+      zoneTreatments: seedingRows.map((r) => ({
+        date: r.applied_on,
+        productName: r.name,
+        preEmergence: r.pre_emergence_active
+          ? { active: r.pre_emergence_active, labelIntervalDays: r.seeding_interval_days }
+          : null,
+        seedSpecies: r.seed_species,
+      })),
+      zoneSpecies: zone.grass_species,
+      formatDate: (d) => formatDate(d, actor.companyLocale),
       sameProductOnZone: sameProduct.map((r) => ({
         appliedOn: r.applied_on,
         productLbPer1000: (Number(r.product_total_lb) / Number(r.area_ft2)) * 1000,

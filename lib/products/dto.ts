@@ -1,5 +1,6 @@
 // A catalogue product as screens and the nutrient maths use it.
 import type { NitrogenRelease, ProductFormValue, RateUnitValue } from "@/db/schema";
+import type { PreEmergenceActive } from "@/lib/agronomy/seeding";
 
 export interface ProductDto {
   id: string;
@@ -19,6 +20,12 @@ export interface ProductDto {
   labelRateUnit: RateUnitValue | null;
   labelMaxYearly: number | null;
   labelMinIntervalDays: number | null;
+  /** A pre-emergence herbicide's active ingredient class; null: not one. */
+  preEmergenceActive: PreEmergenceActive | null;
+  /** The label's days between this pre-emergence and seeding; null: not entered. */
+  seedingIntervalDays: number | null;
+  /** The grass species of a seed product; null: not seed. */
+  seedSpecies: string | null;
   isArchived: boolean;
 }
 

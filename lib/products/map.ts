@@ -13,6 +13,9 @@ export const productColumns = (p: ProductInput) => ({
   ...(p.labelMinIntervalDays !== undefined
     ? { label_min_interval_days: p.labelMinIntervalDays }
     : {}),
+  ...(p.preEmergenceActive !== undefined ? { pre_emergence_active: p.preEmergenceActive } : {}),
+  ...(p.seedingIntervalDays !== undefined ? { seeding_interval_days: p.seedingIntervalDays } : {}),
+  ...(p.seedSpecies !== undefined ? { seed_species: p.seedSpecies } : {}),
   name: p.name,
   form: p.form,
   n_pct: p.nPct,
@@ -45,6 +48,9 @@ export function toProductDto(p: Product): ProductDto {
     labelRateUnit: p.label_rate_unit,
     labelMaxYearly: p.label_max_yearly === null ? null : Number(p.label_max_yearly),
     labelMinIntervalDays: p.label_min_interval_days,
+    preEmergenceActive: p.pre_emergence_active,
+    seedingIntervalDays: p.seeding_interval_days,
+    seedSpecies: p.seed_species,
     isArchived: p.archived_at !== null,
   };
 }

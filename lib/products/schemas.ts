@@ -3,6 +3,7 @@
 import { z } from "zod/mini";
 
 import { RATE_UNITS } from "@/lib/agronomy/nutrients";
+import { PRE_EMERGENCE_ACTIVES, SEED_SPECIES_KEYS } from "@/lib/agronomy/seeding";
 
 const pct = (label: string) =>
   z
@@ -62,9 +63,53 @@ export const productSchema = z
           .check(z.gte(1, "At least 1 day."), z.lte(366, "At most 366 days.")),
       ),
     ),
+    // Pre-emergence herbicide and seed (absent: unchanged, or neither).
+    preEmergenceActive: z.optional(
+      z.nullable(z.enum(PRE_EMERGENCE_ACTIVES, "Choose the pre-emergence active ingredient.")),
+    ),
+    seedingIntervalDays: z.optional(
+      z.nullable(
+        z
+          .int("Days between this product and seeding: enter whole days.")
+          .check(
+            z.gte(0, "Days between this product and seeding: 0 or more."),
+            z.lte(366, "Days between this product and seeding: at most 366."),
+          ),
+      ),
+    ),
+    seedSpecies: z.optional(
+      z.nullable(
+        z.enum(SEED_SPECIES_KEYS, "Seed species: choose a grass species grown from seed."),
+      ),
+    ),
   })
   .check(
     z.superRefine((p, ctx) => {
+      if ((p.preEmergenceActive ?? null) !== null && (p.seedSpecies ?? null) !== null)
+        ctx.addIssue({
+          code: "custom",
+          path: ["seedSpecies"],
+          message: "A product is either seed or a pre-emergence herbicide, not both.",
+        });
+      if ((p.seedingIntervalDays ?? null) !== null && (p.preEmergenceActive ?? null) === null)
+        ctx.addIssue({
+          code: "custom",
+          path: ["seedingIntervalDays"],
+          message: "Days between this product and seeding: only for a pre-emergence herbicide.",
+        });
+      if (p.preEmergenceActive === "other" && (p.seedingIntervalDays ?? null) === null)
+        ctx.addIssue({
+          code: "custom",
+          path: ["seedingIntervalDays"],
+          message:
+            "Days between this product and seeding: enter the label's interval (no typical value is known for this active).",
+        });
+      if ((p.preEmergenceActive ?? null) !== null && !p.isPesticide)
+        ctx.addIssue({
+          code: "custom",
+          path: ["isPesticide"],
+          message: "A pre-emergence herbicide is a pesticide: tick “This is a pesticide”.",
+        });
       if (p.nPct + p.p2o5Pct + p.k2oPct > 100)
         ctx.addIssue({
           code: "custom",

@@ -31,9 +31,14 @@
 // - Declining Index: the zone's trend word is "declining" — at least 5 checks in 120 days, a
 //   slope ≤ −2 points per 30 days whose 90 % interval lies below zero (trendWord in
 //   lib/scoring/trend.ts); −6 or worse is high.
+// - Pre-emergence and seeding: a seed product and a pre-emergence herbicide recorded on one zone
+//   closer than the herbicide's interval (the label's, else the typical one —
+//   lib/agronomy/seeding.ts), raised while the later of the two is within that interval of the
+//   day (the seedlings are still at risk); moderate, since the seeding may fail. The label decides.
 // - Late-season feeding: cool-season turf, from 1 September to the start of the rule set's
 //   blackout (else 30 November), with no N since 1 September — a reminder (low).
-import { formatShortDate } from "@/lib/dates";
+import { seedingConflicts, type ZoneTreatment } from "@/lib/agronomy/seeding";
+import { daysBetween, formatShortDate } from "@/lib/dates";
 import { mowingReading, ONE_THIRD_RULE } from "@/lib/reference/mowing";
 import { findSymptom } from "@/lib/reference/symptoms";
 
@@ -60,7 +65,8 @@ export type AlertKind =
   | "mowing_too_short"
   | "torn_tips"
   | "declining_index"
-  | "late_season_feeding";
+  | "late_season_feeding"
+  | "seeding_conflict";
 
 export type Severity = "low" | "moderate" | "high";
 
@@ -633,5 +639,48 @@ export function lateSeasonFeeding(
     evidence,
     source: SOURCES.lateSeason,
     summary: `A late-season feeding is due before ${day(windowEnd)}: no nitrogen since September 1.`,
+  };
+}
+
+/**
+ * A seeding and a pre-emergence herbicide on one zone closer than the herbicide's interval
+ * (lib/agronomy/seeding.ts), while the later of the two is still within it on `at`.
+ */
+export function seedingConflict(treatments: ZoneTreatment[], at: string): RuleResult {
+  const live = seedingConflicts(treatments.filter((t) => t.date <= at)).filter((c) => {
+    const later = c.seeding.date > c.preEmergence.date ? c.seeding.date : c.preEmergence.date;
+    return daysBetween(later, at) < c.intervalDays;
+  });
+  const c = live[0];
+  const source =
+    "Product label (the label decides); typical intervals: Weed Technology 19(1), 2005 — see lib/agronomy/seeding.ts";
+  if (!c)
+    return quiet("seeding_conflict", source, {
+      values: { seededOn: null, preEmergenceOn: null },
+      threshold: "a seeding and a pre-emergence herbicide closer than the label's interval",
+      window: "the last 12 months",
+    });
+  const after = c.daysApart > 0;
+  return {
+    kind: "seeding_conflict",
+    raised: true,
+    severity: "moderate",
+    evidence: {
+      values: {
+        seededOn: c.seeding.date,
+        seedProduct: c.seeding.productName,
+        preEmergenceOn: c.preEmergence.date,
+        preEmergenceProduct: c.preEmergence.productName,
+        daysApart: Math.abs(c.daysApart),
+        intervalDays: c.intervalDays,
+        intervalFrom: c.intervalFromLabel ? "the product label" : c.source,
+      },
+      threshold: `fewer than ${c.intervalDays} days between the pre-emergence and seeding`,
+      window: "the last 12 months",
+    },
+    source: c.intervalFromLabel ? `Product label: ${c.preEmergence.productName}` : c.source,
+    summary: after
+      ? `Seeded on ${formatShortDate(c.seeding.date)}, ${Math.abs(c.daysApart)} days after ${c.preEmergence.productName} (a pre-emergence herbicide) on ${formatShortDate(c.preEmergence.date)}; the interval is ${c.intervalDays} days. The seed may not come up: check the seeding and follow the product label.`
+      : `${c.preEmergence.productName} (a pre-emergence herbicide) went down on ${formatShortDate(c.preEmergence.date)}, ${Math.abs(c.daysApart)} days after seeding on ${formatShortDate(c.seeding.date)}; the interval is ${c.intervalDays} days. The seedlings may fail: check them and follow the product label.`,
   };
 }

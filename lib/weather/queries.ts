@@ -4,6 +4,8 @@
 import "server-only";
 
 import { db } from "@/db";
+import { crabgrassTiming } from "@/lib/agronomy/crabgrass";
+import { soilTempEstimateF } from "@/lib/agronomy/seeding";
 import { lawnKc } from "@/lib/agronomy/water";
 import type { Actor } from "@/lib/auth/actor";
 import { propertyInScope } from "@/lib/auth/scope";
@@ -88,6 +90,10 @@ export async function getPropertyWeather(
 
   const derived = deriveDays(result.days, { latitudeDeg: property.latitude, kc, wateringInByDate });
   const past = derived.filter((d) => d.date <= today);
+  const toF = (c: number) => (c * 9) / 5 + 32;
+  const pastF = result.days
+    .filter((d) => d.date <= today)
+    .map((d) => ({ date: d.date, tmaxF: toF(d.tmaxC), tminF: toF(d.tminC) }));
   return {
     status: result.status,
     message: result.message,
@@ -96,5 +102,7 @@ export async function getPropertyWeather(
     days: derived.filter((d) => d.date > addDays(today, -14)),
     gddSinceJan1F:
       past.length && past[0]!.date === jan1 ? past[past.length - 1]!.gddSinceStartF : null,
+    crabgrass: crabgrassTiming(pastF, today),
+    soilTempEstimateF: soilTempEstimateF(pastF.filter((d) => d.date > addDays(today, -5))),
   };
 }

@@ -5,6 +5,7 @@ import { describe, expect, it } from "vitest";
 import {
   readSeedRate,
   seedingConflicts,
+  seedingFindings,
   seedingInterval,
   seedingWindow,
   seedRate,
@@ -13,6 +14,7 @@ import {
   type ZoneTreatment,
 } from "@/lib/agronomy/seeding";
 import { grassSpecies } from "@/lib/reference/grass-species";
+import { seedingConflict } from "@/lib/risk/rules";
 
 describe("seed rates (Cornell Safe Sports Fields seeding-rate table; Nebraska Extension 2021)", () => {
   it("new seeding: Kentucky bluegrass 1–3, perennial ryegrass 4–6, tall fescue 6–8 lb/1,000 ft² (Cornell table)", () => {
@@ -141,5 +143,81 @@ describe("pre-emergence and seeding (Weed Technology 19(1) 2005 intervals; sidur
   it("the closest pair comes first", () => {
     const cs = seedingConflicts([pre("2026-04-01"), pre("2026-06-01"), seed("2026-06-20")]);
     expect(cs.map((c) => c.preEmergence.date)).toEqual(["2026-06-01", "2026-04-01"]);
+  });
+});
+
+describe("the seeding findings on a record and the risk rule (intervals as above; the label decides)", () => {
+  const seedT = (date: string): ZoneTreatment => ({
+    date,
+    productName: "Demo fescue seed",
+    preEmergence: null,
+    seedSpecies: "tall_fescue",
+  });
+  const preT = (date: string, labelIntervalDays: number | null = 112): ZoneTreatment => ({
+    date,
+    productName: "Demo prodiamine",
+    preEmergence: { active: "prodiamine", labelIntervalDays },
+    seedSpecies: null,
+  });
+  const base = {
+    zone: { speciesKey: "tall_fescue", areaFt2: 2000 },
+    isEstablishing: false,
+    formatDate: (d: string) => `[${d}]`,
+  };
+
+  it("a pre-emergence recorded 20 days after a seeding warns with the seeding's date and product", () => {
+    const [f] = seedingFindings({
+      ...base,
+      application: { ...preT("2026-09-25"), productLbPer1000: 2 },
+      others: [seedT("2026-09-05")],
+    });
+    expect(f).toMatchObject({ key: "seeding_conflict", severity: "warning", limit: 112 });
+    expect(f!.message).toContain("Demo fescue seed on [2026-09-05], 20 days before this");
+    expect(f!.message).toContain("the label asks for 112 days");
+  });
+
+  it("a seeding at 3.5 lb/1,000 ft² is within tall fescue's 3–4 lb overseeding range; 6 lb is above it", () => {
+    const at = (lb: number) =>
+      seedingFindings({
+        ...base,
+        application: { ...seedT("2026-09-05"), productLbPer1000: lb },
+        others: [],
+      });
+    expect(at(3.5)).toEqual([]);
+    const [f] = at(6);
+    expect(f).toMatchObject({ key: "seed_rate", limit: "3–4" });
+    expect(f!.message).toContain("6–8 lb for the zone's 2,000 ft²");
+  });
+
+  it("products that are neither seed nor pre-emergence are not checked", () => {
+    const fert: ZoneTreatment = {
+      date: "2026-09-05",
+      productName: "Feed",
+      preEmergence: null,
+      seedSpecies: null,
+    };
+    expect(
+      seedingFindings({
+        ...base,
+        application: { ...fert, productLbPer1000: 3 },
+        others: [preT("2026-09-01")],
+      }),
+    ).toEqual([]);
+  });
+
+  it("the alert is raised while the later of the two is within the interval, quiet after", () => {
+    const ts = [preT("2026-04-01"), seedT("2026-06-01")]; // 61 days apart, interval 112
+    const r = seedingConflict(ts, "2026-06-02");
+    expect(r).toMatchObject({ kind: "seeding_conflict", raised: true, severity: "moderate" });
+    expect(r.evidence.values).toMatchObject({
+      seededOn: "2026-06-01",
+      preEmergenceOn: "2026-04-01",
+      daysApart: 61,
+      intervalDays: 112,
+      intervalFrom: "the product label",
+    });
+    expect(seedingConflict(ts, "2026-09-20").raised).toBe(true); // 111 days after the seeding
+    expect(seedingConflict(ts, "2026-09-21").raised).toBe(false); // 112 days
+    expect(seedingConflict(ts, "2026-05-31").raised).toBe(false); // the seeding is not yet
   });
 });

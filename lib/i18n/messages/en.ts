@@ -24,6 +24,7 @@ export const en = {
       torn_tips: "Torn tips (dull blade)",
       declining_index: "Declining Index",
       late_season_feeding: "Late-season feeding due",
+      seeding_conflict: "Pre-emergence and seeding too close",
     },
     soilExtractants: {
       mehlich3: "Mehlich-3",
@@ -57,6 +58,13 @@ export const en = {
       resolved: "Resolved",
     },
     evidence: {
+      seededOn: "Seeded on",
+      seedProduct: "Seed",
+      preEmergenceOn: "Pre-emergence applied on",
+      preEmergenceProduct: "Pre-emergence herbicide",
+      daysApart: "Days apart",
+      intervalDays: "Interval between it and seeding (days)",
+      intervalFrom: "Interval from",
       sameDirectionChecks: "Of the last 3 checks, mowed the same way",
       mattingSeen: "Matting seen",
       diseaseSeen: "Disease already showing",
@@ -248,6 +256,39 @@ export const en = {
       saved: "Saved. Today's routes start and end at the yard.",
       cleared: "Saved. No yard is set: routes run from the first stop to the last.",
     },
+  },
+  seeding: {
+    formHint:
+      "{kind, select, new {New seeding} other {Overseeding}} {species}: {min}–{max} lb of seed per 1,000 ft², so {loadMin, number, ::.##}–{loadMax, number, ::.##} lb for this zone ({area, number} ft²). The seed label's rate comes first.",
+    crabgrassTitle: "Crabgrass pre-emergence",
+    stage:
+      "{stage, select, early {Not yet: the window has not opened} apply_now {Apply now} closing {Window closing} other {Too late for pre-emergence: post-emergence control}}",
+    stageDetail:
+      "{stage, select, early {Pre-emergence goes down when the soil nears 50–55 °F; too early and it wears off before crabgrass comes up.} apply_now {The soil is warming toward crabgrass germination: apply the pre-emergence and water it in before emergence starts.} closing {Crabgrass can start emerging now: a pre-emergence still works only where it has not come up. Apply and water in without delay.} other {Crabgrass has germinated: pre-emergence will not stop what is up. Use a post-emergence control where it is up, per the product label (dithiopyr also controls crabgrass up to one tiller).}}",
+    gdd50: "Growing degree days (base 50 °F) since January 1: {gdd, number, ::.#}",
+    gdd32: "Growing degree days (base 32 °F) since February 15: {gdd, number, ::.#}",
+    opened: "Window opened {date} (250 GDD base 32 °F)",
+    closing: "Emergence possible from {date} (70 GDD base 50 °F)",
+    late: "Crabgrass germination by {date} (200 GDD base 50 °F)",
+    asOf: "From the daily weather to {date}.",
+    missing:
+      "{count, plural, one {# day} other {# days}} of this year are missing from the weather history: the totals run low.",
+    noWeather:
+      "No weather history for this year yet: the crabgrass timing needs the property's daily highs and lows.",
+    sources:
+      "Thresholds: Michigan State University (Calhoun 2004) for the window opening; Virginia Tech (2007) and Purdue University for emergence. A guide only: the product label, local ordinances and licensed practice come first.",
+    seedTitle: "Seeding",
+    soil: "Soil near the surface, estimated from the last 5 days' air: {temp, number, ::.#} °F. A soil thermometer reading comes first.",
+    soilNone: "Soil temperature: not enough recent weather to estimate it.",
+    window:
+      "{window, select, too_cold {Too cold to seed: germination stalls below {min} °F} good {Good for seeding this zone's grass ({min}–{max} °F)} other {Warm: seed germinates, but seedlings face heat and summer weeds — keep the seedbed moist}}",
+    zoneRate:
+      "{zone} ({species}, {area, number} ft²): overseed {oMin}–{oMax} lb per 1,000 ft² ({oLoadMin, number, ::.##}–{oLoadMax, number, ::.##} lb to load); new seeding {nMin}–{nMax} lb ({nLoadMin, number, ::.##}–{nLoadMax, number, ::.##} lb).",
+    zoneNoSeed: "{zone} ({species}): grown from sod, sprigs or plugs, not seed.",
+    seedSources:
+      "Rates: Cornell University seeding-rate table (cool-season), extension tables for the rest; overseeding at half the rate (Nebraska Extension). Germination soil temperatures as extension services give them. The seed label comes first.",
+    preEmergenceWarning:
+      "A pre-emergence herbicide stops grass seed as it stops crabgrass: most labels say not to seed for weeks to months after (siduron and mesotrione are labeled at seeding). Sward flags a seeding and a pre-emergence on the same zone closer than the label's interval.",
   },
   lawn: {
     improving: "Your lawn is getting healthier.",

@@ -20,6 +20,7 @@ import {
 import { PropertyHeader } from "@/components/properties/property-header";
 import { ZoneList } from "@/components/properties/zone-list";
 import { RiskAlertList } from "@/components/risk-alerts/risk-alert-list";
+import { SeedingSection } from "@/components/seeding/seeding-section";
 import { SoilTests } from "@/components/soil-tests/soil-tests";
 import { PropertyIndexSection } from "@/components/sward-index/property-index-section";
 import { buttonClass } from "@/components/ui/button";
@@ -107,6 +108,7 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
     ["alerts", "Risk alerts"],
     ["zones", "Zones"],
     ["program", "Season program"],
+    ["seeding", "Crabgrass and seeding"],
     ["index", "Sward Index"],
     ...(latestPhotos.length ? ([["photos", "Photos"]] as [string, string][]) : []),
     ["visits", "Visits"],
@@ -254,6 +256,8 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
           />
         </NextIntlClientProvider>
       </section>
+
+      <SeedingSection weather={weather} zones={property.zones} locale={actor.companyLocale} />
 
       <div id="index" className="mt-10 scroll-mt-4">
         <PropertyIndexSection
