@@ -56,7 +56,7 @@ const row = (min: number, max: number, source: string): SpeciesSeeding => ({
 });
 
 /** Seed rates by the species keys of lib/reference/grass-species.ts (no entry: not seeded). */
-export const SEEDING_RATES: Readonly<Record<string, SpeciesSeeding>> = {
+const SEEDING_RATES: Readonly<Record<string, SpeciesSeeding>> = {
   kentucky_bluegrass: row(1, 3, CORNELL),
   perennial_ryegrass: row(4, 6, CORNELL),
   tall_fescue: row(6, 8, CORNELL),
@@ -145,7 +145,7 @@ const WEED_TECH_2005 =
   "Weed Technology 19(1), 2005: Preemergence herbicide and seeding method effects on seedling growth of Kentucky bluegrass (slit seeding)";
 
 /** Typical days between the active and seeding, and where the figure is from. */
-export const TYPICAL_SEEDING_INTERVAL: Readonly<
+const TYPICAL_SEEDING_INTERVAL: Readonly<
   Record<PreEmergenceActive, { days: number | null; source: string }>
 > = {
   prodiamine: { days: 112, source: WEED_TECH_2005 },
