@@ -38,6 +38,7 @@ const startPointRoute = await import("@/app/api/v1/people/[personId]/start-point
 const orderRoute = await import("@/app/api/v1/today/order/route");
 const programsRoute = await import("@/app/api/v1/programs/route");
 const zoneProgramRoute = await import("@/app/api/v1/zones/[zoneId]/program/route");
+const productsRoute = await import("@/app/api/v1/products/route");
 
 let c: TestCompany;
 const today = todayIn("America/New_York"); // the demo properties' zone
@@ -823,5 +824,64 @@ describe("the day's route: a property's phone and access notes, the yard, the da
     expect(atBound.status).toBe(409);
     const none = await post(orderRoute.PUT, { date: today, visitIds: [] }, {}, "PUT");
     expect(none.fieldErrors.visitIds?.[0]).toBe("Stops: list the day's stops, first to last.");
+  });
+
+  it("a product's days between it and seeding: 0–366 whole days, only for a pre-emergence; a seed species from the table", async () => {
+    current = await c.actor("manager");
+    const pre = (o: Record<string, unknown>) => ({
+      name: `Bound pre ${randomUUID().slice(0, 8)}`,
+      form: "granular",
+      nPct: 0,
+      p2o5Pct: 0,
+      k2oPct: 0,
+      slowReleasePctOfN: 0,
+      densityLbPerGal: null,
+      isPesticide: true,
+      registrationNumber: "DEMO-B-1",
+      labelCautions: "Demo label text.",
+      reentryGuidance: "Keep off until dry.",
+      labelMaxRate: 3,
+      labelRateUnit: "lb/1000ft2",
+      preEmergenceActive: "dithiopyr",
+      ...o,
+    });
+    const count = async () =>
+      Number(
+        (
+          await testDb()
+            .selectFrom("products")
+            .select((eb) => eb.fn.countAll().as("n"))
+            .where("company_id", "=", c.companyId)
+            .executeTakeFirstOrThrow()
+        ).n,
+      );
+    expect((await post(productsRoute.POST, pre({ seedingIntervalDays: 366 }))).status).toBe(200);
+    expect((await post(productsRoute.POST, pre({ seedingIntervalDays: 0 }))).status).toBe(200);
+    const before = await count();
+    const over = await post(productsRoute.POST, pre({ seedingIntervalDays: 367 }));
+    expect(over.fieldErrors.seedingIntervalDays?.[0]).toBe(
+      "Days between this product and seeding: at most 366.",
+    );
+    const under = await post(productsRoute.POST, pre({ seedingIntervalDays: -1 }));
+    expect(under.fieldErrors.seedingIntervalDays?.[0]).toBe(
+      "Days between this product and seeding: 0 or more.",
+    );
+    const part = await post(productsRoute.POST, pre({ seedingIntervalDays: 10.5 }));
+    expect(part.fieldErrors.seedingIntervalDays?.[0]).toMatch(/whole days/);
+    const notPre = await post(
+      productsRoute.POST,
+      pre({ preEmergenceActive: null, seedingIntervalDays: 30 }),
+    );
+    expect(notPre.fieldErrors.seedingIntervalDays?.[0]).toMatch(/only for a pre-emergence/);
+    const other = await post(productsRoute.POST, pre({ preEmergenceActive: "other" }));
+    expect(other.fieldErrors.seedingIntervalDays?.[0]).toMatch(/enter the label's interval/);
+    const both = await post(productsRoute.POST, pre({ seedSpecies: "tall_fescue" }));
+    expect(both.fieldErrors.seedSpecies?.[0]).toMatch(/either seed or a pre-emergence/);
+    const sod = await post(
+      productsRoute.POST,
+      pre({ preEmergenceActive: null, isPesticide: false, seedSpecies: "st_augustinegrass" }),
+    );
+    expect(sod.fieldErrors.seedSpecies?.[0]).toMatch(/grown from seed/);
+    expect(await count()).toBe(before);
   });
 });
