@@ -99,7 +99,7 @@ describe("crabgrass timing and seeding", () => {
     await page.locator("[data-seeding-card]").scrollIntoViewIfNeeded();
     await snap(page, "seeding-02-seed-rates");
     await context.close();
-  });
+  }, 120_000);
 
   it("recording a pre-emergence after a seeding on the zone shows the warning with the seeding's date and product", async () => {
     const { context, page } = await phone();
@@ -143,5 +143,5 @@ describe("crabgrass timing and seeding", () => {
     await warning.scrollIntoViewIfNeeded();
     await snap(page, "seeding-05-conflict-recorded");
     await context.close();
-  });
+  }, 120_000);
 });

@@ -264,7 +264,7 @@ export const en = {
     stage:
       "{stage, select, early {Not yet: the window has not opened} apply_now {Apply now} closing {Window closing} other {Too late for pre-emergence: post-emergence control}}",
     stageDetail:
-      "{stage, select, early {Pre-emergence goes down when the soil nears 50–55 °F; too early and it wears off before crabgrass comes up.} apply_now {The soil is warming toward crabgrass germination: apply the pre-emergence and water it in before emergence starts.} closing {Crabgrass can start emerging now: a pre-emergence still works only where it has not come up. Apply and water in without delay.} other {Crabgrass has germinated: pre-emergence will not stop what is up. Use a post-emergence control where it is up, per the product label (dithiopyr also controls crabgrass up to one tiller).}}",
+      "{stage, select, early {Pre-emergence goes down when the soil nears 50–55 °F; too early and it wears off before crabgrass comes up.} apply_now {The soil is warming toward crabgrass germination: apply the pre-emergence and water it in before emergence starts.} closing {Crabgrass can start emerging now: a pre-emergence still works only where it has not come up. Apply and water in without delay.} other {Crabgrass has germinated this year: pre-emergence will not stop what is up. Use a post-emergence control where it is up, per the product label (dithiopyr also controls crabgrass up to one tiller). Next year's window is counted again from February 15.}}",
     gdd50: "Growing degree days (base 50 °F) since January 1: {gdd, number, ::.#}",
     gdd32: "Growing degree days (base 32 °F) since February 15: {gdd, number, ::.#}",
     opened: "Window opened {date} (250 GDD base 32 °F)",

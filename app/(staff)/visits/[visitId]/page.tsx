@@ -1,5 +1,7 @@
 import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import type { Metadata } from "next";
+import { NextIntlClientProvider } from "next-intl";
+import { getMessages } from "next-intl/server";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
 
@@ -38,6 +40,7 @@ async function VisitBody({ actor, visitId }: { actor: Actor; visitId: string }) 
   const alerts = (await listPropertyAlerts(actor, visit.propertyId)).filter(
     (a) => a.status !== "resolved",
   );
+  const messages = await getMessages();
   const queryClient = makeQueryClient();
   queryClient.setQueryData(visitKeys.detail(visit.id), visit);
   queryClient.setQueryData(meKeys.applicator(), await getRememberedApplicator(actor));
@@ -45,23 +48,26 @@ async function VisitBody({ actor, visitId }: { actor: Actor; visitId: string }) 
   return (
     <HydrationBoundary state={dehydrate(queryClient)}>
       <Suspense>
-        <VisitRunner
-          visitId={visit.id}
-          isManager={actor.role === "manager"}
-          alerts={
-            <section aria-labelledby="visit-alerts-title" className="mb-6">
-              <h2 id="visit-alerts-title" className="mb-2 text-xl font-bold">
-                Risk alerts for this property
-              </h2>
-              <RiskAlertList
-                alerts={alerts}
-                canResolve={actor.role === "manager"}
-                timeZone={visit.timeZone}
-                empty="Nothing raised: no open risk alerts for this property."
-              />
-            </section>
-          }
-        />
+        {/* The seed-rate hint of the application form reads the catalogue on the client. */}
+        <NextIntlClientProvider messages={{ seeding: { formHint: messages.seeding.formHint } }}>
+          <VisitRunner
+            visitId={visit.id}
+            isManager={actor.role === "manager"}
+            alerts={
+              <section aria-labelledby="visit-alerts-title" className="mb-6">
+                <h2 id="visit-alerts-title" className="mb-2 text-xl font-bold">
+                  Risk alerts for this property
+                </h2>
+                <RiskAlertList
+                  alerts={alerts}
+                  canResolve={actor.role === "manager"}
+                  timeZone={visit.timeZone}
+                  empty="Nothing raised: no open risk alerts for this property."
+                />
+              </section>
+            }
+          />
+        </NextIntlClientProvider>
       </Suspense>
     </HydrationBoundary>
   );
