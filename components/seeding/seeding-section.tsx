@@ -46,9 +46,9 @@ export async function SeedingSection({
           <>
             <p className="mt-1 flex items-center gap-2 text-xl font-bold">
               <look.Icon className="size-6 shrink-0" aria-hidden="true" />
-              {t("stage", { stage: c.stage })}
+              {t(`stage.${c.stage}`)}
             </p>
-            <p className="mt-2">{t("stageDetail", { stage: c.stage })}</p>
+            <p className="mt-2">{t(`stageDetail.${c.stage}`)}</p>
             <ul className="mt-3 space-y-1 text-sm tabular-nums">
               <li>{t("gdd50", { gdd: c.gdd50 })}</li>
               <li>{t("gdd32", { gdd: c.gdd32 })}</li>
@@ -81,8 +81,7 @@ export async function SeedingSection({
           <ul className="mt-1 space-y-1 text-sm font-semibold">
             {seasons.map((season) => (
               <li key={season}>
-                {t("window", {
-                  window: seedingWindow(soil, season),
+                {t(`window.${seedingWindow(soil, season)}`, {
                   min: GERMINATION_SOIL_F[season].min,
                   max: GERMINATION_SOIL_F[season].max,
                 })}

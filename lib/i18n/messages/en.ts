@@ -261,10 +261,22 @@ export const en = {
     formHint:
       "{kind, select, new {New seeding} other {Overseeding}} {species}: {min}–{max} lb of seed per 1,000 ft², so {loadMin, number, ::.##}–{loadMax, number, ::.##} lb for this zone ({area, number} ft²). The seed label's rate comes first.",
     crabgrassTitle: "Crabgrass pre-emergence",
-    stage:
-      "{stage, select, early {Not yet: the window has not opened} apply_now {Apply now} closing {Window closing} other {Too late for pre-emergence: post-emergence control}}",
-    stageDetail:
-      "{stage, select, early {Pre-emergence goes down when the soil nears 50–55 °F; too early and it wears off before crabgrass comes up.} apply_now {The soil is warming toward crabgrass germination: apply the pre-emergence and water it in before emergence starts.} closing {Crabgrass can start emerging now: a pre-emergence still works only where it has not come up. Apply and water in without delay.} other {Crabgrass has germinated this year: pre-emergence will not stop what is up. Use a post-emergence control where it is up, per the product label (dithiopyr also controls crabgrass up to one tiller). Next year's window is counted again from February 15.}}",
+    stage: {
+      early: "Not yet: the window has not opened",
+      apply_now: "Apply now",
+      closing: "Window closing",
+      too_late: "Too late for pre-emergence: post-emergence control",
+    },
+    stageDetail: {
+      early:
+        "Pre-emergence goes down when the soil nears 50–55 °F; too early and it wears off before crabgrass comes up.",
+      apply_now:
+        "The soil is warming toward crabgrass germination: apply the pre-emergence and water it in before emergence starts.",
+      closing:
+        "Crabgrass can start emerging now: a pre-emergence still works only where it has not come up. Apply and water in without delay.",
+      too_late:
+        "Crabgrass has germinated this year: pre-emergence will not stop what is up. Use a post-emergence control where it is up, per the product label (dithiopyr also controls crabgrass up to one tiller). Next year's window is counted again from February 15.",
+    },
     gdd50: "Growing degree days (base 50 °F) since January 1: {gdd, number, ::.#}",
     gdd32: "Growing degree days (base 32 °F) since February 15: {gdd, number, ::.#}",
     opened: "Window opened {date} (250 GDD base 32 °F)",
@@ -280,8 +292,11 @@ export const en = {
     seedTitle: "Seeding",
     soil: "Soil near the surface, estimated from the last 5 days' air: {temp, number, ::.#} °F. A soil thermometer reading comes first.",
     soilNone: "Soil temperature: not enough recent weather to estimate it.",
-    window:
-      "{window, select, too_cold {Too cold to seed: germination stalls below {min} °F} good {Good for seeding this zone's grass ({min}–{max} °F)} other {Warm: seed germinates, but seedlings face heat and summer weeds — keep the seedbed moist}}",
+    window: {
+      too_cold: "Too cold to seed: germination stalls below {min} °F",
+      good: "Good for seeding this zone's grass ({min}–{max} °F)",
+      warm: "Warm: seed germinates, but seedlings face heat and summer weeds — keep the seedbed moist",
+    },
     zoneRate:
       "{zone} ({species}, {area, number} ft²): overseed {oMin}–{oMax} lb per 1,000 ft² ({oLoadMin, number, ::.##}–{oLoadMax, number, ::.##} lb to load); new seeding {nMin}–{nMax} lb ({nLoadMin, number, ::.##}–{nLoadMax, number, ::.##} lb).",
     zoneNoSeed: "{zone} ({species}): grown from sod, sprigs or plugs, not seed.",
