@@ -7,7 +7,11 @@ import { DeviceOwner } from "@/components/pwa/device-owner";
 import { SwardMark } from "@/components/ui/sward-mark";
 import type { Actor } from "@/lib/auth/actor";
 
+import { MoreMenu } from "./more-menu";
 import { NavLink } from "./nav-link";
+
+/** The phone bar holds this many entries; with more, the last place is "More" with the rest. */
+const BAR_ENTRIES = 5;
 
 export interface NavItem {
   href: string;
@@ -32,6 +36,8 @@ export function AppShell({
   nav: NavItem[];
   children: ReactNode;
 }) {
+  const onBar = nav.length > BAR_ENTRIES ? nav.slice(0, BAR_ENTRIES - 1) : nav;
+  const inMore = nav.slice(onBar.length);
   return (
     <div className="min-h-dvh md:flex">
       <DeviceOwner userId={actor.userId} />
@@ -78,12 +84,22 @@ export function AppShell({
           aria-label="Main"
           className="no-print fixed inset-x-0 bottom-0 flex gap-0.5 border-t border-line bg-card px-1 pt-2 pb-[max(0.5rem,env(safe-area-inset-bottom))] md:hidden"
         >
-          {nav.map(({ href, label, icon: Icon, also }) => (
+          {onBar.map(({ href, label, icon: Icon, also }) => (
             <NavLink key={href} href={href} also={also} variant="bar">
               <Icon className="size-6" aria-hidden="true" />
               {label}
             </NavLink>
           ))}
+          {inMore.length ? (
+            <MoreMenu paths={inMore.flatMap((item) => [item.href, ...(item.also ?? [])])}>
+              {inMore.map(({ href, label, icon: Icon, also }) => (
+                <NavLink key={href} href={href} also={also} variant="side">
+                  <Icon className="size-5" aria-hidden="true" />
+                  {label}
+                </NavLink>
+              ))}
+            </MoreMenu>
+          ) : null}
         </nav>
       </div>
     </div>
