@@ -101,9 +101,13 @@ describe("crabgrass timing and seeding", () => {
     await context.close();
   }, 120_000);
 
-  // Skipped, to be found next: on the visit page the seed-rate hint ([data-seed-rate]) was not seen
-  // after choosing the seed product (30 s), so the steps after it never ran. The same checks pass
-  // through the route in tests/integration/seeding.test.ts and in the pure tests.
+  // Skipped, to be found next (two causes seen on 2026-12-03): (1) a product chosen at once after
+  // "Record an application" opens the panel is lost within a few seconds (the select reads empty
+  // again; with a 4 s wait before choosing, the seed-rate hint, the recorded seeding and the
+  // conflict preview all pass) — the panel's form is re-initialized after it opens; (2) after that,
+  // the recorded pre-emergence's stored warning was not seen in "Applications on this zone" (the
+  // record now goes through the device outbox). The same checks pass through the route in
+  // tests/integration/seeding.test.ts and in the pure tests.
   it.skip("recording a pre-emergence after a seeding on the zone shows the warning with the seeding's date and product", async () => {
     const { context, page } = await phone();
     await page.goto(`/visits/${visitId}?zone=${zoneId}`);
