@@ -9,17 +9,15 @@ import { AppShell } from "@/components/shell/app-shell";
 import { staffNav } from "@/components/shell/staff-nav";
 import { OutboxSync } from "@/components/visits/outbox-sync";
 import { requireActor } from "@/lib/auth/require";
+import { staffClientMessages } from "@/lib/i18n/staff-messages";
 
 export default async function StaffLayout({ children }: { children: ReactNode }) {
   const actor = await requireActor(["manager", "technician"]);
   const messages = await getMessages();
-  const { fields, blank, yes, no, symptoms } = messages.audit;
   return (
     // The words of what waits on the phone (lib/offline) and of a conflict's fields, on every
     // staff page: the outbox works from any of them.
-    <NextIntlClientProvider
-      messages={{ offline: messages.offline, audit: { fields, blank, yes, no, symptoms } }}
-    >
+    <NextIntlClientProvider messages={staffClientMessages(messages)}>
       <AppShell actor={actor} nav={staffNav(actor.role)}>
         <OutboxSync />
         {children}

@@ -34,6 +34,7 @@ import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { formatDate, todayIn } from "@/lib/dates";
 import { AppError } from "@/lib/http/app-error";
+import { staffClientMessages } from "@/lib/i18n/staff-messages";
 import { listPendingInvitations } from "@/lib/invitations/queries";
 import { BOOK_PATH, RISK_ALERTS_PATH } from "@/lib/paths";
 import { listLatestPhotoPerZone } from "@/lib/photos/queries";
@@ -242,6 +243,7 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
         </h2>
         <NextIntlClientProvider
           messages={{
+            ...staffClientMessages(messages),
             terms: {
               programRoundKinds: messages.terms.programRoundKinds,
               programMethods: messages.terms.programMethods,
@@ -345,6 +347,7 @@ async function PropertyBody({ actor, property }: { actor: Actor; property: Prope
         </h2>
         <NextIntlClientProvider
           messages={{
+            ...staffClientMessages(messages),
             terms: {
               soilExtractants: messages.terms.soilExtractants,
               bufferMethods: messages.terms.bufferMethods,

@@ -10,6 +10,7 @@ import { VisitRunner } from "@/components/visits/visit-runner";
 import type { Actor } from "@/lib/auth/actor";
 import { requireActor } from "@/lib/auth/require";
 import { AppError } from "@/lib/http/app-error";
+import { staffClientMessages } from "@/lib/i18n/staff-messages";
 import { getRememberedApplicator } from "@/lib/people/queries";
 import { meKeys } from "@/lib/people/query-keys";
 import { makeQueryClient } from "@/lib/query-client";
@@ -48,8 +49,14 @@ async function VisitBody({ actor, visitId }: { actor: Actor; visitId: string }) 
   return (
     <HydrationBoundary state={dehydrate(queryClient)}>
       <Suspense>
-        {/* The seed-rate hint of the application form reads the catalogue on the client. */}
-        <NextIntlClientProvider messages={{ seeding: { formHint: messages.seeding.formHint } }}>
+        {/* The seed-rate hint of the application form reads the catalogue on the client; the
+            outbox's words stay (a nested provider's messages replace the layout's). */}
+        <NextIntlClientProvider
+          messages={{
+            ...staffClientMessages(messages),
+            seeding: { formHint: messages.seeding.formHint },
+          }}
+        >
           <VisitRunner
             visitId={visit.id}
             isManager={actor.role === "manager"}
