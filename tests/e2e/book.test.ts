@@ -70,8 +70,13 @@ describe("the book", () => {
       await page.waitForURL(/trend=declining/);
       // Only declining properties remain (the Haddad lawn among them; a visit finished today by
       // another test may add one).
+      // (An empty list passes `every`: while the filtered page replaces the old one no row is
+      // shown for a moment, and a count taken then was 0 — wait for rows, all declining.)
       await expect
-        .poll(async () => (await rows.allInnerTexts()).every((t) => t.includes("Declining")))
+        .poll(async () => {
+          const texts = await rows.allInnerTexts();
+          return texts.length > 0 && texts.every((t) => t.includes("Declining"));
+        })
         .toBe(true);
       const shown = await rows.count();
       expect(await rows.first().getAttribute("data-property")).toBe("Haddad residence");
