@@ -16,10 +16,10 @@ export function MoreMenu({ paths, children }: { paths: string[]; children: React
   }, [pathname]);
   const isCurrent = paths.some((p) => pathname === p || pathname.startsWith(`${p}/`));
   return (
-    <details ref={ref} className="relative min-w-0 flex-1 basis-0">
+    <details ref={ref} className="relative flex min-w-0 flex-1 basis-0 flex-col">
       <summary
         className={clsx(
-          "flex min-h-tap cursor-pointer list-none flex-col items-center justify-center gap-0.5 rounded-lg px-0.5 py-1 text-center text-xs leading-tight font-semibold [&::-webkit-details-marker]:hidden",
+          "flex min-h-tap flex-1 cursor-pointer list-none flex-col items-center justify-center gap-0.5 rounded-lg px-0.5 py-1 text-center text-xs leading-tight font-semibold [&::-webkit-details-marker]:hidden",
           isCurrent ? "bg-sward-tint text-sward-deep" : "text-ink hover:bg-sward-tint",
         )}
       >
